@@ -1,0 +1,120 @@
+//! Bit-parallel simulation of the AIG: 64 input patterns per `u64` word.
+
+use super::{Aig, Lit, Node};
+
+/// Simulation values of every node, `words` words per node, node-major.
+#[derive(Clone, Debug)]
+pub struct SimTable {
+    /// Words per node.
+    pub words: usize,
+    /// `values[node * words + w]`.
+    pub values: Vec<u64>,
+}
+
+impl SimTable {
+    /// The words of node `n`.
+    #[inline]
+    pub fn node(&self, n: usize) -> &[u64] {
+        &self.values[n * self.words..(n + 1) * self.words]
+    }
+
+    /// Word `w` of literal `l` (complemented as the literal says).
+    #[inline]
+    pub fn lit_word(&self, l: Lit, w: usize) -> u64 {
+        let v = self.values[l.index() * self.words + w];
+        if l.is_complemented() {
+            !v
+        } else {
+            v
+        }
+    }
+
+    /// Bit `p` (pattern number) of literal `l`.
+    #[inline]
+    pub fn lit_bit(&self, l: Lit, p: usize) -> bool {
+        (self.lit_word(l, p / 64) >> (p % 64)) & 1 == 1
+    }
+}
+
+/// Simulate `aig` on `inputs[k]` (one slice of `words` words per primary input).
+pub fn simulate(aig: &Aig, inputs: &[Vec<u64>], words: usize) -> SimTable {
+    assert_eq!(inputs.len(), aig.num_inputs(), "one pattern row per input");
+    let mut values = vec![0u64; aig.len() * words];
+    for (i, node) in aig.nodes().iter().enumerate() {
+        match *node {
+            Node::Const => {}
+            Node::Input(k) => {
+                values[i * words..(i + 1) * words].copy_from_slice(&inputs[k as usize][..words]);
+            }
+            Node::And(a, b) => {
+                let (ma, mb) = (mask(a), mask(b));
+                let (ia, ib) = (a.index() * words, b.index() * words);
+                for w in 0..words {
+                    values[i * words + w] = (values[ia + w] ^ ma) & (values[ib + w] ^ mb);
+                }
+            }
+        }
+    }
+    SimTable { words, values }
+}
+
+#[inline]
+fn mask(l: Lit) -> u64 {
+    if l.is_complemented() {
+        u64::MAX
+    } else {
+        0
+    }
+}
+
+/// Evaluate the literals `roots` for one input vector.
+pub fn eval(aig: &Aig, inputs: &[bool], roots: &[Lit]) -> Vec<bool> {
+    assert_eq!(inputs.len(), aig.num_inputs(), "one value per input");
+    let mut v = vec![false; aig.len()];
+    for (i, node) in aig.nodes().iter().enumerate() {
+        v[i] = match *node {
+            Node::Const => false,
+            Node::Input(k) => inputs[k as usize],
+            Node::And(a, b) => {
+                (v[a.index()] ^ a.is_complemented()) & (v[b.index()] ^ b.is_complemented())
+            }
+        };
+    }
+    roots
+        .iter()
+        .map(|r| v[r.index()] ^ r.is_complemented())
+        .collect()
+}
+
+/// Deterministic pseudo-random words (SplitMix64) for `n` inputs and `words` words each.
+pub fn random_words(n: usize, words: usize, seed: u64) -> Vec<Vec<u64>> {
+    let mut state = seed ^ 0x9E37_79B9_7F4A_7C15;
+    let mut next = move || {
+        state = state.wrapping_add(0x9E37_79B9_7F4A_7C15);
+        let mut z = state;
+        z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
+        z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
+        z ^ (z >> 31)
+    };
+    (0..n).map(|_| (0..words).map(|_| next()).collect()).collect()
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn xor_simulates_like_xor() {
+        let mut g = Aig::new();
+        let a = g.add_input();
+        let b = g.add_input();
+        let x = g.xor(a, b);
+        let ins = random_words(2, 3, 1);
+        let t = simulate(&g, &ins, 3);
+        for w in 0..3 {
+            assert_eq!(t.lit_word(x, w), ins[0][w] ^ ins[1][w]);
+            assert_eq!(t.lit_word(!x, w), !(ins[0][w] ^ ins[1][w]));
+        }
+        assert_eq!(eval(&g, &[true, false], &[x, !x]), vec![true, false]);
+    }
+}

@@ -1,0 +1,242 @@
+//! A design after reading: its AIG, the names of its input and output bits, the gate-level
+//! netlist as written (for cost and delay), and where each name came from.
+//!
+//! **Invariant:** AIG input `k` is `inputs[k]`; every output literal refers to this design's AIG.
+
+use crate::aig::{Aig, Lit};
+use crate::diag::{Diagnostic, SourcePos};
+use serde::Serialize;
+
+/// What an AIG input stands for.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
+pub enum InputKind {
+    /// A bit of a primary input port; paired with the other design's input of the same name.
+    Port,
+    /// An unknown value (`x`/`z` literal, out-of-range select) at this place in the source,
+    /// modelled as a free input of this design only: the other design must match whatever it is.
+    Unknown {
+        /// Where the unknown value arises.
+        pos: SourcePos,
+        /// What produces it, e.g. "out-of-range select d[s]".
+        what: String,
+    },
+}
+
+/// One input bit.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct InputBit {
+    /// The bit's name: `name` for a scalar, `name[i]` for a bit of a bus.
+    pub name: String,
+    /// The port (bus) name without the index.
+    pub port: String,
+    /// The bit index within the bus, for a vector port.
+    pub index: Option<i64>,
+    /// Port bit or unknown value.
+    pub kind: InputKind,
+    /// Where the port is declared.
+    pub pos: Option<SourcePos>,
+}
+
+impl InputBit {
+    /// A port bit named `name` (scalar) or `port[index]`.
+    pub fn port(port: &str, index: Option<i64>, pos: Option<SourcePos>) -> InputBit {
+        InputBit {
+            name: bit_name(port, index),
+            port: port.to_string(),
+            index,
+            kind: InputKind::Port,
+            pos,
+        }
+    }
+
+    /// Whether this is an unknown-value source rather than a port bit.
+    pub fn is_unknown(&self) -> bool {
+        matches!(self.kind, InputKind::Unknown { .. })
+    }
+}
+
+/// One output bit.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct OutputBit {
+    /// The bit's name: `name` for a scalar, `name[i]` for a bit of a bus.
+    pub name: String,
+    /// The port (bus) name without the index.
+    pub port: String,
+    /// The bit index within the bus, for a vector port.
+    pub index: Option<i64>,
+    /// The function of the bit in the design's AIG.
+    #[serde(skip)]
+    pub lit: Lit,
+    /// Where the port is declared.
+    pub pos: Option<SourcePos>,
+}
+
+impl OutputBit {
+    /// An output bit named `name` (scalar) or `port[index]` driven by `lit`.
+    pub fn new(port: &str, index: Option<i64>, lit: Lit, pos: Option<SourcePos>) -> OutputBit {
+        OutputBit {
+            name: bit_name(port, index),
+            port: port.to_string(),
+            index,
+            lit,
+            pos,
+        }
+    }
+}
+
+/// `port` or `port[index]`.
+pub fn bit_name(port: &str, index: Option<i64>) -> String {
+    match index {
+        Some(i) => format!("{port}[{i}]"),
+        None => port.to_string(),
+    }
+}
+
+/// Gate types of the netlist as written.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum CellKind {
+    /// AND of its inputs.
+    And,
+    /// NAND of its inputs.
+    Nand,
+    /// OR of its inputs.
+    Or,
+    /// NOR of its inputs.
+    Nor,
+    /// XOR (odd parity) of its inputs.
+    Xor,
+    /// XNOR (even parity) of its inputs.
+    Xnor,
+    /// Inverter.
+    Not,
+    /// Buffer.
+    Buf,
+    /// 2:1 selector cell: inputs `[s, t, e]`, output `s ? t : e`.
+    Mux2,
+}
+
+impl CellKind {
+    /// Lower-case name, as in cost-model files and reports.
+    pub fn name(self) -> &'static str {
+        match self {
+            CellKind::And => "and",
+            CellKind::Nand => "nand",
+            CellKind::Or => "or",
+            CellKind::Nor => "nor",
+            CellKind::Xor => "xor",
+            CellKind::Xnor => "xnor",
+            CellKind::Not => "not",
+            CellKind::Buf => "buf",
+            CellKind::Mux2 => "mux2",
+        }
+    }
+
+    /// All kinds, in report order.
+    pub const ALL: [CellKind; 9] = [
+        CellKind::And,
+        CellKind::Nand,
+        CellKind::Or,
+        CellKind::Nor,
+        CellKind::Xor,
+        CellKind::Xnor,
+        CellKind::Not,
+        CellKind::Buf,
+        CellKind::Mux2,
+    ];
+}
+
+/// One gate of the netlist as written.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct Cell {
+    /// Gate type.
+    pub kind: CellKind,
+    /// Fan-in signals (indices into [`Netlist::signals`]).
+    pub inputs: Vec<u32>,
+    /// The driven signal.
+    pub output: u32,
+    /// Where the gate is written.
+    pub pos: Option<SourcePos>,
+}
+
+/// The gate-level netlist as written, for cost and delay. Front-ends that read behavioural
+/// code describe only what maps to gates one to one; [`Netlist::complete`] says whether this
+/// is the whole design.
+#[derive(Clone, Debug, Default, PartialEq, Eq, Serialize)]
+pub struct Netlist {
+    /// Signal names.
+    pub signals: Vec<String>,
+    /// Gates, in any order.
+    pub cells: Vec<Cell>,
+    /// Signals that are primary inputs.
+    pub inputs: Vec<u32>,
+    /// Signals that are primary outputs.
+    pub outputs: Vec<u32>,
+    /// True when every gate of the design is in `cells` (a pure gate-level netlist).
+    pub complete: bool,
+}
+
+/// The input format of a file.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Format {
+    /// ISCAS bench format.
+    Bench,
+    /// IEEE 1364 Verilog subset.
+    Verilog,
+}
+
+/// A design ready for checking.
+#[derive(Clone, Debug)]
+pub struct Design {
+    /// How reports name the design (the file name, or the top module and file).
+    pub name: String,
+    /// The format it was read from.
+    pub format: Format,
+    /// The logic.
+    pub aig: Aig,
+    /// Input bits; `inputs[k]` is AIG input `k`.
+    pub inputs: Vec<InputBit>,
+    /// Output bits, in declaration order.
+    pub outputs: Vec<OutputBit>,
+    /// The netlist as written, when the front-end keeps one.
+    pub netlist: Option<Netlist>,
+    /// Warnings found while reading (e.g. width changes at port connections).
+    pub warnings: Vec<Diagnostic>,
+}
+
+impl Design {
+    /// Index of the input bit named `name`.
+    pub fn input_index(&self, name: &str) -> Option<usize> {
+        self.inputs.iter().position(|b| b.name == name)
+    }
+
+    /// Index of the output bit named `name`.
+    pub fn output_index(&self, name: &str) -> Option<usize> {
+        self.outputs.iter().position(|b| b.name == name)
+    }
+
+    /// Number of port input bits (unknown-value sources not counted).
+    pub fn num_port_inputs(&self) -> usize {
+        self.inputs.iter().filter(|b| !b.is_unknown()).count()
+    }
+
+    /// Evaluate every output for one assignment of the AIG inputs.
+    pub fn eval(&self, inputs: &[bool]) -> Vec<bool> {
+        let roots: Vec<Lit> = self.outputs.iter().map(|o| o.lit).collect();
+        crate::aig::eval(&self.aig, inputs, &roots)
+    }
+
+    /// Check the design's invariants (debug builds only).
+    pub fn debug_check(&self) {
+        #[cfg(debug_assertions)]
+        {
+            self.aig.check();
+            assert_eq!(self.aig.num_inputs(), self.inputs.len(), "input table out of sync");
+            for o in &self.outputs {
+                assert!(o.lit.index() < self.aig.len(), "output {} out of range", o.name);
+            }
+        }
+    }
+}

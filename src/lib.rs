@@ -5,8 +5,11 @@
 //! proof engine ([`engine`]) -> reports ([`report`]).
 
 pub mod aig;
+pub mod cnf;
 pub mod design;
 pub mod diag;
+pub mod front;
+pub mod sat;
 
 pub use aig::{Aig, Lit};
 pub use design::{Design, Format, InputBit, OutputBit};

@@ -6,6 +6,8 @@
 
 pub mod aig;
 pub mod cnf;
+pub mod cone;
+pub mod cost;
 pub mod design;
 pub mod diag;
 pub mod front;

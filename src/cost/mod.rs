@@ -1,0 +1,1 @@
+//! Gate counts, cost, delay and bounds (placeholder while the module is written).

@@ -5,10 +5,13 @@
 //! proof engine ([`engine`]) -> reports ([`report`]).
 
 pub mod aig;
+pub mod cli;
 pub mod cnf;
 pub mod design;
 pub mod diag;
+pub mod engine;
 pub mod front;
+pub mod report;
 pub mod sat;
 
 pub use aig::{Aig, Lit};

@@ -134,7 +134,7 @@ pub fn pair(r: &Design, c: &Design, by: PairBy, free_extra: bool) -> Result<Shar
         }
     }
     let pairs = pair_outputs(r, c, by)?;
-    if !(unmatched_r.is_empty() && unmatched_c.is_empty()) && !free_extra {
+    if !free_extra && (!unmatched_r.is_empty() || !unmatched_c.is_empty()) {
         let list = |d: &Design, v: &[usize]| {
             v.iter()
                 .map(|&i| d.inputs[i].name.as_str())

@@ -1,17 +1,7 @@
 //! Printing named bit values compactly: bits `name[i]` of one bus become one binary number,
 //! scalar bits become `name=value`, and lines wrap.
 
-/// Split `d[12]` into (`d`, 12); anything else is a scalar.
-pub fn split_bit(name: &str) -> (&str, Option<i64>) {
-    if let Some(open) = name.rfind('[') {
-        if name.ends_with(']') {
-            if let Ok(i) = name[open + 1..name.len() - 1].parse::<i64>() {
-                return (&name[..open], Some(i));
-            }
-        }
-    }
-    (name, None)
-}
+pub use crate::design::split_bit;
 
 /// One item of a grouped vector: a bus (port, high index, low index, bits from high to low) or a scalar.
 #[derive(Clone, Debug, PartialEq, Eq)]

@@ -140,7 +140,7 @@ pub fn batsat_differs(a: &Net, b: &Net) -> Option<HashMap<String, bool>> {
         .iter()
         .map(|_| Lit::new(s.new_var_default(), true))
         .collect();
-    let mut encode = |s: &mut BasicSolver, n: &Net| -> Vec<Lit> {
+    let encode = |s: &mut BasicSolver, n: &Net| -> Vec<Lit> {
         let mut lit: HashMap<&str, Lit> = n
             .inputs
             .iter()

@@ -12,6 +12,7 @@ pub mod diag;
 pub mod engine;
 pub mod front;
 pub mod report;
+pub mod routes;
 pub mod sat;
 
 pub use aig::{Aig, Lit};

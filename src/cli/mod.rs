@@ -7,6 +7,7 @@
 mod common;
 mod eval;
 mod prove;
+mod routes;
 
 use clap::{Parser, Subcommand};
 
@@ -46,6 +47,8 @@ pub enum Command {
     Eval(eval::EvalArgs),
     /// Write the miter of REF and CAND as DIMACS CNF for an external solver.
     Cnf(prove::CnfArgs),
+    /// For each value of a select bus, show which data input each output follows (proved by SAT).
+    Routes(routes::RoutesArgs),
 }
 
 /// Run a parsed command line and return its exit code.
@@ -54,5 +57,6 @@ pub fn run(cli: Cli) -> Exit {
         Command::Prove(a) => prove::run(&a),
         Command::Eval(a) => eval::run(&a),
         Command::Cnf(a) => prove::run_cnf(&a),
+        Command::Routes(a) => routes::run(&a),
     }
 }

@@ -138,8 +138,8 @@ pub fn route_table(
         let n = CHUNK.min(values - v0);
         let mut ins = random_words(d.inputs.len(), n, 0x5e1ec7 ^ v0 as u64);
         for (j, &k) in sel.iter().enumerate() {
-            for w in 0..n {
-                ins[k][w] = if ((v0 + w) >> j) & 1 == 1 {
+            for (w, word) in ins[k].iter_mut().enumerate() {
+                *word = if ((v0 + w) >> j) & 1 == 1 {
                     u64::MAX
                 } else {
                     0

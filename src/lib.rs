@@ -5,12 +5,16 @@
 //! proof engine ([`engine`]) -> reports ([`report`]).
 
 pub mod aig;
+pub mod cli;
 pub mod cnf;
 pub mod cone;
 pub mod cost;
 pub mod design;
 pub mod diag;
+pub mod engine;
 pub mod front;
+pub mod report;
+pub mod routes;
 pub mod sat;
 
 pub use aig::{Aig, Lit};

@@ -5,6 +5,7 @@
 //! usage, 3 undecided (a limit was hit), 4 internal error (no claim is made).
 
 mod common;
+mod cone;
 mod eval;
 mod prove;
 mod routes;
@@ -49,6 +50,10 @@ pub enum Command {
     Cnf(prove::CnfArgs),
     /// For each value of a select bus, show which data input each output follows (proved by SAT).
     Routes(routes::RoutesArgs),
+    /// Audit each output's structural cone against its exact support; flag redundant inputs.
+    Cone(cone::ConeArgs),
+    /// Gate counts, cost, delay and depth, with the lower bounds each output's support implies.
+    Stats(cone::StatsArgs),
 }
 
 /// Run a parsed command line and return its exit code.
@@ -58,5 +63,7 @@ pub fn run(cli: Cli) -> Exit {
         Command::Eval(a) => eval::run(&a),
         Command::Cnf(a) => prove::run_cnf(&a),
         Command::Routes(a) => routes::run(&a),
+        Command::Cone(a) => cone::run_cone(&a),
+        Command::Stats(a) => cone::run_stats(&a),
     }
 }

@@ -98,16 +98,22 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
                 value,
             });
         }
-        for (&k, m) in r.cone.iter().zip(&r.claims) {
-            if let Membership::Independent(by) = m {
-                if !design.inputs[k].is_unknown() {
-                    flags.push(Flag::RedundantInput {
-                        output: out.name.clone(),
-                        input: name(k),
-                        by: *by,
-                    });
-                }
-            }
+        let mut redundant: Vec<(usize, IndependentBy)> = r
+            .cone
+            .iter()
+            .zip(&r.claims)
+            .filter_map(|(&k, m)| match m {
+                Membership::Independent(by) if !design.inputs[k].is_unknown() => Some((k, *by)),
+                _ => None,
+            })
+            .collect();
+        redundant.sort_by_key(|&(k, by)| (proof_rank(by), k));
+        for (k, by) in redundant {
+            flags.push(Flag::RedundantInput {
+                output: out.name.clone(),
+                input: name(k),
+                by,
+            });
         }
         for &k in &support {
             if let InputKind::Unknown { pos, what } = &design.inputs[k].kind {
@@ -201,6 +207,15 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
         flags,
         stats,
         text_evidence: opts.text_evidence,
+    }
+}
+
+/// Report order of the proofs of redundancy: SAT answers first, then structural ones.
+fn proof_rank(by: IndependentBy) -> u8 {
+    match by {
+        IndependentBy::Unsat => 0,
+        IndependentBy::CofactorsMerged => 1,
+        IndependentBy::NoPath => 2,
     }
 }
 

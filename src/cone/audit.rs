@@ -80,6 +80,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     let mut audits = Vec::with_capacity(results.len());
     let mut in_cones = vec![0usize; design.inputs.len()];
     let mut in_supports = vec![0usize; design.inputs.len()];
+    let mut in_undecided = vec![0usize; design.inputs.len()];
     for (r, cone) in results.iter().zip(&cones) {
         let out = &design.outputs[r.output];
         let support = r.support();
@@ -90,6 +91,9 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
             in_supports[k] += 1;
         }
         let undecided = r.undecided();
+        for &k in &undecided {
+            in_undecided[k] += 1;
+        }
         let constant = (support.is_empty() && undecided.is_empty())
             .then(|| design.eval(&vec![false; design.inputs.len()])[r.output]);
         if let Some(value) = constant {
@@ -168,7 +172,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     }
     if all_outputs {
         for k in 0..design.inputs.len() {
-            if in_supports[k] == 0 && !design.inputs[k].is_unknown() {
+            if in_supports[k] == 0 && in_undecided[k] == 0 && !design.inputs[k].is_unknown() {
                 flags.push(Flag::UnusedInput {
                     input: name(k),
                     connected: in_cones[k] > 0,

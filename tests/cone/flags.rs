@@ -100,6 +100,10 @@ fn redundancy_that_needs_sat_says_unsat_and_a_tight_limit_leaves_it_undecided() 
         .iter()
         .any(|f| matches!(f, Flag::RedundantInput { input, .. } if input == "t")));
     assert!(r.to_string().contains("t (conflict limit reached)"), "{r}");
+    assert!(
+        !r.flagged(),
+        "undecided inputs are neither redundant nor unused: {r}"
+    );
 }
 
 #[test]

@@ -37,12 +37,12 @@ pub(crate) fn progress_bar(enabled: bool, what: &str) -> ProgressBar {
     if !enabled || !std::io::stderr().is_terminal() {
         return ProgressBar::hidden();
     }
-    let bar = ProgressBar::with_draw_target(Some(0), ProgressDrawTarget::stderr());
+    let mut bar = ProgressBar::with_draw_target(Some(0), ProgressDrawTarget::stderr())
+        .with_message(what.to_string());
     if let Ok(style) =
         ProgressStyle::with_template("{msg} [{bar:40}] {pos}/{len} claims ({eta} left)")
     {
-        bar.set_style(style.progress_chars("=> "));
+        bar = bar.with_style(style.progress_chars("=> "));
     }
-    bar.set_message(what.to_string());
     bar
 }

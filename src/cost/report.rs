@@ -175,8 +175,17 @@ impl fmt::Display for StatsReport {
                 num(w.total_cost),
                 num(w.critical_delay)
             )?;
-            if !w.critical_path.is_empty() {
-                writeln!(f, "  critical path: {}", w.critical_path.join(" -> "))?;
+            let p = &w.critical_path;
+            if p.len() > 16 {
+                writeln!(
+                    f,
+                    "  critical path ({} signals): {} -> ... -> {}",
+                    p.len(),
+                    p[..6].join(" -> "),
+                    p[p.len() - 6..].join(" -> ")
+                )?;
+            } else if !p.is_empty() {
+                writeln!(f, "  critical path: {}", p.join(" -> "))?;
             }
         }
         writeln!(

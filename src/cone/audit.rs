@@ -1,6 +1,7 @@
 //! The `cone` audit: structural cones, supports, flags and the report, for the selected
 //! output bits of one design.
 
+use super::bits::Bits;
 use super::expect::Expectation;
 use super::names::{compact, input_names, output_names, resolve};
 use super::report::{AuditReport, ClaimReport, ClaimVerdict, Flag, InputSummary, OutputAudit};
@@ -232,11 +233,13 @@ fn claims(design: &Design, r: &SupportResult) -> Vec<ClaimReport> {
             verdict: match m {
                 Membership::Depends { vector, value, by } => ClaimVerdict::Depends {
                     by: *by,
-                    vector: r
-                        .cone
-                        .iter()
-                        .map(|&j| if vector[j] { '1' } else { '0' })
-                        .collect(),
+                    vector: {
+                        let mut b = Bits::new(r.cone.len());
+                        for (i, &j) in r.cone.iter().enumerate() {
+                            b.set(i, vector.get(j));
+                        }
+                        b
+                    },
                     output_at_0: *value,
                 },
                 Membership::Independent(by) => ClaimVerdict::Independent {

@@ -7,6 +7,7 @@
 //! [`compare_supports`] for prove's side-by-side hint on a differing output pair.
 
 mod audit;
+pub mod bits;
 mod cofactor;
 mod compare;
 pub mod dot;
@@ -19,6 +20,7 @@ pub mod support;
 mod text;
 
 pub use audit::{audit, select_outputs, AuditOptions};
+pub use bits::Bits;
 pub use compare::{compare_supports, SupportComparison};
 pub use expect::{parse_expect, read_expect, ExpectEntry, Expectation};
 pub use report::{AuditReport, ClaimReport, ClaimVerdict, Flag, InputSummary, OutputAudit};

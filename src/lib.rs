@@ -9,6 +9,7 @@ pub mod cli;
 pub mod cnf;
 pub mod design;
 pub mod diag;
+pub mod diagnose;
 pub mod engine;
 pub mod front;
 pub mod report;

@@ -49,6 +49,17 @@ mod exit_codes {
         assert_eq!(code(&o), 1, "{}", stdout(&o));
         assert!(stdout(&o).contains("verdict     DIFFERENT"));
         assert!(stdout(&o).contains("re-simulated on both designs"));
+        // The route tables point at the two swapped data lines.
+        assert!(
+            stdout(&o).contains("s 2: reference d[2], candidate d[3]  !"),
+            "{}",
+            stdout(&o)
+        );
+        assert!(
+            stdout(&o).contains("s 3: reference d[3], candidate d[2]  !"),
+            "{}",
+            stdout(&o)
+        );
     }
 
     #[test]

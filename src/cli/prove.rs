@@ -2,8 +2,10 @@
 
 use super::common::{load, print, report_input_error, report_internal, write_atomic, FormatArg};
 use super::Exit;
+use crate::aig::Lit;
 use crate::cnf::{dimacs, Tseitin};
 use crate::design::Design;
+use crate::diagnose;
 use crate::engine::{self, EngineKind, PairBy, ProveError, ProveOptions, Verdict};
 use crate::report;
 use crate::sat::ClauseSink;
@@ -83,6 +85,10 @@ pub struct ProveArgs {
     /// Also write the JSON report to this file (written atomically).
     #[arg(long, value_name = "FILE")]
     report: Option<String>,
+    /// The select bus for route tables of differing outputs (default: `sel`, `s`, `select` or
+    /// `addr` when both designs have it).
+    #[arg(long, value_name = "BUS")]
+    select: Option<String>,
 }
 
 /// Options of `cnf`.
@@ -125,11 +131,19 @@ pub fn run(a: &ProveArgs) -> Exit {
         seed: a.seed,
         sim_words: None,
     };
-    let rep = match engine::prove(&r, &c, &opts) {
+    let mut rep = match engine::prove(&r, &c, &opts) {
         Ok(rep) => rep,
         Err(ProveError::Input(e)) => return report_input_error(&e),
         Err(ProveError::Internal(m)) => return report_internal(&m),
     };
+    if let Some(bus) = diagnose::pick_select(&r, &c, a.select.as_deref()) {
+        let limits = crate::sat::Limits::new(timeout, a.conflict_limit);
+        rep.diagnosis = diagnose::diagnose(&r, &c, &rep, &bus, (Lit::TRUE, Lit::TRUE), &limits);
+    } else if let Some(bus) = &a.select {
+        eprintln!(
+            "warning: no route tables: `{bus}` is not an input bus of both designs (up to 16 bits)"
+        );
+    }
     let json = report::to_json(&rep);
     if let Some(path) = &a.report {
         if let Err(e) = write_atomic(path, json.as_bytes()) {

@@ -191,6 +191,7 @@ pub fn prove_shared(
         },
         warnings,
         scope: SCOPE,
+        diagnosis: None,
     })
 }
 

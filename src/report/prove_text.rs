@@ -54,8 +54,9 @@ pub fn prove_text(r: &ProveReport) -> String {
             methods(Verdict::Equivalent)
         ),
         Verdict::Different => format!(
-            "DIFFERENT: {diff} of {n} output pair{} differ; {eq} equivalent, {und} undecided",
-            plural(n)
+            "DIFFERENT: {diff} of {n} output pair{} {}; {eq} equivalent, {und} undecided",
+            plural(n),
+            if diff == 1 { "differs" } else { "differ" }
         ),
         Verdict::Undecided => format!(
             "UNDECIDED: {und} of {n} output pair{} open within the limits; {eq} equivalent",
@@ -139,6 +140,9 @@ pub fn prove_text(r: &ProveReport) -> String {
                 d.candidate_value as u8
             );
         }
+    }
+    if let Some(d) = &r.diagnosis {
+        s += &crate::diagnose::diagnosis_text(d);
     }
     let st = &r.stats;
     let _ = writeln!(

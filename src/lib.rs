@@ -9,6 +9,7 @@ pub mod cnf;
 pub mod design;
 pub mod diag;
 pub mod front;
+pub mod gen;
 pub mod sat;
 
 pub use aig::{Aig, Lit};

@@ -12,6 +12,7 @@ pub mod diag;
 pub mod diagnose;
 pub mod engine;
 pub mod front;
+pub mod gen;
 pub mod report;
 pub mod routes;
 pub mod sat;

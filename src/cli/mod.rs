@@ -6,6 +6,7 @@
 
 mod common;
 mod eval;
+mod gen;
 mod prove;
 mod routes;
 
@@ -49,6 +50,9 @@ pub enum Command {
     Cnf(prove::CnfArgs),
     /// For each value of a select bus, show which data input each output follows (proved by SAT).
     Routes(routes::RoutesArgs),
+    /// Write a generated circuit: selectors, decoders, priority encoders, shifters, adders,
+    /// multipliers, random circuits; optionally with a planted bug.
+    Gen(gen::GenArgs),
 }
 
 /// Run a parsed command line and return its exit code.
@@ -58,5 +62,6 @@ pub fn run(cli: Cli) -> Exit {
         Command::Eval(a) => eval::run(&a),
         Command::Cnf(a) => prove::run_cnf(&a),
         Command::Routes(a) => routes::run(&a),
+        Command::Gen(a) => gen::run(&a),
     }
 }

@@ -7,6 +7,7 @@
 pub mod aig;
 pub mod design;
 pub mod diag;
+pub mod front;
 
 pub use aig::{Aig, Lit};
 pub use design::{Design, Format, InputBit, OutputBit};

@@ -5,6 +5,7 @@
 //! proof engine ([`engine`]) -> reports ([`report`]).
 
 pub mod aig;
+pub mod assume;
 pub mod cli;
 pub mod cnf;
 pub mod design;

@@ -85,6 +85,10 @@ pub struct ProveArgs {
     /// Also write the JSON report to this file (written atomically).
     #[arg(long, value_name = "FILE")]
     report: Option<String>,
+    /// Ask only for input vectors where this Verilog expression over the input ports holds,
+    /// e.g. `sel < 12` (repeatable: all must hold).
+    #[arg(long, value_name = "EXPR")]
+    assume: Vec<String>,
     /// The select bus for route tables of differing outputs (default: `sel`, `s`, `select` or
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
@@ -131,14 +135,39 @@ pub fn run(a: &ProveArgs) -> Exit {
         seed: a.seed,
         sim_words: None,
     };
-    let mut rep = match engine::prove(&r, &c, &opts) {
+    let mut shared = match engine::pair(&r, &c, opts.pair_by, opts.free_extra_inputs) {
+        Ok(s) => s,
+        Err(e) => return report_input_error(&e),
+    };
+    if !a.assume.is_empty() {
+        let by_name: std::collections::BTreeMap<String, Lit> = shared
+            .ref_input
+            .iter()
+            .enumerate()
+            .map(|(i, &k)| (r.inputs[i].name.clone(), shared.aig.input_lit(k)))
+            .collect();
+        let mut aig = std::mem::take(&mut shared.aig);
+        let c = crate::assume::constraint(&r, &a.assume, &mut aig, &|n| by_name.get(n).copied())
+            .and_then(|c| crate::assume::check_satisfiable(&aig, c, &a.assume).map(|_| c));
+        shared.aig = aig;
+        match c {
+            Ok(c) => shared.constraint = c,
+            Err(e) => return report_input_error(&e),
+        }
+    }
+    let mut rep = match engine::prove_shared(&r, &c, shared, &a.assume, &opts) {
         Ok(rep) => rep,
         Err(ProveError::Input(e)) => return report_input_error(&e),
         Err(ProveError::Internal(m)) => return report_internal(&m),
     };
     if let Some(bus) = diagnose::pick_select(&r, &c, a.select.as_deref()) {
         let limits = crate::sat::Limits::new(timeout, a.conflict_limit);
-        rep.diagnosis = diagnose::diagnose(&r, &c, &rep, &bus, (Lit::TRUE, Lit::TRUE), &limits);
+        if let (Ok((r2, rc)), Ok((c2, cc))) = (
+            crate::assume::on_design(&r, &a.assume),
+            crate::assume::on_design(&c, &a.assume),
+        ) {
+            rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, &bus, (rc, cc), &limits);
+        }
     } else if let Some(bus) = &a.select {
         eprintln!(
             "warning: no route tables: `{bus}` is not an input bus of both designs (up to 16 bits)"

@@ -8,6 +8,8 @@ pub mod aig;
 pub mod assume;
 pub mod cli;
 pub mod cnf;
+pub mod cone;
+pub mod cost;
 pub mod design;
 pub mod diag;
 pub mod diagnose;

@@ -233,9 +233,17 @@ impl Design {
         #[cfg(debug_assertions)]
         {
             self.aig.check();
-            assert_eq!(self.aig.num_inputs(), self.inputs.len(), "input table out of sync");
+            assert_eq!(
+                self.aig.num_inputs(),
+                self.inputs.len(),
+                "input table out of sync"
+            );
             for o in &self.outputs {
-                assert!(o.lit.index() < self.aig.len(), "output {} out of range", o.name);
+                assert!(
+                    o.lit.index() < self.aig.len(),
+                    "output {} out of range",
+                    o.name
+                );
             }
         }
     }

@@ -135,9 +135,7 @@ impl Aig {
         if a == Lit::TRUE || a == b {
             return Some(b);
         }
-        self.strash
-            .get(&(a, b))
-            .map(|&n| Lit::from_node(n, false))
+        self.strash.get(&(a, b)).map(|&n| Lit::from_node(n, false))
     }
 
     /// OR of two literals.
@@ -283,13 +281,22 @@ impl Aig {
 
     /// Check the graph's invariants; panics with a message on violation (an internal bug).
     pub fn check(&self) {
-        assert!(matches!(self.nodes.first(), Some(Node::Const)), "node 0 must be the constant");
+        assert!(
+            matches!(self.nodes.first(), Some(Node::Const)),
+            "node 0 must be the constant"
+        );
         for (i, node) in self.nodes.iter().enumerate() {
             match *node {
                 Node::Const => assert_eq!(i, 0, "constant node not at index 0"),
-                Node::Input(k) => assert_eq!(self.inputs[k as usize] as usize, i, "input table out of sync"),
+                Node::Input(k) => assert_eq!(
+                    self.inputs[k as usize] as usize, i,
+                    "input table out of sync"
+                ),
                 Node::And(a, b) => {
-                    assert!(a.index() < i && b.index() < i, "node {i} is not in topological order");
+                    assert!(
+                        a.index() < i && b.index() < i,
+                        "node {i} is not in topological order"
+                    );
                     assert!(a < b, "node {i} fan-ins not normalized");
                 }
             }

@@ -96,7 +96,9 @@ pub fn random_words(n: usize, words: usize, seed: u64) -> Vec<Vec<u64>> {
         z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
         z ^ (z >> 31)
     };
-    (0..n).map(|_| (0..words).map(|_| next()).collect()).collect()
+    (0..n)
+        .map(|_| (0..words).map(|_| next()).collect())
+        .collect()
 }
 
 #[cfg(test)]

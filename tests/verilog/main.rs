@@ -1,0 +1,7 @@
+//! Integration tests of the Verilog front-end (one test binary, themed modules).
+
+mod common;
+mod fixtures;
+mod iverilog_diff;
+mod regress;
+mod semantics;

@@ -157,3 +157,27 @@ pub fn on_design(d: &Design, exprs: &[String]) -> Result<(Design, Lit), InputErr
     check_satisfiable(&out.aig, c, exprs)?;
     Ok((out, c))
 }
+
+/// Build the assumptions into a proof's shared AIG (over the reference's port names) and set
+/// its constraint; fails when they are unsatisfiable.
+pub fn apply_to_shared(
+    shared: &mut crate::engine::Shared,
+    r: &Design,
+    exprs: &[String],
+) -> Result<(), InputError> {
+    if exprs.is_empty() {
+        return Ok(());
+    }
+    let by_name: BTreeMap<String, Lit> = shared
+        .ref_input
+        .iter()
+        .enumerate()
+        .map(|(i, &k)| (r.inputs[i].name.clone(), shared.aig.input_lit(k)))
+        .collect();
+    let mut aig = std::mem::take(&mut shared.aig);
+    let c = constraint(r, exprs, &mut aig, &|n| by_name.get(n).copied())
+        .and_then(|c| check_satisfiable(&aig, c, exprs).map(|_| c));
+    shared.aig = aig;
+    shared.constraint = c?;
+    Ok(())
+}

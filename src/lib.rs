@@ -10,6 +10,7 @@ pub mod cli;
 pub mod cnf;
 pub mod cone;
 pub mod cost;
+pub mod demo;
 pub mod design;
 pub mod diag;
 pub mod diagnose;

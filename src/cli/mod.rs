@@ -5,6 +5,7 @@
 //! usage, 3 undecided (a limit was hit), 4 internal error (no claim is made).
 
 mod common;
+mod demo;
 mod eval;
 mod gen;
 mod prove;
@@ -42,6 +43,8 @@ pub struct Cli {
 /// The commands.
 #[derive(Subcommand, Debug)]
 pub enum Command {
+    /// Run the built-in demo: the Tidewater 7 buoy's sensor selector, proved, broken and audited.
+    Demo(demo::DemoArgs),
     /// Prove CAND equivalent to REF for every input, or give a checked counterexample.
     Prove(prove::ProveArgs),
     /// Evaluate a design's outputs for one input vector.
@@ -58,6 +61,7 @@ pub enum Command {
 /// Run a parsed command line and return its exit code.
 pub fn run(cli: Cli) -> Exit {
     match cli.command {
+        Command::Demo(a) => demo::run(&a),
         Command::Prove(a) => prove::run(&a),
         Command::Eval(a) => eval::run(&a),
         Command::Cnf(a) => prove::run_cnf(&a),

@@ -2,7 +2,6 @@
 
 use super::common::{load, print, report_input_error, report_internal, write_atomic, FormatArg};
 use super::Exit;
-use crate::aig::Lit;
 use crate::cnf::{dimacs, Tseitin};
 use crate::design::Design;
 use crate::diagnose;
@@ -139,21 +138,8 @@ pub fn run(a: &ProveArgs) -> Exit {
         Ok(s) => s,
         Err(e) => return report_input_error(&e),
     };
-    if !a.assume.is_empty() {
-        let by_name: std::collections::BTreeMap<String, Lit> = shared
-            .ref_input
-            .iter()
-            .enumerate()
-            .map(|(i, &k)| (r.inputs[i].name.clone(), shared.aig.input_lit(k)))
-            .collect();
-        let mut aig = std::mem::take(&mut shared.aig);
-        let c = crate::assume::constraint(&r, &a.assume, &mut aig, &|n| by_name.get(n).copied())
-            .and_then(|c| crate::assume::check_satisfiable(&aig, c, &a.assume).map(|_| c));
-        shared.aig = aig;
-        match c {
-            Ok(c) => shared.constraint = c,
-            Err(e) => return report_input_error(&e),
-        }
+    if let Err(e) = crate::assume::apply_to_shared(&mut shared, &r, &a.assume) {
+        return report_input_error(&e);
     }
     let mut rep = match engine::prove_shared(&r, &c, shared, &a.assume, &opts) {
         Ok(rep) => rep,

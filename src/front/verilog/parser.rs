@@ -14,7 +14,7 @@ pub struct Stop;
 pub type PResult<T> = Result<T, Stop>;
 
 /// Deepest nesting of parentheses, operators and statements accepted.
-pub const MAX_DEPTH: usize = 400;
+pub const MAX_DEPTH: usize = 1000;
 
 /// The parser over one file.
 pub struct Parser<'s, 'n> {

@@ -1,1 +1,137 @@
+//! Front-ends: read netlist files into [`Design`]s. Owns format detection and file reading
+//! (missing, unreadable, binary and empty files).
+
+pub mod bench;
 pub mod verilog;
+
+use crate::design::{Design, Format};
+use crate::diag::{Diagnostic, InputError, SourcePos};
+use std::path::Path;
+use std::sync::Arc;
+
+/// Guess the format from a file name: `.bench` is bench, `.v`/`.vh`/`.sv` is Verilog.
+pub fn format_from_name(path: &str) -> Option<Format> {
+    let ext = Path::new(path).extension()?.to_str()?.to_ascii_lowercase();
+    match ext.as_str() {
+        "bench" | "bch" => Some(Format::Bench),
+        "v" | "vh" | "verilog" => Some(Format::Verilog),
+        _ => None,
+    }
+}
+
+/// Read a file as text, with clear errors for missing, unreadable and binary files.
+pub fn read_text(path: &str) -> Result<String, InputError> {
+    let bytes = std::fs::read(path).map_err(|e| {
+        let what = match e.kind() {
+            std::io::ErrorKind::NotFound => "no such file".to_string(),
+            std::io::ErrorKind::PermissionDenied => "permission denied".to_string(),
+            _ => e.to_string(),
+        };
+        InputError::plain(
+            format!("cannot read `{path}`: {what}"),
+            "check the path and that the file is readable",
+        )
+    })?;
+    decode_text(path, bytes)
+}
+
+/// Check that `bytes` are text (UTF-8 without NUL bytes) and return them as a string.
+pub fn decode_text(path: &str, bytes: Vec<u8>) -> Result<String, InputError> {
+    let file: Arc<str> = Arc::from(path);
+    if let Some(off) = bytes.iter().position(|&b| b == 0) {
+        let (line, col) = line_col(&bytes[..off]);
+        return Err(InputError::one(
+            Diagnostic::error(
+                Some(SourcePos::new(&file, line, col)),
+                "the file is not text (it holds a NUL byte)",
+            )
+            .with_help("give a netlist in bench or Verilog text form"),
+        ));
+    }
+    String::from_utf8(bytes).map_err(|e| {
+        let off = e.utf8_error().valid_up_to();
+        let (line, col) = line_col(&e.as_bytes()[..off]);
+        InputError::one(
+            Diagnostic::error(
+                Some(SourcePos::new(&file, line, col)),
+                "the file is not UTF-8 text",
+            )
+            .with_help("save the netlist as UTF-8 (or plain ASCII) text"),
+        )
+    })
+}
+
+fn line_col(prefix: &[u8]) -> (u32, u32) {
+    let line = prefix.iter().filter(|&&b| b == b'\n').count() as u32 + 1;
+    let start = prefix
+        .iter()
+        .rposition(|&b| b == b'\n')
+        .map_or(0, |i| i + 1);
+    let col = String::from_utf8_lossy(&prefix[start..]).chars().count() as u32 + 1;
+    (line, col)
+}
+
+/// Which files make one design and how to read them.
+#[derive(Clone, Debug, Default)]
+pub struct Source {
+    /// The files, in order (several Verilog files may form one design).
+    pub paths: Vec<String>,
+    /// The format; `None` guesses from the first file's name.
+    pub format: Option<Format>,
+    /// The top module (Verilog only).
+    pub top: Option<String>,
+}
+
+/// Read a design from files.
+pub fn load(src: &Source) -> Result<Design, InputError> {
+    let first = src
+        .paths
+        .first()
+        .ok_or_else(|| InputError::plain("no input file given", "name a netlist file"))?;
+    let format =
+        match src.format.or_else(|| format_from_name(first)) {
+            Some(f) => f,
+            None => return Err(InputError::plain(
+                format!("cannot tell the format of `{first}` from its name"),
+                "use a `.bench` or `.v` file name, or say `--format bench` or `--format verilog`",
+            )),
+        };
+    let mut texts = Vec::with_capacity(src.paths.len());
+    for p in &src.paths {
+        texts.push((Arc::<str>::from(p.as_str()), read_text(p)?));
+    }
+    load_texts(format, &texts, src.top.as_deref())
+}
+
+/// Read a design from texts already in memory (`(file name, text)` pairs).
+pub fn load_texts(
+    format: Format,
+    texts: &[(Arc<str>, String)],
+    top: Option<&str>,
+) -> Result<Design, InputError> {
+    match format {
+        Format::Bench => {
+            if texts.len() != 1 {
+                return Err(InputError::plain(
+                    "a bench design is one file",
+                    "give one .bench file per design",
+                ));
+            }
+            if top.is_some() {
+                return Err(InputError::plain(
+                    "a top module was given for a bench file",
+                    "the top-module options are for Verilog; drop them for bench files",
+                ));
+            }
+            bench::read_bench(&texts[0].0, &texts[0].1)
+        }
+        Format::Verilog => read_verilog_texts(texts, top),
+    }
+}
+
+fn read_verilog_texts(
+    texts: &[(Arc<str>, String)],
+    top: Option<&str>,
+) -> Result<Design, InputError> {
+    verilog::read_verilog(texts, top)
+}

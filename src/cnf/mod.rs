@@ -1,0 +1,132 @@
+//! Tseitin encoding of AIG cones into CNF (Tseitin 1968), on demand and incrementally, into any
+//! [`ClauseSink`] (a solver or a formula for DIMACS output).
+//!
+//! An AND node `z = a & b` gives the clauses `(!z | a) (!z | b) (z | !a | !b)`.
+
+pub mod dimacs;
+
+use crate::aig::{Aig, Lit, Node};
+use crate::sat::{CLit, ClauseSink};
+
+/// The map from AIG nodes to CNF variables, growing as cones are encoded.
+#[derive(Clone, Debug, Default)]
+pub struct Tseitin {
+    map: Vec<Option<CLit>>,
+    stack: Vec<u32>,
+    todo: Vec<u32>,
+}
+
+impl Tseitin {
+    /// An empty map.
+    pub fn new() -> Tseitin {
+        Tseitin::default()
+    }
+
+    /// The CNF literal of `l`, encoding its cone first where that is not done yet.
+    pub fn lit<S: ClauseSink>(&mut self, aig: &Aig, sink: &mut S, l: Lit) -> CLit {
+        if self.map.len() < aig.len() {
+            self.map.resize(aig.len(), None);
+        }
+        if self.map[l.index()].is_none() {
+            self.encode_cone(aig, sink, l.node());
+        }
+        let v = self.map[l.index()].expect("encoded");
+        if l.is_complemented() {
+            !v
+        } else {
+            v
+        }
+    }
+
+    /// The CNF literal of node `n`, if it is encoded.
+    pub fn var_of(&self, n: u32) -> Option<CLit> {
+        self.map.get(n as usize).copied().flatten()
+    }
+
+    /// Number of encoded nodes.
+    pub fn encoded(&self) -> usize {
+        self.map.iter().filter(|m| m.is_some()).count()
+    }
+
+    fn encode_cone<S: ClauseSink>(&mut self, aig: &Aig, sink: &mut S, root: u32) {
+        // Collect the unencoded part of the cone with an explicit stack, then encode it in
+        // ascending (topological) order.
+        self.stack.clear();
+        self.todo.clear();
+        self.stack.push(root);
+        while let Some(n) = self.stack.pop() {
+            if self.map[n as usize].is_some() {
+                continue;
+            }
+            let v = sink.fresh();
+            self.map[n as usize] = Some(v);
+            self.todo.push(n);
+            if let Node::And(a, b) = aig.node(n) {
+                self.stack.push(a.node());
+                self.stack.push(b.node());
+            }
+        }
+        self.todo.sort_unstable();
+        for i in 0..self.todo.len() {
+            let n = self.todo[i];
+            let z = self.map[n as usize].expect("assigned above");
+            match aig.node(n) {
+                Node::Const => sink.clause(&[!z]),
+                Node::Input(_) => {}
+                Node::And(a, b) => {
+                    let ca = self.map[a.index()]
+                        .expect("fan-in encoded")
+                        .xor_complement(a);
+                    let cb = self.map[b.index()]
+                        .expect("fan-in encoded")
+                        .xor_complement(b);
+                    sink.clause(&[!z, ca]);
+                    sink.clause(&[!z, cb]);
+                    sink.clause(&[z, !ca, !cb]);
+                }
+            }
+        }
+    }
+}
+
+trait Polarity {
+    fn xor_complement(self, l: Lit) -> CLit;
+}
+
+impl Polarity for CLit {
+    #[inline]
+    fn xor_complement(self, l: Lit) -> CLit {
+        if l.is_complemented() {
+            !self
+        } else {
+            self
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::sat::{Limits, Sat, SatResult};
+
+    #[test]
+    fn xor_is_not_and() {
+        let mut g = Aig::new();
+        let a = g.add_input();
+        let b = g.add_input();
+        let x = g.xor(a, b);
+        let y = g.and(a, b);
+        let limits = Limits::none();
+        let mut s = Sat::new(&limits);
+        let mut t = Tseitin::new();
+        let cx = t.lit(&g, &mut s, x);
+        let cy = t.lit(&g, &mut s, y);
+        assert_eq!(s.solve(&[cx, cy]), SatResult::Unsat);
+        assert_eq!(s.solve(&[cx]), SatResult::Sat);
+        let ca = t.lit(&g, &mut s, a);
+        let cb = t.lit(&g, &mut s, b);
+        assert_ne!(s.value(ca), s.value(cb));
+        let cf = t.lit(&g, &mut s, Lit::FALSE);
+        assert_eq!(s.solve(&[cf]), SatResult::Unsat);
+    }
+}

@@ -305,7 +305,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 let (n, p) = self.ident("a parameter name")?;
                 self.expect_p(P::Assign, "`=`")?;
                 pd.assigns.push((n, p, self.expr()?));
-                m.items.push(Item::Param(pd));
+                m.items.push(Item::Param(Box::new(pd)));
                 if !self.eat_p(P::Comma) {
                     break;
                 }
@@ -345,7 +345,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             let starts_decl = matches!(t.tok, Tok::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT);
             if starts_decl {
                 if let Some(d) = cur.take() {
-                    m.items.push(Item::Decl(d));
+                    m.items.push(Item::Decl(Box::new(d)));
                 }
                 cur = Some(self.decl_head()?);
             }
@@ -363,7 +363,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
         }
         if let Some(d) = cur {
-            m.items.push(Item::Decl(d));
+            m.items.push(Item::Decl(Box::new(d)));
         }
         Ok(())
     }
@@ -497,7 +497,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
             }
             self.expect_p(P::Semi, "`;` after the declaration")?;
-            out.push(Item::Decl(d));
+            out.push(Item::Decl(Box::new(d)));
         } else if k == kw::PARAMETER || k == kw::LOCALPARAM {
             self.bump();
             let mut pd = self.param_head(k == kw::LOCALPARAM)?;
@@ -510,7 +510,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
             }
             self.expect_p(P::Semi, "`;` after the parameter declaration")?;
-            out.push(Item::Param(pd));
+            out.push(Item::Param(Box::new(pd)));
         } else if k == kw::GENVAR {
             self.bump();
             let mut v = vec![self.ident("a genvar name")?];
@@ -528,7 +528,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 let lhs = self.expr()?;
                 self.expect_p(P::Assign, "`=` in a continuous assignment")?;
                 let rhs = self.expr()?;
-                out.push(Item::Assign(lhs, rhs, pos));
+                out.push(Item::Assign(Box::new((lhs, rhs)), pos));
                 if !self.eat_p(P::Comma) {
                     break;
                 }
@@ -577,7 +577,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 return Err(self.error(at, "unsupported: `always` with an event list (only combinational `always @*` blocks are supported)"));
             }
             let body = self.stmt()?;
-            out.push(Item::Always(body, pos));
+            out.push(Item::Always(Box::new(body), pos));
         } else if k == kw::GENERATE {
             self.bump();
             while !self.eat_kw(kw::ENDGENERATE) {
@@ -764,7 +764,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         } else {
             Vec::new()
         };
-        out.push(Item::GenIf(cond, then, els, pos));
+        out.push(Item::GenIf(Box::new((cond, then, els)), pos));
         Ok(())
     }
 

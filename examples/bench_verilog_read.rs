@@ -29,7 +29,7 @@ fn gen(n: usize, path: &str) {
     };
     let kinds = ["and", "nand", "or", "nor", "xor", "xnor", "not", "buf"];
     for k in 0..n {
-        let mut src = |r: &mut dyn FnMut(usize) -> usize| {
+        let src = |r: &mut dyn FnMut(usize) -> usize| {
             // Mostly recent signals, sometimes inputs: long paths and wide fan-out.
             if k < 8 || r(8) == 0 {
                 format!("i{}", r(ins))

@@ -12,7 +12,7 @@ use super::expr::Cx;
 use super::{Elab, GateRec, Symbol, Val};
 use crate::aig::Lit;
 use crate::design::CellKind;
-use std::collections::{HashMap, HashSet};
+use std::collections::HashSet;
 
 /// Which parameter an override sets.
 #[derive(Clone, Debug)]

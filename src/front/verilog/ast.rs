@@ -318,23 +318,23 @@ pub struct GenFor {
 #[derive(Clone, Debug)]
 pub enum Item {
     /// Net, variable or port declaration.
-    Decl(Decl),
+    Decl(Box<Decl>),
     /// `parameter` / `localparam`.
-    Param(ParamDecl),
+    Param(Box<ParamDecl>),
     /// `genvar i;`
     Genvar(Vec<(Sym, Pos)>),
     /// `assign lhs = rhs;`
-    Assign(Expr, Expr, Pos),
+    Assign(Box<(Expr, Expr)>, Pos),
     /// Gate primitive instance: kind, optional name, terminals (output first).
     Gate(GateKind, Option<Sym>, Vec<Expr>, Pos),
     /// Module instance.
     Inst(Box<Instance>),
     /// `always @*`
-    Always(Stmt, Pos),
+    Always(Box<Stmt>, Pos),
     /// Generate loop.
     GenFor(Box<GenFor>),
     /// Generate `if`: condition, then-items, else-items.
-    GenIf(Expr, Vec<Item>, Vec<Item>, Pos),
+    GenIf(Box<(Expr, Vec<Item>, Vec<Item>)>, Pos),
 }
 
 /// A module.
@@ -350,4 +350,18 @@ pub struct Module {
     pub pos: Pos,
     /// Whether `` `default_nettype none`` was in force.
     pub nettype_none: bool,
+}
+
+#[cfg(test)]
+mod size_tests {
+    /// A million-gate netlist holds a million items: keep them small.
+    #[test]
+    fn items_stay_small() {
+        assert!(
+            std::mem::size_of::<super::Item>() <= 56,
+            "{}",
+            std::mem::size_of::<super::Item>()
+        );
+        assert!(std::mem::size_of::<super::Expr>() <= 48);
+    }
 }

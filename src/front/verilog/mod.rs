@@ -6,8 +6,10 @@
 
 pub mod ast;
 mod elaborate;
+mod fasthash;
 pub mod lexer;
 mod parse_expr;
+mod parse_gen;
 mod parse_stmt;
 pub mod parser;
 pub mod symbols;

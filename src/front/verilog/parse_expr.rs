@@ -164,19 +164,11 @@ impl Parser<'_, '_> {
                 Ok(Expr::Call(s, pos, vec![a]))
             }
             Tok::P(P::LParen) => {
-                self.enter(pos)?;
-                let e = self.expr();
-                self.leave();
-                let e = e?;
+                let e = self.expr()?;
                 self.expect_p(P::RParen, "`)`")?;
                 Ok(e)
             }
-            Tok::P(P::LBrace) => {
-                self.enter(pos)?;
-                let r = self.concat(pos);
-                self.leave();
-                r
-            }
+            Tok::P(P::LBrace) => self.concat(pos),
             Tok::Real => Err(self.error(pos, "unsupported: real number")),
             Tok::Str => Err(self.error(pos, "unsupported: string literal")),
             other => {

@@ -14,7 +14,7 @@ pub struct Stop;
 pub type PResult<T> = Result<T, Stop>;
 
 /// Deepest nesting of parentheses, operators and statements accepted.
-pub const MAX_DEPTH: usize = 400;
+pub const MAX_DEPTH: usize = 1000;
 
 /// The parser over one file.
 pub struct Parser<'s, 'n> {
@@ -305,7 +305,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 let (n, p) = self.ident("a parameter name")?;
                 self.expect_p(P::Assign, "`=`")?;
                 pd.assigns.push((n, p, self.expr()?));
-                m.items.push(Item::Param(pd));
+                m.items.push(Item::Param(Box::new(pd)));
                 if !self.eat_p(P::Comma) {
                     break;
                 }
@@ -345,7 +345,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             let starts_decl = matches!(t.tok, Tok::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT);
             if starts_decl {
                 if let Some(d) = cur.take() {
-                    m.items.push(Item::Decl(d));
+                    m.items.push(Item::Decl(Box::new(d)));
                 }
                 cur = Some(self.decl_head()?);
             }
@@ -363,7 +363,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
         }
         if let Some(d) = cur {
-            m.items.push(Item::Decl(d));
+            m.items.push(Item::Decl(Box::new(d)));
         }
         Ok(())
     }
@@ -497,7 +497,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
             }
             self.expect_p(P::Semi, "`;` after the declaration")?;
-            out.push(Item::Decl(d));
+            out.push(Item::Decl(Box::new(d)));
         } else if k == kw::PARAMETER || k == kw::LOCALPARAM {
             self.bump();
             let mut pd = self.param_head(k == kw::LOCALPARAM)?;
@@ -510,7 +510,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
             }
             self.expect_p(P::Semi, "`;` after the parameter declaration")?;
-            out.push(Item::Param(pd));
+            out.push(Item::Param(Box::new(pd)));
         } else if k == kw::GENVAR {
             self.bump();
             let mut v = vec![self.ident("a genvar name")?];
@@ -528,7 +528,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 let lhs = self.expr()?;
                 self.expect_p(P::Assign, "`=` in a continuous assignment")?;
                 let rhs = self.expr()?;
-                out.push(Item::Assign(lhs, rhs, pos));
+                out.push(Item::Assign(Box::new((lhs, rhs)), pos));
                 if !self.eat_p(P::Comma) {
                     break;
                 }
@@ -577,7 +577,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 return Err(self.error(at, "unsupported: `always` with an event list (only combinational `always @*` blocks are supported)"));
             }
             let body = self.stmt()?;
-            out.push(Item::Always(body, pos));
+            out.push(Item::Always(Box::new(body), pos));
         } else if k == kw::GENERATE {
             self.bump();
             while !self.eat_kw(kw::ENDGENERATE) {
@@ -620,7 +620,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         Ok(())
     }
 
-    fn err_here(&mut self, msg: &str) -> Stop {
+    pub(super) fn err_here(&mut self, msg: &str) -> Stop {
         let p = self.peek_pos();
         self.error(p, msg)
     }
@@ -637,173 +637,6 @@ impl<'s, 'n> Parser<'s, 'n> {
                     || n.starts_with("highz")
             }
             _ => false,
-        }
-    }
-
-    fn instance(&mut self, out: &mut Vec<Item>) -> PResult<()> {
-        let (module, _) = self.ident("a module item")?;
-        let params = if self.eat_p(P::Hash) {
-            self.expect_p(P::LParen, "`(` of the parameter values")?;
-            let c = self.conns()?;
-            self.expect_p(P::RParen, "`)` closing the parameter values")?;
-            Some(c)
-        } else {
-            None
-        };
-        loop {
-            let (name, pos) = self.ident("an instance name")?;
-            if self.peek_p(P::LBrack) {
-                return Err(self.err_here("unsupported: arrays of instances"));
-            }
-            self.expect_p(P::LParen, "`(` of the port connections")?;
-            let conns = self.conns()?;
-            self.expect_p(P::RParen, "`)` closing the port connections")?;
-            out.push(Item::Inst(Box::new(Instance {
-                module,
-                params: params.clone(),
-                name,
-                conns,
-                pos,
-            })));
-            if !self.eat_p(P::Comma) {
-                break;
-            }
-        }
-        self.expect_p(P::Semi, "`;` after the instance")
-    }
-
-    fn conns(&mut self) -> PResult<Conns> {
-        if self.peek_p(P::RParen) {
-            return Ok(Conns::Ordered(Vec::new()));
-        }
-        if self.peek_p(P::Dot) {
-            let mut v = Vec::new();
-            loop {
-                self.expect_p(P::Dot, "`.name(...)`")?;
-                let (n, p) = self.ident("a port or parameter name")?;
-                self.expect_p(P::LParen, "`(`")?;
-                let e = if self.peek_p(P::RParen) {
-                    None
-                } else {
-                    Some(self.expr()?)
-                };
-                self.expect_p(P::RParen, "`)`")?;
-                v.push((n, p, e));
-                if !self.eat_p(P::Comma) {
-                    break;
-                }
-            }
-            return Ok(Conns::Named(v));
-        }
-        let mut v = Vec::new();
-        loop {
-            if self.peek_p(P::Comma) || self.peek_p(P::RParen) {
-                v.push(None);
-            } else {
-                v.push(Some(self.expr()?));
-            }
-            if !self.eat_p(P::Comma) {
-                break;
-            }
-        }
-        Ok(Conns::Ordered(v))
-    }
-
-    /// `i = expr` in a `for` header.
-    pub fn loop_assign(&mut self) -> PResult<(Sym, Pos, Expr)> {
-        let (n, p) = self.ident("a loop variable")?;
-        self.expect_p(P::Assign, "`=` in the loop header")?;
-        Ok((n, p, self.expr()?))
-    }
-
-    fn gen_for(&mut self, out: &mut Vec<Item>) -> PResult<()> {
-        let pos = self.bump().pos;
-        self.expect_p(P::LParen, "`(` after `for`")?;
-        if self.eat_kw(kw::GENVAR) {
-            let (n, p) = match self.peek().tok {
-                Tok::Ident(s) => (s, self.peek_pos()),
-                _ => return Err(self.error(pos, "expected a genvar name")),
-            };
-            out.push(Item::Genvar(vec![(n, p)]));
-        }
-        let init = self.loop_assign()?;
-        self.expect_p(P::Semi, "`;` in the loop header")?;
-        let cond = self.expr()?;
-        self.expect_p(P::Semi, "`;` in the loop header")?;
-        let step = self.loop_assign()?;
-        self.expect_p(P::RParen, "`)` closing the loop header")?;
-        let (name, items) = self.gen_block()?;
-        out.push(Item::GenFor(Box::new(GenFor {
-            init,
-            cond,
-            step,
-            name,
-            items,
-            pos,
-        })));
-        Ok(())
-    }
-
-    fn gen_if(&mut self, out: &mut Vec<Item>) -> PResult<()> {
-        let pos = self.bump().pos;
-        self.expect_p(P::LParen, "`(` after `if`")?;
-        let cond = self.expr()?;
-        self.expect_p(P::RParen, "`)`")?;
-        let (_, then) = self.gen_block()?;
-        let els = if self.eat_kw(kw::ELSE) {
-            if self.peek_kw(kw::IF) {
-                let mut v = Vec::new();
-                self.enter(pos)?;
-                let r = self.gen_if(&mut v);
-                self.leave();
-                r?;
-                v
-            } else {
-                self.gen_block()?.1
-            }
-        } else {
-            Vec::new()
-        };
-        out.push(Item::GenIf(cond, then, els, pos));
-        Ok(())
-    }
-
-    /// `begin [: name] items end`, or a single item.
-    fn gen_block(&mut self) -> PResult<(Option<Sym>, Vec<Item>)> {
-        let pos = self.peek_pos();
-        self.enter(pos)?;
-        let r = self.gen_block_inner();
-        self.leave();
-        r
-    }
-
-    fn gen_block_inner(&mut self) -> PResult<(Option<Sym>, Vec<Item>)> {
-        let mut items = Vec::new();
-        if self.eat_kw(kw::BEGIN) {
-            let name = if self.eat_p(P::Colon) {
-                Some(self.ident("a block name")?.0)
-            } else {
-                None
-            };
-            loop {
-                if self.eat_kw(kw::END) {
-                    break;
-                }
-                if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
-                    let p = self.peek_pos();
-                    return Err(self.error(p, "missing `end` of a generate block"));
-                }
-                if self.item(&mut items).is_err() {
-                    self.recover();
-                }
-            }
-            if self.eat_p(P::Colon) {
-                self.ident("a block name")?;
-            }
-            Ok((name, items))
-        } else {
-            self.item(&mut items)?;
-            Ok((None, items))
         }
     }
 }

@@ -1,7 +1,7 @@
 //! Interned identifiers: every name of a Verilog source becomes a [`Sym`]; keywords are the
 //! first symbols, so a keyword test is an integer comparison.
 
-use std::collections::HashMap;
+use super::fasthash::FastMap;
 
 /// An interned identifier or keyword.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
@@ -56,7 +56,7 @@ keywords! {
 /// The interner: names to symbols and back.
 #[derive(Debug)]
 pub struct Interner {
-    map: HashMap<Box<str>, Sym>,
+    map: FastMap<Box<str>, Sym>,
     names: Vec<Box<str>>,
 }
 
@@ -70,7 +70,7 @@ impl Interner {
     /// An interner holding the keywords.
     pub fn new() -> Interner {
         let mut i = Interner {
-            map: HashMap::new(),
+            map: FastMap::default(),
             names: Vec::new(),
         };
         for k in KEYWORDS {

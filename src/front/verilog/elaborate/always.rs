@@ -55,6 +55,9 @@ impl Elab<'_> {
                     BState::Set(l) => self.drive(*n, off as u32, *l, pos),
                     BState::Unset(Some(p)) => {
                         latch.entry(*n).or_insert(*p);
+                        // Reported as a latch below; a placeholder driver avoids a
+                        // follow-on "never driven" message for the same bits.
+                        self.drive(*n, off as u32, Lit::FALSE, pos);
                     }
                     BState::Unset(None) => {}
                 }

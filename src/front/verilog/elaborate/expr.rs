@@ -118,7 +118,10 @@ impl Elab<'_> {
                     lsb,
                 })
             }
-            Some(Symbol::Param(v, msb, lsb)) => Some(Operand { val: v, msb, lsb }),
+            Some(Symbol::Param(p)) => {
+                let (val, msb, lsb) = *p;
+                Some(Operand { val, msb, lsb })
+            }
             Some(Symbol::Genvar(Some(v))) => Some(Operand {
                 val: v,
                 msb: 31,

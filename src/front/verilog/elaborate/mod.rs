@@ -80,7 +80,7 @@ impl Net {
 #[derive(Clone, Debug)]
 enum Symbol {
     Net(u32),
-    Param(Val, i64, i64),
+    Param(Box<(Val, i64, i64)>),
     Genvar(Option<Val>),
 }
 
@@ -89,7 +89,7 @@ enum Symbol {
 struct Scope {
     parent: Option<u32>,
     prefix: String,
-    syms: HashMap<Sym, Symbol>,
+    syms: super::fasthash::FastMap<Sym, Symbol>,
     module: u32,
 }
 
@@ -231,7 +231,7 @@ impl<'a> Elab<'a> {
         self.scopes.push(Scope {
             parent,
             prefix,
-            syms: HashMap::new(),
+            syms: Default::default(),
             module,
         });
         (self.scopes.len() - 1) as u32

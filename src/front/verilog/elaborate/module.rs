@@ -12,7 +12,7 @@ use super::expr::Cx;
 use super::{Elab, GateRec, Symbol, Val};
 use crate::aig::Lit;
 use crate::design::CellKind;
-use std::collections::{HashMap, HashSet};
+use std::collections::HashSet;
 
 /// Which parameter an override sets.
 #[derive(Clone, Debug)]
@@ -29,9 +29,9 @@ fn walk_instances<'m>(items: &'m [Item], out: &mut Vec<&'m Instance>) {
         match it {
             Item::Inst(i) => out.push(i),
             Item::GenFor(g) => walk_instances(&g.items, out),
-            Item::GenIf(_, a, b, _) => {
-                walk_instances(a, out);
-                walk_instances(b, out);
+            Item::GenIf(g, _) => {
+                walk_instances(&g.1, out);
+                walk_instances(&g.2, out);
             }
             _ => {}
         }
@@ -228,7 +228,7 @@ impl<'a> Elab<'a> {
             }
             self.scopes[sc as usize]
                 .syms
-                .insert(*name, Symbol::Param(v, msb, lsb));
+                .insert(*name, Symbol::Param(Box::new((v, msb, lsb))));
         }
     }
 
@@ -258,7 +258,7 @@ impl<'a> Elab<'a> {
         }
         // B: declarations, merged per name (`output y; reg y;`).
         let mut order: Vec<Sym> = Vec::new();
-        let mut merged: HashMap<Sym, Merged> = HashMap::new();
+        let mut merged: super::super::fasthash::FastMap<Sym, Merged> = Default::default();
         let mut inits: Vec<(Sym, Pos, &Expr)> = Vec::new();
         for it in items {
             if let Item::Decl(d) = it {
@@ -304,7 +304,7 @@ impl<'a> Elab<'a> {
             for it in items {
                 let exprs: Vec<&Expr> = match it {
                     Item::Gate(_, _, t, _) => t.iter().collect(),
-                    Item::Assign(l, _, _) => vec![l],
+                    Item::Assign(a, _) => vec![&a.0],
                     Item::Inst(i) => match &i.conns {
                         Conns::Named(v) => v.iter().filter_map(|c| c.2.as_ref()).collect(),
                         Conns::Ordered(v) => v.iter().flatten().collect(),
@@ -327,7 +327,7 @@ impl<'a> Elab<'a> {
         let mut genblk = 0;
         for it in items {
             match it {
-                Item::Assign(l, r, p) => self.cont_assign(sc, l, r, *p),
+                Item::Assign(a, p) => self.cont_assign(sc, &a.0, &a.1, *p),
                 Item::Gate(k, _, t, p) => self.gate(sc, *k, t, *p),
                 Item::Inst(i) => self.instance(sc, i),
                 Item::Always(b, p) => self.elab_always(sc, b, *p),
@@ -335,7 +335,8 @@ impl<'a> Elab<'a> {
                     genblk += 1;
                     self.gen_for(sc, g, m, genblk);
                 }
-                Item::GenIf(c, a, b, _) => {
+                Item::GenIf(g, _) => {
+                    let (c, a, b) = &**g;
                     genblk += 1;
                     let cv = self.const_val(sc, c).map(|v| v.bits.contains(&Lit::TRUE));
                     if let Some(cv) = cv {
@@ -355,7 +356,7 @@ impl<'a> Elab<'a> {
         sc: u32,
         d: &'m Decl,
         order: &mut Vec<Sym>,
-        merged: &mut HashMap<Sym, Merged<'m>>,
+        merged: &mut super::super::fasthash::FastMap<Sym, Merged<'m>>,
         inits: &mut Vec<(Sym, Pos, &'m Expr)>,
     ) {
         for (s, p, init) in &d.names {
@@ -440,7 +441,20 @@ impl<'a> Elab<'a> {
         let cx = Cx::new(sc);
         let mut lits = Vec::with_capacity(ins.len());
         for t in ins {
-            let v = self.eval_self(&cx, t);
+            // Plain net names (the common case in netlists) skip the width computation.
+            let v = match t {
+                Expr::Ident(s, _) => match self.lookup(sc, *s) {
+                    Some(Symbol::Net(n)) => {
+                        let n = *n;
+                        Val {
+                            bits: self.net_bits(n),
+                            signed: false,
+                        }
+                    }
+                    _ => self.eval_self(&cx, t),
+                },
+                _ => self.eval_self(&cx, t),
+            };
             if v.bits.len() != 1 {
                 self.error(
                     t.pos(),

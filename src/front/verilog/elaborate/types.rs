@@ -33,9 +33,9 @@ impl Elab<'_> {
                         s: net.signed,
                     }
                 }
-                Some(Symbol::Param(v, _, _)) => Ty {
-                    w: v.bits.len(),
-                    s: v.signed,
+                Some(Symbol::Param(p)) => Ty {
+                    w: p.0.bits.len(),
+                    s: p.0.signed,
                 },
                 Some(Symbol::Genvar(_)) => Ty { w: 32, s: true },
                 None => Ty { w: 1, s: false },

@@ -337,10 +337,25 @@ mod demo {
         let o = equicone(&["demo"]);
         assert_eq!(code(&o), 0, "{}", String::from_utf8_lossy(&o.stderr));
         let out = stdout(&o);
-        assert!(out.contains("verdict     EQUIVALENT: all 8 output pairs agree"), "{out}");
-        assert!(out.contains("verdict     DIFFERENT: 8 of 8 output pairs differ"), "{out}");
-        assert!(out.contains("sel 9: reference ch[72], candidate ch[80]  !"), "{out}");
-        assert!(out.contains("sel 10: reference ch[80], candidate ch[72]  !"), "{out}");
-        assert!(out.contains("redundant input: y[0] does not depend on test_mode"), "{out}");
+        assert!(
+            out.contains("verdict     EQUIVALENT: all 8 output pairs agree"),
+            "{out}"
+        );
+        assert!(
+            out.contains("verdict     DIFFERENT: 8 of 8 output pairs differ"),
+            "{out}"
+        );
+        assert!(
+            out.contains("sel 9: reference ch[72], candidate ch[80]  !"),
+            "{out}"
+        );
+        assert!(
+            out.contains("sel 10: reference ch[80], candidate ch[72]  !"),
+            "{out}"
+        );
+        assert!(
+            out.contains("redundant input: y[0] does not depend on test_mode"),
+            "{out}"
+        );
     }
 }

@@ -133,3 +133,29 @@ fn the_project_bench_reader_reads_generated_bench() {
         }
     }
 }
+
+#[test]
+fn committed_bench_circuits_match_the_generators() {
+    // The committed set must be what the generators write today (regenerate it with
+    // scripts/gen-bench-circuits after a deliberate change).
+    let root = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("bench-circuits");
+    let entries = equicone::gen::set::committed();
+    for e in &entries {
+        let on_disk = std::fs::read_to_string(root.join(&e.path)).unwrap_or_else(|err| {
+            panic!(
+                "bench-circuits/{}: {err}; run scripts/gen-bench-circuits",
+                e.path
+            )
+        });
+        let now = generate(&e.spec, e.format).unwrap().text;
+        assert!(
+            on_disk == now,
+            "bench-circuits/{} is stale; run scripts/gen-bench-circuits",
+            e.path
+        );
+    }
+    eprintln!(
+        "bench-circuits: {} committed files match the generators",
+        entries.len()
+    );
+}

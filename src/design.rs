@@ -93,6 +93,18 @@ pub fn bit_name(port: &str, index: Option<i64>) -> String {
     }
 }
 
+/// Split a bit name `d[12]` into (`d`, 12); anything else is a scalar.
+pub fn split_bit(name: &str) -> (&str, Option<i64>) {
+    if let Some(open) = name.rfind('[') {
+        if name.ends_with(']') && open > 0 {
+            if let Ok(i) = name[open + 1..name.len() - 1].parse::<i64>() {
+                return (&name[..open], Some(i));
+            }
+        }
+    }
+    (name, None)
+}
+
 /// Gate types of the netlist as written.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize)]
 #[serde(rename_all = "lowercase")]

@@ -215,6 +215,7 @@ impl ClauseSink for varisat::CnfFormula {
 }
 
 #[cfg(test)]
+#[allow(clippy::needless_range_loop)]
 mod tests {
     use super::*;
 

@@ -102,6 +102,7 @@ pub fn random_words(n: usize, words: usize, seed: u64) -> Vec<Vec<u64>> {
 }
 
 #[cfg(test)]
+#[allow(clippy::needless_range_loop)]
 mod tests {
     use super::*;
 

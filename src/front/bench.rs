@@ -6,7 +6,7 @@
 //! file are collected; elaboration into the AIG is iterative, so a deep chain cannot overflow.
 
 use crate::aig::{Aig, Lit};
-use crate::design::{Cell, CellKind, Design, Format, InputBit, Netlist, OutputBit};
+use crate::design::{split_bit, Cell, CellKind, Design, Format, InputBit, Netlist, OutputBit};
 use crate::diag::{Diagnostic, InputError, SourcePos};
 use std::collections::HashMap;
 use std::sync::Arc;
@@ -120,14 +120,20 @@ impl Cursor<'_> {
         }
     }
     fn expect_end(&mut self) -> Result<(), Diagnostic> {
-        match self.peek() {
-            None => Ok(()),
-            Some(x) => Err(Diagnostic::error(
-                Some(self.pos()),
-                format!("unexpected `{x}` after the end of the statement"),
-            )
-            .with_help("write one statement per line")),
+        if self.peek().is_none() {
+            return Ok(());
         }
+        let pos = self.pos();
+        let rest: String = self.chars[self.at..]
+            .iter()
+            .take_while(|c| !c.is_whitespace())
+            .take(20)
+            .collect();
+        Err(Diagnostic::error(
+            Some(pos),
+            format!("unexpected `{rest}` after the end of the statement"),
+        )
+        .with_help("write one statement per line; comments start with `#`"))
     }
 }
 
@@ -266,7 +272,13 @@ fn check_arity(kind: CellKind, name: &str, n: usize, pos: &SourcePos) -> Result<
     Err(Diagnostic::error(
         Some(pos.clone()),
         format!("gate `{name}` has {n} inputs but needs {want}"),
-    ))
+    )
+    .with_help(match kind {
+        CellKind::Not | CellKind::Buf => {
+            "an inverter or buffer takes one signal, e.g. `y = NOT(a)`"
+        }
+        _ => "list the gate's inputs, e.g. `y = AND(a, b)`",
+    }))
 }
 
 /// Where a signal comes from.
@@ -325,7 +337,10 @@ fn elaborate(file: &Arc<str>, p: Parsed) -> Result<Design, InputError> {
     let mut input_lits = Vec::with_capacity(p.inputs.len());
     for (name, pos) in &p.inputs {
         input_lits.push(aig.add_input());
-        inputs.push(InputBit::port(name, None, Some(pos.clone())));
+        let (port, index) = split_bit(name);
+        let mut bit = InputBit::port(port, index, Some(pos.clone()));
+        bit.name = name.clone();
+        inputs.push(bit);
     }
     // Gate literals, built in dependency order with an explicit stack (no recursion).
     let resolve = |name: &str| def[name].0;
@@ -378,7 +393,12 @@ fn elaborate(file: &Arc<str>, p: Parsed) -> Result<Design, InputError> {
     let outputs: Vec<OutputBit> = p
         .outputs
         .iter()
-        .map(|(name, pos)| OutputBit::new(name, None, signal_lit(name), Some(pos.clone())))
+        .map(|(name, pos)| {
+            let (port, index) = split_bit(name);
+            let mut bit = OutputBit::new(port, index, signal_lit(name), Some(pos.clone()));
+            bit.name = name.clone();
+            bit
+        })
         .collect();
     let netlist = build_netlist(&p, &def);
     let design = Design {

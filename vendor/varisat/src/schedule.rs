@@ -75,7 +75,9 @@ pub fn schedule_step<'a>(
         false
     } else {
         // Added by equicone: a recoverable stop on a conflict budget or an external flag.
-        let over_budget = schedule.conflict_stop.map_or(false, |stop| schedule.conflicts >= stop);
+        let over_budget = schedule
+            .conflict_stop
+            .map_or(false, |stop| schedule.conflicts >= stop);
         let raised = schedule
             .interrupt
             .as_ref()

@@ -188,7 +188,10 @@ impl<'a> Solver<'a> {
 
     /// A flag that stops the search (recoverably) when it is raised, e.g. by a timer thread.
     /// Added by equicone.
-    pub fn set_interrupt_flag(&mut self, flag: Option<std::sync::Arc<std::sync::atomic::AtomicBool>>) {
+    pub fn set_interrupt_flag(
+        &mut self,
+        flag: Option<std::sync::Arc<std::sync::atomic::AtomicBool>>,
+    ) {
         self.ctx.schedule.interrupt = flag;
     }
 

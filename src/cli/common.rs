@@ -1,0 +1,97 @@
+//! Pieces shared by the commands: reading designs, printing errors, writing files atomically.
+
+use super::Exit;
+use crate::design::{Design, Format};
+use crate::diag::InputError;
+use crate::front::{self, Source};
+use clap::Args;
+use std::io::Write;
+use std::path::Path;
+
+/// The format names on the command line.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, clap::ValueEnum)]
+pub enum FormatArg {
+    /// ISCAS bench format.
+    Bench,
+    /// IEEE 1364 Verilog subset.
+    Verilog,
+}
+
+impl From<FormatArg> for Format {
+    fn from(f: FormatArg) -> Format {
+        match f {
+            FormatArg::Bench => Format::Bench,
+            FormatArg::Verilog => Format::Verilog,
+        }
+    }
+}
+
+/// How to read one design given on the command line.
+#[derive(Args, Debug, Clone)]
+pub struct DesignArgs {
+    /// The design's netlist file.
+    #[arg(value_name = "DESIGN")]
+    pub path: String,
+    /// More Verilog files of the same design.
+    #[arg(long = "also", value_name = "FILE")]
+    pub also: Vec<String>,
+    /// The input format (default: from the file name, `.bench` or `.v`).
+    #[arg(long, value_enum)]
+    pub format: Option<FormatArg>,
+    /// The top module (Verilog; default: the module nobody instantiates).
+    #[arg(long)]
+    pub top: Option<String>,
+}
+
+/// Read a design, printing its errors on failure.
+pub fn load(
+    paths: Vec<String>,
+    format: Option<FormatArg>,
+    top: Option<String>,
+) -> Result<Design, Exit> {
+    let src = Source {
+        paths,
+        format: format.map(Format::from),
+        top,
+    };
+    front::load(&src).map_err(|e| report_input_error(&e))
+}
+
+/// Print input errors to standard error; returns the bad-input exit code.
+pub fn report_input_error(e: &InputError) -> Exit {
+    eprintln!("{e}");
+    Exit::BadInput
+}
+
+/// Print an internal error; returns its exit code.
+pub fn report_internal(msg: &str) -> Exit {
+    eprintln!("error: {msg}");
+    Exit::Internal
+}
+
+/// Write `contents` to `path` atomically: a temporary file in the same folder, then a rename.
+pub fn write_atomic(path: &str, contents: &[u8]) -> Result<(), InputError> {
+    let p = Path::new(path);
+    let dir = match p.parent() {
+        Some(d) if !d.as_os_str().is_empty() => d,
+        _ => Path::new("."),
+    };
+    let fail = |e: std::io::Error| {
+        InputError::plain(
+            format!("cannot write `{path}`: {e}"),
+            "check that the folder exists and is writable",
+        )
+    };
+    let mut tmp = tempfile::NamedTempFile::new_in(dir).map_err(fail)?;
+    tmp.write_all(contents).map_err(fail)?;
+    tmp.as_file().sync_all().map_err(fail)?;
+    tmp.persist(p).map_err(|e| fail(e.error))?;
+    Ok(())
+}
+
+/// Print to standard output; a closed pipe is not an error.
+pub fn print(s: &str) {
+    let mut out = std::io::stdout().lock();
+    let _ = out.write_all(s.as_bytes());
+    let _ = out.flush();
+}

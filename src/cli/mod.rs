@@ -1,0 +1,67 @@
+//! The command line: flags (defined once, with their help), dispatch to the commands, and exit
+//! codes. Only this layer and the report layer touch files and standard streams.
+//!
+//! Exit codes: 0 equivalent / nothing flagged, 1 different / something flagged, 2 bad input or
+//! usage, 3 undecided (a limit was hit), 4 internal error (no claim is made).
+
+mod common;
+mod eval;
+mod gen;
+mod prove;
+mod routes;
+
+use clap::{Parser, Subcommand};
+
+/// Exit codes, part of the interface.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub enum Exit {
+    /// Equivalent, or nothing flagged.
+    Ok = 0,
+    /// Different, or something flagged.
+    Flagged = 1,
+    /// Bad input or usage.
+    BadInput = 2,
+    /// Undecided: a resource limit was hit.
+    Undecided = 3,
+    /// An internal check failed; no claim is made.
+    Internal = 4,
+}
+
+/// equicone: prove a rewritten combinational block equal to its reference, or show where it differs.
+#[derive(Parser, Debug)]
+#[command(name = "equicone", version, about, long_about = None)]
+#[command(
+    after_help = "Exit codes: 0 equivalent / nothing flagged, 1 different / flagged, 2 bad input or usage, 3 undecided, 4 internal error.\nLogs: RUST_LOG=debug.\nA proof covers zero-delay Boolean logic as modeled, not timing, power or layout."
+)]
+pub struct Cli {
+    /// The command.
+    #[command(subcommand)]
+    pub command: Command,
+}
+
+/// The commands.
+#[derive(Subcommand, Debug)]
+pub enum Command {
+    /// Prove CAND equivalent to REF for every input, or give a checked counterexample.
+    Prove(prove::ProveArgs),
+    /// Evaluate a design's outputs for one input vector.
+    Eval(eval::EvalArgs),
+    /// Write the miter of REF and CAND as DIMACS CNF for an external solver.
+    Cnf(prove::CnfArgs),
+    /// For each value of a select bus, show which data input each output follows (proved by SAT).
+    Routes(routes::RoutesArgs),
+    /// Write a generated circuit: selectors, decoders, priority encoders, shifters, adders,
+    /// multipliers, random circuits; optionally with a planted bug.
+    Gen(gen::GenArgs),
+}
+
+/// Run a parsed command line and return its exit code.
+pub fn run(cli: Cli) -> Exit {
+    match cli.command {
+        Command::Prove(a) => prove::run(&a),
+        Command::Eval(a) => eval::run(&a),
+        Command::Cnf(a) => prove::run_cnf(&a),
+        Command::Routes(a) => routes::run(&a),
+        Command::Gen(a) => gen::run(&a),
+    }
+}

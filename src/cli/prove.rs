@@ -1,0 +1,258 @@
+//! `equicone prove` and `equicone cnf`: read two designs, pair them, prove or export the miter.
+
+use super::common::{load, print, report_input_error, report_internal, write_atomic, FormatArg};
+use super::Exit;
+use crate::aig::Lit;
+use crate::cnf::{dimacs, Tseitin};
+use crate::design::Design;
+use crate::diagnose;
+use crate::engine::{self, EngineKind, PairBy, ProveError, ProveOptions, Verdict};
+use crate::report;
+use crate::sat::ClauseSink;
+use clap::Args;
+use std::time::Duration;
+
+/// Reading the reference and the candidate.
+#[derive(Args, Debug, Clone)]
+pub struct PairArgs {
+    /// The reference (trusted) netlist.
+    #[arg(value_name = "REF")]
+    pub reference: String,
+    /// The candidate (rewritten) netlist.
+    #[arg(value_name = "CAND")]
+    pub candidate: String,
+    /// More Verilog files of the reference.
+    #[arg(long = "ref-also", value_name = "FILE")]
+    pub ref_also: Vec<String>,
+    /// More Verilog files of the candidate.
+    #[arg(long = "cand-also", value_name = "FILE")]
+    pub cand_also: Vec<String>,
+    /// Input format of both files (default: from each file name).
+    #[arg(long, value_enum)]
+    pub format: Option<FormatArg>,
+    /// Input format of the reference.
+    #[arg(long, value_enum)]
+    pub ref_format: Option<FormatArg>,
+    /// Input format of the candidate.
+    #[arg(long, value_enum)]
+    pub cand_format: Option<FormatArg>,
+    /// Top module of the reference (Verilog).
+    #[arg(long)]
+    pub ref_top: Option<String>,
+    /// Top module of the candidate (Verilog).
+    #[arg(long)]
+    pub cand_top: Option<String>,
+    /// How to match input and output bits.
+    #[arg(long, value_enum, default_value_t = PairBy::Name)]
+    pub pair_by: PairBy,
+    /// Leave input bits that exist on one side only free (the verdict then covers all their values).
+    #[arg(long)]
+    pub free_extra_inputs: bool,
+}
+
+impl PairArgs {
+    fn load(&self) -> Result<(Design, Design), Exit> {
+        let mut rp = vec![self.reference.clone()];
+        rp.extend(self.ref_also.iter().cloned());
+        let mut cp = vec![self.candidate.clone()];
+        cp.extend(self.cand_also.iter().cloned());
+        let r = load(rp, self.ref_format.or(self.format), self.ref_top.clone());
+        let c = load(cp, self.cand_format.or(self.format), self.cand_top.clone());
+        Ok((r?, c?))
+    }
+}
+
+/// Options of `prove`.
+#[derive(Args, Debug)]
+pub struct ProveArgs {
+    #[command(flatten)]
+    pair: PairArgs,
+    /// The proof engine.
+    #[arg(long, value_enum, default_value_t = EngineKind::default())]
+    engine: EngineKind,
+    /// Stop after this many seconds; open output pairs are then undecided.
+    #[arg(long, value_name = "SECONDS")]
+    timeout: Option<f64>,
+    /// Conflicts allowed per SAT query; a query that needs more is undecided.
+    #[arg(long, value_name = "N")]
+    conflict_limit: Option<u64>,
+    /// Seed of the random simulation patterns.
+    #[arg(long, default_value_t = 1)]
+    seed: u64,
+    /// Print the report as JSON (schema in the README).
+    #[arg(long)]
+    json: bool,
+    /// Also write the JSON report to this file (written atomically).
+    #[arg(long, value_name = "FILE")]
+    report: Option<String>,
+    /// Ask only for input vectors where this Verilog expression over the input ports holds,
+    /// e.g. `sel < 12` (repeatable: all must hold).
+    #[arg(long, value_name = "EXPR")]
+    assume: Vec<String>,
+    /// The select bus for route tables of differing outputs (default: `sel`, `s`, `select` or
+    /// `addr` when both designs have it).
+    #[arg(long, value_name = "BUS")]
+    select: Option<String>,
+}
+
+/// Options of `cnf`.
+#[derive(Args, Debug)]
+pub struct CnfArgs {
+    #[command(flatten)]
+    pair: PairArgs,
+    /// Where to write the DIMACS file.
+    #[arg(short = 'o', long = "output", value_name = "FILE")]
+    output: String,
+}
+
+fn timeout_of(t: Option<f64>) -> Result<Option<Duration>, Exit> {
+    match t {
+        None => Ok(None),
+        Some(s) if s.is_finite() && s > 0.0 && s < 1e9 => Ok(Some(Duration::from_secs_f64(s))),
+        Some(s) => {
+            eprintln!("error: --timeout {s} is not a positive number of seconds\n  help: for example `--timeout 30`");
+            Err(Exit::BadInput)
+        }
+    }
+}
+
+/// Run `prove`.
+pub fn run(a: &ProveArgs) -> Exit {
+    let (r, c) = match a.pair.load() {
+        Ok(x) => x,
+        Err(e) => return e,
+    };
+    let timeout = match timeout_of(a.timeout) {
+        Ok(t) => t,
+        Err(e) => return e,
+    };
+    let opts = ProveOptions {
+        pair_by: a.pair.pair_by,
+        free_extra_inputs: a.pair.free_extra_inputs,
+        engine: a.engine,
+        timeout,
+        conflict_limit: a.conflict_limit,
+        seed: a.seed,
+        sim_words: None,
+    };
+    let mut shared = match engine::pair(&r, &c, opts.pair_by, opts.free_extra_inputs) {
+        Ok(s) => s,
+        Err(e) => return report_input_error(&e),
+    };
+    if !a.assume.is_empty() {
+        let by_name: std::collections::BTreeMap<String, Lit> = shared
+            .ref_input
+            .iter()
+            .enumerate()
+            .map(|(i, &k)| (r.inputs[i].name.clone(), shared.aig.input_lit(k)))
+            .collect();
+        let mut aig = std::mem::take(&mut shared.aig);
+        let c = crate::assume::constraint(&r, &a.assume, &mut aig, &|n| by_name.get(n).copied())
+            .and_then(|c| crate::assume::check_satisfiable(&aig, c, &a.assume).map(|_| c));
+        shared.aig = aig;
+        match c {
+            Ok(c) => shared.constraint = c,
+            Err(e) => return report_input_error(&e),
+        }
+    }
+    let mut rep = match engine::prove_shared(&r, &c, shared, &a.assume, &opts) {
+        Ok(rep) => rep,
+        Err(ProveError::Input(e)) => return report_input_error(&e),
+        Err(ProveError::Internal(m)) => return report_internal(&m),
+    };
+    if let Some(bus) = diagnose::pick_select(&r, &c, a.select.as_deref()) {
+        let limits = crate::sat::Limits::new(timeout, a.conflict_limit);
+        if let (Ok((r2, rc)), Ok((c2, cc))) = (
+            crate::assume::on_design(&r, &a.assume),
+            crate::assume::on_design(&c, &a.assume),
+        ) {
+            rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, &bus, (rc, cc), &limits);
+        }
+    } else if let Some(bus) = &a.select {
+        eprintln!(
+            "warning: no route tables: `{bus}` is not an input bus of both designs (up to 16 bits)"
+        );
+    }
+    let json = report::to_json(&rep);
+    if let Some(path) = &a.report {
+        if let Err(e) = write_atomic(path, json.as_bytes()) {
+            return report_input_error(&e);
+        }
+    }
+    print(&if a.json {
+        json
+    } else {
+        report::prove_text(&rep)
+    });
+    match rep.verdict {
+        Verdict::Equivalent => Exit::Ok,
+        Verdict::Different => Exit::Flagged,
+        Verdict::Undecided => Exit::Undecided,
+    }
+}
+
+/// Run `cnf`: the miter (OR of the XORs of all output pairs) asserted true, so that the
+/// formula is unsatisfiable exactly when the designs are equivalent.
+pub fn run_cnf(a: &CnfArgs) -> Exit {
+    let (r, c) = match a.pair.load() {
+        Ok(x) => x,
+        Err(e) => return e,
+    };
+    let shared = match engine::pair(&r, &c, a.pair.pair_by, a.pair.free_extra_inputs) {
+        Ok(s) => s,
+        Err(e) => return report_input_error(&e),
+    };
+    let mut f = varisat::CnfFormula::new();
+    let mut ts = Tseitin::new();
+    let mut xors = Vec::new();
+    let mut comments = vec![
+        format!(
+            "equicone miter: reference {} vs candidate {}",
+            r.name, c.name
+        ),
+        "unsatisfiable exactly when every output pair is equal".to_string(),
+    ];
+    for k in 0..shared.aig.num_inputs() {
+        let v = ts.lit(&shared.aig, &mut f, shared.aig.input_lit(k));
+        let (name, side) = shared.input_name(k, &r, &c);
+        let side = if side.is_empty() {
+            String::new()
+        } else {
+            format!(" ({side} only)")
+        };
+        comments.push(format!("input {} {name}{side}", dimacs::dimacs_number(v)));
+    }
+    for p in 0..shared.pairs.len() {
+        let x = ts.lit(&shared.aig, &mut f, shared.ref_lits[p]);
+        let y = ts.lit(&shared.aig, &mut f, shared.cand_lits[p]);
+        let d = f.fresh();
+        // d <-> (x xor y)
+        f.clause(&[!d, x, y]);
+        f.clause(&[!d, !x, !y]);
+        f.clause(&[d, !x, y]);
+        f.clause(&[d, x, !y]);
+        let (ri, ci) = shared.pairs[p];
+        comments.push(format!(
+            "pair {} reference {} candidate {} (differs when true)",
+            dimacs::dimacs_number(d),
+            r.outputs[ri].name,
+            c.outputs[ci].name
+        ));
+        xors.push(d);
+    }
+    f.clause(&xors);
+    let mut buf = Vec::new();
+    dimacs::write_dimacs(&mut buf, &f, &comments).expect("writing to memory");
+    match write_atomic(&a.output, &buf) {
+        Ok(()) => {
+            eprintln!(
+                "wrote {} ({} variables, {} clauses)",
+                a.output,
+                f.var_count(),
+                f.len()
+            );
+            Exit::Ok
+        }
+        Err(e) => report_input_error(&e),
+    }
+}

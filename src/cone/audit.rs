@@ -1,0 +1,262 @@
+//! The `cone` audit: structural cones, supports, flags and the report, for the selected
+//! output bits of one design.
+
+use super::expect::Expectation;
+use super::names::{compact, input_names, output_names, resolve};
+use super::report::{AuditReport, ClaimReport, ClaimVerdict, Flag, InputSummary, OutputAudit};
+use super::structural::StructuralGraph;
+use super::support::{run, IndependentBy, Membership, SupportOptions, SupportResult};
+use crate::design::{Design, InputKind};
+use crate::diag::{Diagnostic, InputError};
+use crate::sat::Limits;
+
+/// What to audit and how.
+#[derive(Clone, Debug, Default)]
+pub struct AuditOptions {
+    /// Output indices to audit (see [`select_outputs`]); empty means every output.
+    pub outputs: Vec<usize>,
+    /// The user's expectation (`--expect`).
+    pub expect: Option<Expectation>,
+    /// Simulation seed and rounds, progress bar.
+    pub support: SupportOptions,
+    /// Whether the text report lists every claim with its evidence (JSON always does).
+    pub text_evidence: bool,
+}
+
+/// Resolve `--output` names (bits, buses, ranges such as `d[0..3]`) to output indices, in
+/// the order given, without repeats.
+pub fn select_outputs(design: &Design, names: &[String]) -> Result<Vec<usize>, InputError> {
+    let outs = output_names(design);
+    let mut chosen = Vec::new();
+    let mut errors = Vec::new();
+    for n in names {
+        match resolve(n, &outs, "output", true) {
+            Ok(v) => {
+                for o in v {
+                    if !chosen.contains(&o) {
+                        chosen.push(o);
+                    }
+                }
+            }
+            Err(e) => errors.push(
+                Diagnostic::error(None, format!("--output {n}: {}", e.message)).with_help(e.help),
+            ),
+        }
+    }
+    if errors.is_empty() {
+        Ok(chosen)
+    } else {
+        Err(InputError {
+            diagnostics: errors,
+        })
+    }
+}
+
+/// Audit the selected outputs of `design`: structural cone, exact support with evidence,
+/// flags. Limits leave claims undecided (see [`AuditReport::undecided`]), never guessed.
+pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditReport {
+    let all_outputs = opts.outputs.is_empty();
+    let outputs: Vec<usize> = if all_outputs {
+        (0..design.outputs.len()).collect()
+    } else {
+        opts.outputs.clone()
+    };
+    let graph = StructuralGraph::build(design);
+    let cones: Vec<_> = outputs.iter().map(|&o| graph.cone(o)).collect();
+    let bar = super::progress_bar(opts.support.progress, "cone audit");
+    let (results, stats) = run(
+        design,
+        &outputs,
+        cones.iter().map(|c| c.inputs.clone()).collect(),
+        &opts.support,
+        limits,
+        &bar,
+    );
+    bar.finish_and_clear();
+
+    let ins = input_names(design);
+    let name = |k: usize| design.inputs[k].name.clone();
+    let mut flags = Vec::new();
+    let mut audits = Vec::with_capacity(results.len());
+    let mut in_cones = vec![0usize; design.inputs.len()];
+    let mut in_supports = vec![0usize; design.inputs.len()];
+    for (r, cone) in results.iter().zip(&cones) {
+        let out = &design.outputs[r.output];
+        let support = r.support();
+        for &k in &r.cone {
+            in_cones[k] += 1;
+        }
+        for &k in &support {
+            in_supports[k] += 1;
+        }
+        let undecided = r.undecided();
+        let constant = (support.is_empty() && undecided.is_empty())
+            .then(|| design.eval(&vec![false; design.inputs.len()])[r.output]);
+        if let Some(value) = constant {
+            flags.push(Flag::ConstantOutput {
+                output: out.name.clone(),
+                value,
+            });
+        }
+        for (&k, m) in r.cone.iter().zip(&r.claims) {
+            if let Membership::Independent(by) = m {
+                if !design.inputs[k].is_unknown() {
+                    flags.push(Flag::RedundantInput {
+                        output: out.name.clone(),
+                        input: name(k),
+                        by: *by,
+                    });
+                }
+            }
+        }
+        for &k in &support {
+            if let InputKind::Unknown { pos, what } = &design.inputs[k].kind {
+                flags.push(Flag::UnknownInSupport {
+                    output: out.name.clone(),
+                    source: name(k),
+                    what: what.clone(),
+                    pos: pos.to_string(),
+                });
+            }
+        }
+        let expected = opts.expect.as_ref().and_then(|e| e.entries.get(&r.output));
+        if let Some(exp) = expected {
+            for &k in &exp.inputs {
+                let m = r.membership(k);
+                if matches!(m, None | Some(Membership::Independent(_))) {
+                    flags.push(Flag::MissingInput {
+                        output: out.name.clone(),
+                        input: name(k),
+                        expected_at: exp.pos.to_string(),
+                    });
+                }
+            }
+            for &k in &support {
+                if !design.inputs[k].is_unknown() && exp.inputs.binary_search(&k).is_err() {
+                    flags.push(Flag::UnexpectedInput {
+                        output: out.name.clone(),
+                        input: name(k),
+                        expected_at: exp.pos.to_string(),
+                    });
+                }
+            }
+        }
+        audits.push(OutputAudit {
+            name: out.name.clone(),
+            port: out.port.clone(),
+            index: out.index,
+            cone_gates: cone.gates,
+            cone: r.cone.iter().map(|&k| name(k)).collect(),
+            support: support.iter().map(|&k| name(k)).collect(),
+            redundant: r.redundant().iter().map(|&k| name(k)).collect(),
+            undecided: undecided.iter().map(|&k| name(k)).collect(),
+            constant,
+            expected: expected.map(|e| e.inputs.iter().map(|&k| name(k)).collect()),
+            claims: claims(design, r),
+            support_text: compact(&support, &ins),
+            cone_text: compact(&r.cone, &ins),
+        });
+    }
+    if let Some(exp) = &opts.expect {
+        subset_flags(design, exp, &results, &mut flags);
+    }
+    if all_outputs {
+        for k in 0..design.inputs.len() {
+            if in_supports[k] == 0 && !design.inputs[k].is_unknown() {
+                flags.push(Flag::UnusedInput {
+                    input: name(k),
+                    connected: in_cones[k] > 0,
+                });
+            }
+        }
+    }
+    let inputs = design
+        .inputs
+        .iter()
+        .enumerate()
+        .map(|(k, b)| {
+            let (kind, what, pos) = match &b.kind {
+                InputKind::Port => ("port", None, b.pos.as_ref().map(|p| p.to_string())),
+                InputKind::Unknown { pos, what } => {
+                    ("unknown", Some(what.clone()), Some(pos.to_string()))
+                }
+            };
+            InputSummary {
+                name: b.name.clone(),
+                kind,
+                what,
+                pos,
+                in_cones: in_cones[k],
+                in_supports: in_supports[k],
+            }
+        })
+        .collect();
+    AuditReport {
+        schema: AuditReport::SCHEMA,
+        design: design.name.clone(),
+        graph: graph.source,
+        all_outputs,
+        inputs,
+        outputs: audits,
+        flags,
+        stats,
+        text_evidence: opts.text_evidence,
+    }
+}
+
+fn claims(design: &Design, r: &SupportResult) -> Vec<ClaimReport> {
+    r.cone
+        .iter()
+        .zip(&r.claims)
+        .map(|(&k, m)| ClaimReport {
+            input: design.inputs[k].name.clone(),
+            verdict: match m {
+                Membership::Depends { vector, value, by } => ClaimVerdict::Depends {
+                    by: *by,
+                    vector: r
+                        .cone
+                        .iter()
+                        .map(|&j| if vector[j] { '1' } else { '0' })
+                        .collect(),
+                    output_at_0: *value,
+                },
+                Membership::Independent(by) => ClaimVerdict::Independent {
+                    by: *by,
+                    sat: (*by == IndependentBy::Unsat).then_some("unsat"),
+                },
+                Membership::Undecided(reason) => ClaimVerdict::Undecided { reason: *reason },
+            },
+        })
+        .collect()
+}
+
+/// Flag output pairs whose supports nest strictly where the expectations do not.
+fn subset_flags(
+    design: &Design,
+    exp: &Expectation,
+    results: &[SupportResult],
+    flags: &mut Vec<Flag>,
+) {
+    let rows: Vec<(usize, Vec<usize>, &Vec<usize>)> = results
+        .iter()
+        .filter(|r| r.undecided().is_empty())
+        .filter_map(|r| {
+            exp.entries
+                .get(&r.output)
+                .map(|e| (r.output, r.support(), &e.inputs))
+        })
+        .collect();
+    let strict = |a: &[usize], b: &[usize]| {
+        a.len() < b.len() && a.iter().all(|x| b.binary_search(x).is_ok())
+    };
+    for (o1, s1, e1) in &rows {
+        for (o2, s2, e2) in &rows {
+            if o1 != o2 && strict(s1, s2) && !strict(e1, e2) {
+                flags.push(Flag::SubsetSupport {
+                    output: design.outputs[*o1].name.clone(),
+                    of: design.outputs[*o2].name.clone(),
+                });
+            }
+        }
+    }
+}

@@ -1,0 +1,48 @@
+//! Cone audit: for every output bit, its structural cone (transitive fan-in) against its
+//! exact functional support, each claim with its evidence, and the flags a designer acts on
+//! (redundant inputs, inputs that reach no output, constant outputs, unknown values in a
+//! support, and differences from an `--expect` file).
+//!
+//! Entry points: [`audit`] for the `cone` command, [`support()`] for one output bit and
+//! [`compare_supports`] for prove's side-by-side hint on a differing output pair.
+
+mod audit;
+mod cofactor;
+mod compare;
+pub mod dot;
+pub mod expect;
+mod flip;
+pub mod names;
+pub mod report;
+pub mod structural;
+pub mod support;
+mod text;
+
+pub use audit::{audit, select_outputs, AuditOptions};
+pub use compare::{compare_supports, SupportComparison};
+pub use expect::{parse_expect, read_expect, ExpectEntry, Expectation};
+pub use report::{AuditReport, ClaimReport, ClaimVerdict, Flag, InputSummary, OutputAudit};
+pub use structural::{Cone, GraphSource, StructuralGraph};
+pub use support::{
+    support, supports, DependsBy, IndependentBy, Membership, SupportOptions, SupportResult,
+    SupportStats,
+};
+
+use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
+use std::io::IsTerminal;
+
+/// A progress bar on standard error when `enabled` and standard error is a terminal; a
+/// hidden one otherwise.
+pub(crate) fn progress_bar(enabled: bool, what: &str) -> ProgressBar {
+    if !enabled || !std::io::stderr().is_terminal() {
+        return ProgressBar::hidden();
+    }
+    let bar = ProgressBar::with_draw_target(Some(0), ProgressDrawTarget::stderr());
+    if let Ok(style) =
+        ProgressStyle::with_template("{msg} [{bar:40}] {pos}/{len} claims ({eta} left)")
+    {
+        bar.set_style(style.progress_chars("=> "));
+    }
+    bar.set_message(what.to_string());
+    bar
+}

@@ -1,0 +1,541 @@
+//! Exact functional support of output bits: for every input of an output's structural cone,
+//! a decided claim with its evidence.
+//!
+//! Order of work: (1) inputs without a path in the AIG are independent at once; (2) rounds of
+//! random flip simulation prove most "depends" claims with a pattern pair; (3) the rest go to
+//! SAT, one incremental solver per output, one query per claim on the cofactor miter
+//! `f|x=0 XOR f|x=1` built in a shared copy of the AIG (assumed true as the query's
+//! activation literal: UNSAT proves independence, a model is a pattern pair); (4) every SAT
+//! model is replayed by flip simulation on the claims still open. A query stopped by a limit
+//! leaves its claim undecided; nothing is guessed.
+
+use super::cofactor::Cofactorer;
+use super::flip::{Fanout, FlipSim};
+use crate::aig::{eval, random_words, Lit};
+use crate::cnf::Tseitin;
+use crate::design::Design;
+use crate::sat::{Limits, Sat, SatResult, SatStats, StopReason};
+use indicatif::ProgressBar;
+use serde::Serialize;
+
+/// How the support engine works.
+#[derive(Clone, Debug)]
+pub struct SupportOptions {
+    /// Seed of the random patterns (the same seed gives the same report).
+    pub seed: u64,
+    /// Rounds of random simulation at most; a round that decides nothing new ends them.
+    pub max_rounds: usize,
+    /// Show a progress bar on standard error (only when it is a terminal).
+    pub progress: bool,
+}
+
+impl Default for SupportOptions {
+    fn default() -> Self {
+        SupportOptions {
+            seed: 1,
+            max_rounds: 16,
+            progress: false,
+        }
+    }
+}
+
+/// How a "depends on" claim was proved.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum DependsBy {
+    /// Flip simulation on random patterns.
+    RandomSimulation,
+    /// Flip simulation on a pattern taken from an earlier SAT model.
+    ReplayedSimulation,
+    /// A model of the cofactor miter.
+    Sat,
+}
+
+/// How a "does not depend" claim was proved.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum IndependentBy {
+    /// The input has no path to the output in the AIG (structural hashing and the constant
+    /// rules removed it while the design was read), so both cofactors are the same graph.
+    NoPath,
+    /// The cofactor miter hashed to constant false: the two cofactors are the same graph.
+    CofactorsMerged,
+    /// The SAT solver answered UNSAT on the cofactor miter.
+    Unsat,
+}
+
+/// The answer for one (output, input) pair.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum Membership {
+    /// The output depends on the input: on `vector` (every design input, the claimed input
+    /// at 0) the output is `value`; with the input flipped to 1 it is `!value`.
+    Depends {
+        /// Values of all design inputs, in design order, with the claimed input at 0.
+        vector: Vec<bool>,
+        /// The output's value on `vector`.
+        value: bool,
+        /// Where the pattern came from.
+        by: DependsBy,
+    },
+    /// The output does not depend on the input.
+    Independent(IndependentBy),
+    /// A resource limit stopped the query.
+    Undecided(StopReason),
+}
+
+impl Membership {
+    /// Whether this claim says "depends".
+    pub fn depends(&self) -> bool {
+        matches!(self, Membership::Depends { .. })
+    }
+    /// Whether this claim says "does not depend".
+    pub fn independent(&self) -> bool {
+        matches!(self, Membership::Independent(_))
+    }
+    /// Whether this claim is undecided.
+    pub fn undecided(&self) -> bool {
+        matches!(self, Membership::Undecided(_))
+    }
+}
+
+/// The support of one output bit, with a claim for every input of its structural cone.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct SupportResult {
+    /// Index of the output in [`Design::outputs`].
+    pub output: usize,
+    /// Design input indices in the structural cone, ascending.
+    pub cone: Vec<usize>,
+    /// One claim per cone input, in the order of `cone`.
+    pub claims: Vec<Membership>,
+}
+
+impl SupportResult {
+    fn filter(&self, f: fn(&Membership) -> bool) -> Vec<usize> {
+        self.cone
+            .iter()
+            .zip(&self.claims)
+            .filter(|(_, m)| f(m))
+            .map(|(&k, _)| k)
+            .collect()
+    }
+    /// Inputs the output depends on (ascending design input indices).
+    pub fn support(&self) -> Vec<usize> {
+        self.filter(Membership::depends)
+    }
+    /// Cone inputs the output does not depend on.
+    pub fn redundant(&self) -> Vec<usize> {
+        self.filter(Membership::independent)
+    }
+    /// Cone inputs whose claim is undecided.
+    pub fn undecided(&self) -> Vec<usize> {
+        self.filter(Membership::undecided)
+    }
+    /// The claim for design input `input`, if it is in the cone.
+    pub fn membership(&self, input: usize) -> Option<&Membership> {
+        self.cone
+            .binary_search(&input)
+            .ok()
+            .map(|i| &self.claims[i])
+    }
+}
+
+/// How the claims of a run were decided (the simulation/SAT split).
+#[derive(Copy, Clone, Debug, Default, PartialEq, Eq, Serialize)]
+pub struct SupportStats {
+    /// Claims, one per (output, cone input).
+    pub claims: u64,
+    /// "Depends" proved by random flip simulation.
+    pub depends_by_random_simulation: u64,
+    /// "Depends" proved by replaying a SAT model in flip simulation.
+    pub depends_by_replayed_simulation: u64,
+    /// "Depends" proved by a SAT model.
+    pub depends_by_sat: u64,
+    /// "Does not depend" proved without SAT (no path, or the miter hashed to false).
+    pub independent_by_structure: u64,
+    /// "Does not depend" proved by an UNSAT answer.
+    pub independent_by_sat: u64,
+    /// Claims left undecided by a limit.
+    pub undecided: u64,
+    /// Random simulation rounds run.
+    pub simulation_rounds: u64,
+    /// Random patterns simulated.
+    pub random_patterns: u64,
+    /// SAT models replayed in simulation.
+    pub replayed_patterns: u64,
+    /// SAT solver figures, over all solvers.
+    pub sat: SatStats,
+}
+
+impl SupportStats {
+    /// Claims decided by simulation (random or replayed).
+    pub fn by_simulation(&self) -> u64 {
+        self.depends_by_random_simulation + self.depends_by_replayed_simulation
+    }
+    /// Claims decided by a SAT answer.
+    pub fn by_sat(&self) -> u64 {
+        self.depends_by_sat + self.independent_by_sat
+    }
+}
+
+/// The support of one output bit (structural cone from the netlist as written where the
+/// design has one). For prove's side-by-side hint and other single-output uses.
+pub fn support(design: &Design, output: usize, limits: &Limits) -> SupportResult {
+    let graph = super::structural::StructuralGraph::build(design);
+    let cone = graph.cone(output).inputs;
+    let (mut r, _) = run(
+        design,
+        &[output],
+        vec![cone],
+        &SupportOptions::default(),
+        limits,
+        &ProgressBar::hidden(),
+    );
+    r.pop().expect("one result per output")
+}
+
+/// The supports of several output bits, sharing simulation and the working graph.
+pub fn supports(
+    design: &Design,
+    outputs: &[usize],
+    opts: &SupportOptions,
+    limits: &Limits,
+) -> (Vec<SupportResult>, SupportStats) {
+    let graph = super::structural::StructuralGraph::build(design);
+    let cones = outputs.iter().map(|&o| graph.cone(o).inputs).collect();
+    let bar = super::progress_bar(opts.progress, "support");
+    let r = run(design, outputs, cones, opts, limits, &bar);
+    bar.finish_and_clear();
+    r
+}
+
+/// Decide every claim of `outputs`, whose structural cones (design input indices) are
+/// `cones`; inputs of the AIG cone are added where the structural cone lacks them.
+pub(crate) fn run(
+    design: &Design,
+    outputs: &[usize],
+    cones: Vec<Vec<usize>>,
+    opts: &SupportOptions,
+    limits: &Limits,
+    bar: &ProgressBar,
+) -> (Vec<SupportResult>, SupportStats) {
+    let mut e = Engine::new(design, outputs, cones, limits, bar);
+    e.simulate_rounds(opts);
+    e.solve_rest();
+    e.finish()
+}
+
+type Slot = Option<Membership>;
+
+struct Engine<'a> {
+    design: &'a Design,
+    limits: &'a Limits,
+    bar: &'a ProgressBar,
+    fanout: Fanout,
+    outputs: Vec<usize>,
+    roots: Vec<Lit>,
+    cones: Vec<Vec<usize>>,
+    claims: Vec<Vec<Slot>>,
+    /// Per design input: the open claims `(audited output position, claim position)`.
+    open: Vec<Vec<(u32, u32)>>,
+    stats: SupportStats,
+}
+
+impl<'a> Engine<'a> {
+    fn new(
+        design: &'a Design,
+        outputs: &[usize],
+        cones: Vec<Vec<usize>>,
+        limits: &'a Limits,
+        bar: &'a ProgressBar,
+    ) -> Engine<'a> {
+        let aig = &design.aig;
+        let mut open = vec![Vec::new(); aig.num_inputs()];
+        let mut all_cones = Vec::with_capacity(outputs.len());
+        let mut claims = Vec::with_capacity(outputs.len());
+        let mut stats = SupportStats::default();
+        let roots: Vec<Lit> = outputs.iter().map(|&o| design.outputs[o].lit).collect();
+        for (pos, (cone, &root)) in cones.into_iter().zip(&roots).enumerate() {
+            let in_aig = aig.cone_inputs(&[root]);
+            let mut cone = cone;
+            cone.extend(in_aig.iter().map(|&k| k as usize));
+            cone.sort_unstable();
+            cone.dedup();
+            let mut slots = Vec::with_capacity(cone.len());
+            for (ci, &k) in cone.iter().enumerate() {
+                if in_aig.binary_search(&(k as u32)).is_ok() {
+                    open[k].push((pos as u32, ci as u32));
+                    slots.push(None);
+                } else {
+                    stats.independent_by_structure += 1;
+                    slots.push(Some(Membership::Independent(IndependentBy::NoPath)));
+                }
+            }
+            stats.claims += cone.len() as u64;
+            all_cones.push(cone);
+            claims.push(slots);
+        }
+        bar.set_length(stats.claims);
+        bar.set_position(stats.independent_by_structure);
+        Engine {
+            design,
+            limits,
+            bar,
+            fanout: Fanout::new(aig),
+            outputs: outputs.to_vec(),
+            roots,
+            cones: all_cones,
+            claims,
+            open,
+            stats,
+        }
+    }
+
+    fn any_open(&self) -> bool {
+        self.open.iter().any(|v| !v.is_empty())
+    }
+
+    /// Rounds of random flip simulation until a round decides nothing new.
+    fn simulate_rounds(&mut self, opts: &SupportOptions) {
+        let design = self.design;
+        let aig = &design.aig;
+        // At most about 32 MiB of simulation values per block.
+        let words = (4_000_000 / aig.len().max(1)).clamp(1, 64);
+        for round in 0..opts.max_rounds {
+            if !self.any_open() || self.limits.expired() {
+                break;
+            }
+            let seed = opts
+                .seed
+                .wrapping_mul(0x1000_0000_0000)
+                .wrapping_add(round as u64);
+            let ins = random_words(aig.num_inputs(), words, seed);
+            self.stats.simulation_rounds += 1;
+            self.stats.random_patterns += (words * 64) as u64;
+            if self.simulate_block(ins, DependsBy::RandomSimulation) == 0 {
+                break;
+            }
+        }
+    }
+
+    /// Flip every input with open claims on one block of patterns; returns claims decided.
+    fn simulate_block(&mut self, ins: Vec<Vec<u64>>, by: DependsBy) -> u64 {
+        let design = self.design;
+        let mut sim = FlipSim::new(&design.aig, &self.fanout, ins);
+        let mut decided = 0u64;
+        for x in 0..self.open.len() {
+            if self.open[x].is_empty() {
+                continue;
+            }
+            if self.limits.expired() {
+                break;
+            }
+            sim.flip(x);
+            let mut still = Vec::new();
+            for &(pos, ci) in &self.open[x] {
+                let (pos_u, ci_u) = (pos as usize, ci as usize);
+                if self.claims[pos_u][ci_u].is_some() {
+                    continue;
+                }
+                let root = self.roots[pos_u];
+                match sim.first_difference(root) {
+                    Some(p) => {
+                        let mut vector = sim.pattern(p);
+                        let was_one = vector[x];
+                        vector[x] = false;
+                        let at_p = sim.value(root, p);
+                        let value = at_p ^ was_one;
+                        self.claims[pos_u][ci_u] = Some(Membership::Depends { vector, value, by });
+                        decided += 1;
+                    }
+                    None => still.push((pos, ci)),
+                }
+            }
+            self.open[x] = still;
+        }
+        match by {
+            DependsBy::RandomSimulation => self.stats.depends_by_random_simulation += decided,
+            _ => self.stats.depends_by_replayed_simulation += decided,
+        }
+        self.bar.inc(decided);
+        decided
+    }
+
+    /// SAT on the cofactor miter for every claim still open, output by output.
+    fn solve_rest(&mut self) {
+        let design = self.design;
+        let aig = &design.aig;
+        let mut work = aig.clone();
+        let mut cof = Cofactorer::new(aig.len());
+        let mut pool: Vec<Vec<bool>> = Vec::new();
+        for pos in 0..self.outputs.len() {
+            let todo: Vec<usize> = (0..self.claims[pos].len())
+                .filter(|&ci| self.claims[pos][ci].is_none())
+                .collect();
+            if todo.is_empty() {
+                continue;
+            }
+            let root = self.roots[pos];
+            let mask = aig.cone_mask(&[root]);
+            let mut sat = Sat::new(self.limits);
+            let mut ts = Tseitin::new();
+            for ci in todo {
+                let x = self.cones[pos][ci];
+                let m = if self.limits.expired() {
+                    Membership::Undecided(StopReason::Timeout)
+                } else {
+                    let miter = cof.miter(&mut work, &self.fanout, &mask, root, aig.inputs()[x]);
+                    self.query(&work, &mut sat, &mut ts, miter, root, x, &mut pool)
+                };
+                match &m {
+                    Membership::Depends { .. } => self.stats.depends_by_sat += 1,
+                    Membership::Independent(IndependentBy::Unsat) => {
+                        self.stats.independent_by_sat += 1
+                    }
+                    Membership::Independent(_) => self.stats.independent_by_structure += 1,
+                    Membership::Undecided(_) => self.stats.undecided += 1,
+                }
+                self.claims[pos][ci] = Some(m);
+                self.bar.inc(1);
+            }
+            self.stats.sat.add(&sat.stats());
+            if !pool.is_empty() && self.any_later_open(pos) {
+                self.replay(&mut pool);
+            }
+            pool.clear();
+        }
+    }
+
+    #[allow(clippy::too_many_arguments)]
+    fn query(
+        &self,
+        work: &crate::aig::Aig,
+        sat: &mut Sat<'_>,
+        ts: &mut Tseitin,
+        miter: Lit,
+        root: Lit,
+        x: usize,
+        pool: &mut Vec<Vec<bool>>,
+    ) -> Membership {
+        if miter == Lit::FALSE {
+            return Membership::Independent(IndependentBy::CofactorsMerged);
+        }
+        let act = ts.lit(work, sat, miter);
+        match sat.solve(&[act]) {
+            SatResult::Unsat => Membership::Independent(IndependentBy::Unsat),
+            SatResult::Stopped(r) => Membership::Undecided(r),
+            SatResult::Sat => {
+                let aig = &self.design.aig;
+                let mut vector: Vec<bool> = aig
+                    .inputs()
+                    .iter()
+                    .map(|&n| ts.var_of(n).is_some_and(|v| sat.value(v)))
+                    .collect();
+                vector[x] = false;
+                let value = eval(aig, &vector, &[root])[0];
+                vector[x] = true;
+                let flipped = eval(aig, &vector, &[root])[0];
+                vector[x] = false;
+                assert_ne!(
+                    value, flipped,
+                    "internal error: a SAT model of a cofactor miter does not re-simulate"
+                );
+                pool.push(vector.clone());
+                Membership::Depends {
+                    vector,
+                    value,
+                    by: DependsBy::Sat,
+                }
+            }
+        }
+    }
+
+    fn any_later_open(&self, pos: usize) -> bool {
+        self.claims[pos + 1..]
+            .iter()
+            .any(|c| c.iter().any(|s| s.is_none()))
+    }
+
+    /// Flip simulation on the SAT models in `pool`, 64 per word, padded with random patterns.
+    fn replay(&mut self, pool: &mut [Vec<bool>]) {
+        for (w, chunk) in pool.chunks(64).enumerate() {
+            let n = self.design.aig.num_inputs();
+            let mut ins = random_words(n, 1, 0xC0FF_EE00 + w as u64);
+            for (p, vector) in chunk.iter().enumerate() {
+                for (k, row) in ins.iter_mut().enumerate() {
+                    row[0] = (row[0] & !(1u64 << p)) | ((vector[k] as u64) << p);
+                }
+            }
+            self.stats.replayed_patterns += chunk.len() as u64;
+            self.simulate_block(ins, DependsBy::ReplayedSimulation);
+        }
+    }
+
+    fn finish(self) -> (Vec<SupportResult>, SupportStats) {
+        let results = self
+            .outputs
+            .iter()
+            .zip(self.cones)
+            .zip(self.claims)
+            .map(|((&output, cone), claims)| SupportResult {
+                output,
+                cone,
+                claims: claims
+                    .into_iter()
+                    .map(|c| c.expect("every claim is decided or undecided"))
+                    .collect(),
+            })
+            .collect();
+        (results, self.stats)
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::front::bench::read_bench;
+    use std::sync::Arc;
+
+    fn design(text: &str) -> Design {
+        read_bench(&Arc::from("t.bench"), text).unwrap()
+    }
+
+    #[test]
+    fn masked_input_is_redundant_and_the_other_is_not() {
+        let d = design(
+            "INPUT(a)\nINPUT(t)\nOUTPUT(y)\nn = NOT(t)\np = AND(a, t)\nq = AND(a, n)\ny = OR(p, q)\n",
+        );
+        let r = support(&d, 0, &Limits::none());
+        assert_eq!(r.cone, vec![0, 1]);
+        assert_eq!(r.support(), vec![0]);
+        assert_eq!(r.redundant(), vec![1]);
+        let Some(Membership::Depends { vector, value, .. }) = r.membership(0) else {
+            panic!("a must be in the support: {r:?}");
+        };
+        let mut v = vector.clone();
+        assert_eq!(d.eval(&v)[0], *value);
+        v[0] = true;
+        assert_eq!(d.eval(&v)[0], !*value);
+    }
+
+    #[test]
+    fn sat_decides_what_simulation_misses() {
+        // y = a & (b1 & ... & b20): one pattern in 2^21 sensitizes any input, so random
+        // simulation almost never decides; SAT must, and its witness must re-simulate.
+        let mut t = String::new();
+        for i in 0..21 {
+            t.push_str(&format!("INPUT(b{i})\n"));
+        }
+        let ins: Vec<String> = (0..21).map(|i| format!("b{i}")).collect();
+        t.push_str(&format!("OUTPUT(y)\ny = AND({})\n", ins.join(", ")));
+        let d = design(&t);
+        let opts = SupportOptions {
+            max_rounds: 1,
+            ..SupportOptions::default()
+        };
+        let (r, st) = supports(&d, &[0], &opts, &Limits::none());
+        assert_eq!(r[0].support().len(), 21);
+        assert!(st.depends_by_sat >= 1, "{st:?}");
+        assert_eq!(st.claims, 21);
+        assert_eq!(st.by_simulation() + st.by_sat(), 21);
+    }
+}

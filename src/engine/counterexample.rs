@@ -1,0 +1,66 @@
+//! Counterexamples: from a shared-input assignment to a vector re-simulated on both original
+//! designs. A vector that does not reproduce the difference is an internal error, never a claim.
+
+use crate::design::Design;
+use crate::engine::pairing::{Shared, SharedInput};
+use crate::engine::result::{Counterexample, InputValue, Method, OutputDiff};
+
+/// Re-simulate `values` (one per shared input) on both designs. Returns the counterexample
+/// with every differing output pair, or an error message when `must_differ` (a pair index)
+/// does not differ.
+pub fn confirm(
+    shared: &Shared,
+    r: &Design,
+    c: &Design,
+    values: &[bool],
+    must_differ: usize,
+    found_by: Method,
+) -> Result<Counterexample, String> {
+    let rv: Vec<bool> = shared.ref_input.iter().map(|&k| values[k]).collect();
+    let cv: Vec<bool> = shared.cand_input.iter().map(|&k| values[k]).collect();
+    let ro = r.eval(&rv);
+    let co = c.eval(&cv);
+    let mut differing = Vec::new();
+    let mut hit = false;
+    for (p, &(ri, ci)) in shared.pairs.iter().enumerate() {
+        if ro[ri] != co[ci] {
+            hit |= p == must_differ;
+            differing.push(OutputDiff {
+                reference: r.outputs[ri].name.clone(),
+                candidate: c.outputs[ci].name.clone(),
+                reference_value: ro[ri],
+                candidate_value: co[ci],
+            });
+        }
+    }
+    if !hit {
+        return Err(format!(
+            "internal error: a vector found by {} for output pair {} did not reproduce on re-simulation; no claim is made (please report this with both netlists)",
+            found_by.word(),
+            r.outputs[shared.pairs[must_differ].0].name
+        ));
+    }
+    let inputs = shared
+        .inputs
+        .iter()
+        .enumerate()
+        .map(|(k, origin)| {
+            let (bit, side) = match *origin {
+                SharedInput::Both { reference, .. } => (&r.inputs[reference], "both"),
+                SharedInput::Reference(i) => (&r.inputs[i], "reference"),
+                SharedInput::Candidate(i) => (&c.inputs[i], "candidate"),
+            };
+            InputValue {
+                name: bit.name.clone(),
+                side,
+                unknown: bit.is_unknown(),
+                value: values[k],
+            }
+        })
+        .collect();
+    Ok(Counterexample {
+        inputs,
+        differing,
+        found_by,
+    })
+}

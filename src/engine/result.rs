@@ -1,0 +1,172 @@
+//! Typed results of a proof run: verdicts per output pair and overall, counterexamples, figures.
+
+use crate::engine::pairing::PairBy;
+use crate::sat::{SatStats, StopReason};
+use serde::Serialize;
+
+/// The answer for one output pair or for the whole run.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Verdict {
+    /// Equal for every input vector (that satisfies the assumptions).
+    Equivalent,
+    /// A re-simulated counterexample exists.
+    Different,
+    /// A resource limit was hit before an answer.
+    Undecided,
+}
+
+impl Verdict {
+    /// Lower-case word used in reports.
+    pub fn word(self) -> &'static str {
+        match self {
+            Verdict::Equivalent => "equivalent",
+            Verdict::Different => "different",
+            Verdict::Undecided => "undecided",
+        }
+    }
+}
+
+/// What decided an output pair.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum Method {
+    /// Both outputs became the same AIG literal (structural hashing or sweeping).
+    Structure,
+    /// Random simulation found a distinguishing vector.
+    Simulation,
+    /// A SAT query on the XOR miter (UNSAT: equivalent; a model: different).
+    Sat,
+    /// Nothing decided it (the verdict is undecided).
+    None,
+}
+
+impl Method {
+    /// Word used in reports.
+    pub fn word(self) -> &'static str {
+        match self {
+            Method::Structure => "structure",
+            Method::Simulation => "simulation",
+            Method::Sat => "sat",
+            Method::None => "-",
+        }
+    }
+}
+
+/// The result for one output pair.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct PairResult {
+    /// Reference output bit name.
+    pub reference: String,
+    /// Candidate output bit name.
+    pub candidate: String,
+    /// The verdict for this pair.
+    pub status: Verdict,
+    /// What decided it.
+    pub method: Method,
+    /// Why it is undecided.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub stopped: Option<StopReason>,
+    /// Index into [`ProveReport::counterexamples`] of a vector on which this pair differs.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub counterexample: Option<usize>,
+}
+
+/// One input bit's value in a counterexample.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct InputValue {
+    /// Bit name.
+    pub name: String,
+    /// `both` for a paired port bit, else `reference` or `candidate` (a free input of one side).
+    pub side: &'static str,
+    /// Whether this bit stands for an unknown (`x`) value in the source.
+    pub unknown: bool,
+    /// The value.
+    pub value: bool,
+}
+
+/// One output pair's values under a counterexample.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct OutputDiff {
+    /// Reference output bit name.
+    pub reference: String,
+    /// Candidate output bit name.
+    pub candidate: String,
+    /// Reference value.
+    pub reference_value: bool,
+    /// Candidate value.
+    pub candidate_value: bool,
+}
+
+/// An input vector on which output pairs differ, re-simulated on both designs.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct Counterexample {
+    /// Every input bit, in shared-input order.
+    pub inputs: Vec<InputValue>,
+    /// Every output pair that differs under this vector (re-simulated values).
+    pub differing: Vec<OutputDiff>,
+    /// What found the vector.
+    pub found_by: Method,
+}
+
+/// Figures of one run.
+#[derive(Clone, Debug, Default, PartialEq, Serialize)]
+pub struct Stats {
+    /// AND nodes of the reference's AIG.
+    pub reference_ands: usize,
+    /// AND nodes of the candidate's AIG.
+    pub candidate_ands: usize,
+    /// Nodes of the shared AIG (constant and inputs included).
+    pub shared_nodes: usize,
+    /// Random patterns simulated.
+    pub sim_patterns: usize,
+    /// SAT figures over all solvers.
+    pub sat: SatStats,
+    /// Wall-clock seconds for the whole run.
+    pub seconds: f64,
+}
+
+/// The full result of `prove`.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct ProveReport {
+    /// Schema version of the JSON form.
+    pub schema: u32,
+    /// Overall verdict.
+    pub verdict: Verdict,
+    /// Reference design name.
+    pub reference: String,
+    /// Candidate design name.
+    pub candidate: String,
+    /// How bits were paired.
+    pub pair_by: PairBy,
+    /// The engine used.
+    pub engine: &'static str,
+    /// The assumptions in force (source text).
+    pub assumptions: Vec<String>,
+    /// Port inputs of one side only, left free.
+    pub free_inputs: Vec<String>,
+    /// Per output pair.
+    pub pairs: Vec<PairResult>,
+    /// Distinct counterexamples found.
+    pub counterexamples: Vec<Counterexample>,
+    /// Figures.
+    pub stats: Stats,
+    /// Warnings from reading the designs.
+    pub warnings: Vec<String>,
+    /// What the verdict covers.
+    pub scope: &'static str,
+    /// Route tables of differing selector-like outputs (filled by the caller).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub diagnosis: Option<crate::diagnose::Diagnosis>,
+}
+
+/// What a proof covers, for every report.
+pub const SCOPE: &str =
+    "zero-delay Boolean logic of the netlists as modeled; timing, power and layout are not covered";
+
+impl ProveReport {
+    /// Count of pairs with the given status.
+    pub fn count(&self, v: Verdict) -> usize {
+        self.pairs.iter().filter(|p| p.status == v).count()
+    }
+}

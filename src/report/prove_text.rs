@@ -1,0 +1,173 @@
+//! The text form of a proof report.
+
+use crate::engine::{Method, ProveReport, Verdict};
+use crate::report::values::{group, wrap};
+use std::fmt::Write;
+
+/// Output pairs listed one by one when there are at most this many; beyond it only the
+/// pairs that are not equivalent are listed.
+const LIST_ALL: usize = 32;
+
+/// The human-readable report of a proof run.
+pub fn prove_text(r: &ProveReport) -> String {
+    let mut s = String::new();
+    let n = r.pairs.len();
+    let _ = writeln!(s, "reference   {}", r.reference);
+    let _ = writeln!(s, "candidate   {}", r.candidate);
+    let by = match r.pair_by {
+        crate::engine::PairBy::Name => "by name",
+        crate::engine::PairBy::Position => "by position (bits matched in declaration order)",
+    };
+    let _ = writeln!(s, "pairing     {by}, {n} output pair{}", plural(n));
+    for a in &r.assumptions {
+        let _ = writeln!(s, "assuming    {a}");
+    }
+    for f in &r.free_inputs {
+        let _ = writeln!(
+            s,
+            "free input  {f} (no partner; the verdict covers both of its values)"
+        );
+    }
+    let methods = |v: Verdict| {
+        let mut parts = Vec::new();
+        for m in [Method::Structure, Method::Simulation, Method::Sat] {
+            let k = r
+                .pairs
+                .iter()
+                .filter(|p| p.status == v && p.method == m)
+                .count();
+            if k > 0 {
+                parts.push(format!("{k} by {}", m.word()));
+            }
+        }
+        parts.join(", ")
+    };
+    let (eq, diff, und) = (
+        r.count(Verdict::Equivalent),
+        r.count(Verdict::Different),
+        r.count(Verdict::Undecided),
+    );
+    let head = match r.verdict {
+        Verdict::Equivalent => format!(
+            "EQUIVALENT: all {n} output pair{} agree on every input vector ({})",
+            plural(n),
+            methods(Verdict::Equivalent)
+        ),
+        Verdict::Different => format!(
+            "DIFFERENT: {diff} of {n} output pair{} {}; {eq} equivalent, {und} undecided",
+            plural(n),
+            if diff == 1 { "differs" } else { "differ" }
+        ),
+        Verdict::Undecided => format!(
+            "UNDECIDED: {und} of {n} output pair{} open within the limits; {eq} equivalent",
+            plural(n)
+        ),
+    };
+    let _ = writeln!(s, "verdict     {head}");
+    let _ = writeln!(s, "scope       {}", r.scope);
+    if n > 0 && (n <= LIST_ALL || r.verdict != Verdict::Equivalent) {
+        let _ = writeln!(
+            s,
+            "\noutput pairs{}",
+            if n > LIST_ALL {
+                " (not equivalent)"
+            } else {
+                ""
+            }
+        );
+        let w = r
+            .pairs
+            .iter()
+            .map(|p| pair_label(&p.reference, &p.candidate).len())
+            .max()
+            .unwrap_or(0);
+        for p in &r.pairs {
+            if n > LIST_ALL && p.status == Verdict::Equivalent {
+                continue;
+            }
+            let mut line = format!(
+                "  {:w$}  {:10}  {}",
+                pair_label(&p.reference, &p.candidate),
+                p.status.word(),
+                p.method.word()
+            );
+            if let Some(k) = p.counterexample {
+                let _ = write!(line, "  counterexample {}", k + 1);
+            }
+            if let Some(st) = p.stopped {
+                let _ = write!(line, "  ({st})");
+            }
+            let _ = writeln!(s, "{}", line.trim_end());
+        }
+    }
+    for (k, c) in r.counterexamples.iter().enumerate() {
+        let _ = writeln!(
+            s,
+            "\ncounterexample {} (found by {}, re-simulated on both designs)",
+            k + 1,
+            c.found_by.word()
+        );
+        let shared: Vec<(&str, bool)> = c
+            .inputs
+            .iter()
+            .filter(|i| i.side == "both")
+            .map(|i| (i.name.as_str(), i.value))
+            .collect();
+        let _ = writeln!(s, "  inputs");
+        s += &wrap(&group(shared), "    ", 100);
+        for side in ["reference", "candidate"] {
+            let own: Vec<(&str, bool)> = c
+                .inputs
+                .iter()
+                .filter(|i| i.side == side)
+                .map(|i| (i.name.as_str(), i.value))
+                .collect();
+            if !own.is_empty() {
+                let _ = writeln!(
+                    s,
+                    "  free inputs of the {side} (unknown values or unpaired ports)"
+                );
+                s += &wrap(&group(own), "    ", 100);
+            }
+        }
+        let _ = writeln!(s, "  differing outputs (reference / candidate)");
+        for d in &c.differing {
+            let _ = writeln!(
+                s,
+                "    {}  {} / {}",
+                pair_label(&d.reference, &d.candidate),
+                d.reference_value as u8,
+                d.candidate_value as u8
+            );
+        }
+    }
+    if let Some(d) = &r.diagnosis {
+        s += &crate::diagnose::diagnosis_text(d);
+    }
+    let st = &r.stats;
+    let _ = writeln!(
+        s,
+        "\nfigures     engine {}; AIG {} nodes shared (reference {} ANDs, candidate {} ANDs); {} random patterns; {} SAT calls, {} conflicts; {:.3} s",
+        r.engine, st.shared_nodes, st.reference_ands, st.candidate_ands, st.sim_patterns, st.sat.calls, st.sat.conflicts, st.seconds
+    );
+    for w in &r.warnings {
+        let _ = writeln!(s, "{w}");
+    }
+    s
+}
+
+fn pair_label(a: &str, b: &str) -> String {
+    if a == b {
+        a.to_string()
+    } else {
+        format!("{a} ~ {b}")
+    }
+}
+
+fn plural(n: usize) -> &'static str {
+    if n == 1 {
+        ""
+    } else {
+        "s"
+    }
+}

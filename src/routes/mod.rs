@@ -1,0 +1,271 @@
+//! Route tables: for each value of a select bus, which single data input an output follows
+//! (proved by SAT under the select value, not only simulated), or that it is constant, or that
+//! it follows no single input.
+//!
+//! Candidates come from simulation (64 random patterns per select value, select bits fixed);
+//! each candidate route `out == in` (or `out == !in`, or `out == const`) is then proved by an
+//! UNSAT answer on `out XOR in` under the select value as solver assumptions.
+
+mod table;
+
+pub use table::{compress, render, Row};
+
+use crate::aig::{random_words, simulate, Lit};
+use crate::cnf::Tseitin;
+use crate::design::Design;
+use crate::diag::InputError;
+use crate::sat::{ClauseSink, Limits, Sat, SatResult, StopReason};
+use serde::Serialize;
+
+/// The largest select bus handled (2^16 values).
+pub const MAX_SELECT_BITS: usize = 16;
+
+/// What an output does for one select value.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
+pub enum Route {
+    /// Follows input `name` (inverted when `inverted`).
+    Input {
+        /// The data input's bit name.
+        name: String,
+        /// Whether the output is the complement of the input.
+        inverted: bool,
+    },
+    /// Is this constant for every other input.
+    Constant {
+        /// The constant.
+        value: bool,
+    },
+    /// Depends on the other inputs but equals no single one of them.
+    Mixed,
+    /// The select value is excluded by the assumptions.
+    Excluded,
+    /// A limit stopped the proof.
+    Undecided {
+        /// Which limit.
+        reason: StopReason,
+    },
+}
+
+impl Route {
+    /// Short text: `d[3]`, `~d[3]`, `0`, `1`, `mixed`, `excluded`, `undecided`.
+    pub fn text(&self) -> String {
+        match self {
+            Route::Input { name, inverted } => {
+                format!("{}{name}", if *inverted { "~" } else { "" })
+            }
+            Route::Constant { value } => (*value as u8).to_string(),
+            Route::Mixed => "mixed".into(),
+            Route::Excluded => "excluded".into(),
+            Route::Undecided { .. } => "undecided".into(),
+        }
+    }
+}
+
+/// The route table of one output.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct RouteTable {
+    /// The output bit.
+    pub output: String,
+    /// The select bus.
+    pub select: String,
+    /// `routes[v]` for select value `v`.
+    pub routes: Vec<Route>,
+}
+
+/// The select bits of `bus` (input indices, least significant first).
+pub fn select_bits(d: &Design, bus: &str) -> Result<Vec<usize>, InputError> {
+    let mut bits: Vec<(i64, usize)> = d
+        .inputs
+        .iter()
+        .enumerate()
+        .filter(|(_, b)| b.port == bus && !b.is_unknown())
+        .map(|(k, b)| (b.index.unwrap_or(0), k))
+        .collect();
+    if bits.is_empty() {
+        let mut ports: Vec<&str> = d
+            .inputs
+            .iter()
+            .filter(|b| !b.is_unknown())
+            .map(|b| b.port.as_str())
+            .collect();
+        ports.dedup();
+        return Err(InputError::plain(
+            format!("{} has no input bus `{bus}`", d.name),
+            format!(
+                "name the select bus with `--select`; inputs are: {}",
+                ports.into_iter().take(16).collect::<Vec<_>>().join(", ")
+            ),
+        ));
+    }
+    if bits.len() > MAX_SELECT_BITS {
+        return Err(InputError::plain(
+            format!("the select bus `{bus}` has {} bits; route tables go up to {MAX_SELECT_BITS} bits (65536 values)", bits.len()),
+            "pick a narrower select bus",
+        ));
+    }
+    bits.sort();
+    Ok(bits.into_iter().map(|(_, k)| k).collect())
+}
+
+/// Build the route table of output `out` of `d` over the select bits `sel` (from
+/// [`select_bits`]). `constraint` (a literal of `d.aig`, `Lit::TRUE` for none) excludes select
+/// values for which it cannot hold... per value, it is added as a solver assumption.
+pub fn route_table(
+    d: &Design,
+    out: usize,
+    bus: &str,
+    sel: &[usize],
+    constraint: Lit,
+    limits: &Limits,
+) -> RouteTable {
+    let values = 1usize << sel.len();
+    let o = d.outputs[out].lit;
+    let data: Vec<usize> = (0..d.inputs.len()).filter(|k| !sel.contains(k)).collect();
+    let mut sat = Sat::new(limits);
+    let mut ts = Tseitin::new();
+    let co = ts.lit(&d.aig, &mut sat, o);
+    let cc = ts.lit(&d.aig, &mut sat, constraint);
+    let sel_lits: Vec<_> = sel
+        .iter()
+        .map(|&k| ts.lit(&d.aig, &mut sat, d.aig.input_lit(k)))
+        .collect();
+    let mut routes = Vec::with_capacity(values);
+    // Simulate in chunks of select values, one word (64 patterns) per value.
+    const CHUNK: usize = 256;
+    let mut v0 = 0;
+    while v0 < values {
+        let n = CHUNK.min(values - v0);
+        let mut ins = random_words(d.inputs.len(), n, 0x5e1ec7 ^ v0 as u64);
+        for (j, &k) in sel.iter().enumerate() {
+            for (w, word) in ins[k].iter_mut().enumerate() {
+                *word = if ((v0 + w) >> j) & 1 == 1 {
+                    u64::MAX
+                } else {
+                    0
+                };
+            }
+        }
+        let t = simulate(&d.aig, &ins, n);
+        for w in 0..n {
+            let v = v0 + w;
+            let assume: Vec<_> = sel_lits
+                .iter()
+                .enumerate()
+                .map(|(j, &l)| if (v >> j) & 1 == 1 { l } else { !l })
+                .collect();
+            let ok = t.lit_word(constraint, w);
+            let ow = t.lit_word(o, w);
+            routes.push(decide(
+                &mut sat, &mut ts, d, &data, &assume, cc, co, ok, ow, &ins, w,
+            ));
+        }
+        v0 += n;
+    }
+    RouteTable {
+        output: d.outputs[out].name.clone(),
+        select: bus.to_string(),
+        routes,
+    }
+}
+
+#[allow(clippy::too_many_arguments)]
+fn decide(
+    sat: &mut Sat,
+    ts: &mut Tseitin,
+    d: &Design,
+    data: &[usize],
+    assume: &[crate::sat::CLit],
+    cc: crate::sat::CLit,
+    co: crate::sat::CLit,
+    ok: u64,
+    ow: u64,
+    ins: &[Vec<u64>],
+    w: usize,
+) -> Route {
+    let mut with = assume.to_vec();
+    with.push(cc);
+    // Is the select value allowed at all?
+    match sat.solve(&with) {
+        SatResult::Unsat => return Route::Excluded,
+        SatResult::Stopped(r) => return Route::Undecided { reason: r },
+        SatResult::Sat => {}
+    }
+    // Candidates agreeing with the output on every simulated pattern that meets the constraint.
+    let mut candidates: Vec<(Option<usize>, bool)> = Vec::new();
+    if ow & ok == 0 {
+        candidates.push((None, false));
+    }
+    if !ow & ok == 0 {
+        candidates.push((None, true));
+    }
+    for &k in data {
+        let iw = ins[k][w];
+        if (iw ^ ow) & ok == 0 {
+            candidates.push((Some(k), false));
+        } else if (!iw ^ ow) & ok == 0 {
+            candidates.push((Some(k), true));
+        }
+    }
+    for (k, inv) in candidates {
+        // Prove out == target under the select value: UNSAT of out XOR target.
+        let target = match k {
+            None => {
+                let f = ts.lit(&d.aig, sat, Lit::FALSE);
+                if inv {
+                    !f
+                } else {
+                    f
+                }
+            }
+            Some(k) => {
+                let l = ts.lit(&d.aig, sat, d.aig.input_lit(k));
+                if inv {
+                    !l
+                } else {
+                    l
+                }
+            }
+        };
+        let act = sat.fresh();
+        sat.clause(&[!act, co, target]);
+        sat.clause(&[!act, !co, !target]);
+        let mut q = with.clone();
+        q.push(act);
+        let r = sat.solve(&q);
+        sat.clause(&[!act]);
+        match r {
+            SatResult::Unsat => {
+                return match k {
+                    None => Route::Constant { value: inv },
+                    Some(k) => Route::Input {
+                        name: d.inputs[k].name.clone(),
+                        inverted: inv,
+                    },
+                }
+            }
+            SatResult::Sat => continue,
+            SatResult::Stopped(r) => return Route::Undecided { reason: r },
+        }
+    }
+    Route::Mixed
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::front::bench::read_bench;
+    use std::sync::Arc;
+
+    #[test]
+    fn mux4_routes_each_value_to_its_channel() {
+        let text = "INPUT(s[0])\nINPUT(s[1])\nINPUT(d[0])\nINPUT(d[1])\nINPUT(d[2])\nINPUT(d[3])\nOUTPUT(y)\n\
+                    n0 = NOT(s[0])\nn1 = NOT(s[1])\nt0 = AND(d[0], n1, n0)\nt1 = AND(d[1], n1, s[0])\n\
+                    t2 = AND(d[3], s[1], n0)\nt3 = NOR(s[1], s[0])\ny = OR(t0, t1, t2)\n";
+        let d = read_bench(&Arc::from("m.bench"), text).unwrap();
+        let sel = select_bits(&d, "s").unwrap();
+        let t = route_table(&d, 0, "s", &sel, Lit::TRUE, &Limits::none());
+        let texts: Vec<String> = t.routes.iter().map(|r| r.text()).collect();
+        assert_eq!(texts, vec!["d[0]", "d[1]", "d[3]", "0"]);
+    }
+}

@@ -1,0 +1,329 @@
+//! Tests of the real executable: exit codes, reports, replaying a counterexample with `eval`,
+//! the DIMACS export, and one fixture per class of bad bench input with its exact message.
+
+mod oracle;
+
+use std::path::{Path, PathBuf};
+use std::process::{Command, Output};
+
+fn equicone(args: &[&str]) -> Output {
+    Command::new(env!("CARGO_BIN_EXE_equicone"))
+        .args(args)
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .output()
+        .expect("the binary runs")
+}
+
+fn code(o: &Output) -> i32 {
+    o.status.code().expect("exit code")
+}
+
+fn stdout(o: &Output) -> String {
+    String::from_utf8_lossy(&o.stdout).into_owned()
+}
+
+fn tmp(name: &str) -> PathBuf {
+    let d = std::env::temp_dir().join(format!("equicone-cli-{}", std::process::id()));
+    std::fs::create_dir_all(&d).unwrap();
+    d.join(name)
+}
+
+mod exit_codes {
+    use super::*;
+
+    #[test]
+    fn equivalent_is_0_and_different_is_1() {
+        let o = equicone(&[
+            "prove",
+            "bench-circuits/examples/mux4_spec.bench",
+            "bench-circuits/examples/mux4_tree.bench",
+        ]);
+        assert_eq!(code(&o), 0, "{}", stdout(&o));
+        assert!(stdout(&o).contains("verdict     EQUIVALENT"));
+        assert!(stdout(&o).contains("timing, power and layout are not covered"));
+        let o = equicone(&[
+            "prove",
+            "bench-circuits/examples/mux4_spec.bench",
+            "bench-circuits/examples/mux4_swapped.bench",
+        ]);
+        assert_eq!(code(&o), 1, "{}", stdout(&o));
+        assert!(stdout(&o).contains("verdict     DIFFERENT"));
+        assert!(stdout(&o).contains("re-simulated on both designs"));
+        // The route tables point at the two swapped data lines.
+        assert!(
+            stdout(&o).contains("s 2: reference d[2], candidate d[3]  !"),
+            "{}",
+            stdout(&o)
+        );
+        assert!(
+            stdout(&o).contains("s 3: reference d[3], candidate d[2]  !"),
+            "{}",
+            stdout(&o)
+        );
+    }
+
+    #[test]
+    fn a_conflict_limit_gives_undecided_3() {
+        let Some(dir) = oracle::iscas_dir() else {
+            return;
+        };
+        let (a, b) = (dir.join("c499.bench"), dir.join("c1355.bench"));
+        let o = equicone(&[
+            "prove",
+            a.to_str().unwrap(),
+            b.to_str().unwrap(),
+            "--pair-by",
+            "position",
+            "--conflict-limit",
+            "1",
+        ]);
+        assert_eq!(code(&o), 3, "{}", stdout(&o));
+        assert!(stdout(&o).contains("UNDECIDED"));
+        assert!(stdout(&o).contains("conflict limit reached"));
+    }
+
+    #[test]
+    fn usage_errors_are_2() {
+        assert_eq!(code(&equicone(&["prove", "only-one.bench"])), 2);
+        assert_eq!(code(&equicone(&["frobnicate"])), 2);
+        let o = equicone(&[
+            "prove",
+            "nope.bench",
+            "bench-circuits/examples/mux4_tree.bench",
+        ]);
+        assert_eq!(code(&o), 2);
+        assert!(
+            String::from_utf8_lossy(&o.stderr).contains("cannot read `nope.bench`: no such file")
+        );
+        let o = equicone(&[
+            "prove",
+            "bench-circuits/examples/mux4_spec.bench",
+            "Cargo.toml",
+        ]);
+        assert_eq!(code(&o), 2);
+        assert!(
+            String::from_utf8_lossy(&o.stderr).contains("cannot tell the format of `Cargo.toml`")
+        );
+    }
+
+    #[test]
+    fn unmatched_ports_are_listed_with_advice() {
+        let Some(dir) = oracle::iscas_dir() else {
+            return;
+        };
+        let (a, b) = (dir.join("c499.bench"), dir.join("c1355.bench"));
+        let o = equicone(&["prove", a.to_str().unwrap(), b.to_str().unwrap()]);
+        assert_eq!(code(&o), 2);
+        let err = String::from_utf8_lossy(&o.stderr);
+        assert!(err.contains("do not match by name"), "{err}");
+        assert!(err.contains("try `--pair-by position`"), "{err}");
+    }
+}
+
+mod reports {
+    use super::*;
+
+    #[test]
+    fn json_report_has_the_documented_fields_and_replays_with_eval() {
+        let spec = "bench-circuits/examples/mux4_spec.bench";
+        let bad = "bench-circuits/examples/mux4_swapped.bench";
+        let report = tmp("report.json");
+        let o = equicone(&[
+            "prove",
+            spec,
+            bad,
+            "--json",
+            "--report",
+            report.to_str().unwrap(),
+        ]);
+        assert_eq!(code(&o), 1);
+        let v: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+        assert_eq!(v["schema"], 1);
+        assert_eq!(v["verdict"], "different");
+        for key in [
+            "reference",
+            "candidate",
+            "pair_by",
+            "engine",
+            "pairs",
+            "counterexamples",
+            "stats",
+            "scope",
+        ] {
+            assert!(v.get(key).is_some(), "missing {key}");
+        }
+        for key in [
+            "reference_ands",
+            "candidate_ands",
+            "shared_nodes",
+            "sim_patterns",
+            "sat",
+            "seconds",
+        ] {
+            assert!(v["stats"].get(key).is_some(), "missing stats.{key}");
+        }
+        let pair = &v["pairs"][0];
+        assert!(pair["status"].is_string() && pair["method"].is_string());
+        let cex = &v["counterexamples"][0];
+        let diff = &cex["differing"][0];
+        // The file written with --report is the same document.
+        let file: serde_json::Value =
+            serde_json::from_str(&std::fs::read_to_string(&report).unwrap()).unwrap();
+        assert_eq!(file["counterexamples"], v["counterexamples"]);
+        // Replay: eval on each design gives the reported values.
+        for (design, key) in [(spec, "reference_value"), (bad, "candidate_value")] {
+            let o = equicone(&[
+                "eval",
+                design,
+                "--vector",
+                report.to_str().unwrap(),
+                "--json",
+            ]);
+            assert_eq!(code(&o), 0, "{}", String::from_utf8_lossy(&o.stderr));
+            let e: serde_json::Value = serde_json::from_str(&stdout(&o)).unwrap();
+            let name = diff["reference"].as_str().unwrap();
+            assert_eq!(
+                e["outputs"][name].as_u64().unwrap() == 1,
+                diff[key].as_bool().unwrap()
+            );
+        }
+    }
+
+    #[test]
+    fn eval_sets_ports_and_bits() {
+        // mux4: y = d[s]; with s = 2 and d[2] = 1 the output is 1.
+        let o = equicone(&[
+            "eval",
+            "bench-circuits/examples/mux4_spec.bench",
+            "--set",
+            "s[0]=0",
+            "--set",
+            "s[1]=1",
+            "--set",
+            "d[2]=1",
+            "--rest",
+            "0",
+        ]);
+        assert_eq!(code(&o), 0, "{}", String::from_utf8_lossy(&o.stderr));
+        assert!(stdout(&o).contains("y=1"), "{}", stdout(&o));
+        let o = equicone(&[
+            "eval",
+            "bench-circuits/examples/mux4_spec.bench",
+            "--set",
+            "s=2",
+            "--set",
+            "d=0b1011",
+        ]);
+        assert_eq!(code(&o), 0, "{}", String::from_utf8_lossy(&o.stderr));
+        assert!(stdout(&o).contains("y=0"), "{}", stdout(&o));
+        let o = equicone(&[
+            "eval",
+            "bench-circuits/examples/mux4_spec.bench",
+            "--set",
+            "s=2",
+        ]);
+        assert_eq!(code(&o), 2);
+        assert!(String::from_utf8_lossy(&o.stderr)
+            .contains("4 input bits are not set: d[0], d[1], d[2], d[3]"));
+        let o = equicone(&[
+            "eval",
+            "bench-circuits/examples/mux4_spec.bench",
+            "--set",
+            "s=9",
+            "--rest",
+            "0",
+        ]);
+        assert_eq!(code(&o), 2);
+        assert!(String::from_utf8_lossy(&o.stderr).contains("does not fit in 2 bits"));
+    }
+
+    /// The DIMACS export of a different pair is satisfiable and of an equivalent pair is not,
+    /// decided by batsat (a second SAT solver from crates.io) reading the file.
+    #[test]
+    fn cnf_export_is_checkable_by_another_solver() {
+        use batsat::{lbool, BasicSolver, Lit, SolverInterface};
+        for (cand, sat) in [("mux4_tree", false), ("mux4_swapped", true)] {
+            let out = tmp(&format!("{cand}.cnf"));
+            let o = equicone(&[
+                "cnf",
+                "bench-circuits/examples/mux4_spec.bench",
+                &format!("bench-circuits/examples/{cand}.bench"),
+                "-o",
+                out.to_str().unwrap(),
+            ]);
+            assert_eq!(code(&o), 0);
+            let text = std::fs::read_to_string(&out).unwrap();
+            assert!(text.contains("c input "), "variables are named in comments");
+            let mut s = BasicSolver::default();
+            let mut vars = Vec::new();
+            for line in text
+                .lines()
+                .filter(|l| !l.starts_with('c') && !l.starts_with('p'))
+            {
+                let mut clause: Vec<Lit> = Vec::new();
+                for t in line
+                    .split_whitespace()
+                    .map(|t| t.parse::<i64>().unwrap())
+                    .take_while(|&t| t != 0)
+                {
+                    while vars.len() < t.unsigned_abs() as usize {
+                        vars.push(s.new_var_default());
+                    }
+                    clause.push(Lit::new(vars[t.unsigned_abs() as usize - 1], t > 0));
+                }
+                s.add_clause_reuse(&mut clause);
+            }
+            assert_eq!(s.solve_limited(&[]) == lbool::TRUE, sat, "{cand}");
+        }
+    }
+
+    #[test]
+    fn reports_are_byte_identical_between_runs() {
+        let a = equicone(&[
+            "prove",
+            "bench-circuits/examples/mux4_spec.bench",
+            "bench-circuits/examples/mux4_swapped.bench",
+        ]);
+        let b = equicone(&[
+            "prove",
+            "bench-circuits/examples/mux4_spec.bench",
+            "bench-circuits/examples/mux4_swapped.bench",
+        ]);
+        let strip = |s: String| {
+            s.lines()
+                .filter(|l| !l.starts_with("figures"))
+                .collect::<Vec<_>>()
+                .join("\n")
+        };
+        assert_eq!(strip(stdout(&a)), strip(stdout(&b)));
+    }
+}
+
+mod bad_input {
+    use super::*;
+
+    /// Each `tests/data/bench/err/NAME.bench` gives exactly the message in `NAME.expected`
+    /// on standard error, and exit code 2.
+    #[test]
+    fn every_error_fixture_gives_its_message() {
+        let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/data/bench/err");
+        let mut n = 0;
+        for entry in std::fs::read_dir(&dir).unwrap() {
+            let p = entry.unwrap().path();
+            if p.extension().and_then(|e| e.to_str()) != Some("bench") {
+                continue;
+            }
+            let rel = format!(
+                "tests/data/bench/err/{}",
+                p.file_name().unwrap().to_str().unwrap()
+            );
+            let expected = std::fs::read_to_string(p.with_extension("expected")).unwrap();
+            let o = equicone(&["eval", &rel, "--rest", "0"]);
+            assert_eq!(code(&o), 2, "{rel}");
+            assert_eq!(String::from_utf8_lossy(&o.stderr), expected, "{rel}");
+            assert!(o.stdout.is_empty(), "{rel}");
+            n += 1;
+        }
+        assert!(n >= 10, "only {n} fixtures");
+    }
+}

@@ -1,0 +1,12 @@
+//! Integration tests of the cone audit and the stats report (one binary, themed modules).
+
+#[path = "cone/common.rs"]
+mod common;
+#[path = "cone/evidence.rs"]
+mod evidence;
+#[path = "cone/flags.rs"]
+mod flags;
+#[path = "cone/iscas.rs"]
+mod iscas;
+#[path = "cone/selectors.rs"]
+mod selectors;

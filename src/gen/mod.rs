@@ -24,7 +24,6 @@
 //! gates: selector as the decoder AND-OR (0 out of range), decoder flat, priority encoder as
 //! the chain, shifter as the log shifter, adder as the ripple adder, multiplier as the array.
 
-pub mod args;
 pub mod emit;
 pub mod mutate;
 pub mod rng;
@@ -37,7 +36,6 @@ mod random;
 mod selector;
 mod shifter;
 
-pub use args::GenArgs;
 pub use emit::{Circuit, Net, Op};
 
 use std::fmt;

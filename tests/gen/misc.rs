@@ -159,3 +159,36 @@ fn committed_bench_circuits_match_the_generators() {
         entries.len()
     );
 }
+
+#[test]
+fn the_cli_writes_the_same_files_from_the_manifest_command_lines() {
+    // Every command line of the set (as listed in bench-circuits/MANIFEST.tsv), run through the
+    // real `equicone gen`, writes exactly what the library writes.
+    let dir = tempfile::tempdir().unwrap();
+    let entries = equicone::gen::set::committed();
+    for (i, e) in entries.iter().enumerate().filter(|(i, _)| i % 4 == 0) {
+        let line = e.spec.command_line(e.format);
+        let args: Vec<String> = line
+            .split_whitespace()
+            .skip(1)
+            .map(|w| w.trim_matches('\'').to_string())
+            .collect();
+        let out = dir.path().join(format!("f{i}"));
+        let run = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
+            .args(&args)
+            .arg("-o")
+            .arg(&out)
+            .output()
+            .unwrap();
+        assert!(
+            run.status.success(),
+            "{line}: {}",
+            String::from_utf8_lossy(&run.stderr)
+        );
+        let got = std::fs::read_to_string(&out).unwrap();
+        assert!(
+            got == generate(&e.spec, e.format).unwrap().text,
+            "{line} differs through the CLI"
+        );
+    }
+}

@@ -201,7 +201,7 @@ fn plant(
             };
             m.gates_mut()[gi].op = flipped;
             Some(format!(
-                "invert: gate `{name}` is a {} instead of a {}",
+                "invert: gate `{name}` computes {} instead of {}",
                 flipped.name(),
                 old.name()
             ))

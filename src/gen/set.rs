@@ -148,7 +148,7 @@ pub fn committed() -> Vec<SetEntry> {
             GenSpec::new(Kind::Selector, Style::Decoder, 64),
         ),
         (
-            "add32_kogge_stone",
+            "add32_kogge-stone",
             GenSpec::new(Kind::Adder, Style::KoggeStone, 32),
         ),
         (

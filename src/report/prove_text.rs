@@ -28,6 +28,21 @@ pub fn prove_text(r: &ProveReport) -> String {
             "free input  {f} (no partner; the verdict covers both of its values)"
         );
     }
+    if !r.unknowns.is_empty() {
+        for u in r.unknowns.iter().take(8) {
+            let _ = writeln!(s, "unknown     {u}");
+        }
+        if r.unknowns.len() > 8 {
+            let _ = writeln!(
+                s,
+                "unknown     ... and {} more sources",
+                r.unknowns.len() - 8
+            );
+        }
+        if r.assumptions.is_empty() {
+            let _ = writeln!(s, "            {}", crate::engine::unknowns::ADVICE);
+        }
+    }
     let methods = |v: Verdict| {
         let mut parts = Vec::new();
         for m in [Method::Structure, Method::Simulation, Method::Sat] {

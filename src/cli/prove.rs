@@ -88,6 +88,13 @@ pub struct ProveArgs {
     /// e.g. `sel < 12` (repeatable: all must hold).
     #[arg(long, value_name = "EXPR")]
     assume: Vec<String>,
+    /// Write a proof of the equivalent output pairs: a DRAT refutation (FILE) of a miter that
+    /// encodes both designs separately (FILE.cnf), checkable by any DRAT checker.
+    #[arg(long, value_name = "FILE")]
+    proof: Option<String>,
+    /// Format of the --proof file.
+    #[arg(long, value_enum, default_value_t = crate::certify::ProofFormat::Drat)]
+    proof_format: crate::certify::ProofFormat,
     /// The select bus for route tables of differing outputs (default: `sel`, `s`, `select` or
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
@@ -141,6 +148,7 @@ pub fn run(a: &ProveArgs) -> Exit {
     if let Err(e) = crate::assume::apply_to_shared(&mut shared, &r, &a.assume) {
         return report_input_error(&e);
     }
+    let kept = a.proof.as_ref().map(|_| shared.clone());
     let mut rep = match engine::prove_shared(&r, &c, shared, &a.assume, &opts) {
         Ok(rep) => rep,
         Err(ProveError::Input(e)) => return report_input_error(&e),
@@ -158,6 +166,11 @@ pub fn run(a: &ProveArgs) -> Exit {
         eprintln!(
             "warning: no route tables: `{bus}` is not an input bus of both designs (up to 16 bits)"
         );
+    }
+    if let (Some(path), Some(shared)) = (&a.proof, &kept) {
+        if let Err(code) = write_proof(&r, &c, shared, &rep, path, a.proof_format, timeout) {
+            return code;
+        }
     }
     let json = report::to_json(&rep);
     if let Some(path) = &a.report {
@@ -240,5 +253,47 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
             Exit::Ok
         }
         Err(e) => report_input_error(&e),
+    }
+}
+
+/// Certify the equivalent output pairs and write the proof and its formula.
+fn write_proof(
+    r: &Design,
+    c: &Design,
+    shared: &engine::Shared,
+    rep: &engine::ProveReport,
+    path: &str,
+    format: crate::certify::ProofFormat,
+    timeout: Option<Duration>,
+) -> Result<(), Exit> {
+    use crate::certify::{certify, NoCertificate};
+    let pairs: Vec<usize> = (0..rep.pairs.len())
+        .filter(|&p| rep.pairs[p].status == Verdict::Equivalent)
+        .collect();
+    let limits = crate::sat::Limits::new(timeout, None);
+    match certify(r, c, shared, &pairs, format, &limits) {
+        Ok(cert) => {
+            let cnf_path = format!("{path}.cnf");
+            if let Err(e) = write_atomic(&cnf_path, &cert.cnf).and_then(|_| write_atomic(path, &cert.proof)) {
+                return Err(report_input_error(&e));
+            }
+            eprintln!(
+                "proof: {path} refutes {cnf_path}: the {} equivalent output pair{} (both designs encoded separately)",
+                cert.pairs,
+                if cert.pairs == 1 { "" } else { "s" }
+            );
+            Ok(())
+        }
+        Err(NoCertificate::Nothing) => {
+            eprintln!("proof: not written, no output pair is equivalent");
+            Ok(())
+        }
+        Err(NoCertificate::Stopped(s)) => {
+            eprintln!("proof: not written ({s}); the verdict stands on the engine's answers");
+            Ok(())
+        }
+        Err(NoCertificate::Satisfiable) => Err(report_internal(
+            "the separately encoded miter is satisfiable although the engine proved the pairs equal; no claim is made",
+        )),
     }
 }

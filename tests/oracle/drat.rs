@@ -89,11 +89,7 @@ fn rup(
                 }
                 match (count, unassigned) {
                     (0, _) => return true,
-                    (1, Some(u)) => {
-                        if !assign(&mut value, &mut queue, u) {
-                            return true;
-                        }
-                    }
+                    (1, Some(u)) if !assign(&mut value, &mut queue, u) => return true,
                     _ => {}
                 }
             }

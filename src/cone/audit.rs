@@ -80,6 +80,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     let mut audits = Vec::with_capacity(results.len());
     let mut in_cones = vec![0usize; design.inputs.len()];
     let mut in_supports = vec![0usize; design.inputs.len()];
+    let mut in_undecided = vec![0usize; design.inputs.len()];
     for (r, cone) in results.iter().zip(&cones) {
         let out = &design.outputs[r.output];
         let support = r.support();
@@ -90,6 +91,9 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
             in_supports[k] += 1;
         }
         let undecided = r.undecided();
+        for &k in &undecided {
+            in_undecided[k] += 1;
+        }
         let constant = (support.is_empty() && undecided.is_empty())
             .then(|| design.eval(&vec![false; design.inputs.len()])[r.output]);
         if let Some(value) = constant {
@@ -98,16 +102,22 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
                 value,
             });
         }
-        for (&k, m) in r.cone.iter().zip(&r.claims) {
-            if let Membership::Independent(by) = m {
-                if !design.inputs[k].is_unknown() {
-                    flags.push(Flag::RedundantInput {
-                        output: out.name.clone(),
-                        input: name(k),
-                        by: *by,
-                    });
-                }
-            }
+        let mut redundant: Vec<(usize, IndependentBy)> = r
+            .cone
+            .iter()
+            .zip(&r.claims)
+            .filter_map(|(&k, m)| match m {
+                Membership::Independent(by) if !design.inputs[k].is_unknown() => Some((k, *by)),
+                _ => None,
+            })
+            .collect();
+        redundant.sort_by_key(|&(k, by)| (proof_rank(by), k));
+        for (k, by) in redundant {
+            flags.push(Flag::RedundantInput {
+                output: out.name.clone(),
+                input: name(k),
+                by,
+            });
         }
         for &k in &support {
             if let InputKind::Unknown { pos, what } = &design.inputs[k].kind {
@@ -162,7 +172,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     }
     if all_outputs {
         for k in 0..design.inputs.len() {
-            if in_supports[k] == 0 && !design.inputs[k].is_unknown() {
+            if in_supports[k] == 0 && in_undecided[k] == 0 && !design.inputs[k].is_unknown() {
                 flags.push(Flag::UnusedInput {
                     input: name(k),
                     connected: in_cones[k] > 0,
@@ -201,6 +211,15 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
         flags,
         stats,
         text_evidence: opts.text_evidence,
+    }
+}
+
+/// Report order of the proofs of redundancy: SAT answers first, then structural ones.
+fn proof_rank(by: IndependentBy) -> u8 {
+    match by {
+        IndependentBy::Unsat => 0,
+        IndependentBy::CofactorsMerged => 1,
+        IndependentBy::NoPath => 2,
     }
 }
 

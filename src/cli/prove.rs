@@ -154,18 +154,20 @@ pub fn run(a: &ProveArgs) -> Exit {
         Err(ProveError::Input(e)) => return report_input_error(&e),
         Err(ProveError::Internal(m)) => return report_internal(&m),
     };
-    if let Some(bus) = diagnose::pick_select(&r, &c, a.select.as_deref()) {
+    let bus = diagnose::pick_select(&r, &c, a.select.as_deref());
+    if let (None, Some(b)) = (&bus, &a.select) {
+        eprintln!(
+            "warning: no route tables: `{b}` is not an input bus of both designs (up to 16 bits)"
+        );
+    }
+    if rep.verdict == Verdict::Different {
         let limits = crate::sat::Limits::new(timeout, a.conflict_limit);
         if let (Ok((r2, rc)), Ok((c2, cc))) = (
             crate::assume::on_design(&r, &a.assume),
             crate::assume::on_design(&c, &a.assume),
         ) {
-            rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, &bus, (rc, cc), &limits);
+            rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, bus.as_deref(), (rc, cc), &limits);
         }
-    } else if let Some(bus) = &a.select {
-        eprintln!(
-            "warning: no route tables: `{bus}` is not an input bus of both designs (up to 16 bits)"
-        );
     }
     if let (Some(path), Some(shared)) = (&a.proof, &kept) {
         if let Err(code) = write_proof(&r, &c, shared, &rep, path, a.proof_format, timeout) {

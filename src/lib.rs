@@ -5,14 +5,19 @@
 //! proof engine ([`engine`]) -> reports ([`report`]).
 
 pub mod aig;
+pub mod assume;
+pub mod certify;
 pub mod cli;
 pub mod cnf;
 pub mod cone;
 pub mod cost;
+pub mod demo;
 pub mod design;
 pub mod diag;
+pub mod diagnose;
 pub mod engine;
 pub mod front;
+pub mod gen;
 pub mod report;
 pub mod routes;
 pub mod sat;

@@ -49,6 +49,17 @@ mod exit_codes {
         assert_eq!(code(&o), 1, "{}", stdout(&o));
         assert!(stdout(&o).contains("verdict     DIFFERENT"));
         assert!(stdout(&o).contains("re-simulated on both designs"));
+        // The route tables point at the two swapped data lines.
+        assert!(
+            stdout(&o).contains("s 2: reference d[2], candidate d[3]  !"),
+            "{}",
+            stdout(&o)
+        );
+        assert!(
+            stdout(&o).contains("s 3: reference d[3], candidate d[2]  !"),
+            "{}",
+            stdout(&o)
+        );
     }
 
     #[test]
@@ -288,6 +299,36 @@ mod reports {
     }
 }
 
+mod diagnosis {
+    use super::*;
+
+    /// A miswired data line shows up as a support difference: the reference reads d[2], the
+    /// candidate does not.
+    #[test]
+    fn a_miswired_input_shows_in_the_supports() {
+        let text = std::fs::read_to_string(
+            Path::new(env!("CARGO_MANIFEST_DIR")).join("bench-circuits/examples/mux4_tree.bench"),
+        )
+        .unwrap()
+        .replace("a1 = NAND(d[2], n0)", "a1 = NAND(d[1], n0)");
+        let cand = tmp("miswired.bench");
+        std::fs::write(&cand, text).unwrap();
+        let o = equicone(&[
+            "prove",
+            "bench-circuits/examples/mux4_spec.bench",
+            cand.to_str().unwrap(),
+        ]);
+        assert_eq!(code(&o), 1);
+        let out = stdout(&o);
+        assert!(out.contains("supports that differ"), "{out}");
+        assert!(out.contains("read by the reference only: d[2]"), "{out}");
+        assert!(
+            out.contains("s 2: reference d[2], candidate d[1]  !"),
+            "{out}"
+        );
+    }
+}
+
 mod bad_input {
     use super::*;
 
@@ -314,5 +355,37 @@ mod bad_input {
             n += 1;
         }
         assert!(n >= 10, "only {n} fixtures");
+    }
+}
+
+mod demo {
+    use super::*;
+
+    /// The demo proves r2, catches r3 with its crossed channels, and flags the masked pin.
+    #[test]
+    fn demo_shows_a_proof_a_caught_bug_and_a_redundant_input() {
+        let o = equicone(&["demo"]);
+        assert_eq!(code(&o), 0, "{}", String::from_utf8_lossy(&o.stderr));
+        let out = stdout(&o);
+        assert!(
+            out.contains("verdict     EQUIVALENT: all 8 output pairs agree"),
+            "{out}"
+        );
+        assert!(
+            out.contains("verdict     DIFFERENT: 8 of 8 output pairs differ"),
+            "{out}"
+        );
+        assert!(
+            out.contains("sel 9: reference ch[72], candidate ch[80]  !"),
+            "{out}"
+        );
+        assert!(
+            out.contains("sel 10: reference ch[80], candidate ch[72]  !"),
+            "{out}"
+        );
+        assert!(
+            out.contains("redundant input: y[0] does not depend on test_mode"),
+            "{out}"
+        );
     }
 }

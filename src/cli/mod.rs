@@ -6,7 +6,9 @@
 
 mod common;
 mod cone;
+mod demo;
 mod eval;
+mod gen;
 mod prove;
 mod routes;
 
@@ -42,6 +44,8 @@ pub struct Cli {
 /// The commands.
 #[derive(Subcommand, Debug)]
 pub enum Command {
+    /// Run the built-in demo: the Tidewater 7 buoy's sensor selector, proved, broken and audited.
+    Demo(demo::DemoArgs),
     /// Prove CAND equivalent to REF for every input, or give a checked counterexample.
     Prove(prove::ProveArgs),
     /// Evaluate a design's outputs for one input vector.
@@ -50,6 +54,9 @@ pub enum Command {
     Cnf(prove::CnfArgs),
     /// For each value of a select bus, show which data input each output follows (proved by SAT).
     Routes(routes::RoutesArgs),
+    /// Write a generated circuit: selectors, decoders, priority encoders, shifters, adders,
+    /// multipliers, random circuits; optionally with a planted bug.
+    Gen(gen::GenArgs),
     /// Audit each output's structural cone against its exact support; flag redundant inputs.
     Cone(cone::ConeArgs),
     /// Gate counts, cost, delay and depth, with the lower bounds each output's support implies.
@@ -59,10 +66,12 @@ pub enum Command {
 /// Run a parsed command line and return its exit code.
 pub fn run(cli: Cli) -> Exit {
     match cli.command {
+        Command::Demo(a) => demo::run(&a),
         Command::Prove(a) => prove::run(&a),
         Command::Eval(a) => eval::run(&a),
         Command::Cnf(a) => prove::run_cnf(&a),
         Command::Routes(a) => routes::run(&a),
+        Command::Gen(a) => gen::run(&a),
         Command::Cone(a) => cone::run_cone(&a),
         Command::Stats(a) => cone::run_stats(&a),
     }

@@ -2,7 +2,6 @@
 
 use super::common::{load, print, report_input_error, DesignArgs};
 use super::Exit;
-use crate::aig::Lit;
 use crate::report;
 use crate::routes::{self, Route, RouteTable};
 use crate::sat::Limits;
@@ -20,6 +19,10 @@ pub struct RoutesArgs {
     /// Only these output bits or buses (repeatable; default: all outputs).
     #[arg(long = "output", value_name = "NAME")]
     outputs: Vec<String>,
+    /// Only select values (and inputs) where this Verilog expression holds, e.g. `sel < 12`
+    /// (repeatable: all must hold).
+    #[arg(long, value_name = "EXPR")]
+    assume: Vec<String>,
     /// Print the result as JSON.
     #[arg(long)]
     json: bool,
@@ -87,6 +90,10 @@ pub fn run(a: &RoutesArgs) -> Exit {
         Ok(d) => d,
         Err(e) => return e,
     };
+    let (d, constraint) = match crate::assume::on_design(&d, &a.assume) {
+        Ok(x) => x,
+        Err(e) => return report_input_error(&e),
+    };
     let sel = match routes::select_bits(&d, &a.select) {
         Ok(s) => s,
         Err(e) => return report_input_error(&e),
@@ -98,7 +105,7 @@ pub fn run(a: &RoutesArgs) -> Exit {
     let limits = Limits::none();
     let tables: Vec<RouteTable> = outs
         .iter()
-        .map(|&k| routes::route_table(&d, k, &a.select, &sel, Lit::TRUE, &limits))
+        .map(|&k| routes::route_table(&d, k, &a.select, &sel, constraint, &limits))
         .collect();
     let undecided = tables.iter().any(|t| {
         t.routes
@@ -110,7 +117,7 @@ pub fn run(a: &RoutesArgs) -> Exit {
             design: d.name.clone(),
             select: a.select.clone(),
             select_bits: sel.len(),
-            assumptions: Vec::new(),
+            assumptions: a.assume.clone(),
             tables: tables
                 .iter()
                 .map(|t| TableJson {
@@ -130,6 +137,9 @@ pub fn run(a: &RoutesArgs) -> Exit {
             if sel.len() == 1 { "" } else { "s" },
             1usize << sel.len()
         );
+        for x in &a.assume {
+            s += &format!("assuming {x}\n");
+        }
         for t in &tables {
             s += &table_text(t);
         }

@@ -6,6 +6,7 @@
 pub mod counterexample;
 pub mod pairing;
 pub mod result;
+pub mod unknowns;
 
 use crate::aig::{random_words, simulate, Lit};
 use crate::cnf::Tseitin;
@@ -191,6 +192,8 @@ pub fn prove_shared(
         },
         warnings,
         scope: SCOPE,
+        unknowns: unknowns::sources(r, c),
+        diagnosis: None,
     })
 }
 

@@ -155,6 +155,11 @@ pub struct ProveReport {
     pub warnings: Vec<String>,
     /// What the verdict covers.
     pub scope: &'static str,
+    /// Where either design reads unknown values (`side: file:line:col: what`).
+    pub unknowns: Vec<String>,
+    /// Route tables of differing selector-like outputs (filled by the caller).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub diagnosis: Option<crate::diagnose::Diagnosis>,
 }
 
 /// What a proof covers, for every report.

@@ -2,6 +2,7 @@
 //! (missing, unreadable, binary and empty files).
 
 pub mod bench;
+pub mod verilog;
 
 use crate::design::{Design, Format};
 use crate::diag::{Diagnostic, InputError, SourcePos};
@@ -132,9 +133,5 @@ fn read_verilog_texts(
     texts: &[(Arc<str>, String)],
     top: Option<&str>,
 ) -> Result<Design, InputError> {
-    let _ = (texts, top);
-    Err(InputError::plain(
-        "unsupported: Verilog input in this build",
-        "convert the netlist to bench format",
-    ))
+    verilog::read_verilog(texts, top)
 }

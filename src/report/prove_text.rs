@@ -28,6 +28,21 @@ pub fn prove_text(r: &ProveReport) -> String {
             "free input  {f} (no partner; the verdict covers both of its values)"
         );
     }
+    if !r.unknowns.is_empty() {
+        for u in r.unknowns.iter().take(8) {
+            let _ = writeln!(s, "unknown     {u}");
+        }
+        if r.unknowns.len() > 8 {
+            let _ = writeln!(
+                s,
+                "unknown     ... and {} more sources",
+                r.unknowns.len() - 8
+            );
+        }
+        if r.assumptions.is_empty() {
+            let _ = writeln!(s, "            {}", crate::engine::unknowns::ADVICE);
+        }
+    }
     let methods = |v: Verdict| {
         let mut parts = Vec::new();
         for m in [Method::Structure, Method::Simulation, Method::Sat] {
@@ -54,8 +69,9 @@ pub fn prove_text(r: &ProveReport) -> String {
             methods(Verdict::Equivalent)
         ),
         Verdict::Different => format!(
-            "DIFFERENT: {diff} of {n} output pair{} differ; {eq} equivalent, {und} undecided",
-            plural(n)
+            "DIFFERENT: {diff} of {n} output pair{} {}; {eq} equivalent, {und} undecided",
+            plural(n),
+            if diff == 1 { "differs" } else { "differ" }
         ),
         Verdict::Undecided => format!(
             "UNDECIDED: {und} of {n} output pair{} open within the limits; {eq} equivalent",
@@ -139,6 +155,9 @@ pub fn prove_text(r: &ProveReport) -> String {
                 d.candidate_value as u8
             );
         }
+    }
+    if let Some(d) = &r.diagnosis {
+        s += &crate::diagnose::diagnosis_text(d);
     }
     let st = &r.stats;
     let _ = writeln!(

@@ -1,0 +1,10 @@
+// equicone gen multiplier --n 14 --style spec --seed 1
+// 14x14 unsigned multiplier: a[13:0], b[13:0] in; p[27:0] = a * b
+// style spec: `p = a * b`; in bench written as the array multiplier
+// mutation: none
+module multiplier14_spec (a, b, p);
+  input [13:0] a;
+  input [13:0] b;
+  output [27:0] p;
+  assign p = a * b;
+endmodule

@@ -1,0 +1,67 @@
+// equicone gen priority --n 16 --style chain --seed 1
+// 16-request priority encoder: r[15:0] in; y[3:0] = highest i with r[i] (0 if none), v = some r[i]
+// style chain: up{i} = some request above i (an OR chain from the top), grant g{i} = r[i] and not up{i}, y[b] = OR of grants with bit b of i set
+// mutation: none
+module priority16_chain (r, y, v);
+  input [15:0] r;
+  output [3:0] y;
+  output v;
+  wire up13, up12, up11, up10, up9, up8, up7, up6, up5, up4, up3, up2, up1, up0, nup1, g1, nup2, g2, nup3;
+  wire g3, nup4, g4, nup5, g5, nup6, g6, nup7, g7, nup8, g8, nup9, g9, nup10, g10, nup11, g11, nup12, g12;
+  wire nup13, g13, nup14, g14, yo0_0_0, yo0_0_1, yo1_0_0, yo1_0_1, yo2_0_0, yo2_0_1, yo3_0_0, yo3_0_1;
+  or (up13, r[14], r[15]);
+  or (up12, r[13], up13);
+  or (up11, r[12], up12);
+  or (up10, r[11], up11);
+  or (up9, r[10], up10);
+  or (up8, r[9], up9);
+  or (up7, r[8], up8);
+  or (up6, r[7], up7);
+  or (up5, r[6], up6);
+  or (up4, r[5], up5);
+  or (up3, r[4], up4);
+  or (up2, r[3], up3);
+  or (up1, r[2], up2);
+  or (up0, r[1], up1);
+  not (nup1, up1);
+  and (g1, r[1], nup1);
+  not (nup2, up2);
+  and (g2, r[2], nup2);
+  not (nup3, up3);
+  and (g3, r[3], nup3);
+  not (nup4, up4);
+  and (g4, r[4], nup4);
+  not (nup5, up5);
+  and (g5, r[5], nup5);
+  not (nup6, up6);
+  and (g6, r[6], nup6);
+  not (nup7, up7);
+  and (g7, r[7], nup7);
+  not (nup8, up8);
+  and (g8, r[8], nup8);
+  not (nup9, up9);
+  and (g9, r[9], nup9);
+  not (nup10, up10);
+  and (g10, r[10], nup10);
+  not (nup11, up11);
+  and (g11, r[11], nup11);
+  not (nup12, up12);
+  and (g12, r[12], nup12);
+  not (nup13, up13);
+  and (g13, r[13], nup13);
+  not (nup14, r[15]);
+  and (g14, r[14], nup14);
+  or (yo0_0_0, g1, g3, g5, g7);
+  or (yo0_0_1, g9, g11, g13, r[15]);
+  or (y[0], yo0_0_0, yo0_0_1);
+  or (yo1_0_0, g2, g3, g6, g7);
+  or (yo1_0_1, g10, g11, g14, r[15]);
+  or (y[1], yo1_0_0, yo1_0_1);
+  or (yo2_0_0, g4, g5, g6, g7);
+  or (yo2_0_1, g12, g13, g14, r[15]);
+  or (y[2], yo2_0_0, yo2_0_1);
+  or (yo3_0_0, g8, g9, g10, g11);
+  or (yo3_0_1, g12, g13, g14, r[15]);
+  or (y[3], yo3_0_0, yo3_0_1);
+  or (v, r[0], up0);
+endmodule

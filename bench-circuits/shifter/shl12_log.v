@@ -1,0 +1,64 @@
+// equicone gen shifter --n 12 --style log --seed 1
+// 12-bit barrel shifter: a[11:0], s[3:0] in; y[11:0] = a << s, zeros shifted in (y = 0 for s >= n)
+// style log: 4 levels of 2:1 cells, level j shifts by 2^j when s[j] is set
+// mutation: none
+module shifter12_log (a, s, y);
+  input [11:0] a;
+  input [3:0] s;
+  output [11:0] y;
+  wire sn0, z0_0, l0_1, l0_2, l0_3, l0_4, l0_5, l0_6, l0_7, l0_8, l0_9, l0_10, l0_11, sn1, z1_0, z1_1;
+  wire l1_2, l1_3, l1_4, l1_5, l1_6, l1_7, l1_8, l1_9, l1_10, l1_11, sn2, z2_0, z2_1, z2_2, z2_3, l2_4;
+  wire l2_5, l2_6, l2_7, l2_8, l2_9, l2_10, l2_11, sn3;
+  not (sn0, s[0]);
+  and (z0_0, sn0, a[0]);
+  assign l0_1 = s[0] ? a[0] : a[1];
+  assign l0_2 = s[0] ? a[1] : a[2];
+  assign l0_3 = s[0] ? a[2] : a[3];
+  assign l0_4 = s[0] ? a[3] : a[4];
+  assign l0_5 = s[0] ? a[4] : a[5];
+  assign l0_6 = s[0] ? a[5] : a[6];
+  assign l0_7 = s[0] ? a[6] : a[7];
+  assign l0_8 = s[0] ? a[7] : a[8];
+  assign l0_9 = s[0] ? a[8] : a[9];
+  assign l0_10 = s[0] ? a[9] : a[10];
+  assign l0_11 = s[0] ? a[10] : a[11];
+  not (sn1, s[1]);
+  and (z1_0, sn1, z0_0);
+  and (z1_1, sn1, l0_1);
+  assign l1_2 = s[1] ? z0_0 : l0_2;
+  assign l1_3 = s[1] ? l0_1 : l0_3;
+  assign l1_4 = s[1] ? l0_2 : l0_4;
+  assign l1_5 = s[1] ? l0_3 : l0_5;
+  assign l1_6 = s[1] ? l0_4 : l0_6;
+  assign l1_7 = s[1] ? l0_5 : l0_7;
+  assign l1_8 = s[1] ? l0_6 : l0_8;
+  assign l1_9 = s[1] ? l0_7 : l0_9;
+  assign l1_10 = s[1] ? l0_8 : l0_10;
+  assign l1_11 = s[1] ? l0_9 : l0_11;
+  not (sn2, s[2]);
+  and (z2_0, sn2, z1_0);
+  and (z2_1, sn2, z1_1);
+  and (z2_2, sn2, l1_2);
+  and (z2_3, sn2, l1_3);
+  assign l2_4 = s[2] ? z1_0 : l1_4;
+  assign l2_5 = s[2] ? z1_1 : l1_5;
+  assign l2_6 = s[2] ? l1_2 : l1_6;
+  assign l2_7 = s[2] ? l1_3 : l1_7;
+  assign l2_8 = s[2] ? l1_4 : l1_8;
+  assign l2_9 = s[2] ? l1_5 : l1_9;
+  assign l2_10 = s[2] ? l1_6 : l1_10;
+  assign l2_11 = s[2] ? l1_7 : l1_11;
+  not (sn3, s[3]);
+  and (y[0], sn3, z2_0);
+  and (y[1], sn3, z2_1);
+  and (y[2], sn3, z2_2);
+  and (y[3], sn3, z2_3);
+  and (y[4], sn3, l2_4);
+  and (y[5], sn3, l2_5);
+  and (y[6], sn3, l2_6);
+  and (y[7], sn3, l2_7);
+  assign y[8] = s[3] ? z2_0 : l2_8;
+  assign y[9] = s[3] ? z2_1 : l2_9;
+  assign y[10] = s[3] ? z2_2 : l2_10;
+  assign y[11] = s[3] ? z2_3 : l2_11;
+endmodule

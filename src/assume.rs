@@ -1,0 +1,183 @@
+//! Assumptions (`--assume EXPR`): Boolean conditions over a design's input ports, written in
+//! Verilog expression syntax and elaborated by the Verilog front-end, under which equivalence,
+//! supports and routes are asked. Several assumptions must all hold.
+//!
+//! Each expression becomes a one-line module whose ports are the design's input ports; its
+//! logic is imported into the AIG at hand with inputs matched by name. An assumption that no
+//! input vector satisfies is an error, never a vacuous proof.
+
+use crate::aig::{Aig, Lit};
+use crate::design::Design;
+use crate::diag::{Diagnostic, InputError, SourcePos};
+use crate::front::verilog::read_verilog;
+use crate::sat::{Limits, Sat, SatResult};
+use std::collections::BTreeMap;
+use std::sync::Arc;
+
+/// Line of the synthetic module on which the expression stands.
+const EXPR_LINE: u32 = 3;
+
+/// Elaborate `exprs` over the input ports of `d` and import their conjunction into `aig`,
+/// whose inputs for `d`'s port bits are given by `input_of(bit name)`.
+pub fn constraint(
+    d: &Design,
+    exprs: &[String],
+    aig: &mut Aig,
+    input_of: &dyn Fn(&str) -> Option<Lit>,
+) -> Result<Lit, InputError> {
+    let mut all = Lit::TRUE;
+    for (k, e) in exprs.iter().enumerate() {
+        let lit = one(d, k, e, aig, input_of)?;
+        all = aig.and(all, lit);
+    }
+    Ok(all)
+}
+
+/// Ports of `d` as (name, lowest index, highest index) for vectors, in first-seen order.
+fn ports(d: &Design) -> Vec<(String, Option<(i64, i64)>)> {
+    let mut order: Vec<String> = Vec::new();
+    let mut range: BTreeMap<String, Option<(i64, i64)>> = BTreeMap::new();
+    for b in d.inputs.iter().filter(|b| !b.is_unknown()) {
+        let e = range.entry(b.port.clone()).or_insert_with(|| {
+            order.push(b.port.clone());
+            b.index.map(|i| (i, i))
+        });
+        if let (Some((lo, hi)), Some(i)) = (e.as_mut(), b.index) {
+            *lo = (*lo).min(i);
+            *hi = (*hi).max(i);
+        }
+    }
+    order
+        .into_iter()
+        .map(|p| {
+            let r = range[&p];
+            (p, r)
+        })
+        .collect()
+}
+
+fn one(
+    d: &Design,
+    k: usize,
+    expr: &str,
+    aig: &mut Aig,
+    input_of: &dyn Fn(&str) -> Option<Lit>,
+) -> Result<Lit, InputError> {
+    let label: Arc<str> = Arc::from(format!("--assume #{}", k + 1));
+    if expr.contains('\n') || expr.contains(';') || expr.trim().is_empty() {
+        return Err(InputError::one(
+            Diagnostic::error(
+                Some(SourcePos::new(&label, 1, 1)),
+                "an assumption is one Verilog expression on one line",
+            )
+            .with_help("for example `--assume 'sel < 12'`"),
+        ));
+    }
+    let decls: Vec<String> = ports(d)
+        .iter()
+        .map(|(p, r)| match r {
+            Some((lo, hi)) => format!("input wire [{hi}:{lo}] {p}"),
+            None => format!("input wire {p}"),
+        })
+        .collect();
+    let text = format!(
+        "module equicone_assumption({}, output wire equicone_ok);\nassign equicone_ok = |(\n{expr}\n);\nendmodule\n",
+        decls.join(", ")
+    );
+    let a = read_verilog(&[(label.clone(), text)], Some("equicone_assumption"))
+        .map_err(|e| relocate(e, &label, expr.chars().count() as u32))?;
+    if let Some(u) = a.inputs.iter().find(|b| b.is_unknown()) {
+        return Err(InputError::one(
+            Diagnostic::error(
+                Some(SourcePos::new(&label, 1, 1)),
+                format!("the assumption can read an unknown value ({})", u.name),
+            )
+            .with_help("write the condition without x/z literals or out-of-range selects"),
+        ));
+    }
+    let map: Vec<Lit> = a
+        .inputs
+        .iter()
+        .map(|b| input_of(&b.name).unwrap_or(Lit::FALSE))
+        .collect();
+    let root = a.outputs[0].lit;
+    Ok(aig.import(&a.aig, &map, &[root])[0])
+}
+
+/// Move positions in the synthetic module back to the user's expression.
+fn relocate(mut e: InputError, label: &Arc<str>, len: u32) -> InputError {
+    for d in &mut e.diagnostics {
+        if let Some(p) = &mut d.pos {
+            if p.file == *label {
+                if p.line != EXPR_LINE {
+                    // Before the expression: its start; after it: just past its end.
+                    p.col = if p.line < EXPR_LINE { 1 } else { len + 1 };
+                }
+                p.line = 1;
+            }
+        }
+    }
+    e
+}
+
+/// Fail when no input vector satisfies `c` (a literal of `aig`).
+pub fn check_satisfiable(aig: &Aig, c: Lit, exprs: &[String]) -> Result<(), InputError> {
+    if c == Lit::TRUE || exprs.is_empty() {
+        return Ok(());
+    }
+    let limits = Limits::none();
+    let mut sat = Sat::new(&limits);
+    let mut ts = crate::cnf::Tseitin::new();
+    let l = ts.lit(aig, &mut sat, c);
+    if sat.solve(&[l]) == SatResult::Unsat {
+        return Err(InputError::plain(
+            format!(
+                "no input vector satisfies the assumptions: {}",
+                exprs.join(" && ")
+            ),
+            "an unsatisfiable assumption would make every claim vacuous; correct or drop it",
+        ));
+    }
+    Ok(())
+}
+
+/// A copy of `d` with the assumptions built into its AIG, and their literal there.
+pub fn on_design(d: &Design, exprs: &[String]) -> Result<(Design, Lit), InputError> {
+    let mut out = d.clone();
+    if exprs.is_empty() {
+        return Ok((out, Lit::TRUE));
+    }
+    let names: BTreeMap<String, Lit> = d
+        .inputs
+        .iter()
+        .enumerate()
+        .map(|(k, b)| (b.name.clone(), d.aig.input_lit(k)))
+        .collect();
+    let c = constraint(d, exprs, &mut out.aig, &|n| names.get(n).copied())?;
+    check_satisfiable(&out.aig, c, exprs)?;
+    Ok((out, c))
+}
+
+/// Build the assumptions into a proof's shared AIG (over the reference's port names) and set
+/// its constraint; fails when they are unsatisfiable.
+pub fn apply_to_shared(
+    shared: &mut crate::engine::Shared,
+    r: &Design,
+    exprs: &[String],
+) -> Result<(), InputError> {
+    if exprs.is_empty() {
+        return Ok(());
+    }
+    let by_name: BTreeMap<String, Lit> = shared
+        .ref_input
+        .iter()
+        .enumerate()
+        .map(|(i, &k)| (r.inputs[i].name.clone(), shared.aig.input_lit(k)))
+        .collect();
+    let mut aig = std::mem::take(&mut shared.aig);
+    let c = constraint(r, exprs, &mut aig, &|n| by_name.get(n).copied())
+        .and_then(|c| check_satisfiable(&aig, c, exprs).map(|_| c));
+    shared.aig = aig;
+    shared.constraint = c?;
+    Ok(())
+}

@@ -1,0 +1,34 @@
+//! `equicone demo`: the built-in Tidewater 7 scenario, from files embedded in the binary.
+
+use super::common::{print, report_input_error, report_internal, write_atomic};
+use super::Exit;
+use clap::Args;
+
+/// Options of `demo`.
+#[derive(Args, Debug)]
+pub struct DemoArgs {
+    /// Write the demo's netlists into this folder instead of running it.
+    #[arg(long, value_name = "DIR")]
+    write: Option<String>,
+}
+
+/// Run `demo`.
+pub fn run(a: &DemoArgs) -> Exit {
+    if let Some(dir) = &a.write {
+        for (name, text) in crate::demo::FILES {
+            let path = format!("{}/{name}", dir.trim_end_matches('/'));
+            if let Err(e) = write_atomic(&path, text.as_bytes()) {
+                return report_input_error(&e);
+            }
+            eprintln!("wrote {path}");
+        }
+        return Exit::Ok;
+    }
+    match crate::demo::run() {
+        Ok(text) => {
+            print(&text);
+            Exit::Ok
+        }
+        Err(m) => report_internal(&m),
+    }
+}

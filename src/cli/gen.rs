@@ -1,0 +1,77 @@
+//! `equicone gen`: write a generated reference or implementation circuit (or a mutant).
+
+use super::common::{print, report_input_error, write_atomic};
+use super::Exit;
+use crate::gen::{self, Bug, GenFormat, GenSpec, Kind, Style};
+use clap::Args;
+
+/// Options of `gen`.
+#[derive(Args, Debug)]
+pub struct GenArgs {
+    /// What to generate.
+    #[arg(value_enum)]
+    kind: Kind,
+    /// Size: channels of a selector, select bits of a decoder, requests of a priority encoder,
+    /// bits of a shifter, adder or multiplier operand, gates of a random circuit.
+    #[arg(long)]
+    n: usize,
+    /// How to build it (default: the kind's first style, the one-line spec where there is one).
+    #[arg(long, value_enum)]
+    style: Option<Style>,
+    /// Selector channel width.
+    #[arg(long, default_value_t = 1)]
+    width: usize,
+    /// Random circuits: number of inputs.
+    #[arg(long, default_value_t = 64)]
+    inputs: usize,
+    /// Seed for every choice the generator makes.
+    #[arg(long, default_value_t = 1)]
+    seed: u64,
+    /// Plant a bug (described in a comment at the top of the file).
+    #[arg(long, value_enum)]
+    bug: Option<Bug>,
+    /// Where to plant the bug: a net name as printed (default: chosen by the seed).
+    #[arg(long, value_name = "NET")]
+    at: Option<String>,
+    /// Verilog module name.
+    #[arg(long)]
+    module: Option<String>,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = GenFormat::Verilog)]
+    format: GenFormat,
+    /// Write to this file (atomically) instead of standard output.
+    #[arg(short = 'o', long = "output", value_name = "FILE")]
+    output: Option<String>,
+}
+
+/// Run `gen`.
+pub fn run(a: &GenArgs) -> Exit {
+    let spec = GenSpec {
+        kind: a.kind,
+        style: a.style.unwrap_or(a.kind.styles()[0]),
+        n: a.n,
+        width: a.width,
+        inputs: a.inputs,
+        seed: a.seed,
+        bug: a.bug,
+        at: a.at.clone(),
+        module: a.module.clone(),
+    };
+    let g = match gen::generate(&spec, a.format) {
+        Ok(g) => g,
+        Err(e) => return report_input_error(&e.into()),
+    };
+    match &a.output {
+        None => print(&g.text),
+        Some(path) => {
+            if let Err(e) = write_atomic(path, g.text.as_bytes()) {
+                return report_input_error(&e);
+            }
+            eprintln!("wrote {path}: {} ({} gates)", g.description, g.gates);
+            if let Some(m) = &g.mutation {
+                eprintln!("planted bug: {m}");
+            }
+        }
+    }
+    Exit::Ok
+}

@@ -1,0 +1,367 @@
+//! The syntax tree of the Verilog subset, as parsed (before parameters are known).
+//!
+//! **Invariant:** left-associative operator chains are flat ([`Expr::Chain`]) and nesting
+//! depth is bounded by the parser, so walking an expression recursively cannot overflow.
+
+use super::lexer::{NumLit, Pos};
+use super::symbols::Sym;
+
+/// Unary operators.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+#[allow(missing_docs)]
+pub enum UnOp {
+    Plus,
+    Neg,
+    Not,     // ~
+    LogNot,  // !
+    RedAnd,  // &
+    RedNand, // ~&
+    RedOr,   // |
+    RedNor,  // ~|
+    RedXor,  // ^
+    RedXnor, // ~^ ^~
+}
+
+/// Binary operators (left-associative; `Chain` groups those of one precedence level).
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+#[allow(missing_docs)]
+pub enum BinOp {
+    Mul,
+    Div,
+    Mod,
+    Add,
+    Sub,
+    Shl,
+    Shr,
+    AShl,
+    AShr,
+    Lt,
+    Le,
+    Gt,
+    Ge,
+    Eq,
+    Ne,
+    CaseEq,
+    CaseNe,
+    And,
+    Xor,
+    Xnor,
+    Or,
+    LogAnd,
+    LogOr,
+}
+
+impl BinOp {
+    /// Precedence level, 0 = binds tightest (IEEE 1364-2005 clause 5.1.2, Table 5-4).
+    pub fn level(self) -> usize {
+        use BinOp::*;
+        match self {
+            Mul | Div | Mod => 0,
+            Add | Sub => 1,
+            Shl | Shr | AShl | AShr => 2,
+            Lt | Le | Gt | Ge => 3,
+            Eq | Ne | CaseEq | CaseNe => 4,
+            And => 5,
+            Xor | Xnor => 6,
+            Or => 7,
+            LogAnd => 8,
+            LogOr => 9,
+        }
+    }
+
+    /// The operator as written.
+    pub fn text(self) -> &'static str {
+        use BinOp::*;
+        match self {
+            Mul => "*",
+            Div => "/",
+            Mod => "%",
+            Add => "+",
+            Sub => "-",
+            Shl => "<<",
+            Shr => ">>",
+            AShl => "<<<",
+            AShr => ">>>",
+            Lt => "<",
+            Le => "<=",
+            Gt => ">",
+            Ge => ">=",
+            Eq => "==",
+            Ne => "!=",
+            CaseEq => "===",
+            CaseNe => "!==",
+            And => "&",
+            Xor => "^",
+            Xnor => "~^",
+            Or => "|",
+            LogAnd => "&&",
+            LogOr => "||",
+        }
+    }
+}
+
+/// Number of binary precedence levels.
+pub const LEVELS: usize = 10;
+
+/// Kinds of selects.
+#[derive(Clone, Debug)]
+pub enum Select {
+    /// `[i]`
+    Bit(Expr),
+    /// `[m:l]`
+    Part(Expr, Expr),
+    /// `[b+:w]`
+    Up(Expr, Expr),
+    /// `[b-:w]`
+    Down(Expr, Expr),
+}
+
+/// An expression.
+#[derive(Clone, Debug)]
+pub enum Expr {
+    /// A name.
+    Ident(Sym, Pos),
+    /// A number.
+    Num(Box<NumLit>, Pos),
+    /// A select of a name: `a[i]`, `a[m:l]`, `a[b+:w]`.
+    Index(Sym, Pos, Box<Select>),
+    /// Unary operator.
+    Unary(UnOp, Pos, Box<Expr>),
+    /// `first op1 e1 op2 e2 ...`, all operators of one precedence level, left-associative.
+    Chain(Box<Expr>, Vec<(BinOp, Pos, Expr)>),
+    /// `c ? t : f`
+    Cond(Box<[Expr; 3]>, Pos),
+    /// `{a, b, ...}`
+    Concat(Vec<Expr>, Pos),
+    /// `{n{a, b}}`
+    Repl(Box<Expr>, Vec<Expr>, Pos),
+    /// `$signed(e)` / `$unsigned(e)` / `$clog2(e)`.
+    Call(Sym, Pos, Vec<Expr>),
+}
+
+impl Expr {
+    /// Where the expression starts.
+    pub fn pos(&self) -> Pos {
+        match self {
+            Expr::Ident(_, p) | Expr::Num(_, p) | Expr::Index(_, p, _) => *p,
+            Expr::Unary(_, p, _) | Expr::Cond(_, p) | Expr::Concat(_, p) => *p,
+            Expr::Repl(_, _, p) | Expr::Call(_, p, _) => *p,
+            Expr::Chain(first, _) => first.pos(),
+        }
+    }
+}
+
+/// A range `[msb:lsb]`.
+#[derive(Clone, Debug)]
+pub struct Range {
+    /// Left bound.
+    pub msb: Expr,
+    /// Right bound.
+    pub lsb: Expr,
+}
+
+/// Port directions.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub enum Dir {
+    /// `input`
+    Input,
+    /// `output`
+    Output,
+}
+
+/// Net and variable types.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub enum NetType {
+    /// `wire` (or none given).
+    Wire,
+    /// `reg`
+    Reg,
+    /// `integer`
+    Integer,
+}
+
+/// A declaration of nets, variables or ports.
+#[derive(Clone, Debug)]
+pub struct Decl {
+    /// Port direction, if a port declaration.
+    pub dir: Option<Dir>,
+    /// Net type, if written.
+    pub ty: Option<NetType>,
+    /// `signed`
+    pub signed: bool,
+    /// The range, if a vector.
+    pub range: Option<Range>,
+    /// Declared names, with an optional `= expr` (net declaration assignment).
+    pub names: Vec<(Sym, Pos, Option<Expr>)>,
+    /// Where the declaration starts.
+    pub pos: Pos,
+}
+
+/// A parameter declaration.
+#[derive(Clone, Debug)]
+pub struct ParamDecl {
+    /// `localparam` (not overridable).
+    pub local: bool,
+    /// `signed`
+    pub signed: bool,
+    /// `integer` type given.
+    pub integer: bool,
+    /// Range, if given.
+    pub range: Option<Range>,
+    /// Names and values.
+    pub assigns: Vec<(Sym, Pos, Expr)>,
+}
+
+/// Gate primitive kinds.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+#[allow(missing_docs)]
+pub enum GateKind {
+    And,
+    Nand,
+    Or,
+    Nor,
+    Xor,
+    Xnor,
+    Not,
+    Buf,
+}
+
+/// Connections of an instance: by name or by position.
+#[derive(Clone, Debug)]
+pub enum Conns {
+    /// `.a(x), .b()`
+    Named(Vec<(Sym, Pos, Option<Expr>)>),
+    /// `x, y`
+    Ordered(Vec<Option<Expr>>),
+}
+
+/// One module instance.
+#[derive(Clone, Debug)]
+pub struct Instance {
+    /// Instantiated module.
+    pub module: Sym,
+    /// Parameter overrides.
+    pub params: Option<Conns>,
+    /// Instance name.
+    pub name: Sym,
+    /// Port connections.
+    pub conns: Conns,
+    /// Where the instance is written.
+    pub pos: Pos,
+}
+
+/// A statement of an `always @*` block.
+#[derive(Clone, Debug)]
+pub enum Stmt {
+    /// `begin ... end`
+    Block(Vec<Stmt>),
+    /// `lhs = rhs;`
+    Assign(Expr, Expr, Pos),
+    /// `if (c) t else e`
+    If(Expr, Box<Stmt>, Option<Box<Stmt>>, Pos),
+    /// `case`/`casez`
+    Case(Box<CaseStmt>),
+    /// `for (init; cond; step) body`
+    For(Box<ForStmt>),
+    /// `;`
+    Null,
+}
+
+/// A `case` statement.
+#[derive(Clone, Debug)]
+pub struct CaseStmt {
+    /// `casez` rather than `case`.
+    pub casez: bool,
+    /// The selector.
+    pub expr: Expr,
+    /// Items: labels and statement.
+    pub items: Vec<(Vec<Expr>, Stmt)>,
+    /// `default:` statement.
+    pub default: Option<Stmt>,
+    /// Where it is written.
+    pub pos: Pos,
+}
+
+/// A `for` statement (procedural or generate).
+#[derive(Clone, Debug)]
+pub struct ForStmt {
+    /// Loop variable and initial value.
+    pub init: (Sym, Pos, Expr),
+    /// Continue condition.
+    pub cond: Expr,
+    /// Loop variable and step value.
+    pub step: (Sym, Pos, Expr),
+    /// The body.
+    pub body: Stmt,
+    /// Where it is written.
+    pub pos: Pos,
+}
+
+/// A generate loop.
+#[derive(Clone, Debug)]
+pub struct GenFor {
+    /// Loop variable and initial value.
+    pub init: (Sym, Pos, Expr),
+    /// Continue condition.
+    pub cond: Expr,
+    /// Loop variable and step value.
+    pub step: (Sym, Pos, Expr),
+    /// Block name.
+    pub name: Option<Sym>,
+    /// Items of the block.
+    pub items: Vec<Item>,
+    /// Where it is written.
+    pub pos: Pos,
+}
+
+/// A module item.
+#[derive(Clone, Debug)]
+pub enum Item {
+    /// Net, variable or port declaration.
+    Decl(Box<Decl>),
+    /// `parameter` / `localparam`.
+    Param(Box<ParamDecl>),
+    /// `genvar i;`
+    Genvar(Vec<(Sym, Pos)>),
+    /// `assign lhs = rhs;`
+    Assign(Box<(Expr, Expr)>, Pos),
+    /// Gate primitive instance: kind, optional name, terminals (output first).
+    Gate(GateKind, Option<Sym>, Vec<Expr>, Pos),
+    /// Module instance.
+    Inst(Box<Instance>),
+    /// `always @*`
+    Always(Box<Stmt>, Pos),
+    /// Generate loop.
+    GenFor(Box<GenFor>),
+    /// Generate `if`: condition, then-items, else-items.
+    GenIf(Box<(Expr, Vec<Item>, Vec<Item>)>, Pos),
+}
+
+/// A module.
+#[derive(Clone, Debug)]
+pub struct Module {
+    /// Its name.
+    pub name: Sym,
+    /// Port names in order.
+    pub ports: Vec<(Sym, Pos)>,
+    /// Items (ANSI port declarations come first, as `Item::Decl`).
+    pub items: Vec<Item>,
+    /// Where it is written.
+    pub pos: Pos,
+    /// Whether `` `default_nettype none`` was in force.
+    pub nettype_none: bool,
+}
+
+#[cfg(test)]
+mod size_tests {
+    /// A million-gate netlist holds a million items: keep them small.
+    #[test]
+    fn items_stay_small() {
+        assert!(
+            std::mem::size_of::<super::Item>() <= 56,
+            "{}",
+            std::mem::size_of::<super::Item>()
+        );
+        assert!(std::mem::size_of::<super::Expr>() <= 48);
+    }
+}

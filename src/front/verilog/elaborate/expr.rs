@@ -1,0 +1,450 @@
+//! Expression evaluation to AIG literals with the sizing rules of IEEE 1364-2005 clause 5.4
+//! (context-determined operands extended to the expression's width before the operation)
+//! and the signedness rules of clause 5.5 (signed only when every operand is signed).
+
+use super::super::ast::{BinOp, Expr, UnOp};
+use super::super::lexer::{Pos, B0, B1};
+use super::always::Env;
+use super::bits::{self, extend};
+use super::types::Ty;
+use super::{Elab, Symbol, Val};
+use crate::aig::{Aig, Lit};
+
+/// Evaluation context: the scope, the current values of an always block's variables, and
+/// whether only constants (parameters, genvars) may be read.
+#[derive(Clone, Copy)]
+pub struct Cx<'e> {
+    /// Scope for name lookup.
+    pub sc: u32,
+    /// Variables of the enclosing always block.
+    pub env: Option<&'e Env>,
+    /// Constant expression (ranges, parameters, generate conditions).
+    pub constant: bool,
+}
+
+impl<'e> Cx<'e> {
+    /// Plain context in scope `sc`.
+    pub fn new(sc: u32) -> Cx<'static> {
+        Cx {
+            sc,
+            env: None,
+            constant: false,
+        }
+    }
+
+    /// Constant context in scope `sc`.
+    pub fn constant(sc: u32) -> Cx<'static> {
+        Cx {
+            sc,
+            env: None,
+            constant: true,
+        }
+    }
+}
+
+/// A named operand: its value and declared range.
+pub struct Operand {
+    /// Value bits.
+    pub val: Val,
+    /// Declared left index.
+    pub msb: i64,
+    /// Declared right index.
+    pub lsb: i64,
+}
+
+impl Elab<'_> {
+    /// Evaluate a constant expression; reports and returns `None` when it is not constant.
+    pub(super) fn const_val(&mut self, sc: u32, e: &Expr) -> Option<Val> {
+        let cx = Cx::constant(sc);
+        let t = self.ty(&cx, e);
+        let before = self.errors.len();
+        let bits = self.eval(&cx, e, t.w, t.s);
+        if self.errors.len() > before {
+            return None;
+        }
+        if !bits::is_const(&bits) {
+            self.error(
+                e.pos(),
+                "expression is not constant (x/z bits or non-constant operands)",
+            );
+            return None;
+        }
+        Some(Val { bits, signed: t.s })
+    }
+
+    /// Evaluate a constant integer expression.
+    pub(super) fn const_int(&mut self, sc: u32, e: &Expr) -> Option<i64> {
+        let v = self.const_val(sc, e)?;
+        let r = bits::to_i64(&v.bits, v.signed);
+        if r.is_none() {
+            self.error(e.pos(), "constant does not fit in 64 bits");
+        }
+        r
+    }
+
+    /// Evaluate `e` self-determined.
+    pub(super) fn eval_self(&mut self, cx: &Cx, e: &Expr) -> Val {
+        let t = self.ty(cx, e);
+        Val {
+            bits: self.eval(cx, e, t.w, t.s),
+            signed: t.s,
+        }
+    }
+
+    /// Evaluate `e` as a condition: true when any bit is 1.
+    pub(super) fn eval_bool(&mut self, cx: &Cx, e: &Expr) -> Lit {
+        let v = self.eval_self(cx, e);
+        self.g.or_all(&v.bits)
+    }
+
+    /// Value and range of a name.
+    pub(super) fn operand(&mut self, cx: &Cx, s: super::Sym, pos: Pos) -> Option<Operand> {
+        match self.lookup(cx.sc, s).cloned() {
+            Some(Symbol::Net(n)) => {
+                if cx.constant {
+                    let nm = self.name(s);
+                    self.error(pos, format!("`{nm}` is not a constant (only parameters and genvars may appear here)"));
+                    return None;
+                }
+                let net = &self.nets[n as usize];
+                let (msb, lsb, signed) = (net.msb, net.lsb, net.signed);
+                let mut b = self.net_bits(n);
+                if let Some(env) = cx.env {
+                    env.overlay(n, &mut b);
+                }
+                Some(Operand {
+                    val: Val { bits: b, signed },
+                    msb,
+                    lsb,
+                })
+            }
+            Some(Symbol::Param(p)) => {
+                let (val, msb, lsb) = *p;
+                Some(Operand { val, msb, lsb })
+            }
+            Some(Symbol::Genvar(Some(v))) => Some(Operand {
+                val: v,
+                msb: 31,
+                lsb: 0,
+            }),
+            Some(Symbol::Genvar(None)) => {
+                let nm = self.name(s);
+                self.error(pos, format!("genvar `{nm}` used outside its generate loop"));
+                None
+            }
+            None => {
+                let nm = self.name(s);
+                self.error(pos, format!("undeclared name `{nm}`"));
+                None
+            }
+        }
+    }
+
+    /// Evaluate `e` in a context of width `w` and signedness `s` (`w` at least its own width).
+    pub(super) fn eval(&mut self, cx: &Cx, e: &Expr, w: usize, s: bool) -> Vec<Lit> {
+        let w = w.min(super::MAX_WIDTH);
+        let v = self.eval_inner(cx, e, w, s);
+        debug_assert!(
+            v.len() == w || self.quiet > 0 || !self.errors.is_empty(),
+            "width {} != {w}",
+            v.len()
+        );
+        extend(v, w, s)
+    }
+
+    fn literal(&mut self, cx: &Cx, n: &super::super::lexer::NumLit, pos: Pos) -> Vec<Lit> {
+        let mut out = Vec::with_capacity(n.bits.len());
+        let mut unknown = 0;
+        for &b in &n.bits {
+            out.push(match b {
+                B0 => Lit::FALSE,
+                B1 => Lit::TRUE,
+                _ => {
+                    unknown += 1;
+                    Lit::FALSE
+                }
+            });
+        }
+        if unknown > 0 {
+            if cx.constant {
+                self.error(
+                    pos,
+                    format!("x/z bits in a constant expression (`{}`)", n.text),
+                );
+                return out;
+            }
+            let what = format!("x/z literal {}", n.text);
+            let u = self.unknown_bits(unknown, pos, &what, cx.sc);
+            let mut k = 0;
+            for (i, &b) in n.bits.iter().enumerate() {
+                if b != B0 && b != B1 {
+                    out[i] = u[k];
+                    k += 1;
+                }
+            }
+        }
+        out
+    }
+
+    fn eval_inner(&mut self, cx: &Cx, e: &Expr, w: usize, s: bool) -> Vec<Lit> {
+        match e {
+            Expr::Ident(sym, pos) => match self.operand(cx, *sym, *pos) {
+                Some(o) => extend(o.val.bits, w, s),
+                None => vec![Lit::FALSE; w],
+            },
+            Expr::Num(n, pos) => {
+                let v = self.literal(cx, n, *pos);
+                extend(v, w, s)
+            }
+            Expr::Index(sym, pos, sel) => {
+                let v = self.eval_select(cx, *sym, *pos, sel);
+                extend(v, w, false)
+            }
+            Expr::Unary(op, _, a) => match op {
+                UnOp::Plus => self.eval(cx, a, w, s),
+                UnOp::Neg => {
+                    let v = self.eval(cx, a, w, s);
+                    bits::neg(&mut self.g, &v)
+                }
+                UnOp::Not => bits::not(&self.eval(cx, a, w, s)),
+                _ => {
+                    let v = self.eval_self(cx, a);
+                    let g = &mut self.g;
+                    let r = match op {
+                        UnOp::LogNot => !g.or_all(&v.bits),
+                        UnOp::RedAnd => g.and_all(&v.bits),
+                        UnOp::RedNand => !g.and_all(&v.bits),
+                        UnOp::RedOr => g.or_all(&v.bits),
+                        UnOp::RedNor => !g.or_all(&v.bits),
+                        UnOp::RedXor => g.xor_all(&v.bits),
+                        _ => !g.xor_all(&v.bits),
+                    };
+                    extend(vec![r], w, false)
+                }
+            },
+            Expr::Chain(first, rest) => self.eval_chain(cx, first, rest, w, s),
+            Expr::Cond(b, _) => {
+                let c = self.eval_bool(cx, &b[0]);
+                if c == Lit::TRUE {
+                    return self.eval(cx, &b[1], w, s);
+                }
+                if c == Lit::FALSE {
+                    return self.eval(cx, &b[2], w, s);
+                }
+                let t = self.eval(cx, &b[1], w, s);
+                let f = self.eval(cx, &b[2], w, s);
+                t.iter()
+                    .zip(&f)
+                    .map(|(&x, &y)| self.g.mux(c, x, y))
+                    .collect()
+            }
+            Expr::Concat(items, _) => {
+                let v = self.concat(cx, items);
+                extend(v, w, false)
+            }
+            Expr::Repl(n, items, pos) => {
+                let count = match self.const_int(cx.sc, n) {
+                    Some(c) if c >= 0 => c as usize,
+                    Some(_) => {
+                        self.error(*pos, "negative replication count");
+                        0
+                    }
+                    None => 0,
+                };
+                let inner = self.concat(cx, items);
+                if count.saturating_mul(inner.len()) > super::MAX_WIDTH {
+                    self.error(*pos, "replication wider than 2^20 bits");
+                    return vec![Lit::FALSE; w];
+                }
+                let mut v = Vec::with_capacity(count * inner.len());
+                for _ in 0..count {
+                    v.extend_from_slice(&inner);
+                }
+                extend(v, w, false)
+            }
+            Expr::Call(f, pos, args) => {
+                let name = self.name(*f);
+                match name {
+                    "$signed" | "$unsigned" => {
+                        let v = self.eval_self(cx, &args[0]);
+                        extend(v.bits, w, s)
+                    }
+                    _ => {
+                        // $clog2: constant argument only.
+                        let r = match self.const_val(cx.sc, &args[0]) {
+                            Some(v) => clog2(&v.bits),
+                            None => 0,
+                        };
+                        let _ = pos;
+                        extend(bits::constant(r, 32), w, s)
+                    }
+                }
+            }
+        }
+    }
+
+    /// Concatenation: items self-determined, the first item most significant.
+    fn concat(&mut self, cx: &Cx, items: &[Expr]) -> Vec<Lit> {
+        let mut v = Vec::new();
+        for it in items.iter().rev() {
+            let b = self.eval_self(cx, it);
+            v.extend_from_slice(&b.bits);
+            if v.len() > super::MAX_WIDTH {
+                self.error(it.pos(), "concatenation wider than 2^20 bits");
+                v.truncate(super::MAX_WIDTH);
+                break;
+            }
+        }
+        v
+    }
+
+    fn eval_chain(
+        &mut self,
+        cx: &Cx,
+        first: &Expr,
+        rest: &[(BinOp, Pos, Expr)],
+        w: usize,
+        s: bool,
+    ) -> Vec<Lit> {
+        let level = rest[0].0.level();
+        match level {
+            2 => {
+                // Shifts: the left operand takes the context; amounts are self-determined
+                // and unsigned.
+                let mut acc = self.eval(cx, first, w, s);
+                for (op, _, e) in rest {
+                    let amt = self.eval_self(cx, e).bits;
+                    let (left, fill) = match op {
+                        BinOp::Shl | BinOp::AShl => (true, Lit::FALSE),
+                        BinOp::Shr => (false, Lit::FALSE),
+                        _ => (
+                            false,
+                            if s {
+                                *acc.last().unwrap_or(&Lit::FALSE)
+                            } else {
+                                Lit::FALSE
+                            },
+                        ),
+                    };
+                    acc = bits::shift(&mut self.g, &acc, &amt, left, fill);
+                }
+                acc
+            }
+            3 | 4 => {
+                // Relations: operands sized to each other; result 1 bit, unsigned.
+                let mut r = {
+                    let (op, _, e) = &rest[0];
+                    let ta = self.ty(cx, first);
+                    let tb = self.ty(cx, e);
+                    let t = Ty {
+                        w: ta.w.max(tb.w),
+                        s: ta.s && tb.s,
+                    };
+                    let a = self.eval(cx, first, t.w, t.s);
+                    let b = self.eval(cx, e, t.w, t.s);
+                    self.compare(*op, &a, &b, t.s)
+                };
+                for (op, _, e) in &rest[1..] {
+                    let tb = self.ty(cx, e);
+                    let cw = tb.w.max(1);
+                    let a = extend(vec![r], cw, false);
+                    let b = self.eval(cx, e, cw, false);
+                    r = self.compare(*op, &a, &b, false);
+                }
+                extend(vec![r], w, false)
+            }
+            8 | 9 => {
+                let mut acc = self.eval_bool(cx, first);
+                for (op, _, e) in rest {
+                    let b = self.eval_bool(cx, e);
+                    acc = if *op == BinOp::LogAnd {
+                        self.g.and(acc, b)
+                    } else {
+                        self.g.or(acc, b)
+                    };
+                }
+                extend(vec![acc], w, false)
+            }
+            _ => {
+                let mut acc = self.eval(cx, first, w, s);
+                for (op, pos, e) in rest {
+                    let b = self.eval(cx, e, w, s);
+                    let g = &mut self.g;
+                    acc = match op {
+                        BinOp::Add => bits::add(g, &acc, &b, Lit::FALSE),
+                        BinOp::Sub => bits::sub(g, &acc, &b),
+                        BinOp::Mul => bits::mul(g, &acc, &b),
+                        BinOp::And => bits::zip(g, &acc, &b, Aig::and),
+                        BinOp::Or => bits::zip(g, &acc, &b, Aig::or),
+                        BinOp::Xor => bits::zip(g, &acc, &b, Aig::xor),
+                        BinOp::Xnor => bits::zip(g, &acc, &b, Aig::xnor),
+                        _ => self.divide(cx, *op, *pos, &acc, &b, s),
+                    };
+                }
+                acc
+            }
+        }
+    }
+
+    fn compare(&mut self, op: BinOp, a: &[Lit], b: &[Lit], signed: bool) -> Lit {
+        let g = &mut self.g;
+        let lt = |g: &mut Aig, x: &[Lit], y: &[Lit]| {
+            if signed {
+                bits::slt(g, x, y)
+            } else {
+                bits::ult(g, x, y)
+            }
+        };
+        match op {
+            BinOp::Eq | BinOp::CaseEq => bits::eq(g, a, b),
+            BinOp::Ne | BinOp::CaseNe => !bits::eq(g, a, b),
+            BinOp::Lt => lt(g, a, b),
+            BinOp::Gt => lt(g, b, a),
+            BinOp::Le => !lt(g, b, a),
+            _ => !lt(g, a, b),
+        }
+    }
+
+    /// `/` and `%` of constant operands (two's complement when signed; zero divisor gives x).
+    fn divide(&mut self, cx: &Cx, op: BinOp, pos: Pos, a: &[Lit], b: &[Lit], s: bool) -> Vec<Lit> {
+        let w = a.len();
+        let (x, y) = match (bits::to_i64(a, s), bits::to_i64(b, s)) {
+            (Some(x), Some(y)) if w <= 63 || s => (x, y),
+            _ => {
+                self.error(
+                    pos,
+                    format!(
+                        "unsupported: `{}` of non-constant or wider than 63-bit values",
+                        op.text()
+                    ),
+                );
+                return vec![Lit::FALSE; w];
+            }
+        };
+        if y == 0 {
+            return self.unknown_bits(w, pos, "division by zero", cx.sc);
+        }
+        let r = if op == BinOp::Div {
+            x.wrapping_div(y)
+        } else {
+            x.wrapping_rem(y)
+        };
+        bits::constant(r, w)
+    }
+}
+
+/// `$clog2` of constant bits: the number of bits needed to address that many items.
+fn clog2(v: &[Lit]) -> i64 {
+    let hi = v.iter().rposition(|&l| l == Lit::TRUE);
+    match hi {
+        None => 0,
+        Some(h) => {
+            let pow2 = v[..h].iter().all(|&l| l == Lit::FALSE);
+            if pow2 {
+                h as i64
+            } else {
+                h as i64 + 1
+            }
+        }
+    }
+}

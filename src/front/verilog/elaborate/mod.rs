@@ -1,0 +1,372 @@
+//! Elaboration: parsed modules to one flat graph. Every net bit is a placeholder input
+//! ("leaf") of an intermediate AIG; assignments, gates, port connections and `always`
+//! blocks record each leaf's driver; [`resolve`] then builds the design's AIG from the
+//! outputs back through the drivers (iteratively, finding combinational loops).
+//!
+//! **Invariant:** leaf `k` of the intermediate AIG is either a bit of a net (`owner[k]`) or
+//! an unknown-value source; each net bit has at most one driver.
+
+mod always;
+mod bits;
+mod expr;
+mod module;
+mod resolve;
+mod select;
+mod types;
+
+use super::ast::{Dir, Module, NetType};
+use super::lexer::Pos;
+use super::symbols::{Interner, Sym};
+use crate::aig::{Aig, Lit};
+use crate::design::{CellKind, Design};
+use crate::diag::{Diagnostic, InputError, SourcePos};
+use std::collections::HashMap;
+use std::sync::Arc;
+
+/// Deepest instance hierarchy accepted.
+const MAX_HIER: usize = 64;
+/// Most iterations of one `for` loop.
+const MAX_LOOP: usize = 1 << 16;
+/// Widest expression accepted, in bits.
+const MAX_WIDTH: usize = 1 << 20;
+
+/// A constant or symbolic value: bits LSB first, and signedness.
+#[derive(Clone, Debug)]
+pub struct Val {
+    /// Bits, least significant first.
+    pub bits: Vec<Lit>,
+    /// Signed?
+    pub signed: bool,
+}
+
+/// A net or variable of the flattened design.
+#[derive(Clone, Debug)]
+pub struct Net {
+    name: Sym,
+    scope: u32,
+    first: u32,
+    width: u32,
+    msb: i64,
+    lsb: i64,
+    signed: bool,
+    vector: bool,
+    ty: NetType,
+    dir: Option<Dir>,
+    pos: Pos,
+}
+
+impl Net {
+    /// Offset (0 = least significant) of declared index `i`, if in range.
+    fn offset(&self, i: i64) -> Option<u32> {
+        let off = if self.msb >= self.lsb {
+            i - self.lsb
+        } else {
+            self.lsb - i
+        };
+        (0..self.width as i64).contains(&off).then_some(off as u32)
+    }
+
+    /// Declared index of offset `off`.
+    fn index(&self, off: u32) -> i64 {
+        if self.msb >= self.lsb {
+            self.lsb + off as i64
+        } else {
+            self.lsb - off as i64
+        }
+    }
+}
+
+/// What a name means in a scope.
+#[derive(Clone, Debug)]
+enum Symbol {
+    Net(u32),
+    Param(Box<(Val, i64, i64)>),
+    Genvar(Option<Val>),
+}
+
+/// A name scope: a module instance or a generate block.
+#[derive(Debug)]
+struct Scope {
+    parent: Option<u32>,
+    prefix: String,
+    syms: super::fasthash::FastMap<Sym, Symbol>,
+    module: u32,
+}
+
+/// One unknown-value source bit.
+#[derive(Clone, Debug)]
+struct Unknown {
+    pos: Pos,
+    what: String,
+    scope: u32,
+    bit: u32,
+}
+
+/// A net bit's driver.
+#[derive(Copy, Clone, Debug)]
+struct Driver {
+    lit: Lit,
+    pos: Pos,
+}
+
+/// A gate primitive as written (for the netlist).
+#[derive(Clone, Debug)]
+struct GateRec {
+    kind: CellKind,
+    ins: Vec<Lit>,
+    out: u32,
+    pos: Pos,
+}
+
+const UNKNOWN_BIT: u32 = 1 << 31;
+
+/// The elaborator's state.
+pub struct Elab<'a> {
+    names: &'a Interner,
+    files: &'a [Arc<str>],
+    modules: HashMap<Sym, &'a Module>,
+    module_list: Vec<&'a Module>,
+    g: Aig,
+    owner: Vec<u32>,
+    unknowns: Vec<Unknown>,
+    nets: Vec<Net>,
+    drivers: Vec<Option<Driver>>,
+    scopes: Vec<Scope>,
+    gates: Vec<GateRec>,
+    errors: Vec<Diagnostic>,
+    warnings: Vec<Diagnostic>,
+    quiet: u32,
+    hier: Vec<Sym>,
+}
+
+impl<'a> Elab<'a> {
+    fn new(names: &'a Interner, files: &'a [Arc<str>], mods: &'a [Module]) -> Self {
+        let mut modules = HashMap::new();
+        for m in mods {
+            modules.entry(m.name).or_insert(m);
+        }
+        Elab {
+            names,
+            files,
+            modules,
+            module_list: mods.iter().collect(),
+            g: Aig::new(),
+            owner: Vec::new(),
+            unknowns: Vec::new(),
+            nets: Vec::new(),
+            drivers: Vec::new(),
+            scopes: Vec::new(),
+            gates: Vec::new(),
+            errors: Vec::new(),
+            warnings: Vec::new(),
+            quiet: 0,
+            hier: Vec::new(),
+        }
+    }
+
+    fn spos(&self, p: Pos) -> SourcePos {
+        let f = self
+            .files
+            .get(p.file as usize)
+            .cloned()
+            .unwrap_or_else(|| Arc::from("?"));
+        SourcePos::new(&f, p.line, p.col)
+    }
+
+    /// Record an error (unless inside a quiet width computation).
+    fn error(&mut self, p: Pos, msg: impl Into<String>) {
+        if self.quiet == 0 {
+            let d = Diagnostic::error(Some(self.spos(p)), msg);
+            self.errors.push(d);
+        }
+    }
+
+    fn error_help(&mut self, p: Pos, msg: impl Into<String>, help: impl Into<String>) {
+        if self.quiet == 0 {
+            let d = Diagnostic::error(Some(self.spos(p)), msg).with_help(help);
+            self.errors.push(d);
+        }
+    }
+
+    fn warn(&mut self, p: Pos, msg: impl Into<String>) {
+        if self.quiet == 0 {
+            let d = Diagnostic::warning(Some(self.spos(p)), msg);
+            self.warnings.push(d);
+        }
+    }
+
+    fn name(&self, s: Sym) -> &'a str {
+        let names: &'a Interner = self.names;
+        names.name(s)
+    }
+
+    /// Full hierarchical name of a net.
+    fn net_name(&self, n: u32) -> String {
+        let net = &self.nets[n as usize];
+        format!(
+            "{}{}",
+            self.scopes[net.scope as usize].prefix,
+            self.name(net.name)
+        )
+    }
+
+    /// Name of one bit of a net (`w` or `w[3]`).
+    fn bit_name(&self, n: u32, off: u32) -> String {
+        let net = &self.nets[n as usize];
+        let idx = net.vector.then(|| net.index(off));
+        crate::design::bit_name(&self.net_name(n), idx)
+    }
+
+    /// Name of a leaf for messages.
+    fn leaf_name(&self, leaf: u32) -> String {
+        let o = self.owner[leaf as usize];
+        if o & UNKNOWN_BIT != 0 {
+            return "an unknown value".into();
+        }
+        let off = leaf - self.nets[o as usize].first;
+        self.bit_name(o, off)
+    }
+
+    fn new_scope(&mut self, parent: Option<u32>, prefix: String, module: u32) -> u32 {
+        self.scopes.push(Scope {
+            parent,
+            prefix,
+            syms: Default::default(),
+            module,
+        });
+        (self.scopes.len() - 1) as u32
+    }
+
+    /// Look a name up through the enclosing scopes of one module instance.
+    fn lookup(&self, mut sc: u32, s: Sym) -> Option<&Symbol> {
+        loop {
+            let scope = &self.scopes[sc as usize];
+            if let Some(sym) = scope.syms.get(&s) {
+                return Some(sym);
+            }
+            sc = scope.parent?;
+        }
+    }
+
+    /// Create a net with fresh leaves.
+    #[allow(clippy::too_many_arguments)]
+    fn add_net(
+        &mut self,
+        sc: u32,
+        name: Sym,
+        msb: i64,
+        lsb: i64,
+        vector: bool,
+        signed: bool,
+        ty: NetType,
+        dir: Option<Dir>,
+        pos: Pos,
+    ) -> u32 {
+        let width = (msb - lsb).unsigned_abs() as u32 + 1;
+        let id = self.nets.len() as u32;
+        let first = self.g.num_inputs() as u32;
+        for _ in 0..width {
+            self.g.add_input();
+            self.owner.push(id);
+            self.drivers.push(None);
+        }
+        self.nets.push(Net {
+            name,
+            scope: sc,
+            first,
+            width,
+            msb,
+            lsb,
+            signed,
+            vector,
+            ty,
+            dir,
+            pos,
+        });
+        self.scopes[sc as usize].syms.insert(name, Symbol::Net(id));
+        id
+    }
+
+    /// Literals of a net's bits (its leaves).
+    fn net_bits(&self, n: u32) -> Vec<Lit> {
+        let net = &self.nets[n as usize];
+        (0..net.width)
+            .map(|k| self.g.input_lit((net.first + k) as usize))
+            .collect()
+    }
+
+    /// Fresh unknown-value bits.
+    fn unknown_bits(&mut self, n: usize, pos: Pos, what: &str, sc: u32) -> Vec<Lit> {
+        (0..n)
+            .map(|k| {
+                let l = self.g.add_input();
+                self.owner.push(UNKNOWN_BIT | self.unknowns.len() as u32);
+                self.drivers.push(None);
+                self.unknowns.push(Unknown {
+                    pos,
+                    what: what.to_string(),
+                    scope: sc,
+                    bit: k as u32,
+                });
+                l
+            })
+            .collect()
+    }
+
+    /// Drive bit `off` of net `n` with `lit`.
+    fn drive(&mut self, n: u32, off: u32, lit: Lit, pos: Pos) {
+        let leaf = (self.nets[n as usize].first + off) as usize;
+        if let Some(d) = self.drivers[leaf] {
+            let first = self.spos(d.pos);
+            let bn = self.bit_name(n, off);
+            self.error_help(
+                pos,
+                format!("multiple drivers: `{bn}` is already driven at {first}"),
+                "drive each net bit from exactly one assignment, gate, port or always block",
+            );
+            return;
+        }
+        self.drivers[leaf] = Some(Driver { lit, pos });
+    }
+}
+
+/// Elaborate `mods` (parsed from `files`) with top module `top` (or the one nobody
+/// instantiates) into a design.
+pub fn elaborate(
+    names: &Interner,
+    files: &[Arc<str>],
+    mods: &[Module],
+    top: Option<&str>,
+) -> Result<Design, InputError> {
+    let mut e = Elab::new(names, files, mods);
+    // Duplicate module names.
+    let mut seen: HashMap<Sym, Pos> = HashMap::new();
+    for m in mods {
+        if let Some(&p) = seen.get(&m.name) {
+            let sp = e.spos(p);
+            let n = e.name(m.name).to_string();
+            e.error(
+                m.pos,
+                format!("module `{n}` is defined twice (first at {sp})"),
+            );
+        } else {
+            seen.insert(m.name, m.pos);
+        }
+    }
+    let top_mod = match module::pick_top(&mut e, top) {
+        Some(m) => m,
+        None => {
+            return Err(InputError {
+                diagnostics: e.errors,
+            })
+        }
+    };
+    let sc = module::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
+    let design = resolve::build(&mut e, top_mod, sc);
+    if !e.errors.is_empty() {
+        return Err(InputError {
+            diagnostics: e.errors,
+        });
+    }
+    Ok(design)
+}

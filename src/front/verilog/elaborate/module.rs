@@ -1,0 +1,702 @@
+//! Module instances: parameters (with per-instance overrides), declarations, implicit nets,
+//! continuous assignments, gate primitives, sub-instances and their port connections, and
+//! generate loops and conditions. Sub-instances are flattened with hierarchical names.
+
+use super::super::ast::{
+    Conns, Decl, Dir, Expr, GateKind, Instance, Item, Module, NetType, ParamDecl, Range,
+};
+use super::super::lexer::Pos;
+use super::super::symbols::Sym;
+use super::bits::{self, extend};
+use super::expr::Cx;
+use super::{Elab, GateRec, Symbol, Val};
+use crate::aig::Lit;
+use crate::design::CellKind;
+use std::collections::HashSet;
+
+/// Which parameter an override sets.
+#[derive(Clone, Debug)]
+pub enum Which {
+    /// By name.
+    Named(Sym),
+    /// By position among the overridable parameters.
+    Nth(usize),
+}
+
+fn walk_instances<'m>(items: &'m [Item], out: &mut Vec<&'m Instance>) {
+    // Generate nesting is bounded by the parser's depth limit.
+    for it in items {
+        match it {
+            Item::Inst(i) => out.push(i),
+            Item::GenFor(g) => walk_instances(&g.items, out),
+            Item::GenIf(g, _) => {
+                walk_instances(&g.1, out);
+                walk_instances(&g.2, out);
+            }
+            _ => {}
+        }
+    }
+}
+
+/// Choose the top module: the one named, or the only one that no module instantiates.
+pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
+    let list = e.module_list.clone();
+    let names = e.names;
+    let nopos = Pos::default();
+    if list.is_empty() {
+        e.errors.push(crate::diag::Diagnostic::error(
+            None,
+            "no module found in the Verilog input",
+        ));
+        return None;
+    }
+    if let Some(t) = top {
+        if let Some(m) = list.iter().find(|m| names.name(m.name) == t) {
+            return Some(m);
+        }
+        let all: Vec<&str> = list.iter().map(|m| names.name(m.name)).collect();
+        let _ = nopos;
+        e.errors.push(
+            crate::diag::Diagnostic::error(None, format!("top module `{t}` not found"))
+                .with_help(format!("modules read: {}", all.join(", "))),
+        );
+        return None;
+    }
+    let mut used = HashSet::new();
+    for m in &list {
+        let mut v = Vec::new();
+        walk_instances(&m.items, &mut v);
+        for i in v {
+            if i.module != m.name {
+                used.insert(i.module);
+            }
+        }
+    }
+    let cands: Vec<&Module> = list
+        .iter()
+        .copied()
+        .filter(|m| !used.contains(&m.name))
+        .collect();
+    match cands.len() {
+        1 => Some(cands[0]),
+        0 => {
+            e.errors.push(crate::diag::Diagnostic::error(
+                None,
+                "no top module: every module is instantiated by another",
+            ));
+            None
+        }
+        _ => {
+            let all: Vec<&str> = cands.iter().map(|m| names.name(m.name)).collect();
+            let p = cands[1].pos;
+            e.error_help(
+                p,
+                format!("several modules could be the top: {}", all.join(", ")),
+                "name the top module (`--ref-top` / `--cand-top` in `prove`)",
+            );
+            None
+        }
+    }
+}
+
+/// Elaborate module `m` as an instance with hierarchical `prefix`; returns its scope.
+pub fn elab_instance<'a>(
+    e: &mut Elab<'a>,
+    m: &'a Module,
+    prefix: String,
+    overrides: Vec<(Which, Val, Pos)>,
+    pos: Pos,
+) -> u32 {
+    let idx = e
+        .module_list
+        .iter()
+        .position(|x| std::ptr::eq(*x, m))
+        .unwrap_or(0) as u32;
+    let sc = e.new_scope(None, prefix, idx);
+    if e.hier.contains(&m.name) {
+        let n = e.name(m.name);
+        e.error(pos, format!("recursive instantiation of module `{n}`"));
+        return sc;
+    }
+    if e.hier.len() >= super::MAX_HIER {
+        e.error(
+            pos,
+            format!("instance hierarchy deeper than {} levels", super::MAX_HIER),
+        );
+        return sc;
+    }
+    e.hier.push(m.name);
+    let mut ov = overrides;
+    e.elab_items(sc, &m.items, m, Some(&mut ov), true);
+    for (w, _, p) in ov {
+        let mn = e.name(m.name);
+        let msg = match w {
+            Which::Named(s) => format!("module `{mn}` has no parameter `{}`", e.name(s)),
+            Which::Nth(k) => format!("module `{mn}` has fewer than {} parameters", k + 1),
+        };
+        e.error(p, msg);
+    }
+    e.hier.pop();
+    sc
+}
+
+struct Merged<'m> {
+    dir: Option<Dir>,
+    ty: Option<NetType>,
+    signed: bool,
+    range: Option<&'m Range>,
+    pos: Pos,
+}
+
+impl<'a> Elab<'a> {
+    fn range_bounds(&mut self, sc: u32, r: &Range) -> Option<(i64, i64)> {
+        let m = self.const_int(sc, &r.msb)?;
+        let l = self.const_int(sc, &r.lsb)?;
+        if (m - l).unsigned_abs() as usize >= super::MAX_WIDTH {
+            self.error(r.msb.pos(), "range wider than 2^20 bits");
+            return None;
+        }
+        Some((m, l))
+    }
+
+    fn param(
+        &mut self,
+        sc: u32,
+        pd: &ParamDecl,
+        overrides: &mut Option<&mut Vec<(Which, Val, Pos)>>,
+        nth: &mut usize,
+    ) {
+        for (name, pos, ex) in &pd.assigns {
+            let mut val = None;
+            if !pd.local {
+                if let Some(ov) = overrides.as_deref_mut() {
+                    if let Some(k) = ov.iter().position(|(w, _, _)| match w {
+                        Which::Named(s) => s == name,
+                        Which::Nth(k) => *k == *nth,
+                    }) {
+                        val = Some(ov.remove(k).1);
+                    }
+                }
+                *nth += 1;
+            }
+            let v = match val.or_else(|| self.const_val(sc, ex)) {
+                Some(v) => v,
+                None => Val {
+                    bits: vec![Lit::FALSE; 32],
+                    signed: true,
+                },
+            };
+            let (v, msb, lsb) = if pd.integer {
+                (
+                    Val {
+                        bits: extend(v.bits, 32, v.signed),
+                        signed: true,
+                    },
+                    31,
+                    0,
+                )
+            } else if let Some(r) = &pd.range {
+                match self.range_bounds(sc, r) {
+                    Some((m, l)) => {
+                        let w = (m - l).unsigned_abs() as usize + 1;
+                        (
+                            Val {
+                                bits: extend(v.bits, w, v.signed),
+                                signed: pd.signed,
+                            },
+                            m,
+                            l,
+                        )
+                    }
+                    None => (v, 0, 0),
+                }
+            } else {
+                let w = v.bits.len() as i64;
+                (
+                    Val {
+                        bits: v.bits,
+                        signed: v.signed || pd.signed,
+                    },
+                    w - 1,
+                    0,
+                )
+            };
+            if self.scopes[sc as usize].syms.contains_key(name) {
+                let n = self.name(*name);
+                self.error(*pos, format!("`{n}` is declared twice"));
+                continue;
+            }
+            self.scopes[sc as usize]
+                .syms
+                .insert(*name, Symbol::Param(Box::new((v, msb, lsb))));
+        }
+    }
+
+    /// Elaborate the items of a module or generate block in scope `sc`.
+    pub(super) fn elab_items(
+        &mut self,
+        sc: u32,
+        items: &'a [Item],
+        m: &'a Module,
+        mut overrides: Option<&mut Vec<(Which, Val, Pos)>>,
+        is_module: bool,
+    ) {
+        // A: parameters and genvars, in order.
+        let mut nth = 0;
+        for it in items {
+            match it {
+                Item::Param(pd) => self.param(sc, pd, &mut overrides, &mut nth),
+                Item::Genvar(v) => {
+                    for (s, _) in v {
+                        self.scopes[sc as usize]
+                            .syms
+                            .insert(*s, Symbol::Genvar(None));
+                    }
+                }
+                _ => {}
+            }
+        }
+        // B: declarations, merged per name (`output y; reg y;`).
+        let mut order: Vec<Sym> = Vec::new();
+        let mut merged: super::super::fasthash::FastMap<Sym, Merged> = Default::default();
+        let mut inits: Vec<(Sym, Pos, &Expr)> = Vec::new();
+        for it in items {
+            if let Item::Decl(d) = it {
+                self.merge_decl(sc, d, &mut order, &mut merged, &mut inits);
+            }
+        }
+        let ports: HashSet<Sym> = m.ports.iter().map(|p| p.0).collect();
+        for s in order {
+            let md = &merged[&s];
+            let (msb, lsb, vector) = if md.ty == Some(NetType::Integer) {
+                (31, 0, true)
+            } else if let Some(r) = md.range {
+                match self.range_bounds(sc, r) {
+                    Some((a, b)) => (a, b, true),
+                    None => (0, 0, false),
+                }
+            } else {
+                (0, 0, false)
+            };
+            if md.dir.is_some() && (!is_module || !ports.contains(&s)) {
+                let n = self.name(s);
+                self.error(
+                    md.pos,
+                    format!("`{n}` is declared as a port but is not in the module's port list"),
+                );
+            }
+            let signed = md.signed || md.ty == Some(NetType::Integer);
+            self.add_net(
+                sc,
+                s,
+                msb,
+                lsb,
+                vector,
+                signed,
+                md.ty.unwrap_or(NetType::Wire),
+                md.dir,
+                md.pos,
+            );
+        }
+        // C: implicit one-bit wires for names first seen in a port, gate terminal or on the
+        // left of a continuous assignment.
+        if !m.nettype_none {
+            for it in items {
+                let exprs: Vec<&Expr> = match it {
+                    Item::Gate(_, _, t, _) => t.iter().collect(),
+                    Item::Assign(a, _) => vec![&a.0],
+                    Item::Inst(i) => match &i.conns {
+                        Conns::Named(v) => v.iter().filter_map(|c| c.2.as_ref()).collect(),
+                        Conns::Ordered(v) => v.iter().flatten().collect(),
+                    },
+                    _ => Vec::new(),
+                };
+                for ex in exprs {
+                    if let Expr::Ident(s, p) = ex {
+                        if self.lookup(sc, *s).is_none() {
+                            self.add_net(sc, *s, 0, 0, false, false, NetType::Wire, None, *p);
+                        }
+                    }
+                }
+            }
+        }
+        // D: logic.
+        for (s, p, ex) in inits {
+            self.cont_assign(sc, &Expr::Ident(s, p), ex, p);
+        }
+        let mut genblk = 0;
+        for it in items {
+            match it {
+                Item::Assign(a, p) => self.cont_assign(sc, &a.0, &a.1, *p),
+                Item::Gate(k, _, t, p) => self.gate(sc, *k, t, *p),
+                Item::Inst(i) => self.instance(sc, i),
+                Item::Always(b, p) => self.elab_always(sc, b, *p),
+                Item::GenFor(g) => {
+                    genblk += 1;
+                    self.gen_for(sc, g, m, genblk);
+                }
+                Item::GenIf(g, _) => {
+                    let (c, a, b) = &**g;
+                    genblk += 1;
+                    let cv = self.const_val(sc, c).map(|v| v.bits.contains(&Lit::TRUE));
+                    if let Some(cv) = cv {
+                        let prefix = format!("{}genblk{genblk}.", self.scopes[sc as usize].prefix);
+                        let child =
+                            self.new_scope(Some(sc), prefix, self.scopes[sc as usize].module);
+                        self.elab_items(child, if cv { a } else { b }, m, None, false);
+                    }
+                }
+                _ => {}
+            }
+        }
+    }
+
+    fn merge_decl<'m>(
+        &mut self,
+        sc: u32,
+        d: &'m Decl,
+        order: &mut Vec<Sym>,
+        merged: &mut super::super::fasthash::FastMap<Sym, Merged<'m>>,
+        inits: &mut Vec<(Sym, Pos, &'m Expr)>,
+    ) {
+        for (s, p, init) in &d.names {
+            if let Some(e) = init {
+                inits.push((*s, *p, e));
+            }
+            if self.scopes[sc as usize].syms.contains_key(s) {
+                let n = self.name(*s);
+                self.error(*p, format!("`{n}` is declared twice"));
+                continue;
+            }
+            match merged.get_mut(s) {
+                None => {
+                    order.push(*s);
+                    merged.insert(
+                        *s,
+                        Merged {
+                            dir: d.dir,
+                            ty: d.ty,
+                            signed: d.signed,
+                            range: d.range.as_ref(),
+                            pos: *p,
+                        },
+                    );
+                }
+                Some(md) => {
+                    let n = self.name(*s);
+                    let clash = (md.dir.is_some() && d.dir.is_some())
+                        || (md.ty.is_some() && d.ty.is_some());
+                    if clash {
+                        self.error(*p, format!("`{n}` is declared twice"));
+                        continue;
+                    }
+                    if let (Some(a), Some(b)) = (md.range, d.range.as_ref()) {
+                        let ra = self.range_bounds(sc, a);
+                        let rb = self.range_bounds(sc, b);
+                        if ra != rb {
+                            self.error(
+                                *p,
+                                format!("`{n}` is declared again with a different range"),
+                            );
+                        }
+                    }
+                    md.dir = md.dir.or(d.dir);
+                    md.ty = md.ty.or(d.ty);
+                    md.signed |= d.signed;
+                    md.range = md.range.or(d.range.as_ref());
+                }
+            }
+        }
+    }
+
+    /// `assign lhs = rhs;`
+    pub(super) fn cont_assign(&mut self, sc: u32, lhs: &Expr, rhs: &Expr, pos: Pos) {
+        let cx = Cx::new(sc);
+        let t = match self.targets(&cx, lhs, false) {
+            Some(t) => t,
+            None => return,
+        };
+        let ty = self.ty(&cx, rhs);
+        let w = t.len().max(ty.w);
+        let v = self.eval(&cx, rhs, w, ty.s);
+        for (k, (n, off)) in t.into_iter().enumerate() {
+            if let Some(off) = off {
+                self.drive(n, off, v[k], pos);
+            }
+        }
+    }
+
+    fn gate(&mut self, sc: u32, kind: GateKind, terms: &[Expr], pos: Pos) {
+        if terms.len() < 2 {
+            self.error(
+                pos,
+                "a gate needs an output and at least one input terminal",
+            );
+            return;
+        }
+        let (outs, ins) = match kind {
+            GateKind::Not | GateKind::Buf => terms.split_at(terms.len() - 1),
+            _ => terms.split_at(1),
+        };
+        let cx = Cx::new(sc);
+        let mut lits = Vec::with_capacity(ins.len());
+        for t in ins {
+            // Plain net names (the common case in netlists) skip the width computation.
+            let v = match t {
+                Expr::Ident(s, _) => match self.lookup(sc, *s) {
+                    Some(Symbol::Net(n)) => {
+                        let n = *n;
+                        Val {
+                            bits: self.net_bits(n),
+                            signed: false,
+                        }
+                    }
+                    _ => self.eval_self(&cx, t),
+                },
+                _ => self.eval_self(&cx, t),
+            };
+            if v.bits.len() != 1 {
+                self.error(
+                    t.pos(),
+                    format!(
+                        "gate terminal is {} bits wide; gate terminals must be 1 bit",
+                        v.bits.len()
+                    ),
+                );
+            }
+            lits.push(v.bits.first().copied().unwrap_or(Lit::FALSE));
+        }
+        let g = &mut self.g;
+        let (cell, out) = match kind {
+            GateKind::And => (CellKind::And, g.and_all(&lits)),
+            GateKind::Nand => (CellKind::Nand, !g.and_all(&lits)),
+            GateKind::Or => (CellKind::Or, g.or_all(&lits)),
+            GateKind::Nor => (CellKind::Nor, !g.or_all(&lits)),
+            GateKind::Xor => (CellKind::Xor, g.xor_all(&lits)),
+            GateKind::Xnor => (CellKind::Xnor, !g.xor_all(&lits)),
+            GateKind::Not => (CellKind::Not, !lits[0]),
+            GateKind::Buf => (CellKind::Buf, lits[0]),
+        };
+        for o in outs {
+            let t = match self.targets(&cx, o, false) {
+                Some(t) => t,
+                None => continue,
+            };
+            if t.len() != 1 {
+                self.error(
+                    o.pos(),
+                    format!(
+                        "gate output terminal is {} bits wide; gate terminals must be 1 bit",
+                        t.len()
+                    ),
+                );
+                continue;
+            }
+            if let (n, Some(off)) = t[0] {
+                self.drive(n, off, out, pos);
+                let leaf = self.nets[n as usize].first + off;
+                self.gates.push(GateRec {
+                    kind: cell,
+                    ins: lits.clone(),
+                    out: leaf,
+                    pos,
+                });
+            }
+        }
+    }
+
+    fn instance(&mut self, sc: u32, inst: &'a Instance) {
+        let m = match self.modules.get(&inst.module) {
+            Some(m) => *m,
+            None => {
+                let n = self.name(inst.module);
+                self.error_help(
+                    inst.pos,
+                    format!("unknown module `{n}`"),
+                    "give the file that defines it on the command line",
+                );
+                return;
+            }
+        };
+        let mname = self.name(m.name);
+        let iname = self.name(inst.name);
+        let mut overrides = Vec::new();
+        match &inst.params {
+            Some(Conns::Named(v)) => {
+                for (s, p, ex) in v {
+                    if let Some(ex) = ex {
+                        if let Some(val) = self.const_val(sc, ex) {
+                            overrides.push((Which::Named(*s), val, *p));
+                        }
+                    }
+                }
+            }
+            Some(Conns::Ordered(v)) => {
+                for (k, ex) in v.iter().enumerate() {
+                    if let Some(ex) = ex {
+                        if let Some(val) = self.const_val(sc, ex) {
+                            overrides.push((Which::Nth(k), val, ex.pos()));
+                        }
+                    }
+                }
+            }
+            None => {}
+        }
+        let prefix = format!("{}{}.", self.scopes[sc as usize].prefix, iname);
+        let child = elab_instance(self, m, prefix, overrides, inst.pos);
+        // Connections by port index.
+        let mut conn: Vec<Option<&Expr>> = vec![None; m.ports.len()];
+        let mut seen = vec![false; m.ports.len()];
+        match &inst.conns {
+            Conns::Named(v) => {
+                for (s, p, ex) in v {
+                    match m.ports.iter().position(|q| q.0 == *s) {
+                        Some(k) => {
+                            if seen[k] {
+                                self.error(
+                                    *p,
+                                    format!("port `{}` is connected twice", self.name(*s)),
+                                );
+                            }
+                            seen[k] = true;
+                            conn[k] = ex.as_ref();
+                        }
+                        None => self.error(
+                            *p,
+                            format!("module `{mname}` has no port `{}`", self.name(*s)),
+                        ),
+                    }
+                }
+            }
+            Conns::Ordered(v) => {
+                if v.len() > m.ports.len() && !(v.len() == 1 && v[0].is_none()) {
+                    self.error(inst.pos, format!("instance `{iname}` has {} connections but module `{mname}` has {} ports", v.len(), m.ports.len()));
+                }
+                for (k, ex) in v.iter().enumerate().take(m.ports.len()) {
+                    conn[k] = ex.as_ref();
+                    seen[k] = true;
+                }
+            }
+        }
+        let cx = Cx::new(sc);
+        for (k, (ps, _)) in m.ports.iter().enumerate() {
+            let pn = self.name(*ps);
+            let n = match self.scopes[child as usize].syms.get(ps) {
+                Some(Symbol::Net(n)) => *n,
+                _ => {
+                    self.error(
+                        inst.pos,
+                        format!("port `{pn}` of module `{mname}` has no declaration"),
+                    );
+                    continue;
+                }
+            };
+            let net = self.nets[n as usize].clone();
+            let ex = match conn[k] {
+                Some(ex) => ex,
+                None => {
+                    if net.dir == Some(Dir::Input) {
+                        self.warn(
+                            inst.pos,
+                            format!("input port `{pn}` of instance `{iname}` is not connected"),
+                        );
+                    }
+                    continue;
+                }
+            };
+            let pw = net.width as usize;
+            match net.dir {
+                Some(Dir::Input) => {
+                    let t = self.ty(&cx, ex);
+                    let v = self.eval(&cx, ex, pw.max(t.w), t.s);
+                    if t.w != pw {
+                        self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected expression is {} bits", t.w));
+                    }
+                    for (off, &l) in v.iter().enumerate().take(pw) {
+                        self.drive(n, off as u32, l, ex.pos());
+                    }
+                }
+                Some(Dir::Output) => {
+                    let t = match self.targets(&cx, ex, false) {
+                        Some(t) => t,
+                        None => continue,
+                    };
+                    if t.len() != pw {
+                        self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected net is {} bits", t.len()));
+                    }
+                    let v = extend(self.net_bits(n), t.len().max(pw), net.signed);
+                    for (j, (tn, off)) in t.into_iter().enumerate() {
+                        if let Some(off) = off {
+                            self.drive(tn, off, v[j], ex.pos());
+                        }
+                    }
+                }
+                None => self.error(
+                    net.pos,
+                    format!(
+                        "port `{pn}` of module `{mname}` has no `input` or `output` declaration"
+                    ),
+                ),
+            }
+        }
+    }
+
+    fn gen_for(&mut self, sc: u32, g: &'a super::super::ast::GenFor, m: &'a Module, genblk: usize) {
+        let var = g.init.0;
+        if !matches!(self.lookup(sc, var), Some(Symbol::Genvar(_))) {
+            let n = self.name(var);
+            self.error(
+                g.init.1,
+                format!("loop variable `{n}` of a generate loop must be declared `genvar`"),
+            );
+            return;
+        }
+        let mut v = match self.const_int(sc, &g.init.2) {
+            Some(v) => v,
+            None => return,
+        };
+        let blk = match g.name {
+            Some(n) => self.name(n).to_string(),
+            None => format!("genblk{genblk}"),
+        };
+        let mut count = 0;
+        loop {
+            let prefix = format!("{}{blk}[{v}].", self.scopes[sc as usize].prefix);
+            let child = self.new_scope(Some(sc), prefix, self.scopes[sc as usize].module);
+            let gv = Val {
+                bits: bits::constant(v, 32),
+                signed: true,
+            };
+            self.scopes[child as usize]
+                .syms
+                .insert(var, Symbol::Genvar(Some(gv)));
+            let c = match self.const_val(child, &g.cond) {
+                Some(c) => c.bits.contains(&Lit::TRUE),
+                None => return,
+            };
+            if !c {
+                return;
+            }
+            count += 1;
+            if count > super::MAX_LOOP {
+                self.error(
+                    g.pos,
+                    format!(
+                        "generate loop runs more than {} iterations",
+                        super::MAX_LOOP
+                    ),
+                );
+                return;
+            }
+            let before = self.errors.len();
+            self.elab_items(child, &g.items, m, None, false);
+            v = match self.const_int(child, &g.step.2) {
+                Some(nv) => nv,
+                None => return,
+            };
+            if self.errors.len() > before + 20 {
+                return;
+            }
+        }
+    }
+}

@@ -1,0 +1,369 @@
+//! From drivers to the design: walks from the top's output bits back through each net bit's
+//! driver (an explicit stack, so a million-gate chain is fine), builds the design's AIG,
+//! creates unknown-value inputs on first use, reports undriven nets and combinational
+//! loops, and derives the gate-level netlist.
+
+use super::super::ast::{Dir, Module};
+use super::{Elab, Symbol, UNKNOWN_BIT};
+use crate::aig::{Aig, Lit, Node};
+use crate::design::{bit_name, Cell, Design, Format, InputBit, InputKind, Netlist, OutputBit};
+use std::collections::{BTreeSet, HashMap, HashSet};
+
+const NONE: u32 = u32::MAX;
+
+struct Resolver {
+    f: Aig,
+    memo: Vec<u32>,
+    busy: Vec<bool>,
+    primary: HashMap<u32, Lit>,
+    inputs: Vec<InputBit>,
+    used_names: HashSet<String>,
+    undriven: BTreeSet<u32>,
+}
+
+impl Resolver {
+    fn map(&self, l: Lit) -> Lit {
+        let m = self.memo[l.index()];
+        let base = if m == NONE {
+            Lit::FALSE
+        } else {
+            Lit::from_raw(m)
+        };
+        base.xor_complement(l.is_complemented())
+    }
+}
+
+impl Elab<'_> {
+    fn resolve(&mut self, r: &mut Resolver, root: Lit) -> Lit {
+        let mut stack = vec![root.node()];
+        while let Some(&n) = stack.last() {
+            let ni = n as usize;
+            if r.memo[ni] != NONE {
+                stack.pop();
+                continue;
+            }
+            match self.g.node(n) {
+                Node::Const => {
+                    r.memo[ni] = Lit::FALSE.raw();
+                    stack.pop();
+                }
+                Node::And(a, b) => {
+                    let mut pushed = false;
+                    for c in [a, b] {
+                        if r.memo[c.index()] == NONE {
+                            if r.busy[c.index()] {
+                                self.report_loop(r, &stack, c.node());
+                                r.memo[c.index()] = Lit::FALSE.raw();
+                            } else {
+                                stack.push(c.node());
+                                pushed = true;
+                            }
+                        }
+                    }
+                    if !pushed {
+                        let v = r.f.and(r.map(a), r.map(b));
+                        r.memo[ni] = v.raw();
+                        stack.pop();
+                    }
+                }
+                Node::Input(k) => {
+                    let o = self.owner[k as usize];
+                    if o & UNKNOWN_BIT != 0 {
+                        let lit = self.new_unknown(r, (o & !UNKNOWN_BIT) as usize);
+                        r.memo[ni] = lit.raw();
+                        stack.pop();
+                    } else if let Some(&p) = r.primary.get(&k) {
+                        r.memo[ni] = p.raw();
+                        stack.pop();
+                    } else if let Some(d) = self.drivers[k as usize] {
+                        if !r.busy[ni] {
+                            r.busy[ni] = true;
+                            let c = d.lit.index();
+                            if r.memo[c] == NONE {
+                                if r.busy[c] {
+                                    self.report_loop(r, &stack, d.lit.node());
+                                    r.memo[c] = Lit::FALSE.raw();
+                                } else {
+                                    stack.push(d.lit.node());
+                                    continue;
+                                }
+                            }
+                        }
+                        r.memo[ni] = r.map(d.lit).raw();
+                        r.busy[ni] = false;
+                        stack.pop();
+                    } else {
+                        r.undriven.insert(o);
+                        r.memo[ni] = Lit::FALSE.raw();
+                        stack.pop();
+                    }
+                }
+            }
+        }
+        r.map(root)
+    }
+
+    fn report_loop(&mut self, r: &Resolver, stack: &[u32], back: u32) {
+        let start = stack.iter().rposition(|&n| n == back).unwrap_or(0);
+        let mut names = Vec::new();
+        let mut pos = None;
+        for &n in &stack[start..] {
+            if let Node::Input(k) = self.g.node(n) {
+                if r.busy[n as usize] && self.owner[k as usize] & UNKNOWN_BIT == 0 {
+                    let nm = self.leaf_name(k);
+                    if !names.contains(&nm) {
+                        names.push(nm);
+                    }
+                    if pos.is_none() {
+                        pos = self.drivers[k as usize].map(|d| d.pos);
+                    }
+                }
+            }
+        }
+        let shown = if names.len() > 12 {
+            format!("{}, ... ({} nets)", names[..12].join(", "), names.len())
+        } else {
+            names.join(", ")
+        };
+        let msg = format!("combinational loop through {shown}");
+        match pos {
+            Some(p) => self.error_help(p, msg, "break the loop: a net must not depend on itself"),
+            None => self.errors.push(crate::diag::Diagnostic::error(None, msg)),
+        }
+    }
+
+    fn new_unknown(&mut self, r: &mut Resolver, u: usize) -> Lit {
+        let info = self.unknowns[u].clone();
+        let sp = self.spos(info.pos);
+        let prefix = &self.scopes[info.scope as usize].prefix;
+        let mut port = format!("{prefix}x@{}:{}:{}", sp.file, sp.line, sp.col);
+        let mut k = 1;
+        while r
+            .used_names
+            .contains(&bit_name(&port, Some(info.bit as i64)))
+        {
+            k += 1;
+            port = format!("{prefix}x@{}:{}:{}#{k}", sp.file, sp.line, sp.col);
+        }
+        let name = bit_name(&port, Some(info.bit as i64));
+        r.used_names.insert(name.clone());
+        let lit = r.f.add_input();
+        r.inputs.push(InputBit {
+            name,
+            port,
+            index: Some(info.bit as i64),
+            kind: InputKind::Unknown {
+                pos: sp.clone(),
+                what: info.what,
+            },
+            pos: Some(sp),
+        });
+        lit
+    }
+}
+
+/// Build the design of top module `m` (elaborated in scope `sc`).
+pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
+    let mut r = Resolver {
+        f: Aig::new(),
+        memo: Vec::new(),
+        busy: Vec::new(),
+        primary: HashMap::new(),
+        inputs: Vec::new(),
+        used_names: HashSet::new(),
+        undriven: BTreeSet::new(),
+    };
+    let mut outs: Vec<u32> = Vec::new();
+    for (ps, ppos) in &m.ports {
+        let n = match e.scopes[sc as usize].syms.get(ps) {
+            Some(Symbol::Net(n)) => *n,
+            _ => {
+                let pn = e.name(*ps);
+                e.error(*ppos, format!("port `{pn}` has no declaration"));
+                continue;
+            }
+        };
+        let net = e.nets[n as usize].clone();
+        match net.dir {
+            Some(Dir::Input) => {
+                for off in 0..net.width {
+                    let leaf = net.first + off;
+                    if let Some(d) = e.drivers[leaf as usize] {
+                        let pn = e.net_name(n);
+                        e.error(
+                            d.pos,
+                            format!("input port `{pn}` is driven inside the module"),
+                        );
+                    }
+                    let lit = r.f.add_input();
+                    r.primary.insert(leaf, lit);
+                    let idx = net.vector.then(|| net.index(off));
+                    let pn = e.net_name(n);
+                    r.used_names.insert(bit_name(&pn, idx));
+                    r.inputs
+                        .push(InputBit::port(&pn, idx, Some(e.spos(net.pos))));
+                }
+            }
+            Some(Dir::Output) => outs.push(n),
+            None => {
+                let pn = e.name(*ps);
+                e.error(
+                    *ppos,
+                    format!("port `{pn}` has no `input` or `output` declaration"),
+                );
+            }
+        }
+    }
+    r.memo = vec![NONE; e.g.len()];
+    r.busy = vec![false; e.g.len()];
+    let mut outputs = Vec::new();
+    for n in outs {
+        let net = e.nets[n as usize].clone();
+        let pn = e.net_name(n);
+        let mut undriven = false;
+        for off in 0..net.width {
+            let leaf = net.first + off;
+            if e.drivers[leaf as usize].is_none() && !r.primary.contains_key(&leaf) {
+                undriven = true;
+            }
+            let root = e.g.input_lit(leaf as usize);
+            let lit = e.resolve(&mut r, root);
+            let idx = net.vector.then(|| net.index(off));
+            outputs.push(OutputBit::new(&pn, idx, lit, Some(e.spos(net.pos))));
+        }
+        if undriven {
+            e.error_help(
+                net.pos,
+                format!("output `{pn}` is not driven (some or all of its bits)"),
+                "assign every bit of the output",
+            );
+            r.undriven.remove(&n);
+        }
+    }
+    for n in std::mem::take(&mut r.undriven) {
+        let net = &e.nets[n as usize];
+        let nm = e.net_name(n);
+        let (pos, inport) = (net.pos, net.dir == Some(Dir::Input) && net.scope != sc);
+        if inport {
+            e.error_help(
+                pos,
+                format!("input port `{nm}` is not connected but its value is used"),
+                "connect the port in the instance",
+            );
+        } else {
+            e.error_help(
+                pos,
+                format!("`{nm}` is used but never driven (some or all of its bits)"),
+                "assign it, or connect it to a driver",
+            );
+        }
+    }
+    let netlist = netlist(e, &r, &outputs_leaves(e, m, sc));
+    let name = e.name(m.name).to_string();
+    let d = Design {
+        name,
+        format: Format::Verilog,
+        aig: r.f,
+        inputs: r.inputs,
+        outputs,
+        netlist: Some(netlist),
+        warnings: std::mem::take(&mut e.warnings),
+    };
+    if e.errors.is_empty() {
+        d.debug_check();
+    }
+    d
+}
+
+fn outputs_leaves(e: &Elab, m: &Module, sc: u32) -> Vec<u32> {
+    let mut v = Vec::new();
+    for (ps, _) in &m.ports {
+        if let Some(Symbol::Net(n)) = e.scopes[sc as usize].syms.get(ps) {
+            let net = &e.nets[*n as usize];
+            if net.dir == Some(Dir::Output) {
+                v.extend(net.first..net.first + net.width);
+            }
+        }
+    }
+    v
+}
+
+/// The gate-level netlist: one signal per net bit after merging plain connections
+/// (port connections, `assign a = b;`).
+fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
+    let nleaves = e.owner.len();
+    let mut gate_out = vec![false; nleaves];
+    for gr in &e.gates {
+        gate_out[gr.out as usize] = true;
+    }
+    let as_leaf = |l: Lit| -> Option<u32> {
+        if l.is_complemented() {
+            return None;
+        }
+        match e.g.node(l.node()) {
+            Node::Input(k) if e.owner[k as usize] & UNKNOWN_BIT == 0 => Some(k),
+            _ => None,
+        }
+    };
+    let rep = |mut k: u32| -> u32 {
+        for _ in 0..nleaves {
+            if gate_out[k as usize] {
+                return k;
+            }
+            match e.drivers[k as usize].and_then(|d| as_leaf(d.lit)) {
+                Some(next) if next != k => k = next,
+                _ => return k,
+            }
+        }
+        k
+    };
+    let mut complete = r.inputs.iter().all(|b| !b.is_unknown());
+    let mut sig: HashMap<u32, u32> = HashMap::new();
+    let mut nl = Netlist::default();
+    let mut signal = |k: u32, nl: &mut Netlist| -> u32 {
+        let k = rep(k);
+        *sig.entry(k).or_insert_with(|| {
+            nl.signals.push(e.leaf_name(k));
+            (nl.signals.len() - 1) as u32
+        })
+    };
+    for &k in r.primary.keys().collect::<BTreeSet<_>>() {
+        let s = signal(k, &mut nl);
+        nl.inputs.push(s);
+    }
+    for &k in outs {
+        let s = signal(k, &mut nl);
+        nl.outputs.push(s);
+    }
+    for gr in &e.gates {
+        let ins: Option<Vec<u32>> = gr.ins.iter().map(|&l| as_leaf(l)).collect();
+        match ins {
+            Some(ins) => {
+                let inputs = ins.into_iter().map(|k| signal(k, &mut nl)).collect();
+                let output = signal(gr.out, &mut nl);
+                nl.cells.push(Cell {
+                    kind: gr.kind,
+                    inputs,
+                    output,
+                    pos: Some(e.spos(gr.pos)),
+                });
+            }
+            None => complete = false,
+        }
+    }
+    // Every reached net bit must be a port input, a gate output or a plain connection.
+    for (k, d) in e.drivers.iter().enumerate() {
+        let node = e.g.input_lit(k).index();
+        if r.memo[node] == NONE || e.owner[k] & UNKNOWN_BIT != 0 {
+            continue;
+        }
+        if let Some(d) = d {
+            if !gate_out[k] && as_leaf(d.lit).is_none() {
+                complete = false;
+                break;
+            }
+        }
+    }
+    nl.complete = complete;
+    nl
+}

@@ -1,0 +1,195 @@
+//! Bit selects and part selects, constant and variable. A select that may read outside the
+//! declared range reads an unknown-value input on exactly the out-of-range index values.
+
+use super::super::ast::Select;
+use super::super::lexer::Pos;
+use super::bits::{self, extend};
+use super::expr::Cx;
+use super::Elab;
+use crate::aig::Lit;
+
+impl Elab<'_> {
+    /// Offsets (0 = least significant bit) of declared index `i` for range `msb:lsb`.
+    fn off_of(msb: i64, lsb: i64, i: i64) -> i64 {
+        if msb >= lsb {
+            i - lsb
+        } else {
+            lsb - i
+        }
+    }
+
+    /// Evaluate a select of name `sym`: result bits, LSB first, unsigned.
+    pub(super) fn eval_select(
+        &mut self,
+        cx: &Cx,
+        sym: super::Sym,
+        pos: Pos,
+        sel: &Select,
+    ) -> Vec<Lit> {
+        let width_hint = self
+            .ty(
+                cx,
+                &super::super::ast::Expr::Index(sym, pos, Box::new(sel.clone())),
+            )
+            .w;
+        let o = match self.operand(cx, sym, pos) {
+            Some(o) => o,
+            None => return vec![Lit::FALSE; width_hint],
+        };
+        let data = o.val.bits;
+        let (msb, lsb) = (o.msb, o.lsb);
+        let n = data.len() as i64;
+        let desc = msb >= lsb;
+        let nm = self.name(sym);
+        match sel {
+            Select::Part(m, l) => {
+                let (m, l) = match (self.const_int(cx.sc, m), self.const_int(cx.sc, l)) {
+                    (Some(m), Some(l)) => (m, l),
+                    _ => return vec![Lit::FALSE; width_hint],
+                };
+                if (m > l) != desc && m != l && n > 1 {
+                    self.error(pos, format!("part-select `{nm}[{m}:{l}]` is in the opposite direction to the declaration `[{msb}:{lsb}]`"));
+                    return vec![Lit::FALSE; width_hint];
+                }
+                let w = (m - l).unsigned_abs() as usize + 1;
+                let base = Self::off_of(msb, lsb, l).min(Self::off_of(msb, lsb, m));
+                let what = format!("out-of-range part-select {nm}[{m}:{l}]");
+                self.const_window(cx, &data, base, w, pos, &what)
+            }
+            Select::Bit(i) => {
+                let iv = self.eval_self(cx, i);
+                if let Some(k) = bits::to_i64(&iv.bits, iv.signed) {
+                    let what = format!("out-of-range bit-select {nm}[{k}]");
+                    return self.const_window(cx, &data, Self::off_of(msb, lsb, k), 1, pos, &what);
+                }
+                if cx.constant {
+                    self.error(pos, "select index is not constant");
+                    return vec![Lit::FALSE];
+                }
+                // Offset = i - lsb (descending) or lsb - i (ascending), computed exactly.
+                let off = self.offset_vec(&iv.bits, iv.signed, if desc { -lsb } else { lsb }, desc);
+                let what = format!("out-of-range bit-select {nm}[...]");
+                self.dyn_window(cx, &data, &off, 1, pos, &what)
+            }
+            Select::Up(b, wd) | Select::Down(b, wd) => {
+                let up = matches!(sel, Select::Up(..));
+                let w = match self.const_int(cx.sc, wd) {
+                    Some(w) if w > 0 && w as usize <= super::MAX_WIDTH => w,
+                    Some(_) => {
+                        self.error(
+                            wd.pos(),
+                            "indexed part-select width must be a positive constant",
+                        );
+                        return vec![Lit::FALSE];
+                    }
+                    None => return vec![Lit::FALSE; width_hint],
+                };
+                // Offset of the least significant selected bit, as a function of the base b:
+                // descending: up b-lsb, down b-w+1-lsb; ascending: up lsb-b-w+1, down lsb-b.
+                let k = match (desc, up) {
+                    (true, true) => -lsb,
+                    (true, false) => -w + 1 - lsb,
+                    (false, true) => lsb - w + 1,
+                    (false, false) => lsb,
+                };
+                let bv = self.eval_self(cx, b);
+                let what = format!(
+                    "out-of-range indexed part-select {nm}[...{}{w}]",
+                    if up { "+:" } else { "-:" }
+                );
+                if let Some(bc) = bits::to_i64(&bv.bits, bv.signed) {
+                    let base = if desc { bc + k } else { k - bc };
+                    return self.const_window(cx, &data, base, w as usize, pos, &what);
+                }
+                if cx.constant {
+                    self.error(pos, "select index is not constant");
+                    return vec![Lit::FALSE; w as usize];
+                }
+                let off = self.offset_vec(&bv.bits, bv.signed, k, desc);
+                self.dyn_window(cx, &data, &off, w as usize, pos, &what)
+            }
+        }
+    }
+
+    /// Signed offset vector `i + k` (descending) or `k - i` (ascending), wide enough to be
+    /// exact.
+    fn offset_vec(&mut self, i: &[Lit], signed: bool, k: i64, desc: bool) -> Vec<Lit> {
+        let ww = i.len() + 66;
+        let iv = extend(i.to_vec(), ww, signed);
+        let kv = bits::constant(k, ww);
+        if desc {
+            bits::add(&mut self.g, &iv, &kv, Lit::FALSE)
+        } else {
+            bits::sub(&mut self.g, &kv, &iv)
+        }
+    }
+
+    /// `w` bits from offset `base` (constant); bits outside `data` are unknown.
+    fn const_window(
+        &mut self,
+        cx: &Cx,
+        data: &[Lit],
+        base: i64,
+        w: usize,
+        pos: Pos,
+        what: &str,
+    ) -> Vec<Lit> {
+        let n = data.len() as i64;
+        let outside = (0..w as i64)
+            .filter(|j| !(0..n).contains(&(base + j)))
+            .count();
+        let mut unk = if outside > 0 {
+            if cx.constant {
+                self.error(pos, format!("{what} in a constant expression"));
+                vec![Lit::FALSE; outside]
+            } else {
+                self.unknown_bits(outside, pos, what, cx.sc)
+            }
+        } else {
+            Vec::new()
+        }
+        .into_iter();
+        (0..w as i64)
+            .map(|j| {
+                let o = base + j;
+                if (0..n).contains(&o) {
+                    data[o as usize]
+                } else {
+                    unk.next().unwrap_or(Lit::FALSE)
+                }
+            })
+            .collect()
+    }
+
+    /// `w` bits from the symbolic signed offset `off`; an unknown input is read exactly when
+    /// a bit's offset falls outside `data`.
+    fn dyn_window(
+        &mut self,
+        cx: &Cx,
+        data: &[Lit],
+        off: &[Lit],
+        w: usize,
+        pos: Pos,
+        what: &str,
+    ) -> Vec<Lit> {
+        let n = data.len();
+        let k = (usize::BITS - (n.max(2) - 1).leading_zeros()) as usize;
+        let mut out = Vec::with_capacity(w);
+        for j in 0..w {
+            let oj = bits::add_const(&mut self.g, off, j as i64);
+            let neg = *oj.last().expect("offset has bits");
+            let nv = bits::constant(n as i64, oj.len());
+            let below = bits::ult(&mut self.g, &oj, &nv);
+            let valid = self.g.and(!neg, below);
+            let v = bits::mux_tree(&mut self.g, data, &oj[..k], Lit::FALSE);
+            let r = if valid == Lit::TRUE {
+                v
+            } else {
+                let u = self.unknown_bits(1, pos, what, cx.sc)[0];
+                self.g.mux(valid, v, u)
+            };
+            out.push(r);
+        }
+        out
+    }
+}

@@ -1,0 +1,660 @@
+//! The Verilog lexer: source text to tokens with positions, one token at a time (the parser
+//! keeps a small lookahead), so a million-gate netlist is never held as a token vector.
+
+use super::symbols::{Interner, Sym};
+
+/// A position: file number (index into the reader's source list), 1-based line and column.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Default, PartialOrd, Ord, Hash)]
+pub struct Pos {
+    /// Index of the source file.
+    pub file: u32,
+    /// 1-based line.
+    pub line: u32,
+    /// 1-based column, in characters.
+    pub col: u32,
+}
+
+/// One 4-state bit of a literal.
+pub const B0: u8 = 0;
+/// A one bit.
+pub const B1: u8 = 1;
+/// An `x` bit.
+pub const BX: u8 = 2;
+/// A `z` (or `?`) bit.
+pub const BZ: u8 = 3;
+
+/// A number literal, already sized: `bits.len() == width`, least significant bit first.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct NumLit {
+    /// Bits, LSB first; each one of [`B0`], [`B1`], [`BX`], [`BZ`].
+    pub bits: Vec<u8>,
+    /// Whether the literal is signed (unsized decimal, or an `'s` base).
+    pub signed: bool,
+    /// Whether a size was given.
+    pub sized: bool,
+    /// The text as written (for messages and unknown-input names).
+    pub text: Box<str>,
+}
+
+/// Punctuation and operators.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+#[allow(missing_docs)]
+pub enum P {
+    LParen,
+    RParen,
+    LBrack,
+    RBrack,
+    LBrace,
+    RBrace,
+    Comma,
+    Semi,
+    Colon,
+    Dot,
+    Hash,
+    At,
+    Assign,
+    Question,
+    Plus,
+    Minus,
+    Star,
+    Slash,
+    Percent,
+    Bang,
+    Tilde,
+    Amp,
+    Pipe,
+    Caret,
+    TildeAmp,
+    TildePipe,
+    TildeCaret,
+    CaretTilde,
+    AmpAmp,
+    PipePipe,
+    EqEq,
+    BangEq,
+    EqEqEq,
+    BangEqEq,
+    Lt,
+    Le,
+    Gt,
+    Ge,
+    Shl,
+    Shr,
+    AShl,
+    AShr,
+    Power,
+    PlusColon,
+    MinusColon,
+}
+
+/// A token kind.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum Tok {
+    /// An identifier or keyword.
+    Ident(Sym),
+    /// A system name such as `$signed`.
+    Sys(Sym),
+    /// A number.
+    Num(Box<NumLit>),
+    /// An operator or punctuation.
+    P(P),
+    /// A string literal (never part of the subset).
+    Str,
+    /// A real number (never part of the subset).
+    Real,
+    /// End of the file.
+    Eof,
+}
+
+/// A token with its position.
+#[derive(Clone, Debug)]
+pub struct Token {
+    /// What it is.
+    pub tok: Tok,
+    /// Where it starts.
+    pub pos: Pos,
+}
+
+/// The lexer over one file.
+pub struct Lexer<'s> {
+    src: &'s [u8],
+    i: usize,
+    line: u32,
+    col: u32,
+    file: u32,
+    /// Lexical errors found so far.
+    pub errors: Vec<(Pos, String)>,
+    /// Whether `` `default_nettype none`` is in force at the current point.
+    pub nettype_none: bool,
+}
+
+fn is_ident_start(c: u8) -> bool {
+    c.is_ascii_alphabetic() || c == b'_'
+}
+
+fn is_ident_char(c: u8) -> bool {
+    c.is_ascii_alphanumeric() || c == b'_' || c == b'$'
+}
+
+impl<'s> Lexer<'s> {
+    /// A lexer over `src`, which is file number `file`.
+    pub fn new(src: &'s str, file: u32) -> Lexer<'s> {
+        Lexer {
+            src: src.as_bytes(),
+            i: 0,
+            line: 1,
+            col: 1,
+            file,
+            errors: Vec::new(),
+            nettype_none: false,
+        }
+    }
+
+    fn pos(&self) -> Pos {
+        Pos {
+            file: self.file,
+            line: self.line,
+            col: self.col,
+        }
+    }
+
+    fn peek(&self, k: usize) -> u8 {
+        self.src.get(self.i + k).copied().unwrap_or(0)
+    }
+
+    fn bump(&mut self) {
+        if let Some(&c) = self.src.get(self.i) {
+            self.i += 1;
+            if c == b'\n' {
+                self.line += 1;
+                self.col = 1;
+            } else if c & 0xC0 != 0x80 {
+                self.col += 1;
+            }
+        }
+    }
+
+    fn err(&mut self, pos: Pos, msg: impl Into<String>) {
+        self.errors.push((pos, msg.into()));
+    }
+
+    /// Skip white space, comments, attributes and the directives that do not change logic.
+    fn skip_trivia(&mut self, names: &mut Interner) {
+        loop {
+            let c = self.peek(0);
+            if c == b' ' || c == b'\t' || c == b'\r' || c == b'\n' || c == 0x0C {
+                self.bump();
+            } else if c == b'/' && self.peek(1) == b'/' {
+                while self.i < self.src.len() && self.peek(0) != b'\n' {
+                    self.bump();
+                }
+            } else if c == b'/' && self.peek(1) == b'*' {
+                let p = self.pos();
+                self.bump();
+                self.bump();
+                loop {
+                    if self.i >= self.src.len() {
+                        self.err(p, "unterminated block comment");
+                        break;
+                    }
+                    if self.peek(0) == b'*' && self.peek(1) == b'/' {
+                        self.bump();
+                        self.bump();
+                        break;
+                    }
+                    self.bump();
+                }
+            } else if c == b'(' && self.peek(1) == b'*' && !self.star_closes_paren() {
+                // An attribute instance `(* ... *)`: it carries no logic.
+                let p = self.pos();
+                self.bump();
+                self.bump();
+                loop {
+                    if self.i >= self.src.len() {
+                        self.err(p, "unterminated attribute `(* ... *)`");
+                        break;
+                    }
+                    if self.peek(0) == b'*' && self.peek(1) == b')' {
+                        self.bump();
+                        self.bump();
+                        break;
+                    }
+                    self.bump();
+                }
+            } else if c == b'`' {
+                self.directive(names);
+            } else {
+                return;
+            }
+        }
+    }
+
+    /// After `(*`: whether the next non-blank character is `)` (the event control `@(*)`).
+    fn star_closes_paren(&self) -> bool {
+        let mut k = self.i + 2;
+        while k < self.src.len() && self.src[k].is_ascii_whitespace() {
+            k += 1;
+        }
+        self.src.get(k) == Some(&b')')
+    }
+
+    fn directive(&mut self, _names: &mut Interner) {
+        let p = self.pos();
+        self.bump();
+        let start = self.i;
+        while is_ident_char(self.peek(0)) {
+            self.bump();
+        }
+        let name = String::from_utf8_lossy(&self.src[start..self.i]).into_owned();
+        let line_start = self.i;
+        while self.i < self.src.len() && self.peek(0) != b'\n' {
+            self.bump();
+        }
+        let rest = String::from_utf8_lossy(&self.src[line_start..self.i]);
+        let rest = rest.split("//").next().unwrap_or("").trim().to_string();
+        match name.as_str() {
+            "timescale" | "resetall" | "celldefine" | "endcelldefine" => {}
+            "default_nettype" => match rest.as_str() {
+                "none" => self.nettype_none = true,
+                "wire" => self.nettype_none = false,
+                _ => self.err(p, format!("unsupported: `default_nettype {rest}")),
+            },
+            _ => self.err(p, format!("unsupported: compiler directive `{name}")),
+        }
+    }
+
+    /// The next token.
+    pub fn next_token(&mut self, names: &mut Interner) -> Token {
+        self.skip_trivia(names);
+        let pos = self.pos();
+        let c = self.peek(0);
+        if self.i >= self.src.len() {
+            return Token { tok: Tok::Eof, pos };
+        }
+        if is_ident_start(c) {
+            let start = self.i;
+            while is_ident_char(self.peek(0)) {
+                self.bump();
+            }
+            let s = std::str::from_utf8(&self.src[start..self.i]).unwrap_or("?");
+            return Token {
+                tok: Tok::Ident(names.intern(s)),
+                pos,
+            };
+        }
+        if c == b'\\' {
+            self.bump();
+            let start = self.i;
+            while self.i < self.src.len() && !self.peek(0).is_ascii_whitespace() {
+                self.bump();
+            }
+            let s = String::from_utf8_lossy(&self.src[start..self.i]).into_owned();
+            let sym = if names.get(&s).is_some_and(super::symbols::is_keyword) {
+                names.intern(&format!("\\{s}"))
+            } else {
+                names.intern(&s)
+            };
+            return Token {
+                tok: Tok::Ident(sym),
+                pos,
+            };
+        }
+        if c == b'$' {
+            let start = self.i;
+            self.bump();
+            while is_ident_char(self.peek(0)) {
+                self.bump();
+            }
+            let s = std::str::from_utf8(&self.src[start..self.i]).unwrap_or("$");
+            return Token {
+                tok: Tok::Sys(names.intern(s)),
+                pos,
+            };
+        }
+        if c.is_ascii_digit() || c == b'\'' {
+            return self.number(pos);
+        }
+        if c == b'"' {
+            self.bump();
+            while self.i < self.src.len() && self.peek(0) != b'"' && self.peek(0) != b'\n' {
+                if self.peek(0) == b'\\' {
+                    self.bump();
+                }
+                self.bump();
+            }
+            self.bump();
+            return Token { tok: Tok::Str, pos };
+        }
+        let three = [c, self.peek(1), self.peek(2)];
+        let (p, n) = match &three {
+            b"===" => (P::EqEqEq, 3),
+            b"!==" => (P::BangEqEq, 3),
+            b"<<<" => (P::AShl, 3),
+            b">>>" => (P::AShr, 3),
+            _ => match &three[..2] {
+                b"~&" => (P::TildeAmp, 2),
+                b"~|" => (P::TildePipe, 2),
+                b"~^" => (P::TildeCaret, 2),
+                b"^~" => (P::CaretTilde, 2),
+                b"&&" => (P::AmpAmp, 2),
+                b"||" => (P::PipePipe, 2),
+                b"==" => (P::EqEq, 2),
+                b"!=" => (P::BangEq, 2),
+                b"<=" => (P::Le, 2),
+                b">=" => (P::Ge, 2),
+                b"<<" => (P::Shl, 2),
+                b">>" => (P::Shr, 2),
+                b"**" => (P::Power, 2),
+                b"+:" => (P::PlusColon, 2),
+                b"-:" => (P::MinusColon, 2),
+                _ => match c {
+                    b'(' => (P::LParen, 1),
+                    b')' => (P::RParen, 1),
+                    b'[' => (P::LBrack, 1),
+                    b']' => (P::RBrack, 1),
+                    b'{' => (P::LBrace, 1),
+                    b'}' => (P::RBrace, 1),
+                    b',' => (P::Comma, 1),
+                    b';' => (P::Semi, 1),
+                    b':' => (P::Colon, 1),
+                    b'.' => (P::Dot, 1),
+                    b'#' => (P::Hash, 1),
+                    b'@' => (P::At, 1),
+                    b'=' => (P::Assign, 1),
+                    b'?' => (P::Question, 1),
+                    b'+' => (P::Plus, 1),
+                    b'-' => (P::Minus, 1),
+                    b'*' => (P::Star, 1),
+                    b'/' => (P::Slash, 1),
+                    b'%' => (P::Percent, 1),
+                    b'!' => (P::Bang, 1),
+                    b'~' => (P::Tilde, 1),
+                    b'&' => (P::Amp, 1),
+                    b'|' => (P::Pipe, 1),
+                    b'^' => (P::Caret, 1),
+                    b'<' => (P::Lt, 1),
+                    b'>' => (P::Gt, 1),
+                    _ => {
+                        let ch = std::str::from_utf8(&self.src[self.i..])
+                            .ok()
+                            .and_then(|s| s.chars().next())
+                            .unwrap_or('?');
+                        self.err(pos, format!("unexpected character `{ch}`"));
+                        self.bump();
+                        while self.i < self.src.len() && self.src[self.i] & 0xC0 == 0x80 {
+                            self.bump();
+                        }
+                        return self.next_token(names);
+                    }
+                },
+            },
+        };
+        for _ in 0..n {
+            self.bump();
+        }
+        Token {
+            tok: Tok::P(p),
+            pos,
+        }
+    }
+
+    fn skip_ws(&mut self) {
+        while matches!(self.peek(0), b' ' | b'\t' | b'\r' | b'\n') {
+            self.bump();
+        }
+    }
+
+    fn digits(&mut self, allow: impl Fn(u8) -> bool) -> String {
+        let mut s = String::new();
+        while allow(self.peek(0)) || self.peek(0) == b'_' {
+            if self.peek(0) != b'_' {
+                s.push(self.peek(0) as char);
+            }
+            self.bump();
+        }
+        s
+    }
+
+    fn number(&mut self, pos: Pos) -> Token {
+        let start = self.i;
+        let mut size: Option<String> = None;
+        if self.peek(0).is_ascii_digit() {
+            let d = self.digits(|c| c.is_ascii_digit());
+            if self.peek(0) == b'.' && self.peek(1).is_ascii_digit()
+                || matches!(self.peek(0), b'e' | b'E')
+            {
+                while self.peek(0).is_ascii_alphanumeric()
+                    || matches!(self.peek(0), b'.' | b'_' | b'+' | b'-')
+                {
+                    self.bump();
+                }
+                return Token {
+                    tok: Tok::Real,
+                    pos,
+                };
+            }
+            let save = (self.i, self.line, self.col);
+            self.skip_ws();
+            if self.peek(0) != b'\'' {
+                (self.i, self.line, self.col) = save;
+                let text = String::from_utf8_lossy(&self.src[start..self.i]).into_owned();
+                let bits = decimal_bits(&d);
+                let width = if bits.len() <= 32 { 32 } else { bits.len() + 1 };
+                return Token {
+                    tok: Tok::Num(Box::new(NumLit {
+                        bits: extend(bits, width, false),
+                        signed: true,
+                        sized: false,
+                        text: text.into(),
+                    })),
+                    pos,
+                };
+            }
+            size = Some(d);
+        }
+        // Based literal: ' [s] base digits
+        self.bump();
+        let mut signed = false;
+        if matches!(self.peek(0), b's' | b'S') {
+            signed = true;
+            self.bump();
+        }
+        let base = self.peek(0).to_ascii_lowercase();
+        let radix_bits = match base {
+            b'b' => 1,
+            b'o' => 3,
+            b'h' => 4,
+            b'd' => 0,
+            _ => {
+                self.err(
+                    pos,
+                    "malformed number: expected a base `b`, `o`, `d` or `h` after `'`",
+                );
+                return Token {
+                    tok: Tok::Num(Box::new(NumLit {
+                        bits: vec![B0; 32],
+                        signed: false,
+                        sized: false,
+                        text: "'?".into(),
+                    })),
+                    pos,
+                };
+            }
+        };
+        self.bump();
+        self.skip_ws();
+        let ds =
+            self.digits(|c| c.is_ascii_hexdigit() || matches!(c, b'x' | b'X' | b'z' | b'Z' | b'?'));
+        let text =
+            String::from_utf8_lossy(&self.src[start..self.i]).replace(char::is_whitespace, "");
+        if ds.is_empty() {
+            self.err(pos, format!("malformed number `{text}`: no digits"));
+        }
+        let mut bits: Vec<u8> = Vec::new();
+        if radix_bits == 0 {
+            let lower = ds.to_ascii_lowercase();
+            if lower.chars().all(|c| c.is_ascii_digit()) {
+                bits = decimal_bits(&lower);
+            } else if lower.len() == 1 && matches!(lower.as_bytes()[0], b'x' | b'z' | b'?') {
+                bits = vec![if lower == "x" { BX } else { BZ }];
+            } else {
+                self.err(pos, format!("malformed decimal number `{text}`"));
+            }
+        } else {
+            for ch in ds.bytes().rev() {
+                let ch = ch.to_ascii_lowercase();
+                let (v, special) = match ch {
+                    b'x' => (0, Some(BX)),
+                    b'z' | b'?' => (0, Some(BZ)),
+                    _ => ((ch as char).to_digit(16).unwrap_or(0), None),
+                };
+                if special.is_none() && v >= (1 << radix_bits) {
+                    self.err(
+                        pos,
+                        format!("digit `{}` is not valid in `{text}`", ch as char),
+                    );
+                }
+                for k in 0..radix_bits {
+                    bits.push(special.unwrap_or(((v >> k) & 1) as u8));
+                }
+            }
+        }
+        let (width, sized) = match &size {
+            Some(s) => match s.parse::<u32>() {
+                Ok(0) | Err(_) => {
+                    self.err(pos, format!("bad size in number `{text}`"));
+                    (1, true)
+                }
+                Ok(w) if w > (1 << 20) => {
+                    self.err(pos, format!("number `{text}` is wider than 2^20 bits"));
+                    (1, true)
+                }
+                Ok(w) => (w as usize, true),
+            },
+            None => (bits.len().max(32), false),
+        };
+        // Drop leading zero bits beyond the width; other bits lost are a truncation.
+        let top_fill = match bits.last() {
+            Some(&b) if b == BX || b == BZ => b,
+            _ => B0,
+        };
+        if bits.len() > width && bits[width..].iter().any(|&b| b != B0) {
+            self.err(pos, format!("number `{text}` does not fit in {width} bits"));
+        }
+        let mut v = bits;
+        v.truncate(width);
+        while v.len() < width {
+            v.push(top_fill);
+        }
+        Token {
+            tok: Tok::Num(Box::new(NumLit {
+                bits: v,
+                signed,
+                sized,
+                text: text.into(),
+            })),
+            pos,
+        }
+    }
+}
+
+/// Bits of a decimal digit string, LSB first (at least one bit).
+pub fn decimal_bits(d: &str) -> Vec<u8> {
+    // Repeated division of the decimal digit vector by two.
+    let mut digits: Vec<u8> = d.bytes().map(|c| c - b'0').collect();
+    let mut out = Vec::new();
+    while digits.iter().any(|&x| x != 0) {
+        let mut rem = 0u8;
+        for x in digits.iter_mut() {
+            let cur = rem * 10 + *x;
+            *x = cur / 2;
+            rem = cur % 2;
+        }
+        out.push(rem);
+        while digits.first() == Some(&0) {
+            digits.remove(0);
+        }
+    }
+    if out.is_empty() {
+        out.push(B0);
+    }
+    out
+}
+
+fn extend(mut bits: Vec<u8>, width: usize, _signed: bool) -> Vec<u8> {
+    bits.resize(width, B0);
+    bits
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn toks(s: &str) -> Vec<Tok> {
+        let mut names = Interner::new();
+        let mut lx = Lexer::new(s, 0);
+        let mut v = Vec::new();
+        loop {
+            let t = lx.next_token(&mut names);
+            if t.tok == Tok::Eof {
+                break;
+            }
+            v.push(t.tok);
+        }
+        assert!(lx.errors.is_empty(), "{:?}", lx.errors);
+        v
+    }
+
+    fn num(s: &str) -> NumLit {
+        match toks(s).pop() {
+            Some(Tok::Num(n)) => *n,
+            t => panic!("not a number: {t:?}"),
+        }
+    }
+
+    #[test]
+    fn numbers_are_sized_and_extended() {
+        let n = num("8'hA5");
+        assert_eq!(n.bits, vec![1, 0, 1, 0, 0, 1, 0, 1]);
+        assert!(!n.signed && n.sized);
+        let n = num("4'bx1");
+        assert_eq!(n.bits, vec![1, BX, BX, BX]);
+        let n = num("12");
+        assert_eq!(n.bits.len(), 32);
+        assert!(n.signed);
+        assert_eq!(&n.bits[..4], &[0, 0, 1, 1]);
+        let n = num("4 'sd 5");
+        assert!(n.signed && n.bits == vec![1, 0, 1, 0]);
+        assert_eq!(num("'hz").bits, vec![BZ; 32]);
+        assert_eq!(decimal_bits("1000000000000"), {
+            let v = 1_000_000_000_000u64;
+            (0..40).map(|k| ((v >> k) & 1) as u8).collect::<Vec<_>>()
+        });
+    }
+
+    #[test]
+    fn operators_and_comments() {
+        let t = toks("a ~^ b /* c */ // d\n >>> (* keep *) @(*)");
+        assert!(matches!(t[1], Tok::P(P::TildeCaret)));
+        assert!(matches!(t[3], Tok::P(P::AShr)));
+        assert!(matches!(t[4], Tok::P(P::At)));
+        assert!(matches!(t[6], Tok::P(P::Star)));
+        assert_eq!(t.len(), 8);
+    }
+
+    #[test]
+    fn positions_count_lines_and_columns() {
+        let mut names = Interner::new();
+        let mut lx = Lexer::new("a\n  bb", 3);
+        let _ = lx.next_token(&mut names);
+        let t = lx.next_token(&mut names);
+        assert_eq!(
+            t.pos,
+            Pos {
+                file: 3,
+                line: 2,
+                col: 3
+            }
+        );
+    }
+}

@@ -1,0 +1,176 @@
+//! Parsing of module instances (parameter values, port connections) and generate
+//! constructs (`for` loops over a genvar, `if`, `begin : name ... end` blocks).
+
+use super::ast::*;
+use super::lexer::{Pos, Tok, P};
+use super::parser::{PResult, Parser};
+use super::symbols::{kw, Sym};
+
+impl Parser<'_, '_> {
+    pub(super) fn instance(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+        let (module, _) = self.ident("a module item")?;
+        let params = if self.eat_p(P::Hash) {
+            self.expect_p(P::LParen, "`(` of the parameter values")?;
+            let c = self.conns()?;
+            self.expect_p(P::RParen, "`)` closing the parameter values")?;
+            Some(c)
+        } else {
+            None
+        };
+        loop {
+            let (name, pos) = self.ident("an instance name")?;
+            if self.peek_p(P::LBrack) {
+                return Err(self.err_here("unsupported: arrays of instances"));
+            }
+            self.expect_p(P::LParen, "`(` of the port connections")?;
+            let conns = self.conns()?;
+            self.expect_p(P::RParen, "`)` closing the port connections")?;
+            out.push(Item::Inst(Box::new(Instance {
+                module,
+                params: params.clone(),
+                name,
+                conns,
+                pos,
+            })));
+            if !self.eat_p(P::Comma) {
+                break;
+            }
+        }
+        self.expect_p(P::Semi, "`;` after the instance")
+    }
+
+    fn conns(&mut self) -> PResult<Conns> {
+        if self.peek_p(P::RParen) {
+            return Ok(Conns::Ordered(Vec::new()));
+        }
+        if self.peek_p(P::Dot) {
+            let mut v = Vec::new();
+            loop {
+                self.expect_p(P::Dot, "`.name(...)`")?;
+                let (n, p) = self.ident("a port or parameter name")?;
+                self.expect_p(P::LParen, "`(`")?;
+                let e = if self.peek_p(P::RParen) {
+                    None
+                } else {
+                    Some(self.expr()?)
+                };
+                self.expect_p(P::RParen, "`)`")?;
+                v.push((n, p, e));
+                if !self.eat_p(P::Comma) {
+                    break;
+                }
+            }
+            return Ok(Conns::Named(v));
+        }
+        let mut v = Vec::new();
+        loop {
+            if self.peek_p(P::Comma) || self.peek_p(P::RParen) {
+                v.push(None);
+            } else {
+                v.push(Some(self.expr()?));
+            }
+            if !self.eat_p(P::Comma) {
+                break;
+            }
+        }
+        Ok(Conns::Ordered(v))
+    }
+
+    /// `i = expr` in a `for` header.
+    pub fn loop_assign(&mut self) -> PResult<(Sym, Pos, Expr)> {
+        let (n, p) = self.ident("a loop variable")?;
+        self.expect_p(P::Assign, "`=` in the loop header")?;
+        Ok((n, p, self.expr()?))
+    }
+
+    pub(super) fn gen_for(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+        let pos = self.bump().pos;
+        self.expect_p(P::LParen, "`(` after `for`")?;
+        if self.eat_kw(kw::GENVAR) {
+            let (n, p) = match self.peek().tok {
+                Tok::Ident(s) => (s, self.peek_pos()),
+                _ => return Err(self.error(pos, "expected a genvar name")),
+            };
+            out.push(Item::Genvar(vec![(n, p)]));
+        }
+        let init = self.loop_assign()?;
+        self.expect_p(P::Semi, "`;` in the loop header")?;
+        let cond = self.expr()?;
+        self.expect_p(P::Semi, "`;` in the loop header")?;
+        let step = self.loop_assign()?;
+        self.expect_p(P::RParen, "`)` closing the loop header")?;
+        let (name, items) = self.gen_block()?;
+        out.push(Item::GenFor(Box::new(GenFor {
+            init,
+            cond,
+            step,
+            name,
+            items,
+            pos,
+        })));
+        Ok(())
+    }
+
+    pub(super) fn gen_if(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+        let pos = self.bump().pos;
+        self.expect_p(P::LParen, "`(` after `if`")?;
+        let cond = self.expr()?;
+        self.expect_p(P::RParen, "`)`")?;
+        let (_, then) = self.gen_block()?;
+        let els = if self.eat_kw(kw::ELSE) {
+            if self.peek_kw(kw::IF) {
+                let mut v = Vec::new();
+                self.enter(pos)?;
+                let r = self.gen_if(&mut v);
+                self.leave();
+                r?;
+                v
+            } else {
+                self.gen_block()?.1
+            }
+        } else {
+            Vec::new()
+        };
+        out.push(Item::GenIf(Box::new((cond, then, els)), pos));
+        Ok(())
+    }
+
+    /// `begin [: name] items end`, or a single item.
+    fn gen_block(&mut self) -> PResult<(Option<Sym>, Vec<Item>)> {
+        let pos = self.peek_pos();
+        self.enter(pos)?;
+        let r = self.gen_block_inner();
+        self.leave();
+        r
+    }
+
+    fn gen_block_inner(&mut self) -> PResult<(Option<Sym>, Vec<Item>)> {
+        let mut items = Vec::new();
+        if self.eat_kw(kw::BEGIN) {
+            let name = if self.eat_p(P::Colon) {
+                Some(self.ident("a block name")?.0)
+            } else {
+                None
+            };
+            loop {
+                if self.eat_kw(kw::END) {
+                    break;
+                }
+                if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
+                    let p = self.peek_pos();
+                    return Err(self.error(p, "missing `end` of a generate block"));
+                }
+                if self.item(&mut items).is_err() {
+                    self.recover();
+                }
+            }
+            if self.eat_p(P::Colon) {
+                self.ident("a block name")?;
+            }
+            Ok((name, items))
+        } else {
+            self.item(&mut items)?;
+            Ok((None, items))
+        }
+    }
+}

@@ -1,0 +1,209 @@
+//! Statement parsing for `always @*` blocks: blocking assignments, `begin`/`end`, `if`,
+//! `case`/`casez` and `for`; everything else is reported as unsupported.
+
+use super::ast::{CaseStmt, ForStmt, Stmt};
+use super::lexer::{Tok, P};
+use super::parser::{PResult, Parser};
+use super::symbols::kw;
+
+impl Parser<'_, '_> {
+    /// One statement.
+    pub fn stmt(&mut self) -> PResult<Stmt> {
+        let pos = self.peek_pos();
+        self.enter(pos)?;
+        let r = self.stmt_inner();
+        self.leave();
+        r
+    }
+
+    fn stmt_inner(&mut self) -> PResult<Stmt> {
+        let t = self.peek().clone();
+        let pos = t.pos;
+        match t.tok {
+            Tok::P(P::Semi) => {
+                self.bump();
+                Ok(Stmt::Null)
+            }
+            Tok::Ident(k) if k == kw::BEGIN => {
+                self.bump();
+                if self.eat_p(P::Colon) {
+                    self.ident("a block name")?;
+                }
+                let mut v = Vec::new();
+                loop {
+                    if self.eat_kw(kw::END) {
+                        break;
+                    }
+                    if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
+                        return Err(self.error(pos, "missing `end` for this `begin`"));
+                    }
+                    if self.peek_kw(kw::REG) || self.peek_kw(kw::INTEGER) || self.peek_kw(kw::WIRE)
+                    {
+                        let p = self.peek_pos();
+                        return Err(self.error(
+                            p,
+                            "unsupported: declaration inside a block (declare it in the module)",
+                        ));
+                    }
+                    v.push(self.stmt()?);
+                }
+                Ok(Stmt::Block(v))
+            }
+            Tok::Ident(k) if k == kw::IF => {
+                self.bump();
+                self.expect_p(P::LParen, "`(` after `if`")?;
+                let c = self.expr()?;
+                self.expect_p(P::RParen, "`)` after the condition")?;
+                let t = self.stmt()?;
+                let e = if self.eat_kw(kw::ELSE) {
+                    Some(Box::new(self.stmt()?))
+                } else {
+                    None
+                };
+                Ok(Stmt::If(c, Box::new(t), e, pos))
+            }
+            Tok::Ident(k) if k == kw::CASE || k == kw::CASEZ => {
+                self.bump();
+                self.case(k == kw::CASEZ, pos)
+            }
+            Tok::Ident(k) if k == kw::CASEX => Err(self.error(
+                pos,
+                "unsupported: `casex` (use `casez` with `?` for don't-care bits)",
+            )),
+            Tok::Ident(k) if k == kw::FOR => {
+                self.bump();
+                self.expect_p(P::LParen, "`(` after `for`")?;
+                let init = self.loop_assign()?;
+                self.expect_p(P::Semi, "`;` in the loop header")?;
+                let cond = self.expr()?;
+                self.expect_p(P::Semi, "`;` in the loop header")?;
+                let step = self.loop_assign()?;
+                self.expect_p(P::RParen, "`)` closing the loop header")?;
+                let body = self.stmt()?;
+                Ok(Stmt::For(Box::new(ForStmt {
+                    init,
+                    cond,
+                    step,
+                    body,
+                    pos,
+                })))
+            }
+            Tok::Ident(k) if super::symbols::is_keyword(k) => {
+                let n = self.names.name(k).to_string();
+                Err(self.error(
+                    pos,
+                    format!("unsupported: `{n}` statement in an always block"),
+                ))
+            }
+            Tok::Ident(_) | Tok::P(P::LBrace) => {
+                let lhs = self.lvalue()?;
+                let p = self.peek_pos();
+                if self.eat_p(P::Le) {
+                    return Err(self.error(
+                        p,
+                        "unsupported: non-blocking assignment `<=` in `always @*` (use `=`)",
+                    ));
+                }
+                self.expect_p(P::Assign, "`=` in an assignment")?;
+                if self.peek_p(P::Hash) || self.peek_p(P::At) {
+                    let p = self.peek_pos();
+                    return Err(self.error(p, "unsupported: intra-assignment timing control"));
+                }
+                let rhs = self.expr()?;
+                self.expect_p(P::Semi, "`;` after the assignment")?;
+                Ok(Stmt::Assign(lhs, rhs, p))
+            }
+            Tok::Sys(s) => {
+                let n = self.names.name(s).to_string();
+                Err(self.error(pos, format!("unsupported: system task `{n}`")))
+            }
+            Tok::P(P::Hash) => Err(self.error(pos, "unsupported: delay control `#`")),
+            Tok::P(P::At) => Err(self.error(pos, "unsupported: event control `@` inside a block")),
+            other => {
+                let d = self.describe(&other);
+                Err(self.error(pos, format!("expected a statement, found {d}")))
+            }
+        }
+    }
+
+    /// An assignment target: a name, a select of a name, or a concatenation of targets.
+    pub fn lvalue(&mut self) -> PResult<super::ast::Expr> {
+        // Parsed as a primary; the elaborator checks that it is assignable.
+        let pos = self.peek_pos();
+        match self.peek().tok {
+            Tok::Ident(_) | Tok::P(P::LBrace) => {}
+            _ => return Err(self.error(pos, "expected an assignment target")),
+        }
+        let save_depth_ok = self.enter(pos);
+        save_depth_ok?;
+        let r = self.lvalue_primary();
+        self.leave();
+        r
+    }
+
+    fn lvalue_primary(&mut self) -> PResult<super::ast::Expr> {
+        use super::ast::Expr;
+        let t = self.bump();
+        match t.tok {
+            Tok::Ident(s) if !super::symbols::is_keyword(s) => {
+                if self.peek_p(P::LBrack) {
+                    let sel = self.select()?;
+                    return Ok(Expr::Index(s, t.pos, Box::new(sel)));
+                }
+                Ok(Expr::Ident(s, t.pos))
+            }
+            Tok::P(P::LBrace) => {
+                let mut v = vec![self.lvalue()?];
+                while self.eat_p(P::Comma) {
+                    v.push(self.lvalue()?);
+                }
+                self.expect_p(P::RBrace, "`}`")?;
+                Ok(Expr::Concat(v, t.pos))
+            }
+            other => {
+                let d = self.describe(&other);
+                Err(self.error(t.pos, format!("expected an assignment target, found {d}")))
+            }
+        }
+    }
+
+    fn case(&mut self, casez: bool, pos: super::lexer::Pos) -> PResult<Stmt> {
+        self.expect_p(P::LParen, "`(` after `case`")?;
+        let expr = self.expr()?;
+        self.expect_p(P::RParen, "`)`")?;
+        let mut items = Vec::new();
+        let mut default = None;
+        loop {
+            if self.eat_kw(kw::ENDCASE) {
+                break;
+            }
+            if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
+                return Err(self.error(pos, "missing `endcase`"));
+            }
+            if self.peek_kw(kw::DEFAULT) {
+                let p = self.bump().pos;
+                self.eat_p(P::Colon);
+                let s = self.stmt()?;
+                if default.is_some() {
+                    return Err(self.error(p, "more than one `default` in a case statement"));
+                }
+                default = Some(s);
+                continue;
+            }
+            let mut labels = vec![self.expr()?];
+            while self.eat_p(P::Comma) {
+                labels.push(self.expr()?);
+            }
+            self.expect_p(P::Colon, "`:` after the case item")?;
+            let s = self.stmt()?;
+            items.push((labels, s));
+        }
+        Ok(Stmt::Case(Box::new(CaseStmt {
+            casez,
+            expr,
+            items,
+            default,
+            pos,
+        })))
+    }
+}

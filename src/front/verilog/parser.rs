@@ -1,0 +1,692 @@
+//! The recursive-descent parser: modules, declarations, instances, gates and generate
+//! blocks. Errors are collected; after one, the parser skips to the next `;` or item keyword.
+
+use super::ast::*;
+use super::lexer::{Lexer, Pos, Tok, Token, P};
+use super::symbols::{is_keyword, kw, Interner, Sym};
+use std::collections::VecDeque;
+
+/// Parse failure marker: the message is already in [`Parser::errors`].
+#[derive(Debug)]
+pub struct Stop;
+
+/// Result of a parse step.
+pub type PResult<T> = Result<T, Stop>;
+
+/// Deepest nesting of parentheses, operators and statements accepted.
+pub const MAX_DEPTH: usize = 1000;
+
+/// The parser over one file.
+pub struct Parser<'s, 'n> {
+    lx: Lexer<'s>,
+    /// Interned names.
+    pub names: &'n mut Interner,
+    look: VecDeque<Token>,
+    /// Errors found: position and message.
+    pub errors: Vec<(Pos, String)>,
+    depth: usize,
+}
+
+impl<'s, 'n> Parser<'s, 'n> {
+    /// A parser over `src` (file number `file`).
+    pub fn new(src: &'s str, file: u32, names: &'n mut Interner) -> Self {
+        Parser {
+            lx: Lexer::new(src, file),
+            names,
+            look: VecDeque::new(),
+            errors: Vec::new(),
+            depth: 0,
+        }
+    }
+
+    fn fill(&mut self, k: usize) {
+        while self.look.len() <= k {
+            let t = self.lx.next_token(self.names);
+            self.look.push_back(t);
+        }
+    }
+
+    /// The next token.
+    pub fn peek(&mut self) -> &Token {
+        self.fill(0);
+        &self.look[0]
+    }
+
+    /// The token after the next.
+    pub fn peek2(&mut self) -> &Token {
+        self.fill(1);
+        &self.look[1]
+    }
+
+    /// Position of the next token.
+    pub fn peek_pos(&mut self) -> Pos {
+        self.peek().pos
+    }
+
+    /// Consume the next token.
+    pub fn bump(&mut self) -> Token {
+        self.fill(0);
+        self.look.pop_front().expect("filled")
+    }
+
+    /// Whether the next token is `p`.
+    pub fn peek_p(&mut self, p: P) -> bool {
+        self.peek().tok == Tok::P(p)
+    }
+
+    /// Whether the next token is keyword `k`.
+    pub fn peek_kw(&mut self, k: Sym) -> bool {
+        self.peek().tok == Tok::Ident(k)
+    }
+
+    /// Consume `p` if next.
+    pub fn eat_p(&mut self, p: P) -> bool {
+        if self.peek_p(p) {
+            self.bump();
+            true
+        } else {
+            false
+        }
+    }
+
+    /// Consume keyword `k` if next.
+    pub fn eat_kw(&mut self, k: Sym) -> bool {
+        if self.peek_kw(k) {
+            self.bump();
+            true
+        } else {
+            false
+        }
+    }
+
+    /// Record an error.
+    pub fn error(&mut self, pos: Pos, msg: impl Into<String>) -> Stop {
+        self.errors.push((pos, msg.into()));
+        Stop
+    }
+
+    /// How a token reads in a message.
+    pub fn describe(&self, t: &Tok) -> String {
+        match t {
+            Tok::Ident(s) => format!("`{}`", self.names.name(*s)),
+            Tok::Sys(s) => format!("`{}`", self.names.name(*s)),
+            Tok::Num(n) => format!("number `{}`", n.text),
+            Tok::P(p) => format!("`{}`", punct_text(*p)),
+            Tok::Str => "a string".into(),
+            Tok::Real => "a real number".into(),
+            Tok::Eof => "end of file".into(),
+        }
+    }
+
+    /// Consume `p` or report what was expected.
+    pub fn expect_p(&mut self, p: P, what: &str) -> PResult<()> {
+        if self.eat_p(p) {
+            return Ok(());
+        }
+        let t = self.peek().clone();
+        let d = self.describe(&t.tok);
+        Err(self.error(t.pos, format!("expected {what}, found {d}")))
+    }
+
+    /// Consume keyword `k` or report.
+    pub fn expect_kw(&mut self, k: Sym) -> PResult<()> {
+        if self.eat_kw(k) {
+            return Ok(());
+        }
+        let t = self.peek().clone();
+        let d = self.describe(&t.tok);
+        let want = self.names.name(k).to_string();
+        Err(self.error(t.pos, format!("expected `{want}`, found {d}")))
+    }
+
+    /// An identifier (not a keyword).
+    pub fn ident(&mut self, what: &str) -> PResult<(Sym, Pos)> {
+        let t = self.peek().clone();
+        if let Tok::Ident(s) = t.tok {
+            if !is_keyword(s) {
+                self.bump();
+                return Ok((s, t.pos));
+            }
+        }
+        let d = self.describe(&t.tok);
+        Err(self.error(t.pos, format!("expected {what}, found {d}")))
+    }
+
+    /// Enter one level of nesting.
+    pub fn enter(&mut self, pos: Pos) -> PResult<()> {
+        self.depth += 1;
+        if self.depth > MAX_DEPTH {
+            self.depth -= 1;
+            return Err(self.error(
+                pos,
+                format!(
+                    "nesting deeper than {MAX_DEPTH} levels; split the expression or statement"
+                ),
+            ));
+        }
+        Ok(())
+    }
+
+    /// Leave one level of nesting.
+    pub fn leave(&mut self) {
+        self.depth -= 1;
+    }
+
+    /// Parse a whole file into modules; errors are in `self.errors` and the lexer's list.
+    pub fn file(&mut self) -> Vec<Module> {
+        let mut mods = Vec::new();
+        loop {
+            let t = self.peek().clone();
+            match t.tok {
+                Tok::Eof => break,
+                Tok::Ident(k) if k == kw::MODULE || k == kw::MACROMODULE => {
+                    self.bump();
+                    if let Some(m) = self.module(t.pos) {
+                        mods.push(m);
+                    }
+                }
+                Tok::Ident(k) if k == kw::PRIMITIVE => {
+                    self.error(t.pos, "unsupported: user-defined primitive");
+                    self.skip_past(kw::ENDPRIMITIVE);
+                }
+                _ => {
+                    let d = self.describe(&t.tok);
+                    self.error(t.pos, format!("expected `module`, found {d}"));
+                    self.bump();
+                    while !matches!(self.peek().tok, Tok::Eof)
+                        && !self.peek_kw(kw::MODULE)
+                        && !self.peek_kw(kw::ENDMODULE)
+                    {
+                        self.bump();
+                    }
+                    self.eat_kw(kw::ENDMODULE);
+                }
+            }
+        }
+        self.errors.append(&mut self.lx.errors);
+        mods
+    }
+
+    fn skip_past(&mut self, k: Sym) {
+        loop {
+            match self.bump().tok {
+                Tok::Eof => return,
+                Tok::Ident(s) if s == k => return,
+                _ => {}
+            }
+        }
+    }
+
+    /// Skip to just after the next `;`, or to an item keyword or `endmodule`.
+    pub fn recover(&mut self) {
+        loop {
+            match &self.peek().tok {
+                Tok::Eof => return,
+                Tok::P(P::Semi) => {
+                    self.bump();
+                    return;
+                }
+                Tok::Ident(k)
+                    if [
+                        kw::ENDMODULE,
+                        kw::MODULE,
+                        kw::ASSIGN,
+                        kw::ALWAYS,
+                        kw::ENDGENERATE,
+                        kw::WIRE,
+                        kw::REG,
+                        kw::INPUT,
+                        kw::OUTPUT,
+                    ]
+                    .contains(k) =>
+                {
+                    return
+                }
+                _ => {
+                    self.bump();
+                }
+            }
+        }
+    }
+
+    fn module(&mut self, pos: Pos) -> Option<Module> {
+        let name = match self.ident("a module name") {
+            Ok((n, _)) => n,
+            Err(_) => {
+                self.skip_past(kw::ENDMODULE);
+                return None;
+            }
+        };
+        let mut m = Module {
+            name,
+            ports: Vec::new(),
+            items: Vec::new(),
+            pos,
+            nettype_none: false,
+        };
+        if self.header(&mut m).is_err() {
+            // Skip the rest of the header.
+            while !self.peek_p(P::Semi)
+                && !matches!(self.peek().tok, Tok::Eof)
+                && !self.peek_kw(kw::ENDMODULE)
+            {
+                self.bump();
+            }
+            self.eat_p(P::Semi);
+        }
+        m.nettype_none = self.lx.nettype_none;
+        loop {
+            let t = self.peek().clone();
+            match t.tok {
+                Tok::Eof => {
+                    self.error(t.pos, "missing `endmodule`");
+                    break;
+                }
+                Tok::Ident(k) if k == kw::ENDMODULE => {
+                    self.bump();
+                    break;
+                }
+                _ => {
+                    if self.item(&mut m.items).is_err() {
+                        self.recover();
+                    }
+                }
+            }
+        }
+        Some(m)
+    }
+
+    fn header(&mut self, m: &mut Module) -> PResult<()> {
+        if self.eat_p(P::Hash) {
+            self.expect_p(P::LParen, "`(` of the parameter port list")?;
+            loop {
+                self.eat_kw(kw::PARAMETER);
+                let mut pd = self.param_head(false)?;
+                let (n, p) = self.ident("a parameter name")?;
+                self.expect_p(P::Assign, "`=`")?;
+                pd.assigns.push((n, p, self.expr()?));
+                m.items.push(Item::Param(Box::new(pd)));
+                if !self.eat_p(P::Comma) {
+                    break;
+                }
+            }
+            self.expect_p(P::RParen, "`)` closing the parameter port list")?;
+        }
+        if self.eat_p(P::LParen) {
+            if !self.peek_p(P::RParen) {
+                let t = self.peek().clone();
+                if matches!(t.tok, Tok::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT)
+                {
+                    self.ansi_ports(m)?;
+                } else {
+                    loop {
+                        let (n, p) = self.ident("a port name")?;
+                        if self.peek_p(P::LBrack) {
+                            return Err(
+                                self.error(p, "unsupported: port expression in the port list")
+                            );
+                        }
+                        m.ports.push((n, p));
+                        if !self.eat_p(P::Comma) {
+                            break;
+                        }
+                    }
+                }
+            }
+            self.expect_p(P::RParen, "`)` closing the port list")?;
+        }
+        self.expect_p(P::Semi, "`;` after the module header")
+    }
+
+    fn ansi_ports(&mut self, m: &mut Module) -> PResult<()> {
+        let mut cur: Option<Decl> = None;
+        loop {
+            let t = self.peek().clone();
+            let starts_decl = matches!(t.tok, Tok::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT);
+            if starts_decl {
+                if let Some(d) = cur.take() {
+                    m.items.push(Item::Decl(Box::new(d)));
+                }
+                cur = Some(self.decl_head()?);
+            }
+            let (n, p) = self.ident("a port name")?;
+            let d = match cur.as_mut() {
+                Some(d) => d,
+                None => {
+                    return Err(self.error(p, "expected a port direction (`input` or `output`)"))
+                }
+            };
+            d.names.push((n, p, None));
+            m.ports.push((n, p));
+            if !self.eat_p(P::Comma) {
+                break;
+            }
+        }
+        if let Some(d) = cur {
+            m.items.push(Item::Decl(Box::new(d)));
+        }
+        Ok(())
+    }
+
+    /// Direction, type, `signed` and range of a declaration (names not yet read).
+    fn decl_head(&mut self) -> PResult<Decl> {
+        let t = self.bump();
+        let pos = t.pos;
+        let mut d = Decl {
+            dir: None,
+            ty: None,
+            signed: false,
+            range: None,
+            names: Vec::new(),
+            pos,
+        };
+        match t.tok {
+            Tok::Ident(k) if k == kw::INPUT => d.dir = Some(Dir::Input),
+            Tok::Ident(k) if k == kw::OUTPUT => d.dir = Some(Dir::Output),
+            Tok::Ident(k) if k == kw::INOUT => {
+                return Err(self.error(pos, "unsupported: `inout` port (only `input` and `output` ports are supported; split the port into an input and an output)"));
+            }
+            Tok::Ident(k) if k == kw::WIRE => d.ty = Some(NetType::Wire),
+            Tok::Ident(k) if k == kw::REG => d.ty = Some(NetType::Reg),
+            Tok::Ident(k) if k == kw::INTEGER => d.ty = Some(NetType::Integer),
+            _ => unreachable!("decl_head called on a declaration keyword"),
+        }
+        if d.dir.is_some() {
+            if self.eat_kw(kw::WIRE) {
+                d.ty = Some(NetType::Wire);
+            } else if self.eat_kw(kw::REG) {
+                d.ty = Some(NetType::Reg);
+            } else if self.eat_kw(kw::INTEGER) {
+                d.ty = Some(NetType::Integer);
+            }
+        }
+        if d.ty == Some(NetType::Integer) {
+            d.signed = true;
+        } else {
+            if self.eat_kw(kw::SIGNED) {
+                d.signed = true;
+            }
+            if self.peek_p(P::LBrack) {
+                d.range = Some(self.range()?);
+            }
+        }
+        Ok(d)
+    }
+
+    /// `[msb:lsb]`
+    pub fn range(&mut self) -> PResult<Range> {
+        self.expect_p(P::LBrack, "`[`")?;
+        let msb = self.expr()?;
+        self.expect_p(P::Colon, "`:` in a range")?;
+        let lsb = self.expr()?;
+        self.expect_p(P::RBrack, "`]`")?;
+        Ok(Range { msb, lsb })
+    }
+
+    fn param_head(&mut self, local: bool) -> PResult<ParamDecl> {
+        let mut pd = ParamDecl {
+            local,
+            signed: false,
+            integer: false,
+            range: None,
+            assigns: Vec::new(),
+        };
+        if self.eat_kw(kw::INTEGER) {
+            pd.integer = true;
+            pd.signed = true;
+        } else {
+            if self.eat_kw(kw::SIGNED) {
+                pd.signed = true;
+            }
+            if self.peek_p(P::LBrack) {
+                pd.range = Some(self.range()?);
+            }
+        }
+        Ok(pd)
+    }
+
+    fn gate_kind(k: Sym) -> Option<GateKind> {
+        Some(match k {
+            k if k == kw::AND => GateKind::And,
+            k if k == kw::NAND => GateKind::Nand,
+            k if k == kw::OR => GateKind::Or,
+            k if k == kw::NOR => GateKind::Nor,
+            k if k == kw::XOR => GateKind::Xor,
+            k if k == kw::XNOR => GateKind::Xnor,
+            k if k == kw::NOT => GateKind::Not,
+            k if k == kw::BUF => GateKind::Buf,
+            _ => return None,
+        })
+    }
+
+    /// One module item (or generate item), appended to `out`.
+    pub fn item(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+        let t = self.peek().clone();
+        let pos = t.pos;
+        let k = match t.tok {
+            Tok::Ident(k) => k,
+            other => {
+                let d = self.describe(&other);
+                return Err(self.error(pos, format!("expected a module item, found {d}")));
+            }
+        };
+        if k == kw::INPUT
+            || k == kw::OUTPUT
+            || k == kw::INOUT
+            || k == kw::WIRE
+            || k == kw::REG
+            || k == kw::INTEGER
+        {
+            let mut d = self.decl_head()?;
+            loop {
+                let (n, p) = self.ident("a name")?;
+                if self.peek_p(P::LBrack) {
+                    return Err(self.err_here("unsupported: arrays (memories)"));
+                }
+                let init = if self.eat_p(P::Assign) {
+                    if d.ty != Some(NetType::Wire) || d.dir.is_some() {
+                        return Err(self.error(p, "unsupported: initial value in a declaration (only `wire w = expr;` is supported)"));
+                    }
+                    Some(self.expr()?)
+                } else {
+                    None
+                };
+                d.names.push((n, p, init));
+                if !self.eat_p(P::Comma) {
+                    break;
+                }
+            }
+            self.expect_p(P::Semi, "`;` after the declaration")?;
+            out.push(Item::Decl(Box::new(d)));
+        } else if k == kw::PARAMETER || k == kw::LOCALPARAM {
+            self.bump();
+            let mut pd = self.param_head(k == kw::LOCALPARAM)?;
+            loop {
+                let (n, p) = self.ident("a parameter name")?;
+                self.expect_p(P::Assign, "`=` in a parameter declaration")?;
+                pd.assigns.push((n, p, self.expr()?));
+                if !self.eat_p(P::Comma) {
+                    break;
+                }
+            }
+            self.expect_p(P::Semi, "`;` after the parameter declaration")?;
+            out.push(Item::Param(Box::new(pd)));
+        } else if k == kw::GENVAR {
+            self.bump();
+            let mut v = vec![self.ident("a genvar name")?];
+            while self.eat_p(P::Comma) {
+                v.push(self.ident("a genvar name")?);
+            }
+            self.expect_p(P::Semi, "`;`")?;
+            out.push(Item::Genvar(v));
+        } else if k == kw::ASSIGN {
+            self.bump();
+            if self.peek_p(P::Hash) || self.peek_p(P::LParen) {
+                return Err(self.err_here("unsupported: delay or drive strength on `assign`"));
+            }
+            loop {
+                let lhs = self.expr()?;
+                self.expect_p(P::Assign, "`=` in a continuous assignment")?;
+                let rhs = self.expr()?;
+                out.push(Item::Assign(Box::new((lhs, rhs)), pos));
+                if !self.eat_p(P::Comma) {
+                    break;
+                }
+            }
+            self.expect_p(P::Semi, "`;` after the assignment")?;
+        } else if let Some(g) = Self::gate_kind(k) {
+            self.bump();
+            if self.peek_p(P::Hash) || self.peek_p(P::LParen) && self.strength_follows() {
+                return Err(self.err_here("unsupported: delay or drive strength on a gate"));
+            }
+            loop {
+                let gpos = self.peek_pos();
+                let name = if self.peek_p(P::LParen) {
+                    None
+                } else {
+                    let n = self.ident("a gate instance name or `(`")?.0;
+                    if self.peek_p(P::LBrack) {
+                        return Err(self.err_here("unsupported: arrays of gate instances"));
+                    }
+                    Some(n)
+                };
+                self.expect_p(P::LParen, "`(` of the gate terminals")?;
+                let mut terms = vec![self.expr()?];
+                while self.eat_p(P::Comma) {
+                    terms.push(self.expr()?);
+                }
+                self.expect_p(P::RParen, "`)` closing the gate terminals")?;
+                out.push(Item::Gate(g, name, terms, gpos));
+                if !self.eat_p(P::Comma) {
+                    break;
+                }
+            }
+            self.expect_p(P::Semi, "`;` after the gate")?;
+        } else if k == kw::ALWAYS {
+            self.bump();
+            let at = self.peek_pos();
+            if !self.eat_p(P::At) {
+                return Err(self.error(at, "unsupported: `always` without `@*` (only combinational `always @*` blocks are supported)"));
+            }
+            if self.eat_p(P::Star) {
+            } else if self.peek_p(P::LParen) && matches!(self.peek2().tok, Tok::P(P::Star)) {
+                self.bump();
+                self.bump();
+                self.expect_p(P::RParen, "`)` after `@(*`")?;
+            } else {
+                return Err(self.error(at, "unsupported: `always` with an event list (only combinational `always @*` blocks are supported)"));
+            }
+            let body = self.stmt()?;
+            out.push(Item::Always(Box::new(body), pos));
+        } else if k == kw::GENERATE {
+            self.bump();
+            while !self.eat_kw(kw::ENDGENERATE) {
+                if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
+                    return Err(self.error(pos, "missing `endgenerate`"));
+                }
+                if self.item(out).is_err() {
+                    self.recover();
+                }
+            }
+        } else if k == kw::FOR {
+            self.gen_for(out)?;
+        } else if k == kw::IF {
+            self.gen_if(out)?;
+        } else if is_keyword(k) {
+            let n = self.names.name(k).to_string();
+            let what = match n.as_str() {
+                "initial" => "`initial` block".to_string(),
+                "function" => "function declaration".to_string(),
+                "task" => "task declaration".to_string(),
+                "begin" => "`begin` block outside a generate loop or condition".to_string(),
+                _ => format!("`{n}`"),
+            };
+            self.error(pos, format!("unsupported: {what}"));
+            let end = match n.as_str() {
+                "function" => Some(kw::ENDFUNCTION),
+                "task" => Some(kw::ENDTASK),
+                "specify" => Some(kw::ENDSPECIFY),
+                "case" | "casez" | "casex" => Some(kw::ENDCASE),
+                _ => None,
+            };
+            if let Some(e) = end {
+                self.skip_past(e);
+                return Ok(());
+            }
+            return Err(Stop);
+        } else {
+            self.instance(out)?;
+        }
+        Ok(())
+    }
+
+    pub(super) fn err_here(&mut self, msg: &str) -> Stop {
+        let p = self.peek_pos();
+        self.error(p, msg)
+    }
+
+    /// After a gate keyword and `(`: a drive strength looks like `(strong0, ...)`.
+    fn strength_follows(&mut self) -> bool {
+        match self.peek2().tok {
+            Tok::Ident(s) => {
+                let n = self.names.name(s);
+                n.starts_with("strong")
+                    || n.starts_with("weak")
+                    || n.starts_with("pull")
+                    || n.starts_with("supply")
+                    || n.starts_with("highz")
+            }
+            _ => false,
+        }
+    }
+}
+
+fn punct_text(p: P) -> &'static str {
+    match p {
+        P::LParen => "(",
+        P::RParen => ")",
+        P::LBrack => "[",
+        P::RBrack => "]",
+        P::LBrace => "{",
+        P::RBrace => "}",
+        P::Comma => ",",
+        P::Semi => ";",
+        P::Colon => ":",
+        P::Dot => ".",
+        P::Hash => "#",
+        P::At => "@",
+        P::Assign => "=",
+        P::Question => "?",
+        P::Plus => "+",
+        P::Minus => "-",
+        P::Star => "*",
+        P::Slash => "/",
+        P::Percent => "%",
+        P::Bang => "!",
+        P::Tilde => "~",
+        P::Amp => "&",
+        P::Pipe => "|",
+        P::Caret => "^",
+        P::TildeAmp => "~&",
+        P::TildePipe => "~|",
+        P::TildeCaret => "~^",
+        P::CaretTilde => "^~",
+        P::AmpAmp => "&&",
+        P::PipePipe => "||",
+        P::EqEq => "==",
+        P::BangEq => "!=",
+        P::EqEqEq => "===",
+        P::BangEqEq => "!==",
+        P::Lt => "<",
+        P::Le => "<=",
+        P::Gt => ">",
+        P::Ge => ">=",
+        P::Shl => "<<",
+        P::Shr => ">>",
+        P::AShl => "<<<",
+        P::AShr => ">>>",
+        P::Power => "**",
+        P::PlusColon => "+:",
+        P::MinusColon => "-:",
+    }
+}

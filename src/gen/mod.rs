@@ -1,0 +1,536 @@
+//! Circuit generators of `equicone gen`: selectors, decoders, priority encoders, barrel
+//! shifters, adders, multipliers and random circuits, each in several styles, written as
+//! readable Verilog or bench, deterministic for a seed, optionally with one planted bug.
+//!
+//! Port conventions (the same names in every style of a kind, so `prove` pairs them by name;
+//! bit `i` of bus `d` is `d[i]` in Verilog and in bench):
+//!
+//! | kind | `--n` | inputs | outputs |
+//! | --- | --- | --- | --- |
+//! | selector | channels N >= 2 | `d[N*W-1:0]` (channel i at `d[i*W +: W]`), `s[K-1:0]`, K = ceil(log2 N) | `y[W-1:0]` = channel `s` |
+//! | decoder | select bits k >= 1 | `a[k-1:0]` | `y[2^k-1:0]`, `y[i]` = (a == i) |
+//! | priority | requests N >= 2 | `r[N-1:0]` | `y[K-1:0]` = highest i with `r[i]` (0 if none), `v` = any request |
+//! | shifter | data bits n >= 2 | `a[n-1:0]`, `s[K-1:0]`, K = ceil(log2 n) | `y[n-1:0]` = `a << s` (zeros shifted in) |
+//! | adder | operand bits n >= 1 | `a[n-1:0]`, `b[n-1:0]` | `y[n:0]` = a + b |
+//! | multiplier | operand bits n >= 2 | `a[n-1:0]`, `b[n-1:0]` | `p[2n-1:0]` = a * b (unsigned) |
+//! | random | gates | `x[I-1:0]` (`--inputs` I) | `y[..]`: every gate without fan-out |
+//!
+//! A selector whose N is not a power of two leaves select values N..2^K-1 out of range: the
+//! spec reads x there (IEEE 1364-2005), gate-level styles give whatever their structure gives,
+//! and [`emit::Care`] records the condition so checks only compare in-range vectors.
+//!
+//! The spec style is a behavioural one-liner in Verilog (`assign y = d[s];`, `assign y = a + b;`,
+//! `assign p = a * b;`, ...). Bench has no operators, so in bench the spec style is written as
+//! gates: selector as the decoder AND-OR (0 out of range), decoder flat, priority encoder as
+//! the chain, shifter as the log shifter, adder as the ripple adder, multiplier as the array.
+
+pub mod emit;
+pub mod mutate;
+pub mod rng;
+pub mod set;
+
+mod arith;
+mod decoder;
+mod mult;
+mod random;
+mod selector;
+mod shifter;
+
+pub use emit::{Circuit, Net, Op};
+
+use std::fmt;
+
+/// What to generate.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, clap::ValueEnum)]
+pub enum Kind {
+    /// N:1 selector of W-bit channels.
+    Selector,
+    /// k-to-2^k decoder.
+    Decoder,
+    /// Priority encoder (the highest set request wins).
+    Priority,
+    /// Barrel shifter (logical left shift).
+    Shifter,
+    /// Adder of two n-bit numbers.
+    Adder,
+    /// Unsigned multiplier of two n-bit numbers.
+    Multiplier,
+    /// Random gate-level circuit (and its locally rewritten copy).
+    Random,
+}
+
+impl Kind {
+    /// Command-line spelling.
+    pub fn name(self) -> &'static str {
+        match self {
+            Kind::Selector => "selector",
+            Kind::Decoder => "decoder",
+            Kind::Priority => "priority",
+            Kind::Shifter => "shifter",
+            Kind::Adder => "adder",
+            Kind::Multiplier => "multiplier",
+            Kind::Random => "random",
+        }
+    }
+
+    /// The styles this kind offers; the first is the default.
+    pub fn styles(self) -> &'static [Style] {
+        use Style::*;
+        match self {
+            Kind::Selector => &[Spec, Decoder, Tree, Onehot, Mixed],
+            Kind::Decoder => &[Spec, Flat, Predecode],
+            Kind::Priority => &[Spec, Chain, Tree],
+            Kind::Shifter => &[Spec, Log, Decoder],
+            Kind::Adder => &[Spec, Ripple, Cla, KoggeStone, BrentKung],
+            Kind::Multiplier => &[Spec, Array, Wallace, Dadda],
+            Kind::Random => &[Plain, Rewritten],
+        }
+    }
+}
+
+/// How to build it. Each kind accepts the styles of [`Kind::styles`].
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, clap::ValueEnum)]
+pub enum Style {
+    /// Behavioural one-liner (Verilog); a documented gate form in bench.
+    Spec,
+    /// Selector: decoder-driven AND-OR (wide decoder ANDs, OR trees of fan-in 4).
+    /// Shifter: decoded shift amount driving an AND-OR per output bit.
+    Decoder,
+    /// Selector: tree of 2:1 cells (N-1 cells per bit, depth ceil(log2 N)).
+    /// Priority: tree of (valid, index) pairs merged with 2:1 cells.
+    Tree,
+    /// Selector: separate predecoded one-hot decoder, then AND-OR with 2-input OR trees.
+    Onehot,
+    /// Selector: a 2:1-cell tree on some select bits and a decoder AND-OR on the others
+    /// (split and order chosen by the seed).
+    Mixed,
+    /// Decoder: one k-input AND per output over shared inverters.
+    Flat,
+    /// Decoder: split the select bits in halves, decode each, AND the pairs (recursively).
+    Predecode,
+    /// Priority: a chain of "some higher request" ORs.
+    Chain,
+    /// Shifter: ceil(log2 n) levels of 2:1 cells.
+    Log,
+    /// Adder: ripple carry.
+    Ripple,
+    /// Adder: carry lookahead in 4-bit groups, hierarchically.
+    Cla,
+    /// Adder: Kogge-Stone parallel prefix.
+    KoggeStone,
+    /// Adder: Brent-Kung parallel prefix.
+    BrentKung,
+    /// Multiplier: array of rows of ripple-carry adders.
+    Array,
+    /// Multiplier: Wallace carry-save tree and a ripple-carry final adder.
+    Wallace,
+    /// Multiplier: Dadda carry-save tree and a ripple-carry final adder.
+    Dadda,
+    /// Random: the random circuit as drawn.
+    Plain,
+    /// Random: the same circuit after local equivalent rewrites.
+    Rewritten,
+}
+
+impl Style {
+    /// Command-line spelling.
+    pub fn name(self) -> &'static str {
+        match self {
+            Style::Spec => "spec",
+            Style::Decoder => "decoder",
+            Style::Tree => "tree",
+            Style::Onehot => "onehot",
+            Style::Mixed => "mixed",
+            Style::Flat => "flat",
+            Style::Predecode => "predecode",
+            Style::Chain => "chain",
+            Style::Log => "log",
+            Style::Ripple => "ripple",
+            Style::Cla => "cla",
+            Style::KoggeStone => "kogge-stone",
+            Style::BrentKung => "brent-kung",
+            Style::Array => "array",
+            Style::Wallace => "wallace",
+            Style::Dadda => "dadda",
+            Style::Plain => "plain",
+            Style::Rewritten => "rewritten",
+        }
+    }
+}
+
+/// A planted bug.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, clap::ValueEnum)]
+pub enum Bug {
+    /// Exchange two wires: the data inputs of a 2:1 cell, or one fan-in each of two gates of
+    /// the same type.
+    Swap,
+    /// A net stuck at 0.
+    Stuck0,
+    /// A net stuck at 1.
+    Stuck1,
+    /// A gate's output inverted.
+    Invert,
+    /// One fan-in of a gate connected to the wrong net.
+    Misroute,
+}
+
+impl Bug {
+    /// Command-line spelling.
+    pub fn name(self) -> &'static str {
+        match self {
+            Bug::Swap => "swap",
+            Bug::Stuck0 => "stuck0",
+            Bug::Stuck1 => "stuck1",
+            Bug::Invert => "invert",
+            Bug::Misroute => "misroute",
+        }
+    }
+}
+
+/// Output format.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, clap::ValueEnum)]
+pub enum GenFormat {
+    /// IEEE 1364-2005 Verilog.
+    Verilog,
+    /// ISCAS bench.
+    Bench,
+}
+
+/// Everything that determines a generated circuit.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct GenSpec {
+    /// What to generate.
+    pub kind: Kind,
+    /// How to build it.
+    pub style: Style,
+    /// The size; its meaning depends on the kind (see the module documentation).
+    pub n: usize,
+    /// Selector channel width W (1 for every other kind).
+    pub width: usize,
+    /// Random circuits: number of primary inputs.
+    pub inputs: usize,
+    /// Seed for every choice the generator makes.
+    pub seed: u64,
+    /// A bug to plant.
+    pub bug: Option<Bug>,
+    /// Where to plant it: a net name as printed (`m0_3`, `d[5]`); chosen by the seed if absent.
+    pub at: Option<String>,
+    /// Verilog module name; derived from the spec if absent.
+    pub module: Option<String>,
+}
+
+impl GenSpec {
+    /// A spec with width 1, 64 random inputs, seed 1, no bug.
+    pub fn new(kind: Kind, style: Style, n: usize) -> GenSpec {
+        GenSpec {
+            kind,
+            style,
+            n,
+            width: 1,
+            inputs: 64,
+            seed: 1,
+            bug: None,
+            at: None,
+            module: None,
+        }
+    }
+
+    /// The same spec with channel width `w`.
+    pub fn width(mut self, w: usize) -> GenSpec {
+        self.width = w;
+        self
+    }
+
+    /// The same spec with seed `seed`.
+    pub fn seed(mut self, seed: u64) -> GenSpec {
+        self.seed = seed;
+        self
+    }
+
+    /// The same spec with bug `bug` (at a seed-chosen place).
+    pub fn bug(mut self, bug: Bug) -> GenSpec {
+        self.bug = Some(bug);
+        self
+    }
+
+    /// The module name used when none is given.
+    pub fn default_module(&self) -> String {
+        let size = match self.kind {
+            Kind::Selector => format!("{}x{}", self.n, self.width),
+            _ => self.n.to_string(),
+        };
+        let bug = if self.bug.is_some() { "_bug" } else { "" };
+        format!(
+            "{}{size}_{}{bug}",
+            self.kind.name(),
+            self.style.name().replace('-', "_")
+        )
+    }
+
+    /// The command line that regenerates this circuit.
+    pub fn command_line(&self, format: GenFormat) -> String {
+        let mut s = format!("equicone gen {} --n {}", self.kind.name(), self.n);
+        if self.kind == Kind::Selector {
+            s += &format!(" --width {}", self.width);
+        }
+        if self.kind == Kind::Random {
+            s += &format!(" --inputs {}", self.inputs);
+        }
+        s += &format!(" --style {} --seed {}", self.style.name(), self.seed);
+        if let Some(b) = self.bug {
+            s += &format!(" --bug {}", b.name());
+        }
+        if let Some(a) = &self.at {
+            s += &format!(" --at '{a}'");
+        }
+        if let Some(m) = &self.module {
+            s += &format!(" --module {m}");
+        }
+        if format == GenFormat::Bench {
+            s += " --format bench";
+        }
+        s
+    }
+}
+
+/// A bad generator request: what is wrong and what to do (exit code 2 in the CLI).
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct GenError {
+    /// What is wrong, in one line.
+    pub message: String,
+    /// What to do about it.
+    pub help: String,
+}
+
+impl GenError {
+    fn new(message: impl Into<String>, help: impl Into<String>) -> GenError {
+        GenError {
+            message: message.into(),
+            help: help.into(),
+        }
+    }
+}
+
+impl fmt::Display for GenError {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(f, "error: {}\n  help: {}", self.message, self.help)
+    }
+}
+
+impl std::error::Error for GenError {}
+
+impl From<GenError> for crate::diag::InputError {
+    fn from(e: GenError) -> Self {
+        crate::diag::InputError::plain(e.message, e.help)
+    }
+}
+
+/// A generated file.
+#[derive(Clone, Debug)]
+pub struct Generated {
+    /// The file text.
+    pub text: String,
+    /// One line: what the circuit is.
+    pub description: String,
+    /// The planted bug, described, if any.
+    pub mutation: Option<String>,
+    /// Number of gates of the gate form (2:1 cells count as one).
+    pub gates: usize,
+}
+
+/// Generate the circuit `spec` as text in `format`.
+pub fn generate(spec: &GenSpec, format: GenFormat) -> Result<Generated, GenError> {
+    let (mut c, mutation) = build_with_mutation(spec)?;
+    let description = c.notes.first().cloned().unwrap_or_default();
+    c.notes.insert(0, spec.command_line(format));
+    let text = match format {
+        GenFormat::Verilog => c.to_verilog(),
+        GenFormat::Bench => c.to_bench(),
+    };
+    Ok(Generated {
+        text,
+        description,
+        mutation,
+        gates: c.gates().len(),
+    })
+}
+
+/// Build the circuit of `spec` (after the bug, if any) without printing it.
+pub fn build(spec: &GenSpec) -> Result<Circuit, GenError> {
+    build_with_mutation(spec).map(|(c, _)| c)
+}
+
+fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenError> {
+    validate(spec)?;
+    let module = spec.module.clone().unwrap_or_else(|| spec.default_module());
+    let mut c = Circuit::new(&module);
+    let mut rng = rng::Rng::new(spec.seed, 1);
+    let notes = match spec.kind {
+        Kind::Selector => selector::build(&mut c, spec.n, spec.width, spec.style, &mut rng),
+        Kind::Decoder => decoder::build_decoder(&mut c, spec.n, spec.style),
+        Kind::Priority => decoder::build_priority(&mut c, spec.n, spec.style),
+        Kind::Shifter => shifter::build(&mut c, spec.n, spec.style),
+        Kind::Adder => arith::build(&mut c, spec.n, spec.style),
+        Kind::Multiplier => mult::build(&mut c, spec.n, spec.style),
+        Kind::Random => random::build(&mut c, spec.n, spec.inputs, spec.style, spec.seed),
+    };
+    c.prune();
+    if cfg!(debug_assertions) {
+        if let Err(e) = c.check() {
+            panic!(
+                "generator bug in {}: {e}",
+                spec.command_line(GenFormat::Verilog)
+            );
+        }
+    }
+    c.notes = notes;
+    let mutation = match spec.bug {
+        Some(bug) => {
+            let (m, what) = mutate::apply(&c, bug, spec.at.as_deref(), spec.seed)?;
+            c = m;
+            Some(what)
+        }
+        None => None,
+    };
+    c.notes.push(format!(
+        "mutation: {}",
+        mutation.as_deref().unwrap_or("none")
+    ));
+    Ok((c, mutation))
+}
+
+fn validate(spec: &GenSpec) -> Result<(), GenError> {
+    let kind = spec.kind.name();
+    if !spec.kind.styles().contains(&spec.style) {
+        let names: Vec<&str> = spec.kind.styles().iter().map(|s| s.name()).collect();
+        return Err(GenError::new(
+            format!(
+                "style `{}` does not apply to kind {kind}",
+                spec.style.name()
+            ),
+            format!("use --style with one of: {}", names.join(", ")),
+        ));
+    }
+    let (min, max, what) = match spec.kind {
+        Kind::Selector => (2, 1 << 20, "a selector needs at least 2 channels"),
+        Kind::Decoder => (1, 20, "a decoder needs 1 to 20 select bits"),
+        Kind::Priority => (2, 1 << 20, "a priority encoder needs at least 2 requests"),
+        Kind::Shifter => (2, 1 << 16, "a shifter needs at least 2 data bits"),
+        Kind::Adder => (1, 1 << 16, "an adder needs operands of at least 1 bit"),
+        Kind::Multiplier => (2, 256, "a multiplier needs operands of at least 2 bits"),
+        Kind::Random => (1, 20_000_000, "a random circuit needs at least 1 gate"),
+    };
+    if spec.n < min || spec.n > max {
+        return Err(GenError::new(
+            format!("{what} (got --n {})", spec.n),
+            format!("give --n between {min} and {max} for kind {kind}"),
+        ));
+    }
+    if spec.width == 0 {
+        return Err(GenError::new(
+            "--width must be at least 1",
+            "give the channel width in bits, e.g. --width 8",
+        ));
+    }
+    if spec.kind != Kind::Selector && spec.width != 1 {
+        return Err(GenError::new(
+            format!("--width applies to selectors only, not to kind {kind}"),
+            "leave --width out; --n sets the size of this kind",
+        ));
+    }
+    if spec.kind == Kind::Selector && (spec.width > 4096 || spec.n * spec.width > 1 << 22) {
+        return Err(GenError::new(
+            format!("a {}x{} selector is too large", spec.n, spec.width),
+            "keep --width at most 4096 and --n times --width at most 4194304",
+        ));
+    }
+    if spec.kind == Kind::Shifter && spec.style == Style::Decoder && spec.n > 4096 {
+        return Err(GenError::new(
+            format!(
+                "a decoder-style shifter of {} bits is too large (about n*n/2 gates)",
+                spec.n
+            ),
+            "use --style log for more than 4096 bits",
+        ));
+    }
+    if spec.kind == Kind::Random && !(2..=1 << 16).contains(&spec.inputs) {
+        return Err(GenError::new(
+            format!(
+                "a random circuit needs 2 to 65536 inputs (got --inputs {})",
+                spec.inputs
+            ),
+            "give --inputs between 2 and 65536",
+        ));
+    }
+    if spec.bug.is_some() && spec.style == Style::Spec {
+        return Err(GenError::new(
+            "--bug needs a gate-level style; the spec style is a behavioural one-liner",
+            format!(
+                "choose a gate-level --style for kind {kind}, e.g. {}",
+                spec.kind.styles()[1].name()
+            ),
+        ));
+    }
+    if spec.at.is_some() && spec.bug.is_none() {
+        return Err(GenError::new(
+            "--at names the place of a bug, but no --bug is given",
+            "add --bug swap|stuck0|stuck1|invert|misroute, or leave out --at",
+        ));
+    }
+    if let Some(m) = &spec.module {
+        if !emit::is_identifier(m) {
+            return Err(GenError::new(
+                format!("module name `{m}` is not a plain Verilog identifier"),
+                "use letters, digits and `_`, starting with a letter",
+            ));
+        }
+    }
+    Ok(())
+}
+
+/// ceil(log2 n) for n >= 1.
+pub fn clog2(n: usize) -> usize {
+    (usize::BITS - (n.max(1) - 1).leading_zeros()) as usize
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn clog2_values() {
+        let got: Vec<usize> = [1, 2, 3, 4, 5, 8, 9, 12, 16, 17]
+            .iter()
+            .map(|&n| clog2(n))
+            .collect();
+        assert_eq!(got, vec![0, 1, 2, 2, 3, 3, 4, 4, 4, 5]);
+    }
+
+    #[test]
+    fn bad_requests_get_clear_errors() {
+        let e = generate(
+            &GenSpec::new(Kind::Selector, Style::Tree, 1),
+            GenFormat::Verilog,
+        )
+        .unwrap_err();
+        assert!(e.message.contains("at least 2 channels"), "{e}");
+        let e = generate(
+            &GenSpec::new(Kind::Selector, Style::Tree, 4).width(0),
+            GenFormat::Verilog,
+        )
+        .unwrap_err();
+        assert!(e.message.contains("--width"), "{e}");
+        let e = generate(
+            &GenSpec::new(Kind::Adder, Style::Tree, 4),
+            GenFormat::Verilog,
+        )
+        .unwrap_err();
+        assert!(e.help.contains("ripple"), "{e}");
+        let e = generate(
+            &GenSpec::new(Kind::Adder, Style::Spec, 4).bug(Bug::Swap),
+            GenFormat::Bench,
+        )
+        .unwrap_err();
+        assert!(e.message.contains("gate-level"), "{e}");
+    }
+}

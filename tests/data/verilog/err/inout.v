@@ -1,0 +1,3 @@
+module m(input a, inout b, output y);
+  assign y = a;
+endmodule

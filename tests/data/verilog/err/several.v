@@ -1,0 +1,5 @@
+module m(input a, output y, output z);
+  assign y = a ** 2;
+  assign z = a === 1'b1;
+  always @(a) y = a;
+endmodule

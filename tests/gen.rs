@@ -1,0 +1,25 @@
+//! Integration tests of the circuit generators (`equicone::gen`). Outside references: Rust's own
+//! u128 arithmetic for adders and multipliers, a bench evaluator written here independently of
+//! the generator's IR, and Icarus Verilog for the Verilog text.
+
+#[path = "gen/bench_eval.rs"]
+mod bench_eval;
+#[path = "gen/iverilog.rs"]
+mod iverilog;
+#[path = "gen/support.rs"]
+mod support;
+
+#[path = "gen/arith.rs"]
+mod arith;
+#[path = "gen/kinds.rs"]
+mod kinds;
+#[path = "gen/misc.rs"]
+mod misc;
+#[path = "gen/mutants.rs"]
+mod mutants;
+#[path = "gen/random_circuits.rs"]
+mod random_circuits;
+#[path = "gen/selectors.rs"]
+mod selectors;
+#[path = "gen/verilog.rs"]
+mod verilog;

@@ -1,0 +1,110 @@
+//! Helpers shared by the Verilog tests: reading sources, evaluating designs by port values,
+//! and running Icarus Verilog when it is installed.
+
+use equicone::design::Design;
+use equicone::front::verilog::read_verilog;
+use std::collections::HashMap;
+use std::path::{Path, PathBuf};
+use std::process::Command;
+use std::sync::Arc;
+
+/// Read one source text named `t.v`.
+pub fn read(src: &str) -> Design {
+    match read_verilog(&[(Arc::from("t.v"), src.to_string())], None) {
+        Ok(d) => d,
+        Err(e) => panic!("unexpected error reading:\n{src}\n---\n{e}"),
+    }
+}
+
+/// Read and return the error text.
+#[allow(dead_code)]
+pub fn read_err(src: &str) -> String {
+    match read_verilog(&[(Arc::from("t.v"), src.to_string())], None) {
+        Ok(_) => panic!("expected an error for:\n{src}"),
+        Err(e) => e.to_string(),
+    }
+}
+
+/// The repository's test data directory.
+pub fn data_dir() -> PathBuf {
+    Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/data/verilog")
+}
+
+/// Evaluate `d` with port values by name (bit `k` of the value is offset `k`, LSB first);
+/// unknown inputs take `unknown(k)`. Returns each output bit by name.
+pub fn eval_ports(
+    d: &Design,
+    ports: &HashMap<String, u128>,
+    unknown: &mut dyn FnMut(usize) -> bool,
+) -> HashMap<String, bool> {
+    // Offsets of bus bits: rank of the bit within its port, ordered as the reader lists them.
+    let mut rank: HashMap<&str, usize> = HashMap::new();
+    let mut ins = Vec::with_capacity(d.inputs.len());
+    for (k, b) in d.inputs.iter().enumerate() {
+        if b.is_unknown() {
+            ins.push(unknown(k));
+            continue;
+        }
+        let r = rank.entry(b.port.as_str()).or_insert(0);
+        let v = ports
+            .get(&b.port)
+            .copied()
+            .unwrap_or_else(|| panic!("no value for port {}", b.port));
+        ins.push((v >> *r) & 1 == 1);
+        *r += 1;
+    }
+    let out = d.eval(&ins);
+    d.outputs
+        .iter()
+        .zip(out)
+        .map(|(o, v)| (o.name.clone(), v))
+        .collect()
+}
+
+/// Whether Icarus Verilog can be used; skips loudly (or fails when required) when it is absent.
+pub fn iverilog_available() -> bool {
+    let ok = Command::new("iverilog")
+        .arg("-V")
+        .output()
+        .is_ok_and(|o| o.status.success() || !o.stdout.is_empty());
+    if !ok {
+        if std::env::var("EQUICONE_REQUIRE_IVERILOG").as_deref() == Ok("1") {
+            panic!("iverilog is required (EQUICONE_REQUIRE_IVERILOG=1) but was not found");
+        }
+        eprintln!(
+            "SKIPPED: iverilog not found; install Icarus Verilog to run the differential tests"
+        );
+    }
+    ok
+}
+
+/// Compile and run `src` (with top module `top`) with Icarus Verilog; returns stdout.
+pub fn run_iverilog(src: &str, top: &str) -> String {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let v = dir.path().join("tb.v");
+    std::fs::write(&v, src).expect("write");
+    let out = dir.path().join("tb.vvp");
+    let c = Command::new("iverilog")
+        .args(["-g2005", "-s", top, "-o"])
+        .arg(&out)
+        .arg(&v)
+        .output()
+        .expect("run iverilog");
+    assert!(
+        c.status.success(),
+        "iverilog failed:\n{}\n{}",
+        String::from_utf8_lossy(&c.stderr),
+        src
+    );
+    let r = Command::new("vvp")
+        .arg("-n")
+        .arg(&out)
+        .output()
+        .expect("run vvp");
+    assert!(
+        r.status.success(),
+        "vvp failed: {}",
+        String::from_utf8_lossy(&r.stderr)
+    );
+    String::from_utf8_lossy(&r.stdout).into_owned()
+}

@@ -1,0 +1,8 @@
+//! Integration tests of the Verilog front-end (one test binary, themed modules).
+
+mod common;
+mod engine_checks;
+mod fixtures;
+mod iverilog_diff;
+mod regress;
+mod semantics;

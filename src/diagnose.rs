@@ -72,9 +72,18 @@ pub fn diagnose(
         .take(MAX_TABLES)
         .filter_map(|p| Some((r.output_index(&p.reference)?, c.output_index(&p.candidate)?)))
         .collect();
+    // Unknown-value sources belong to one design: the other can never read them, so they are no
+    // hint to a miswired input (and an assumption may exclude the cases that read them).
+    let is_unknown =
+        |d: &Design, n: &String| d.input_index(n).is_some_and(|k| d.inputs[k].is_unknown());
     let supports = differing
         .iter()
-        .map(|&(ri, ci)| crate::cone::compare_supports(r, ri, c, ci, limits))
+        .map(|&(ri, ci)| {
+            let mut cmp = crate::cone::compare_supports(r, ri, c, ci, limits);
+            cmp.only_reference.retain(|n| !is_unknown(r, n));
+            cmp.only_candidate.retain(|n| !is_unknown(c, n));
+            cmp
+        })
         .collect();
     let mut routes_out = Vec::new();
     let sel = select.and_then(|bus| {

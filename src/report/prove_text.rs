@@ -8,6 +8,9 @@ use std::fmt::Write;
 /// pairs that are not equivalent are listed.
 const LIST_ALL: usize = 32;
 
+/// Counterexamples printed in full; the JSON report holds them all.
+const SHOW_CEX: usize = 2;
+
 /// The human-readable report of a proof run.
 pub fn prove_text(r: &ProveReport) -> String {
     let mut s = String::new();
@@ -115,7 +118,7 @@ pub fn prove_text(r: &ProveReport) -> String {
             let _ = writeln!(s, "{}", line.trim_end());
         }
     }
-    for (k, c) in r.counterexamples.iter().enumerate() {
+    for (k, c) in r.counterexamples.iter().enumerate().take(SHOW_CEX) {
         let _ = writeln!(
             s,
             "\ncounterexample {} (found by {}, re-simulated on both designs)",
@@ -155,6 +158,14 @@ pub fn prove_text(r: &ProveReport) -> String {
                 d.candidate_value as u8
             );
         }
+    }
+    if r.counterexamples.len() > SHOW_CEX {
+        let _ = writeln!(
+            s,
+            "\ncounterexamples {}..{}: in the JSON report (--json, or --report FILE); each replays with `equicone eval`",
+            SHOW_CEX + 1,
+            r.counterexamples.len()
+        );
     }
     if let Some(d) = &r.diagnosis {
         s += &crate::diagnose::diagnosis_text(d);

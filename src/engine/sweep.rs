@@ -21,8 +21,17 @@ use serde::Serialize;
 
 /// AND nodes a window query may encode.
 const WINDOW_BUDGET: usize = 300;
+/// AND nodes the second, larger window may encode.
+const LARGE_WINDOW_BUDGET: usize = 20_000;
 /// Conflicts allowed to a window query.
 const WINDOW_CONFLICTS: u64 = 300;
+/// Refutations after which a sweep that merges almost nothing gives up (the output queries
+/// then run on the graph as merged so far).
+const GIVE_UP_AFTER: usize = 2_000;
+/// "Almost nothing": fewer than one merge per this many refutations.
+const GIVE_UP_RATIO: usize = 50;
+/// Largest cone (nodes) simulated to extend a truncated window's model.
+const LIFT_MAX_CONE: usize = 200_000;
 /// Conflicts allowed to a whole-cone candidate query during the sweep.
 const SWEEP_CONFLICTS: u64 = 200;
 
@@ -45,6 +54,8 @@ pub struct SweepStats {
     pub unresolved: usize,
     /// Counterexample patterns fed back into simulation.
     pub patterns_fed_back: usize,
+    /// Candidate pairs that needed a whole-cone query (the window did not decide them).
+    pub whole_cone_queries: usize,
     /// AND nodes before sweeping.
     pub ands_before: usize,
     /// AND nodes of the merged graph.
@@ -62,6 +73,7 @@ impl SweepStats {
         self.refuted += o.refuted;
         self.unresolved += o.unresolved;
         self.patterns_fed_back += o.patterns_fed_back;
+        self.whole_cone_queries += o.whole_cone_queries;
         self.ands_before += o.ands_before;
         self.ands_after += o.ands_after;
     }
@@ -89,6 +101,7 @@ pub(crate) fn sweep(
     limits: &Limits,
     progress: &Progress,
 ) -> (Vec<Finding>, SatStats, SweepStats) {
+    let started = std::time::Instant::now();
     let g = cone.aig;
     let mut st = SweepStats {
         groups: 1,
@@ -119,6 +132,11 @@ pub(crate) fn sweep(
         global: Sat::new(limits),
         gts: Tseitin::new(),
         pending: Vec::new(),
+        whole_cone: 0,
+        tally: [0; 9],
+        stamp: Vec::new(),
+        value: Vec::new(),
+        epoch: 0,
         rng: cone.seed.wrapping_mul(0x9E37_79B9_7F4A_7C15) | 1,
         stored: if cfg!(debug_assertions) {
             ins
@@ -127,6 +145,9 @@ pub(crate) fn sweep(
         },
     };
     sw.f.reserve(g.len());
+    // Counterexamples wait for a batch before they are simulated on the whole graph: one
+    // at a time for small graphs, up to 64 (one word) for large ones.
+    let batch = (g.len() / 16_384).clamp(1, 64);
     let mut querying = true;
     let mut last_classes = st.classes;
     for i in 0..g.len() {
@@ -162,7 +183,15 @@ pub(crate) fn sweep(
             }
             Some(false) => {
                 st.refuted += 1;
-                if sw.pending.len() >= 64 {
+                if st.refuted >= GIVE_UP_AFTER && st.merged_by_sat * GIVE_UP_RATIO < st.refuted {
+                    log::debug!(
+                        "sweep: {} candidates refuted for {} merged; stopping the sweep",
+                        st.refuted,
+                        st.merged_by_sat
+                    );
+                    querying = false;
+                }
+                if sw.pending.len() >= batch {
                     st.patterns_fed_back += sw.pending.len();
                     sw.refine(&mut classes);
                     let now = classes.count();
@@ -189,6 +218,15 @@ pub(crate) fn sweep(
     #[cfg(debug_assertions)]
     sw.check_merges();
     st.ands_after = sw.f.num_ands();
+    st.whole_cone_queries = sw.whole_cone;
+    log::debug!(
+        "sweep: {:.3} s, window answers {:?}, window stats {:?}, whole-cone queries {} with stats {:?}",
+        started.elapsed().as_secs_f64(),
+        sw.tally,
+        sw.window.stats(),
+        sw.whole_cone,
+        sw.global.stats()
+    );
     log::debug!(
         "sweep: merged {} by hashing and {} by SAT, {} refuted, {} unresolved, {} patterns fed back; {} -> {} AND nodes",
         st.merged_by_hashing,
@@ -244,6 +282,13 @@ struct Sweeper<'a> {
     /// Counterexample patterns (one value per input) not yet simulated.
     pending: Vec<Vec<bool>>,
     rng: u64,
+    whole_cone: usize,
+    /// Window answers (small: equal, differ, partial, unknown; large: the same), lifts.
+    tally: [usize; 9],
+    /// Scratch for [`Sweeper::lift`]: visit stamps and simulation words per merged-graph node.
+    stamp: Vec<u32>,
+    value: Vec<u64>,
+    epoch: u32,
     /// Every simulated pattern word per input (debug builds only, for the merge check).
     stored: Vec<Vec<u64>>,
 }
@@ -252,21 +297,41 @@ impl Sweeper<'_> {
     /// Whether `a` and `b` (literals of the merged graph) are equal: `Some(true)` proved,
     /// `Some(false)` refuted (the pattern is queued), `None` unresolved.
     fn prove_equal(&mut self, a: Lit, b: Lit) -> Option<bool> {
-        match self
-            .window
-            .query(&self.f, a, b, WINDOW_BUDGET, WINDOW_CONFLICTS)
-        {
-            WindowAnswer::Equal => return Some(true),
-            WindowAnswer::Differ(vals) => {
-                let mut p = self.random_pattern();
-                for (k, v) in vals {
-                    p[k as usize] = v;
+        // A small window first, then (when its model does not extend to a real
+        // counterexample) a large one in a fresh solver, then the whole cone.
+        for (budget, conflicts) in [
+            (WINDOW_BUDGET, WINDOW_CONFLICTS),
+            (LARGE_WINDOW_BUDGET, SWEEP_CONFLICTS),
+        ] {
+            let ans = self.window.query(&self.f, a, b, budget, conflicts);
+            let kind = match &ans {
+                WindowAnswer::Equal => 0,
+                WindowAnswer::Differ(_) => 1,
+                WindowAnswer::Partial(_) => 2,
+                WindowAnswer::Unknown => 3,
+            };
+            self.tally[usize::from(budget != WINDOW_BUDGET) * 4 + kind] += 1;
+            match ans {
+                WindowAnswer::Equal => return Some(true),
+                WindowAnswer::Differ(vals) => {
+                    let mut p = self.random_pattern();
+                    for (k, v) in vals {
+                        p[k as usize] = v;
+                    }
+                    self.pending.push(p);
+                    return Some(false);
                 }
-                self.pending.push(p);
-                return Some(false);
+                WindowAnswer::Partial(vals) => {
+                    if let Some(p) = self.lift(a, b, &vals) {
+                        self.tally[8] += 1;
+                        self.pending.push(p);
+                        return Some(false);
+                    }
+                }
+                WindowAnswer::Unknown => return None,
             }
-            WindowAnswer::Unknown => {}
         }
+        self.whole_cone += 1;
         let ca = self.gts.lit(&self.f, &mut self.global, a);
         let cb = self.gts.lit(&self.f, &mut self.global, b);
         let act = self.global.fresh();
@@ -296,12 +361,73 @@ impl Sweeper<'_> {
         answer
     }
 
+    /// Try to extend a truncated window's model to a real counterexample: 64 patterns that
+    /// keep `fixed` and draw the other inputs at random, simulated on the cones of `a` and `b`.
+    fn lift(&mut self, a: Lit, b: Lit, fixed: &[(u32, bool)]) -> Option<Vec<bool>> {
+        let f = &self.f;
+        if self.stamp.len() < f.len() {
+            self.stamp.resize(f.len(), 0);
+            self.value.resize(f.len(), 0);
+        }
+        self.epoch += 1;
+        let epoch = self.epoch;
+        let mut cone = Vec::new();
+        let mut stack = vec![a.node(), b.node()];
+        while let Some(n) = stack.pop() {
+            if self.stamp[n as usize] == epoch {
+                continue;
+            }
+            self.stamp[n as usize] = epoch;
+            cone.push(n);
+            if cone.len() > LIFT_MAX_CONE {
+                return None;
+            }
+            if let Node::And(x, y) = f.node(n) {
+                stack.push(x.node());
+                stack.push(y.node());
+            }
+        }
+        cone.sort_unstable();
+        let mut fixed_word = vec![None; 0];
+        fixed_word.resize(f.num_inputs(), None);
+        for &(k, v) in fixed {
+            fixed_word[k as usize] = Some(if v { u64::MAX } else { 0 });
+        }
+        let mut rng = self.rng;
+        for &n in &cone {
+            let v = match f.node(n) {
+                Node::Const => 0,
+                Node::Input(k) => fixed_word[k as usize].unwrap_or_else(|| {
+                    rng = rng.wrapping_add(0x9E37_79B9_7F4A_7C15);
+                    mix(rng)
+                }),
+                Node::And(x, y) => {
+                    let vx = self.value[x.index()] ^ if x.is_complemented() { u64::MAX } else { 0 };
+                    let vy = self.value[y.index()] ^ if y.is_complemented() { u64::MAX } else { 0 };
+                    vx & vy
+                }
+            };
+            self.value[n as usize] = v;
+        }
+        self.rng = rng;
+        let word = |l: Lit| self.value[l.index()] ^ if l.is_complemented() { u64::MAX } else { 0 };
+        let d = word(a) ^ word(b);
+        if d == 0 {
+            return None;
+        }
+        let bit = d.trailing_zeros();
+        let mut p = self.random_pattern();
+        for &n in &cone {
+            if let Node::Input(k) = self.f.node(n) {
+                p[k as usize] = (self.value[n as usize] >> bit) & 1 == 1;
+            }
+        }
+        Some(p)
+    }
+
     fn random_word(&mut self) -> u64 {
         self.rng = self.rng.wrapping_add(0x9E37_79B9_7F4A_7C15);
-        let mut z = self.rng;
-        z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
-        z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
-        z ^ (z >> 31)
+        mix(self.rng)
     }
 
     fn random_pattern(&mut self) -> Vec<bool> {
@@ -358,4 +484,12 @@ impl Sweeper<'_> {
             }
         }
     }
+}
+
+/// SplitMix64 output function.
+#[inline]
+fn mix(mut z: u64) -> u64 {
+    z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
+    z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
+    z ^ (z >> 31)
 }

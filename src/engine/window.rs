@@ -5,14 +5,16 @@
 //! real counterexample only when the window reached the primary inputs everywhere (it is then
 //! *complete*); otherwise the caller falls back to a query on the whole cone.
 //! Clauses of each query are guarded by an activation literal that is retired afterwards; the
-//! solver is replaced every few hundred queries so that retired clauses do not pile up.
+//! solver is replaced once it holds a few thousand variables so that retired windows do not
+//! slow later queries down.
 
 use crate::aig::{Aig, Lit, Node};
 use crate::sat::{CLit, ClauseSink, Limits, Sat, SatResult, SatStats};
 use std::collections::HashMap;
 
-/// Queries per solver before it is replaced.
-const QUERIES_PER_SOLVER: usize = 400;
+/// Variables a window solver may accumulate before it is replaced: varisat assigns every
+/// variable of the solver before it reports a model, so retired windows must not pile up.
+const VARS_PER_SOLVER: u64 = 4_000;
 
 /// The answer of one window query.
 pub(crate) enum WindowAnswer {
@@ -20,7 +22,10 @@ pub(crate) enum WindowAnswer {
     Equal,
     /// They differ under these values of primary inputs (input position, value).
     Differ(Vec<(u32, bool)>),
-    /// No decision (truncated window with a model, or the conflict limit).
+    /// A model of a truncated window: these input values (input position, value) and some
+    /// frontier values make the literals differ; a real counterexample may or may not extend it.
+    Partial(Vec<(u32, bool)>),
+    /// No decision (the conflict limit).
     Unknown,
 }
 
@@ -28,7 +33,6 @@ pub(crate) enum WindowAnswer {
 pub(crate) struct Window {
     sat: Sat<'static>,
     limits: Limits,
-    queries: usize,
     retired: SatStats,
     vars: HashMap<u32, CLit>,
     order: Vec<u32>,
@@ -41,7 +45,6 @@ impl Window {
         Window {
             sat: Sat::new(limits),
             limits: limits.clone(),
-            queries: 0,
             retired: SatStats::default(),
             vars: HashMap::new(),
             order: Vec::new(),
@@ -65,12 +68,10 @@ impl Window {
         budget: usize,
         conflicts: u64,
     ) -> WindowAnswer {
-        if self.queries >= QUERIES_PER_SOLVER {
+        if self.sat.stats().vars >= VARS_PER_SOLVER {
             self.retired.add(&self.sat.stats());
             self.sat = Sat::new(&self.limits);
-            self.queries = 0;
         }
-        self.queries += 1;
         // Collect the window: nodes reached from the two roots, AND nodes expanded while the
         // budget lasts.
         self.vars.clear();
@@ -81,7 +82,11 @@ impl Window {
         let mut expanded = 0usize;
         let mut complete = true;
         let act = self.sat.fresh();
-        while let Some(n) = self.stack.pop() {
+        // Breadth first, so that the window holds the nodes nearest the two literals.
+        let mut head = 0;
+        while head < self.stack.len() {
+            let n = self.stack[head];
+            head += 1;
             if self.vars.contains_key(&n) {
                 continue;
             }
@@ -116,7 +121,7 @@ impl Window {
         self.sat.clause(&[!act, !ca, !cb]);
         let answer = match self.sat.solve_within(&[act], Some(conflicts)) {
             SatResult::Unsat => WindowAnswer::Equal,
-            SatResult::Sat if complete => {
+            SatResult::Sat => {
                 let mut values: Vec<(u32, bool)> = self
                     .vars
                     .iter()
@@ -126,9 +131,13 @@ impl Window {
                     })
                     .collect();
                 values.sort_unstable();
-                WindowAnswer::Differ(values)
+                if complete {
+                    WindowAnswer::Differ(values)
+                } else {
+                    WindowAnswer::Partial(values)
+                }
             }
-            SatResult::Sat | SatResult::Stopped(_) => WindowAnswer::Unknown,
+            SatResult::Stopped(_) => WindowAnswer::Unknown,
         };
         self.sat.clause(&[!act]);
         answer
@@ -168,7 +177,7 @@ mod tests {
             }
             _ => panic!("xor and and differ"),
         }
-        // A budget of one node leaves a free frontier: a model is not trusted.
-        assert!(matches!(w.query(&g, x, n, 1, 1000), WindowAnswer::Unknown));
+        // A budget of one node leaves a free frontier: a model is only partial.
+        assert!(matches!(w.query(&g, x, n, 1, 1000), WindowAnswer::Partial(_)));
     }
 }

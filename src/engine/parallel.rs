@@ -15,7 +15,7 @@ use crate::sat::{Limits, SatStats};
 use rayon::prelude::*;
 
 /// Smallest shared graph (nodes) worth splitting.
-const SPLIT_MIN_NODES: usize = 20_000;
+const SPLIT_MIN_NODES: usize = 4_000;
 /// Largest total cone size, relative to the union, that a split may cost.
 const SPLIT_OVERLAP: f64 = 1.25;
 

@@ -59,7 +59,7 @@ impl Progress {
     /// Node pairs proved and merged.
     pub(crate) fn proved(&self, k: usize) {
         let n = self.proved.fetch_add(k, Ordering::Relaxed) + k;
-        if n % 256 == 0 {
+        if n.is_multiple_of(256) {
             self.redraw();
         }
     }

@@ -206,7 +206,7 @@ pub(crate) fn sweep(
                 }
             }
         }
-        if i % 4096 == 0 && limits.expired() {
+        if i.is_multiple_of(4096) && limits.expired() {
             querying = false;
         }
     }

@@ -178,6 +178,9 @@ mod tests {
             _ => panic!("xor and and differ"),
         }
         // A budget of one node leaves a free frontier: a model is only partial.
-        assert!(matches!(w.query(&g, x, n, 1, 1000), WindowAnswer::Partial(_)));
+        assert!(matches!(
+            w.query(&g, x, n, 1, 1000),
+            WindowAnswer::Partial(_)
+        ));
     }
 }

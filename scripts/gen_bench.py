@@ -242,7 +242,8 @@ def random_pair(gates, seed, rewrite):
     g = Net()
     n_in = max(64, gates // 500)
     sigs = [g.inp(f"x[{i}]") for i in range(n_in)]
-    kinds = ["AND", "OR", "NAND", "NOR", "XOR", "AND", "OR"]
+    # Half XOR-type gates keep signal probabilities near 1/2 through deep random logic.
+    kinds = ["AND", "OR", "NAND", "NOR", "XOR", "XNOR", "XOR", "XNOR"]
     window = 4000
     for _ in range(gates):
         k = rng.choice(kinds)
@@ -274,6 +275,8 @@ def rewritten(g, k, x, y, rw):
         return g.AND(g.NOT(x), g.NOT(g.OR(y, g.AND(x, y))))
     if k == "XOR":  # (x | y) & !(x & y)
         return g.AND(g.OR(x, y), g.NOT(g.AND(x, y)))
+    if k == "XNOR":  # (x & y) | !(x | y)
+        return g.OR(g.AND(x, y), g.NOT(g.OR(x, y)))
     raise ValueError(k)
 
 

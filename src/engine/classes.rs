@@ -98,9 +98,13 @@ impl Classes {
         Some((r as usize, self.phase[n] != self.phase[r as usize]))
     }
 
-    /// Split the classes by one more word of simulation values (`values[node]`).
-    pub(crate) fn refine(&mut self, values: &[u64]) {
-        let mut seen: HashMap<(u32, u64), (u32, u32)> = HashMap::with_capacity(self.active.len());
+    /// Split the classes by one more word of simulation values (`values[node]`). `done` is
+    /// the sweep's position (kept for callers; every member stays, since a passed member can
+    /// still represent a later node once its class splits).
+    pub(crate) fn refine(&mut self, values: &[u64], done: usize) {
+        let _ = done;
+        let mut seen: HashMap<(u32, u64), (u32, u32), FastHash> =
+            HashMap::with_capacity_and_hasher(self.active.len(), FastHash);
         for &n in &self.active {
             let v = values[n as usize];
             let v = if self.phase[n as usize] { !v } else { v };
@@ -129,6 +133,37 @@ impl Classes {
     /// Number of nodes in classes with two or more members.
     pub(crate) fn members(&self) -> usize {
         self.active.len()
+    }
+}
+
+/// A fast hasher for (representative, word) keys, which are already well mixed.
+#[derive(Clone, Copy, Default)]
+struct FastHash;
+
+impl std::hash::BuildHasher for FastHash {
+    type Hasher = FastHasher;
+    fn build_hasher(&self) -> FastHasher {
+        FastHasher(0)
+    }
+}
+
+/// The hasher of [`FastHash`]: multiply-and-mix over the written integers.
+struct FastHasher(u64);
+
+impl std::hash::Hasher for FastHasher {
+    fn finish(&self) -> u64 {
+        mix(self.0)
+    }
+    fn write(&mut self, bytes: &[u8]) {
+        for &b in bytes {
+            self.0 = (self.0 ^ u64::from(b)).wrapping_mul(0x100_0000_01B3);
+        }
+    }
+    fn write_u32(&mut self, i: u32) {
+        self.0 = (self.0 ^ u64::from(i)).wrapping_mul(0x9E37_79B9_7F4A_7C15);
+    }
+    fn write_u64(&mut self, i: u64) {
+        self.0 = (self.0.rotate_left(29) ^ i).wrapping_mul(0x9E37_79B9_7F4A_7C15);
     }
 }
 
@@ -165,7 +200,7 @@ mod tests {
         // A word that separates them (pretend values) splits the class.
         let mut vals = vec![0u64; g.len()];
         vals[y.index()] = 1;
-        c.refine(&vals);
+        c.refine(&vals, 0);
         assert!(c.candidate(y.index()).is_none());
     }
 }

@@ -16,9 +16,11 @@ use super::window::{Window, WindowAnswer};
 use super::Finding;
 use crate::aig::{random_words, simulate, Aig, Lit, Node};
 use crate::cnf::Tseitin;
-use crate::sat::{ClauseSink, Limits, Sat, SatResult, SatStats, StopReason};
+use crate::sat::{Limits, Sat, SatStats, StopReason};
 use serde::Serialize;
 
+/// AND nodes of the first window: enough for a local rewrite whose fan-ins are merged.
+const TINY_WINDOW_BUDGET: usize = 24;
 /// AND nodes a window query may encode.
 const WINDOW_BUDGET: usize = 300;
 /// AND nodes the second, larger window may encode.
@@ -31,7 +33,7 @@ const GIVE_UP_AFTER: usize = 2_000;
 /// "Almost nothing": fewer than one merge per this many refutations.
 const GIVE_UP_RATIO: usize = 50;
 /// Largest cone (nodes) simulated to extend a truncated window's model.
-const LIFT_MAX_CONE: usize = 200_000;
+const LIFT_MAX_CONE: usize = 20_000;
 /// Conflicts allowed to a whole-cone candidate query during the sweep.
 const SWEEP_CONFLICTS: u64 = 200;
 
@@ -145,6 +147,7 @@ pub(crate) fn sweep(
         },
     };
     sw.f.reserve(g.len());
+    let side = sides(g, &cone.pairs);
     // Counterexamples wait for a batch before they are simulated on the whole graph: one
     // at a time for small graphs, up to 64 (one word) for large ones.
     let batch = (g.len() / 16_384).clamp(1, 64);
@@ -167,6 +170,11 @@ pub(crate) fn sweep(
         let Some((r, compl)) = classes.candidate(i) else {
             continue;
         };
+        if side[i] | side[r] != BOTH {
+            // Both in the reference alone, or both in the candidate alone: merging them is
+            // not needed to relate the designs.
+            continue;
+        }
         let t = sw.map[r].xor_complement(compl);
         if l == t {
             st.merged_by_hashing += 1;
@@ -193,7 +201,7 @@ pub(crate) fn sweep(
                 }
                 if sw.pending.len() >= batch {
                     st.patterns_fed_back += sw.pending.len();
-                    sw.refine(&mut classes);
+                    sw.refine(&mut classes, i + 1);
                     let now = classes.count();
                     progress.add_classes(now as i64 - last_classes as i64);
                     last_classes = now;
@@ -212,7 +220,7 @@ pub(crate) fn sweep(
     }
     if !sw.pending.is_empty() {
         st.patterns_fed_back += sw.pending.len();
-        sw.refine(&mut classes);
+        sw.refine(&mut classes, g.len());
     }
     progress.add_classes(-(last_classes as i64));
     #[cfg(debug_assertions)]
@@ -272,6 +280,26 @@ pub(crate) fn sweep(
     (findings, sat, st)
 }
 
+/// Side marks: in the reference's cones, in the candidate's cones.
+const REF: u8 = 1;
+const CAND: u8 = 2;
+const BOTH: u8 = 3;
+
+/// For each node: which designs' output cones hold it (inputs count as both, the constant as
+/// neither, so that a node is tried against a constant only when both designs share it).
+fn sides(g: &Aig, pairs: &[PairQuery]) -> Vec<u8> {
+    let r: Vec<Lit> = pairs.iter().map(|p| p.reference).collect();
+    let c: Vec<Lit> = pairs.iter().map(|p| p.candidate).collect();
+    let (mr, mc) = (g.cone_mask(&r), g.cone_mask(&c));
+    (0..g.len())
+        .map(|n| match g.node(n as u32) {
+            Node::Const => 0,
+            Node::Input(_) => BOTH,
+            Node::And(..) => REF * u8::from(mr[n]) + CAND * u8::from(mc[n]),
+        })
+        .collect()
+}
+
 struct Sweeper<'a> {
     g: &'a Aig,
     f: Aig,
@@ -300,6 +328,7 @@ impl Sweeper<'_> {
         // A small window first, then (when its model does not extend to a real
         // counterexample) a large one in a fresh solver, then the whole cone.
         for (budget, conflicts) in [
+            (TINY_WINDOW_BUDGET, WINDOW_CONFLICTS),
             (WINDOW_BUDGET, WINDOW_CONFLICTS),
             (LARGE_WINDOW_BUDGET, SWEEP_CONFLICTS),
         ] {
@@ -310,7 +339,7 @@ impl Sweeper<'_> {
                 WindowAnswer::Partial(_) => 2,
                 WindowAnswer::Unknown => 3,
             };
-            self.tally[usize::from(budget != WINDOW_BUDGET) * 4 + kind] += 1;
+            self.tally[usize::from(budget > WINDOW_BUDGET) * 4 + kind] += 1;
             match ans {
                 WindowAnswer::Equal => return Some(true),
                 WindowAnswer::Differ(vals) => {
@@ -331,34 +360,10 @@ impl Sweeper<'_> {
                 WindowAnswer::Unknown => return None,
             }
         }
+        // Cones beyond the large window stay unmerged: a whole-cone query on a big graph
+        // costs more than the merge saves (the output queries still see the whole cone).
         self.whole_cone += 1;
-        let ca = self.gts.lit(&self.f, &mut self.global, a);
-        let cb = self.gts.lit(&self.f, &mut self.global, b);
-        let act = self.global.fresh();
-        self.global.clause(&[!act, ca, cb]);
-        self.global.clause(&[!act, !ca, !cb]);
-        let r = self.global.solve_within(&[act], Some(SWEEP_CONFLICTS));
-        let answer = match r {
-            SatResult::Unsat => Some(true),
-            SatResult::Sat => {
-                let mut p = self.random_pattern();
-                for (k, &n) in self.f.inputs().iter().enumerate() {
-                    if let Some(v) = self.gts.var_of(n) {
-                        p[k] = self.global.value(v);
-                    }
-                }
-                self.pending.push(p);
-                Some(false)
-            }
-            SatResult::Stopped(_) => None,
-        };
-        self.global.clause(&[!act]);
-        if answer == Some(true) {
-            // Keep the proved equality: it helps later queries.
-            self.global.clause(&[!ca, cb]);
-            self.global.clause(&[ca, !cb]);
-        }
-        answer
+        None
     }
 
     /// Try to extend a truncated window's model to a real counterexample: 64 patterns that
@@ -444,7 +449,7 @@ impl Sweeper<'_> {
     }
 
     /// Simulate the queued patterns (one word; unused bits random) and split the classes.
-    fn refine(&mut self, classes: &mut Classes) {
+    fn refine(&mut self, classes: &mut Classes, done: usize) {
         let n = self.g.num_inputs();
         // Bits past the queued patterns are fresh random patterns.
         let mut row: Vec<Vec<u64>> = (0..n).map(|_| vec![self.random_word()]).collect();
@@ -456,7 +461,7 @@ impl Sweeper<'_> {
         }
         self.pending.clear();
         let table = simulate(self.g, &row, 1);
-        classes.refine(&table.values);
+        classes.refine(&table.values, done);
         if cfg!(debug_assertions) {
             for (k, r) in row.into_iter().enumerate() {
                 self.stored[k].push(r[0]);

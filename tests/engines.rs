@@ -52,10 +52,7 @@ impl Circuit {
     }
 
     /// Bench text; gate `g` may be replaced by the lines `rewrite` gives for it.
-    fn bench(
-        &self,
-        rewrite: &mut Rewrite<'_>,
-    ) -> String {
+    fn bench(&self, rewrite: &mut Rewrite<'_>) -> String {
         let name = |s: usize| {
             if s < self.inputs {
                 format!("x{s}")

@@ -9,6 +9,7 @@ use crate::engine::{self, EngineKind, PairBy, ProveError, ProveOptions, Verdict}
 use crate::report;
 use crate::sat::ClauseSink;
 use clap::Args;
+use std::io::IsTerminal;
 use std::time::Duration;
 
 /// Reading the reference and the candidate.
@@ -66,9 +67,15 @@ impl PairArgs {
 pub struct ProveArgs {
     #[command(flatten)]
     pair: PairArgs,
-    /// The proof engine.
+    /// The proof engine: `sweep` (default) merges proved internal node pairs before the output
+    /// queries; `plain` is the single-call miter (baseline and fallback); `pairs` is
+    /// simulation plus one query per output pair.
     #[arg(long, value_enum, default_value_t = EngineKind::default())]
     engine: EngineKind,
+    /// Worker threads for independent output cones (default: one per core). The verdicts do
+    /// not depend on it.
+    #[arg(long, short = 'j', value_name = "N")]
+    jobs: Option<usize>,
     /// Stop after this many seconds; open output pairs are then undecided.
     #[arg(long, value_name = "SECONDS")]
     timeout: Option<f64>,
@@ -140,6 +147,8 @@ pub fn run(a: &ProveArgs) -> Exit {
         conflict_limit: a.conflict_limit,
         seed: a.seed,
         sim_words: None,
+        jobs: a.jobs.unwrap_or(0),
+        progress: !a.json && std::io::stderr().is_terminal(),
     };
     let mut shared = match engine::pair(&r, &c, opts.pair_by, opts.free_extra_inputs) {
         Ok(s) => s,

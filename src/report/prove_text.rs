@@ -48,7 +48,12 @@ pub fn prove_text(r: &ProveReport) -> String {
     }
     let methods = |v: Verdict| {
         let mut parts = Vec::new();
-        for m in [Method::Structure, Method::Simulation, Method::Sat] {
+        for m in [
+            Method::Structure,
+            Method::Sweep,
+            Method::Simulation,
+            Method::Sat,
+        ] {
             let k = r
                 .pairs
                 .iter()

@@ -15,6 +15,7 @@ mod pairs;
 mod parallel;
 mod progress;
 pub mod result;
+mod split;
 mod sweep;
 pub mod unknowns;
 mod window;

@@ -3,7 +3,11 @@
 //! clauses to help later queries; a model is checked against the other open pairs at once.
 
 use super::progress::Progress;
+use super::split::{self, SplitResult};
 use super::{Finding, Method};
+
+/// Conflicts for an output pair's query before case splitting is tried.
+const FIRST_BUDGET: u64 = 1_000;
 use crate::aig::{eval, Aig, Lit};
 use crate::cnf::Tseitin;
 use crate::sat::{ClauseSink, Limits, Sat, SatResult, StopReason};
@@ -49,7 +53,45 @@ pub(crate) fn decide_pairs(
         let act = sat.fresh();
         sat.clause(&[!act, a, b]);
         sat.clause(&[!act, !a, !b]);
-        match sat.solve(&[act]) {
+        let mut answer = sat.solve_within(&[act], Some(FIRST_BUDGET));
+        if answer == SatResult::Stopped(StopReason::ConflictLimit)
+            && limits.conflicts_per_query.is_none()
+        {
+            // Hard for the solver as a whole: split on inputs, then, failing that, solve on.
+            match split::decide(
+                aig,
+                pairs[p].reference,
+                pairs[p].candidate,
+                constraint,
+                limits,
+            ) {
+                SplitResult::Equal => {
+                    findings[p] = Some(Finding::Equal(Method::Split));
+                    progress.outputs_done(1);
+                    sat.clause(&[!a, b]);
+                    sat.clause(&[a, !b]);
+                    sat.clause(&[!act]);
+                    continue;
+                }
+                SplitResult::Differ(values) => {
+                    mark_separated(aig, pairs, &values, findings, progress);
+                    if findings[p].is_none() {
+                        findings[p] = Some(Finding::Differ(Method::Split, values));
+                    }
+                    sat.clause(&[!act]);
+                    continue;
+                }
+                SplitResult::Stopped(StopReason::Timeout) => {
+                    findings[p] = Some(Finding::Stopped(StopReason::Timeout));
+                    sat.clause(&[!act]);
+                    continue;
+                }
+                SplitResult::Stopped(StopReason::ConflictLimit) => answer = sat.solve(&[act]),
+            }
+        } else if answer == SatResult::Stopped(StopReason::ConflictLimit) {
+            answer = sat.solve(&[act]);
+        }
+        match answer {
             SatResult::Unsat => {
                 findings[p] = Some(Finding::Equal(Method::Sat));
                 progress.outputs_done(1);

@@ -39,6 +39,8 @@ pub enum Method {
     Simulation,
     /// A SAT query on the XOR miter (UNSAT: equivalent; a model: different).
     Sat,
+    /// Case splitting on inputs, each cofactor decided by SAT or structural hashing.
+    Split,
     /// Nothing decided it (the verdict is undecided).
     None,
 }
@@ -51,6 +53,7 @@ impl Method {
             Method::Sweep => "sweep",
             Method::Simulation => "simulation",
             Method::Sat => "sat",
+            Method::Split => "split",
             Method::None => "-",
         }
     }

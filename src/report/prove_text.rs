@@ -53,6 +53,7 @@ pub fn prove_text(r: &ProveReport) -> String {
             Method::Sweep,
             Method::Simulation,
             Method::Sat,
+            Method::Split,
         ] {
             let k = r
                 .pairs

@@ -109,11 +109,12 @@ pub fn pair(r: &Design, c: &Design, by: PairBy, free_extra: bool) -> Result<Shar
             }
         }
         PairBy::Name => {
+            let by_name: std::collections::HashMap<&str, usize> = c_ports
+                .iter()
+                .map(|&ci| (c.inputs[ci].name.as_str(), ci))
+                .collect();
             for &ri in &r_ports {
-                match c
-                    .input_index(&r.inputs[ri].name)
-                    .filter(|&ci| !c.inputs[ci].is_unknown())
-                {
+                match by_name.get(r.inputs[ri].name.as_str()).copied() {
                     Some(ci) => {
                         ref_input[ri] = inputs.len();
                         cand_input[ci] = inputs.len();
@@ -218,8 +219,15 @@ fn pair_outputs(r: &Design, c: &Design, by: PairBy) -> Result<Vec<(usize, usize)
     let mut pairs = Vec::with_capacity(r.outputs.len());
     let mut only_r = Vec::new();
     let mut used = vec![false; c.outputs.len()];
+    let by_name: std::collections::HashMap<&str, usize> = c
+        .outputs
+        .iter()
+        .enumerate()
+        .rev()
+        .map(|(k, o)| (o.name.as_str(), k))
+        .collect();
     for (ri, o) in r.outputs.iter().enumerate() {
-        match c.output_index(&o.name) {
+        match by_name.get(o.name.as_str()).copied() {
             Some(ci) => {
                 used[ci] = true;
                 pairs.push((ri, ci));

@@ -37,11 +37,25 @@ pub(crate) enum SplitResult {
 pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits) -> SplitResult {
     let n = aig.num_inputs();
     // Work items: the parent graph with its roots, the inputs fixed so far, and one more to fix.
-    type Item = (Arc<Aig>, [Lit; 3], Vec<(usize, bool)>);
+    // `orig[k]` is the position in `aig` of the graph's input k (cofactors keep only the
+    // inputs of their cones); `fix` is the parent's input position to fix, with its value.
+    type Item = (
+        Arc<Aig>,
+        Arc<Vec<usize>>,
+        [Lit; 3],
+        Vec<(usize, bool)>,
+        Option<(usize, bool)>,
+    );
     let root = Arc::new(aig.clone());
-    let mut stack: Vec<Item> = vec![(root, [a, b, constraint], Vec::new())];
+    let mut stack: Vec<Item> = vec![(
+        root,
+        Arc::new((0..n).collect()),
+        [a, b, constraint],
+        Vec::new(),
+        None,
+    )];
     let mut leaves = 0usize;
-    while let Some((parent, roots, fixed)) = stack.pop() {
+    while let Some((parent, porig, roots, fixed, fix)) = stack.pop() {
         if limits.expired() {
             return SplitResult::Stopped(StopReason::Timeout);
         }
@@ -50,12 +64,24 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
             return SplitResult::Stopped(StopReason::ConflictLimit);
         }
         let mut g = Aig::new();
-        let mut map: Vec<Lit> = (0..n).map(|_| g.add_input()).collect();
-        if let Some(&(k, v)) = fixed.last() {
-            map[k] = Lit::constant(v);
-        }
+        let in_cone = parent.cone_mask(&roots);
+        let mut orig = Vec::new();
+        let map: Vec<Lit> = parent
+            .inputs()
+            .iter()
+            .enumerate()
+            .map(|(k, &node)| match fix {
+                Some((f, v)) if f == k => Lit::constant(v),
+                _ if in_cone[node as usize] => {
+                    orig.push(porig[k]);
+                    g.add_input()
+                }
+                _ => Lit::FALSE,
+            })
+            .collect();
         let r = g.import(&parent, &map, &roots);
         drop(parent);
+        let orig = Arc::new(orig);
         let (x, y, c) = (r[0], r[1], r[2]);
         if c == Lit::FALSE || x == y {
             continue;
@@ -66,8 +92,8 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
                 let g = Arc::new(g);
                 for v in [true, false] {
                     let mut f = fixed.clone();
-                    f.push((k, v));
-                    stack.push((g.clone(), [x, y, c], f));
+                    f.push((orig[k], v));
+                    stack.push((g.clone(), orig.clone(), [x, y, c], f, Some((k, v))));
                 }
                 continue;
             }
@@ -83,9 +109,10 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
         match sat.solve_within(&[], Some(LEAF_BUDGET)) {
             SatResult::Unsat => continue,
             SatResult::Sat => {
-                let mut values: Vec<bool> = (0..n)
-                    .map(|k| ts.var_of(g.inputs()[k]).is_some_and(|v| sat.value(v)))
-                    .collect();
+                let mut values = vec![false; n];
+                for (k, &o) in orig.iter().enumerate() {
+                    values[o] = ts.var_of(g.inputs()[k]).is_some_and(|v| sat.value(v));
+                }
                 for &(k, v) in &fixed {
                     values[k] = v;
                 }
@@ -104,8 +131,8 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
                 let g = Arc::new(g);
                 for v in [true, false] {
                     let mut f = fixed.clone();
-                    f.push((k, v));
-                    stack.push((g.clone(), [x, y, c], f));
+                    f.push((orig[k], v));
+                    stack.push((g.clone(), orig.clone(), [x, y, c], f, Some((k, v))));
                 }
             }
         }

@@ -1,7 +1,9 @@
-//! Diagnosis of a difference: for selector-like output pairs that differ, both designs' route
-//! tables over the select bus side by side, with the select values whose routes differ.
+//! Diagnosis of a difference: for the output pairs that differ, both supports side by side
+//! (what one design reads that the other does not), and for selector-like outputs both designs'
+//! route tables over the select bus, with the select values whose routes differ.
 
 use crate::aig::Lit;
+use crate::cone::SupportComparison;
 use crate::design::Design;
 use crate::engine::{ProveReport, Verdict};
 use crate::routes::{self, Route};
@@ -26,8 +28,10 @@ pub struct RouteDiff {
 /// What the diagnosis found.
 #[derive(Clone, Debug, PartialEq, Serialize)]
 pub struct Diagnosis {
-    /// The select bus used for route tables.
-    pub select: String,
+    /// Supports of the differing output pairs (at most [`MAX_TABLES`]).
+    pub supports: Vec<SupportComparison>,
+    /// The select bus used for route tables, if any.
+    pub select: Option<String>,
     /// One entry per differing output pair (at most [`MAX_TABLES`]).
     pub routes: Vec<RouteDiff>,
 }
@@ -47,61 +51,112 @@ pub fn pick_select(r: &Design, c: &Design, named: Option<&str>) -> Option<String
     }
 }
 
-/// Build the route-table comparison for the differing pairs of `rep`. `constraints` are the
-/// assumption literals of each design's own AIG (`Lit::TRUE` when none).
+/// Diagnose the differing pairs of `rep`: supports always; route tables over `select` when
+/// given. `constraints` are the assumption literals of each design's own AIG (`Lit::TRUE` when
+/// none); the designs passed must hold them.
 pub fn diagnose(
     r: &Design,
     c: &Design,
     rep: &ProveReport,
-    select: &str,
+    select: Option<&str>,
     constraints: (Lit, Lit),
     limits: &Limits,
 ) -> Option<Diagnosis> {
     if rep.verdict != Verdict::Different {
         return None;
     }
-    let rs = routes::select_bits(r, select).ok()?;
-    let cs = routes::select_bits(c, select).ok()?;
-    if rs.len() != cs.len() {
-        return None;
-    }
-    let mut out = Vec::new();
-    for p in rep
+    let differing: Vec<(usize, usize)> = rep
         .pairs
         .iter()
         .filter(|p| p.status == Verdict::Different)
         .take(MAX_TABLES)
-    {
-        let ri = r.output_index(&p.reference)?;
-        let ci = c.output_index(&p.candidate)?;
-        let rt = routes::route_table(r, ri, select, &rs, constraints.0, limits);
-        let ct = routes::route_table(c, ci, select, &cs, constraints.1, limits);
-        let differing_values = (0..rt.routes.len())
-            .filter(|&v| {
-                !matches!(rt.routes[v], Route::Excluded)
-                    && !matches!(ct.routes[v], Route::Excluded)
-                    && rt.routes[v] != ct.routes[v]
-            })
-            .collect();
-        out.push(RouteDiff {
-            reference: p.reference.clone(),
-            candidate: p.candidate.clone(),
-            reference_routes: rt.routes,
-            candidate_routes: ct.routes,
-            differing_values,
-        });
+        .filter_map(|p| Some((r.output_index(&p.reference)?, c.output_index(&p.candidate)?)))
+        .collect();
+    // Unknown-value sources belong to one design: the other can never read them, so they are no
+    // hint to a miswired input (and an assumption may exclude the cases that read them).
+    let is_unknown =
+        |d: &Design, n: &String| d.input_index(n).is_some_and(|k| d.inputs[k].is_unknown());
+    let supports = differing
+        .iter()
+        .map(|&(ri, ci)| {
+            let mut cmp = crate::cone::compare_supports(r, ri, c, ci, limits);
+            cmp.only_reference.retain(|n| !is_unknown(r, n));
+            cmp.only_candidate.retain(|n| !is_unknown(c, n));
+            cmp
+        })
+        .collect();
+    let mut routes_out = Vec::new();
+    let sel = select.and_then(|bus| {
+        let rs = routes::select_bits(r, bus).ok()?;
+        let cs = routes::select_bits(c, bus).ok()?;
+        (rs.len() == cs.len()).then_some((bus, rs, cs))
+    });
+    if let Some((bus, rs, cs)) = &sel {
+        for &(ri, ci) in &differing {
+            let rt = routes::route_table(r, ri, bus, rs, constraints.0, limits);
+            let ct = routes::route_table(c, ci, bus, cs, constraints.1, limits);
+            let differing_values = (0..rt.routes.len())
+                .filter(|&v| {
+                    !matches!(rt.routes[v], Route::Excluded)
+                        && !matches!(ct.routes[v], Route::Excluded)
+                        && rt.routes[v] != ct.routes[v]
+                })
+                .collect();
+            routes_out.push(RouteDiff {
+                reference: r.outputs[ri].name.clone(),
+                candidate: c.outputs[ci].name.clone(),
+                reference_routes: rt.routes,
+                candidate_routes: ct.routes,
+                differing_values,
+            });
+        }
     }
     Some(Diagnosis {
-        select: select.to_string(),
-        routes: out,
+        supports,
+        select: sel.map(|(b, _, _)| b.to_string()),
+        routes: routes_out,
     })
 }
 
-/// Text form: both tables compressed, then every differing select value marked with `!`.
+/// Text form: supports that differ, then both route tables compressed with every differing
+/// select value marked with `!`.
 pub fn diagnosis_text(d: &Diagnosis) -> String {
-    let mut s = format!(
-        "\nroute tables over `{}` for the differing outputs (each route proved by SAT)\n",
-        d.select
+    let mut s = String::new();
+    let differ: Vec<&SupportComparison> = d.supports.iter().filter(|c| c.differs()).collect();
+    if !d.supports.is_empty() {
+        if differ.is_empty() {
+            s += &format!(
+                "\nsupports of the differing outputs: the same inputs on both sides ({} pair{} compared)\n",
+                d.supports.len(),
+                if d.supports.len() == 1 { "" } else { "s" }
+            );
+        } else {
+            s += "\nsupports that differ (exact, decided by simulation and SAT)\n";
+            for c in differ {
+                let label = if c.reference_output == c.candidate_output {
+                    c.reference_output.clone()
+                } else {
+                    format!("{} ~ {}", c.reference_output, c.candidate_output)
+                };
+                s += &format!("  {label}\n");
+                if !c.only_reference.is_empty() {
+                    s += &format!(
+                        "    read by the reference only: {}\n",
+                        c.only_reference.join(", ")
+                    );
+                }
+                if !c.only_candidate.is_empty() {
+                    s += &format!(
+                        "    read by the candidate only: {}\n",
+                        c.only_candidate.join(", ")
+                    );
+                }
+            }
+        }
+    }
+    let Some(select) = &d.select else { return s };
+    s += &format!(
+        "\nroute tables over `{select}` for the differing outputs (each route proved by SAT)\n"
     );
     for t in &d.routes {
         let label = if t.reference == t.candidate {
@@ -110,14 +165,13 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
             format!("{} ~ {}", t.reference, t.candidate)
         };
         s += &format!("  {label}\n");
-        let rr = routes::render(&d.select, &routes::compress(&t.reference_routes));
-        let cr = routes::render(&d.select, &routes::compress(&t.candidate_routes));
+        let rr = routes::render(select, &routes::compress(&t.reference_routes));
+        let cr = routes::render(select, &routes::compress(&t.candidate_routes));
         s += &format!("    reference  {}\n", rr.join("; "));
         s += &format!("    candidate  {}\n", cr.join("; "));
         for &v in &t.differing_values {
             s += &format!(
-                "    {} {v}: reference {}, candidate {}  !\n",
-                d.select,
+                "    {select} {v}: reference {}, candidate {}  !\n",
                 t.reference_routes[v].text(),
                 t.candidate_routes[v].text()
             );

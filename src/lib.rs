@@ -6,6 +6,7 @@
 
 pub mod aig;
 pub mod assume;
+pub mod certify;
 pub mod cli;
 pub mod cnf;
 pub mod cone;

@@ -148,12 +148,21 @@ impl<'a> Sat<'a> {
 
     /// Solve under `assumptions`.
     pub fn solve(&mut self, assumptions: &[CLit]) -> SatResult {
+        self.solve_within(assumptions, None)
+    }
+
+    /// Solve under `assumptions` with at most `conflicts` conflicts (and at most the run's own
+    /// per-query limit, whichever is smaller).
+    pub fn solve_within(&mut self, assumptions: &[CLit], conflicts: Option<u64>) -> SatResult {
         if self.limits.expired() {
             return SatResult::Stopped(StopReason::Timeout);
         }
         self.solver.assume(assumptions);
-        self.solver
-            .set_conflict_limit(self.limits.conflicts_per_query);
+        let limit = match (conflicts, self.limits.conflicts_per_query) {
+            (Some(a), Some(b)) => Some(a.min(b)),
+            (a, b) => a.or(b),
+        };
+        self.solver.set_conflict_limit(limit);
         let before = self.solver.conflicts();
         let r = self.solver.solve();
         self.stats.calls += 1;

@@ -299,6 +299,36 @@ mod reports {
     }
 }
 
+mod diagnosis {
+    use super::*;
+
+    /// A miswired data line shows up as a support difference: the reference reads d[2], the
+    /// candidate does not.
+    #[test]
+    fn a_miswired_input_shows_in_the_supports() {
+        let text = std::fs::read_to_string(
+            Path::new(env!("CARGO_MANIFEST_DIR")).join("bench-circuits/examples/mux4_tree.bench"),
+        )
+        .unwrap()
+        .replace("a1 = NAND(d[2], n0)", "a1 = NAND(d[1], n0)");
+        let cand = tmp("miswired.bench");
+        std::fs::write(&cand, text).unwrap();
+        let o = equicone(&[
+            "prove",
+            "bench-circuits/examples/mux4_spec.bench",
+            cand.to_str().unwrap(),
+        ]);
+        assert_eq!(code(&o), 1);
+        let out = stdout(&o);
+        assert!(out.contains("supports that differ"), "{out}");
+        assert!(out.contains("read by the reference only: d[2]"), "{out}");
+        assert!(
+            out.contains("s 2: reference d[2], candidate d[1]  !"),
+            "{out}"
+        );
+    }
+}
+
 mod bad_input {
     use super::*;
 

@@ -1,5 +1,7 @@
 //! Integration tests of the cone audit and the stats report (one binary, themed modules).
 
+#[path = "cone/cli.rs"]
+mod cli;
 #[path = "cone/common.rs"]
 mod common;
 #[path = "cone/evidence.rs"]
@@ -8,5 +10,7 @@ mod evidence;
 mod flags;
 #[path = "cone/iscas.rs"]
 mod iscas;
+#[path = "oracle/mod.rs"]
+mod oracle;
 #[path = "cone/selectors.rs"]
 mod selectors;

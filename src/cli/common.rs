@@ -84,6 +84,14 @@ pub fn write_atomic(path: &str, contents: &[u8]) -> Result<(), InputError> {
     };
     let mut tmp = tempfile::NamedTempFile::new_in(dir).map_err(fail)?;
     tmp.write_all(contents).map_err(fail)?;
+    #[cfg(unix)]
+    {
+        // A temporary file is private (0600); the result should read like any new file.
+        use std::os::unix::fs::PermissionsExt;
+        let _ = tmp
+            .as_file()
+            .set_permissions(std::fs::Permissions::from_mode(0o644));
+    }
     tmp.as_file().sync_all().map_err(fail)?;
     tmp.persist(p).map_err(|e| fail(e.error))?;
     Ok(())

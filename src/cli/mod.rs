@@ -5,6 +5,7 @@
 //! usage, 3 undecided (a limit was hit), 4 internal error (no claim is made).
 
 mod common;
+mod cone;
 mod demo;
 mod eval;
 mod gen;
@@ -56,6 +57,10 @@ pub enum Command {
     /// Write a generated circuit: selectors, decoders, priority encoders, shifters, adders,
     /// multipliers, random circuits; optionally with a planted bug.
     Gen(gen::GenArgs),
+    /// Audit each output's structural cone against its exact support; flag redundant inputs.
+    Cone(cone::ConeArgs),
+    /// Gate counts, cost, delay and depth, with the lower bounds each output's support implies.
+    Stats(cone::StatsArgs),
 }
 
 /// Run a parsed command line and return its exit code.
@@ -67,5 +72,7 @@ pub fn run(cli: Cli) -> Exit {
         Command::Cnf(a) => prove::run_cnf(&a),
         Command::Routes(a) => routes::run(&a),
         Command::Gen(a) => gen::run(&a),
+        Command::Cone(a) => cone::run_cone(&a),
+        Command::Stats(a) => cone::run_stats(&a),
     }
 }

@@ -9,6 +9,7 @@ use crate::engine::{self, EngineKind, PairBy, ProveError, ProveOptions, Verdict}
 use crate::report;
 use crate::sat::ClauseSink;
 use clap::Args;
+use std::io::IsTerminal;
 use std::time::Duration;
 
 /// Reading the reference and the candidate.
@@ -66,9 +67,15 @@ impl PairArgs {
 pub struct ProveArgs {
     #[command(flatten)]
     pair: PairArgs,
-    /// The proof engine.
+    /// The proof engine: `sweep` (default) merges proved internal node pairs before the output
+    /// queries; `plain` is the single-call miter (baseline and fallback); `pairs` is
+    /// simulation plus one query per output pair.
     #[arg(long, value_enum, default_value_t = EngineKind::default())]
     engine: EngineKind,
+    /// Worker threads for independent output cones (default: one per core). The verdicts do
+    /// not depend on it.
+    #[arg(long, short = 'j', value_name = "N")]
+    jobs: Option<usize>,
     /// Stop after this many seconds; open output pairs are then undecided.
     #[arg(long, value_name = "SECONDS")]
     timeout: Option<f64>,
@@ -88,6 +95,13 @@ pub struct ProveArgs {
     /// e.g. `sel < 12` (repeatable: all must hold).
     #[arg(long, value_name = "EXPR")]
     assume: Vec<String>,
+    /// Write a proof of the equivalent output pairs: a DRAT refutation (FILE) of a miter that
+    /// encodes both designs separately (FILE.cnf), checkable by any DRAT checker.
+    #[arg(long, value_name = "FILE")]
+    proof: Option<String>,
+    /// Format of the --proof file.
+    #[arg(long, value_enum, default_value_t = crate::certify::ProofFormat::Drat)]
+    proof_format: crate::certify::ProofFormat,
     /// The select bus for route tables of differing outputs (default: `sel`, `s`, `select` or
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
@@ -133,6 +147,8 @@ pub fn run(a: &ProveArgs) -> Exit {
         conflict_limit: a.conflict_limit,
         seed: a.seed,
         sim_words: None,
+        jobs: a.jobs.unwrap_or(0),
+        progress: !a.json && std::io::stderr().is_terminal(),
     };
     let mut shared = match engine::pair(&r, &c, opts.pair_by, opts.free_extra_inputs) {
         Ok(s) => s,
@@ -141,23 +157,31 @@ pub fn run(a: &ProveArgs) -> Exit {
     if let Err(e) = crate::assume::apply_to_shared(&mut shared, &r, &a.assume) {
         return report_input_error(&e);
     }
+    let kept = a.proof.as_ref().map(|_| shared.clone());
     let mut rep = match engine::prove_shared(&r, &c, shared, &a.assume, &opts) {
         Ok(rep) => rep,
         Err(ProveError::Input(e)) => return report_input_error(&e),
         Err(ProveError::Internal(m)) => return report_internal(&m),
     };
-    if let Some(bus) = diagnose::pick_select(&r, &c, a.select.as_deref()) {
+    let bus = diagnose::pick_select(&r, &c, a.select.as_deref());
+    if let (None, Some(b)) = (&bus, &a.select) {
+        eprintln!(
+            "warning: no route tables: `{b}` is not an input bus of both designs (up to 16 bits)"
+        );
+    }
+    if rep.verdict == Verdict::Different {
         let limits = crate::sat::Limits::new(timeout, a.conflict_limit);
         if let (Ok((r2, rc)), Ok((c2, cc))) = (
             crate::assume::on_design(&r, &a.assume),
             crate::assume::on_design(&c, &a.assume),
         ) {
-            rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, &bus, (rc, cc), &limits);
+            rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, bus.as_deref(), (rc, cc), &limits);
         }
-    } else if let Some(bus) = &a.select {
-        eprintln!(
-            "warning: no route tables: `{bus}` is not an input bus of both designs (up to 16 bits)"
-        );
+    }
+    if let (Some(path), Some(shared)) = (&a.proof, &kept) {
+        if let Err(code) = write_proof(&r, &c, shared, &rep, path, a.proof_format, timeout) {
+            return code;
+        }
     }
     let json = report::to_json(&rep);
     if let Some(path) = &a.report {
@@ -240,5 +264,47 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
             Exit::Ok
         }
         Err(e) => report_input_error(&e),
+    }
+}
+
+/// Certify the equivalent output pairs and write the proof and its formula.
+fn write_proof(
+    r: &Design,
+    c: &Design,
+    shared: &engine::Shared,
+    rep: &engine::ProveReport,
+    path: &str,
+    format: crate::certify::ProofFormat,
+    timeout: Option<Duration>,
+) -> Result<(), Exit> {
+    use crate::certify::{certify, NoCertificate};
+    let pairs: Vec<usize> = (0..rep.pairs.len())
+        .filter(|&p| rep.pairs[p].status == Verdict::Equivalent)
+        .collect();
+    let limits = crate::sat::Limits::new(timeout, None);
+    match certify(r, c, shared, &pairs, format, &limits) {
+        Ok(cert) => {
+            let cnf_path = format!("{path}.cnf");
+            if let Err(e) = write_atomic(&cnf_path, &cert.cnf).and_then(|_| write_atomic(path, &cert.proof)) {
+                return Err(report_input_error(&e));
+            }
+            eprintln!(
+                "proof: {path} refutes {cnf_path}: the {} equivalent output pair{} (both designs encoded separately)",
+                cert.pairs,
+                if cert.pairs == 1 { "" } else { "s" }
+            );
+            Ok(())
+        }
+        Err(NoCertificate::Nothing) => {
+            eprintln!("proof: not written, no output pair is equivalent");
+            Ok(())
+        }
+        Err(NoCertificate::Stopped(s)) => {
+            eprintln!("proof: not written ({s}); the verdict stands on the engine's answers");
+            Ok(())
+        }
+        Err(NoCertificate::Satisfiable) => Err(report_internal(
+            "the separately encoded miter is satisfiable although the engine proved the pairs equal; no claim is made",
+        )),
     }
 }

@@ -38,6 +38,19 @@ impl Tseitin {
         }
     }
 
+    /// Use `v` as the variable of node `n` (an input), so that several graphs can share their
+    /// input variables. Must come before `n` is encoded.
+    pub fn bind(&mut self, n: u32, v: CLit) {
+        if self.map.len() <= n as usize {
+            self.map.resize(n as usize + 1, None);
+        }
+        assert!(
+            self.map[n as usize].is_none(),
+            "bind: node {n} is already encoded"
+        );
+        self.map[n as usize] = Some(v);
+    }
+
     /// The CNF literal of node `n`, if it is encoded.
     pub fn var_of(&self, n: u32) -> Option<CLit> {
         self.map.get(n as usize).copied().flatten()

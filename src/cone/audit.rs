@@ -1,6 +1,7 @@
 //! The `cone` audit: structural cones, supports, flags and the report, for the selected
 //! output bits of one design.
 
+use super::bits::Bits;
 use super::expect::Expectation;
 use super::names::{compact, input_names, output_names, resolve};
 use super::report::{AuditReport, ClaimReport, ClaimVerdict, Flag, InputSummary, OutputAudit};
@@ -80,6 +81,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     let mut audits = Vec::with_capacity(results.len());
     let mut in_cones = vec![0usize; design.inputs.len()];
     let mut in_supports = vec![0usize; design.inputs.len()];
+    let mut in_undecided = vec![0usize; design.inputs.len()];
     for (r, cone) in results.iter().zip(&cones) {
         let out = &design.outputs[r.output];
         let support = r.support();
@@ -90,6 +92,9 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
             in_supports[k] += 1;
         }
         let undecided = r.undecided();
+        for &k in &undecided {
+            in_undecided[k] += 1;
+        }
         let constant = (support.is_empty() && undecided.is_empty())
             .then(|| design.eval(&vec![false; design.inputs.len()])[r.output]);
         if let Some(value) = constant {
@@ -98,16 +103,22 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
                 value,
             });
         }
-        for (&k, m) in r.cone.iter().zip(&r.claims) {
-            if let Membership::Independent(by) = m {
-                if !design.inputs[k].is_unknown() {
-                    flags.push(Flag::RedundantInput {
-                        output: out.name.clone(),
-                        input: name(k),
-                        by: *by,
-                    });
-                }
-            }
+        let mut redundant: Vec<(usize, IndependentBy)> = r
+            .cone
+            .iter()
+            .zip(&r.claims)
+            .filter_map(|(&k, m)| match m {
+                Membership::Independent(by) if !design.inputs[k].is_unknown() => Some((k, *by)),
+                _ => None,
+            })
+            .collect();
+        redundant.sort_by_key(|&(k, by)| (proof_rank(by), k));
+        for (k, by) in redundant {
+            flags.push(Flag::RedundantInput {
+                output: out.name.clone(),
+                input: name(k),
+                by,
+            });
         }
         for &k in &support {
             if let InputKind::Unknown { pos, what } = &design.inputs[k].kind {
@@ -162,7 +173,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     }
     if all_outputs {
         for k in 0..design.inputs.len() {
-            if in_supports[k] == 0 && !design.inputs[k].is_unknown() {
+            if in_supports[k] == 0 && in_undecided[k] == 0 && !design.inputs[k].is_unknown() {
                 flags.push(Flag::UnusedInput {
                     input: name(k),
                     connected: in_cones[k] > 0,
@@ -204,6 +215,15 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     }
 }
 
+/// Report order of the proofs of redundancy: SAT answers first, then structural ones.
+fn proof_rank(by: IndependentBy) -> u8 {
+    match by {
+        IndependentBy::Unsat => 0,
+        IndependentBy::CofactorsMerged => 1,
+        IndependentBy::NoPath => 2,
+    }
+}
+
 fn claims(design: &Design, r: &SupportResult) -> Vec<ClaimReport> {
     r.cone
         .iter()
@@ -213,11 +233,13 @@ fn claims(design: &Design, r: &SupportResult) -> Vec<ClaimReport> {
             verdict: match m {
                 Membership::Depends { vector, value, by } => ClaimVerdict::Depends {
                     by: *by,
-                    vector: r
-                        .cone
-                        .iter()
-                        .map(|&j| if vector[j] { '1' } else { '0' })
-                        .collect(),
+                    vector: {
+                        let mut b = Bits::new(r.cone.len());
+                        for (i, &j) in r.cone.iter().enumerate() {
+                            b.set(i, vector.get(j));
+                        }
+                        b
+                    },
                     output_at_0: *value,
                 },
                 Membership::Independent(by) => ClaimVerdict::Independent {

@@ -2,6 +2,7 @@
 //! in every pattern and re-simulate only the nodes whose values change. An output whose
 //! words change proves that it depends on the flipped input; the pattern is the evidence.
 
+use super::bits::Bits;
 use crate::aig::{simulate, Aig, Lit, Node, SimTable};
 use std::cmp::Reverse;
 use std::collections::BinaryHeap;
@@ -166,11 +167,12 @@ impl<'a> FlipSim<'a> {
     }
 
     /// The value of every primary input in pattern `p`.
-    pub(crate) fn pattern(&self, p: usize) -> Vec<bool> {
-        self.inputs
-            .iter()
-            .map(|row| (row[p / 64] >> (p % 64)) & 1 == 1)
-            .collect()
+    pub(crate) fn pattern(&self, p: usize) -> Bits {
+        let mut b = Bits::new(self.inputs.len());
+        for (k, row) in self.inputs.iter().enumerate() {
+            b.set(k, (row[p / 64] >> (p % 64)) & 1 == 1);
+        }
+        b
     }
 }
 
@@ -203,7 +205,7 @@ mod tests {
             s.flip(k);
             for root in [y, z] {
                 if let Some(p) = s.first_difference(root) {
-                    let mut v = s.pattern(p);
+                    let mut v = s.pattern(p).to_bools();
                     let before = eval(&g, &v, &[root])[0];
                     v[k] = !v[k];
                     assert_ne!(before, eval(&g, &v, &[root])[0], "input {k}");

@@ -7,6 +7,7 @@
 //! [`compare_supports`] for prove's side-by-side hint on a differing output pair.
 
 mod audit;
+pub mod bits;
 mod cofactor;
 mod compare;
 pub mod dot;
@@ -19,6 +20,7 @@ pub mod support;
 mod text;
 
 pub use audit::{audit, select_outputs, AuditOptions};
+pub use bits::Bits;
 pub use compare::{compare_supports, SupportComparison};
 pub use expect::{parse_expect, read_expect, ExpectEntry, Expectation};
 pub use report::{AuditReport, ClaimReport, ClaimVerdict, Flag, InputSummary, OutputAudit};
@@ -37,12 +39,12 @@ pub(crate) fn progress_bar(enabled: bool, what: &str) -> ProgressBar {
     if !enabled || !std::io::stderr().is_terminal() {
         return ProgressBar::hidden();
     }
-    let bar = ProgressBar::with_draw_target(Some(0), ProgressDrawTarget::stderr());
+    let mut bar = ProgressBar::with_draw_target(Some(0), ProgressDrawTarget::stderr())
+        .with_message(what.to_string());
     if let Ok(style) =
         ProgressStyle::with_template("{msg} [{bar:40}] {pos}/{len} claims ({eta} left)")
     {
-        bar.set_style(style.progress_chars("=> "));
+        bar = bar.with_style(style.progress_chars("=> "));
     }
-    bar.set_message(what.to_string());
     bar
 }

@@ -131,7 +131,7 @@ fn parse_range(item: &str) -> Result<Option<(&str, i64, i64)>, NameError> {
     };
     let a: i64 = a.trim().parse().map_err(|_| bad())?;
     let b: i64 = b.trim().parse().map_err(|_| bad())?;
-    if (a - b).abs() > 1 << 24 {
+    if a.abs_diff(b) > 1 << 24 {
         return Err(bad());
     }
     Ok(Some((port, a, b)))

@@ -2,6 +2,7 @@
 //! documented JSON schema (`equicone.cone/1`, see docs/cone.md) and prints as text
 //! (the `Display` implementation lives in the text module).
 
+use super::bits::Bits;
 use super::structural::GraphSource;
 use super::support::{DependsBy, IndependentBy, SupportStats};
 use crate::sat::StopReason;
@@ -134,7 +135,7 @@ pub enum ClaimVerdict {
         by: DependsBy,
         /// The first vector: one character `0`/`1` per cone input (in `cone` order), the
         /// claimed input at `0`. The second vector is the same with the claimed input at `1`.
-        vector: String,
+        vector: Bits,
         /// The output on the first vector; on the second it is the opposite.
         output_at_0: bool,
     },

@@ -9,6 +9,7 @@
 //! model is replayed by flip simulation on the claims still open. A query stopped by a limit
 //! leaves its claim undecided; nothing is guessed.
 
+use super::bits::Bits;
 use super::cofactor::Cofactorer;
 use super::flip::{Fanout, FlipSim};
 use crate::aig::{eval, random_words, Lit};
@@ -71,7 +72,7 @@ pub enum Membership {
     /// at 0) the output is `value`; with the input flipped to 1 it is `!value`.
     Depends {
         /// Values of all design inputs, in design order, with the claimed input at 0.
-        vector: Vec<bool>,
+        vector: Bits,
         /// The output's value on `vector`.
         value: bool,
         /// Where the pattern came from.
@@ -340,8 +341,8 @@ impl<'a> Engine<'a> {
                 match sim.first_difference(root) {
                     Some(p) => {
                         let mut vector = sim.pattern(p);
-                        let was_one = vector[x];
-                        vector[x] = false;
+                        let was_one = vector.get(x);
+                        vector.set(x, false);
                         let at_p = sim.value(root, p);
                         let value = at_p ^ was_one;
                         self.claims[pos_u][ci_u] = Some(Membership::Depends { vector, value, by });
@@ -366,7 +367,7 @@ impl<'a> Engine<'a> {
         let aig = &design.aig;
         let mut work = aig.clone();
         let mut cof = Cofactorer::new(aig.len());
-        let mut pool: Vec<Vec<bool>> = Vec::new();
+        let mut pool: Vec<Bits> = Vec::new();
         for pos in 0..self.outputs.len() {
             let todo: Vec<usize> = (0..self.claims[pos].len())
                 .filter(|&ci| self.claims[pos][ci].is_none())
@@ -414,7 +415,7 @@ impl<'a> Engine<'a> {
         miter: Lit,
         root: Lit,
         x: usize,
-        pool: &mut Vec<Vec<bool>>,
+        pool: &mut Vec<Bits>,
     ) -> Membership {
         if miter == Lit::FALSE {
             return Membership::Independent(IndependentBy::CofactorsMerged);
@@ -435,6 +436,7 @@ impl<'a> Engine<'a> {
                 vector[x] = true;
                 let flipped = eval(aig, &vector, &[root])[0];
                 vector[x] = false;
+                let vector = Bits::from_bools(&vector);
                 assert_ne!(
                     value, flipped,
                     "internal error: a SAT model of a cofactor miter does not re-simulate"
@@ -456,13 +458,13 @@ impl<'a> Engine<'a> {
     }
 
     /// Flip simulation on the SAT models in `pool`, 64 per word, padded with random patterns.
-    fn replay(&mut self, pool: &mut [Vec<bool>]) {
+    fn replay(&mut self, pool: &mut [Bits]) {
         for (w, chunk) in pool.chunks(64).enumerate() {
             let n = self.design.aig.num_inputs();
             let mut ins = random_words(n, 1, 0xC0FF_EE00 + w as u64);
             for (p, vector) in chunk.iter().enumerate() {
                 for (k, row) in ins.iter_mut().enumerate() {
-                    row[0] = (row[0] & !(1u64 << p)) | ((vector[k] as u64) << p);
+                    row[0] = (row[0] & !(1u64 << p)) | ((vector.get(k) as u64) << p);
                 }
             }
             self.stats.replayed_patterns += chunk.len() as u64;
@@ -511,7 +513,7 @@ mod tests {
         let Some(Membership::Depends { vector, value, .. }) = r.membership(0) else {
             panic!("a must be in the support: {r:?}");
         };
-        let mut v = vector.clone();
+        let mut v = vector.to_bools();
         assert_eq!(d.eval(&v)[0], *value);
         v[0] = true;
         assert_eq!(d.eval(&v)[0], !*value);

@@ -63,8 +63,38 @@ impl fmt::Display for AuditReport {
             writeln!(f, "flags: none")?;
         } else {
             writeln!(f, "flags ({}):", self.flags.len())?;
-            for fl in &self.flags {
-                writeln!(f, "  {}", flag_text(fl))?;
+            let mut i = 0;
+            while i < self.flags.len() {
+                // Redundant inputs of one output with one proof share a line.
+                if let Flag::RedundantInput { output, by, .. } = &self.flags[i] {
+                    let mut inputs = Vec::new();
+                    while let Some(Flag::RedundantInput {
+                        output: o2,
+                        input,
+                        by: b2,
+                    }) = self.flags.get(i)
+                    {
+                        if o2 != output || b2 != by {
+                            break;
+                        }
+                        inputs.push(input.as_str());
+                        i += 1;
+                    }
+                    let (noun, verb) = if inputs.len() == 1 {
+                        ("input", "is")
+                    } else {
+                        ("inputs", "are")
+                    };
+                    writeln!(
+                        f,
+                        "  redundant {noun}: {output} does not depend on {}, which {verb} wired into its cone ({})",
+                        inputs.join(", "),
+                        proof(*by)
+                    )?;
+                    continue;
+                }
+                writeln!(f, "  {}", flag_text(&self.flags[i]))?;
+                i += 1;
             }
         }
         let verdict = if self.flagged() {
@@ -150,16 +180,21 @@ fn write_output(
             o.support_text
         )?,
     }
-    let redundant: Vec<String> = o
-        .claims
-        .iter()
-        .filter_map(|c| match &c.verdict {
-            ClaimVerdict::Independent { by, .. } => Some(format!("{} ({})", c.input, proof(*by))),
-            _ => None,
-        })
-        .collect();
-    if !redundant.is_empty() {
-        writeln!(f, "{ind}  redundant: {}", redundant.join(", "))?;
+    // Redundant inputs grouped by their proof.
+    for by in [
+        IndependentBy::Unsat,
+        IndependentBy::CofactorsMerged,
+        IndependentBy::NoPath,
+    ] {
+        let names: Vec<&str> = o
+            .claims
+            .iter()
+            .filter(|c| matches!(&c.verdict, ClaimVerdict::Independent { by: b, .. } if *b == by))
+            .map(|c| c.input.as_str())
+            .collect();
+        if !names.is_empty() {
+            writeln!(f, "{ind}  redundant ({}): {}", proof(by), names.join(", "))?;
+        }
     }
     if !o.undecided.is_empty() {
         let und: Vec<String> = o
@@ -242,6 +277,7 @@ fn flag_text(fl: &Flag) -> String {
             "redundant input: {output} does not depend on {input}, which is wired into its cone ({})",
             proof(*by)
         ),
+
         Flag::UnusedInput { input, connected } => {
             if *connected {
                 format!("unused input: {input} reaches no output's support (its logic is dead or masked)")

@@ -175,8 +175,17 @@ impl fmt::Display for StatsReport {
                 num(w.total_cost),
                 num(w.critical_delay)
             )?;
-            if !w.critical_path.is_empty() {
-                writeln!(f, "  critical path: {}", w.critical_path.join(" -> "))?;
+            let p = &w.critical_path;
+            if p.len() > 16 {
+                writeln!(
+                    f,
+                    "  critical path ({} signals): {} -> ... -> {}",
+                    p.len(),
+                    p[..6].join(" -> "),
+                    p[p.len() - 6..].join(" -> ")
+                )?;
+            } else if !p.is_empty() {
+                writeln!(f, "  critical path: {}", p.join(" -> "))?;
             }
         }
         writeln!(
@@ -184,10 +193,14 @@ impl fmt::Display for StatsReport {
             "and-inverter graph: {} AND nodes ({} in output cones), depth {}",
             self.aig.ands, self.aig.ands_in_cones, self.aig.depth
         )?;
+        let ks = if self.written.is_some() {
+            format!("k = {} as written, k = 2 in the AIG", self.bound_fanin)
+        } else {
+            "k = 2 in the AIG".to_string()
+        };
         writeln!(
             f,
-            "bounds from each support of n inputs: at least ceil((n-1)/(k-1)) gates and depth ceil(log_k n), k = {} as written, k = 2 in the AIG",
-            self.bound_fanin
+            "bounds from each support of n inputs: at least ceil((n-1)/(k-1)) gates and depth ceil(log_k n), {ks}"
         )?;
         let header = [
             "output", "n", "gates", ">=", "gap", "depth", ">=", "gap", "delay", "ands", ">=",

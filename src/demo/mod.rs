@@ -54,7 +54,7 @@ fn prove(r: &Design, c: &Design) -> Result<ProveReport, String> {
     })?;
     let (r2, rc) = crate::assume::on_design(r, &assume).map_err(|e| e.to_string())?;
     let (c2, cc) = crate::assume::on_design(c, &assume).map_err(|e| e.to_string())?;
-    rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, "sel", (rc, cc), &Limits::none());
+    rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, Some("sel"), (rc, cc), &Limits::none());
     Ok(rep)
 }
 

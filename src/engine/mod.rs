@@ -1,36 +1,70 @@
-//! The proof engine: pairs two designs in one shared AIG, looks for counterexamples by random
-//! simulation, then decides each remaining output pair with an incremental SAT query on its XOR
-//! miter (Brand 1993). Every counterexample is re-simulated on both designs before it is
-//! reported; every `equivalent` rests on equal literals or an UNSAT answer.
+//! The proof engine: pairs two designs in one shared AIG, then runs one of the engines on the
+//! open output pairs and turns their findings into a report. Every counterexample is
+//! re-simulated on both designs ([`counterexample::confirm`]) before it is reported; every
+//! `equivalent` rests on equal literals after sound merges or on an UNSAT answer.
+//!
+//! Engines: `sweep` (default; [`sweep`], [`parallel`]), `plain` (the single-call miter,
+//! [`monolithic`]) and `pairs` (simulation, then one query per output pair, [`pairs`]). An engine
+//! returns one [`Finding`] per output pair; this module owns everything after that.
 
+mod classes;
 pub mod counterexample;
+mod monolithic;
 pub mod pairing;
+mod pairs;
+mod parallel;
+mod progress;
 pub mod result;
+mod sweep;
+pub mod unknowns;
+mod window;
 
-use crate::aig::{random_words, simulate, Lit};
+use crate::aig::{random_words, simulate};
 use crate::cnf::Tseitin;
 use crate::design::Design;
 use crate::diag::InputError;
-use crate::sat::{ClauseSink, Limits, Sat, SatResult, SatStats, StopReason};
+use crate::sat::{Limits, Sat, SatStats, StopReason};
 pub use pairing::{pair, PairBy, Shared};
+use pairs::PairQuery;
+use progress::Progress;
 pub use result::{Counterexample, Method, PairResult, ProveReport, Stats, Verdict, SCOPE};
 use std::time::{Duration, Instant};
+pub use sweep::SweepStats;
 
 /// Which engine decides the output pairs.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Default, clap::ValueEnum)]
 pub enum EngineKind {
-    /// Simulation, then one incremental SAT query per output pair on the XOR miter.
+    /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair
+    /// the same literal or an XOR query; independent output cones on several threads.
     #[default]
+    Sweep,
+    /// The single-call miter: all output XORs ORed in one SAT query (repeated only to separate
+    /// more pairs after a counterexample). No simulation, no sweeping: the baseline.
     Plain,
+    /// Simulation, then one incremental SAT query per output pair on its XOR, no sweeping.
+    Pairs,
 }
 
 impl EngineKind {
     /// Name used in reports.
     pub fn name(self) -> &'static str {
         match self {
+            EngineKind::Sweep => "sweep",
             EngineKind::Plain => "plain",
+            EngineKind::Pairs => "pairs",
         }
     }
+}
+
+/// What an engine found for one output pair, before counterexamples are confirmed.
+#[derive(Clone, Debug, PartialEq)]
+pub(crate) enum Finding {
+    /// Equal, and how that was shown.
+    Equal(Method),
+    /// Different under these values of the shared inputs (to be re-simulated).
+    Differ(Method, Vec<bool>),
+    /// A limit stopped the engine first.
+    Stopped(StopReason),
 }
 
 /// Settings of one proof run.
@@ -50,6 +84,11 @@ pub struct ProveOptions {
     pub seed: u64,
     /// Words of 64 random patterns (`None`: chosen from the design size).
     pub sim_words: Option<usize>,
+    /// Worker threads for independent output groups (0: one per core). Results do not
+    /// depend on it.
+    pub jobs: usize,
+    /// Show a progress line on standard error.
+    pub progress: bool,
 }
 
 impl Default for ProveOptions {
@@ -57,11 +96,13 @@ impl Default for ProveOptions {
         ProveOptions {
             pair_by: PairBy::Name,
             free_extra_inputs: false,
-            engine: EngineKind::Plain,
+            engine: EngineKind::Sweep,
             timeout: None,
             conflict_limit: None,
             seed: 1,
             sim_words: None,
+            jobs: 0,
+            progress: false,
         }
     }
 }
@@ -118,18 +159,107 @@ pub fn prove_shared(
     let mut outcomes = vec![Outcome::Open; shared.pairs.len()];
     let mut cexs: Vec<Counterexample> = Vec::new();
 
-    let patterns = simulate_phase(&shared, r, c, opts, &mut outcomes, &mut cexs)?;
+    let progress = Progress::new(opts.progress, shared.pairs.len());
+    let patterns = if opts.engine == EngineKind::Plain {
+        0
+    } else {
+        simulate_phase(&shared, r, c, opts, &mut outcomes, &mut cexs)?
+    };
     log::debug!(
         "simulation: {} patterns, {} pairs differ",
         patterns,
         cexs.len()
     );
-    for (p, o) in outcomes.iter_mut().enumerate() {
-        if *o == Outcome::Open && shared.ref_lits[p] == shared.cand_lits[p] {
-            *o = Outcome::Equal(Method::Structure);
+    progress.outputs_done(outcomes.iter().filter(|o| **o != Outcome::Open).count());
+    let queries: Vec<PairQuery> = (0..shared.pairs.len())
+        .map(|p| PairQuery {
+            reference: shared.ref_lits[p],
+            candidate: shared.cand_lits[p],
+        })
+        .collect();
+    let open: Vec<usize> = (0..shared.pairs.len())
+        .filter(|&p| outcomes[p] == Outcome::Open)
+        .collect();
+    let mut sweep_stats = None;
+    let (findings, sat): (Vec<Option<Finding>>, SatStats) = match opts.engine {
+        EngineKind::Plain => {
+            let (f, s) = monolithic::monolithic(
+                &shared.aig,
+                &queries,
+                shared.constraint,
+                &limits,
+                &progress,
+            );
+            (f.into_iter().map(Some).collect(), s)
+        }
+        EngineKind::Pairs => {
+            // Pairs decided by simulation get a placeholder that the merge below ignores.
+            let mut f: Vec<Option<Finding>> = (0..queries.len())
+                .map(|p| {
+                    if outcomes[p] != Outcome::Open {
+                        Some(Finding::Stopped(StopReason::Timeout))
+                    } else if queries[p].reference == queries[p].candidate {
+                        Some(Finding::Equal(Method::Structure))
+                    } else {
+                        None
+                    }
+                })
+                .collect();
+            let mut sat = Sat::new(&limits);
+            let mut ts = Tseitin::new();
+            pairs::decide_pairs(
+                &shared.aig,
+                &queries,
+                shared.constraint,
+                &mut sat,
+                &mut ts,
+                &mut f,
+                &limits,
+                &progress,
+            );
+            (f, sat.stats())
+        }
+        EngineKind::Sweep => {
+            let (f, s, w) = parallel::sweep_groups(
+                &shared.aig,
+                &queries,
+                shared.constraint,
+                &open,
+                opts.seed,
+                opts.sim_words,
+                opts.jobs,
+                &limits,
+                &progress,
+            )
+            .map_err(ProveError::Internal)?;
+            sweep_stats = Some(w);
+            (f, s)
+        }
+    };
+    progress.finish();
+    // Findings in output order: confirm each counterexample once; a vector also marks every
+    // other pair it separates.
+    for (p, f) in findings.into_iter().enumerate() {
+        let Some(f) = f else { continue };
+        match f {
+            Finding::Equal(m) => {
+                if outcomes[p] == Outcome::Open {
+                    outcomes[p] = Outcome::Equal(m);
+                }
+            }
+            Finding::Differ(m, values) => {
+                if matches!(outcomes[p], Outcome::Open | Outcome::Stopped(_)) {
+                    record(&shared, r, c, &values, p, m, &mut outcomes, &mut cexs)?;
+                }
+            }
+            Finding::Stopped(s) => {
+                if outcomes[p] == Outcome::Open {
+                    outcomes[p] = Outcome::Stopped(s);
+                }
+            }
         }
     }
-    let sat = sat_phase(&shared, r, c, &limits, &mut outcomes, &mut cexs)?;
+    log::debug!("peak memory: {}", peak_memory_note(shared.aig.len()));
 
     let pairs: Vec<PairResult> = shared
         .pairs
@@ -187,10 +317,12 @@ pub fn prove_shared(
             shared_nodes: shared.aig.len(),
             sim_patterns: patterns,
             sat,
+            sweep: sweep_stats,
             seconds: start.elapsed().as_secs_f64(),
         },
         warnings,
         scope: SCOPE,
+        unknowns: unknowns::sources(r, c),
         diagnosis: None,
     })
 }
@@ -267,55 +399,24 @@ fn record(
     Ok(())
 }
 
-fn sat_phase(
-    shared: &Shared,
-    r: &Design,
-    c: &Design,
-    limits: &Limits,
-    outcomes: &mut [Outcome],
-    cexs: &mut Vec<Counterexample>,
-) -> Result<SatStats, ProveError> {
-    if !outcomes.contains(&Outcome::Open) {
-        return Ok(SatStats::default());
+/// Peak resident memory of this process (VmHWM on Linux) and per node of the shared graph,
+/// for the debug log and the benchmark.
+fn peak_memory_note(nodes: usize) -> String {
+    match peak_rss_bytes() {
+        Some(b) => format!(
+            "{:.1} MiB, {:.1} bytes per shared AIG node ({} nodes)",
+            b as f64 / (1u64 << 20) as f64,
+            b as f64 / nodes.max(1) as f64,
+            nodes
+        ),
+        None => "not available on this system".to_string(),
     }
-    let mut sat = Sat::new(limits);
-    let mut ts = Tseitin::new();
-    if shared.constraint != Lit::TRUE {
-        let k = ts.lit(&shared.aig, &mut sat, shared.constraint);
-        sat.clause(&[k]);
-    }
-    for p in 0..shared.pairs.len() {
-        if outcomes[p] != Outcome::Open {
-            continue;
-        }
-        if limits.expired() {
-            outcomes[p] = Outcome::Stopped(StopReason::Timeout);
-            continue;
-        }
-        let a = ts.lit(&shared.aig, &mut sat, shared.ref_lits[p]);
-        let b = ts.lit(&shared.aig, &mut sat, shared.cand_lits[p]);
-        let act = sat.fresh();
-        sat.clause(&[!act, a, b]);
-        sat.clause(&[!act, !a, !b]);
-        match sat.solve(&[act]) {
-            SatResult::Unsat => {
-                outcomes[p] = Outcome::Equal(Method::Sat);
-                // Proved equal: keep the equality to help later queries.
-                sat.clause(&[!a, b]);
-                sat.clause(&[a, !b]);
-            }
-            SatResult::Sat => {
-                let values: Vec<bool> = shared
-                    .aig
-                    .inputs()
-                    .iter()
-                    .map(|&n| ts.var_of(n).is_some_and(|v| sat.value(v)))
-                    .collect();
-                record(shared, r, c, &values, p, Method::Sat, outcomes, cexs)?;
-            }
-            SatResult::Stopped(s) => outcomes[p] = Outcome::Stopped(s),
-        }
-        sat.clause(&[!act]);
-    }
-    Ok(sat.stats())
+}
+
+/// Peak resident set size of this process in bytes, where the system reports it.
+pub fn peak_rss_bytes() -> Option<u64> {
+    let s = std::fs::read_to_string("/proc/self/status").ok()?;
+    let line = s.lines().find(|l| l.starts_with("VmHWM:"))?;
+    let kb: u64 = line.split_whitespace().nth(1)?.parse().ok()?;
+    Some(kb * 1024)
 }

@@ -33,6 +33,8 @@ impl Verdict {
 pub enum Method {
     /// Both outputs became the same AIG literal (structural hashing or sweeping).
     Structure,
+    /// SAT sweeping merged both outputs into the same literal.
+    Sweep,
     /// Random simulation found a distinguishing vector.
     Simulation,
     /// A SAT query on the XOR miter (UNSAT: equivalent; a model: different).
@@ -46,6 +48,7 @@ impl Method {
     pub fn word(self) -> &'static str {
         match self {
             Method::Structure => "structure",
+            Method::Sweep => "sweep",
             Method::Simulation => "simulation",
             Method::Sat => "sat",
             Method::None => "-",
@@ -122,6 +125,9 @@ pub struct Stats {
     pub sim_patterns: usize,
     /// SAT figures over all solvers.
     pub sat: SatStats,
+    /// Sweeping figures (the `sweep` engine only).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub sweep: Option<crate::engine::SweepStats>,
     /// Wall-clock seconds for the whole run.
     pub seconds: f64,
 }
@@ -155,6 +161,8 @@ pub struct ProveReport {
     pub warnings: Vec<String>,
     /// What the verdict covers.
     pub scope: &'static str,
+    /// Where either design reads unknown values (`side: file:line:col: what`).
+    pub unknowns: Vec<String>,
     /// Route tables of differing selector-like outputs (filled by the caller).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub diagnosis: Option<crate::diagnose::Diagnosis>,

@@ -8,6 +8,9 @@ use std::fmt::Write;
 /// pairs that are not equivalent are listed.
 const LIST_ALL: usize = 32;
 
+/// Counterexamples printed in full; the JSON report holds them all.
+const SHOW_CEX: usize = 2;
+
 /// The human-readable report of a proof run.
 pub fn prove_text(r: &ProveReport) -> String {
     let mut s = String::new();
@@ -28,9 +31,29 @@ pub fn prove_text(r: &ProveReport) -> String {
             "free input  {f} (no partner; the verdict covers both of its values)"
         );
     }
+    if !r.unknowns.is_empty() {
+        for u in r.unknowns.iter().take(8) {
+            let _ = writeln!(s, "unknown     {u}");
+        }
+        if r.unknowns.len() > 8 {
+            let _ = writeln!(
+                s,
+                "unknown     ... and {} more sources",
+                r.unknowns.len() - 8
+            );
+        }
+        if r.assumptions.is_empty() {
+            let _ = writeln!(s, "            {}", crate::engine::unknowns::ADVICE);
+        }
+    }
     let methods = |v: Verdict| {
         let mut parts = Vec::new();
-        for m in [Method::Structure, Method::Simulation, Method::Sat] {
+        for m in [
+            Method::Structure,
+            Method::Sweep,
+            Method::Simulation,
+            Method::Sat,
+        ] {
             let k = r
                 .pairs
                 .iter()
@@ -100,7 +123,7 @@ pub fn prove_text(r: &ProveReport) -> String {
             let _ = writeln!(s, "{}", line.trim_end());
         }
     }
-    for (k, c) in r.counterexamples.iter().enumerate() {
+    for (k, c) in r.counterexamples.iter().enumerate().take(SHOW_CEX) {
         let _ = writeln!(
             s,
             "\ncounterexample {} (found by {}, re-simulated on both designs)",
@@ -140,6 +163,14 @@ pub fn prove_text(r: &ProveReport) -> String {
                 d.candidate_value as u8
             );
         }
+    }
+    if r.counterexamples.len() > SHOW_CEX {
+        let _ = writeln!(
+            s,
+            "\ncounterexamples {}..{}: in the JSON report (--json, or --report FILE); each replays with `equicone eval`",
+            SHOW_CEX + 1,
+            r.counterexamples.len()
+        );
     }
     if let Some(d) = &r.diagnosis {
         s += &crate::diagnose::diagnosis_text(d);

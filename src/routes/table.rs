@@ -93,6 +93,16 @@ pub fn compress(routes: &[Route]) -> Vec<Row> {
                             _ => break,
                         }
                     }
+                    if step != 1 && end - v < 2 {
+                        // Two rows with a wider step read as a range they are not: keep them apart.
+                        rows.push(Row {
+                            from: v,
+                            to: v,
+                            target: text,
+                        });
+                        v += 1;
+                        continue;
+                    }
                     let mut ps = pieces(&text);
                     let range = if step == 1 {
                         format!("{a}..{last}")

@@ -43,9 +43,10 @@ fn masked_input_is_redundant_and_the_real_one_is_not() {
         "{text}"
     );
     assert!(
-        text.contains("redundant: t (cofactors identical after structural hashing)"),
+        text.contains("  redundant (cofactors identical after structural hashing): t\n"),
         "{text}"
     );
+    assert!(text.contains("  redundant input: y does not depend on t, which is wired into its cone (cofactors identical after structural hashing)\n"), "{text}");
 }
 
 #[test]
@@ -79,7 +80,15 @@ fn redundancy_that_needs_sat_says_unsat_and_a_tight_limit_leaves_it_undecided() 
             sat: Some("unsat")
         }
     );
-    assert!(r.to_string().contains("t (sat: unsat)"));
+    let text = r.to_string();
+    assert!(
+        text.contains("  redundant (sat: unsat): t, b0, b1,"),
+        "{text}"
+    );
+    assert!(
+        text.contains("  redundant inputs: y does not depend on t, b0, b1,"),
+        "{text}"
+    );
     assert_eq!(r.stats.independent_by_sat, 11, "{:?}", r.stats);
 
     let tight = Limits::new(None, Some(1));
@@ -91,6 +100,10 @@ fn redundancy_that_needs_sat_says_unsat_and_a_tight_limit_leaves_it_undecided() 
         .iter()
         .any(|f| matches!(f, Flag::RedundantInput { input, .. } if input == "t")));
     assert!(r.to_string().contains("t (conflict limit reached)"), "{r}");
+    assert!(
+        !r.flagged(),
+        "undecided inputs are neither redundant nor unused: {r}"
+    );
 }
 
 #[test]

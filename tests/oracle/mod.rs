@@ -224,3 +224,4 @@ pub fn batsat_differs(a: &Net, b: &Net) -> Option<HashMap<String, bool>> {
             .collect(),
     )
 }
+pub mod drat;

@@ -1,0 +1,179 @@
+//! `equicone cone` (structural cone against exact support, per output bit) and
+//! `equicone stats` (gate counts, cost, delay, bounds).
+
+use super::common::{load, print, report_input_error, write_atomic, DesignArgs};
+use super::Exit;
+use crate::cone::{self, AuditOptions, SupportOptions};
+use crate::cost::{self, CostModel};
+use crate::sat::Limits;
+use clap::Args;
+use std::time::Duration;
+
+/// Limits and simulation seed shared by `cone` and `stats`.
+#[derive(Args, Debug, Clone)]
+pub struct AuditLimitArgs {
+    /// Stop after this many seconds; open claims are then undecided.
+    #[arg(long, value_name = "SECONDS")]
+    timeout: Option<f64>,
+    /// Conflicts allowed per SAT query; a query that needs more leaves its claim undecided.
+    #[arg(long, value_name = "N")]
+    conflict_limit: Option<u64>,
+    /// Seed of the random simulation patterns.
+    #[arg(long, default_value_t = 1)]
+    seed: u64,
+}
+
+impl AuditLimitArgs {
+    fn limits(&self) -> Result<Limits, Exit> {
+        let timeout = match self.timeout {
+            None => None,
+            Some(s) if s.is_finite() && s > 0.0 && s < 1e9 => Some(Duration::from_secs_f64(s)),
+            Some(s) => {
+                eprintln!("error: --timeout {s} is not a positive number of seconds\n  help: for example `--timeout 30`");
+                return Err(Exit::BadInput);
+            }
+        };
+        Ok(Limits::new(timeout, self.conflict_limit))
+    }
+
+    fn support(&self, progress: bool) -> SupportOptions {
+        SupportOptions {
+            seed: self.seed,
+            progress,
+            ..SupportOptions::default()
+        }
+    }
+}
+
+/// Options of `cone`.
+#[derive(Args, Debug)]
+pub struct ConeArgs {
+    #[command(flatten)]
+    design: DesignArgs,
+    /// Only these output bits, buses or ranges such as `d[0..3]` (repeatable; default: all).
+    #[arg(long = "output", value_name = "NAME")]
+    outputs: Vec<String>,
+    /// The inputs each output must depend on (text `y: a, b[0..3]` lines or JSON); missing
+    /// and unexpected inputs are flagged.
+    #[arg(long, value_name = "FILE")]
+    expect: Option<String>,
+    /// Write a Graphviz picture of one output's cone (the one named with --output, else the
+    /// first with a redundant input).
+    #[arg(long, value_name = "FILE")]
+    dot: Option<String>,
+    /// List every claim with its evidence in the text report (JSON always has it).
+    #[arg(long)]
+    evidence: bool,
+    /// Print the report as JSON (schema in docs/cone.md).
+    #[arg(long)]
+    json: bool,
+    #[command(flatten)]
+    limits: AuditLimitArgs,
+}
+
+/// Run `cone`.
+pub fn run_cone(a: &ConeArgs) -> Exit {
+    let mut paths = vec![a.design.path.clone()];
+    paths.extend(a.design.also.iter().cloned());
+    let d = match load(paths, a.design.format, a.design.top.clone()) {
+        Ok(d) => d,
+        Err(e) => return e,
+    };
+    let limits = match a.limits.limits() {
+        Ok(l) => l,
+        Err(e) => return e,
+    };
+    let outputs = match cone::select_outputs(&d, &a.outputs) {
+        Ok(o) => o,
+        Err(e) => return report_input_error(&e),
+    };
+    let expect = match &a.expect {
+        Some(p) => match cone::read_expect(p, &d) {
+            Ok(e) => Some(e),
+            Err(e) => return report_input_error(&e),
+        },
+        None => None,
+    };
+    let opts = AuditOptions {
+        outputs: outputs.clone(),
+        expect,
+        support: a.limits.support(!a.json),
+        text_evidence: a.evidence,
+    };
+    let rep = cone::audit(&d, &opts, &limits);
+    if let Some(path) = &a.dot {
+        let which = match outputs.as_slice() {
+            [one] => Some(d.outputs[*one].name.clone()),
+            _ => rep.dot_default_output().map(str::to_string),
+        };
+        if let Some(name) = which {
+            let text = match cone::dot::dot(&d, &rep, &name) {
+                Ok(t) => t,
+                Err(e) => return report_input_error(&e),
+            };
+            if let Err(e) = write_atomic(path, text.as_bytes()) {
+                return report_input_error(&e);
+            }
+            eprintln!("wrote {path} (cone of {name})");
+        }
+    }
+    print(&if a.json {
+        rep.to_json() + "\n"
+    } else {
+        rep.to_string()
+    });
+    if rep.flagged() {
+        Exit::Flagged
+    } else if rep.undecided() {
+        Exit::Undecided
+    } else {
+        Exit::Ok
+    }
+}
+
+/// Options of `stats`.
+#[derive(Args, Debug)]
+pub struct StatsArgs {
+    #[command(flatten)]
+    design: DesignArgs,
+    /// Cost and delay per gate type and fan-in (JSON; default: unit cost and delay).
+    #[arg(long, value_name = "FILE")]
+    cost_model: Option<String>,
+    /// Print the report as JSON (schema in docs/cone.md).
+    #[arg(long)]
+    json: bool,
+    #[command(flatten)]
+    limits: AuditLimitArgs,
+}
+
+/// Run `stats`.
+pub fn run_stats(a: &StatsArgs) -> Exit {
+    let mut paths = vec![a.design.path.clone()];
+    paths.extend(a.design.also.iter().cloned());
+    let d = match load(paths, a.design.format, a.design.top.clone()) {
+        Ok(d) => d,
+        Err(e) => return e,
+    };
+    let limits = match a.limits.limits() {
+        Ok(l) => l,
+        Err(e) => return e,
+    };
+    let model = match &a.cost_model {
+        Some(p) => match CostModel::read(p) {
+            Ok(m) => m,
+            Err(e) => return report_input_error(&e),
+        },
+        None => CostModel::unit(),
+    };
+    let rep = cost::stats_with(&d, &model, &a.limits.support(!a.json), &limits);
+    print(&if a.json {
+        rep.to_json() + "\n"
+    } else {
+        rep.to_string()
+    });
+    if rep.undecided() {
+        Exit::Undecided
+    } else {
+        Exit::Ok
+    }
+}

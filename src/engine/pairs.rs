@@ -1,0 +1,99 @@
+//! Per-output-pair XOR miter queries (Brand 1993) on one incremental solver: the final phase of
+//! the sweep engine and the whole of the `pairs` engine. A proved pair's equality is kept as
+//! clauses to help later queries; a model is checked against the other open pairs at once.
+
+use super::progress::Progress;
+use super::{Finding, Method};
+use crate::aig::{eval, Aig, Lit};
+use crate::cnf::Tseitin;
+use crate::sat::{ClauseSink, Limits, Sat, SatResult, StopReason};
+
+/// One output pair as literals of the graph being queried.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub(crate) struct PairQuery {
+    /// The reference output.
+    pub reference: Lit,
+    /// The candidate output.
+    pub candidate: Lit,
+}
+
+/// Decide every pair whose finding is still `None`, in order, under `constraint`.
+#[allow(clippy::too_many_arguments)]
+pub(crate) fn decide_pairs(
+    aig: &Aig,
+    pairs: &[PairQuery],
+    constraint: Lit,
+    sat: &mut Sat<'_>,
+    ts: &mut Tseitin,
+    findings: &mut [Option<Finding>],
+    limits: &Limits,
+    progress: &Progress,
+) {
+    if findings.iter().all(Option::is_some) {
+        return;
+    }
+    if constraint != Lit::TRUE {
+        let k = ts.lit(aig, sat, constraint);
+        sat.clause(&[k]);
+    }
+    for p in 0..pairs.len() {
+        if findings[p].is_some() {
+            continue;
+        }
+        if limits.expired() {
+            findings[p] = Some(Finding::Stopped(StopReason::Timeout));
+            continue;
+        }
+        let a = ts.lit(aig, sat, pairs[p].reference);
+        let b = ts.lit(aig, sat, pairs[p].candidate);
+        let act = sat.fresh();
+        sat.clause(&[!act, a, b]);
+        sat.clause(&[!act, !a, !b]);
+        match sat.solve(&[act]) {
+            SatResult::Unsat => {
+                findings[p] = Some(Finding::Equal(Method::Sat));
+                progress.outputs_done(1);
+                sat.clause(&[!a, b]);
+                sat.clause(&[a, !b]);
+            }
+            SatResult::Sat => {
+                let values: Vec<bool> = aig
+                    .inputs()
+                    .iter()
+                    .map(|&n| ts.var_of(n).is_some_and(|v| sat.value(v)))
+                    .collect();
+                mark_separated(aig, pairs, &values, findings, progress);
+                debug_assert!(findings[p].is_some(), "a model must separate its own pair");
+                if findings[p].is_none() {
+                    findings[p] = Some(Finding::Differ(Method::Sat, values));
+                }
+            }
+            SatResult::Stopped(s) => findings[p] = Some(Finding::Stopped(s)),
+        }
+        sat.clause(&[!act]);
+    }
+}
+
+/// Mark every open pair that `values` separates as different (found by SAT).
+pub(crate) fn mark_separated(
+    aig: &Aig,
+    pairs: &[PairQuery],
+    values: &[bool],
+    findings: &mut [Option<Finding>],
+    progress: &Progress,
+) {
+    let open: Vec<usize> = (0..pairs.len())
+        .filter(|&q| findings[q].is_none())
+        .collect();
+    let roots: Vec<Lit> = open
+        .iter()
+        .flat_map(|&q| [pairs[q].reference, pairs[q].candidate])
+        .collect();
+    let v = eval(aig, values, &roots);
+    for (j, &q) in open.iter().enumerate() {
+        if v[2 * j] != v[2 * j + 1] {
+            findings[q] = Some(Finding::Differ(Method::Sat, values.to_vec()));
+            progress.outputs_done(1);
+        }
+    }
+}

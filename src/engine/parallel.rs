@@ -1,0 +1,127 @@
+//! Output groups and threads for the sweep engine. The open output pairs are cut into groups of
+//! consecutive pairs when their cones barely overlap (so that splitting does not repeat work);
+//! each group is swept in a private copy of its cone with its own solvers and seed on a thread
+//! of a pool of `--jobs` threads, and the findings are put back in output order.
+//!
+//! **Invariant:** the groups, their seeds and every decision inside a group depend only on the
+//! designs and the options other than `--jobs`, so the results are identical for any `--jobs`.
+
+use super::pairs::PairQuery;
+use super::progress::Progress;
+use super::sweep::{sweep, Cone, SweepStats};
+use super::Finding;
+use crate::aig::{Aig, Lit};
+use crate::sat::{Limits, SatStats};
+use rayon::prelude::*;
+
+/// Smallest shared graph (nodes) worth splitting.
+const SPLIT_MIN_NODES: usize = 4_000;
+/// Largest total cone size, relative to the union, that a split may cost.
+const SPLIT_OVERLAP: f64 = 1.25;
+
+/// Cut `open` (pair indices) into consecutive groups: the most groups among 8, 4, 2 whose cones
+/// together are at most `SPLIT_OVERLAP` times the union, else one group.
+pub(crate) fn groups(aig: &Aig, pairs: &[PairQuery], open: &[usize]) -> Vec<Vec<usize>> {
+    let roots = |ps: &[usize]| -> Vec<Lit> {
+        ps.iter()
+            .flat_map(|&p| [pairs[p].reference, pairs[p].candidate])
+            .collect()
+    };
+    let size = |ps: &[usize]| aig.cone_mask(&roots(ps)).iter().filter(|&&m| m).count();
+    if aig.len() >= SPLIT_MIN_NODES && open.len() >= 2 {
+        let union = size(open);
+        for g in [8usize, 4, 2] {
+            if open.len() < g {
+                continue;
+            }
+            let chunks: Vec<Vec<usize>> = open
+                .chunks(open.len().div_ceil(g))
+                .map(|c| c.to_vec())
+                .collect();
+            let total: usize = chunks.iter().map(|c| size(c)).sum();
+            if (total as f64) <= SPLIT_OVERLAP * union as f64 {
+                return chunks;
+            }
+        }
+    }
+    vec![open.to_vec()]
+}
+
+/// Sweep every group on a pool of `jobs` threads (0: one per core). Findings are indexed like
+/// `pairs` (`None` for pairs not in `open`).
+#[allow(clippy::too_many_arguments)]
+pub(crate) fn sweep_groups(
+    aig: &Aig,
+    pairs: &[PairQuery],
+    constraint: Lit,
+    open: &[usize],
+    seed: u64,
+    words: Option<usize>,
+    jobs: usize,
+    limits: &Limits,
+    progress: &Progress,
+) -> Result<(Vec<Option<Finding>>, SatStats, SweepStats), String> {
+    let groups = groups(aig, pairs, open);
+    log::debug!(
+        "sweep: {} open output pairs in {} group(s)",
+        open.len(),
+        groups.len()
+    );
+    let single = groups.len() == 1;
+    let run = |gi: usize, members: &Vec<usize>| {
+        let seed = seed ^ (gi as u64).wrapping_mul(0xD1B5_4A32_D192_ED03);
+        let qs: Vec<PairQuery> = members.iter().map(|&p| pairs[p]).collect();
+        if single {
+            let cone = Cone {
+                aig,
+                pairs: qs,
+                constraint,
+                seed,
+                words,
+            };
+            return sweep(&cone, limits, progress);
+        }
+        // A private copy of the group's cone.
+        let mut g = Aig::new();
+        let ins: Vec<Lit> = (0..aig.num_inputs()).map(|_| g.add_input()).collect();
+        let mut roots: Vec<Lit> = qs.iter().flat_map(|q| [q.reference, q.candidate]).collect();
+        roots.push(constraint);
+        let mapped = g.import(aig, &ins, &roots);
+        let local: Vec<PairQuery> = (0..qs.len())
+            .map(|j| PairQuery {
+                reference: mapped[2 * j],
+                candidate: mapped[2 * j + 1],
+            })
+            .collect();
+        let cone = Cone {
+            aig: &g,
+            pairs: local,
+            constraint: mapped[mapped.len() - 1],
+            seed,
+            words,
+        };
+        sweep(&cone, limits, progress)
+    };
+    let pool = rayon::ThreadPoolBuilder::new()
+        .num_threads(jobs)
+        .build()
+        .map_err(|e| format!("cannot start worker threads: {e}"))?;
+    let results: Vec<_> = pool.install(|| {
+        groups
+            .par_iter()
+            .enumerate()
+            .map(|(gi, m)| run(gi, m))
+            .collect()
+    });
+    let mut findings: Vec<Option<Finding>> = (0..pairs.len()).map(|_| None).collect();
+    let mut sat = SatStats::default();
+    let mut st = SweepStats::default();
+    for (members, (fs, s, w)) in groups.iter().zip(results) {
+        for (&p, f) in members.iter().zip(fs) {
+            findings[p] = Some(f);
+        }
+        sat.add(&s);
+        st.add(&w);
+    }
+    Ok((findings, sat, st))
+}

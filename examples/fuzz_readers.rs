@@ -103,11 +103,19 @@ fn seeds(reader: Reader) -> Vec<Vec<u8>> {
     let root = std::path::Path::new(env!("CARGO_MANIFEST_DIR"));
     let (dirs, ext): (&[&str], &str) = match reader {
         Reader::Bench => (
-            &["tests/data/bench/err", "bench-circuits/examples", "bench-circuits/mutants"],
+            &[
+                "tests/data/bench/err",
+                "bench-circuits/examples",
+                "bench-circuits/mutants",
+            ],
             "bench",
         ),
         Reader::Verilog => (
-            &["tests/data/verilog/ok", "tests/data/verilog/err", "src/demo/files"],
+            &[
+                "tests/data/verilog/ok",
+                "tests/data/verilog/err",
+                "src/demo/files",
+            ],
             "v",
         ),
         _ => (&[], ""),

@@ -41,7 +41,10 @@ fn campaign(reader: Reader, seed: u64) {
         failures.join("\n")
     );
     // The generators must reach past the first error: some inputs read, some rejected.
-    assert!(accepted > 0 && rejected > 0, "{accepted} accepted, {rejected} rejected");
+    assert!(
+        accepted > 0 && rejected > 0,
+        "{accepted} accepted, {rejected} rejected"
+    );
 }
 
 #[test]

@@ -24,7 +24,8 @@ pub fn format_from_name(path: &str) -> Option<Format> {
 /// byte, so `/dev/zero` is an error at once rather than a full memory.
 pub fn read_text(path: &str) -> Result<String, InputError> {
     use std::io::Read;
-    let fail = |what: String, help: &str| InputError::plain(format!("cannot read `{path}`: {what}"), help);
+    let fail =
+        |what: String, help: &str| InputError::plain(format!("cannot read `{path}`: {what}"), help);
     let io_fail = |e: std::io::Error| {
         let what = match e.kind() {
             std::io::ErrorKind::NotFound => "no such file".to_string(),
@@ -45,7 +46,11 @@ pub fn read_text(path: &str) -> Result<String, InputError> {
         ));
     }
     let mut f = std::fs::File::open(path).map_err(io_fail)?;
-    let mut bytes = Vec::with_capacity(if meta.is_file() { meta.len() as usize + 1 } else { 0 });
+    let mut bytes = Vec::with_capacity(if meta.is_file() {
+        meta.len() as usize + 1
+    } else {
+        0
+    });
     let mut chunk = vec![0u8; 1 << 20];
     loop {
         let n = match f.read(&mut chunk) {

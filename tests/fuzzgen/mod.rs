@@ -117,17 +117,65 @@ const NUMBERS: &[&str] = &[
 
 /// Fragments worth splicing into any text: delimiters, keywords, odd characters.
 const TOKENS: &[&str] = &[
-    "(", ")", "[", "]", "{", "}", ",", ";", ":", "=", "#", "//", "/*", "*/", "\"", "'", "\\",
-    "`", "\n", "\r\n", "\t", " ", "\u{0}", "\u{feff}", "é", "𝔵", "..", "->", "?", "@", "$", "'b",
-    "'hx", "'sd", "'z", "*", "+:", "-:", "<<<", ">>>", "**", "===", "endmodule", "module",
-    "begin", "end", "INPUT(", "OUTPUT(", "AND(", "DFF(",
+    "(",
+    ")",
+    "[",
+    "]",
+    "{",
+    "}",
+    ",",
+    ";",
+    ":",
+    "=",
+    "#",
+    "//",
+    "/*",
+    "*/",
+    "\"",
+    "'",
+    "\\",
+    "`",
+    "\n",
+    "\r\n",
+    "\t",
+    " ",
+    "\u{0}",
+    "\u{feff}",
+    "é",
+    "𝔵",
+    "..",
+    "->",
+    "?",
+    "@",
+    "$",
+    "'b",
+    "'hx",
+    "'sd",
+    "'z",
+    "*",
+    "+:",
+    "-:",
+    "<<<",
+    ">>>",
+    "**",
+    "===",
+    "endmodule",
+    "module",
+    "begin",
+    "end",
+    "INPUT(",
+    "OUTPUT(",
+    "AND(",
+    "DFF(",
 ];
 
 /// A simple name, sometimes an odd one.
 fn ident(r: &mut Rng, pool: &[&str]) -> String {
     match r.below(20) {
         0 => format!("n{}", r.next() % 1000),
-        1 => r.pick(&["\\esc[0] ", "_", "a$b", "wire", "x", "1a", "a.b", "é"]).to_string(),
+        1 => r
+            .pick(&["\\esc[0] ", "_", "a$b", "wire", "x", "1a", "a.b", "é"])
+            .to_string(),
         _ => r.pick(pool).to_string(),
     }
 }
@@ -155,15 +203,25 @@ pub fn gen_bench_valid(r: &mut Rng) -> String {
     let mut s = String::new();
     let mut sigs: Vec<String> = Vec::new();
     for i in 0..1 + r.below(6) {
-        let n = if r.one_in(2) { format!("d[{i}]") } else { format!("i{i}") };
+        let n = if r.one_in(2) {
+            format!("d[{i}]")
+        } else {
+            format!("i{i}")
+        };
         s.push_str(&format!("INPUT({n})\n"));
         sigs.push(n);
     }
     let gates = 1 + r.below(30);
     let mut body = String::new();
     for g in 0..gates {
-        let kind = r.pick(&["AND", "NAND", "OR", "NOR", "XOR", "XNOR", "NOT", "BUFF", "buf"]);
-        let n = if matches!(kind, "NOT" | "BUFF" | "buf") { 1 } else { 1 + r.below(4) };
+        let kind = r.pick(&[
+            "AND", "NAND", "OR", "NOR", "XOR", "XNOR", "NOT", "BUFF", "buf",
+        ]);
+        let n = if matches!(kind, "NOT" | "BUFF" | "buf") {
+            1
+        } else {
+            1 + r.below(4)
+        };
         let args: Vec<String> = (0..n).map(|_| sigs[r.below(sigs.len())].clone()).collect();
         let name = format!("g{g}");
         body.push_str(&format!("{name} = {kind}({})\n", args.join(", ")));
@@ -318,7 +376,12 @@ fn v_tame(r: &mut Rng, depth: u32) -> String {
     ];
     if depth == 0 || r.one_in(4) {
         return match r.below(7) {
-            0 => format!("{}'{}{}", 1 + r.below(8), r.pick(&["b", "d", "h", "sd"]), r.below(2)),
+            0 => format!(
+                "{}'{}{}",
+                1 + r.below(8),
+                r.pick(&["b", "d", "h", "sd"]),
+                r.below(2)
+            ),
             1 => format!("a[{}]", r.below(6)),
             2 => format!("b[{}:{}]", r.below(3), r.below(2)),
             3 => "1'bx".into(),
@@ -446,7 +509,12 @@ fn v_item(r: &mut Rng) -> String {
                 "`include \"other.v\"",
             ])
             .to_string(),
-        _ => format!("{} {}{};", r.pick(&["input", "output", "inout"]), v_range(r), ident(r, V_NAMES)),
+        _ => format!(
+            "{} {}{};",
+            r.pick(&["input", "output", "inout"]),
+            v_range(r),
+            ident(r, V_NAMES)
+        ),
     }
 }
 
@@ -498,12 +566,19 @@ pub fn gen_verilog_valid(r: &mut Rng) -> String {
         "module m(input [3:0] a, input signed [{}:0] b, input [1:0] s, output [3:0] y, output reg z);\n",
         r.below(6)
     ));
-    s.push_str(&format!("  wire [{}:0] w;\n  assign w = {e1};\n  assign y = {e2};\n", r.below(8)));
+    s.push_str(&format!(
+        "  wire [{}:0] w;\n  assign w = {e1};\n  assign y = {e2};\n",
+        r.below(8)
+    ));
     s.push_str(&format!(
         "  always @* begin\n    z = 1'b0;\n    if ({e3}) z = {e4};\n  end\n"
     ));
     if sub {
-        s.push_str(&format!("  wire t;\n  sub #(.N({})) u (.p({}), .q(t));\n", 1 + r.below(4), r.pick(NAMES)));
+        s.push_str(&format!(
+            "  wire t;\n  sub #(.N({})) u (.p({}), .q(t));\n",
+            1 + r.below(4),
+            r.pick(NAMES)
+        ));
     }
     s.push_str("endmodule\n");
     s
@@ -547,7 +622,9 @@ pub fn gen_assume(r: &mut Rng) -> String {
 
 // ---------------------------------------------------------------- --expect
 
-const E_OUT: &[&str] = &["y", "z", "z[0]", "z[1]", "z[0..1]", "z[1:0]", "*", "w", "z[2]"];
+const E_OUT: &[&str] = &[
+    "y", "z", "z[0]", "z[1]", "z[0..1]", "z[1:0]", "*", "w", "z[2]",
+];
 const E_IN: &[&str] = &[
     "s", "d", "m", "s[0..1]", "d[3:0]", "d[0]", "-", "*", "q", "d[4]", "d[", "d[]", "d[a..b]",
 ];
@@ -647,7 +724,12 @@ pub fn gen_cost(r: &mut Rng) -> String {
     }
     let s = format!("{{\n  {}\n}}", parts.join(",\n  "));
     if r.one_in(20) {
-        format!("{}{}{}", "[".repeat(r.below(300)), s, "]".repeat(r.below(300)))
+        format!(
+            "{}{}{}",
+            "[".repeat(r.below(300)),
+            s,
+            "]".repeat(r.below(300))
+        )
     } else {
         s
     }
@@ -794,12 +876,7 @@ fn judge(name: &str, res: Result<(), InputError>) -> Result<Outcome, Failure> {
 
 /// Run `reader` on `bytes` (decoded as a file would be) and judge it: a panic on any thread,
 /// a run longer than `slow`, or an error without a position is a failure.
-pub fn run(
-    reader: Reader,
-    bytes: &[u8],
-    ctx: &Design,
-    slow: Duration,
-) -> Result<Outcome, Failure> {
+pub fn run(reader: Reader, bytes: &[u8], ctx: &Design, slow: Duration) -> Result<Outcome, Failure> {
     install_panic_hook();
     PANICKED.store(false, Ordering::SeqCst);
     let start = Instant::now();

@@ -608,6 +608,8 @@ impl<'s, 'n> Parser<'s, 'n> {
             self.gen_for(out)?;
         } else if k == kw::IF {
             self.gen_if(out)?;
+        } else if k == kw::ENDGENERATE {
+            return Err(self.error(pos, "`endgenerate` without a `generate` before it"));
         } else if is_keyword(k) {
             let n = self.names.name(k).to_string();
             let what = match n.as_str() {

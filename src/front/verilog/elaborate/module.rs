@@ -162,15 +162,20 @@ impl<'a> Elab<'a> {
         let l = self.const_int(sc, &r.lsb)?;
         for (v, e) in [(m, &r.msb), (l, &r.lsb)] {
             if i32::try_from(v).is_err() {
-                self.error(
+                self.error_help(
                     e.pos(),
                     format!("range bound {v} is outside the 32-bit integers"),
+                    "Verilog range bounds are integers (32 bits, signed); use smaller indices",
                 );
                 return None;
             }
         }
         if super::span(m, l).is_none() {
-            self.error(r.msb.pos(), "range wider than 2^20 bits");
+            self.error_help(
+                r.msb.pos(),
+                "range wider than 2^20 bits",
+                "equicone reads vectors of at most 2^20 bits; split the vector",
+            );
             return None;
         }
         Some((m, l))

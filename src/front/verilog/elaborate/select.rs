@@ -54,7 +54,11 @@ impl Elab<'_> {
                     return vec![Lit::FALSE; width_hint];
                 }
                 let Some(w) = super::span(m, l) else {
-                    self.error(pos, format!("part-select `{nm}[{m}:{l}]` is wider than 2^20 bits"));
+                    self.error_help(
+                        pos,
+                        format!("part-select `{nm}[{m}:{l}]` is wider than 2^20 bits"),
+                        "select at most the declared bits of the vector",
+                    );
                     return vec![Lit::FALSE; width_hint];
                 };
                 let base = Self::off_of(msb, lsb, l).min(Self::off_of(msb, lsb, m));

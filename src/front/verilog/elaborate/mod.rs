@@ -30,6 +30,9 @@ const MAX_LOOP: usize = 1 << 16;
 /// Widest expression accepted, in bits.
 const MAX_WIDTH: usize = 1 << 20;
 
+/// Widest multiplication built (an array multiplier of w bits has about w * w / 2 gates).
+const MAX_MUL_WIDTH: usize = 4096;
+
 /// The number of bits from index `m` to index `l` inclusive, computed without overflow;
 /// `None` when it is more than [`MAX_WIDTH`].
 fn span(m: i64, l: i64) -> Option<usize> {

@@ -118,6 +118,19 @@ impl Elab<'_> {
                     self.error(pos, "select index is not constant");
                     return vec![Lit::FALSE; w as usize];
                 }
+                if w as usize > data.len() {
+                    // Each bit is a selector over the vector plus a range check: a window wider
+                    // than the vector costs much and reads only unknowns beyond it.
+                    self.error_help(
+                        pos,
+                        format!(
+                            "unsupported: variable part-select of {w} bits from the {}-bit `{nm}`",
+                            data.len()
+                        ),
+                        "select at most as many bits as the vector has",
+                    );
+                    return vec![Lit::FALSE; w as usize];
+                }
                 let off = self.offset_vec(&bv.bits, bv.signed, k, desc);
                 self.dyn_window(cx, &data, &off, w as usize, pos, &what)
             }

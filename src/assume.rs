@@ -73,24 +73,43 @@ fn one(
             .with_help("for example `--assume 'sel < 12'`"),
         ));
     }
-    let decls: Vec<String> = ports(d)
+    let ports = ports(d);
+    let decls: Vec<String> = ports
         .iter()
         .map(|(p, r)| match r {
-            Some((lo, hi)) => format!("input wire [{hi}:{lo}] {p}"),
-            None => format!("input wire {p}"),
+            Some((lo, hi)) => format!("input wire [{hi}:{lo}] {}", verilog_name(p)),
+            None => format!("input wire {}", verilog_name(p)),
         })
         .collect();
+    let names: Vec<String> = ports.iter().map(|(p, _)| verilog_name(p)).collect();
     let text = format!(
         "module equicone_assumption({}, output wire equicone_ok);\nassign equicone_ok = |(\n{expr}\n);\nendmodule\n",
         decls.join(", ")
     );
     let a = read_verilog(&[(label.clone(), text)], Some("equicone_assumption"))
-        .map_err(|e| relocate(e, &label, expr.chars().count() as u32))?;
+        .map_err(|e| {
+            let mut e = relocate(e, &label, expr.chars().count() as u32);
+            for d in &mut e.diagnostics {
+                let generic = d.help.as_deref().is_none_or(|h| h.starts_with("correct the syntax"));
+                if generic {
+                    d.help = Some(format!(
+                        "an assumption is a Verilog expression over the input ports ({}), e.g. `--assume 'sel < 12'`",
+                        shorten(&names)
+                    ));
+                }
+            }
+            e
+        })?;
     if let Some(u) = a.inputs.iter().find(|b| b.is_unknown()) {
+        let col = u
+            .pos
+            .as_ref()
+            .filter(|p| p.line == EXPR_LINE)
+            .map_or(1, |p| p.col);
         return Err(InputError::one(
             Diagnostic::error(
-                Some(SourcePos::new(&label, 1, 1)),
-                format!("the assumption can read an unknown value ({})", u.name),
+                Some(SourcePos::new(&label, 1, col)),
+                "the assumption can read an unknown value (an x or z bit, or a select out of range)",
             )
             .with_help("write the condition without x/z literals or out-of-range selects"),
         ));
@@ -102,6 +121,35 @@ fn one(
         .collect();
     let root = a.outputs[0].lit;
     Ok(aig.import(&a.aig, &map, &[root])[0])
+}
+
+/// A port name as a Verilog identifier: plain when it is one, else escaped (`\\1 `), as bench
+/// names such as ISCAS-85's `1` or `G1gat.x` need.
+fn verilog_name(p: &str) -> String {
+    let mut cs = p.chars();
+    let plain = cs
+        .next()
+        .is_some_and(|c| c.is_ascii_alphabetic() || c == '_')
+        && cs.all(|c| c.is_ascii_alphanumeric() || c == '_' || c == '$');
+    if plain {
+        p.to_string()
+    } else {
+        format!("\\{p} ")
+    }
+}
+
+/// The first few names of a list, for a message.
+fn shorten(names: &[String]) -> String {
+    let mut s = names
+        .iter()
+        .take(8)
+        .map(|n| n.trim_end().to_string())
+        .collect::<Vec<_>>()
+        .join(", ");
+    if names.len() > 8 {
+        s.push_str(&format!(", ... ({} ports)", names.len()));
+    }
+    s
 }
 
 /// Move positions in the synthetic module back to the user's expression.

@@ -77,9 +77,25 @@ pub fn write_atomic(path: &str, contents: &[u8]) -> Result<(), InputError> {
         _ => Path::new("."),
     };
     let fail = |e: std::io::Error| {
+        let what = match e.kind() {
+            std::io::ErrorKind::NotFound => {
+                format!("the folder `{}` does not exist", dir.display())
+            }
+            std::io::ErrorKind::PermissionDenied => "permission denied".to_string(),
+            std::io::ErrorKind::IsADirectory => "it is a folder".to_string(),
+            std::io::ErrorKind::NotADirectory => {
+                "a part of the path before the file name is not a folder".to_string()
+            }
+            std::io::ErrorKind::StorageFull => "the disk is full".to_string(),
+            _ => {
+                // The tempfile crate appends the temporary file's path; keep the cause only.
+                let s = e.to_string();
+                s.split(" at path ").next().unwrap_or(&s).to_string()
+            }
+        };
         InputError::plain(
-            format!("cannot write `{path}`: {e}"),
-            "check that the folder exists and is writable",
+            format!("cannot write `{path}`: {what}"),
+            "check that the folder exists and is writable; nothing was written",
         )
     };
     let mut tmp = tempfile::NamedTempFile::new_in(dir).map_err(fail)?;

@@ -19,19 +19,52 @@ pub fn format_from_name(path: &str) -> Option<Format> {
     }
 }
 
-/// Read a file as text, with clear errors for missing, unreadable and binary files.
+/// Read a file as text, with clear errors for missing, unreadable and binary files, folders,
+/// and endless sources: a pipe or device is read in pieces and given up at its first NUL
+/// byte, so `/dev/zero` is an error at once rather than a full memory.
 pub fn read_text(path: &str) -> Result<String, InputError> {
-    let bytes = std::fs::read(path).map_err(|e| {
+    use std::io::Read;
+    let fail =
+        |what: String, help: &str| InputError::plain(format!("cannot read `{path}`: {what}"), help);
+    let io_fail = |e: std::io::Error| {
         let what = match e.kind() {
             std::io::ErrorKind::NotFound => "no such file".to_string(),
             std::io::ErrorKind::PermissionDenied => "permission denied".to_string(),
+            std::io::ErrorKind::NotADirectory => {
+                "a part of the path before the file name is not a folder".to_string()
+            }
+            std::io::ErrorKind::IsADirectory => "it is a folder, not a file".to_string(),
             _ => e.to_string(),
         };
-        InputError::plain(
-            format!("cannot read `{path}`: {what}"),
-            "check the path and that the file is readable",
-        )
-    })?;
+        fail(what, "check the path and that the file is readable")
+    };
+    let meta = std::fs::metadata(path).map_err(io_fail)?;
+    if meta.is_dir() {
+        return Err(fail(
+            "it is a folder, not a file".to_string(),
+            "name a netlist file inside it",
+        ));
+    }
+    let mut f = std::fs::File::open(path).map_err(io_fail)?;
+    let mut bytes = Vec::with_capacity(if meta.is_file() {
+        meta.len() as usize + 1
+    } else {
+        0
+    });
+    let mut chunk = vec![0u8; 1 << 20];
+    loop {
+        let n = match f.read(&mut chunk) {
+            Ok(0) => break,
+            Ok(n) => n,
+            Err(e) if e.kind() == std::io::ErrorKind::Interrupted => continue,
+            Err(e) => return Err(io_fail(e)),
+        };
+        let nul = chunk[..n].contains(&0);
+        bytes.extend_from_slice(&chunk[..n]);
+        if nul {
+            break;
+        }
+    }
     decode_text(path, bytes)
 }
 

@@ -160,9 +160,7 @@ impl Parser<'_, '_> {
                     let p = self.peek_pos();
                     return Err(self.error(p, "missing `end` of a generate block"));
                 }
-                if self.item(&mut items).is_err() {
-                    self.recover();
-                }
+                self.item_or_skip(&mut items);
             }
             if self.eat_p(P::Colon) {
                 self.ident("a block name")?;

@@ -25,6 +25,8 @@ pub struct Parser<'s, 'n> {
     /// Errors found: position and message.
     pub errors: Vec<(Pos, String)>,
     depth: usize,
+    /// Tokens taken so far (error recovery checks that it moved on).
+    taken: u64,
 }
 
 impl<'s, 'n> Parser<'s, 'n> {
@@ -36,6 +38,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             look: VecDeque::new(),
             errors: Vec::new(),
             depth: 0,
+            taken: 0,
         }
     }
 
@@ -66,6 +69,7 @@ impl<'s, 'n> Parser<'s, 'n> {
     /// Consume the next token.
     pub fn bump(&mut self) -> Token {
         self.fill(0);
+        self.taken += 1;
         self.look.pop_front().expect("filled")
     }
 
@@ -217,6 +221,19 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
     }
 
+    /// Parse one module or generate item into `out`; after an error, skip to a place to go on
+    /// from, always past at least one token, so that a stray keyword (`endgenerate` outside a
+    /// generate region, say) cannot stall the item loop.
+    pub fn item_or_skip(&mut self, out: &mut Vec<Item>) {
+        let before = self.taken;
+        if self.item(out).is_err() {
+            self.recover();
+            if self.taken == before {
+                self.bump();
+            }
+        }
+    }
+
     /// Skip to just after the next `;`, or to an item keyword or `endmodule`.
     pub fn recover(&mut self) {
         loop {
@@ -286,11 +303,12 @@ impl<'s, 'n> Parser<'s, 'n> {
                     self.bump();
                     break;
                 }
-                _ => {
-                    if self.item(&mut m.items).is_err() {
-                        self.recover();
-                    }
+                Tok::Ident(k) if k == kw::MODULE || k == kw::MACROMODULE => {
+                    // The next module starts: this one lacks its `endmodule`.
+                    self.error(t.pos, "missing `endmodule` before this `module`");
+                    break;
                 }
+                _ => self.item_or_skip(&mut m.items),
             }
         }
         Some(m)
@@ -584,14 +602,14 @@ impl<'s, 'n> Parser<'s, 'n> {
                 if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
                     return Err(self.error(pos, "missing `endgenerate`"));
                 }
-                if self.item(out).is_err() {
-                    self.recover();
-                }
+                self.item_or_skip(out);
             }
         } else if k == kw::FOR {
             self.gen_for(out)?;
         } else if k == kw::IF {
             self.gen_if(out)?;
+        } else if k == kw::ENDGENERATE {
+            return Err(self.error(pos, "`endgenerate` without a `generate` before it"));
         } else if is_keyword(k) {
             let n = self.names.name(k).to_string();
             let what = match n.as_str() {

@@ -299,11 +299,22 @@ impl Elab<'_> {
                             );
                             return None;
                         }
+                        let Some(w) = super::span(m, l) else {
+                            self.error(*p, "part-select wider than 2^20 bits");
+                            return None;
+                        };
                         let step = if l <= m { 1 } else { -1 };
-                        (0..=(m - l).abs()).map(|j| l + j * step).collect()
+                        (0..w as i64).map(|j| l + j * step).collect()
                     }
                     Select::Up(b, w) | Select::Down(b, w) => {
                         let w = self.const_int(cx.sc, w)?;
+                        if w <= 0 || w as usize > super::MAX_WIDTH {
+                            self.error(
+                                *p,
+                                "indexed part-select width must be a positive constant of at most 2^20",
+                            );
+                            return None;
+                        }
                         let v = self.eval_self(&ccx, b);
                         let b = match bits::to_i64(&v.bits, v.signed) {
                             Some(b) => b,
@@ -315,9 +326,9 @@ impl Elab<'_> {
                         let lo = if matches!(&**sel, Select::Up(..)) {
                             b
                         } else {
-                            b - w + 1
+                            b.saturating_sub(w - 1)
                         };
-                        let mut v: Vec<i64> = (lo..lo + w.max(0)).collect();
+                        let mut v: Vec<i64> = (0..w).map(|j| lo.saturating_add(j)).collect();
                         if net.msb < net.lsb {
                             v.reverse();
                         }

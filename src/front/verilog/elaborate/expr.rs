@@ -369,6 +369,20 @@ impl Elab<'_> {
                 let mut acc = self.eval(cx, first, w, s);
                 for (op, pos, e) in rest {
                     let b = self.eval(cx, e, w, s);
+                    if *op == BinOp::Mul && acc.len() > super::MAX_MUL_WIDTH {
+                        // An array multiplier of w bits has about w * w / 2 gates.
+                        self.error_help(
+                            *pos,
+                            format!(
+                                "unsupported: multiplication {} bits wide (at most {} bits)",
+                                acc.len(),
+                                super::MAX_MUL_WIDTH
+                            ),
+                            "narrow the operands or the assignment target",
+                        );
+                        acc = vec![Lit::FALSE; acc.len()];
+                        continue;
+                    }
                     let g = &mut self.g;
                     acc = match op {
                         BinOp::Add => bits::add(g, &acc, &b, Lit::FALSE),

@@ -30,6 +30,16 @@ const MAX_LOOP: usize = 1 << 16;
 /// Widest expression accepted, in bits.
 const MAX_WIDTH: usize = 1 << 20;
 
+/// Widest multiplication built (an array multiplier of w bits has about w * w / 2 gates).
+const MAX_MUL_WIDTH: usize = 4096;
+
+/// The number of bits from index `m` to index `l` inclusive, computed without overflow;
+/// `None` when it is more than [`MAX_WIDTH`].
+fn span(m: i64, l: i64) -> Option<usize> {
+    let d = (i128::from(m) - i128::from(l)).unsigned_abs();
+    (d < MAX_WIDTH as u128).then_some(d as usize + 1)
+}
+
 /// A constant or symbolic value: bits LSB first, and signedness.
 #[derive(Clone, Debug)]
 pub struct Val {
@@ -59,9 +69,9 @@ impl Net {
     /// Offset (0 = least significant) of declared index `i`, if in range.
     fn offset(&self, i: i64) -> Option<u32> {
         let off = if self.msb >= self.lsb {
-            i - self.lsb
+            i.saturating_sub(self.lsb)
         } else {
-            self.lsb - i
+            self.lsb.saturating_sub(i)
         };
         (0..self.width as i64).contains(&off).then_some(off as u32)
     }

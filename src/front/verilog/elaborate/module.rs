@@ -44,10 +44,16 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
     let names = e.names;
     let nopos = Pos::default();
     if list.is_empty() {
-        e.errors.push(crate::diag::Diagnostic::error(
-            None,
+        let first = Pos {
+            file: 0,
+            line: 1,
+            col: 1,
+        };
+        e.error_help(
+            first,
             "no module found in the Verilog input",
-        ));
+            "a Verilog design needs at least one `module NAME(...); ... endmodule`",
+        );
         return None;
     }
     if let Some(t) = top {
@@ -80,10 +86,12 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
     match cands.len() {
         1 => Some(cands[0]),
         0 => {
-            e.errors.push(crate::diag::Diagnostic::error(
-                None,
+            let p = list.first().map_or(nopos, |m| m.pos);
+            e.error_help(
+                p,
                 "no top module: every module is instantiated by another",
-            ));
+                "a module cannot contain itself; remove the instance that closes the cycle",
+            );
             None
         }
         _ => {
@@ -152,8 +160,22 @@ impl<'a> Elab<'a> {
     fn range_bounds(&mut self, sc: u32, r: &Range) -> Option<(i64, i64)> {
         let m = self.const_int(sc, &r.msb)?;
         let l = self.const_int(sc, &r.lsb)?;
-        if (m - l).unsigned_abs() as usize >= super::MAX_WIDTH {
-            self.error(r.msb.pos(), "range wider than 2^20 bits");
+        for (v, e) in [(m, &r.msb), (l, &r.lsb)] {
+            if i32::try_from(v).is_err() {
+                self.error_help(
+                    e.pos(),
+                    format!("range bound {v} is outside the 32-bit integers"),
+                    "Verilog range bounds are integers (32 bits, signed); use smaller indices",
+                );
+                return None;
+            }
+        }
+        if super::span(m, l).is_none() {
+            self.error_help(
+                r.msb.pos(),
+                "range wider than 2^20 bits",
+                "equicone reads vectors of at most 2^20 bits; split the vector",
+            );
             return None;
         }
         Some((m, l))
@@ -198,7 +220,7 @@ impl<'a> Elab<'a> {
             } else if let Some(r) = &pd.range {
                 match self.range_bounds(sc, r) {
                     Some((m, l)) => {
-                        let w = (m - l).unsigned_abs() as usize + 1;
+                        let w = super::span(m, l).unwrap_or(1);
                         (
                             Val {
                                 bits: extend(v.bits, w, v.signed),

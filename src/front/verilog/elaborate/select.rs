@@ -11,10 +11,12 @@ use crate::aig::Lit;
 impl Elab<'_> {
     /// Offsets (0 = least significant bit) of declared index `i` for range `msb:lsb`.
     fn off_of(msb: i64, lsb: i64, i: i64) -> i64 {
+        // Saturating: an index this far out stays out of any declared range (at most 2^20
+        // bits within the 32-bit integers).
         if msb >= lsb {
-            i - lsb
+            i.saturating_sub(lsb)
         } else {
-            lsb - i
+            lsb.saturating_sub(i)
         }
     }
 
@@ -51,7 +53,14 @@ impl Elab<'_> {
                     self.error(pos, format!("part-select `{nm}[{m}:{l}]` is in the opposite direction to the declaration `[{msb}:{lsb}]`"));
                     return vec![Lit::FALSE; width_hint];
                 }
-                let w = (m - l).unsigned_abs() as usize + 1;
+                let Some(w) = super::span(m, l) else {
+                    self.error_help(
+                        pos,
+                        format!("part-select `{nm}[{m}:{l}]` is wider than 2^20 bits"),
+                        "select at most the declared bits of the vector",
+                    );
+                    return vec![Lit::FALSE; width_hint];
+                };
                 let base = Self::off_of(msb, lsb, l).min(Self::off_of(msb, lsb, m));
                 let what = format!("out-of-range part-select {nm}[{m}:{l}]");
                 self.const_window(cx, &data, base, w, pos, &what)
@@ -98,11 +107,28 @@ impl Elab<'_> {
                     if up { "+:" } else { "-:" }
                 );
                 if let Some(bc) = bits::to_i64(&bv.bits, bv.signed) {
-                    let base = if desc { bc + k } else { k - bc };
+                    let base = if desc {
+                        bc.saturating_add(k)
+                    } else {
+                        k.saturating_sub(bc)
+                    };
                     return self.const_window(cx, &data, base, w as usize, pos, &what);
                 }
                 if cx.constant {
                     self.error(pos, "select index is not constant");
+                    return vec![Lit::FALSE; w as usize];
+                }
+                if w as usize > data.len() {
+                    // Each bit is a selector over the vector plus a range check: a window wider
+                    // than the vector costs much and reads only unknowns beyond it.
+                    self.error_help(
+                        pos,
+                        format!(
+                            "unsupported: variable part-select of {w} bits from the {}-bit `{nm}`",
+                            data.len()
+                        ),
+                        "select at most as many bits as the vector has",
+                    );
                     return vec![Lit::FALSE; w as usize];
                 }
                 let off = self.offset_vec(&bv.bits, bv.signed, k, desc);
@@ -136,7 +162,7 @@ impl Elab<'_> {
     ) -> Vec<Lit> {
         let n = data.len() as i64;
         let outside = (0..w as i64)
-            .filter(|j| !(0..n).contains(&(base + j)))
+            .filter(|j| !(0..n).contains(&base.saturating_add(*j)))
             .count();
         let mut unk = if outside > 0 {
             if cx.constant {
@@ -151,7 +177,7 @@ impl Elab<'_> {
         .into_iter();
         (0..w as i64)
             .map(|j| {
-                let o = base + j;
+                let o = base.saturating_add(j);
                 if (0..n).contains(&o) {
                     data[o as usize]
                 } else {

@@ -49,7 +49,7 @@ impl Elab<'_> {
                     Select::Bit(_) => 1,
                     Select::Part(m, l) => {
                         match (self.const_int(cx.sc, m), self.const_int(cx.sc, l)) {
-                            (Some(m), Some(l)) => (m - l).unsigned_abs() as usize + 1,
+                            (Some(m), Some(l)) => super::span(m, l).unwrap_or(1),
                             _ => 1,
                         }
                     }

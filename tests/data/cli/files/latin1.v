@@ -1,0 +1,3 @@
+module m(input a, output y);
+  assign y = ÿ a;
+endmodule

@@ -1,0 +1,1 @@
+// Nothing but a comment: no module.

@@ -178,11 +178,18 @@ pub fn prove_shared(
             candidate: shared.cand_lits[p],
         })
         .collect();
+    // Pairs whose two sides hashed to the same literal need no engine at all.
+    for (p, q) in queries.iter().enumerate() {
+        if outcomes[p] == Outcome::Open && q.reference == q.candidate {
+            outcomes[p] = Outcome::Equal(Method::Structure);
+        }
+    }
     let open: Vec<usize> = (0..shared.pairs.len())
         .filter(|&p| outcomes[p] == Outcome::Open)
         .collect();
     let mut sweep_stats = None;
     let (findings, sat): (Vec<Option<Finding>>, SatStats) = match opts.engine {
+        _ if open.is_empty() => (vec![None; queries.len()], SatStats::default()),
         EngineKind::Plain => {
             let (f, s) = monolithic::monolithic(
                 &shared.aig,

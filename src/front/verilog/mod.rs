@@ -67,6 +67,8 @@ fn read_inner_fallback() -> Result<Design, InputError> {
 fn syntax_help(msg: &str) -> &'static str {
     if msg.starts_with("unsupported:") {
         "equicone reads the IEEE 1364-2005 subset listed in docs/verilog.md; rewrite this within it"
+    } else if msg.contains("wider than 65536 bits") {
+        "write literals of at most 65536 bits; build wider constants by concatenation"
     } else if msg.contains("does not fit in") {
         "give the literal enough bits for its digits (e.g. `8'h1f`), or drop the extra digits"
     } else if msg.starts_with("missing `endmodule`") {

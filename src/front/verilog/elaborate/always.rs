@@ -300,7 +300,7 @@ impl Elab<'_> {
                             return None;
                         }
                         let Some(w) = super::span(m, l) else {
-                            self.error(*p, "part-select wider than 2^20 bits");
+                            self.error(*p, "part-select wider than 65536 bits");
                             return None;
                         };
                         let step = if l <= m { 1 } else { -1 };
@@ -311,7 +311,7 @@ impl Elab<'_> {
                         if w <= 0 || w as usize > super::MAX_WIDTH {
                             self.error(
                                 *p,
-                                "indexed part-select width must be a positive constant of at most 2^20",
+                                "indexed part-select width must be a positive constant of at most 65536",
                             );
                             return None;
                         }

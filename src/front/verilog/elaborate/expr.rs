@@ -253,7 +253,7 @@ impl Elab<'_> {
                 };
                 let inner = self.concat(cx, items);
                 if count.saturating_mul(inner.len()) > super::MAX_WIDTH {
-                    self.error(*pos, "replication wider than 2^20 bits");
+                    self.error(*pos, "replication wider than 65536 bits");
                     return vec![Lit::FALSE; w];
                 }
                 let mut v = Vec::with_capacity(count * inner.len());
@@ -290,7 +290,7 @@ impl Elab<'_> {
             let b = self.eval_self(cx, it);
             v.extend_from_slice(&b.bits);
             if v.len() > super::MAX_WIDTH {
-                self.error(it.pos(), "concatenation wider than 2^20 bits");
+                self.error(it.pos(), "concatenation wider than 65536 bits");
                 v.truncate(super::MAX_WIDTH);
                 break;
             }

@@ -28,7 +28,7 @@ const MAX_HIER: usize = 64;
 /// Most iterations of one `for` loop.
 const MAX_LOOP: usize = 1 << 16;
 /// Widest expression accepted, in bits.
-const MAX_WIDTH: usize = 1 << 20;
+const MAX_WIDTH: usize = 1 << 16;
 
 /// Widest multiplication built (an array multiplier of w bits has about w * w / 2 gates).
 const MAX_MUL_WIDTH: usize = 4096;
@@ -37,7 +37,7 @@ const MAX_MUL_WIDTH: usize = 4096;
 /// `None` when it is more than [`MAX_WIDTH`].
 fn span(m: i64, l: i64) -> Option<usize> {
     let d = (i128::from(m) - i128::from(l)).unsigned_abs();
-    (d < MAX_WIDTH as u128).then_some(d as usize + 1)
+    (d < MAX_WIDTH as u128).then(|| d as usize + 1)
 }
 
 /// A constant or symbolic value: bits LSB first, and signedness.

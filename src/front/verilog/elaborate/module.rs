@@ -173,8 +173,8 @@ impl<'a> Elab<'a> {
         if super::span(m, l).is_none() {
             self.error_help(
                 r.msb.pos(),
-                "range wider than 2^20 bits",
-                "equicone reads vectors of at most 2^20 bits; split the vector",
+                "range wider than 65536 bits",
+                "equicone reads vectors of at most 65536 bits; split the vector",
             );
             return None;
         }

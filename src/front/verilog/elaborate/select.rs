@@ -11,7 +11,7 @@ use crate::aig::Lit;
 impl Elab<'_> {
     /// Offsets (0 = least significant bit) of declared index `i` for range `msb:lsb`.
     fn off_of(msb: i64, lsb: i64, i: i64) -> i64 {
-        // Saturating: an index this far out stays out of any declared range (at most 2^20
+        // Saturating: an index this far out stays out of any declared range (at most 65536
         // bits within the 32-bit integers).
         if msb >= lsb {
             i.saturating_sub(lsb)
@@ -56,7 +56,7 @@ impl Elab<'_> {
                 let Some(w) = super::span(m, l) else {
                     self.error_help(
                         pos,
-                        format!("part-select `{nm}[{m}:{l}]` is wider than 2^20 bits"),
+                        format!("part-select `{nm}[{m}:{l}]` is wider than 65536 bits"),
                         "select at most the declared bits of the vector",
                     );
                     return vec![Lit::FALSE; width_hint];
@@ -85,9 +85,10 @@ impl Elab<'_> {
                 let w = match self.const_int(cx.sc, wd) {
                     Some(w) if w > 0 && w as usize <= super::MAX_WIDTH => w,
                     Some(_) => {
-                        self.error(
+                        self.error_help(
                             wd.pos(),
-                            "indexed part-select width must be a positive constant",
+                            "indexed part-select width must be a positive constant of at most 65536",
+                            "give the number of bits to select, e.g. `d[s +: 8]`",
                         );
                         return vec![Lit::FALSE];
                     }

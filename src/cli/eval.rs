@@ -168,7 +168,12 @@ fn apply_set(d: &Design, s: &str, vals: &mut [Option<bool>]) -> Result<(), Input
         .map(|(k, b)| (b.index.unwrap_or(0), k))
         .collect();
     if bits.is_empty() {
-        let names: Vec<&str> = d.inputs.iter().map(|b| b.port.as_str()).take(12).collect();
+        let mut names: Vec<&str> = Vec::new();
+        for b in d.inputs.iter().filter(|b| !b.is_unknown()) {
+            if !names.contains(&b.port.as_str()) && names.len() < 12 {
+                names.push(b.port.as_str());
+            }
+        }
         return Err(InputError::plain(
             format!("`--set {s}`: the design has no input `{name}`"),
             format!("inputs of {} include: {}", d.name, names.join(", ")),

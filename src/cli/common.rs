@@ -43,6 +43,30 @@ pub struct DesignArgs {
     pub top: Option<String>,
 }
 
+impl DesignArgs {
+    /// Read the design these options name, printing its errors on failure.
+    pub fn load(&self) -> Result<Design, Exit> {
+        let mut paths = vec![self.path.clone()];
+        paths.extend(self.also.iter().cloned());
+        load(paths, self.format, self.top.clone())
+    }
+}
+
+/// A `--timeout` value as a duration; a value that is not a positive number of seconds is a
+/// usage error.
+pub fn timeout_of(t: Option<f64>) -> Result<Option<std::time::Duration>, Exit> {
+    match t {
+        None => Ok(None),
+        Some(s) if s.is_finite() && s > 0.0 && s < 1e9 => {
+            Ok(Some(std::time::Duration::from_secs_f64(s)))
+        }
+        Some(s) => {
+            eprintln!("error: --timeout {s} is not a positive number of seconds\n  help: for example `--timeout 30`");
+            Err(Exit::BadInput)
+        }
+    }
+}
+
 /// Read a design, printing its errors on failure.
 pub fn load(
     paths: Vec<String>,

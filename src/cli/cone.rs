@@ -1,13 +1,12 @@
 //! `equicone cone` (structural cone against exact support, per output bit) and
 //! `equicone stats` (gate counts, cost, delay, bounds).
 
-use super::common::{load, print, report_input_error, write_atomic, DesignArgs};
+use super::common::{print, report_input_error, timeout_of, write_atomic, DesignArgs};
 use super::Exit;
 use crate::cone::{self, AuditOptions, SupportOptions};
 use crate::cost::{self, CostModel};
 use crate::sat::Limits;
 use clap::Args;
-use std::time::Duration;
 
 /// Limits and simulation seed shared by `cone` and `stats`.
 #[derive(Args, Debug, Clone)]
@@ -25,15 +24,7 @@ pub struct AuditLimitArgs {
 
 impl AuditLimitArgs {
     fn limits(&self) -> Result<Limits, Exit> {
-        let timeout = match self.timeout {
-            None => None,
-            Some(s) if s.is_finite() && s > 0.0 && s < 1e9 => Some(Duration::from_secs_f64(s)),
-            Some(s) => {
-                eprintln!("error: --timeout {s} is not a positive number of seconds\n  help: for example `--timeout 30`");
-                return Err(Exit::BadInput);
-            }
-        };
-        Ok(Limits::new(timeout, self.conflict_limit))
+        Ok(Limits::new(timeout_of(self.timeout)?, self.conflict_limit))
     }
 
     fn support(&self, progress: bool) -> SupportOptions {
@@ -73,9 +64,7 @@ pub struct ConeArgs {
 
 /// Run `cone`.
 pub fn run_cone(a: &ConeArgs) -> Exit {
-    let mut paths = vec![a.design.path.clone()];
-    paths.extend(a.design.also.iter().cloned());
-    let d = match load(paths, a.design.format, a.design.top.clone()) {
+    let d = match a.design.load() {
         Ok(d) => d,
         Err(e) => return e,
     };
@@ -148,9 +137,7 @@ pub struct StatsArgs {
 
 /// Run `stats`.
 pub fn run_stats(a: &StatsArgs) -> Exit {
-    let mut paths = vec![a.design.path.clone()];
-    paths.extend(a.design.also.iter().cloned());
-    let d = match load(paths, a.design.format, a.design.top.clone()) {
+    let d = match a.design.load() {
         Ok(d) => d,
         Err(e) => return e,
     };

@@ -1,7 +1,7 @@
 //! `equicone eval`: the outputs of one design for one input vector given by `--set` or by a
 //! `--vector` file (a JSON counterexample from `prove --json`, or an object of name/value pairs).
 
-use super::common::{load, print, report_input_error, DesignArgs};
+use super::common::{print, report_input_error, DesignArgs};
 use super::Exit;
 use crate::design::Design;
 use crate::diag::InputError;
@@ -37,9 +37,7 @@ struct EvalReport {
 
 /// Run `eval`.
 pub fn run(a: &EvalArgs) -> Exit {
-    let mut paths = vec![a.design.path.clone()];
-    paths.extend(a.design.also.iter().cloned());
-    let d = match load(paths, a.design.format, a.design.top.clone()) {
+    let d = match a.design.load() {
         Ok(d) => d,
         Err(e) => return e,
     };

@@ -1,6 +1,8 @@
 //! `equicone prove` and `equicone cnf`: read two designs, pair them, prove or export the miter.
 
-use super::common::{load, print, report_input_error, report_internal, write_atomic, FormatArg};
+use super::common::{
+    load, print, report_input_error, report_internal, timeout_of, write_atomic, FormatArg,
+};
 use super::Exit;
 use crate::cnf::{dimacs, Tseitin};
 use crate::design::Design;
@@ -116,17 +118,6 @@ pub struct CnfArgs {
     /// Where to write the DIMACS file.
     #[arg(short = 'o', long = "output", value_name = "FILE")]
     output: String,
-}
-
-fn timeout_of(t: Option<f64>) -> Result<Option<Duration>, Exit> {
-    match t {
-        None => Ok(None),
-        Some(s) if s.is_finite() && s > 0.0 && s < 1e9 => Ok(Some(Duration::from_secs_f64(s))),
-        Some(s) => {
-            eprintln!("error: --timeout {s} is not a positive number of seconds\n  help: for example `--timeout 30`");
-            Err(Exit::BadInput)
-        }
-    }
 }
 
 /// Run `prove`.

@@ -1,6 +1,6 @@
 //! `equicone routes`: for each value of a select bus, which data input each output follows.
 
-use super::common::{load, print, report_input_error, DesignArgs};
+use super::common::{print, report_input_error, DesignArgs};
 use super::Exit;
 use crate::report;
 use crate::routes::{self, Route, RouteTable};
@@ -84,9 +84,7 @@ pub fn table_text(t: &RouteTable) -> String {
 
 /// Run `routes`.
 pub fn run(a: &RoutesArgs) -> Exit {
-    let mut paths = vec![a.design.path.clone()];
-    paths.extend(a.design.also.iter().cloned());
-    let d = match load(paths, a.design.format, a.design.top.clone()) {
+    let d = match a.design.load() {
         Ok(d) => d,
         Err(e) => return e,
     };

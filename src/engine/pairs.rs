@@ -53,6 +53,11 @@ pub(crate) fn decide_pairs(
         let act = sat.fresh();
         sat.clause(&[!act, a, b]);
         sat.clause(&[!act, !a, !b]);
+        // Decide only within the pair's cones (and the constraint's): the solver also holds
+        // the cones of earlier pairs, which this query does not need to assign.
+        let mut scope = ts.cone_vars(aig, &[pairs[p].reference, pairs[p].candidate, constraint]);
+        scope.push(act);
+        sat.set_scope(Some(&scope));
         let mut answer = sat.solve_within(&[act], Some(FIRST_BUDGET));
         if answer == SatResult::Stopped(StopReason::ConflictLimit)
             && limits.conflicts_per_query.is_none()

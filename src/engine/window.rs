@@ -1,20 +1,27 @@
-//! Bounded-window equality queries: encode only the nodes near two literals (at most a budget
-//! of AND nodes), treat the frontier as free variables, and ask whether the literals can differ.
+//! Bounded-window equality queries: decide only on the nodes near two literals (at most a budget
+//! of AND nodes), the frontier acting as free variables, and ask whether the literals can differ.
 //!
-//! Freeing the frontier only adds behaviours, so UNSAT proves the literals equal. A model is a
-//! real counterexample only when the window reached the primary inputs everywhere (it is then
-//! *complete*); otherwise the caller falls back to a query on the whole cone.
-//! Clauses of each query are guarded by an activation literal that is retired afterwards; the
-//! solver is replaced once it holds a few thousand variables so that retired windows do not
-//! slow later queries down.
+//! One solver serves every query of a sweep: a node's gate clauses are added the first time a
+//! window holds it and stay (they are facts about the graph), so clauses learned in one query
+//! help the next, and the solver's decisions are limited to the current window (its *scope*),
+//! so that the rest of the graph, already encoded, costs nothing. Only the miter clauses of a
+//! query are guarded by an activation literal that is retired afterwards.
+//!
+//! Every clause is true of the graph, so UNSAT proves the literals equal. A model is a real
+//! counterexample only when the window reached the primary inputs everywhere (it is then
+//! *complete*: the scope is a cone closed under fan-in, so a conflict-free assignment of it
+//! extends to the whole formula); otherwise it is *partial* and the caller tries to extend it.
+//! The solver is replaced once it holds many variables, to bound its memory.
 
 use crate::aig::{Aig, Lit, Node};
 use crate::sat::{CLit, ClauseSink, Limits, Sat, SatResult, SatStats};
-use std::collections::HashMap;
 
-/// Variables a window solver may accumulate before it is replaced: varisat assigns every
-/// variable of the solver before it reports a model, so retired windows must not pile up.
-const VARS_PER_SOLVER: u64 = 4_000;
+/// Variables the solver may accumulate before it is replaced.
+const VARS_PER_SOLVER: u64 = 400_000;
+/// Activation literals retired together: each unit clause makes varisat simplify its whole
+/// clause database, so they are added in batches (until then a spent activation literal is
+/// simply never assumed again, and lies outside every scope).
+const RETIRE_BATCH: usize = 1_024;
 
 /// The answer of one window query.
 pub(crate) enum WindowAnswer {
@@ -34,9 +41,18 @@ pub(crate) struct Window {
     sat: Sat<'static>,
     limits: Limits,
     retired: SatStats,
-    vars: HashMap<u32, CLit>,
+    /// Variable of each graph node in the current solver (`None`: not yet seen).
+    var: Vec<Option<CLit>>,
+    /// Whether a node's gate clauses are in the current solver.
+    gated: Vec<bool>,
+    /// Visit stamps of the current query.
+    stamp: Vec<u32>,
+    epoch: u32,
     order: Vec<u32>,
-    stack: Vec<u32>,
+    queue: Vec<u32>,
+    scope: Vec<CLit>,
+    /// Spent activation literals not yet retired by a unit clause.
+    spent: Vec<CLit>,
 }
 
 impl Window {
@@ -46,9 +62,14 @@ impl Window {
             sat: Sat::new(limits),
             limits: limits.clone(),
             retired: SatStats::default(),
-            vars: HashMap::new(),
+            var: Vec::new(),
+            gated: Vec::new(),
+            stamp: Vec::new(),
+            epoch: 0,
             order: Vec::new(),
-            stack: Vec::new(),
+            queue: Vec::new(),
+            scope: Vec::new(),
+            spent: Vec::new(),
         }
     }
 
@@ -59,7 +80,20 @@ impl Window {
         s
     }
 
-    /// Can `a` and `b` differ? Encodes at most `budget` AND nodes, with `conflicts` allowed.
+    fn var_of(&mut self, f: &Aig, n: u32) -> CLit {
+        if let Some(v) = self.var[n as usize] {
+            return v;
+        }
+        let v = self.sat.fresh();
+        self.var[n as usize] = Some(v);
+        if let Node::Const = f.node(n) {
+            self.sat.clause(&[!v]);
+        }
+        v
+    }
+
+    /// Can `a` and `b` differ? Decides on at most `budget` AND nodes near them, with
+    /// `conflicts` allowed.
     pub(crate) fn query(
         &mut self,
         f: &Aig,
@@ -71,66 +105,88 @@ impl Window {
         if self.sat.stats().vars >= VARS_PER_SOLVER {
             self.retired.add(&self.sat.stats());
             self.sat = Sat::new(&self.limits);
+            self.var.iter_mut().for_each(|v| *v = None);
+            self.gated.iter_mut().for_each(|g| *g = false);
+            self.spent.clear();
         }
-        // Collect the window: nodes reached from the two roots, AND nodes expanded while the
-        // budget lasts.
-        self.vars.clear();
+        if self.var.len() < f.len() {
+            self.var.resize(f.len(), None);
+            self.gated.resize(f.len(), false);
+            self.stamp.resize(f.len(), 0);
+        }
+        self.epoch = self.epoch.wrapping_add(1);
+        if self.epoch == 0 {
+            self.stamp.iter_mut().for_each(|s| *s = 0);
+            self.epoch = 1;
+        }
+        // Collect the window breadth first, so that it holds the nodes nearest the two
+        // literals; AND nodes are expanded while the budget lasts.
         self.order.clear();
-        self.stack.clear();
-        self.stack.push(a.node());
-        self.stack.push(b.node());
+        self.queue.clear();
+        self.scope.clear();
+        self.queue.push(a.node());
+        self.queue.push(b.node());
         let mut expanded = 0usize;
         let mut complete = true;
-        let act = self.sat.fresh();
-        // Breadth first, so that the window holds the nodes nearest the two literals.
         let mut head = 0;
-        while head < self.stack.len() {
-            let n = self.stack[head];
+        while head < self.queue.len() {
+            let n = self.queue[head];
             head += 1;
-            if self.vars.contains_key(&n) {
+            if self.stamp[n as usize] == self.epoch {
                 continue;
             }
-            let v = self.sat.fresh();
-            self.vars.insert(n, v);
+            self.stamp[n as usize] = self.epoch;
+            let v = self.var_of(f, n);
+            self.scope.push(v);
             if let Node::And(x, y) = f.node(n) {
                 if expanded < budget {
                     expanded += 1;
                     self.order.push(n);
-                    self.stack.push(x.node());
-                    self.stack.push(y.node());
+                    self.queue.push(x.node());
+                    self.queue.push(y.node());
                 } else {
                     complete = false;
                 }
-            } else if n == 0 {
-                self.sat.clause(&[!act, !v]);
             }
         }
-        for &n in &self.order {
+        for i in 0..self.order.len() {
+            let n = self.order[i];
+            if self.gated[n as usize] {
+                continue;
+            }
+            self.gated[n as usize] = true;
             if let Node::And(x, y) = f.node(n) {
-                let z = self.vars[&n];
-                let cx = lit_of(self.vars[&x.node()], x);
-                let cy = lit_of(self.vars[&y.node()], y);
-                self.sat.clause(&[!act, !z, cx]);
-                self.sat.clause(&[!act, !z, cy]);
-                self.sat.clause(&[!act, z, !cx, !cy]);
+                let z = self.var[n as usize].expect("in the window");
+                let cx = lit_of(self.var_of(f, x.node()), x);
+                let cy = lit_of(self.var_of(f, y.node()), y);
+                self.sat.clause(&[!z, cx]);
+                self.sat.clause(&[!z, cy]);
+                self.sat.clause(&[z, !cx, !cy]);
             }
         }
-        let ca = lit_of(self.vars[&a.node()], a);
-        let cb = lit_of(self.vars[&b.node()], b);
+        let act = self.sat.fresh();
+        self.scope.push(act);
+        let ca = lit_of(self.var[a.index()].expect("in the window"), a);
+        let cb = lit_of(self.var[b.index()].expect("in the window"), b);
         self.sat.clause(&[!act, ca, cb]);
         self.sat.clause(&[!act, !ca, !cb]);
+        self.sat.set_scope(Some(&self.scope));
         let answer = match self.sat.solve_within(&[act], Some(conflicts)) {
             SatResult::Unsat => WindowAnswer::Equal,
             SatResult::Sat => {
                 let mut values: Vec<(u32, bool)> = self
-                    .vars
+                    .queue
                     .iter()
-                    .filter_map(|(&n, &v)| match f.node(n) {
-                        Node::Input(k) => Some((k, self.sat.value(v))),
+                    .filter(|&&n| self.stamp[n as usize] == self.epoch)
+                    .filter_map(|&n| match f.node(n) {
+                        Node::Input(k) => {
+                            Some((k, self.sat.value(self.var[n as usize].expect("seen"))))
+                        }
                         _ => None,
                     })
                     .collect();
                 values.sort_unstable();
+                values.dedup_by_key(|p| p.0);
                 if complete {
                     WindowAnswer::Differ(values)
                 } else {
@@ -139,7 +195,12 @@ impl Window {
             }
             SatResult::Stopped(_) => WindowAnswer::Unknown,
         };
-        self.sat.clause(&[!act]);
+        self.spent.push(act);
+        if self.spent.len() >= RETIRE_BATCH {
+            for act in std::mem::take(&mut self.spent) {
+                self.sat.clause(&[!act]);
+            }
+        }
         answer
     }
 }

@@ -58,7 +58,15 @@ pub(crate) fn decide_pairs(
         let mut scope = ts.cone_vars(aig, &[pairs[p].reference, pairs[p].candidate, constraint]);
         scope.push(act);
         sat.set_scope(Some(&scope));
-        let mut answer = sat.solve_within(&[act], Some(FIRST_BUDGET));
+        let first = if limits.conflicts_per_query.is_none()
+            && split::split_first(aig, &[pairs[p].reference, pairs[p].candidate, constraint])
+        {
+            // A wide selector: straight to case splitting.
+            SatResult::Stopped(StopReason::ConflictLimit)
+        } else {
+            sat.solve_within(&[act], Some(FIRST_BUDGET))
+        };
+        let mut answer = first;
         if answer == SatResult::Stopped(StopReason::ConflictLimit)
             && limits.conflicts_per_query.is_none()
         {

@@ -11,13 +11,23 @@
 //! counterexample only when the window reached the primary inputs everywhere (it is then
 //! *complete*: the scope is a cone closed under fan-in, so a conflict-free assignment of it
 //! extends to the whole formula); otherwise it is *partial* and the caller tries to extend it.
-//! The solver is replaced once it holds many variables, to bound its memory.
+//! The solver is replaced once it holds many variables, to bound its memory and the reach of
+//! propagation.
+//!
+//! A first, cheaper kind of query ([`Window::query_fresh`]) encodes a small window on its own,
+//! guarded by an activation literal, in a separate small solver: it proves most local rewrites
+//! at a cost bounded by the window, however large the graph.
 
 use crate::aig::{Aig, Lit, Node};
 use crate::sat::{CLit, ClauseSink, Limits, Sat, SatResult, SatStats};
+use std::collections::HashMap;
+
+/// Variables the small solver of [`Window::query_fresh`] may accumulate before it is replaced
+/// (varisat assigns every variable of a solver before it reports a model).
+const FRESH_VARS_PER_SOLVER: u64 = 4_000;
 
 /// Variables the solver may accumulate before it is replaced.
-const VARS_PER_SOLVER: u64 = 400_000;
+const VARS_PER_SOLVER: u64 = 60_000;
 /// Activation literals retired together: each unit clause makes varisat simplify its whole
 /// clause database, so they are added in batches (until then a spent activation literal is
 /// simply never assumed again, and lies outside every scope).
@@ -36,8 +46,17 @@ pub(crate) enum WindowAnswer {
     Unknown,
 }
 
+/// The small solver of [`Window::query_fresh`] and its scratch space.
+struct Fresh {
+    sat: Sat<'static>,
+    vars: HashMap<u32, CLit>,
+    order: Vec<u32>,
+    stack: Vec<u32>,
+}
+
 /// A reusable window prover.
 pub(crate) struct Window {
+    fresh: Fresh,
     sat: Sat<'static>,
     limits: Limits,
     retired: SatStats,
@@ -59,6 +78,12 @@ impl Window {
     /// A window prover under `limits`.
     pub(crate) fn new(limits: &Limits) -> Window {
         Window {
+            fresh: Fresh {
+                sat: Sat::new(limits),
+                vars: HashMap::new(),
+                order: Vec::new(),
+                stack: Vec::new(),
+            },
             sat: Sat::new(limits),
             limits: limits.clone(),
             retired: SatStats::default(),
@@ -77,7 +102,95 @@ impl Window {
     pub(crate) fn stats(&self) -> SatStats {
         let mut s = self.retired;
         s.add(&self.sat.stats());
+        s.add(&self.fresh.sat.stats());
         s
+    }
+
+    /// Can `a` and `b` differ? A query of its own: encodes at most `budget` AND nodes in a small
+    /// solver under an activation literal, with the frontier free, and `conflicts` allowed.
+    /// Cheap and bounded whatever the graph's size; most local rewrites are proved here.
+    pub(crate) fn query_fresh(
+        &mut self,
+        f: &Aig,
+        a: Lit,
+        b: Lit,
+        budget: usize,
+        conflicts: u64,
+    ) -> WindowAnswer {
+        if self.fresh.sat.stats().vars >= FRESH_VARS_PER_SOLVER {
+            self.retired.add(&self.fresh.sat.stats());
+            self.fresh.sat = Sat::new(&self.limits);
+        }
+        // Collect the window: nodes reached from the two roots, AND nodes expanded while the
+        // budget lasts.
+        self.fresh.vars.clear();
+        self.fresh.order.clear();
+        self.fresh.stack.clear();
+        self.fresh.stack.push(a.node());
+        self.fresh.stack.push(b.node());
+        let mut expanded = 0usize;
+        let mut complete = true;
+        let act = self.fresh.sat.fresh();
+        // Breadth first, so that the window holds the nodes nearest the two literals.
+        let mut head = 0;
+        while head < self.fresh.stack.len() {
+            let n = self.fresh.stack[head];
+            head += 1;
+            if self.fresh.vars.contains_key(&n) {
+                continue;
+            }
+            let v = self.fresh.sat.fresh();
+            self.fresh.vars.insert(n, v);
+            if let Node::And(x, y) = f.node(n) {
+                if expanded < budget {
+                    expanded += 1;
+                    self.fresh.order.push(n);
+                    self.fresh.stack.push(x.node());
+                    self.fresh.stack.push(y.node());
+                } else {
+                    complete = false;
+                }
+            } else if n == 0 {
+                self.fresh.sat.clause(&[!act, !v]);
+            }
+        }
+        for &n in &self.fresh.order {
+            if let Node::And(x, y) = f.node(n) {
+                let z = self.fresh.vars[&n];
+                let cx = lit_of(self.fresh.vars[&x.node()], x);
+                let cy = lit_of(self.fresh.vars[&y.node()], y);
+                self.fresh.sat.clause(&[!act, !z, cx]);
+                self.fresh.sat.clause(&[!act, !z, cy]);
+                self.fresh.sat.clause(&[!act, z, !cx, !cy]);
+            }
+        }
+        let ca = lit_of(self.fresh.vars[&a.node()], a);
+        let cb = lit_of(self.fresh.vars[&b.node()], b);
+        self.fresh.sat.clause(&[!act, ca, cb]);
+        self.fresh.sat.clause(&[!act, !ca, !cb]);
+        let answer = match self.fresh.sat.solve_within(&[act], Some(conflicts)) {
+            SatResult::Unsat => WindowAnswer::Equal,
+            SatResult::Sat => {
+                let mut values: Vec<(u32, bool)> = self
+                    .fresh
+                    .vars
+                    .iter()
+                    .filter_map(|(&n, &v)| match f.node(n) {
+                        Node::Input(k) => Some((k, self.fresh.sat.value(v))),
+                        _ => None,
+                    })
+                    .collect();
+                values.sort_unstable();
+                if complete {
+                    WindowAnswer::Differ(values)
+                } else {
+                    WindowAnswer::Partial(values)
+                }
+            }
+            SatResult::Stopped(_) => WindowAnswer::Unknown,
+        };
+        self.fresh.sat.clause(&[!act]);
+        answer
     }
 
     fn var_of(&mut self, f: &Aig, n: u32) -> CLit {

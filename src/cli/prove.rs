@@ -1,13 +1,16 @@
 //! `equicone prove` and `equicone cnf`: read two designs, pair them, prove or export the miter.
 
 use super::common::{
-    load, print, report_input_error, report_internal, timeout_of, write_atomic, FormatArg,
+    print, report_input_error, report_internal, timeout_of, write_atomic, FormatArg,
 };
 use super::Exit;
 use crate::cnf::{dimacs, Tseitin};
 use crate::design::Design;
+use crate::design::Format;
+use crate::diag::InputError;
 use crate::diagnose;
 use crate::engine::{self, EngineKind, PairBy, ProveError, ProveOptions, Verdict};
+use crate::front::{self, Source};
 use crate::report;
 use crate::sat::ClauseSink;
 use clap::Args;
@@ -58,8 +61,27 @@ impl PairArgs {
         rp.extend(self.ref_also.iter().cloned());
         let mut cp = vec![self.candidate.clone()];
         cp.extend(self.cand_also.iter().cloned());
-        let r = load(rp, self.ref_format.or(self.format), self.ref_top.clone());
-        let c = load(cp, self.cand_format.or(self.format), self.cand_top.clone());
+        let source = |paths: Vec<String>, format: Option<FormatArg>, top: Option<String>| Source {
+            paths,
+            format: format.map(Format::from),
+            top,
+        };
+        let rs = source(rp, self.ref_format.or(self.format), self.ref_top.clone());
+        let cs = source(cp, self.cand_format.or(self.format), self.cand_top.clone());
+        // The two sides are read at once, on two threads; errors are printed reference first.
+        let (r, c) = std::thread::scope(|s| {
+            let h = s.spawn(|| front::load(&rs));
+            let c = front::load(&cs);
+            (h.join(), c)
+        });
+        let r = r.unwrap_or_else(|_| {
+            Err(InputError::plain(
+                "internal error while reading the reference",
+                "please report this with the files that caused it",
+            ))
+        });
+        let r = r.map_err(|e| report_input_error(&e));
+        let c = c.map_err(|e| report_input_error(&e));
         Ok((r?, c?))
     }
 }

@@ -325,8 +325,9 @@ pub enum Item {
     Genvar(Vec<(Sym, Pos)>),
     /// `assign lhs = rhs;`
     Assign(Box<(Expr, Expr)>, Pos),
-    /// Gate primitive instance: kind, optional name, terminals (output first).
-    Gate(GateKind, Option<Sym>, Vec<Expr>, Pos),
+    /// Gate primitive instance: kind, terminals (output first), where it starts (the
+    /// instance name is not kept).
+    Gate(GateKind, Box<[Expr]>, Pos),
     /// Module instance.
     Inst(Box<Instance>),
     /// `always @*`

@@ -156,6 +156,17 @@ impl<'s, 'n> Parser<'s, 'n> {
         Err(self.error(t.pos, format!("expected {what}, found {d}")))
     }
 
+    /// Skip a plain name without interning it (see [`Lexer::skip_name`]); only when no
+    /// token is waiting in the lookahead.
+    fn skip_name(&mut self) -> Option<Pos> {
+        if !self.look.is_empty() {
+            return None;
+        }
+        let p = self.lx.skip_name(self.names)?;
+        self.taken += 1;
+        Some(p)
+    }
+
     /// Enter one level of nesting.
     pub fn enter(&mut self, pos: Pos) -> PResult<()> {
         self.depth += 1;
@@ -554,30 +565,39 @@ impl<'s, 'n> Parser<'s, 'n> {
             self.expect_p(P::Semi, "`;` after the assignment")?;
         } else if let Some(g) = Self::gate_kind(k) {
             self.bump();
-            if self.peek_p(P::Hash) || self.peek_p(P::LParen) && self.strength_follows() {
+            // Instance names are skipped, not interned: nothing looks them up, and a
+            // million-gate netlist would otherwise hold a million more names.
+            let mut named = self.skip_name();
+            if named.is_none()
+                && (self.peek_p(P::Hash) || self.peek_p(P::LParen) && self.strength_follows())
+            {
                 return Err(self.err_here("unsupported: delay or drive strength on a gate"));
             }
             loop {
-                let gpos = self.peek_pos();
-                let name = if self.peek_p(P::LParen) {
-                    None
-                } else {
-                    let n = self.ident("a gate instance name or `(`")?.0;
-                    if self.peek_p(P::LBrack) {
-                        return Err(self.err_here("unsupported: arrays of gate instances"));
+                let gpos = match named.take() {
+                    Some(p) => p,
+                    None => {
+                        let p = self.peek_pos();
+                        if !self.peek_p(P::LParen) {
+                            self.ident("a gate instance name or `(`")?;
+                        }
+                        p
                     }
-                    Some(n)
                 };
+                if self.peek_p(P::LBrack) {
+                    return Err(self.err_here("unsupported: arrays of gate instances"));
+                }
                 self.expect_p(P::LParen, "`(` of the gate terminals")?;
                 let mut terms = vec![self.expr()?];
                 while self.eat_p(P::Comma) {
                     terms.push(self.expr()?);
                 }
                 self.expect_p(P::RParen, "`)` closing the gate terminals")?;
-                out.push(Item::Gate(g, name, terms, gpos));
+                out.push(Item::Gate(g, terms.into_boxed_slice(), gpos));
                 if !self.eat_p(P::Comma) {
                     break;
                 }
+                named = self.skip_name();
             }
             self.expect_p(P::Semi, "`;` after the gate")?;
         } else if k == kw::ALWAYS {

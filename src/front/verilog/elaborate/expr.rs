@@ -123,7 +123,7 @@ impl Elab<'_> {
                 Some(Operand { val, msb, lsb })
             }
             Some(Symbol::Genvar(Some(v))) => Some(Operand {
-                val: v,
+                val: *v,
                 msb: 31,
                 lsb: 0,
             }),

@@ -91,7 +91,7 @@ impl Net {
 enum Symbol {
     Net(u32),
     Param(Box<(Val, i64, i64)>),
-    Genvar(Option<Val>),
+    Genvar(Option<Box<Val>>),
 }
 
 /// A name scope: a module instance or a generate block.
@@ -119,11 +119,13 @@ struct Driver {
     pos: Pos,
 }
 
-/// A gate primitive as written (for the netlist).
+/// A gate primitive as written (for the netlist); its inputs are
+/// `Elab::gate_ins[first..first + count]`.
 #[derive(Clone, Debug)]
 struct GateRec {
     kind: CellKind,
-    ins: Vec<Lit>,
+    count: u32,
+    first: u32,
     out: u32,
     pos: Pos,
 }
@@ -143,6 +145,7 @@ pub struct Elab<'a> {
     drivers: Vec<Option<Driver>>,
     scopes: Vec<Scope>,
     gates: Vec<GateRec>,
+    gate_ins: Vec<Lit>,
     errors: Vec<Diagnostic>,
     warnings: Vec<Diagnostic>,
     quiet: u32,
@@ -167,6 +170,7 @@ impl<'a> Elab<'a> {
             drivers: Vec::new(),
             scopes: Vec::new(),
             gates: Vec::new(),
+            gate_ins: Vec::new(),
             errors: Vec::new(),
             warnings: Vec::new(),
             quiet: 0,
@@ -256,6 +260,17 @@ impl<'a> Elab<'a> {
             }
             sc = scope.parent?;
         }
+    }
+
+    /// Room for `nets` more one-bit nets in scope `sc` and `gates` more gate primitives.
+    fn reserve(&mut self, sc: u32, nets: usize, gates: usize) {
+        self.nets.reserve(nets);
+        self.owner.reserve(nets);
+        self.drivers.reserve(nets);
+        self.scopes[sc as usize].syms.reserve(nets);
+        self.gates.reserve(gates);
+        self.gate_ins.reserve(2 * gates);
+        self.g.reserve(nets + gates);
     }
 
     /// Create a net with fresh leaves.

@@ -263,6 +263,16 @@ impl<'a> Elab<'a> {
         mut overrides: Option<&mut Vec<(Which, Val, Pos)>>,
         is_module: bool,
     ) {
+        // Room for the nets and gates of the items (a flat netlist has a million of each).
+        let (mut nnets, mut ngates) = (0, 0);
+        for it in items {
+            match it {
+                Item::Decl(d) => nnets += d.names.len(),
+                Item::Gate(..) => ngates += 1,
+                _ => {}
+            }
+        }
+        self.reserve(sc, nnets, ngates);
         // A: parameters and genvars, in order.
         let mut nth = 0;
         for it in items {
@@ -325,7 +335,7 @@ impl<'a> Elab<'a> {
         if !m.nettype_none {
             for it in items {
                 let exprs: Vec<&Expr> = match it {
-                    Item::Gate(_, _, t, _) => t.iter().collect(),
+                    Item::Gate(_, t, _) => t.iter().collect(),
                     Item::Assign(a, _) => vec![&a.0],
                     Item::Inst(i) => match &i.conns {
                         Conns::Named(v) => v.iter().filter_map(|c| c.2.as_ref()).collect(),
@@ -350,7 +360,7 @@ impl<'a> Elab<'a> {
         for it in items {
             match it {
                 Item::Assign(a, p) => self.cont_assign(sc, &a.0, &a.1, *p),
-                Item::Gate(k, _, t, p) => self.gate(sc, *k, t, *p),
+                Item::Gate(k, t, p) => self.gate(sc, *k, t, *p),
                 Item::Inst(i) => self.instance(sc, i),
                 Item::Always(b, p) => self.elab_always(sc, b, *p),
                 Item::GenFor(g) => {
@@ -463,20 +473,18 @@ impl<'a> Elab<'a> {
         let cx = Cx::new(sc);
         let mut lits = Vec::with_capacity(ins.len());
         for t in ins {
-            // Plain net names (the common case in netlists) skip the width computation.
-            let v = match t {
-                Expr::Ident(s, _) => match self.lookup(sc, *s) {
-                    Some(Symbol::Net(n)) => {
-                        let n = *n;
-                        Val {
-                            bits: self.net_bits(n),
-                            signed: false,
-                        }
+            // Plain one-bit net names (the common case in netlists) skip the width
+            // computation and the bit vector.
+            if let Expr::Ident(s, _) = t {
+                if let Some(Symbol::Net(n)) = self.lookup(sc, *s) {
+                    let net = &self.nets[*n as usize];
+                    if net.width == 1 {
+                        lits.push(self.g.input_lit(net.first as usize));
+                        continue;
                     }
-                    _ => self.eval_self(&cx, t),
-                },
-                _ => self.eval_self(&cx, t),
-            };
+                }
+            }
+            let v = self.eval_self(&cx, t);
             if v.bits.len() != 1 {
                 self.error(
                     t.pos(),
@@ -499,27 +507,39 @@ impl<'a> Elab<'a> {
             GateKind::Not => (CellKind::Not, !lits[0]),
             GateKind::Buf => (CellKind::Buf, lits[0]),
         };
+        let mut shared = None;
         for o in outs {
-            let t = match self.targets(&cx, o, false) {
-                Some(t) => t,
-                None => continue,
+            // A plain name needs no target list.
+            let (t, width) = match o {
+                Expr::Ident(s, p) => match self.target_net(sc, *s, *p, false) {
+                    Some(n) => ((n, Some(0)), self.nets[n as usize].width as usize),
+                    None => continue,
+                },
+                _ => match self.targets(&cx, o, false) {
+                    Some(t) => (t.first().copied().unwrap_or((0, None)), t.len()),
+                    None => continue,
+                },
             };
-            if t.len() != 1 {
+            if width != 1 {
                 self.error(
                     o.pos(),
                     format!(
-                        "gate output terminal is {} bits wide; gate terminals must be 1 bit",
-                        t.len()
+                        "gate output terminal is {width} bits wide; gate terminals must be 1 bit"
                     ),
                 );
                 continue;
             }
-            if let (n, Some(off)) = t[0] {
+            if let (n, Some(off)) = t {
                 self.drive(n, off, out, pos);
                 let leaf = self.nets[n as usize].first + off;
+                if shared.is_none() {
+                    shared = Some(self.gate_ins.len() as u32);
+                    self.gate_ins.extend_from_slice(&lits);
+                }
                 self.gates.push(GateRec {
                     kind: cell,
-                    ins: lits.clone(),
+                    count: lits.len() as u32,
+                    first: shared.unwrap_or(0),
                     out: leaf,
                     pos,
                 });
@@ -691,7 +711,7 @@ impl<'a> Elab<'a> {
             };
             self.scopes[child as usize]
                 .syms
-                .insert(var, Symbol::Genvar(Some(gv)));
+                .insert(var, Symbol::Genvar(Some(Box::new(gv))));
             let c = match self.const_val(child, &g.cond) {
                 Some(c) => c.bits.contains(&Lit::TRUE),
                 None => return,

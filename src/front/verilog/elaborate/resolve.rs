@@ -305,27 +305,44 @@ fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
             _ => None,
         }
     };
-    let rep = |mut k: u32| -> u32 {
-        for _ in 0..nleaves {
-            if gate_out[k as usize] {
-                return k;
+    // The representative of a leaf: the first gate output or undriven leaf found by
+    // following plain connections (memoized, so a long chain of `assign a = b;` is walked
+    // once; a loop of plain connections, already reported, stops where it closes).
+    let mut rep_of: Vec<u32> = vec![NONE; nleaves];
+    let mut path: Vec<u32> = Vec::new();
+    let mut rep = |k: u32| -> u32 {
+        let mut cur = k;
+        let found = loop {
+            if rep_of[cur as usize] != NONE {
+                break rep_of[cur as usize];
             }
-            match e.drivers[k as usize].and_then(|d| as_leaf(d.lit)) {
-                Some(next) if next != k => k = next,
-                _ => return k,
+            if gate_out[cur as usize] {
+                break cur;
             }
+            path.push(cur);
+            // Marks the leaf as on the current path: a loop ends the walk there.
+            rep_of[cur as usize] = cur;
+            match e.drivers[cur as usize].and_then(|d| as_leaf(d.lit)) {
+                Some(next) => cur = next,
+                _ => break cur,
+            }
+        };
+        for p in path.drain(..) {
+            rep_of[p as usize] = found;
         }
-        k
+        found
     };
     let mut complete = r.inputs.iter().all(|b| !b.is_unknown());
-    let mut sig: HashMap<u32, u32> = HashMap::new();
+    let mut sig: Vec<u32> = vec![NONE; nleaves];
     let mut nl = Netlist::default();
+    nl.cells.reserve(e.gates.len());
     let mut signal = |k: u32, nl: &mut Netlist| -> u32 {
-        let k = rep(k);
-        *sig.entry(k).or_insert_with(|| {
-            nl.signals.push(e.leaf_name(k));
-            (nl.signals.len() - 1) as u32
-        })
+        let k = rep(k) as usize;
+        if sig[k] == NONE {
+            nl.signals.push(e.leaf_name(k as u32));
+            sig[k] = (nl.signals.len() - 1) as u32;
+        }
+        sig[k]
     };
     for &k in r.primary.keys().collect::<BTreeSet<_>>() {
         let s = signal(k, &mut nl);
@@ -336,7 +353,8 @@ fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
         nl.outputs.push(s);
     }
     for gr in &e.gates {
-        let ins: Option<Vec<u32>> = gr.ins.iter().map(|&l| as_leaf(l)).collect();
+        let ins = &e.gate_ins[gr.first as usize..(gr.first + gr.count) as usize];
+        let ins: Option<Vec<u32>> = ins.iter().map(|&l| as_leaf(l)).collect();
         match ins {
             Some(ins) => {
                 let inputs = ins.into_iter().map(|k| signal(k, &mut nl)).collect();

@@ -178,6 +178,29 @@ impl<'a> Elab<'a> {
         }
     }
 
+    /// The same state without the borrowed syntax tree, so that the tree can be freed
+    /// before the design is built.
+    fn detach<'n>(self, names: &'n Interner, files: &'n [Arc<str>]) -> Elab<'n> {
+        Elab {
+            names,
+            files,
+            modules: HashMap::new(),
+            module_list: Vec::new(),
+            g: self.g,
+            owner: self.owner,
+            unknowns: self.unknowns,
+            nets: self.nets,
+            drivers: self.drivers,
+            scopes: self.scopes,
+            gates: self.gates,
+            gate_ins: self.gate_ins,
+            errors: self.errors,
+            warnings: self.warnings,
+            quiet: self.quiet,
+            hier: self.hier,
+        }
+    }
+
     fn spos(&self, p: Pos) -> SourcePos {
         let f = self
             .files
@@ -270,7 +293,6 @@ impl<'a> Elab<'a> {
         self.scopes[sc as usize].syms.reserve(nets);
         self.gates.reserve(gates);
         self.gate_ins.reserve(2 * gates);
-        self.g.reserve(nets + gates);
     }
 
     /// Create a net with fresh leaves.
@@ -360,13 +382,13 @@ impl<'a> Elab<'a> {
 pub fn elaborate(
     names: &Interner,
     files: &[Arc<str>],
-    mods: &[Module],
+    mods: Vec<Module>,
     top: Option<&str>,
 ) -> Result<Design, InputError> {
-    let mut e = Elab::new(names, files, mods);
+    let mut e = Elab::new(names, files, &mods);
     // Duplicate module names.
     let mut seen: HashMap<Sym, Pos> = HashMap::new();
-    for m in mods {
+    for m in &mods {
         if let Some(&p) = seen.get(&m.name) {
             let sp = e.spos(p);
             let n = e.name(m.name).to_string();
@@ -387,7 +409,11 @@ pub fn elaborate(
         }
     };
     let sc = module::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
-    let design = resolve::build(&mut e, top_mod, sc);
+    // The syntax tree is no longer needed: free it before the design is built.
+    let (top_name, top_ports) = (top_mod.name, top_mod.ports.clone());
+    let mut e = e.detach(names, files);
+    drop(mods);
+    let design = resolve::build(&mut e, top_name, &top_ports, sc);
     if !e.errors.is_empty() {
         return Err(InputError {
             diagnostics: e.errors,

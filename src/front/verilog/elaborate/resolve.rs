@@ -3,7 +3,9 @@
 //! creates unknown-value inputs on first use, reports undriven nets and combinational
 //! loops, and derives the gate-level netlist.
 
-use super::super::ast::{Dir, Module};
+use super::super::ast::Dir;
+use super::super::lexer::Pos;
+use super::super::symbols::Sym;
 use super::{Elab, Symbol, UNKNOWN_BIT};
 use crate::aig::{Aig, Lit, Node};
 use crate::design::{bit_name, Cell, Design, Format, InputBit, InputKind, Netlist, OutputBit};
@@ -163,7 +165,7 @@ impl Elab<'_> {
 }
 
 /// Build the design of top module `m` (elaborated in scope `sc`).
-pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
+pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
     let mut r = Resolver {
         f: Aig::new(),
         memo: Vec::new(),
@@ -174,7 +176,7 @@ pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
         undriven: BTreeSet::new(),
     };
     let mut outs: Vec<u32> = Vec::new();
-    for (ps, ppos) in &m.ports {
+    for (ps, ppos) in ports {
         let n = match e.scopes[sc as usize].syms.get(ps) {
             Some(Symbol::Net(n)) => *n,
             _ => {
@@ -258,8 +260,8 @@ pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
             );
         }
     }
-    let netlist = netlist(e, &r, &outputs_leaves(e, m, sc));
-    let name = e.name(m.name).to_string();
+    let netlist = netlist(e, &r, &outputs_leaves(e, ports, sc));
+    let name = e.name(top).to_string();
     let d = Design {
         name,
         format: Format::Verilog,
@@ -275,9 +277,9 @@ pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
     d
 }
 
-fn outputs_leaves(e: &Elab, m: &Module, sc: u32) -> Vec<u32> {
+fn outputs_leaves(e: &Elab, ports: &[(Sym, Pos)], sc: u32) -> Vec<u32> {
     let mut v = Vec::new();
-    for (ps, _) in &m.ports {
+    for (ps, _) in ports {
         if let Some(Symbol::Net(n)) = e.scopes[sc as usize].syms.get(ps) {
             let net = &e.nets[*n as usize];
             if net.dir == Some(Dir::Output) {

@@ -4,5 +4,6 @@ mod common;
 mod engine_checks;
 mod fixtures;
 mod iverilog_diff;
+mod large;
 mod regress;
 mod semantics;

@@ -25,6 +25,14 @@ pub struct Env {
 }
 
 impl Env {
+    /// The current value of bit `off` of net `n`, if assigned.
+    pub fn bit(&self, n: u32, off: usize) -> Option<Lit> {
+        match self.vars.get(&n)?.get(off)? {
+            BState::Set(l) => Some(*l),
+            BState::Unset(_) => None,
+        }
+    }
+
     /// Replace the bits of net `n` by their current values where assigned.
     pub fn overlay(&self, n: u32, bits: &mut [Lit]) {
         if let Some(v) = self.vars.get(&n) {

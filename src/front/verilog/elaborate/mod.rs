@@ -210,15 +210,8 @@ impl<'a> Elab<'a> {
         SourcePos::new(&f, p.line, p.col)
     }
 
-    /// Record an error (unless inside a quiet width computation).
-    fn error(&mut self, p: Pos, msg: impl Into<String>) {
-        if self.quiet == 0 {
-            let d = Diagnostic::error(Some(self.spos(p)), msg);
-            self.errors.push(d);
-        }
-    }
-
-    fn error_help(&mut self, p: Pos, msg: impl Into<String>, help: impl Into<String>) {
+    /// Record an error and what to do about it (unless inside a quiet width computation).
+    fn error(&mut self, p: Pos, msg: impl Into<String>, help: impl Into<String>) {
         if self.quiet == 0 {
             let d = Diagnostic::error(Some(self.spos(p)), msg).with_help(help);
             self.errors.push(d);
@@ -366,7 +359,7 @@ impl<'a> Elab<'a> {
         if let Some(d) = self.drivers[leaf] {
             let first = self.spos(d.pos);
             let bn = self.bit_name(n, off);
-            self.error_help(
+            self.error(
                 pos,
                 format!("multiple drivers: `{bn}` is already driven at {first}"),
                 "drive each net bit from exactly one assignment, gate, port or always block",
@@ -395,6 +388,7 @@ pub fn elaborate(
             e.error(
                 m.pos,
                 format!("module `{n}` is defined twice (first at {sp})"),
+                "rename one of the modules, or give the file that defines it only once",
             );
         } else {
             seen.insert(m.name, m.pos);

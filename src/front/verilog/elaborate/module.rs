@@ -49,7 +49,7 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
             line: 1,
             col: 1,
         };
-        e.error_help(
+        e.error(
             first,
             "no module found in the Verilog input",
             "a Verilog design needs at least one `module NAME(...); ... endmodule`",
@@ -87,7 +87,7 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
         1 => Some(cands[0]),
         0 => {
             let p = list.first().map_or(nopos, |m| m.pos);
-            e.error_help(
+            e.error(
                 p,
                 "no top module: every module is instantiated by another",
                 "a module cannot contain itself; remove the instance that closes the cycle",
@@ -97,7 +97,7 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
         _ => {
             let all: Vec<&str> = cands.iter().map(|m| names.name(m.name)).collect();
             let p = cands[1].pos;
-            e.error_help(
+            e.error(
                 p,
                 format!("several modules could be the top: {}", all.join(", ")),
                 "name the top module (`--ref-top` / `--cand-top` in `prove`)",
@@ -123,13 +123,14 @@ pub fn elab_instance<'a>(
     let sc = e.new_scope(None, prefix, idx);
     if e.hier.contains(&m.name) {
         let n = e.name(m.name);
-        e.error(pos, format!("recursive instantiation of module `{n}`"));
+        e.error(pos, format!("recursive instantiation of module `{n}`"), "a module cannot contain itself, directly or through other modules; remove the instance");
         return sc;
     }
     if e.hier.len() >= super::MAX_HIER {
         e.error(
             pos,
             format!("instance hierarchy deeper than {} levels", super::MAX_HIER),
+            "flatten part of the hierarchy; equicone reads at most 64 levels of instances",
         );
         return sc;
     }
@@ -138,11 +139,17 @@ pub fn elab_instance<'a>(
     e.elab_items(sc, &m.items, m, Some(&mut ov), true);
     for (w, _, p) in ov {
         let mn = e.name(m.name);
-        let msg = match w {
-            Which::Named(s) => format!("module `{mn}` has no parameter `{}`", e.name(s)),
-            Which::Nth(k) => format!("module `{mn}` has fewer than {} parameters", k + 1),
+        let (msg, help) = match w {
+            Which::Named(s) => (
+                format!("module `{mn}` has no parameter `{}`", e.name(s)),
+                "override only parameters the module declares (not `localparam`); check the spelling",
+            ),
+            Which::Nth(k) => (
+                format!("module `{mn}` has fewer than {} parameters", k + 1),
+                "give no more overrides than the module has parameters, or override by name (`#(.N(8))`)",
+            ),
         };
-        e.error(p, msg);
+        e.error(p, msg, help);
     }
     e.hier.pop();
     sc
@@ -162,7 +169,7 @@ impl<'a> Elab<'a> {
         let l = self.const_int(sc, &r.lsb)?;
         for (v, e) in [(m, &r.msb), (l, &r.lsb)] {
             if i32::try_from(v).is_err() {
-                self.error_help(
+                self.error(
                     e.pos(),
                     format!("range bound {v} is outside the 32-bit integers"),
                     "Verilog range bounds are integers (32 bits, signed); use smaller indices",
@@ -171,7 +178,7 @@ impl<'a> Elab<'a> {
             }
         }
         if super::span(m, l).is_none() {
-            self.error_help(
+            self.error(
                 r.msb.pos(),
                 "range wider than 65536 bits",
                 "equicone reads vectors of at most 65536 bits; split the vector",
@@ -245,7 +252,7 @@ impl<'a> Elab<'a> {
             };
             if self.scopes[sc as usize].syms.contains_key(name) {
                 let n = self.name(*name);
-                self.error(*pos, format!("`{n}` is declared twice"));
+                self.error(*pos, format!("`{n}` is declared twice"), "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)");
                 continue;
             }
             self.scopes[sc as usize]
@@ -315,6 +322,7 @@ impl<'a> Elab<'a> {
                 self.error(
                     md.pos,
                     format!("`{n}` is declared as a port but is not in the module's port list"),
+                    "add it to the port list in the module header, or declare it `wire`",
                 );
             }
             let signed = md.signed || md.ty == Some(NetType::Integer);
@@ -397,7 +405,7 @@ impl<'a> Elab<'a> {
             }
             if self.scopes[sc as usize].syms.contains_key(s) {
                 let n = self.name(*s);
-                self.error(*p, format!("`{n}` is declared twice"));
+                self.error(*p, format!("`{n}` is declared twice"), "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)");
                 continue;
             }
             match merged.get_mut(s) {
@@ -419,7 +427,7 @@ impl<'a> Elab<'a> {
                     let clash = (md.dir.is_some() && d.dir.is_some())
                         || (md.ty.is_some() && d.ty.is_some());
                     if clash {
-                        self.error(*p, format!("`{n}` is declared twice"));
+                        self.error(*p, format!("`{n}` is declared twice"), "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)");
                         continue;
                     }
                     if let (Some(a), Some(b)) = (md.range, d.range.as_ref()) {
@@ -429,6 +437,7 @@ impl<'a> Elab<'a> {
                             self.error(
                                 *p,
                                 format!("`{n}` is declared again with a different range"),
+                                "give both declarations of the name the same range",
                             );
                         }
                     }
@@ -463,6 +472,7 @@ impl<'a> Elab<'a> {
             self.error(
                 pos,
                 "a gate needs an output and at least one input terminal",
+                "write the output terminal first, then the inputs, e.g. `and g1 (y, a, b);`",
             );
             return;
         }
@@ -492,6 +502,7 @@ impl<'a> Elab<'a> {
                         "gate terminal is {} bits wide; gate terminals must be 1 bit",
                         v.bits.len()
                     ),
+                    "connect a one-bit net or a bit-select such as `a[3]`",
                 );
             }
             lits.push(v.bits.first().copied().unwrap_or(Lit::FALSE));
@@ -526,6 +537,7 @@ impl<'a> Elab<'a> {
                     format!(
                         "gate output terminal is {width} bits wide; gate terminals must be 1 bit"
                     ),
+                    "connect a one-bit net or a bit-select such as `y[3]`",
                 );
                 continue;
             }
@@ -552,7 +564,7 @@ impl<'a> Elab<'a> {
             Some(m) => *m,
             None => {
                 let n = self.name(inst.module);
-                self.error_help(
+                self.error(
                     inst.pos,
                     format!("unknown module `{n}`"),
                     "give the file that defines it on the command line",
@@ -597,7 +609,7 @@ impl<'a> Elab<'a> {
                             if seen[k] {
                                 self.error(
                                     *p,
-                                    format!("port `{}` is connected twice", self.name(*s)),
+                                    format!("port `{}` is connected twice", self.name(*s)), "connect each port once"
                                 );
                             }
                             seen[k] = true;
@@ -605,14 +617,14 @@ impl<'a> Elab<'a> {
                         }
                         None => self.error(
                             *p,
-                            format!("module `{mname}` has no port `{}`", self.name(*s)),
+                            format!("module `{mname}` has no port `{}`", self.name(*s)), "connect only ports the module declares; check the spelling and the module's header"
                         ),
                     }
                 }
             }
             Conns::Ordered(v) => {
                 if v.len() > m.ports.len() && !(v.len() == 1 && v[0].is_none()) {
-                    self.error(inst.pos, format!("instance `{iname}` has {} connections but module `{mname}` has {} ports", v.len(), m.ports.len()));
+                    self.error(inst.pos, format!("instance `{iname}` has {} connections but module `{mname}` has {} ports", v.len(), m.ports.len()), "give at most one connection per port, in the order of the module's port list, or connect by name (`.a(x)`)");
                 }
                 for (k, ex) in v.iter().enumerate().take(m.ports.len()) {
                     conn[k] = ex.as_ref();
@@ -629,6 +641,7 @@ impl<'a> Elab<'a> {
                     self.error(
                         inst.pos,
                         format!("port `{pn}` of module `{mname}` has no declaration"),
+                        "declare the port `input` or `output` inside the module",
                     );
                     continue;
                 }
@@ -678,6 +691,7 @@ impl<'a> Elab<'a> {
                     format!(
                         "port `{pn}` of module `{mname}` has no `input` or `output` declaration"
                     ),
+                    "declare the port `input` or `output` inside the module",
                 ),
             }
         }
@@ -690,6 +704,7 @@ impl<'a> Elab<'a> {
             self.error(
                 g.init.1,
                 format!("loop variable `{n}` of a generate loop must be declared `genvar`"),
+                format!("declare it first: `genvar {n};`"),
             );
             return;
         }
@@ -726,7 +741,7 @@ impl<'a> Elab<'a> {
                     format!(
                         "generate loop runs more than {} iterations",
                         super::MAX_LOOP
-                    ),
+                    ), "check the loop's condition and step; equicone unrolls at most 65536 iterations"
                 );
                 return;
             }

@@ -129,8 +129,11 @@ impl Elab<'_> {
         };
         let msg = format!("combinational loop through {shown}");
         match pos {
-            Some(p) => self.error_help(p, msg, "break the loop: a net must not depend on itself"),
-            None => self.errors.push(crate::diag::Diagnostic::error(None, msg)),
+            Some(p) => self.error(p, msg, "break the loop: a net must not depend on itself"),
+            None => self.errors.push(
+                crate::diag::Diagnostic::error(None, msg)
+                    .with_help("break the loop: a net must not depend on itself"),
+            ),
         }
     }
 
@@ -181,7 +184,11 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
             Some(Symbol::Net(n)) => *n,
             _ => {
                 let pn = e.name(*ps);
-                e.error(*ppos, format!("port `{pn}` has no declaration"));
+                e.error(
+                    *ppos,
+                    format!("port `{pn}` has no declaration"),
+                    "declare the port `input` or `output` inside the module",
+                );
                 continue;
             }
         };
@@ -194,7 +201,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
                         let pn = e.net_name(n);
                         e.error(
                             d.pos,
-                            format!("input port `{pn}` is driven inside the module"),
+                            format!("input port `{pn}` is driven inside the module"), "drive an internal wire instead; an input port gets its value from outside"
                         );
                     }
                     let lit = r.f.add_input();
@@ -212,6 +219,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
                 e.error(
                     *ppos,
                     format!("port `{pn}` has no `input` or `output` declaration"),
+                    "declare the port `input` or `output` inside the module",
                 );
             }
         }
@@ -234,7 +242,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
             outputs.push(OutputBit::new(&pn, idx, lit, Some(e.spos(net.pos))));
         }
         if undriven {
-            e.error_help(
+            e.error(
                 net.pos,
                 format!("output `{pn}` is not driven (some or all of its bits)"),
                 "assign every bit of the output",
@@ -247,13 +255,13 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
         let nm = e.net_name(n);
         let (pos, inport) = (net.pos, net.dir == Some(Dir::Input) && net.scope != sc);
         if inport {
-            e.error_help(
+            e.error(
                 pos,
                 format!("input port `{nm}` is not connected but its value is used"),
                 "connect the port in the instance",
             );
         } else {
-            e.error_help(
+            e.error(
                 pos,
                 format!("`{nm}` is used but never driven (some or all of its bits)"),
                 "assign it, or connect it to a driver",

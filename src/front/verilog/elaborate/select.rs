@@ -64,11 +64,11 @@ impl Elab<'_> {
                     _ => return vec![Lit::FALSE; width_hint],
                 };
                 if (m > l) != desc && m != l && n > 1 {
-                    self.error(pos, format!("part-select `{nm}[{m}:{l}]` is in the opposite direction to the declaration `[{msb}:{lsb}]`"));
+                    self.error(pos, format!("part-select `{nm}[{m}:{l}]` is in the opposite direction to the declaration `[{msb}:{lsb}]`"), "write the bounds in the declaration's order, e.g. `[7:4]` for `[7:0]`");
                     return vec![Lit::FALSE; width_hint];
                 }
                 let Some(w) = super::span(m, l) else {
-                    self.error_help(
+                    self.error(
                         pos,
                         format!("part-select `{nm}[{m}:{l}]` is wider than 65536 bits"),
                         "select at most the declared bits of the vector",
@@ -86,7 +86,11 @@ impl Elab<'_> {
                     return self.const_window(cx, &o, Self::off_of(msb, lsb, k), 1, pos, &what);
                 }
                 if cx.constant {
-                    self.error(pos, "select index is not constant");
+                    self.error(
+                        pos,
+                        "select index is not constant",
+                        "use a constant index here (a parameter, genvar or number)",
+                    );
                     return vec![Lit::FALSE];
                 }
                 // Offset = i - lsb (descending) or lsb - i (ascending), computed exactly.
@@ -100,7 +104,7 @@ impl Elab<'_> {
                 let w = match self.const_int(cx.sc, wd) {
                     Some(w) if w > 0 && w as usize <= super::MAX_WIDTH => w,
                     Some(_) => {
-                        self.error_help(
+                        self.error(
                             wd.pos(),
                             "indexed part-select width must be a positive constant of at most 65536",
                             "give the number of bits to select, e.g. `d[s +: 8]`",
@@ -131,13 +135,17 @@ impl Elab<'_> {
                     return self.const_window(cx, &o, base, w as usize, pos, &what);
                 }
                 if cx.constant {
-                    self.error(pos, "select index is not constant");
+                    self.error(
+                        pos,
+                        "select index is not constant",
+                        "use a constant index here (a parameter, genvar or number)",
+                    );
                     return vec![Lit::FALSE; w as usize];
                 }
                 if w as usize > o.width {
                     // Each bit is a selector over the vector plus a range check: a window wider
                     // than the vector costs much and reads only unknowns beyond it.
-                    self.error_help(
+                    self.error(
                         pos,
                         format!(
                             "unsupported: variable part-select of {w} bits from the {}-bit `{nm}`",
@@ -229,7 +237,11 @@ impl Elab<'_> {
             .count();
         let mut unk = if outside > 0 {
             if cx.constant {
-                self.error(pos, format!("{what} in a constant expression"));
+                self.error(
+                    pos,
+                    format!("{what} in a constant expression"),
+                    "keep constant selects within the declared range",
+                );
                 vec![Lit::FALSE; outside]
             } else {
                 self.unknown_bits(outside, pos, what, cx.sc)

@@ -9,6 +9,7 @@ mod elaborate;
 mod fasthash;
 pub mod lexer;
 mod parse_expr;
+mod parse_gate;
 mod parse_gen;
 mod parse_stmt;
 pub mod parser;

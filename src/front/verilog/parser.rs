@@ -158,7 +158,7 @@ impl<'s, 'n> Parser<'s, 'n> {
 
     /// Skip a plain name without interning it (see [`Lexer::skip_name`]); only when no
     /// token is waiting in the lookahead.
-    fn skip_name(&mut self) -> Option<Pos> {
+    pub(super) fn skip_name(&mut self) -> Option<Pos> {
         if !self.look.is_empty() {
             return None;
         }
@@ -474,20 +474,6 @@ impl<'s, 'n> Parser<'s, 'n> {
         Ok(pd)
     }
 
-    fn gate_kind(k: Sym) -> Option<GateKind> {
-        Some(match k {
-            k if k == kw::AND => GateKind::And,
-            k if k == kw::NAND => GateKind::Nand,
-            k if k == kw::OR => GateKind::Or,
-            k if k == kw::NOR => GateKind::Nor,
-            k if k == kw::XOR => GateKind::Xor,
-            k if k == kw::XNOR => GateKind::Xnor,
-            k if k == kw::NOT => GateKind::Not,
-            k if k == kw::BUF => GateKind::Buf,
-            _ => return None,
-        })
-    }
-
     /// One module item (or generate item), appended to `out`.
     pub fn item(&mut self, out: &mut Vec<Item>) -> PResult<()> {
         let t = self.peek().clone();
@@ -564,42 +550,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
             self.expect_p(P::Semi, "`;` after the assignment")?;
         } else if let Some(g) = Self::gate_kind(k) {
-            self.bump();
-            // Instance names are skipped, not interned: nothing looks them up, and a
-            // million-gate netlist would otherwise hold a million more names.
-            let mut named = self.skip_name();
-            if named.is_none()
-                && (self.peek_p(P::Hash) || self.peek_p(P::LParen) && self.strength_follows())
-            {
-                return Err(self.err_here("unsupported: delay or drive strength on a gate"));
-            }
-            loop {
-                let gpos = match named.take() {
-                    Some(p) => p,
-                    None => {
-                        let p = self.peek_pos();
-                        if !self.peek_p(P::LParen) {
-                            self.ident("a gate instance name or `(`")?;
-                        }
-                        p
-                    }
-                };
-                if self.peek_p(P::LBrack) {
-                    return Err(self.err_here("unsupported: arrays of gate instances"));
-                }
-                self.expect_p(P::LParen, "`(` of the gate terminals")?;
-                let mut terms = vec![self.expr()?];
-                while self.eat_p(P::Comma) {
-                    terms.push(self.expr()?);
-                }
-                self.expect_p(P::RParen, "`)` closing the gate terminals")?;
-                out.push(Item::Gate(g, terms.into_boxed_slice(), gpos));
-                if !self.eat_p(P::Comma) {
-                    break;
-                }
-                named = self.skip_name();
-            }
-            self.expect_p(P::Semi, "`;` after the gate")?;
+            self.gates(g, out)?;
         } else if k == kw::ALWAYS {
             self.bump();
             let at = self.peek_pos();
@@ -661,21 +612,6 @@ impl<'s, 'n> Parser<'s, 'n> {
     pub(super) fn err_here(&mut self, msg: &str) -> Stop {
         let p = self.peek_pos();
         self.error(p, msg)
-    }
-
-    /// After a gate keyword and `(`: a drive strength looks like `(strong0, ...)`.
-    fn strength_follows(&mut self) -> bool {
-        match self.peek2().tok {
-            Tok::Ident(s) => {
-                let n = self.names.name(s);
-                n.starts_with("strong")
-                    || n.starts_with("weak")
-                    || n.starts_with("pull")
-                    || n.starts_with("supply")
-                    || n.starts_with("highz")
-            }
-            _ => false,
-        }
     }
 }
 

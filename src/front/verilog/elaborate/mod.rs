@@ -9,6 +9,7 @@
 mod always;
 mod bits;
 mod expr;
+mod instance;
 mod module;
 mod resolve;
 mod select;

@@ -3,6 +3,7 @@
 mod common;
 mod engine_checks;
 mod fixtures;
+mod hierarchy;
 mod iverilog_diff;
 mod large;
 mod regress;

@@ -276,7 +276,7 @@ impl<'s> Lexer<'s> {
                 j += 1;
             }
             let s = std::str::from_utf8(&self.src[self.i..j]).unwrap_or("?");
-            if names.get(s).is_some_and(super::symbols::is_keyword) {
+            if super::symbols::is_keyword_text(s) {
                 return None;
             }
         } else if c == b'\\' && self.i < self.src.len() {

@@ -153,6 +153,16 @@ impl Interner {
     }
 }
 
+/// Whether the text `name` is a keyword (a small table that stays in cache, unlike the
+/// table of all names).
+pub fn is_keyword_text(name: &str) -> bool {
+    static TABLE: std::sync::OnceLock<super::fasthash::FastMap<&'static str, ()>> =
+        std::sync::OnceLock::new();
+    TABLE
+        .get_or_init(|| KEYWORDS.iter().map(|k| (*k, ())).collect())
+        .contains_key(name)
+}
+
 /// Whether `s` is a keyword.
 pub fn is_keyword(s: Sym) -> bool {
     s.0 < kw::COUNT
@@ -169,6 +179,8 @@ mod tests {
         assert_eq!(i.intern("rtran"), kw::RTRAN);
         let a = i.intern("a");
         assert!(!is_keyword(a) && is_keyword(kw::ENDCASE));
+        assert!(is_keyword_text("endcase") && is_keyword_text("rtran"));
+        assert!(!is_keyword_text("a") && !is_keyword_text("Module"));
         assert_eq!(i.name(a), "a");
     }
 

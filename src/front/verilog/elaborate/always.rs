@@ -232,11 +232,12 @@ impl Elab<'_> {
         pos: Pos,
         procedural: bool,
     ) -> Option<u32> {
-        let nm = self.name(sym);
-        match self.lookup(sc, sym).cloned() {
-            Some(Symbol::Net(n)) => {
+        let nm = || self.name(sym);
+        match self.lookup(sc, sym) {
+            Some(&Symbol::Net(n)) => {
                 let ty = self.nets[n as usize].ty;
                 if procedural && ty == NetType::Wire {
+                    let nm = nm();
                     self.error(
                         pos,
                         format!("procedural assignment to wire `{nm}`"),
@@ -245,6 +246,7 @@ impl Elab<'_> {
                     return None;
                 }
                 if !procedural && ty != NetType::Wire {
+                    let nm = nm();
                     self.error(
                         pos,
                         format!("continuous assignment to variable `{nm}`"),
@@ -255,14 +257,21 @@ impl Elab<'_> {
                 Some(n)
             }
             Some(_) => {
+                let nm = nm();
                 self.error(
                     pos,
-                    format!("`{nm}` is not a net or variable and cannot be assigned"), "assign a net (`wire`) or a variable (`reg`); parameters and genvars are constants"
+                    format!("`{nm}` is not a net or variable and cannot be assigned"),
+                    "assign a net (`wire`) or a variable (`reg`); parameters and genvars are constants",
                 );
                 None
             }
             None => {
-                self.error(pos, format!("undeclared name `{nm}`"), "declare it (`wire`, `reg`, `input`, `output`, `parameter`) before this use, or check the spelling");
+                let nm = nm();
+                self.error(
+                    pos,
+                    format!("undeclared name `{nm}`"),
+                    "declare it (`wire`, `reg`, `input`, `output`, `parameter`) before this use, or check the spelling",
+                );
                 None
             }
         }
@@ -293,7 +302,11 @@ impl Elab<'_> {
                         match bits::to_i64(&v.bits, v.signed) {
                             Some(k) => vec![k],
                             None => {
-                                self.error(*p, "unsupported: variable index on the left of a continuous assignment", "use a constant index, or assign the vector in an `always @*` block");
+                                self.error(
+                                    *p,
+                                    "unsupported: variable index on the left of a continuous assignment",
+                                    "use a constant index, or assign the vector in an `always @*` block",
+                                );
                                 return None;
                             }
                         }
@@ -303,7 +316,8 @@ impl Elab<'_> {
                         if (m > l) != (net.msb >= net.lsb) && m != l && net.width > 1 {
                             self.error(
                                 *p,
-                                "part-select in the opposite direction to the declaration", "write the bounds in the declaration's order, e.g. `[7:4]` for `[7:0]`"
+                                "part-select in the opposite direction to the declaration",
+                                "write the bounds in the declaration's order, e.g. `[7:4]` for `[7:0]`"
                             );
                             return None;
                         }
@@ -323,7 +337,8 @@ impl Elab<'_> {
                         if w <= 0 || w as usize > super::MAX_WIDTH {
                             self.error(
                                 *p,
-                                "indexed part-select width must be a positive constant of at most 65536", "give the number of bits to select, e.g. `d[s +: 8]`"
+                                "indexed part-select width must be a positive constant of at most 65536",
+                                "give the number of bits to select, e.g. `d[s +: 8]`"
                             );
                             return None;
                         }
@@ -331,7 +346,11 @@ impl Elab<'_> {
                         let b = match bits::to_i64(&v.bits, v.signed) {
                             Some(b) => b,
                             None => {
-                                self.error(*p, "unsupported: variable indexed part-select on the left of an assignment", "use a constant base, or assign each possible window under an `if`/`case`");
+                                self.error(
+                                    *p,
+                                    "unsupported: variable indexed part-select on the left of an assignment",
+                                    "use a constant base, or assign each possible window under an `if`/`case`",
+                                );
                                 return None;
                             }
                         };
@@ -418,7 +437,11 @@ impl Elab<'_> {
                                     B1 => eqs.push(sel[k]),
                                     super::super::lexer::BZ => {}
                                     _ => {
-                                        self.error(*p, format!("unsupported: x bits in a `casez` item (`{}`); use `?`", n.text), "write don't-care bits as `?` or `z` in `casez` items");
+                                        self.error(
+                                            *p,
+                                            format!("unsupported: x bits in a `casez` item (`{}`); use `?`", n.text),
+                                            "write don't-care bits as `?` or `z` in `casez` items",
+                                        );
                                         break;
                                     }
                                 }
@@ -466,7 +489,8 @@ impl Elab<'_> {
             if c != Lit::TRUE {
                 self.error(
                     f.cond.pos(),
-                    "for-loop condition is not constant; loop bounds must be constants", "bound the loop by constants or parameters, e.g. `for (i = 0; i < N; i = i + 1)`"
+                    "for-loop condition is not constant; loop bounds must be constants",
+                    "bound the loop by constants or parameters, e.g. `for (i = 0; i < N; i = i + 1)`"
                 );
                 break;
             }
@@ -474,7 +498,8 @@ impl Elab<'_> {
             if count > super::MAX_LOOP {
                 self.error(
                     f.pos,
-                    format!("for loop runs more than {} iterations", super::MAX_LOOP), "check the loop's condition and step; equicone unrolls at most 65536 iterations"
+                    format!("for loop runs more than {} iterations", super::MAX_LOOP),
+                    "check the loop's condition and step; equicone unrolls at most 65536 iterations"
                 );
                 break;
             }

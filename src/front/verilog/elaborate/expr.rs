@@ -108,7 +108,11 @@ impl Elab<'_> {
             Some(Symbol::Net(n)) => {
                 if cx.constant {
                     let nm = self.name(s);
-                    self.error(pos, format!("`{nm}` is not a constant (only parameters and genvars may appear here)"), "use a `parameter` or `localparam` here, or a literal number");
+                    self.error(
+                        pos,
+                        format!("`{nm}` is not a constant (only parameters and genvars may appear here)"),
+                        "use a `parameter` or `localparam` here, or a literal number",
+                    );
                     return None;
                 }
                 let net = &self.nets[n as usize];
@@ -143,7 +147,11 @@ impl Elab<'_> {
             }
             None => {
                 let nm = self.name(s);
-                self.error(pos, format!("undeclared name `{nm}`"), "declare it (`wire`, `reg`, `input`, `output`, `parameter`) before this use, or check the spelling");
+                self.error(
+                    pos,
+                    format!("undeclared name `{nm}`"),
+                    "declare it (`wire`, `reg`, `input`, `output`, `parameter`) before this use, or check the spelling",
+                );
                 None
             }
         }
@@ -452,7 +460,8 @@ impl Elab<'_> {
                     format!(
                         "unsupported: `{}` of non-constant or wider than 63-bit values",
                         op.text()
-                    ), "`/` and `%` are read for constants only; compute the quotient with logic, or use a parameter"
+                    ),
+                    "`/` and `%` are read for constants only; compute the quotient with logic, or use a parameter"
                 );
                 return vec![Lit::FALSE; w];
             }

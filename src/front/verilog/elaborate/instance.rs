@@ -60,7 +60,8 @@ impl<'a> Elab<'a> {
                             if seen[k] {
                                 self.error(
                                     *p,
-                                    format!("port `{}` is connected twice", self.name(*s)), "connect each port once"
+                                    format!("port `{}` is connected twice", self.name(*s)),
+                                    "connect each port once"
                                 );
                             }
                             seen[k] = true;
@@ -68,14 +69,19 @@ impl<'a> Elab<'a> {
                         }
                         None => self.error(
                             *p,
-                            format!("module `{mname}` has no port `{}`", self.name(*s)), "connect only ports the module declares; check the spelling and the module's header"
+                            format!("module `{mname}` has no port `{}`", self.name(*s)),
+                            "connect only ports the module declares; check the spelling and the module's header"
                         ),
                     }
                 }
             }
             Conns::Ordered(v) => {
                 if v.len() > m.ports.len() && !(v.len() == 1 && v[0].is_none()) {
-                    self.error(inst.pos, format!("instance `{iname}` has {} connections but module `{mname}` has {} ports", v.len(), m.ports.len()), "give at most one connection per port, in the order of the module's port list, or connect by name (`.a(x)`)");
+                    self.error(
+                        inst.pos,
+                        format!("instance `{iname}` has {} connections but module `{mname}` has {} ports", v.len(), m.ports.len()),
+                        "give at most one connection per port, in the order of the module's port list, or connect by name (`.a(x)`)",
+                    );
                 }
                 for (k, ex) in v.iter().enumerate().take(m.ports.len()) {
                     conn[k] = ex.as_ref();

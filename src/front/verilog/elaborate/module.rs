@@ -123,7 +123,11 @@ pub fn elab_instance<'a>(
     let sc = e.new_scope(None, prefix, idx);
     if e.hier.contains(&m.name) {
         let n = e.name(m.name);
-        e.error(pos, format!("recursive instantiation of module `{n}`"), "a module cannot contain itself, directly or through other modules; remove the instance");
+        e.error(
+            pos,
+            format!("recursive instantiation of module `{n}`"),
+            "a module cannot contain itself, directly or through other modules; remove the instance",
+        );
         return sc;
     }
     if e.hier.len() >= super::MAX_HIER {
@@ -252,7 +256,11 @@ impl<'a> Elab<'a> {
             };
             if self.scopes[sc as usize].syms.contains_key(name) {
                 let n = self.name(*name);
-                self.error(*pos, format!("`{n}` is declared twice"), "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)");
+                self.error(
+                    *pos,
+                    format!("`{n}` is declared twice"),
+                    "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)",
+                );
                 continue;
             }
             self.scopes[sc as usize]
@@ -341,22 +349,25 @@ impl<'a> Elab<'a> {
         // C: implicit one-bit wires for names first seen in a port, gate terminal or on the
         // left of a continuous assignment.
         if !m.nettype_none {
-            for it in items {
-                let exprs: Vec<&Expr> = match it {
-                    Item::Gate(_, t, _) => t.iter().collect(),
-                    Item::Assign(a, _) => vec![&a.0],
-                    Item::Inst(i) => match &i.conns {
-                        Conns::Named(v) => v.iter().filter_map(|c| c.2.as_ref()).collect(),
-                        Conns::Ordered(v) => v.iter().flatten().collect(),
-                    },
-                    _ => Vec::new(),
-                };
-                for ex in exprs {
-                    if let Expr::Ident(s, p) = ex {
-                        if self.lookup(sc, *s).is_none() {
-                            self.add_net(sc, *s, 0, 0, false, false, NetType::Wire, None, *p);
-                        }
+            let implicit = |e: &mut Self, ex: &Expr| {
+                if let Expr::Ident(s, p) = ex {
+                    if e.lookup(sc, *s).is_none() {
+                        e.add_net(sc, *s, 0, 0, false, false, NetType::Wire, None, *p);
                     }
+                }
+            };
+            for it in items {
+                match it {
+                    Item::Gate(_, t, _) => t.iter().for_each(|ex| implicit(self, ex)),
+                    Item::Assign(a, _) => implicit(self, &a.0),
+                    Item::Inst(i) => match &i.conns {
+                        Conns::Named(v) => v
+                            .iter()
+                            .filter_map(|c| c.2.as_ref())
+                            .for_each(|ex| implicit(self, ex)),
+                        Conns::Ordered(v) => v.iter().flatten().for_each(|ex| implicit(self, ex)),
+                    },
+                    _ => {}
                 }
             }
         }
@@ -405,7 +416,11 @@ impl<'a> Elab<'a> {
             }
             if self.scopes[sc as usize].syms.contains_key(s) {
                 let n = self.name(*s);
-                self.error(*p, format!("`{n}` is declared twice"), "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)");
+                self.error(
+                    *p,
+                    format!("`{n}` is declared twice"),
+                    "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)",
+                );
                 continue;
             }
             match merged.get_mut(s) {
@@ -427,7 +442,11 @@ impl<'a> Elab<'a> {
                     let clash = (md.dir.is_some() && d.dir.is_some())
                         || (md.ty.is_some() && d.ty.is_some());
                     if clash {
-                        self.error(*p, format!("`{n}` is declared twice"), "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)");
+                        self.error(
+                            *p,
+                            format!("`{n}` is declared twice"),
+                            "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)",
+                        );
                         continue;
                     }
                     if let (Some(a), Some(b)) = (md.range, d.range.as_ref()) {
@@ -603,7 +622,8 @@ impl<'a> Elab<'a> {
                     format!(
                         "generate loop runs more than {} iterations",
                         super::MAX_LOOP
-                    ), "check the loop's condition and step; equicone unrolls at most 65536 iterations"
+                    ),
+                    "check the loop's condition and step; equicone unrolls at most 65536 iterations"
                 );
                 return;
             }

@@ -201,7 +201,8 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
                         let pn = e.net_name(n);
                         e.error(
                             d.pos,
-                            format!("input port `{pn}` is driven inside the module"), "drive an internal wire instead; an input port gets its value from outside"
+                            format!("input port `{pn}` is driven inside the module"),
+                            "drive an internal wire instead; an input port gets its value from outside"
                         );
                     }
                     let lit = r.f.add_input();

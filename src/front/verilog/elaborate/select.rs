@@ -64,7 +64,11 @@ impl Elab<'_> {
                     _ => return vec![Lit::FALSE; width_hint],
                 };
                 if (m > l) != desc && m != l && n > 1 {
-                    self.error(pos, format!("part-select `{nm}[{m}:{l}]` is in the opposite direction to the declaration `[{msb}:{lsb}]`"), "write the bounds in the declaration's order, e.g. `[7:4]` for `[7:0]`");
+                    self.error(
+                        pos,
+                        format!("part-select `{nm}[{m}:{l}]` is in the opposite direction to the declaration `[{msb}:{lsb}]`"),
+                        "write the bounds in the declaration's order, e.g. `[7:4]` for `[7:0]`",
+                    );
                     return vec![Lit::FALSE; width_hint];
                 }
                 let Some(w) = super::span(m, l) else {

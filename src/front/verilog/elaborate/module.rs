@@ -304,8 +304,9 @@ impl<'a> Elab<'a> {
             }
         }
         // B: declarations, merged per name (`output y; reg y;`).
-        let mut order: Vec<Sym> = Vec::new();
+        let mut order: Vec<Sym> = Vec::with_capacity(nnets);
         let mut merged: super::super::fasthash::FastMap<Sym, Merged> = Default::default();
+        merged.reserve(nnets);
         let mut inits: Vec<(Sym, Pos, &Expr)> = Vec::new();
         for it in items {
             if let Item::Decl(d) = it {

@@ -192,7 +192,8 @@ pub struct Decl {
     /// The range, if a vector.
     pub range: Option<Range>,
     /// Declared names, with an optional `= expr` (net declaration assignment).
-    pub names: Vec<(Sym, Pos, Option<Expr>)>,
+    /// (Boxed: most names have none, and a netlist declares a million names.)
+    pub names: Vec<(Sym, Pos, Option<Box<Expr>>)>,
     /// Where the declaration starts.
     pub pos: Pos,
 }

@@ -46,7 +46,8 @@ impl Parser<'_, '_> {
                 return Err(self.err_here("unsupported: arrays of gate instances"));
             }
             self.expect_p(P::LParen, "`(` of the gate terminals")?;
-            let mut terms = vec![self.expr()?];
+            let mut terms = Vec::with_capacity(4);
+            terms.push(self.expr()?);
             while self.eat_p(P::Comma) {
                 terms.push(self.expr()?);
             }

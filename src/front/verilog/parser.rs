@@ -502,7 +502,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                     if d.ty != Some(NetType::Wire) || d.dir.is_some() {
                         return Err(self.error(p, "unsupported: initial value in a declaration (only `wire w = expr;` is supported)"));
                     }
-                    Some(self.expr()?)
+                    Some(Box::new(self.expr()?))
                 } else {
                     None
                 };

@@ -18,6 +18,7 @@ pub mod diagnose;
 pub mod engine;
 pub mod front;
 pub mod gen;
+pub(crate) mod hash;
 pub mod report;
 pub mod routes;
 pub mod sat;

@@ -11,7 +11,7 @@ mod sim;
 pub use lit::Lit;
 pub use sim::{eval, random_words, simulate, SimTable};
 
-use std::collections::HashMap;
+use crate::hash::FastMap;
 
 /// One node of the graph.
 #[derive(Copy, Clone, Debug, PartialEq, Eq)]
@@ -39,7 +39,7 @@ pub enum Node {
 pub struct Aig {
     nodes: Vec<Node>,
     inputs: Vec<u32>,
-    strash: HashMap<(Lit, Lit), u32>,
+    strash: FastMap<(Lit, Lit), u32>,
 }
 
 impl Aig {
@@ -48,7 +48,7 @@ impl Aig {
         Aig {
             nodes: vec![Node::Const],
             inputs: Vec::new(),
-            strash: HashMap::new(),
+            strash: FastMap::default(),
         }
     }
 

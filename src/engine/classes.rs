@@ -7,7 +7,7 @@
 //! is always decided before the other members.
 
 use crate::aig::SimTable;
-use std::collections::HashMap;
+use crate::hash::FastMap;
 
 /// No class (a singleton).
 const NONE: u32 = u32::MAX;
@@ -103,8 +103,8 @@ impl Classes {
     /// still represent a later node once its class splits).
     pub(crate) fn refine(&mut self, values: &[u64], done: usize) {
         let _ = done;
-        let mut seen: HashMap<(u32, u64), (u32, u32), FastHash> =
-            HashMap::with_capacity_and_hasher(self.active.len(), FastHash);
+        let mut seen: FastMap<(u32, u64), (u32, u32)> =
+            FastMap::with_capacity_and_hasher(self.active.len(), Default::default());
         for &n in &self.active {
             let v = values[n as usize];
             let v = if self.phase[n as usize] { !v } else { v };
@@ -133,37 +133,6 @@ impl Classes {
     /// Number of nodes in classes with two or more members.
     pub(crate) fn members(&self) -> usize {
         self.active.len()
-    }
-}
-
-/// A fast hasher for (representative, word) keys, which are already well mixed.
-#[derive(Clone, Copy, Default)]
-struct FastHash;
-
-impl std::hash::BuildHasher for FastHash {
-    type Hasher = FastHasher;
-    fn build_hasher(&self) -> FastHasher {
-        FastHasher(0)
-    }
-}
-
-/// The hasher of [`FastHash`]: multiply-and-mix over the written integers.
-struct FastHasher(u64);
-
-impl std::hash::Hasher for FastHasher {
-    fn finish(&self) -> u64 {
-        mix(self.0)
-    }
-    fn write(&mut self, bytes: &[u8]) {
-        for &b in bytes {
-            self.0 = (self.0 ^ u64::from(b)).wrapping_mul(0x100_0000_01B3);
-        }
-    }
-    fn write_u32(&mut self, i: u32) {
-        self.0 = (self.0 ^ u64::from(i)).wrapping_mul(0x9E37_79B9_7F4A_7C15);
-    }
-    fn write_u64(&mut self, i: u64) {
-        self.0 = (self.0.rotate_left(29) ^ i).wrapping_mul(0x9E37_79B9_7F4A_7C15);
     }
 }
 

@@ -25,7 +25,7 @@ const WORK_FLOOR: usize = 4 << 20;
 /// without a query: splitting is still paying (a selector halves at every select bit).
 const SHRINK_TENTHS: usize = 7;
 /// Cofactors this small go to the solver even while splitting pays.
-const SPLIT_FLOOR: usize = 300;
+const SPLIT_FLOOR: usize = 64;
 /// Pairs with more AND nodes than this in their cones are split before any whole query when an
 /// input drives a large share of them (see [`split_first`]).
 const SPLIT_FIRST_ANDS: usize = 20_000;

@@ -6,7 +6,7 @@
 
 pub mod ast;
 mod elaborate;
-mod fasthash;
+
 pub mod lexer;
 mod parse_expr;
 mod parse_gate;

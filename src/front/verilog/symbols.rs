@@ -73,7 +73,7 @@ impl Default for Interner {
 
 fn hash(name: &str) -> u64 {
     use std::hash::Hasher;
-    let mut h = super::fasthash::Fx::default();
+    let mut h = crate::hash::Fx::default();
     h.write(name.as_bytes());
     h.write_usize(name.len());
     h.finish()
@@ -156,7 +156,7 @@ impl Interner {
 /// Whether the text `name` is a keyword (a small table that stays in cache, unlike the
 /// table of all names).
 pub fn is_keyword_text(name: &str) -> bool {
-    static TABLE: std::sync::OnceLock<super::fasthash::FastMap<&'static str, ()>> =
+    static TABLE: std::sync::OnceLock<crate::hash::FastMap<&'static str, ()>> =
         std::sync::OnceLock::new();
     TABLE
         .get_or_init(|| KEYWORDS.iter().map(|k| (*k, ())).collect())

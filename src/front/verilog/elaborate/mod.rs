@@ -100,7 +100,7 @@ enum Symbol {
 struct Scope {
     parent: Option<u32>,
     prefix: String,
-    syms: super::fasthash::FastMap<Sym, Symbol>,
+    syms: crate::hash::FastMap<Sym, Symbol>,
     module: u32,
 }
 

@@ -305,7 +305,7 @@ impl<'a> Elab<'a> {
         }
         // B: declarations, merged per name (`output y; reg y;`).
         let mut order: Vec<Sym> = Vec::with_capacity(nnets);
-        let mut merged: super::super::fasthash::FastMap<Sym, Merged> = Default::default();
+        let mut merged: crate::hash::FastMap<Sym, Merged> = Default::default();
         merged.reserve(nnets);
         let mut inits: Vec<(Sym, Pos, &Expr)> = Vec::new();
         for it in items {
@@ -408,7 +408,7 @@ impl<'a> Elab<'a> {
         sc: u32,
         d: &'m Decl,
         order: &mut Vec<Sym>,
-        merged: &mut super::super::fasthash::FastMap<Sym, Merged<'m>>,
+        merged: &mut crate::hash::FastMap<Sym, Merged<'m>>,
         inits: &mut Vec<(Sym, Pos, &'m Expr)>,
     ) {
         for (s, p, init) in &d.names {

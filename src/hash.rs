@@ -1,6 +1,8 @@
 //! A small, fast, non-cryptographic hasher (the multiply-rotate scheme popularised by the
-//! Rust compiler's "Fx" hasher, with a final avalanche step) for the reader's name tables, which see millions of lookups
-//! on large netlists. Not resistant to adversarial keys; only used for names and ids.
+//! Rust compiler's "Fx" hasher, with a final avalanche step) for the tables that see millions
+//! of lookups on large netlists: the Verilog reader's names, the AIG's structural hashing and
+//! the sweep's candidate classes. Not resistant to adversarial keys; only used for names and
+//! node ids.
 
 use std::collections::HashMap;
 use std::hash::{BuildHasherDefault, Hasher};

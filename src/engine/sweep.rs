@@ -136,7 +136,7 @@ pub(crate) fn sweep(
         pending: Vec::new(),
         near: Vec::new(),
         whole_cone: 0,
-        tally: [0; 17],
+        tally: [0; 13],
         stamp: Vec::new(),
         value: Vec::new(),
         epoch: 0,
@@ -315,9 +315,9 @@ struct Sweeper<'a> {
     near: Vec<Vec<u32>>,
     rng: u64,
     whole_cone: usize,
-    /// Window answers per stage (fresh tiny, tiny, small, large: equal, differ, partial,
-    /// unknown), then lifts.
-    tally: [usize; 17],
+    /// Window answers per stage (fresh tiny, small, large: equal, differ, partial, unknown),
+    /// then lifts.
+    tally: [usize; 13],
     /// Scratch for [`Sweeper::lift`]: visit stamps and simulation words per merged-graph node.
     stamp: Vec<u32>,
     value: Vec<u64>,
@@ -334,7 +334,6 @@ impl Sweeper<'_> {
         // counterexample) a large one in a fresh solver, then the whole cone.
         for (stage, (budget, conflicts, fresh)) in [
             (TINY_WINDOW_BUDGET, WINDOW_CONFLICTS, true),
-            (TINY_WINDOW_BUDGET, WINDOW_CONFLICTS, false),
             (WINDOW_BUDGET, WINDOW_CONFLICTS, false),
             (LARGE_WINDOW_BUDGET, SWEEP_CONFLICTS, false),
         ]
@@ -366,7 +365,7 @@ impl Sweeper<'_> {
                 }
                 WindowAnswer::Partial(vals) => {
                     if let Some(p) = self.lift(a, b, &vals) {
-                        self.tally[16] += 1;
+                        self.tally[12] += 1;
                         self.pending.push(p);
                         self.near.push(vals.iter().map(|&(k, _)| k).collect());
                         return Some(false);

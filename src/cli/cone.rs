@@ -64,12 +64,13 @@ pub struct ConeArgs {
 
 /// Run `cone`.
 pub fn run_cone(a: &ConeArgs) -> Exit {
-    let d = match a.design.load() {
-        Ok(d) => d,
-        Err(e) => return e,
-    };
+    // The clock starts before reading: --timeout covers the whole run.
     let limits = match a.limits.limits() {
         Ok(l) => l,
+        Err(e) => return e,
+    };
+    let d = match a.design.load_within(&limits) {
+        Ok(d) => d,
         Err(e) => return e,
     };
     let outputs = match cone::select_outputs(&d, &a.outputs) {
@@ -137,12 +138,13 @@ pub struct StatsArgs {
 
 /// Run `stats`.
 pub fn run_stats(a: &StatsArgs) -> Exit {
-    let d = match a.design.load() {
-        Ok(d) => d,
-        Err(e) => return e,
-    };
+    // The clock starts before reading: --timeout covers the whole run.
     let limits = match a.limits.limits() {
         Ok(l) => l,
+        Err(e) => return e,
+    };
+    let d = match a.design.load_within(&limits) {
+        Ok(d) => d,
         Err(e) => return e,
     };
     let model = match &a.cost_model {

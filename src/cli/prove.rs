@@ -1,7 +1,8 @@
 //! `equicone prove` and `equicone cnf`: read two designs, pair them, prove or export the miter.
 
 use super::common::{
-    load, print, report_input_error, report_internal, timeout_of, write_atomic, FormatArg,
+    load, load_within, print, report_input_error, report_internal, timeout_of, write_atomic,
+    FormatArg,
 };
 use super::Exit;
 use crate::cnf::{dimacs, Tseitin};
@@ -60,6 +61,23 @@ impl PairArgs {
         cp.extend(self.cand_also.iter().cloned());
         let r = load(rp, self.ref_format.or(self.format), self.ref_top.clone());
         let c = load(cp, self.cand_format.or(self.format), self.cand_top.clone());
+        Ok((r?, c?))
+    }
+
+    /// [`PairArgs::load`] under `limits`: a deadline passing while reading gives
+    /// [`Exit::Undecided`] (the candidate is not read then).
+    fn load_within(&self, limits: &crate::sat::Limits) -> Result<(Design, Design), Exit> {
+        let mut rp = vec![self.reference.clone()];
+        rp.extend(self.ref_also.iter().cloned());
+        let mut cp = vec![self.candidate.clone()];
+        cp.extend(self.cand_also.iter().cloned());
+        let format = self.ref_format.or(self.format);
+        let r = load_within(rp, format, self.ref_top.clone(), limits);
+        if r.as_ref().err() == Some(&Exit::Undecided) {
+            return Err(Exit::Undecided);
+        }
+        let format = self.cand_format.or(self.format);
+        let c = load_within(cp, format, self.cand_top.clone(), limits);
         Ok((r?, c?))
     }
 }
@@ -122,19 +140,21 @@ pub struct CnfArgs {
 
 /// Run `prove`.
 pub fn run(a: &ProveArgs) -> Exit {
-    let (r, c) = match a.pair.load() {
-        Ok(x) => x,
-        Err(e) => return e,
-    };
+    // The clock starts before reading: --timeout covers the whole run.
     let timeout = match timeout_of(a.timeout) {
         Ok(t) => t,
+        Err(e) => return e,
+    };
+    let deadline = crate::sat::Limits::new(timeout, None);
+    let (r, c) = match a.pair.load_within(&deadline) {
+        Ok(x) => x,
         Err(e) => return e,
     };
     let opts = ProveOptions {
         pair_by: a.pair.pair_by,
         free_extra_inputs: a.pair.free_extra_inputs,
         engine: a.engine,
-        timeout,
+        timeout: deadline.remaining(),
         conflict_limit: a.conflict_limit,
         seed: a.seed,
         sim_words: None,
@@ -161,7 +181,7 @@ pub fn run(a: &ProveArgs) -> Exit {
         );
     }
     if rep.verdict == Verdict::Different {
-        let limits = crate::sat::Limits::new(timeout, a.conflict_limit);
+        let limits = crate::sat::Limits::new(deadline.remaining(), a.conflict_limit);
         if let (Ok((r2, rc)), Ok((c2, cc))) = (
             crate::assume::on_design(&r, &a.assume),
             crate::assume::on_design(&c, &a.assume),
@@ -170,7 +190,8 @@ pub fn run(a: &ProveArgs) -> Exit {
         }
     }
     if let (Some(path), Some(shared)) = (&a.proof, &kept) {
-        if let Err(code) = write_proof(&r, &c, shared, &rep, path, a.proof_format, timeout) {
+        let left = deadline.remaining();
+        if let Err(code) = write_proof(&r, &c, shared, &rep, path, a.proof_format, left) {
             return code;
         }
     }

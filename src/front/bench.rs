@@ -79,6 +79,18 @@ pub fn read_bench_until(
     elaborate(file, netlist, inputs, outputs, stop)
 }
 
+/// [`read_bench_until`] taking the text, which is dropped as soon as the netlist holds its
+/// own copies of the names (before the AIG is built), to lower the peak memory.
+pub fn read_bench_text(
+    file: &Arc<str>,
+    text: String,
+    stop: &dyn Fn() -> bool,
+) -> Result<Design, ReadError> {
+    let (netlist, inputs, outputs) = parse_to_netlist(file, &text, stop)?;
+    drop(text);
+    elaborate(file, netlist, inputs, outputs, stop)
+}
+
 /// The parse result without the text: the netlist as written plus the input and output
 /// positions (signal, place).
 type Compact = (Netlist, Vec<(u32, Pos)>, Vec<(u32, Pos)>);

@@ -168,6 +168,14 @@ pub fn load_until(src: &Source, stop: &dyn Fn() -> bool) -> Result<Design, ReadE
             )
             .into()),
         };
+    if format == Format::Bench && src.paths.len() == 1 && src.top.is_none() {
+        // One bench file: the reader takes the text and drops it early.
+        let text = read_text_until(first, stop)?;
+        if stop() {
+            return Err(ReadError::Stopped(first.clone()));
+        }
+        return bench::read_bench_text(&Arc::from(first.as_str()), text, stop);
+    }
     let mut texts = Vec::with_capacity(src.paths.len());
     for p in &src.paths {
         texts.push((Arc::<str>::from(p.as_str()), read_text_until(p, stop)?));

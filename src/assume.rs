@@ -90,7 +90,10 @@ fn one(
         .map_err(|e| {
             let mut e = relocate(e, &label, expr.chars().count() as u32);
             for d in &mut e.diagnostics {
-                let generic = d.help.as_deref().is_none_or(|h| h.starts_with("correct the syntax"));
+                // The reader's advice for a syntax error or an unknown name speaks of
+                // modules; here the ports are what the user can name.
+                let generic = d.help.as_deref().is_none_or(|h| h.starts_with("correct the syntax"))
+                    || d.message.starts_with("undeclared name");
                 if generic {
                     d.help = Some(format!(
                         "an assumption is a Verilog expression over the input ports ({}), e.g. `--assume 'sel < 12'`",

@@ -197,6 +197,21 @@ impl<'a> Sat<'a> {
         }
     }
 
+    /// Limit the decisions of later queries to the variables of `scope` (`None`: all). A model
+    /// found under a scope assigns only what the search reached (the rest reads as false): the
+    /// caller must give a scope whose every conflict-free assignment extends to a model, such as
+    /// the variables of a cone closed under fan-in ([`crate::cnf::Tseitin::cone_vars`]) plus the
+    /// assumptions.
+    pub fn set_scope(&mut self, scope: Option<&[CLit]>) {
+        match scope {
+            None => self.solver.set_decision_scope(None),
+            Some(lits) => {
+                let vars: Vec<varisat::Var> = lits.iter().map(|l| l.var()).collect();
+                self.solver.set_decision_scope(Some(&vars));
+            }
+        }
+    }
+
     /// The value of `l` in the last model.
     pub fn value(&self, l: CLit) -> bool {
         self.model.get(l.index()).copied().unwrap_or(false) == l.is_positive()

@@ -1,14 +1,17 @@
 //! `equicone prove` and `equicone cnf`: read two designs, pair them, prove or export the miter.
 
 use super::common::{
-    load, load_within, print, report_input_error, report_internal, timeout_of, write_atomic,
+    print, report_input_error, report_internal, report_stopped_reading, timeout_of, write_atomic,
     FormatArg,
 };
 use super::Exit;
 use crate::cnf::{dimacs, Tseitin};
 use crate::design::Design;
+use crate::design::Format;
+use crate::diag::InputError;
 use crate::diagnose;
 use crate::engine::{self, EngineKind, PairBy, ProveError, ProveOptions, Verdict};
+use crate::front::{self, ReadError, Source};
 use crate::report;
 use crate::sat::ClauseSink;
 use clap::Args;
@@ -54,31 +57,70 @@ pub struct PairArgs {
 }
 
 impl PairArgs {
-    fn load(&self) -> Result<(Design, Design), Exit> {
+    /// Read both designs at once, on two threads, each looking at `stop` while it reads.
+    fn read_pair(
+        &self,
+        stop: &(dyn Fn() -> bool + Sync),
+    ) -> (Result<Design, ReadError>, Result<Design, ReadError>) {
         let mut rp = vec![self.reference.clone()];
         rp.extend(self.ref_also.iter().cloned());
         let mut cp = vec![self.candidate.clone()];
         cp.extend(self.cand_also.iter().cloned());
-        let r = load(rp, self.ref_format.or(self.format), self.ref_top.clone());
-        let c = load(cp, self.cand_format.or(self.format), self.cand_top.clone());
-        Ok((r?, c?))
+        let source = |paths: Vec<String>, format: Option<FormatArg>, top: Option<String>| Source {
+            paths,
+            format: format.map(Format::from),
+            top,
+        };
+        let rs = source(rp, self.ref_format.or(self.format), self.ref_top.clone());
+        let cs = source(cp, self.cand_format.or(self.format), self.cand_top.clone());
+        let (r, c) = std::thread::scope(|s| {
+            let h = s.spawn(|| front::load_until(&rs, stop));
+            let c = front::load_until(&cs, stop);
+            (h.join(), c)
+        });
+        let r = r.unwrap_or_else(|_| {
+            Err(ReadError::Input(InputError::plain(
+                "internal error while reading the reference",
+                "please report this with the files that caused it",
+            )))
+        });
+        (r, c)
     }
 
-    /// [`PairArgs::load`] under `limits`: a deadline passing while reading gives
-    /// [`Exit::Undecided`] (the candidate is not read then).
+    /// Read both designs, printing their errors (reference first) on failure.
+    fn load(&self) -> Result<(Design, Design), Exit> {
+        self.load_within(&crate::sat::Limits::none())
+    }
+
+    /// [`PairArgs::load`] under `limits`: bad input on either side gives its errors and
+    /// [`Exit::BadInput`]; otherwise a deadline passing while either side is read gives the
+    /// undecided message (naming the reference when both stopped) and [`Exit::Undecided`].
     fn load_within(&self, limits: &crate::sat::Limits) -> Result<(Design, Design), Exit> {
-        let mut rp = vec![self.reference.clone()];
-        rp.extend(self.ref_also.iter().cloned());
-        let mut cp = vec![self.candidate.clone()];
-        cp.extend(self.cand_also.iter().cloned());
-        let format = self.ref_format.or(self.format);
-        let r = load_within(rp, format, self.ref_top.clone(), limits);
-        if r.as_ref().err() == Some(&Exit::Undecided) {
-            return Err(Exit::Undecided);
+        let (r, c) = self.read_pair(&|| limits.expired());
+        let mut bad = false;
+        let mut stopped = None;
+        for side in [&r, &c] {
+            match side {
+                Err(ReadError::Input(e)) => {
+                    report_input_error(e);
+                    bad = true;
+                }
+                Err(ReadError::Stopped(f)) => {
+                    stopped.get_or_insert(f.clone());
+                }
+                Ok(_) => {}
+            }
         }
-        let format = self.cand_format.or(self.format);
-        let c = load_within(cp, format, self.cand_top.clone(), limits);
-        Ok((r?, c?))
+        if bad {
+            return Err(Exit::BadInput);
+        }
+        if let Some(f) = stopped {
+            return Err(report_stopped_reading(&f));
+        }
+        match (r, c) {
+            (Ok(r), Ok(c)) => Ok((r, c)),
+            _ => unreachable!("every failure is handled above"),
+        }
     }
 }
 

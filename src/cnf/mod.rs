@@ -14,6 +14,9 @@ pub struct Tseitin {
     map: Vec<Option<CLit>>,
     stack: Vec<u32>,
     todo: Vec<u32>,
+    /// Visit stamps for [`Tseitin::cone_vars`].
+    stamp: Vec<u32>,
+    epoch: u32,
 }
 
 impl Tseitin {
@@ -54,6 +57,37 @@ impl Tseitin {
     /// The CNF literal of node `n`, if it is encoded.
     pub fn var_of(&self, n: u32) -> Option<CLit> {
         self.map.get(n as usize).copied().flatten()
+    }
+
+    /// The variables of every encoded node in the cones of `roots` (which must be encoded), for
+    /// a solver's decision scope: an assignment of them that violates no clause extends to the
+    /// whole formula by simulating the other nodes, since the cones are closed under fan-in.
+    pub fn cone_vars(&mut self, aig: &Aig, roots: &[Lit]) -> Vec<CLit> {
+        if self.stamp.len() < aig.len() {
+            self.stamp.resize(aig.len(), 0);
+        }
+        self.epoch = self.epoch.wrapping_add(1);
+        if self.epoch == 0 {
+            self.stamp.iter_mut().for_each(|s| *s = 0);
+            self.epoch = 1;
+        }
+        let mut out = Vec::new();
+        self.stack.clear();
+        self.stack.extend(roots.iter().map(|r| r.node()));
+        while let Some(n) = self.stack.pop() {
+            if self.stamp[n as usize] == self.epoch {
+                continue;
+            }
+            self.stamp[n as usize] = self.epoch;
+            if let Some(v) = self.map.get(n as usize).copied().flatten() {
+                out.push(v);
+            }
+            if let Node::And(a, b) = aig.node(n) {
+                self.stack.push(a.node());
+                self.stack.push(b.node());
+            }
+        }
+        out
     }
 
     /// Number of encoded nodes.

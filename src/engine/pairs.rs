@@ -48,12 +48,46 @@ pub(crate) fn decide_pairs(
             findings[p] = Some(Finding::Stopped(StopReason::Timeout));
             continue;
         }
+        let roots = [pairs[p].reference, pairs[p].candidate, constraint];
+        let mut split_tried = false;
+        if limits.conflicts_per_query.is_none() && split::split_first(aig, &roots) {
+            // A wide selector: straight to case splitting, before even encoding the miter.
+            split_tried = true;
+            match split::decide(aig, roots[0], roots[1], constraint, limits) {
+                SplitResult::Equal => {
+                    findings[p] = Some(Finding::Equal(Method::Split));
+                    progress.outputs_done(1);
+                    continue;
+                }
+                SplitResult::Differ(values) => {
+                    mark_separated(aig, pairs, &values, findings, progress);
+                    if findings[p].is_none() {
+                        findings[p] = Some(Finding::Differ(Method::Split, values));
+                    }
+                    continue;
+                }
+                SplitResult::Stopped(StopReason::Timeout) => {
+                    findings[p] = Some(Finding::Stopped(StopReason::Timeout));
+                    continue;
+                }
+                SplitResult::Stopped(StopReason::ConflictLimit) => {}
+            }
+        }
         let a = ts.lit(aig, sat, pairs[p].reference);
         let b = ts.lit(aig, sat, pairs[p].candidate);
         let act = sat.fresh();
         sat.clause(&[!act, a, b]);
         sat.clause(&[!act, !a, !b]);
-        let mut answer = sat.solve_within(&[act], Some(FIRST_BUDGET));
+        // Decide only within the pair's cones (and the constraint's): the solver also holds
+        // the cones of earlier pairs, which this query does not need to assign.
+        let mut scope = ts.cone_vars(aig, &roots);
+        scope.push(act);
+        sat.set_scope(Some(&scope));
+        let mut answer = if split_tried {
+            sat.solve(&[act])
+        } else {
+            sat.solve_within(&[act], Some(FIRST_BUDGET))
+        };
         if answer == SatResult::Stopped(StopReason::ConflictLimit)
             && limits.conflicts_per_query.is_none()
         {

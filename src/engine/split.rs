@@ -17,7 +17,20 @@ const LEAF_BUDGET: u64 = 300;
 /// Cofactors with more nodes than this are split without a SAT query first.
 const SPLIT_WITHOUT_SAT: usize = 1_500;
 /// Cofactors examined at most before giving up on splitting.
-const MAX_LEAVES: usize = 1 << 16;
+const MAX_LEAVES: usize = 1 << 20;
+/// Nodes rebuilt over all cofactors at most, as a multiple of the pair's graph (plus a floor).
+const WORK_FACTOR: usize = 48;
+const WORK_FLOOR: usize = 4 << 20;
+/// A cofactor that shrank to at most this share (in tenths) of its parent is split again
+/// without a query: splitting is still paying (a selector halves at every select bit).
+const SHRINK_TENTHS: usize = 7;
+/// Cofactors this small go to the solver even while splitting pays.
+const SPLIT_FLOOR: usize = 300;
+/// Pairs with more AND nodes than this in their cones are split before any whole query when an
+/// input drives a large share of them (see [`split_first`]).
+const SPLIT_FIRST_ANDS: usize = 20_000;
+/// "A large share": at least one AND node in this many.
+const SPLIT_FIRST_SHARE: usize = 20;
 /// Inputs fixed at most along one branch.
 const MAX_DEPTH: usize = 24;
 
@@ -47,6 +60,8 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
         Option<(usize, bool)>,
     );
     let root = Arc::new(aig.clone());
+    let work_limit = WORK_FLOOR.saturating_add(WORK_FACTOR.saturating_mul(aig.len()));
+    let mut work = 0usize;
     let mut stack: Vec<Item> = vec![(
         root,
         Arc::new((0..n).collect()),
@@ -60,9 +75,11 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
             return SplitResult::Stopped(StopReason::Timeout);
         }
         leaves += 1;
-        if leaves > MAX_LEAVES {
+        work += parent.len();
+        if leaves > MAX_LEAVES || work > work_limit {
             return SplitResult::Stopped(StopReason::ConflictLimit);
         }
+        let parent_ands = parent.num_ands();
         let mut g = Aig::new();
         let in_cone = parent.cone_mask(&roots);
         let mut orig = Vec::new();
@@ -86,7 +103,10 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
         if c == Lit::FALSE || x == y {
             continue;
         }
-        if g.num_ands() > SPLIT_WITHOUT_SAT && fixed.len() < MAX_DEPTH {
+        let shrinking = fix.is_some()
+            && g.num_ands() > SPLIT_FLOOR
+            && g.num_ands() * 10 <= parent_ands * SHRINK_TENTHS;
+        if (g.num_ands() > SPLIT_WITHOUT_SAT || shrinking) && fixed.len() < MAX_DEPTH {
             // Large cofactors are split at once: a query on them mostly wastes its budget.
             if let Some(k) = busiest_input(&g, &[x, y, c]) {
                 let g = Arc::new(g);
@@ -141,9 +161,32 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
     SplitResult::Equal
 }
 
-/// The input (by position) with the most fan-out inside the cones of `roots`.
-fn busiest_input(g: &Aig, roots: &[Lit]) -> Option<usize> {
+/// Whether the pair `roots` is better split before any whole query: its cones are large and one
+/// input drives a large share of their AND nodes (the select bits of a wide selector); a single
+/// query on such a miter mostly spends its budget.
+pub(crate) fn split_first(g: &Aig, roots: &[Lit]) -> bool {
     let mask = g.cone_mask(roots);
+    let ands = g
+        .nodes()
+        .iter()
+        .enumerate()
+        .filter(|(i, n)| mask[*i] && matches!(n, Node::And(..)))
+        .count();
+    if ands <= SPLIT_FIRST_ANDS {
+        return false;
+    }
+    let fanout = input_fanout(g, &mask);
+    let most = g
+        .inputs()
+        .iter()
+        .map(|&n| fanout[n as usize])
+        .max()
+        .unwrap_or(0) as usize;
+    most * SPLIT_FIRST_SHARE >= ands
+}
+
+/// Fan-out of every node inside the cone `mask`.
+fn input_fanout(g: &Aig, mask: &[bool]) -> Vec<u32> {
     let mut fanout = vec![0u32; g.len()];
     for (i, node) in g.nodes().iter().enumerate() {
         if let (true, Node::And(p, q)) = (mask[i], node) {
@@ -151,6 +194,13 @@ fn busiest_input(g: &Aig, roots: &[Lit]) -> Option<usize> {
             fanout[q.index()] += 1;
         }
     }
+    fanout
+}
+
+/// The input (by position) with the most fan-out inside the cones of `roots`.
+fn busiest_input(g: &Aig, roots: &[Lit]) -> Option<usize> {
+    let mask = g.cone_mask(roots);
+    let fanout = input_fanout(g, &mask);
     g.inputs()
         .iter()
         .enumerate()

@@ -134,8 +134,9 @@ pub(crate) fn sweep(
         global: Sat::new(limits),
         gts: Tseitin::new(),
         pending: Vec::new(),
+        near: Vec::new(),
         whole_cone: 0,
-        tally: [0; 9],
+        tally: [0; 17],
         stamp: Vec::new(),
         value: Vec::new(),
         epoch: 0,
@@ -309,10 +310,14 @@ struct Sweeper<'a> {
     gts: Tseitin,
     /// Counterexample patterns (one value per input) not yet simulated.
     pending: Vec<Vec<bool>>,
+    /// For each pending pattern, the inputs of the window that found it: the bits to flip for
+    /// its neighbours.
+    near: Vec<Vec<u32>>,
     rng: u64,
     whole_cone: usize,
-    /// Window answers (small: equal, differ, partial, unknown; large: the same), lifts.
-    tally: [usize; 9],
+    /// Window answers per stage (fresh tiny, tiny, small, large: equal, differ, partial,
+    /// unknown), then lifts.
+    tally: [usize; 17],
     /// Scratch for [`Sweeper::lift`]: visit stamps and simulation words per merged-graph node.
     stamp: Vec<u32>,
     value: Vec<u64>,
@@ -327,33 +332,43 @@ impl Sweeper<'_> {
     fn prove_equal(&mut self, a: Lit, b: Lit) -> Option<bool> {
         // A small window first, then (when its model does not extend to a real
         // counterexample) a large one in a fresh solver, then the whole cone.
-        for (budget, conflicts) in [
-            (TINY_WINDOW_BUDGET, WINDOW_CONFLICTS),
-            (WINDOW_BUDGET, WINDOW_CONFLICTS),
-            (LARGE_WINDOW_BUDGET, SWEEP_CONFLICTS),
-        ] {
-            let ans = self.window.query(&self.f, a, b, budget, conflicts);
+        for (stage, (budget, conflicts, fresh)) in [
+            (TINY_WINDOW_BUDGET, WINDOW_CONFLICTS, true),
+            (TINY_WINDOW_BUDGET, WINDOW_CONFLICTS, false),
+            (WINDOW_BUDGET, WINDOW_CONFLICTS, false),
+            (LARGE_WINDOW_BUDGET, SWEEP_CONFLICTS, false),
+        ]
+        .into_iter()
+        .enumerate()
+        {
+            let ans = if fresh {
+                self.window.query_fresh(&self.f, a, b, budget, conflicts)
+            } else {
+                self.window.query(&self.f, a, b, budget, conflicts)
+            };
             let kind = match &ans {
                 WindowAnswer::Equal => 0,
                 WindowAnswer::Differ(_) => 1,
                 WindowAnswer::Partial(_) => 2,
                 WindowAnswer::Unknown => 3,
             };
-            self.tally[usize::from(budget > WINDOW_BUDGET) * 4 + kind] += 1;
+            self.tally[stage * 4 + kind] += 1;
             match ans {
                 WindowAnswer::Equal => return Some(true),
                 WindowAnswer::Differ(vals) => {
                     let mut p = self.random_pattern();
-                    for (k, v) in vals {
+                    for &(k, v) in &vals {
                         p[k as usize] = v;
                     }
                     self.pending.push(p);
+                    self.near.push(vals.iter().map(|&(k, _)| k).collect());
                     return Some(false);
                 }
                 WindowAnswer::Partial(vals) => {
                     if let Some(p) = self.lift(a, b, &vals) {
-                        self.tally[8] += 1;
+                        self.tally[16] += 1;
                         self.pending.push(p);
+                        self.near.push(vals.iter().map(|&(k, _)| k).collect());
                         return Some(false);
                     }
                 }
@@ -448,18 +463,41 @@ impl Sweeper<'_> {
         out
     }
 
-    /// Simulate the queued patterns (one word; unused bits random) and split the classes.
+    /// Simulate the queued patterns (one word) and split the classes. The word's other bits
+    /// are neighbours of the queued patterns at distance one, each with one input of the
+    /// refuted window flipped (Mishchenko et al. 2006): a rare distinguishing pattern, such as
+    /// a long carry-propagate run in an adder, usually has rare neighbours that distinguish
+    /// other candidates too, which random patterns would not find.
     fn refine(&mut self, classes: &mut Classes, done: usize) {
         let n = self.g.num_inputs();
-        // Bits past the queued patterns are fresh random patterns.
-        let mut row: Vec<Vec<u64>> = (0..n).map(|_| vec![self.random_word()]).collect();
-        for (j, p) in self.pending.iter().enumerate() {
+        let q = self.pending.len();
+        let mut row: Vec<Vec<u64>> = vec![vec![0u64]; n];
+        let set = |row: &mut Vec<Vec<u64>>, j: usize, p: &[bool]| {
             for k in 0..n {
-                let w = &mut row[k][0];
-                *w = (*w & !(1u64 << j)) | (u64::from(p[k]) << j);
+                row[k][0] |= u64::from(p[k]) << j;
+            }
+        };
+        for (j, p) in self.pending.iter().enumerate() {
+            set(&mut row, j, p);
+        }
+        for j in q..64 {
+            let src = j % q.max(1);
+            let r = self.random_word();
+            match (self.pending.get(src), self.near.get(src)) {
+                (Some(p), Some(near)) if !near.is_empty() => {
+                    let mut p = p.clone();
+                    let k = near[(r % near.len() as u64) as usize] as usize;
+                    p[k] = !p[k];
+                    set(&mut row, j, &p);
+                }
+                _ => {
+                    let p = self.random_pattern();
+                    set(&mut row, j, &p);
+                }
             }
         }
         self.pending.clear();
+        self.near.clear();
         let table = simulate(self.g, &row, 1);
         classes.refine(&table.values, done);
         if cfg!(debug_assertions) {

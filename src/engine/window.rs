@@ -1,20 +1,37 @@
-//! Bounded-window equality queries: encode only the nodes near two literals (at most a budget
-//! of AND nodes), treat the frontier as free variables, and ask whether the literals can differ.
+//! Bounded-window equality queries: decide only on the nodes near two literals (at most a budget
+//! of AND nodes), the frontier acting as free variables, and ask whether the literals can differ.
 //!
-//! Freeing the frontier only adds behaviours, so UNSAT proves the literals equal. A model is a
-//! real counterexample only when the window reached the primary inputs everywhere (it is then
-//! *complete*); otherwise the caller falls back to a query on the whole cone.
-//! Clauses of each query are guarded by an activation literal that is retired afterwards; the
-//! solver is replaced once it holds a few thousand variables so that retired windows do not
-//! slow later queries down.
+//! One solver serves every query of a sweep: a node's gate clauses are added the first time a
+//! window holds it and stay (they are facts about the graph), so clauses learned in one query
+//! help the next, and the solver's decisions are limited to the current window (its *scope*),
+//! so that the rest of the graph, already encoded, costs nothing. Only the miter clauses of a
+//! query are guarded by an activation literal that is retired afterwards.
+//!
+//! Every clause is true of the graph, so UNSAT proves the literals equal. A model is a real
+//! counterexample only when the window reached the primary inputs everywhere (it is then
+//! *complete*: the scope is a cone closed under fan-in, so a conflict-free assignment of it
+//! extends to the whole formula); otherwise it is *partial* and the caller tries to extend it.
+//! The solver is replaced once it holds many variables, to bound its memory and the reach of
+//! propagation.
+//!
+//! A first, cheaper kind of query ([`Window::query_fresh`]) encodes a small window on its own,
+//! guarded by an activation literal, in a separate small solver: it proves most local rewrites
+//! at a cost bounded by the window, however large the graph.
 
 use crate::aig::{Aig, Lit, Node};
 use crate::sat::{CLit, ClauseSink, Limits, Sat, SatResult, SatStats};
 use std::collections::HashMap;
 
-/// Variables a window solver may accumulate before it is replaced: varisat assigns every
-/// variable of the solver before it reports a model, so retired windows must not pile up.
-const VARS_PER_SOLVER: u64 = 4_000;
+/// Variables the small solver of [`Window::query_fresh`] may accumulate before it is replaced
+/// (varisat assigns every variable of a solver before it reports a model).
+const FRESH_VARS_PER_SOLVER: u64 = 4_000;
+
+/// Variables the solver may accumulate before it is replaced.
+const VARS_PER_SOLVER: u64 = 60_000;
+/// Activation literals retired together: each unit clause makes varisat simplify its whole
+/// clause database, so they are added in batches (until then a spent activation literal is
+/// simply never assumed again, and lies outside every scope).
+const RETIRE_BATCH: usize = 1_024;
 
 /// The answer of one window query.
 pub(crate) enum WindowAnswer {
@@ -29,26 +46,55 @@ pub(crate) enum WindowAnswer {
     Unknown,
 }
 
-/// A reusable window prover.
-pub(crate) struct Window {
+/// The small solver of [`Window::query_fresh`] and its scratch space.
+struct Fresh {
     sat: Sat<'static>,
-    limits: Limits,
-    retired: SatStats,
     vars: HashMap<u32, CLit>,
     order: Vec<u32>,
     stack: Vec<u32>,
+}
+
+/// A reusable window prover.
+pub(crate) struct Window {
+    fresh: Fresh,
+    sat: Sat<'static>,
+    limits: Limits,
+    retired: SatStats,
+    /// Variable of each graph node in the current solver (`None`: not yet seen).
+    var: Vec<Option<CLit>>,
+    /// Whether a node's gate clauses are in the current solver.
+    gated: Vec<bool>,
+    /// Visit stamps of the current query.
+    stamp: Vec<u32>,
+    epoch: u32,
+    order: Vec<u32>,
+    queue: Vec<u32>,
+    scope: Vec<CLit>,
+    /// Spent activation literals not yet retired by a unit clause.
+    spent: Vec<CLit>,
 }
 
 impl Window {
     /// A window prover under `limits`.
     pub(crate) fn new(limits: &Limits) -> Window {
         Window {
+            fresh: Fresh {
+                sat: Sat::new(limits),
+                vars: HashMap::new(),
+                order: Vec::new(),
+                stack: Vec::new(),
+            },
             sat: Sat::new(limits),
             limits: limits.clone(),
             retired: SatStats::default(),
-            vars: HashMap::new(),
+            var: Vec::new(),
+            gated: Vec::new(),
+            stamp: Vec::new(),
+            epoch: 0,
             order: Vec::new(),
-            stack: Vec::new(),
+            queue: Vec::new(),
+            scope: Vec::new(),
+            spent: Vec::new(),
         }
     }
 
@@ -56,11 +102,14 @@ impl Window {
     pub(crate) fn stats(&self) -> SatStats {
         let mut s = self.retired;
         s.add(&self.sat.stats());
+        s.add(&self.fresh.sat.stats());
         s
     }
 
-    /// Can `a` and `b` differ? Encodes at most `budget` AND nodes, with `conflicts` allowed.
-    pub(crate) fn query(
+    /// Can `a` and `b` differ? A query of its own: encodes at most `budget` AND nodes in a small
+    /// solver under an activation literal, with the frontier free, and `conflicts` allowed.
+    /// Cheap and bounded whatever the graph's size; most local rewrites are proved here.
+    pub(crate) fn query_fresh(
         &mut self,
         f: &Aig,
         a: Lit,
@@ -68,65 +117,66 @@ impl Window {
         budget: usize,
         conflicts: u64,
     ) -> WindowAnswer {
-        if self.sat.stats().vars >= VARS_PER_SOLVER {
-            self.retired.add(&self.sat.stats());
-            self.sat = Sat::new(&self.limits);
+        if self.fresh.sat.stats().vars >= FRESH_VARS_PER_SOLVER {
+            self.retired.add(&self.fresh.sat.stats());
+            self.fresh.sat = Sat::new(&self.limits);
         }
         // Collect the window: nodes reached from the two roots, AND nodes expanded while the
         // budget lasts.
-        self.vars.clear();
-        self.order.clear();
-        self.stack.clear();
-        self.stack.push(a.node());
-        self.stack.push(b.node());
+        self.fresh.vars.clear();
+        self.fresh.order.clear();
+        self.fresh.stack.clear();
+        self.fresh.stack.push(a.node());
+        self.fresh.stack.push(b.node());
         let mut expanded = 0usize;
         let mut complete = true;
-        let act = self.sat.fresh();
+        let act = self.fresh.sat.fresh();
         // Breadth first, so that the window holds the nodes nearest the two literals.
         let mut head = 0;
-        while head < self.stack.len() {
-            let n = self.stack[head];
+        while head < self.fresh.stack.len() {
+            let n = self.fresh.stack[head];
             head += 1;
-            if self.vars.contains_key(&n) {
+            if self.fresh.vars.contains_key(&n) {
                 continue;
             }
-            let v = self.sat.fresh();
-            self.vars.insert(n, v);
+            let v = self.fresh.sat.fresh();
+            self.fresh.vars.insert(n, v);
             if let Node::And(x, y) = f.node(n) {
                 if expanded < budget {
                     expanded += 1;
-                    self.order.push(n);
-                    self.stack.push(x.node());
-                    self.stack.push(y.node());
+                    self.fresh.order.push(n);
+                    self.fresh.stack.push(x.node());
+                    self.fresh.stack.push(y.node());
                 } else {
                     complete = false;
                 }
             } else if n == 0 {
-                self.sat.clause(&[!act, !v]);
+                self.fresh.sat.clause(&[!act, !v]);
             }
         }
-        for &n in &self.order {
+        for &n in &self.fresh.order {
             if let Node::And(x, y) = f.node(n) {
-                let z = self.vars[&n];
-                let cx = lit_of(self.vars[&x.node()], x);
-                let cy = lit_of(self.vars[&y.node()], y);
-                self.sat.clause(&[!act, !z, cx]);
-                self.sat.clause(&[!act, !z, cy]);
-                self.sat.clause(&[!act, z, !cx, !cy]);
+                let z = self.fresh.vars[&n];
+                let cx = lit_of(self.fresh.vars[&x.node()], x);
+                let cy = lit_of(self.fresh.vars[&y.node()], y);
+                self.fresh.sat.clause(&[!act, !z, cx]);
+                self.fresh.sat.clause(&[!act, !z, cy]);
+                self.fresh.sat.clause(&[!act, z, !cx, !cy]);
             }
         }
-        let ca = lit_of(self.vars[&a.node()], a);
-        let cb = lit_of(self.vars[&b.node()], b);
-        self.sat.clause(&[!act, ca, cb]);
-        self.sat.clause(&[!act, !ca, !cb]);
-        let answer = match self.sat.solve_within(&[act], Some(conflicts)) {
+        let ca = lit_of(self.fresh.vars[&a.node()], a);
+        let cb = lit_of(self.fresh.vars[&b.node()], b);
+        self.fresh.sat.clause(&[!act, ca, cb]);
+        self.fresh.sat.clause(&[!act, !ca, !cb]);
+        let answer = match self.fresh.sat.solve_within(&[act], Some(conflicts)) {
             SatResult::Unsat => WindowAnswer::Equal,
             SatResult::Sat => {
                 let mut values: Vec<(u32, bool)> = self
+                    .fresh
                     .vars
                     .iter()
                     .filter_map(|(&n, &v)| match f.node(n) {
-                        Node::Input(k) => Some((k, self.sat.value(v))),
+                        Node::Input(k) => Some((k, self.fresh.sat.value(v))),
                         _ => None,
                     })
                     .collect();
@@ -139,7 +189,131 @@ impl Window {
             }
             SatResult::Stopped(_) => WindowAnswer::Unknown,
         };
-        self.sat.clause(&[!act]);
+        self.fresh.sat.clause(&[!act]);
+        answer
+    }
+
+    fn var_of(&mut self, f: &Aig, n: u32) -> CLit {
+        if let Some(v) = self.var[n as usize] {
+            return v;
+        }
+        let v = self.sat.fresh();
+        self.var[n as usize] = Some(v);
+        if let Node::Const = f.node(n) {
+            self.sat.clause(&[!v]);
+        }
+        v
+    }
+
+    /// Can `a` and `b` differ? Decides on at most `budget` AND nodes near them, with
+    /// `conflicts` allowed.
+    pub(crate) fn query(
+        &mut self,
+        f: &Aig,
+        a: Lit,
+        b: Lit,
+        budget: usize,
+        conflicts: u64,
+    ) -> WindowAnswer {
+        if self.sat.stats().vars >= VARS_PER_SOLVER {
+            self.retired.add(&self.sat.stats());
+            self.sat = Sat::new(&self.limits);
+            self.var.iter_mut().for_each(|v| *v = None);
+            self.gated.iter_mut().for_each(|g| *g = false);
+            self.spent.clear();
+        }
+        if self.var.len() < f.len() {
+            self.var.resize(f.len(), None);
+            self.gated.resize(f.len(), false);
+            self.stamp.resize(f.len(), 0);
+        }
+        self.epoch = self.epoch.wrapping_add(1);
+        if self.epoch == 0 {
+            self.stamp.iter_mut().for_each(|s| *s = 0);
+            self.epoch = 1;
+        }
+        // Collect the window breadth first, so that it holds the nodes nearest the two
+        // literals; AND nodes are expanded while the budget lasts.
+        self.order.clear();
+        self.queue.clear();
+        self.scope.clear();
+        self.queue.push(a.node());
+        self.queue.push(b.node());
+        let mut expanded = 0usize;
+        let mut complete = true;
+        let mut head = 0;
+        while head < self.queue.len() {
+            let n = self.queue[head];
+            head += 1;
+            if self.stamp[n as usize] == self.epoch {
+                continue;
+            }
+            self.stamp[n as usize] = self.epoch;
+            let v = self.var_of(f, n);
+            self.scope.push(v);
+            if let Node::And(x, y) = f.node(n) {
+                if expanded < budget {
+                    expanded += 1;
+                    self.order.push(n);
+                    self.queue.push(x.node());
+                    self.queue.push(y.node());
+                } else {
+                    complete = false;
+                }
+            }
+        }
+        for i in 0..self.order.len() {
+            let n = self.order[i];
+            if self.gated[n as usize] {
+                continue;
+            }
+            self.gated[n as usize] = true;
+            if let Node::And(x, y) = f.node(n) {
+                let z = self.var[n as usize].expect("in the window");
+                let cx = lit_of(self.var_of(f, x.node()), x);
+                let cy = lit_of(self.var_of(f, y.node()), y);
+                self.sat.clause(&[!z, cx]);
+                self.sat.clause(&[!z, cy]);
+                self.sat.clause(&[z, !cx, !cy]);
+            }
+        }
+        let act = self.sat.fresh();
+        self.scope.push(act);
+        let ca = lit_of(self.var[a.index()].expect("in the window"), a);
+        let cb = lit_of(self.var[b.index()].expect("in the window"), b);
+        self.sat.clause(&[!act, ca, cb]);
+        self.sat.clause(&[!act, !ca, !cb]);
+        self.sat.set_scope(Some(&self.scope));
+        let answer = match self.sat.solve_within(&[act], Some(conflicts)) {
+            SatResult::Unsat => WindowAnswer::Equal,
+            SatResult::Sat => {
+                let mut values: Vec<(u32, bool)> = self
+                    .queue
+                    .iter()
+                    .filter(|&&n| self.stamp[n as usize] == self.epoch)
+                    .filter_map(|&n| match f.node(n) {
+                        Node::Input(k) => {
+                            Some((k, self.sat.value(self.var[n as usize].expect("seen"))))
+                        }
+                        _ => None,
+                    })
+                    .collect();
+                values.sort_unstable();
+                values.dedup_by_key(|p| p.0);
+                if complete {
+                    WindowAnswer::Differ(values)
+                } else {
+                    WindowAnswer::Partial(values)
+                }
+            }
+            SatResult::Stopped(_) => WindowAnswer::Unknown,
+        };
+        self.spent.push(act);
+        if self.spent.len() >= RETIRE_BATCH {
+            for act in std::mem::take(&mut self.spent) {
+                self.sat.clause(&[!act]);
+            }
+        }
         answer
     }
 }

@@ -3,6 +3,8 @@
 mod common;
 mod engine_checks;
 mod fixtures;
+mod hierarchy;
 mod iverilog_diff;
+mod large;
 mod regress;
 mod semantics;

@@ -192,7 +192,8 @@ pub struct Decl {
     /// The range, if a vector.
     pub range: Option<Range>,
     /// Declared names, with an optional `= expr` (net declaration assignment).
-    pub names: Vec<(Sym, Pos, Option<Expr>)>,
+    /// (Boxed: most names have none, and a netlist declares a million names.)
+    pub names: Vec<(Sym, Pos, Option<Box<Expr>>)>,
     /// Where the declaration starts.
     pub pos: Pos,
 }
@@ -325,8 +326,9 @@ pub enum Item {
     Genvar(Vec<(Sym, Pos)>),
     /// `assign lhs = rhs;`
     Assign(Box<(Expr, Expr)>, Pos),
-    /// Gate primitive instance: kind, optional name, terminals (output first).
-    Gate(GateKind, Option<Sym>, Vec<Expr>, Pos),
+    /// Gate primitive instance: kind, terminals (output first), where it starts (the
+    /// instance name is not kept).
+    Gate(GateKind, Box<[Expr]>, Pos),
     /// Module instance.
     Inst(Box<Instance>),
     /// `always @*`

@@ -263,6 +263,35 @@ impl<'s> Lexer<'s> {
         }
     }
 
+    /// Skip an identifier that is not a keyword (a gate instance name nobody looks up)
+    /// without interning it; `None`, consuming nothing but trivia, when something else
+    /// comes next.
+    pub fn skip_name(&mut self, names: &mut Interner) -> Option<Pos> {
+        self.skip_trivia(names);
+        let pos = self.pos();
+        let c = self.peek(0);
+        let mut j = self.i;
+        if is_ident_start(c) {
+            while j < self.src.len() && is_ident_char(self.src[j]) {
+                j += 1;
+            }
+            let s = std::str::from_utf8(&self.src[self.i..j]).unwrap_or("?");
+            if super::symbols::is_keyword_text(s) {
+                return None;
+            }
+        } else if c == b'\\' && self.i < self.src.len() {
+            while j < self.src.len() && !self.src[j].is_ascii_whitespace() {
+                j += 1;
+            }
+        } else {
+            return None;
+        }
+        while self.i < j {
+            self.bump();
+        }
+        Some(pos)
+    }
+
     /// The next token.
     pub fn next_token(&mut self, names: &mut Interner) -> Token {
         self.skip_trivia(names);

@@ -9,6 +9,7 @@ mod elaborate;
 mod fasthash;
 pub mod lexer;
 mod parse_expr;
+mod parse_gate;
 mod parse_gen;
 mod parse_stmt;
 pub mod parser;
@@ -36,24 +37,25 @@ pub fn read_verilog(
     sources: &[(Arc<str>, String)],
     top: Option<&str>,
 ) -> Result<Design, InputError> {
-    let sources = sources.to_vec();
-    let top = top.map(str::to_string);
     // Parsing and elaboration recurse over expression syntax (bounded by the parser's
-    // nesting limit); a dedicated thread gives that recursion a known, ample stack.
-    let h = std::thread::Builder::new()
-        .name("verilog-reader".into())
-        .stack_size(256 << 20)
-        .spawn(move || read_inner(&sources, top.as_deref()));
-    match h {
-        Ok(h) => match h.join() {
-            Ok(r) => r,
-            Err(_) => Err(InputError::plain(
-                "internal error while reading Verilog",
-                "please report this input as a bug",
-            )),
-        },
-        Err(_) => read_inner_fallback(),
-    }
+    // nesting limit); a dedicated thread gives that recursion a known, ample stack. The
+    // thread is scoped, so it reads the sources in place (no copy of a large text).
+    std::thread::scope(|s| {
+        let h = std::thread::Builder::new()
+            .name("verilog-reader".into())
+            .stack_size(256 << 20)
+            .spawn_scoped(s, || read_inner(sources, top));
+        match h {
+            Ok(h) => match h.join() {
+                Ok(r) => r,
+                Err(_) => Err(InputError::plain(
+                    "internal error while reading Verilog",
+                    "please report this input as a bug",
+                )),
+            },
+            Err(_) => read_inner_fallback(),
+        }
+    })
 }
 
 fn read_inner_fallback() -> Result<Design, InputError> {
@@ -101,5 +103,5 @@ fn read_inner(sources: &[(Arc<str>, String)], top: Option<&str>) -> Result<Desig
     if !diags.is_empty() {
         return Err(InputError { diagnostics: diags });
     }
-    elaborate::elaborate(&names, &files, &mods, top)
+    elaborate::elaborate(&names, &files, mods, top)
 }

@@ -156,6 +156,17 @@ impl<'s, 'n> Parser<'s, 'n> {
         Err(self.error(t.pos, format!("expected {what}, found {d}")))
     }
 
+    /// Skip a plain name without interning it (see [`Lexer::skip_name`]); only when no
+    /// token is waiting in the lookahead.
+    pub(super) fn skip_name(&mut self) -> Option<Pos> {
+        if !self.look.is_empty() {
+            return None;
+        }
+        let p = self.lx.skip_name(self.names)?;
+        self.taken += 1;
+        Some(p)
+    }
+
     /// Enter one level of nesting.
     pub fn enter(&mut self, pos: Pos) -> PResult<()> {
         self.depth += 1;
@@ -463,20 +474,6 @@ impl<'s, 'n> Parser<'s, 'n> {
         Ok(pd)
     }
 
-    fn gate_kind(k: Sym) -> Option<GateKind> {
-        Some(match k {
-            k if k == kw::AND => GateKind::And,
-            k if k == kw::NAND => GateKind::Nand,
-            k if k == kw::OR => GateKind::Or,
-            k if k == kw::NOR => GateKind::Nor,
-            k if k == kw::XOR => GateKind::Xor,
-            k if k == kw::XNOR => GateKind::Xnor,
-            k if k == kw::NOT => GateKind::Not,
-            k if k == kw::BUF => GateKind::Buf,
-            _ => return None,
-        })
-    }
-
     /// One module item (or generate item), appended to `out`.
     pub fn item(&mut self, out: &mut Vec<Item>) -> PResult<()> {
         let t = self.peek().clone();
@@ -505,7 +502,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                     if d.ty != Some(NetType::Wire) || d.dir.is_some() {
                         return Err(self.error(p, "unsupported: initial value in a declaration (only `wire w = expr;` is supported)"));
                     }
-                    Some(self.expr()?)
+                    Some(Box::new(self.expr()?))
                 } else {
                     None
                 };
@@ -553,33 +550,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
             self.expect_p(P::Semi, "`;` after the assignment")?;
         } else if let Some(g) = Self::gate_kind(k) {
-            self.bump();
-            if self.peek_p(P::Hash) || self.peek_p(P::LParen) && self.strength_follows() {
-                return Err(self.err_here("unsupported: delay or drive strength on a gate"));
-            }
-            loop {
-                let gpos = self.peek_pos();
-                let name = if self.peek_p(P::LParen) {
-                    None
-                } else {
-                    let n = self.ident("a gate instance name or `(`")?.0;
-                    if self.peek_p(P::LBrack) {
-                        return Err(self.err_here("unsupported: arrays of gate instances"));
-                    }
-                    Some(n)
-                };
-                self.expect_p(P::LParen, "`(` of the gate terminals")?;
-                let mut terms = vec![self.expr()?];
-                while self.eat_p(P::Comma) {
-                    terms.push(self.expr()?);
-                }
-                self.expect_p(P::RParen, "`)` closing the gate terminals")?;
-                out.push(Item::Gate(g, name, terms, gpos));
-                if !self.eat_p(P::Comma) {
-                    break;
-                }
-            }
-            self.expect_p(P::Semi, "`;` after the gate")?;
+            self.gates(g, out)?;
         } else if k == kw::ALWAYS {
             self.bump();
             let at = self.peek_pos();
@@ -641,21 +612,6 @@ impl<'s, 'n> Parser<'s, 'n> {
     pub(super) fn err_here(&mut self, msg: &str) -> Stop {
         let p = self.peek_pos();
         self.error(p, msg)
-    }
-
-    /// After a gate keyword and `(`: a drive strength looks like `(strong0, ...)`.
-    fn strength_follows(&mut self) -> bool {
-        match self.peek2().tok {
-            Tok::Ident(s) => {
-                let n = self.names.name(s);
-                n.starts_with("strong")
-                    || n.starts_with("weak")
-                    || n.starts_with("pull")
-                    || n.starts_with("supply")
-                    || n.starts_with("highz")
-            }
-            _ => false,
-        }
     }
 }
 

@@ -1,8 +1,6 @@
 //! Interned identifiers: every name of a Verilog source becomes a [`Sym`]; keywords are the
 //! first symbols, so a keyword test is an integer comparison.
 
-use super::fasthash::FastMap;
-
 /// An interned identifier or keyword.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub struct Sym(pub u32);
@@ -54,10 +52,17 @@ keywords! {
 }
 
 /// The interner: names to symbols and back.
+///
+/// A million-gate netlist has a million names, so the table is compact: the texts of all
+/// names one after another in one string, the end offset of each, and an open-addressing
+/// table of symbol numbers with the low hash bits beside them (a probe compares texts only
+/// when those bits agree). About 20 bytes per name besides its text.
 #[derive(Debug)]
 pub struct Interner {
-    map: FastMap<Box<str>, Sym>,
-    names: Vec<Box<str>>,
+    text: String,
+    ends: Vec<usize>,
+    /// Slots: 0 for empty, else symbol number + 1 and 32 bits of the name's hash.
+    table: Vec<(u32, u32)>,
 }
 
 impl Default for Interner {
@@ -66,12 +71,21 @@ impl Default for Interner {
     }
 }
 
+fn hash(name: &str) -> u64 {
+    use std::hash::Hasher;
+    let mut h = super::fasthash::Fx::default();
+    h.write(name.as_bytes());
+    h.write_usize(name.len());
+    h.finish()
+}
+
 impl Interner {
     /// An interner holding the keywords.
     pub fn new() -> Interner {
         let mut i = Interner {
-            map: FastMap::default(),
-            names: Vec::new(),
+            text: String::new(),
+            ends: Vec::new(),
+            table: vec![(0, 0); 256],
         };
         for k in KEYWORDS {
             i.intern(k);
@@ -79,26 +93,74 @@ impl Interner {
         i
     }
 
+    /// The slot holding `name`, or the empty slot where it would go.
+    fn slot(&self, name: &str, h: u64) -> usize {
+        let mask = self.table.len() - 1;
+        let tag = h as u32;
+        let mut k = (h >> 32) as usize & mask;
+        loop {
+            let (s, t) = self.table[k];
+            if s == 0 || (t == tag && self.name(Sym(s - 1)) == name) {
+                return k;
+            }
+            k = (k + 1) & mask;
+        }
+    }
+
     /// The symbol of `name`, creating it on first use.
     pub fn intern(&mut self, name: &str) -> Sym {
-        if let Some(&s) = self.map.get(name) {
-            return s;
+        let h = hash(name);
+        let k = self.slot(name, h);
+        if self.table[k].0 != 0 {
+            return Sym(self.table[k].0 - 1);
         }
-        let s = Sym(self.names.len() as u32);
-        self.names.push(name.into());
-        self.map.insert(name.into(), s);
+        let s = Sym(self.ends.len() as u32);
+        self.text.push_str(name);
+        self.ends.push(self.text.len());
+        self.table[k] = (s.0 + 1, h as u32);
+        if self.ends.len() * 2 > self.table.len() {
+            self.grow();
+        }
         s
+    }
+
+    fn grow(&mut self) {
+        let bigger = vec![(0, 0); self.table.len() * 2];
+        let old = std::mem::replace(&mut self.table, bigger);
+        let mask = self.table.len() - 1;
+        for (s, t) in old.into_iter().filter(|e| e.0 != 0) {
+            let h = hash(self.name(Sym(s - 1)));
+            let mut k = (h >> 32) as usize & mask;
+            while self.table[k].0 != 0 {
+                k = (k + 1) & mask;
+            }
+            self.table[k] = (s, t);
+        }
     }
 
     /// The symbol of `name` if it was ever interned.
     pub fn get(&self, name: &str) -> Option<Sym> {
-        self.map.get(name).copied()
+        let k = self.slot(name, hash(name));
+        let s = self.table[k].0;
+        (s != 0).then(|| Sym(s - 1))
     }
 
     /// The text of a symbol.
     pub fn name(&self, s: Sym) -> &str {
-        &self.names[s.0 as usize]
+        let k = s.0 as usize;
+        let start = if k == 0 { 0 } else { self.ends[k - 1] };
+        &self.text[start..self.ends[k]]
     }
+}
+
+/// Whether the text `name` is a keyword (a small table that stays in cache, unlike the
+/// table of all names).
+pub fn is_keyword_text(name: &str) -> bool {
+    static TABLE: std::sync::OnceLock<super::fasthash::FastMap<&'static str, ()>> =
+        std::sync::OnceLock::new();
+    TABLE
+        .get_or_init(|| KEYWORDS.iter().map(|k| (*k, ())).collect())
+        .contains_key(name)
 }
 
 /// Whether `s` is a keyword.
@@ -117,6 +179,26 @@ mod tests {
         assert_eq!(i.intern("rtran"), kw::RTRAN);
         let a = i.intern("a");
         assert!(!is_keyword(a) && is_keyword(kw::ENDCASE));
+        assert!(is_keyword_text("endcase") && is_keyword_text("rtran"));
+        assert!(!is_keyword_text("a") && !is_keyword_text("Module"));
         assert_eq!(i.name(a), "a");
+    }
+
+    #[test]
+    fn many_names_round_trip() {
+        let mut i = Interner::new();
+        let syms: Vec<Sym> = (0..100_000).map(|k| i.intern(&format!("n{k}"))).collect();
+        for (k, &s) in syms.iter().enumerate() {
+            let n = format!("n{k}");
+            assert_eq!(i.name(s), n);
+            assert_eq!(i.intern(&n), s);
+            assert_eq!(i.get(&n), Some(s));
+        }
+        assert_eq!(i.get("n100000"), None);
+        assert_eq!(i.get(""), None);
+        let e = i.intern("");
+        assert_eq!(i.name(e), "");
+        assert_eq!(i.get(""), Some(e));
+        assert_eq!(i.get("module"), Some(kw::MODULE));
     }
 }

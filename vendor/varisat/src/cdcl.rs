@@ -141,8 +141,19 @@ fn find_conflict<'a>(
 
         propagation_result?;
 
+        // Changed by equicone: a pass over the whole clause database for every new unit made
+        // each of many small incremental queries (each ends in a unit clause) cost the size of
+        // the formula; units are now simplified in batches (eagerly while writing a proof). An
+        // unsimplified unit is still assigned at level 0, so the clauses stay correct.
         if new_unit {
-            unit_simplify(ctx.borrow());
+            let units = ctx.part(TrailP).top_level_assignment_count();
+            let batch = (ctx.part(AssignmentP).assignment().len() / 32).max(64);
+            if ctx.part(ProofP).is_active()
+                || units >= ctx.part(TrailP).simplified_at.saturating_add(batch)
+            {
+                unit_simplify(ctx.borrow());
+                ctx.part_mut(TrailP).simplified_at = units;
+            }
         }
 
         match enqueue_assumption(ctx.borrow()) {

@@ -25,7 +25,9 @@ pub fn make_decision(
 ) -> bool {
     let (vsids, mut ctx) = ctx.split_part_mut(VsidsP);
 
-    if let Some(decision_var) = vsids.find(|&var| ctx.part(AssignmentP).var_value(var).is_none()) {
+    // Changed by equicone: the heap holds only the decision scope's variables, if one is set.
+    let found = vsids.find(|&var| ctx.part(AssignmentP).var_value(var).is_none());
+    if let Some(decision_var) = found {
         let decision = decision_var.lit(ctx.part(AssignmentP).last_var_value(decision_var));
 
         ctx.part_mut(TrailP).new_decision_level();

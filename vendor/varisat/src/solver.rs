@@ -195,6 +195,24 @@ impl<'a> Solver<'a> {
         self.ctx.schedule.interrupt = flag;
     }
 
+    /// Limit decisions of later solves to `vars` (`None`: every variable). When every variable
+    /// of the scope is assigned without a conflict, `solve` answers `true` and the model holds
+    /// only the assigned variables; the caller must know that such an assignment extends to a
+    /// model of the whole formula. Added by equicone.
+    pub fn set_decision_scope(&mut self, vars: Option<&[Var]>) {
+        let mut ctx = self.ctx.into_partial_ref_mut();
+        let solver_vars: Option<Vec<Var>> = vars.map(|vars| {
+            let variables = ctx.part(VariablesP);
+            vars.iter()
+                .filter_map(|&user| {
+                    let global = variables.global_from_user().get(user)?;
+                    variables.solver_from_global().get(global)
+                })
+                .collect()
+        });
+        ctx.part_mut(VsidsP).set_scope(solver_vars.as_deref());
+    }
+
     /// Total conflicts over all calls so far. Added by equicone.
     pub fn conflicts(&self) -> u64 {
         self.ctx.schedule.conflicts()

@@ -25,6 +25,14 @@ pub struct Env {
 }
 
 impl Env {
+    /// The current value of bit `off` of net `n`, if assigned.
+    pub fn bit(&self, n: u32, off: usize) -> Option<Lit> {
+        match self.vars.get(&n)?.get(off)? {
+            BState::Set(l) => Some(*l),
+            BState::Unset(_) => None,
+        }
+    }
+
     /// Replace the bits of net `n` by their current values where assigned.
     pub fn overlay(&self, n: u32, bits: &mut [Lit]) {
         if let Some(v) = self.vars.get(&n) {
@@ -66,7 +74,7 @@ impl Elab<'_> {
         for (n, p) in latch {
             let nm = self.net_name(n);
             let line = p.line;
-            self.error_help(
+            self.error(
                 p,
                 format!("`{nm}` is not assigned on every path through the always block (the statement at line {line} has a path without an assignment); it would infer a latch"),
                 "assign it a default value at the top of the block, or add the missing `else`/`default`",
@@ -224,12 +232,13 @@ impl Elab<'_> {
         pos: Pos,
         procedural: bool,
     ) -> Option<u32> {
-        let nm = self.name(sym);
-        match self.lookup(sc, sym).cloned() {
-            Some(Symbol::Net(n)) => {
+        let nm = || self.name(sym);
+        match self.lookup(sc, sym) {
+            Some(&Symbol::Net(n)) => {
                 let ty = self.nets[n as usize].ty;
                 if procedural && ty == NetType::Wire {
-                    self.error_help(
+                    let nm = nm();
+                    self.error(
                         pos,
                         format!("procedural assignment to wire `{nm}`"),
                         "declare it `reg` to assign it in an always block",
@@ -237,7 +246,8 @@ impl Elab<'_> {
                     return None;
                 }
                 if !procedural && ty != NetType::Wire {
-                    self.error_help(
+                    let nm = nm();
+                    self.error(
                         pos,
                         format!("continuous assignment to variable `{nm}`"),
                         "declare it `wire`, or assign it in an always block",
@@ -247,14 +257,21 @@ impl Elab<'_> {
                 Some(n)
             }
             Some(_) => {
+                let nm = nm();
                 self.error(
                     pos,
                     format!("`{nm}` is not a net or variable and cannot be assigned"),
+                    "assign a net (`wire`) or a variable (`reg`); parameters and genvars are constants",
                 );
                 None
             }
             None => {
-                self.error(pos, format!("undeclared name `{nm}`"));
+                let nm = nm();
+                self.error(
+                    pos,
+                    format!("undeclared name `{nm}`"),
+                    "declare it (`wire`, `reg`, `input`, `output`, `parameter`) before this use, or check the spelling",
+                );
                 None
             }
         }
@@ -285,7 +302,11 @@ impl Elab<'_> {
                         match bits::to_i64(&v.bits, v.signed) {
                             Some(k) => vec![k],
                             None => {
-                                self.error(*p, "unsupported: variable index on the left of a continuous assignment");
+                                self.error(
+                                    *p,
+                                    "unsupported: variable index on the left of a continuous assignment",
+                                    "use a constant index, or assign the vector in an `always @*` block",
+                                );
                                 return None;
                             }
                         }
@@ -296,11 +317,16 @@ impl Elab<'_> {
                             self.error(
                                 *p,
                                 "part-select in the opposite direction to the declaration",
+                                "write the bounds in the declaration's order, e.g. `[7:4]` for `[7:0]`"
                             );
                             return None;
                         }
                         let Some(w) = super::span(m, l) else {
-                            self.error(*p, "part-select wider than 65536 bits");
+                            self.error(
+                                *p,
+                                "part-select wider than 65536 bits",
+                                "select at most the declared bits of the vector",
+                            );
                             return None;
                         };
                         let step = if l <= m { 1 } else { -1 };
@@ -312,6 +338,7 @@ impl Elab<'_> {
                             self.error(
                                 *p,
                                 "indexed part-select width must be a positive constant of at most 65536",
+                                "give the number of bits to select, e.g. `d[s +: 8]`"
                             );
                             return None;
                         }
@@ -319,7 +346,11 @@ impl Elab<'_> {
                         let b = match bits::to_i64(&v.bits, v.signed) {
                             Some(b) => b,
                             None => {
-                                self.error(*p, "unsupported: variable indexed part-select on the left of an assignment");
+                                self.error(
+                                    *p,
+                                    "unsupported: variable indexed part-select on the left of an assignment",
+                                    "use a constant base, or assign each possible window under an `if`/`case`",
+                                );
                                 return None;
                             }
                         };
@@ -355,6 +386,7 @@ impl Elab<'_> {
                 self.error(
                     other.pos(),
                     "not an assignable expression (expected a name, a select or a concatenation)",
+                    "assign a name, a bit or part-select of it, or a concatenation of those",
                 );
                 None
             }
@@ -383,7 +415,7 @@ impl Elab<'_> {
                 let hit = match l {
                     Expr::Num(n, p) if n.bits.iter().any(|&b| b != B0 && b != B1) => {
                         if !c.casez {
-                            self.error_help(
+                            self.error(
                                 *p,
                                 format!("unsupported: x/z bits in a `case` item (`{}`)", n.text),
                                 "use `casez` with `?` or `z` for don't-care bits",
@@ -405,7 +437,11 @@ impl Elab<'_> {
                                     B1 => eqs.push(sel[k]),
                                     super::super::lexer::BZ => {}
                                     _ => {
-                                        self.error(*p, format!("unsupported: x bits in a `casez` item (`{}`); use `?`", n.text));
+                                        self.error(
+                                            *p,
+                                            format!("unsupported: x bits in a `casez` item (`{}`); use `?`", n.text),
+                                            "write don't-care bits as `?` or `z` in `casez` items",
+                                        );
                                         break;
                                     }
                                 }
@@ -454,6 +490,7 @@ impl Elab<'_> {
                 self.error(
                     f.cond.pos(),
                     "for-loop condition is not constant; loop bounds must be constants",
+                    "bound the loop by constants or parameters, e.g. `for (i = 0; i < N; i = i + 1)`"
                 );
                 break;
             }
@@ -462,6 +499,7 @@ impl Elab<'_> {
                 self.error(
                     f.pos,
                     format!("for loop runs more than {} iterations", super::MAX_LOOP),
+                    "check the loop's condition and step; equicone unrolls at most 65536 iterations"
                 );
                 break;
             }

@@ -66,6 +66,7 @@ impl Elab<'_> {
             self.error(
                 e.pos(),
                 "expression is not constant (x/z bits or non-constant operands)",
+                "use only numbers, parameters, genvars and `$clog2` here",
             );
             return None;
         }
@@ -77,7 +78,11 @@ impl Elab<'_> {
         let v = self.const_val(sc, e)?;
         let r = bits::to_i64(&v.bits, v.signed);
         if r.is_none() {
-            self.error(e.pos(), "constant does not fit in 64 bits");
+            self.error(
+                e.pos(),
+                "constant does not fit in 64 bits",
+                "use a smaller value (constants that index, size or count must fit in 64 bits)",
+            );
         }
         r
     }
@@ -103,7 +108,11 @@ impl Elab<'_> {
             Some(Symbol::Net(n)) => {
                 if cx.constant {
                     let nm = self.name(s);
-                    self.error(pos, format!("`{nm}` is not a constant (only parameters and genvars may appear here)"));
+                    self.error(
+                        pos,
+                        format!("`{nm}` is not a constant (only parameters and genvars may appear here)"),
+                        "use a `parameter` or `localparam` here, or a literal number",
+                    );
                     return None;
                 }
                 let net = &self.nets[n as usize];
@@ -123,18 +132,26 @@ impl Elab<'_> {
                 Some(Operand { val, msb, lsb })
             }
             Some(Symbol::Genvar(Some(v))) => Some(Operand {
-                val: v,
+                val: *v,
                 msb: 31,
                 lsb: 0,
             }),
             Some(Symbol::Genvar(None)) => {
                 let nm = self.name(s);
-                self.error(pos, format!("genvar `{nm}` used outside its generate loop"));
+                self.error(
+                    pos,
+                    format!("genvar `{nm}` used outside its generate loop"),
+                    "use a genvar only inside the generate `for` loop that it counts",
+                );
                 None
             }
             None => {
                 let nm = self.name(s);
-                self.error(pos, format!("undeclared name `{nm}`"));
+                self.error(
+                    pos,
+                    format!("undeclared name `{nm}`"),
+                    "declare it (`wire`, `reg`, `input`, `output`, `parameter`) before this use, or check the spelling",
+                );
                 None
             }
         }
@@ -170,6 +187,7 @@ impl Elab<'_> {
                 self.error(
                     pos,
                     format!("x/z bits in a constant expression (`{}`)", n.text),
+                    "use 0/1 digits in constants; `x` and `z` are allowed only in logic",
                 );
                 return out;
             }
@@ -246,14 +264,22 @@ impl Elab<'_> {
                 let count = match self.const_int(cx.sc, n) {
                     Some(c) if c >= 0 => c as usize,
                     Some(_) => {
-                        self.error(*pos, "negative replication count");
+                        self.error(
+                            *pos,
+                            "negative replication count",
+                            "give the replication a count of 0 or more, e.g. `{4{a}}`",
+                        );
                         0
                     }
                     None => 0,
                 };
                 let inner = self.concat(cx, items);
                 if count.saturating_mul(inner.len()) > super::MAX_WIDTH {
-                    self.error(*pos, "replication wider than 65536 bits");
+                    self.error(
+                        *pos,
+                        "replication wider than 65536 bits",
+                        "equicone reads values of at most 65536 bits; replicate fewer times",
+                    );
                     return vec![Lit::FALSE; w];
                 }
                 let mut v = Vec::with_capacity(count * inner.len());
@@ -290,7 +316,11 @@ impl Elab<'_> {
             let b = self.eval_self(cx, it);
             v.extend_from_slice(&b.bits);
             if v.len() > super::MAX_WIDTH {
-                self.error(it.pos(), "concatenation wider than 65536 bits");
+                self.error(
+                    it.pos(),
+                    "concatenation wider than 65536 bits",
+                    "equicone reads values of at most 65536 bits; split the concatenation",
+                );
                 v.truncate(super::MAX_WIDTH);
                 break;
             }
@@ -371,7 +401,7 @@ impl Elab<'_> {
                     let b = self.eval(cx, e, w, s);
                     if *op == BinOp::Mul && acc.len() > super::MAX_MUL_WIDTH {
                         // An array multiplier of w bits has about w * w / 2 gates.
-                        self.error_help(
+                        self.error(
                             *pos,
                             format!(
                                 "unsupported: multiplication {} bits wide (at most {} bits)",
@@ -431,6 +461,7 @@ impl Elab<'_> {
                         "unsupported: `{}` of non-constant or wider than 63-bit values",
                         op.text()
                     ),
+                    "`/` and `%` are read for constants only; compute the quotient with logic, or use a parameter"
                 );
                 return vec![Lit::FALSE; w];
             }

@@ -9,6 +9,7 @@
 mod always;
 mod bits;
 mod expr;
+mod instance;
 mod module;
 mod resolve;
 mod select;
@@ -91,7 +92,7 @@ impl Net {
 enum Symbol {
     Net(u32),
     Param(Box<(Val, i64, i64)>),
-    Genvar(Option<Val>),
+    Genvar(Option<Box<Val>>),
 }
 
 /// A name scope: a module instance or a generate block.
@@ -119,11 +120,13 @@ struct Driver {
     pos: Pos,
 }
 
-/// A gate primitive as written (for the netlist).
+/// A gate primitive as written (for the netlist); its inputs are
+/// `Elab::gate_ins[first..first + count]`.
 #[derive(Clone, Debug)]
 struct GateRec {
     kind: CellKind,
-    ins: Vec<Lit>,
+    count: u32,
+    first: u32,
     out: u32,
     pos: Pos,
 }
@@ -143,6 +146,7 @@ pub struct Elab<'a> {
     drivers: Vec<Option<Driver>>,
     scopes: Vec<Scope>,
     gates: Vec<GateRec>,
+    gate_ins: Vec<Lit>,
     errors: Vec<Diagnostic>,
     warnings: Vec<Diagnostic>,
     quiet: u32,
@@ -167,10 +171,34 @@ impl<'a> Elab<'a> {
             drivers: Vec::new(),
             scopes: Vec::new(),
             gates: Vec::new(),
+            gate_ins: Vec::new(),
             errors: Vec::new(),
             warnings: Vec::new(),
             quiet: 0,
             hier: Vec::new(),
+        }
+    }
+
+    /// The same state without the borrowed syntax tree, so that the tree can be freed
+    /// before the design is built.
+    fn detach<'n>(self, names: &'n Interner, files: &'n [Arc<str>]) -> Elab<'n> {
+        Elab {
+            names,
+            files,
+            modules: HashMap::new(),
+            module_list: Vec::new(),
+            g: self.g,
+            owner: self.owner,
+            unknowns: self.unknowns,
+            nets: self.nets,
+            drivers: self.drivers,
+            scopes: self.scopes,
+            gates: self.gates,
+            gate_ins: self.gate_ins,
+            errors: self.errors,
+            warnings: self.warnings,
+            quiet: self.quiet,
+            hier: self.hier,
         }
     }
 
@@ -183,15 +211,8 @@ impl<'a> Elab<'a> {
         SourcePos::new(&f, p.line, p.col)
     }
 
-    /// Record an error (unless inside a quiet width computation).
-    fn error(&mut self, p: Pos, msg: impl Into<String>) {
-        if self.quiet == 0 {
-            let d = Diagnostic::error(Some(self.spos(p)), msg);
-            self.errors.push(d);
-        }
-    }
-
-    fn error_help(&mut self, p: Pos, msg: impl Into<String>, help: impl Into<String>) {
+    /// Record an error and what to do about it (unless inside a quiet width computation).
+    fn error(&mut self, p: Pos, msg: impl Into<String>, help: impl Into<String>) {
         if self.quiet == 0 {
             let d = Diagnostic::error(Some(self.spos(p)), msg).with_help(help);
             self.errors.push(d);
@@ -256,6 +277,16 @@ impl<'a> Elab<'a> {
             }
             sc = scope.parent?;
         }
+    }
+
+    /// Room for `nets` more one-bit nets in scope `sc` and `gates` more gate primitives.
+    fn reserve(&mut self, sc: u32, nets: usize, gates: usize) {
+        self.nets.reserve(nets);
+        self.owner.reserve(nets);
+        self.drivers.reserve(nets);
+        self.scopes[sc as usize].syms.reserve(nets);
+        self.gates.reserve(gates);
+        self.gate_ins.reserve(2 * gates);
     }
 
     /// Create a net with fresh leaves.
@@ -329,7 +360,7 @@ impl<'a> Elab<'a> {
         if let Some(d) = self.drivers[leaf] {
             let first = self.spos(d.pos);
             let bn = self.bit_name(n, off);
-            self.error_help(
+            self.error(
                 pos,
                 format!("multiple drivers: `{bn}` is already driven at {first}"),
                 "drive each net bit from exactly one assignment, gate, port or always block",
@@ -345,19 +376,20 @@ impl<'a> Elab<'a> {
 pub fn elaborate(
     names: &Interner,
     files: &[Arc<str>],
-    mods: &[Module],
+    mods: Vec<Module>,
     top: Option<&str>,
 ) -> Result<Design, InputError> {
-    let mut e = Elab::new(names, files, mods);
+    let mut e = Elab::new(names, files, &mods);
     // Duplicate module names.
     let mut seen: HashMap<Sym, Pos> = HashMap::new();
-    for m in mods {
+    for m in &mods {
         if let Some(&p) = seen.get(&m.name) {
             let sp = e.spos(p);
             let n = e.name(m.name).to_string();
             e.error(
                 m.pos,
                 format!("module `{n}` is defined twice (first at {sp})"),
+                "rename one of the modules, or give the file that defines it only once",
             );
         } else {
             seen.insert(m.name, m.pos);
@@ -372,7 +404,11 @@ pub fn elaborate(
         }
     };
     let sc = module::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
-    let design = resolve::build(&mut e, top_mod, sc);
+    // The syntax tree is no longer needed: free it before the design is built.
+    let (top_name, top_ports) = (top_mod.name, top_mod.ports.clone());
+    let mut e = e.detach(names, files);
+    drop(mods);
+    let design = resolve::build(&mut e, top_name, &top_ports, sc);
     if !e.errors.is_empty() {
         return Err(InputError {
             diagnostics: e.errors,

@@ -1,6 +1,6 @@
-//! Module instances: parameters (with per-instance overrides), declarations, implicit nets,
-//! continuous assignments, gate primitives, sub-instances and their port connections, and
-//! generate loops and conditions. Sub-instances are flattened with hierarchical names.
+//! Module bodies: the top module's choice, parameters (with per-instance overrides),
+//! declarations, implicit nets, continuous assignments, gate primitives, and generate loops
+//! and conditions. Sub-instances are in `instance.rs`, flattened with hierarchical names.
 
 use super::super::ast::{
     Conns, Decl, Dir, Expr, GateKind, Instance, Item, Module, NetType, ParamDecl, Range,
@@ -49,7 +49,7 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
             line: 1,
             col: 1,
         };
-        e.error_help(
+        e.error(
             first,
             "no module found in the Verilog input",
             "a Verilog design needs at least one `module NAME(...); ... endmodule`",
@@ -87,7 +87,7 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
         1 => Some(cands[0]),
         0 => {
             let p = list.first().map_or(nopos, |m| m.pos);
-            e.error_help(
+            e.error(
                 p,
                 "no top module: every module is instantiated by another",
                 "a module cannot contain itself; remove the instance that closes the cycle",
@@ -97,7 +97,7 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
         _ => {
             let all: Vec<&str> = cands.iter().map(|m| names.name(m.name)).collect();
             let p = cands[1].pos;
-            e.error_help(
+            e.error(
                 p,
                 format!("several modules could be the top: {}", all.join(", ")),
                 "name the top module (`--ref-top` / `--cand-top` in `prove`)",
@@ -123,13 +123,18 @@ pub fn elab_instance<'a>(
     let sc = e.new_scope(None, prefix, idx);
     if e.hier.contains(&m.name) {
         let n = e.name(m.name);
-        e.error(pos, format!("recursive instantiation of module `{n}`"));
+        e.error(
+            pos,
+            format!("recursive instantiation of module `{n}`"),
+            "a module cannot contain itself, directly or through other modules; remove the instance",
+        );
         return sc;
     }
     if e.hier.len() >= super::MAX_HIER {
         e.error(
             pos,
             format!("instance hierarchy deeper than {} levels", super::MAX_HIER),
+            "flatten part of the hierarchy; equicone reads at most 64 levels of instances",
         );
         return sc;
     }
@@ -138,11 +143,17 @@ pub fn elab_instance<'a>(
     e.elab_items(sc, &m.items, m, Some(&mut ov), true);
     for (w, _, p) in ov {
         let mn = e.name(m.name);
-        let msg = match w {
-            Which::Named(s) => format!("module `{mn}` has no parameter `{}`", e.name(s)),
-            Which::Nth(k) => format!("module `{mn}` has fewer than {} parameters", k + 1),
+        let (msg, help) = match w {
+            Which::Named(s) => (
+                format!("module `{mn}` has no parameter `{}`", e.name(s)),
+                "override only parameters the module declares (not `localparam`); check the spelling",
+            ),
+            Which::Nth(k) => (
+                format!("module `{mn}` has fewer than {} parameters", k + 1),
+                "give no more overrides than the module has parameters, or override by name (`#(.N(8))`)",
+            ),
         };
-        e.error(p, msg);
+        e.error(p, msg, help);
     }
     e.hier.pop();
     sc
@@ -162,7 +173,7 @@ impl<'a> Elab<'a> {
         let l = self.const_int(sc, &r.lsb)?;
         for (v, e) in [(m, &r.msb), (l, &r.lsb)] {
             if i32::try_from(v).is_err() {
-                self.error_help(
+                self.error(
                     e.pos(),
                     format!("range bound {v} is outside the 32-bit integers"),
                     "Verilog range bounds are integers (32 bits, signed); use smaller indices",
@@ -171,7 +182,7 @@ impl<'a> Elab<'a> {
             }
         }
         if super::span(m, l).is_none() {
-            self.error_help(
+            self.error(
                 r.msb.pos(),
                 "range wider than 65536 bits",
                 "equicone reads vectors of at most 65536 bits; split the vector",
@@ -245,7 +256,11 @@ impl<'a> Elab<'a> {
             };
             if self.scopes[sc as usize].syms.contains_key(name) {
                 let n = self.name(*name);
-                self.error(*pos, format!("`{n}` is declared twice"));
+                self.error(
+                    *pos,
+                    format!("`{n}` is declared twice"),
+                    "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)",
+                );
                 continue;
             }
             self.scopes[sc as usize]
@@ -263,6 +278,16 @@ impl<'a> Elab<'a> {
         mut overrides: Option<&mut Vec<(Which, Val, Pos)>>,
         is_module: bool,
     ) {
+        // Room for the nets and gates of the items (a flat netlist has a million of each).
+        let (mut nnets, mut ngates) = (0, 0);
+        for it in items {
+            match it {
+                Item::Decl(d) => nnets += d.names.len(),
+                Item::Gate(..) => ngates += 1,
+                _ => {}
+            }
+        }
+        self.reserve(sc, nnets, ngates);
         // A: parameters and genvars, in order.
         let mut nth = 0;
         for it in items {
@@ -279,8 +304,9 @@ impl<'a> Elab<'a> {
             }
         }
         // B: declarations, merged per name (`output y; reg y;`).
-        let mut order: Vec<Sym> = Vec::new();
+        let mut order: Vec<Sym> = Vec::with_capacity(nnets);
         let mut merged: super::super::fasthash::FastMap<Sym, Merged> = Default::default();
+        merged.reserve(nnets);
         let mut inits: Vec<(Sym, Pos, &Expr)> = Vec::new();
         for it in items {
             if let Item::Decl(d) = it {
@@ -305,6 +331,7 @@ impl<'a> Elab<'a> {
                 self.error(
                     md.pos,
                     format!("`{n}` is declared as a port but is not in the module's port list"),
+                    "add it to the port list in the module header, or declare it `wire`",
                 );
             }
             let signed = md.signed || md.ty == Some(NetType::Integer);
@@ -323,22 +350,25 @@ impl<'a> Elab<'a> {
         // C: implicit one-bit wires for names first seen in a port, gate terminal or on the
         // left of a continuous assignment.
         if !m.nettype_none {
-            for it in items {
-                let exprs: Vec<&Expr> = match it {
-                    Item::Gate(_, _, t, _) => t.iter().collect(),
-                    Item::Assign(a, _) => vec![&a.0],
-                    Item::Inst(i) => match &i.conns {
-                        Conns::Named(v) => v.iter().filter_map(|c| c.2.as_ref()).collect(),
-                        Conns::Ordered(v) => v.iter().flatten().collect(),
-                    },
-                    _ => Vec::new(),
-                };
-                for ex in exprs {
-                    if let Expr::Ident(s, p) = ex {
-                        if self.lookup(sc, *s).is_none() {
-                            self.add_net(sc, *s, 0, 0, false, false, NetType::Wire, None, *p);
-                        }
+            let implicit = |e: &mut Self, ex: &Expr| {
+                if let Expr::Ident(s, p) = ex {
+                    if e.lookup(sc, *s).is_none() {
+                        e.add_net(sc, *s, 0, 0, false, false, NetType::Wire, None, *p);
                     }
+                }
+            };
+            for it in items {
+                match it {
+                    Item::Gate(_, t, _) => t.iter().for_each(|ex| implicit(self, ex)),
+                    Item::Assign(a, _) => implicit(self, &a.0),
+                    Item::Inst(i) => match &i.conns {
+                        Conns::Named(v) => v
+                            .iter()
+                            .filter_map(|c| c.2.as_ref())
+                            .for_each(|ex| implicit(self, ex)),
+                        Conns::Ordered(v) => v.iter().flatten().for_each(|ex| implicit(self, ex)),
+                    },
+                    _ => {}
                 }
             }
         }
@@ -350,7 +380,7 @@ impl<'a> Elab<'a> {
         for it in items {
             match it {
                 Item::Assign(a, p) => self.cont_assign(sc, &a.0, &a.1, *p),
-                Item::Gate(k, _, t, p) => self.gate(sc, *k, t, *p),
+                Item::Gate(k, t, p) => self.gate(sc, *k, t, *p),
                 Item::Inst(i) => self.instance(sc, i),
                 Item::Always(b, p) => self.elab_always(sc, b, *p),
                 Item::GenFor(g) => {
@@ -387,7 +417,11 @@ impl<'a> Elab<'a> {
             }
             if self.scopes[sc as usize].syms.contains_key(s) {
                 let n = self.name(*s);
-                self.error(*p, format!("`{n}` is declared twice"));
+                self.error(
+                    *p,
+                    format!("`{n}` is declared twice"),
+                    "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)",
+                );
                 continue;
             }
             match merged.get_mut(s) {
@@ -409,7 +443,11 @@ impl<'a> Elab<'a> {
                     let clash = (md.dir.is_some() && d.dir.is_some())
                         || (md.ty.is_some() && d.ty.is_some());
                     if clash {
-                        self.error(*p, format!("`{n}` is declared twice"));
+                        self.error(
+                            *p,
+                            format!("`{n}` is declared twice"),
+                            "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)",
+                        );
                         continue;
                     }
                     if let (Some(a), Some(b)) = (md.range, d.range.as_ref()) {
@@ -419,6 +457,7 @@ impl<'a> Elab<'a> {
                             self.error(
                                 *p,
                                 format!("`{n}` is declared again with a different range"),
+                                "give both declarations of the name the same range",
                             );
                         }
                     }
@@ -453,6 +492,7 @@ impl<'a> Elab<'a> {
             self.error(
                 pos,
                 "a gate needs an output and at least one input terminal",
+                "write the output terminal first, then the inputs, e.g. `and g1 (y, a, b);`",
             );
             return;
         }
@@ -463,20 +503,18 @@ impl<'a> Elab<'a> {
         let cx = Cx::new(sc);
         let mut lits = Vec::with_capacity(ins.len());
         for t in ins {
-            // Plain net names (the common case in netlists) skip the width computation.
-            let v = match t {
-                Expr::Ident(s, _) => match self.lookup(sc, *s) {
-                    Some(Symbol::Net(n)) => {
-                        let n = *n;
-                        Val {
-                            bits: self.net_bits(n),
-                            signed: false,
-                        }
+            // Plain one-bit net names (the common case in netlists) skip the width
+            // computation and the bit vector.
+            if let Expr::Ident(s, _) = t {
+                if let Some(Symbol::Net(n)) = self.lookup(sc, *s) {
+                    let net = &self.nets[*n as usize];
+                    if net.width == 1 {
+                        lits.push(self.g.input_lit(net.first as usize));
+                        continue;
                     }
-                    _ => self.eval_self(&cx, t),
-                },
-                _ => self.eval_self(&cx, t),
-            };
+                }
+            }
+            let v = self.eval_self(&cx, t);
             if v.bits.len() != 1 {
                 self.error(
                     t.pos(),
@@ -484,6 +522,7 @@ impl<'a> Elab<'a> {
                         "gate terminal is {} bits wide; gate terminals must be 1 bit",
                         v.bits.len()
                     ),
+                    "connect a one-bit net or a bit-select such as `a[3]`",
                 );
             }
             lits.push(v.bits.first().copied().unwrap_or(Lit::FALSE));
@@ -499,166 +538,43 @@ impl<'a> Elab<'a> {
             GateKind::Not => (CellKind::Not, !lits[0]),
             GateKind::Buf => (CellKind::Buf, lits[0]),
         };
+        let mut shared = None;
         for o in outs {
-            let t = match self.targets(&cx, o, false) {
-                Some(t) => t,
-                None => continue,
+            // A plain name needs no target list.
+            let (t, width) = match o {
+                Expr::Ident(s, p) => match self.target_net(sc, *s, *p, false) {
+                    Some(n) => ((n, Some(0)), self.nets[n as usize].width as usize),
+                    None => continue,
+                },
+                _ => match self.targets(&cx, o, false) {
+                    Some(t) => (t.first().copied().unwrap_or((0, None)), t.len()),
+                    None => continue,
+                },
             };
-            if t.len() != 1 {
+            if width != 1 {
                 self.error(
                     o.pos(),
                     format!(
-                        "gate output terminal is {} bits wide; gate terminals must be 1 bit",
-                        t.len()
+                        "gate output terminal is {width} bits wide; gate terminals must be 1 bit"
                     ),
+                    "connect a one-bit net or a bit-select such as `y[3]`",
                 );
                 continue;
             }
-            if let (n, Some(off)) = t[0] {
+            if let (n, Some(off)) = t {
                 self.drive(n, off, out, pos);
                 let leaf = self.nets[n as usize].first + off;
+                if shared.is_none() {
+                    shared = Some(self.gate_ins.len() as u32);
+                    self.gate_ins.extend_from_slice(&lits);
+                }
                 self.gates.push(GateRec {
                     kind: cell,
-                    ins: lits.clone(),
+                    count: lits.len() as u32,
+                    first: shared.unwrap_or(0),
                     out: leaf,
                     pos,
                 });
-            }
-        }
-    }
-
-    fn instance(&mut self, sc: u32, inst: &'a Instance) {
-        let m = match self.modules.get(&inst.module) {
-            Some(m) => *m,
-            None => {
-                let n = self.name(inst.module);
-                self.error_help(
-                    inst.pos,
-                    format!("unknown module `{n}`"),
-                    "give the file that defines it on the command line",
-                );
-                return;
-            }
-        };
-        let mname = self.name(m.name);
-        let iname = self.name(inst.name);
-        let mut overrides = Vec::new();
-        match &inst.params {
-            Some(Conns::Named(v)) => {
-                for (s, p, ex) in v {
-                    if let Some(ex) = ex {
-                        if let Some(val) = self.const_val(sc, ex) {
-                            overrides.push((Which::Named(*s), val, *p));
-                        }
-                    }
-                }
-            }
-            Some(Conns::Ordered(v)) => {
-                for (k, ex) in v.iter().enumerate() {
-                    if let Some(ex) = ex {
-                        if let Some(val) = self.const_val(sc, ex) {
-                            overrides.push((Which::Nth(k), val, ex.pos()));
-                        }
-                    }
-                }
-            }
-            None => {}
-        }
-        let prefix = format!("{}{}.", self.scopes[sc as usize].prefix, iname);
-        let child = elab_instance(self, m, prefix, overrides, inst.pos);
-        // Connections by port index.
-        let mut conn: Vec<Option<&Expr>> = vec![None; m.ports.len()];
-        let mut seen = vec![false; m.ports.len()];
-        match &inst.conns {
-            Conns::Named(v) => {
-                for (s, p, ex) in v {
-                    match m.ports.iter().position(|q| q.0 == *s) {
-                        Some(k) => {
-                            if seen[k] {
-                                self.error(
-                                    *p,
-                                    format!("port `{}` is connected twice", self.name(*s)),
-                                );
-                            }
-                            seen[k] = true;
-                            conn[k] = ex.as_ref();
-                        }
-                        None => self.error(
-                            *p,
-                            format!("module `{mname}` has no port `{}`", self.name(*s)),
-                        ),
-                    }
-                }
-            }
-            Conns::Ordered(v) => {
-                if v.len() > m.ports.len() && !(v.len() == 1 && v[0].is_none()) {
-                    self.error(inst.pos, format!("instance `{iname}` has {} connections but module `{mname}` has {} ports", v.len(), m.ports.len()));
-                }
-                for (k, ex) in v.iter().enumerate().take(m.ports.len()) {
-                    conn[k] = ex.as_ref();
-                    seen[k] = true;
-                }
-            }
-        }
-        let cx = Cx::new(sc);
-        for (k, (ps, _)) in m.ports.iter().enumerate() {
-            let pn = self.name(*ps);
-            let n = match self.scopes[child as usize].syms.get(ps) {
-                Some(Symbol::Net(n)) => *n,
-                _ => {
-                    self.error(
-                        inst.pos,
-                        format!("port `{pn}` of module `{mname}` has no declaration"),
-                    );
-                    continue;
-                }
-            };
-            let net = self.nets[n as usize].clone();
-            let ex = match conn[k] {
-                Some(ex) => ex,
-                None => {
-                    if net.dir == Some(Dir::Input) {
-                        self.warn(
-                            inst.pos,
-                            format!("input port `{pn}` of instance `{iname}` is not connected"),
-                        );
-                    }
-                    continue;
-                }
-            };
-            let pw = net.width as usize;
-            match net.dir {
-                Some(Dir::Input) => {
-                    let t = self.ty(&cx, ex);
-                    let v = self.eval(&cx, ex, pw.max(t.w), t.s);
-                    if t.w != pw {
-                        self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected expression is {} bits", t.w));
-                    }
-                    for (off, &l) in v.iter().enumerate().take(pw) {
-                        self.drive(n, off as u32, l, ex.pos());
-                    }
-                }
-                Some(Dir::Output) => {
-                    let t = match self.targets(&cx, ex, false) {
-                        Some(t) => t,
-                        None => continue,
-                    };
-                    if t.len() != pw {
-                        self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected net is {} bits", t.len()));
-                    }
-                    let v = extend(self.net_bits(n), t.len().max(pw), net.signed);
-                    for (j, (tn, off)) in t.into_iter().enumerate() {
-                        if let Some(off) = off {
-                            self.drive(tn, off, v[j], ex.pos());
-                        }
-                    }
-                }
-                None => self.error(
-                    net.pos,
-                    format!(
-                        "port `{pn}` of module `{mname}` has no `input` or `output` declaration"
-                    ),
-                ),
             }
         }
     }
@@ -670,6 +586,7 @@ impl<'a> Elab<'a> {
             self.error(
                 g.init.1,
                 format!("loop variable `{n}` of a generate loop must be declared `genvar`"),
+                format!("declare it first: `genvar {n};`"),
             );
             return;
         }
@@ -691,7 +608,7 @@ impl<'a> Elab<'a> {
             };
             self.scopes[child as usize]
                 .syms
-                .insert(var, Symbol::Genvar(Some(gv)));
+                .insert(var, Symbol::Genvar(Some(Box::new(gv))));
             let c = match self.const_val(child, &g.cond) {
                 Some(c) => c.bits.contains(&Lit::TRUE),
                 None => return,
@@ -707,6 +624,7 @@ impl<'a> Elab<'a> {
                         "generate loop runs more than {} iterations",
                         super::MAX_LOOP
                     ),
+                    "check the loop's condition and step; equicone unrolls at most 65536 iterations"
                 );
                 return;
             }

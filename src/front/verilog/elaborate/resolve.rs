@@ -3,7 +3,9 @@
 //! creates unknown-value inputs on first use, reports undriven nets and combinational
 //! loops, and derives the gate-level netlist.
 
-use super::super::ast::{Dir, Module};
+use super::super::ast::Dir;
+use super::super::lexer::Pos;
+use super::super::symbols::Sym;
 use super::{Elab, Symbol, UNKNOWN_BIT};
 use crate::aig::{Aig, Lit, Node};
 use crate::design::{bit_name, Cell, Design, Format, InputBit, InputKind, Netlist, OutputBit};
@@ -127,8 +129,11 @@ impl Elab<'_> {
         };
         let msg = format!("combinational loop through {shown}");
         match pos {
-            Some(p) => self.error_help(p, msg, "break the loop: a net must not depend on itself"),
-            None => self.errors.push(crate::diag::Diagnostic::error(None, msg)),
+            Some(p) => self.error(p, msg, "break the loop: a net must not depend on itself"),
+            None => self.errors.push(
+                crate::diag::Diagnostic::error(None, msg)
+                    .with_help("break the loop: a net must not depend on itself"),
+            ),
         }
     }
 
@@ -163,7 +168,7 @@ impl Elab<'_> {
 }
 
 /// Build the design of top module `m` (elaborated in scope `sc`).
-pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
+pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
     let mut r = Resolver {
         f: Aig::new(),
         memo: Vec::new(),
@@ -174,12 +179,16 @@ pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
         undriven: BTreeSet::new(),
     };
     let mut outs: Vec<u32> = Vec::new();
-    for (ps, ppos) in &m.ports {
+    for (ps, ppos) in ports {
         let n = match e.scopes[sc as usize].syms.get(ps) {
             Some(Symbol::Net(n)) => *n,
             _ => {
                 let pn = e.name(*ps);
-                e.error(*ppos, format!("port `{pn}` has no declaration"));
+                e.error(
+                    *ppos,
+                    format!("port `{pn}` has no declaration"),
+                    "declare the port `input` or `output` inside the module",
+                );
                 continue;
             }
         };
@@ -193,6 +202,7 @@ pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
                         e.error(
                             d.pos,
                             format!("input port `{pn}` is driven inside the module"),
+                            "drive an internal wire instead; an input port gets its value from outside"
                         );
                     }
                     let lit = r.f.add_input();
@@ -210,6 +220,7 @@ pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
                 e.error(
                     *ppos,
                     format!("port `{pn}` has no `input` or `output` declaration"),
+                    "declare the port `input` or `output` inside the module",
                 );
             }
         }
@@ -232,7 +243,7 @@ pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
             outputs.push(OutputBit::new(&pn, idx, lit, Some(e.spos(net.pos))));
         }
         if undriven {
-            e.error_help(
+            e.error(
                 net.pos,
                 format!("output `{pn}` is not driven (some or all of its bits)"),
                 "assign every bit of the output",
@@ -245,21 +256,21 @@ pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
         let nm = e.net_name(n);
         let (pos, inport) = (net.pos, net.dir == Some(Dir::Input) && net.scope != sc);
         if inport {
-            e.error_help(
+            e.error(
                 pos,
                 format!("input port `{nm}` is not connected but its value is used"),
                 "connect the port in the instance",
             );
         } else {
-            e.error_help(
+            e.error(
                 pos,
                 format!("`{nm}` is used but never driven (some or all of its bits)"),
                 "assign it, or connect it to a driver",
             );
         }
     }
-    let netlist = netlist(e, &r, &outputs_leaves(e, m, sc));
-    let name = e.name(m.name).to_string();
+    let netlist = netlist(e, &r, &outputs_leaves(e, ports, sc));
+    let name = e.name(top).to_string();
     let d = Design {
         name,
         format: Format::Verilog,
@@ -275,9 +286,9 @@ pub fn build(e: &mut Elab, m: &Module, sc: u32) -> Design {
     d
 }
 
-fn outputs_leaves(e: &Elab, m: &Module, sc: u32) -> Vec<u32> {
+fn outputs_leaves(e: &Elab, ports: &[(Sym, Pos)], sc: u32) -> Vec<u32> {
     let mut v = Vec::new();
-    for (ps, _) in &m.ports {
+    for (ps, _) in ports {
         if let Some(Symbol::Net(n)) = e.scopes[sc as usize].syms.get(ps) {
             let net = &e.nets[*n as usize];
             if net.dir == Some(Dir::Output) {
@@ -305,27 +316,44 @@ fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
             _ => None,
         }
     };
-    let rep = |mut k: u32| -> u32 {
-        for _ in 0..nleaves {
-            if gate_out[k as usize] {
-                return k;
+    // The representative of a leaf: the first gate output or undriven leaf found by
+    // following plain connections (memoized, so a long chain of `assign a = b;` is walked
+    // once; a loop of plain connections, already reported, stops where it closes).
+    let mut rep_of: Vec<u32> = vec![NONE; nleaves];
+    let mut path: Vec<u32> = Vec::new();
+    let mut rep = |k: u32| -> u32 {
+        let mut cur = k;
+        let found = loop {
+            if rep_of[cur as usize] != NONE {
+                break rep_of[cur as usize];
             }
-            match e.drivers[k as usize].and_then(|d| as_leaf(d.lit)) {
-                Some(next) if next != k => k = next,
-                _ => return k,
+            if gate_out[cur as usize] {
+                break cur;
             }
+            path.push(cur);
+            // Marks the leaf as on the current path: a loop ends the walk there.
+            rep_of[cur as usize] = cur;
+            match e.drivers[cur as usize].and_then(|d| as_leaf(d.lit)) {
+                Some(next) => cur = next,
+                _ => break cur,
+            }
+        };
+        for p in path.drain(..) {
+            rep_of[p as usize] = found;
         }
-        k
+        found
     };
     let mut complete = r.inputs.iter().all(|b| !b.is_unknown());
-    let mut sig: HashMap<u32, u32> = HashMap::new();
+    let mut sig: Vec<u32> = vec![NONE; nleaves];
     let mut nl = Netlist::default();
+    nl.cells.reserve(e.gates.len());
     let mut signal = |k: u32, nl: &mut Netlist| -> u32 {
-        let k = rep(k);
-        *sig.entry(k).or_insert_with(|| {
-            nl.signals.push(e.leaf_name(k));
-            (nl.signals.len() - 1) as u32
-        })
+        let k = rep(k) as usize;
+        if sig[k] == NONE {
+            nl.signals.push(e.leaf_name(k as u32));
+            sig[k] = (nl.signals.len() - 1) as u32;
+        }
+        sig[k]
     };
     for &k in r.primary.keys().collect::<BTreeSet<_>>() {
         let s = signal(k, &mut nl);
@@ -336,7 +364,8 @@ fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
         nl.outputs.push(s);
     }
     for gr in &e.gates {
-        let ins: Option<Vec<u32>> = gr.ins.iter().map(|&l| as_leaf(l)).collect();
+        let ins = &e.gate_ins[gr.first as usize..(gr.first + gr.count) as usize];
+        let ins: Option<Vec<u32>> = ins.iter().map(|&l| as_leaf(l)).collect();
         match ins {
             Some(ins) => {
                 let inputs = ins.into_iter().map(|k| signal(k, &mut nl)).collect();

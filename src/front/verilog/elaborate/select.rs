@@ -5,8 +5,21 @@ use super::super::ast::Select;
 use super::super::lexer::Pos;
 use super::bits::{self, extend};
 use super::expr::Cx;
-use super::Elab;
+use super::{Elab, Symbol};
 use crate::aig::Lit;
+
+/// A named operand of a select whose bits are fetched on demand.
+pub(super) struct LazyOperand {
+    /// A net (its bits are its leaves, or an always block's current values), or the
+    /// value of a parameter or genvar.
+    src: Result<u32, Vec<Lit>>,
+    /// Number of bits.
+    width: usize,
+    /// Declared left index.
+    msb: i64,
+    /// Declared right index.
+    lsb: i64,
+}
 
 impl Elab<'_> {
     /// Offsets (0 = least significant bit) of declared index `i` for range `msb:lsb`.
@@ -34,13 +47,14 @@ impl Elab<'_> {
                 &super::super::ast::Expr::Index(sym, pos, Box::new(sel.clone())),
             )
             .w;
-        let o = match self.operand(cx, sym, pos) {
+        // A net's bits are fetched only where the select reads them: a vector driven bit
+        // by bit (`assign v[k] = ...;` for every k) then reads in linear time.
+        let o = match self.operand_lazy(cx, sym, pos) {
             Some(o) => o,
             None => return vec![Lit::FALSE; width_hint],
         };
-        let data = o.val.bits;
         let (msb, lsb) = (o.msb, o.lsb);
-        let n = data.len() as i64;
+        let n = o.width as i64;
         let desc = msb >= lsb;
         let nm = self.name(sym);
         match sel {
@@ -50,11 +64,15 @@ impl Elab<'_> {
                     _ => return vec![Lit::FALSE; width_hint],
                 };
                 if (m > l) != desc && m != l && n > 1 {
-                    self.error(pos, format!("part-select `{nm}[{m}:{l}]` is in the opposite direction to the declaration `[{msb}:{lsb}]`"));
+                    self.error(
+                        pos,
+                        format!("part-select `{nm}[{m}:{l}]` is in the opposite direction to the declaration `[{msb}:{lsb}]`"),
+                        "write the bounds in the declaration's order, e.g. `[7:4]` for `[7:0]`",
+                    );
                     return vec![Lit::FALSE; width_hint];
                 }
                 let Some(w) = super::span(m, l) else {
-                    self.error_help(
+                    self.error(
                         pos,
                         format!("part-select `{nm}[{m}:{l}]` is wider than 65536 bits"),
                         "select at most the declared bits of the vector",
@@ -63,21 +81,26 @@ impl Elab<'_> {
                 };
                 let base = Self::off_of(msb, lsb, l).min(Self::off_of(msb, lsb, m));
                 let what = format!("out-of-range part-select {nm}[{m}:{l}]");
-                self.const_window(cx, &data, base, w, pos, &what)
+                self.const_window(cx, &o, base, w, pos, &what)
             }
             Select::Bit(i) => {
                 let iv = self.eval_self(cx, i);
                 if let Some(k) = bits::to_i64(&iv.bits, iv.signed) {
                     let what = format!("out-of-range bit-select {nm}[{k}]");
-                    return self.const_window(cx, &data, Self::off_of(msb, lsb, k), 1, pos, &what);
+                    return self.const_window(cx, &o, Self::off_of(msb, lsb, k), 1, pos, &what);
                 }
                 if cx.constant {
-                    self.error(pos, "select index is not constant");
+                    self.error(
+                        pos,
+                        "select index is not constant",
+                        "use a constant index here (a parameter, genvar or number)",
+                    );
                     return vec![Lit::FALSE];
                 }
                 // Offset = i - lsb (descending) or lsb - i (ascending), computed exactly.
                 let off = self.offset_vec(&iv.bits, iv.signed, if desc { -lsb } else { lsb }, desc);
                 let what = format!("out-of-range bit-select {nm}[...]");
+                let data = self.lazy_bits(cx, &o, 0, o.width);
                 self.dyn_window(cx, &data, &off, 1, pos, &what)
             }
             Select::Up(b, wd) | Select::Down(b, wd) => {
@@ -85,7 +108,7 @@ impl Elab<'_> {
                 let w = match self.const_int(cx.sc, wd) {
                     Some(w) if w > 0 && w as usize <= super::MAX_WIDTH => w,
                     Some(_) => {
-                        self.error_help(
+                        self.error(
                             wd.pos(),
                             "indexed part-select width must be a positive constant of at most 65536",
                             "give the number of bits to select, e.g. `d[s +: 8]`",
@@ -113,28 +136,73 @@ impl Elab<'_> {
                     } else {
                         k.saturating_sub(bc)
                     };
-                    return self.const_window(cx, &data, base, w as usize, pos, &what);
+                    return self.const_window(cx, &o, base, w as usize, pos, &what);
                 }
                 if cx.constant {
-                    self.error(pos, "select index is not constant");
+                    self.error(
+                        pos,
+                        "select index is not constant",
+                        "use a constant index here (a parameter, genvar or number)",
+                    );
                     return vec![Lit::FALSE; w as usize];
                 }
-                if w as usize > data.len() {
+                if w as usize > o.width {
                     // Each bit is a selector over the vector plus a range check: a window wider
                     // than the vector costs much and reads only unknowns beyond it.
-                    self.error_help(
+                    self.error(
                         pos,
                         format!(
                             "unsupported: variable part-select of {w} bits from the {}-bit `{nm}`",
-                            data.len()
+                            o.width
                         ),
                         "select at most as many bits as the vector has",
                     );
                     return vec![Lit::FALSE; w as usize];
                 }
                 let off = self.offset_vec(&bv.bits, bv.signed, k, desc);
+                let data = self.lazy_bits(cx, &o, 0, o.width);
                 self.dyn_window(cx, &data, &off, w as usize, pos, &what)
             }
+        }
+    }
+
+    /// The operand of a select: a net without its bits, anything else as
+    /// [`Elab::operand`] gives it.
+    fn operand_lazy(&mut self, cx: &Cx, sym: super::Sym, pos: Pos) -> Option<LazyOperand> {
+        if !cx.constant {
+            if let Some(Symbol::Net(n)) = self.lookup(cx.sc, sym) {
+                let net = &self.nets[*n as usize];
+                return Some(LazyOperand {
+                    src: Ok(*n),
+                    width: net.width as usize,
+                    msb: net.msb,
+                    lsb: net.lsb,
+                });
+            }
+        }
+        let o = self.operand(cx, sym, pos)?;
+        Some(LazyOperand {
+            width: o.val.bits.len(),
+            src: Err(o.val.bits),
+            msb: o.msb,
+            lsb: o.lsb,
+        })
+    }
+
+    /// Bits `lo..hi` (offsets, least significant first) of operand `o`.
+    fn lazy_bits(&self, cx: &Cx, o: &LazyOperand, lo: usize, hi: usize) -> Vec<Lit> {
+        match &o.src {
+            Ok(n) => {
+                let first = self.nets[*n as usize].first as usize;
+                (lo..hi)
+                    .map(|k| {
+                        cx.env
+                            .and_then(|env| env.bit(*n, k))
+                            .unwrap_or_else(|| self.g.input_lit(first + k))
+                    })
+                    .collect()
+            }
+            Err(bits) => bits[lo..hi].to_vec(),
         }
     }
 
@@ -151,23 +219,33 @@ impl Elab<'_> {
         }
     }
 
-    /// `w` bits from offset `base` (constant); bits outside `data` are unknown.
+    /// `w` bits of operand `o` from offset `base` (constant); bits outside it are unknown.
     fn const_window(
         &mut self,
         cx: &Cx,
-        data: &[Lit],
+        o: &LazyOperand,
         base: i64,
         w: usize,
         pos: Pos,
         what: &str,
     ) -> Vec<Lit> {
+        // Only the bits in range are fetched: `data[k]` is bit `lo + k` of the operand.
+        let width = o.width as i64;
+        let lo = base.clamp(0, width);
+        let hi = base.saturating_add(w as i64).clamp(lo, width);
+        let data = self.lazy_bits(cx, o, lo as usize, hi as usize);
+        let base = base - lo;
         let n = data.len() as i64;
         let outside = (0..w as i64)
             .filter(|j| !(0..n).contains(&base.saturating_add(*j)))
             .count();
         let mut unk = if outside > 0 {
             if cx.constant {
-                self.error(pos, format!("{what} in a constant expression"));
+                self.error(
+                    pos,
+                    format!("{what} in a constant expression"),
+                    "keep constant selects within the declared range",
+                );
                 vec![Lit::FALSE; outside]
             } else {
                 self.unknown_bits(outside, pos, what, cx.sc)

@@ -89,6 +89,8 @@ pub struct Trail {
     decisions: Vec<LitIdx>,
     /// Number of unit clauses removed from the trail.
     units_removed: usize,
+    /// Added by equicone: `top_level_assignment_count` when the clauses were last simplified.
+    pub simplified_at: usize,
 }
 
 impl Trail {

@@ -11,7 +11,8 @@ use clap::Args;
 /// Limits and simulation seed shared by `cone` and `stats`.
 #[derive(Args, Debug, Clone)]
 pub struct AuditLimitArgs {
-    /// Stop after this many seconds; open claims are then undecided.
+    /// Stop after this many seconds, reading the design included; open claims are then
+    /// undecided.
     #[arg(long, value_name = "SECONDS")]
     timeout: Option<f64>,
     /// Conflicts allowed per SAT query; a query that needs more leaves its claim undecided.

@@ -138,7 +138,8 @@ pub struct ProveArgs {
     /// not depend on it.
     #[arg(long, short = 'j', value_name = "N")]
     jobs: Option<usize>,
-    /// Stop after this many seconds; open output pairs are then undecided.
+    /// Stop after this many seconds, reading the designs included; open output pairs are then
+    /// undecided.
     #[arg(long, value_name = "SECONDS")]
     timeout: Option<f64>,
     /// Conflicts allowed per SAT query; a query that needs more is undecided.

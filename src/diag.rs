@@ -132,16 +132,92 @@ impl From<Diagnostic> for InputError {
     }
 }
 
+/// How many diagnostics of one file the text form of an [`InputError`] shows; the rest are
+/// counted in one closing line per file (a Verilog file read as bench gives one error per
+/// line, thousands of them, where the first few already say what is wrong).
+pub const SHOWN_PER_FILE: usize = 20;
+
 impl fmt::Display for InputError {
+    /// Every diagnostic in order, but at most [`SHOWN_PER_FILE`] per file, then
+    /// `... and N more errors in FILE` for each file that had more. Diagnostics without a
+    /// position are always shown.
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        for (i, d) in self.diagnostics.iter().enumerate() {
-            if i > 0 {
+        // (file, shown, hidden), in the order the files first appear.
+        let mut per_file: Vec<(&str, usize, usize)> = Vec::new();
+        let mut first = true;
+        for d in &self.diagnostics {
+            if let Some(p) = &d.pos {
+                let k = match per_file.iter().position(|e| e.0 == &*p.file) {
+                    Some(k) => k,
+                    None => {
+                        per_file.push((&p.file, 0, 0));
+                        per_file.len() - 1
+                    }
+                };
+                if per_file[k].1 >= SHOWN_PER_FILE {
+                    per_file[k].2 += 1;
+                    continue;
+                }
+                per_file[k].1 += 1;
+            }
+            if !first {
                 writeln!(f)?;
             }
+            first = false;
             write!(f, "{d}")?;
+        }
+        for (file, _, hidden) in per_file {
+            if hidden > 0 {
+                let s = if hidden == 1 { "" } else { "s" };
+                write!(f, "\n... and {hidden} more error{s} in {file}")?;
+            }
         }
         Ok(())
     }
 }
 
 impl std::error::Error for InputError {}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn text_form_shows_at_most_twenty_errors_per_file() {
+        let (a, b): (Arc<str>, Arc<str>) = (Arc::from("a.bench"), Arc::from("b.v"));
+        let mut diagnostics = Vec::new();
+        for line in 1..=25 {
+            diagnostics.push(Diagnostic::error(Some(SourcePos::new(&a, line, 1)), "bad"));
+            if line <= 21 {
+                diagnostics.push(Diagnostic::error(
+                    Some(SourcePos::new(&b, line, 2)),
+                    "worse",
+                ));
+            }
+        }
+        diagnostics.push(Diagnostic::error(None, "no place"));
+        let text = InputError { diagnostics }.to_string();
+        let lines: Vec<&str> = text.lines().collect();
+        assert_eq!(lines.len(), 20 + 20 + 1 + 2, "{text}");
+        assert!(text.contains("a.bench:20:1: error: bad"), "{text}");
+        assert!(!text.contains("a.bench:21:1"), "{text}");
+        assert!(text.contains("b.v:20:2: error: worse"), "{text}");
+        assert!(!text.contains("b.v:21:2"), "{text}");
+        assert!(text.contains("error: no place"), "{text}");
+        assert_eq!(lines[41], "... and 5 more errors in a.bench");
+        assert_eq!(lines[42], "... and 1 more error in b.v");
+    }
+
+    #[test]
+    fn text_form_of_few_errors_is_complete() {
+        let f: Arc<str> = Arc::from("c.bench");
+        let e = InputError {
+            diagnostics: (1..=20)
+                .map(|l| Diagnostic::error(Some(SourcePos::new(&f, l, 1)), "x"))
+                .collect(),
+        };
+        let text = e.to_string();
+        assert_eq!(text.lines().count(), 20);
+        assert!(!text.contains("more error"));
+    }
+}

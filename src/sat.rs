@@ -78,6 +78,12 @@ impl Limits {
         self.flag.load(Ordering::Relaxed) || self.deadline.is_some_and(|d| Instant::now() >= d)
     }
 
+    /// The wall-clock budget left: `None` without a deadline, zero once it has passed.
+    pub fn remaining(&self) -> Option<Duration> {
+        self.deadline
+            .map(|d| d.saturating_duration_since(Instant::now()))
+    }
+
     /// The flag a timer raises at the deadline.
     pub fn flag(&self) -> Arc<AtomicBool> {
         self.flag.clone()

@@ -303,3 +303,53 @@ mod deep {
         assert_eq!(code(&o), 0, "{}", stderr(&o));
     }
 }
+
+mod timeouts {
+    use super::*;
+
+    /// The message of a run whose time limit ran out while reading (exit code 3).
+    fn stopped_reading(file: &str) -> String {
+        format!(
+            "undecided: the time limit ran out while reading `{file}`; nothing was checked\n  help: the --timeout covers reading the designs too; give a larger one\n"
+        )
+    }
+
+    /// `--timeout` covers reading: with a limit of one microsecond, a 300,000-gate bench file
+    /// (7 MB, several reads of the file) or a Verilog file is never read to the end, and
+    /// `prove`, `cone` and `stats` say so with exit code 3 and nothing on standard output.
+    /// Not timed: the limit has passed before the first look at it, whatever the machine.
+    #[test]
+    fn a_tiny_timeout_stops_reading() {
+        let d = scratch("timeout");
+        let mut t = String::from("INPUT(x)\nOUTPUT(q)\nq0 = NOT(x)\n");
+        for i in 1..300_000 {
+            t += &format!("q{i} = NOT(q{})\n", i - 1);
+        }
+        t += "q = BUFF(q299999)\n";
+        let big = d.join("big.bench");
+        std::fs::write(&big, t).unwrap();
+        let v = d.join("small.v");
+        std::fs::write(
+            &v,
+            "module m(input x, output q);\n  assign q = ~x;\nendmodule\n",
+        )
+        .unwrap();
+        let (big, v) = (big.to_str().unwrap(), v.to_str().unwrap());
+        let runs: [&[&str]; 5] = [
+            &["prove", big, big, "--timeout", "0.000001"],
+            &["prove", big, big, "--timeout", "0.000001", "--json"],
+            &["cone", big, "--timeout", "0.000001"],
+            &["stats", big, "--timeout", "0.000001"],
+            &["prove", v, big, "--timeout", "0.000001"],
+        ];
+        for args in runs {
+            let o = equicone(args);
+            assert_eq!(code(&o), 3, "{args:?}: {}", stderr(&o));
+            assert_eq!(stderr(&o), stopped_reading(args[1]), "{args:?}");
+            assert!(o.stdout.is_empty(), "{args:?}");
+        }
+        // A generous limit changes nothing.
+        let o = equicone(&["prove", big, big, "--timeout", "600"]);
+        assert_eq!(code(&o), 0, "{}", stderr(&o));
+    }
+}

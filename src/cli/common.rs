@@ -3,7 +3,8 @@
 use super::Exit;
 use crate::design::{Design, Format};
 use crate::diag::InputError;
-use crate::front::{self, Source};
+use crate::front::{self, ReadError, Source};
+use crate::sat::Limits;
 use clap::Args;
 use std::io::Write;
 use std::path::Path;
@@ -50,6 +51,14 @@ impl DesignArgs {
         paths.extend(self.also.iter().cloned());
         load(paths, self.format, self.top.clone())
     }
+
+    /// Read the design under `limits`: when its deadline passes while reading, the run is
+    /// undecided (exit code 3, message on standard error).
+    pub fn load_within(&self, limits: &Limits) -> Result<Design, Exit> {
+        let mut paths = vec![self.path.clone()];
+        paths.extend(self.also.iter().cloned());
+        load_within(paths, self.format, self.top.clone(), limits)
+    }
 }
 
 /// A `--timeout` value as a duration; a value that is not a positive number of seconds is a
@@ -79,6 +88,34 @@ pub fn load(
         top,
     };
     front::load(&src).map_err(|e| report_input_error(&e))
+}
+
+/// Read a design under `limits`, printing its errors on failure; when the deadline passes
+/// while reading, prints the undecided message and returns [`Exit::Undecided`].
+pub fn load_within(
+    paths: Vec<String>,
+    format: Option<FormatArg>,
+    top: Option<String>,
+    limits: &Limits,
+) -> Result<Design, Exit> {
+    let src = Source {
+        paths,
+        format: format.map(Format::from),
+        top,
+    };
+    match front::load_until(&src, &|| limits.expired()) {
+        Ok(d) => Ok(d),
+        Err(ReadError::Input(e)) => Err(report_input_error(&e)),
+        Err(ReadError::Stopped(file)) => Err(report_stopped_reading(&file)),
+    }
+}
+
+/// The message for a time limit reached while reading; returns the undecided exit code.
+pub fn report_stopped_reading(file: &str) -> Exit {
+    eprintln!(
+        "undecided: the time limit ran out while reading `{file}`; nothing was checked\n  help: the --timeout covers reading the designs too; give a larger one"
+    );
+    Exit::Undecided
 }
 
 /// Print input errors to standard error; returns the bad-input exit code.

@@ -11,7 +11,8 @@ use clap::Args;
 /// Limits and simulation seed shared by `cone` and `stats`.
 #[derive(Args, Debug, Clone)]
 pub struct AuditLimitArgs {
-    /// Stop after this many seconds; open claims are then undecided.
+    /// Stop after this many seconds, reading the design included; open claims are then
+    /// undecided.
     #[arg(long, value_name = "SECONDS")]
     timeout: Option<f64>,
     /// Conflicts allowed per SAT query; a query that needs more leaves its claim undecided.
@@ -64,12 +65,13 @@ pub struct ConeArgs {
 
 /// Run `cone`.
 pub fn run_cone(a: &ConeArgs) -> Exit {
-    let d = match a.design.load() {
-        Ok(d) => d,
-        Err(e) => return e,
-    };
+    // The clock starts before reading: --timeout covers the whole run.
     let limits = match a.limits.limits() {
         Ok(l) => l,
+        Err(e) => return e,
+    };
+    let d = match a.design.load_within(&limits) {
+        Ok(d) => d,
         Err(e) => return e,
     };
     let outputs = match cone::select_outputs(&d, &a.outputs) {
@@ -137,12 +139,13 @@ pub struct StatsArgs {
 
 /// Run `stats`.
 pub fn run_stats(a: &StatsArgs) -> Exit {
-    let d = match a.design.load() {
-        Ok(d) => d,
-        Err(e) => return e,
-    };
+    // The clock starts before reading: --timeout covers the whole run.
     let limits = match a.limits.limits() {
         Ok(l) => l,
+        Err(e) => return e,
+    };
+    let d = match a.design.load_within(&limits) {
+        Ok(d) => d,
         Err(e) => return e,
     };
     let model = match &a.cost_model {

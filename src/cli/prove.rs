@@ -1,7 +1,8 @@
 //! `equicone prove` and `equicone cnf`: read two designs, pair them, prove or export the miter.
 
 use super::common::{
-    print, report_input_error, report_internal, timeout_of, write_atomic, FormatArg,
+    print, report_input_error, report_internal, report_stopped_reading, timeout_of, write_atomic,
+    FormatArg,
 };
 use super::Exit;
 use crate::cnf::{dimacs, Tseitin};
@@ -10,7 +11,7 @@ use crate::design::Format;
 use crate::diag::InputError;
 use crate::diagnose;
 use crate::engine::{self, EngineKind, PairBy, ProveError, ProveOptions, Verdict};
-use crate::front::{self, Source};
+use crate::front::{self, ReadError, Source};
 use crate::report;
 use crate::sat::ClauseSink;
 use clap::Args;
@@ -56,7 +57,11 @@ pub struct PairArgs {
 }
 
 impl PairArgs {
-    fn load(&self) -> Result<(Design, Design), Exit> {
+    /// Read both designs at once, on two threads, each looking at `stop` while it reads.
+    fn read_pair(
+        &self,
+        stop: &(dyn Fn() -> bool + Sync),
+    ) -> (Result<Design, ReadError>, Result<Design, ReadError>) {
         let mut rp = vec![self.reference.clone()];
         rp.extend(self.ref_also.iter().cloned());
         let mut cp = vec![self.candidate.clone()];
@@ -68,21 +73,54 @@ impl PairArgs {
         };
         let rs = source(rp, self.ref_format.or(self.format), self.ref_top.clone());
         let cs = source(cp, self.cand_format.or(self.format), self.cand_top.clone());
-        // The two sides are read at once, on two threads; errors are printed reference first.
         let (r, c) = std::thread::scope(|s| {
-            let h = s.spawn(|| front::load(&rs));
-            let c = front::load(&cs);
+            let h = s.spawn(|| front::load_until(&rs, stop));
+            let c = front::load_until(&cs, stop);
             (h.join(), c)
         });
         let r = r.unwrap_or_else(|_| {
-            Err(InputError::plain(
+            Err(ReadError::Input(InputError::plain(
                 "internal error while reading the reference",
                 "please report this with the files that caused it",
-            ))
+            )))
         });
-        let r = r.map_err(|e| report_input_error(&e));
-        let c = c.map_err(|e| report_input_error(&e));
-        Ok((r?, c?))
+        (r, c)
+    }
+
+    /// Read both designs, printing their errors (reference first) on failure.
+    fn load(&self) -> Result<(Design, Design), Exit> {
+        self.load_within(&crate::sat::Limits::none())
+    }
+
+    /// [`PairArgs::load`] under `limits`: bad input on either side gives its errors and
+    /// [`Exit::BadInput`]; otherwise a deadline passing while either side is read gives the
+    /// undecided message (naming the reference when both stopped) and [`Exit::Undecided`].
+    fn load_within(&self, limits: &crate::sat::Limits) -> Result<(Design, Design), Exit> {
+        let (r, c) = self.read_pair(&|| limits.expired());
+        let mut bad = false;
+        let mut stopped = None;
+        for side in [&r, &c] {
+            match side {
+                Err(ReadError::Input(e)) => {
+                    report_input_error(e);
+                    bad = true;
+                }
+                Err(ReadError::Stopped(f)) => {
+                    stopped.get_or_insert(f.clone());
+                }
+                Ok(_) => {}
+            }
+        }
+        if bad {
+            return Err(Exit::BadInput);
+        }
+        if let Some(f) = stopped {
+            return Err(report_stopped_reading(&f));
+        }
+        match (r, c) {
+            (Ok(r), Ok(c)) => Ok((r, c)),
+            _ => unreachable!("every failure is handled above"),
+        }
     }
 }
 
@@ -100,7 +138,8 @@ pub struct ProveArgs {
     /// not depend on it.
     #[arg(long, short = 'j', value_name = "N")]
     jobs: Option<usize>,
-    /// Stop after this many seconds; open output pairs are then undecided.
+    /// Stop after this many seconds, reading the designs included; open output pairs are then
+    /// undecided.
     #[arg(long, value_name = "SECONDS")]
     timeout: Option<f64>,
     /// Conflicts allowed per SAT query; a query that needs more is undecided.
@@ -144,19 +183,21 @@ pub struct CnfArgs {
 
 /// Run `prove`.
 pub fn run(a: &ProveArgs) -> Exit {
-    let (r, c) = match a.pair.load() {
-        Ok(x) => x,
-        Err(e) => return e,
-    };
+    // The clock starts before reading: --timeout covers the whole run.
     let timeout = match timeout_of(a.timeout) {
         Ok(t) => t,
+        Err(e) => return e,
+    };
+    let deadline = crate::sat::Limits::new(timeout, None);
+    let (r, c) = match a.pair.load_within(&deadline) {
+        Ok(x) => x,
         Err(e) => return e,
     };
     let opts = ProveOptions {
         pair_by: a.pair.pair_by,
         free_extra_inputs: a.pair.free_extra_inputs,
         engine: a.engine,
-        timeout,
+        timeout: deadline.remaining(),
         conflict_limit: a.conflict_limit,
         seed: a.seed,
         sim_words: None,
@@ -183,7 +224,7 @@ pub fn run(a: &ProveArgs) -> Exit {
         );
     }
     if rep.verdict == Verdict::Different {
-        let limits = crate::sat::Limits::new(timeout, a.conflict_limit);
+        let limits = crate::sat::Limits::new(deadline.remaining(), a.conflict_limit);
         if let (Ok((r2, rc)), Ok((c2, cc))) = (
             crate::assume::on_design(&r, &a.assume),
             crate::assume::on_design(&c, &a.assume),
@@ -192,7 +233,8 @@ pub fn run(a: &ProveArgs) -> Exit {
         }
     }
     if let (Some(path), Some(shared)) = (&a.proof, &kept) {
-        if let Err(code) = write_proof(&r, &c, shared, &rep, path, a.proof_format, timeout) {
+        let left = deadline.remaining();
+        if let Err(code) = write_proof(&r, &c, shared, &rep, path, a.proof_format, left) {
             return code;
         }
     }

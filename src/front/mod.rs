@@ -1,5 +1,6 @@
-//! Front-ends: read netlist files into [`Design`]s. Owns format detection and file reading
-//! (missing, unreadable, binary and empty files).
+//! Front-ends: read netlist files into [`Design`]s. Owns format detection, file reading
+//! (missing, unreadable, binary and empty files) and the stop condition while reading (a
+//! `--timeout` covers reading too).
 
 pub mod bench;
 pub mod verilog;
@@ -8,6 +9,21 @@ use crate::design::{Design, Format};
 use crate::diag::{Diagnostic, InputError, SourcePos};
 use std::path::Path;
 use std::sync::Arc;
+
+/// Why reading gave no design.
+#[derive(Debug)]
+pub enum ReadError {
+    /// Bad input (exit code 2).
+    Input(InputError),
+    /// The stop condition (a time limit) held before the design was read; the file named.
+    Stopped(String),
+}
+
+impl From<InputError> for ReadError {
+    fn from(e: InputError) -> Self {
+        ReadError::Input(e)
+    }
+}
 
 /// Guess the format from a file name: `.bench` is bench, `.v`/`.vh`/`.sv` is Verilog.
 pub fn format_from_name(path: &str) -> Option<Format> {
@@ -23,6 +39,14 @@ pub fn format_from_name(path: &str) -> Option<Format> {
 /// and endless sources: a pipe or device is read in pieces and given up at its first NUL
 /// byte, so `/dev/zero` is an error at once rather than a full memory.
 pub fn read_text(path: &str) -> Result<String, InputError> {
+    read_text_until(path, &|| false).map_err(|e| match e {
+        ReadError::Input(e) => e,
+        ReadError::Stopped(_) => unreachable!("no stop condition"),
+    })
+}
+
+/// [`read_text`], looking at `stop` after every mebibyte.
+pub fn read_text_until(path: &str, stop: &dyn Fn() -> bool) -> Result<String, ReadError> {
     use std::io::Read;
     let fail =
         |what: String, help: &str| InputError::plain(format!("cannot read `{path}`: {what}"), help);
@@ -43,7 +67,8 @@ pub fn read_text(path: &str) -> Result<String, InputError> {
         return Err(fail(
             "it is a folder, not a file".to_string(),
             "name a netlist file inside it",
-        ));
+        )
+        .into());
     }
     let mut f = std::fs::File::open(path).map_err(io_fail)?;
     let mut bytes = Vec::with_capacity(if meta.is_file() {
@@ -57,15 +82,18 @@ pub fn read_text(path: &str) -> Result<String, InputError> {
             Ok(0) => break,
             Ok(n) => n,
             Err(e) if e.kind() == std::io::ErrorKind::Interrupted => continue,
-            Err(e) => return Err(io_fail(e)),
+            Err(e) => return Err(io_fail(e).into()),
         };
         let nul = chunk[..n].contains(&0);
         bytes.extend_from_slice(&chunk[..n]);
         if nul {
             break;
         }
+        if stop() {
+            return Err(ReadError::Stopped(path.to_string()));
+        }
     }
-    decode_text(path, bytes)
+    Ok(decode_text(path, bytes)?)
 }
 
 /// Check that `bytes` are text (UTF-8 without NUL bytes) and return them as a string.
@@ -117,6 +145,16 @@ pub struct Source {
 
 /// Read a design from files.
 pub fn load(src: &Source) -> Result<Design, InputError> {
+    load_until(src, &|| false).map_err(|e| match e {
+        ReadError::Input(e) => e,
+        ReadError::Stopped(_) => unreachable!("no stop condition"),
+    })
+}
+
+/// Read a design from files, looking at `stop` while reading (every mebibyte of a file,
+/// every 65,536 lines and gates of a bench file, between the phases of the Verilog reader);
+/// when it answers true, reading ends with [`ReadError::Stopped`].
+pub fn load_until(src: &Source, stop: &dyn Fn() -> bool) -> Result<Design, ReadError> {
     let first = src
         .paths
         .first()
@@ -127,13 +165,29 @@ pub fn load(src: &Source) -> Result<Design, InputError> {
             None => return Err(InputError::plain(
                 format!("cannot tell the format of `{first}` from its name"),
                 "use a `.bench` or `.v` file name, or say `--format bench` or `--format verilog`",
-            )),
+            )
+            .into()),
         };
+    if format == Format::Bench && src.paths.len() == 1 && src.top.is_none() {
+        // One bench file: the reader takes the text and drops it early.
+        let text = read_text_until(first, stop)?;
+        if stop() {
+            return Err(ReadError::Stopped(first.clone()));
+        }
+        return bench::read_bench_text(&Arc::from(first.as_str()), text, stop);
+    }
     let mut texts = Vec::with_capacity(src.paths.len());
     for p in &src.paths {
-        texts.push((Arc::<str>::from(p.as_str()), read_text(p)?));
+        texts.push((Arc::<str>::from(p.as_str()), read_text_until(p, stop)?));
     }
-    load_texts(format, &texts, src.top.as_deref())
+    if stop() {
+        return Err(ReadError::Stopped(first.clone()));
+    }
+    let d = load_texts_until(format, &texts, src.top.as_deref(), stop)?;
+    if stop() {
+        return Err(ReadError::Stopped(first.clone()));
+    }
+    Ok(d)
 }
 
 /// Read a design from texts already in memory (`(file name, text)` pairs).
@@ -142,23 +196,37 @@ pub fn load_texts(
     texts: &[(Arc<str>, String)],
     top: Option<&str>,
 ) -> Result<Design, InputError> {
+    load_texts_until(format, texts, top, &|| false).map_err(|e| match e {
+        ReadError::Input(e) => e,
+        ReadError::Stopped(_) => unreachable!("no stop condition"),
+    })
+}
+
+fn load_texts_until(
+    format: Format,
+    texts: &[(Arc<str>, String)],
+    top: Option<&str>,
+    stop: &dyn Fn() -> bool,
+) -> Result<Design, ReadError> {
     match format {
         Format::Bench => {
             if texts.len() != 1 {
                 return Err(InputError::plain(
                     "a bench design is one file",
                     "give one .bench file per design",
-                ));
+                )
+                .into());
             }
             if top.is_some() {
                 return Err(InputError::plain(
                     "a top module was given for a bench file",
                     "the top-module options are for Verilog; drop them for bench files",
-                ));
+                )
+                .into());
             }
-            bench::read_bench(&texts[0].0, &texts[0].1)
+            bench::read_bench_until(&texts[0].0, &texts[0].1, stop)
         }
-        Format::Verilog => read_verilog_texts(texts, top),
+        Format::Verilog => Ok(read_verilog_texts(texts, top)?),
     }
 }
 

@@ -133,95 +133,145 @@ impl Net {
 /// Decide with batsat whether two nets (outputs and inputs paired by position) differ; returns a
 /// distinguishing assignment of the first net's input names, or `None` when they are equivalent.
 pub fn batsat_differs(a: &Net, b: &Net) -> Option<HashMap<String, bool>> {
-    use batsat::{lbool, BasicSolver, Lit, SolverInterface};
-    let mut s = BasicSolver::default();
-    let inputs: Vec<Lit> = a
-        .inputs
-        .iter()
-        .map(|_| Lit::new(s.new_var_default(), true))
-        .collect();
-    let encode = |s: &mut BasicSolver, n: &Net| -> Vec<Lit> {
-        let mut lit: HashMap<&str, Lit> = n
-            .inputs
-            .iter()
-            .zip(&inputs)
-            .map(|(i, &l)| (i.as_str(), l))
-            .collect();
-        for gi in n.order() {
-            let (name, kind, args) = &n.gates[gi];
-            let ins: Vec<Lit> = args.iter().map(|x| lit[x.as_str()]).collect();
-            let z = Lit::new(s.new_var_default(), true);
-            let (base, neg) = match kind.as_str() {
-                "NAND" => ("AND", true),
-                "NOR" => ("OR", true),
-                "XNOR" => ("XOR", true),
-                "NOT" => ("BUF", true),
-                "BUFF" => ("BUF", false),
-                k => (k, false),
-            };
-            let out = if neg { !z } else { z };
-            match base {
-                "AND" => {
-                    let mut big = vec![out];
-                    for &x in &ins {
-                        s.add_clause_reuse(&mut vec![!out, x]);
-                        big.push(!x);
-                    }
-                    s.add_clause_reuse(&mut big);
-                }
-                "OR" => {
-                    let mut big = vec![!out];
-                    for &x in &ins {
-                        s.add_clause_reuse(&mut vec![out, !x]);
-                        big.push(x);
-                    }
-                    s.add_clause_reuse(&mut big);
-                }
-                "BUF" => {
-                    s.add_clause_reuse(&mut vec![!out, ins[0]]);
-                    s.add_clause_reuse(&mut vec![out, !ins[0]]);
-                }
-                "XOR" => {
-                    // Chain of two-input XORs.
-                    let mut acc = ins[0];
-                    for &x in &ins[1..] {
-                        let t = Lit::new(s.new_var_default(), true);
-                        s.add_clause_reuse(&mut vec![!t, acc, x]);
-                        s.add_clause_reuse(&mut vec![!t, !acc, !x]);
-                        s.add_clause_reuse(&mut vec![t, !acc, x]);
-                        s.add_clause_reuse(&mut vec![t, acc, !x]);
-                        acc = t;
-                    }
-                    s.add_clause_reuse(&mut vec![!out, acc]);
-                    s.add_clause_reuse(&mut vec![out, !acc]);
-                }
-                k => panic!("oracle: unknown gate {k}"),
-            }
-            lit.insert(name, z);
-        }
-        n.outputs.iter().map(|o| lit[o.as_str()]).collect()
-    };
-    let oa = encode(&mut s, a);
-    let ob = encode(&mut s, b);
-    let mut any = vec![];
-    for (&x, &y) in oa.iter().zip(&ob) {
-        let d = Lit::new(s.new_var_default(), true);
-        s.add_clause_reuse(&mut vec![!d, x, y]);
-        s.add_clause_reuse(&mut vec![!d, !x, !y]);
-        any.push(d);
-    }
-    s.add_clause_reuse(&mut any);
-    let r = s.solve_limited(&[]);
+    use batsat::{lbool, SolverInterface};
+    let mut m = BatsatMiter::new(a, b);
+    let any = m.differs.clone();
+    m.solver.add_clause_reuse(&mut any.clone());
+    let r = m.solver.solve_limited(&[]);
     if r == lbool::FALSE {
         return None;
     }
     assert_eq!(r, lbool::TRUE, "batsat gave no answer");
-    Some(
+    Some(m.model(a))
+}
+
+/// Per output pair (by position): `None` when batsat proves the pair equal (UNSAT), else a
+/// distinguishing assignment of the first net's input names. One solver, one query per pair
+/// under the assumption that this pair's XOR is true.
+pub fn batsat_per_output(a: &Net, b: &Net) -> Vec<Option<HashMap<String, bool>>> {
+    use batsat::{lbool, SolverInterface};
+    let mut m = BatsatMiter::new(a, b);
+    (0..m.differs.len())
+        .map(|k| {
+            let d = m.differs[k];
+            let r = m.solver.solve_limited(&[d]);
+            if r == lbool::FALSE {
+                return None;
+            }
+            assert_eq!(r, lbool::TRUE, "batsat gave no answer");
+            Some(m.model(a))
+        })
+        .collect()
+}
+
+/// Both nets encoded in one batsat solver (Tseitin, written from the gate lines), sharing
+/// input variables, with one literal per output pair that is true exactly when the pair
+/// differs.
+struct BatsatMiter {
+    solver: batsat::BasicSolver,
+    inputs: Vec<batsat::Lit>,
+    differs: Vec<batsat::Lit>,
+}
+
+impl BatsatMiter {
+    fn new(a: &Net, b: &Net) -> BatsatMiter {
+        use batsat::{BasicSolver, Lit, SolverInterface};
+        let mut s = BasicSolver::default();
+        let inputs: Vec<Lit> = a
+            .inputs
+            .iter()
+            .map(|_| Lit::new(s.new_var_default(), true))
+            .collect();
+        let encode = |s: &mut BasicSolver, n: &Net| -> Vec<Lit> {
+            let mut lit: HashMap<&str, Lit> = n
+                .inputs
+                .iter()
+                .zip(&inputs)
+                .map(|(i, &l)| (i.as_str(), l))
+                .collect();
+            for gi in n.order() {
+                let (name, kind, args) = &n.gates[gi];
+                let ins: Vec<Lit> = args.iter().map(|x| lit[x.as_str()]).collect();
+                let z = Lit::new(s.new_var_default(), true);
+                let (base, neg) = match kind.as_str() {
+                    "NAND" => ("AND", true),
+                    "NOR" => ("OR", true),
+                    "XNOR" => ("XOR", true),
+                    "NOT" => ("BUF", true),
+                    "BUFF" => ("BUF", false),
+                    k => (k, false),
+                };
+                let out = if neg { !z } else { z };
+                match base {
+                    "AND" => {
+                        let mut big = vec![out];
+                        for &x in &ins {
+                            s.add_clause_reuse(&mut vec![!out, x]);
+                            big.push(!x);
+                        }
+                        s.add_clause_reuse(&mut big);
+                    }
+                    "OR" => {
+                        let mut big = vec![!out];
+                        for &x in &ins {
+                            s.add_clause_reuse(&mut vec![out, !x]);
+                            big.push(x);
+                        }
+                        s.add_clause_reuse(&mut big);
+                    }
+                    "BUF" => {
+                        s.add_clause_reuse(&mut vec![!out, ins[0]]);
+                        s.add_clause_reuse(&mut vec![out, !ins[0]]);
+                    }
+                    "XOR" => {
+                        // Chain of two-input XORs.
+                        let mut acc = ins[0];
+                        for &x in &ins[1..] {
+                            let t = Lit::new(s.new_var_default(), true);
+                            s.add_clause_reuse(&mut vec![!t, acc, x]);
+                            s.add_clause_reuse(&mut vec![!t, !acc, !x]);
+                            s.add_clause_reuse(&mut vec![t, !acc, x]);
+                            s.add_clause_reuse(&mut vec![t, acc, !x]);
+                            acc = t;
+                        }
+                        s.add_clause_reuse(&mut vec![!out, acc]);
+                        s.add_clause_reuse(&mut vec![out, !acc]);
+                    }
+                    k => panic!("oracle: unknown gate {k}"),
+                }
+                lit.insert(name, z);
+            }
+            n.outputs.iter().map(|o| lit[o.as_str()]).collect()
+        };
+        let oa = encode(&mut s, a);
+        let ob = encode(&mut s, b);
+        let mut differs = vec![];
+        for (&x, &y) in oa.iter().zip(&ob) {
+            // d <-> (x xor y)
+            let d = Lit::new(s.new_var_default(), true);
+            s.add_clause_reuse(&mut vec![!d, x, y]);
+            s.add_clause_reuse(&mut vec![!d, !x, !y]);
+            s.add_clause_reuse(&mut vec![d, !x, y]);
+            s.add_clause_reuse(&mut vec![d, x, !y]);
+            differs.push(d);
+        }
+        BatsatMiter {
+            solver: s,
+            inputs,
+            differs,
+        }
+    }
+
+    /// The model's values of the first net's inputs, by name.
+    fn model(&self, a: &Net) -> HashMap<String, bool> {
+        use batsat::{lbool, SolverInterface};
         a.inputs
             .iter()
-            .zip(&inputs)
-            .map(|(n, &l)| (n.clone(), s.value_lit(l) == lbool::TRUE))
-            .collect(),
-    )
+            .zip(&self.inputs)
+            .map(|(n, &l)| (n.clone(), self.solver.value_lit(l) == lbool::TRUE))
+            .collect()
+    }
 }
+
 pub mod drat;
+pub mod sim;

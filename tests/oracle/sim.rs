@@ -1,0 +1,168 @@
+//! Exhaustive bit-parallel simulation of two bench nets, written from the gate lines (the
+//! [`super::Net`] form) without any of equicone's code: every one of the 2^n input vectors,
+//! 64 per `u64` word, for up to 20 inputs. Vector `v` gives input `i` (in the first net's
+//! order) the value of bit `i` of `v`; the second net's inputs pair with the first's by name.
+
+use super::Net;
+use std::collections::HashMap;
+
+/// A net compiled to gates over signal indices, inputs first, in topological order.
+struct Compiled {
+    /// Gate kind and fan-in signal indices; gate `g` drives signal `inputs + g`.
+    gates: Vec<(Kind, Vec<usize>)>,
+    /// The signal of each output.
+    outputs: Vec<usize>,
+    /// The signal count.
+    signals: usize,
+}
+
+#[derive(Copy, Clone)]
+enum Kind {
+    And,
+    Nand,
+    Or,
+    Nor,
+    Xor,
+    Xnor,
+    Not,
+    Buf,
+}
+
+impl Compiled {
+    /// Compile `n`; its input `k` becomes signal `input_slot[k]` (a position in the shared
+    /// input order).
+    fn new(n: &Net, input_slot: &[usize], shared_inputs: usize) -> Compiled {
+        let order = n.order();
+        let mut index: HashMap<&str, usize> = HashMap::new();
+        for (k, name) in n.inputs.iter().enumerate() {
+            index.insert(name, input_slot[k]);
+        }
+        for (pos, &g) in order.iter().enumerate() {
+            index.insert(&n.gates[g].0, shared_inputs + pos);
+        }
+        let gates = order
+            .iter()
+            .map(|&g| {
+                let (_, kind, args) = &n.gates[g];
+                let kind = match kind.as_str() {
+                    "AND" => Kind::And,
+                    "NAND" => Kind::Nand,
+                    "OR" => Kind::Or,
+                    "NOR" => Kind::Nor,
+                    "XOR" => Kind::Xor,
+                    "XNOR" => Kind::Xnor,
+                    "NOT" => Kind::Not,
+                    "BUF" | "BUFF" => Kind::Buf,
+                    k => panic!("oracle: unknown gate {k}"),
+                };
+                (kind, args.iter().map(|a| index[a.as_str()]).collect())
+            })
+            .collect();
+        Compiled {
+            gates,
+            outputs: n.outputs.iter().map(|o| index[o.as_str()]).collect(),
+            signals: shared_inputs + order.len(),
+        }
+    }
+
+    /// Simulate one word whose input words are already in `vals[..inputs]`.
+    fn run(&self, vals: &mut [u64], inputs: usize) {
+        for (g, (kind, args)) in self.gates.iter().enumerate() {
+            let a = args.iter().map(|&s| vals[s]);
+            vals[inputs + g] = match kind {
+                Kind::And => a.fold(!0, |x, y| x & y),
+                Kind::Nand => !a.fold(!0, |x, y| x & y),
+                Kind::Or => a.fold(0, |x, y| x | y),
+                Kind::Nor => !a.fold(0, |x, y| x | y),
+                Kind::Xor => a.fold(0, |x, y| x ^ y),
+                Kind::Xnor => !a.fold(0, |x, y| x ^ y),
+                Kind::Not => !vals[args[0]],
+                Kind::Buf => vals[args[0]],
+            };
+        }
+    }
+}
+
+/// Per output pair (by position): the first input vector on which the two nets differ, or
+/// `None` when they agree on all 2^n vectors. `n` is the first net's input count (at most 20);
+/// every input of the second net must be an input of the first (by name).
+pub fn exhaustive_diff(a: &Net, b: &Net) -> Vec<Option<u64>> {
+    let n = a.inputs.len();
+    assert!(
+        n <= 20,
+        "oracle: {n} inputs are too many for exhaustive simulation"
+    );
+    assert_eq!(
+        a.outputs.len(),
+        b.outputs.len(),
+        "oracle: output counts differ"
+    );
+    let slot_a: Vec<usize> = (0..n).collect();
+    let slot_b: Vec<usize> = b
+        .inputs
+        .iter()
+        .map(|x| {
+            a.inputs
+                .iter()
+                .position(|y| y == x)
+                .unwrap_or_else(|| panic!("oracle: input {x} only in the second net"))
+        })
+        .collect();
+    let ca = Compiled::new(a, &slot_a, n);
+    let cb = Compiled::new(b, &slot_b, n);
+    let mut va = vec![0u64; ca.signals];
+    let mut vb = vec![0u64; cb.signals];
+    let vectors = 1u64 << n;
+    let words = vectors.div_ceil(64);
+    // Within a word, inputs 0..6 follow the bit position; above that, the word index.
+    const LOW: [u64; 6] = [
+        0xAAAA_AAAA_AAAA_AAAA,
+        0xCCCC_CCCC_CCCC_CCCC,
+        0xF0F0_F0F0_F0F0_F0F0,
+        0xFF00_FF00_FF00_FF00,
+        0xFFFF_0000_FFFF_0000,
+        0xFFFF_FFFF_0000_0000,
+    ];
+    let valid = if vectors >= 64 {
+        !0
+    } else {
+        (1u64 << vectors) - 1
+    };
+    let mut first: Vec<Option<u64>> = vec![None; a.outputs.len()];
+    for w in 0..words {
+        for i in 0..n {
+            let word = if i < 6 {
+                LOW[i]
+            } else if (w >> (i - 6)) & 1 == 1 {
+                !0
+            } else {
+                0
+            };
+            va[i] = word;
+            vb[i] = word;
+        }
+        ca.run(&mut va, n);
+        cb.run(&mut vb, n);
+        for (k, f) in first.iter_mut().enumerate() {
+            if f.is_none() {
+                let diff = (va[ca.outputs[k]] ^ vb[cb.outputs[k]]) & valid;
+                if diff != 0 {
+                    *f = Some(w * 64 + diff.trailing_zeros() as u64);
+                }
+            }
+        }
+        if first.iter().all(|f| f.is_some()) {
+            break;
+        }
+    }
+    first
+}
+
+/// The input assignment (by the first net's input names) of vector `v`.
+pub fn vector(a: &Net, v: u64) -> HashMap<String, bool> {
+    a.inputs
+        .iter()
+        .enumerate()
+        .map(|(i, x)| (x.clone(), (v >> i) & 1 == 1))
+        .collect()
+}

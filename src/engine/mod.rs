@@ -356,18 +356,29 @@ fn simulate_phase(
         return Ok(0);
     }
     let ins = random_words(shared.aig.num_inputs(), words, opts.seed);
-    let table = simulate(&shared.aig, &ins, words);
+    // The first separating pattern of each open pair, one word of the whole graph at a time
+    // (so that only one word of values per node is alive).
+    let mut first: Vec<Option<usize>> = vec![None; shared.pairs.len()];
+    for w in 0..words {
+        let row: Vec<Vec<u64>> = ins.iter().map(|r| vec![r[w]]).collect();
+        let table = simulate(&shared.aig, &row, 1);
+        for p in 0..shared.pairs.len() {
+            if outcomes[p] != Outcome::Open || first[p].is_some() {
+                continue;
+            }
+            let (a, b) = (shared.ref_lits[p], shared.cand_lits[p]);
+            let d = (table.lit_word(a, 0) ^ table.lit_word(b, 0))
+                & table.lit_word(shared.constraint, 0);
+            if d != 0 {
+                first[p] = Some(w * 64 + d.trailing_zeros() as usize);
+            }
+        }
+    }
     for p in 0..shared.pairs.len() {
         if outcomes[p] != Outcome::Open {
             continue;
         }
-        let (a, b) = (shared.ref_lits[p], shared.cand_lits[p]);
-        let hit = (0..words).find_map(|w| {
-            let d = (table.lit_word(a, w) ^ table.lit_word(b, w))
-                & table.lit_word(shared.constraint, w);
-            (d != 0).then(|| w * 64 + d.trailing_zeros() as usize)
-        });
-        if let Some(pat) = hit {
+        if let Some(pat) = first[p] {
             let values: Vec<bool> = ins
                 .iter()
                 .map(|row| (row[pat / 64] >> (pat % 64)) & 1 == 1)

@@ -112,10 +112,13 @@ pub(crate) fn sweep(
     };
     let words = cone.words.unwrap_or_else(|| sweep_words(g.len()));
     let ins = random_words(g.num_inputs(), words, cone.seed ^ 0x5EED_5EED);
-    let mut classes = {
-        let table = simulate(g, &ins, words);
-        Classes::from_table(&table, g.len())
-    };
+    // Classes from the first word, then split by each further word: the same partition as
+    // from all words at once, with one word of simulation values per node alive at a time.
+    let word = |w: usize| -> Vec<Vec<u64>> { ins.iter().map(|row| vec![row[w]]).collect() };
+    let mut classes = Classes::from_table(&simulate(g, &word(0), 1), g.len());
+    for w in 1..words {
+        classes.refine(&simulate(g, &word(w), 1).values, 0);
+    }
     st.classes = classes.count();
     st.candidates = classes.members();
     log::debug!(

@@ -9,7 +9,7 @@ mod lit;
 mod sim;
 
 pub use lit::Lit;
-pub use sim::{eval, random_words, simulate, SimTable};
+pub use sim::{eval, random_words, simulate, simulate_into, SimTable};
 
 use crate::hash::FastMap;
 

@@ -3,7 +3,7 @@
 use super::{Aig, Lit, Node};
 
 /// Simulation values of every node, `words` words per node, node-major.
-#[derive(Clone, Debug)]
+#[derive(Clone, Debug, Default)]
 pub struct SimTable {
     /// Words per node.
     pub words: usize,
@@ -38,8 +38,20 @@ impl SimTable {
 
 /// Simulate `aig` on `inputs[k]` (one slice of `words` words per primary input).
 pub fn simulate(aig: &Aig, inputs: &[Vec<u64>], words: usize) -> SimTable {
+    let mut table = SimTable {
+        words,
+        values: Vec::new(),
+    };
+    simulate_into(aig, inputs, words, &mut table);
+    table
+}
+
+/// [`simulate`] into an existing table, reusing its memory (for word-at-a-time passes).
+pub fn simulate_into(aig: &Aig, inputs: &[Vec<u64>], words: usize, table: &mut SimTable) {
     assert_eq!(inputs.len(), aig.num_inputs(), "one pattern row per input");
-    let mut values = vec![0u64; aig.len() * words];
+    let mut values = std::mem::take(&mut table.values);
+    values.clear();
+    values.resize(aig.len() * words, 0);
     for (i, node) in aig.nodes().iter().enumerate() {
         match *node {
             Node::Const => {}
@@ -55,7 +67,7 @@ pub fn simulate(aig: &Aig, inputs: &[Vec<u64>], words: usize) -> SimTable {
             }
         }
     }
-    SimTable { words, values }
+    *table = SimTable { words, values };
 }
 
 #[inline]

@@ -20,7 +20,7 @@ mod sweep;
 pub mod unknowns;
 mod window;
 
-use crate::aig::{random_words, simulate};
+use crate::aig::{random_words, simulate_into, SimTable};
 use crate::cnf::Tseitin;
 use crate::design::Design;
 use crate::diag::InputError;
@@ -338,7 +338,7 @@ pub fn prove_shared(
 /// Words of random patterns for a graph of `nodes` nodes: more for small graphs, at most
 /// about 64 MiB of simulation values.
 fn default_words(nodes: usize) -> usize {
-    (8_000_000 / nodes.max(1)).clamp(1, 64)
+    (4_000_000 / nodes.max(1)).clamp(1, 64)
 }
 
 fn simulate_phase(
@@ -359,9 +359,13 @@ fn simulate_phase(
     // The first separating pattern of each open pair, one word of the whole graph at a time
     // (so that only one word of values per node is alive).
     let mut first: Vec<Option<usize>> = vec![None; shared.pairs.len()];
+    let mut table = SimTable::default();
+    let mut row: Vec<Vec<u64>> = vec![vec![0]; ins.len()];
     for w in 0..words {
-        let row: Vec<Vec<u64>> = ins.iter().map(|r| vec![r[w]]).collect();
-        let table = simulate(&shared.aig, &row, 1);
+        for (r, i) in row.iter_mut().zip(&ins) {
+            r[0] = i[w];
+        }
+        simulate_into(&shared.aig, &row, 1, &mut table);
         for p in 0..shared.pairs.len() {
             if outcomes[p] != Outcome::Open || first[p].is_some() {
                 continue;

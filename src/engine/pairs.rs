@@ -50,7 +50,10 @@ pub(crate) fn decide_pairs(
         }
         let roots = [pairs[p].reference, pairs[p].candidate, constraint];
         let mut split_tried = false;
-        if limits.conflicts_per_query.is_none() && split::split_first(aig, &roots) {
+        if limits.conflicts_per_query.is_none()
+            && pairs.len() <= split::SPLIT_FIRST_MAX_PAIRS
+            && split::split_first(aig, &roots)
+        {
             // A wide selector: straight to case splitting, before even encoding the miter.
             split_tried = true;
             match split::decide(aig, roots[0], roots[1], constraint, limits) {

@@ -29,6 +29,9 @@ const SPLIT_FLOOR: usize = 64;
 /// Pairs with more AND nodes than this in their cones are split before any whole query when an
 /// input drives a large share of them (see [`split_first`]).
 const SPLIT_FIRST_ANDS: usize = 20_000;
+/// Designs with more output pairs than this are not examined for [`split_first`] (each look
+/// costs a pass over the graph; wide selectors have one output per data bit).
+pub(crate) const SPLIT_FIRST_MAX_PAIRS: usize = 64;
 /// "A large share": at least one AND node in this many.
 const SPLIT_FIRST_SHARE: usize = 20;
 /// Inputs fixed at most along one branch.
@@ -165,6 +168,9 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
 /// input drives a large share of their AND nodes (the select bits of a wide selector); a single
 /// query on such a miter mostly spends its budget.
 pub(crate) fn split_first(g: &Aig, roots: &[Lit]) -> bool {
+    if g.num_ands() <= SPLIT_FIRST_ANDS {
+        return false;
+    }
     let mask = g.cone_mask(roots);
     let ands = g
         .nodes()

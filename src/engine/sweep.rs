@@ -12,9 +12,10 @@
 use super::classes::Classes;
 use super::pairs::{decide_pairs, PairQuery};
 use super::progress::Progress;
+use super::split;
 use super::window::{Window, WindowAnswer};
 use super::Finding;
-use crate::aig::{random_words, simulate, Aig, Lit, Node};
+use crate::aig::{random_words, simulate, simulate_into, Aig, Lit, Node, SimTable};
 use crate::cnf::Tseitin;
 use crate::sat::{Limits, Sat, SatStats, StopReason};
 use serde::Serialize;
@@ -110,15 +111,54 @@ pub(crate) fn sweep(
         ands_before: g.num_ands(),
         ..SweepStats::default()
     };
+    if limits.conflicts_per_query.is_none()
+        && !cone.pairs.is_empty()
+        && cone.pairs.len() <= split::SPLIT_FIRST_MAX_PAIRS
+        && cone
+            .pairs
+            .iter()
+            .all(|p| split::split_first(g, &[p.reference, p.candidate, cone.constraint]))
+    {
+        // Wide selectors: nothing inside them to merge; case splitting decides them.
+        log::debug!("sweep: every output pair is split at once; no sweep");
+        let mut findings = vec![None; cone.pairs.len()];
+        let mut sat = Sat::new(limits);
+        let mut ts = Tseitin::new();
+        decide_pairs(
+            g,
+            &cone.pairs,
+            cone.constraint,
+            &mut sat,
+            &mut ts,
+            &mut findings,
+            limits,
+            progress,
+        );
+        let findings = findings
+            .into_iter()
+            .map(|f| f.unwrap_or(Finding::Stopped(StopReason::Timeout)))
+            .collect();
+        st.ands_after = st.ands_before;
+        return (findings, sat.stats(), st);
+    }
     let words = cone.words.unwrap_or_else(|| sweep_words(g.len()));
     let ins = random_words(g.num_inputs(), words, cone.seed ^ 0x5EED_5EED);
     // Classes from the first word, then split by each further word: the same partition as
     // from all words at once, with one word of simulation values per node alive at a time.
-    let word = |w: usize| -> Vec<Vec<u64>> { ins.iter().map(|row| vec![row[w]]).collect() };
-    let mut classes = Classes::from_table(&simulate(g, &word(0), 1), g.len());
-    for w in 1..words {
-        classes.refine(&simulate(g, &word(w), 1).values, 0);
+    let mut table = SimTable::default();
+    let mut row: Vec<Vec<u64>> = vec![vec![0]; ins.len()];
+    let mut classes = None;
+    for w in 0..words {
+        for (r, i) in row.iter_mut().zip(&ins) {
+            r[0] = i[w];
+        }
+        simulate_into(g, &row, 1, &mut table);
+        match &mut classes {
+            None => classes = Some(Classes::from_table(&table, g.len())),
+            Some(c) => c.refine(&table.values, 0),
+        }
     }
+    let mut classes = classes.unwrap_or_else(|| Classes::from_table(&table, g.len()));
     st.classes = classes.count();
     st.candidates = classes.members();
     log::debug!(

@@ -108,3 +108,20 @@ pub fn run_iverilog(src: &str, top: &str) -> String {
     );
     String::from_utf8_lossy(&r.stdout).into_owned()
 }
+
+/// The ISCAS-85 folder of the shared benchmark data (../shared, see SOURCE.md there): `None`
+/// with a SKIPPED line when it is absent, a failure when EQUICONE_REQUIRE_SHARED=1.
+pub fn shared_dir() -> Option<PathBuf> {
+    let p = PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("../shared/bench-data/iscas85");
+    if p.is_dir() {
+        return Some(p);
+    }
+    if std::env::var("EQUICONE_REQUIRE_SHARED").as_deref() == Ok("1") {
+        panic!(
+            "{} is required (EQUICONE_REQUIRE_SHARED=1) but missing",
+            p.display()
+        );
+    }
+    eprintln!("SKIPPED: {} not found", p.display());
+    None
+}

@@ -2,12 +2,11 @@
 //! circuits (open benchmark data in ../shared/bench-data/iscas85, see SOURCE.md there), and
 //! the one-line selector spec `assign y = d[s];` against gate-level trees of 2:1 selectors.
 
-use super::common::read;
+use super::common::{read, shared_dir};
 use equicone::engine::{self, PairBy, ProveOptions, Verdict};
 use equicone::front::bench::read_bench;
 use equicone::Design;
 use std::fmt::Write;
-use std::path::PathBuf;
 use std::sync::Arc;
 
 fn prove(r: &Design, c: &Design, assume: &[String]) -> Verdict {
@@ -28,21 +27,6 @@ fn prove(r: &Design, c: &Design, assume: &[String]) -> Verdict {
     }
     let rep = engine::prove_shared(r, c, shared, assume, &opts).expect("prove");
     rep.verdict
-}
-
-fn shared_dir() -> Option<PathBuf> {
-    let p = PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("../shared/bench-data/iscas85");
-    if p.is_dir() {
-        return Some(p);
-    }
-    if std::env::var("EQUICONE_REQUIRE_SHARED").as_deref() == Ok("1") {
-        panic!(
-            "{} is required (EQUICONE_REQUIRE_SHARED=1) but missing",
-            p.display()
-        );
-    }
-    eprintln!("SKIPPED: {} not found", p.display());
-    None
 }
 
 /// A structural Verilog translation of a bench netlist: one gate primitive per line.

@@ -6,7 +6,7 @@
 //! the bench file. Icarus Verilog (a general-purpose simulator) checks that the written
 //! text is legal Verilog with the bench file's function on random vectors.
 
-use super::common::{iverilog_available, read, run_iverilog};
+use super::common::{iverilog_available, read, run_iverilog, shared_dir};
 use equicone::engine::{self, PairBy, ProveOptions, Verdict};
 use equicone::front::bench::read_bench;
 use equicone::Design;
@@ -334,21 +334,6 @@ fn hierarchical(b: &Bench, parts: usize, mutate: bool) -> String {
     out += &insts;
     out += "endmodule\n";
     out
-}
-
-fn shared_dir() -> Option<PathBuf> {
-    let p = PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("../shared/bench-data/iscas85");
-    if p.is_dir() {
-        return Some(p);
-    }
-    if std::env::var("EQUICONE_REQUIRE_SHARED").as_deref() == Ok("1") {
-        panic!(
-            "{} is required (EQUICONE_REQUIRE_SHARED=1) but missing",
-            p.display()
-        );
-    }
-    eprintln!("SKIPPED: {} not found", p.display());
-    None
 }
 
 fn prove(r: &Design, c: &Design) -> Verdict {

@@ -98,6 +98,13 @@ impl Classes {
         Some((r as usize, self.phase[n] != self.phase[r as usize]))
     }
 
+    /// Whether `a` and `b` are in one class: `Some(complemented)` if so.
+    #[inline]
+    pub(crate) fn same_class(&self, a: usize, b: usize) -> Option<bool> {
+        let r = self.rep[a];
+        (r != NONE && r == self.rep[b]).then(|| self.phase[a] != self.phase[b])
+    }
+
     /// Split the classes by one more word of simulation values (`values[node]`). `done` is
     /// the sweep's position (kept for callers; every member stays, since a passed member can
     /// still represent a later node once its class splits).
@@ -166,6 +173,11 @@ mod tests {
         assert_eq!(r, x.index().min(y.index()));
         assert_eq!(compl, x.is_complemented() != y.is_complemented());
         assert!(c.count() >= 1);
+        assert_eq!(
+            c.same_class(x.index(), y.index()),
+            Some(x.is_complemented() != y.is_complemented())
+        );
+        assert_eq!(c.same_class(a.index(), y.index()), None);
         // A word that separates them (pretend values) splits the class.
         let mut vals = vec![0u64; g.len()];
         vals[y.index()] = 1;

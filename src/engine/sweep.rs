@@ -35,6 +35,20 @@ const GIVE_UP_AFTER: usize = 2_000;
 const GIVE_UP_RATIO: usize = 50;
 /// Largest cone (nodes) simulated to extend a truncated window's model.
 const LIFT_MAX_CONE: usize = 20_000;
+/// Large-window queries always allowed before [`Sweeper::large_pays`] judges them.
+const LARGE_GRACE: usize = 64;
+/// The large window is kept while at least one query in this many decides something.
+const LARGE_USEFUL_RATIO: usize = 4;
+/// Levels searched below and then above a node for its twin in the merged graph.
+const TWIN_DEPTH: u32 = 3;
+/// Nodes collected below a node in the twin search.
+const TWIN_BELOW: usize = 16;
+/// Nodes visited above them.
+const TWIN_VISITS: usize = 256;
+/// Twins tried per node.
+const TWINS_MAX: usize = 4;
+/// No fanout edge.
+const NO_EDGE: u32 = u32::MAX;
 /// Conflicts allowed to a whole-cone candidate query during the sweep.
 const SWEEP_CONFLICTS: u64 = 200;
 
@@ -92,10 +106,11 @@ pub(crate) struct Cone<'a> {
 }
 
 /// Words of 64 random patterns for a graph of `nodes` nodes: more as the graph grows (more
-/// nodes means more chance coincidences), within about 128 MiB of simulation values.
+/// nodes means more chance coincidences). Classes are built one word at a time, so the count
+/// costs time (one simulation per word), not memory.
 pub(crate) fn sweep_words(nodes: usize) -> usize {
     let by_size = (usize::BITS - nodes.max(2).leading_zeros()) as usize;
-    by_size.clamp(4, 32).min((16 << 20) / nodes.max(1)).max(1)
+    by_size.clamp(4, 32)
 }
 
 /// Sweep `cone` and decide its pairs; findings are in the order of `cone.pairs`.
@@ -179,7 +194,11 @@ pub(crate) fn sweep(
         pending: Vec::new(),
         near: Vec::new(),
         whole_cone: 0,
-        tally: [0; 13],
+        tally: [0; 14],
+        times: [0.0; 4],
+        rev: vec![0],
+        fo_head: vec![NO_EDGE],
+        fo_next: vec![NO_EDGE; 2],
         stamp: Vec::new(),
         value: Vec::new(),
         epoch: 0,
@@ -198,6 +217,7 @@ pub(crate) fn sweep(
     let mut querying = true;
     let mut last_classes = st.classes;
     for i in 0..g.len() {
+        let before = sw.f.len();
         let l = match g.node(i as u32) {
             Node::Const => Lit::FALSE,
             Node::Input(_) => sw.f.add_input(),
@@ -208,32 +228,36 @@ pub(crate) fn sweep(
             }
         };
         sw.map[i] = l;
+        let built = sw.f.len() > before;
+        if built {
+            sw.note_built(i, l);
+        }
         if !querying {
             continue;
         }
         let Some((r, compl)) = classes.candidate(i) else {
             continue;
         };
-        if side[i] | side[r] != BOTH {
-            // Both in the reference alone, or both in the candidate alone: merging them is
-            // not needed to relate the designs.
-            continue;
-        }
-        let t = sw.map[r].xor_complement(compl);
-        if l == t {
+        if !built {
+            // Hashing found the node already built: it is merged with the earlier node of
+            // the same function (with sound merges, a member of its class).
             st.merged_by_hashing += 1;
             continue;
         }
-        if l == !t {
-            continue; // cannot happen with sound simulation; never merge
+        // The representative, unless both nodes belong to one design alone (merging them is
+        // not needed to relate the designs), and members near the node in the merged graph.
+        let t = (side[i] | side[r] == BOTH).then(|| sw.map[r].xor_complement(compl));
+        let twins = sw.twins(&classes, &side, i, l, t);
+        if t.is_none() && twins.is_empty() {
+            continue;
         }
-        match sw.prove_equal(l, t) {
-            Some(true) => {
-                sw.map[i] = t;
+        match sw.prove_equal(l, t, &twins) {
+            Outcome::Proved(u) => {
+                sw.map[i] = u;
                 st.merged_by_sat += 1;
                 progress.proved(1);
             }
-            Some(false) => {
+            Outcome::Refuted => {
                 st.refuted += 1;
                 if st.refuted >= GIVE_UP_AFTER && st.merged_by_sat * GIVE_UP_RATIO < st.refuted {
                     log::debug!(
@@ -243,20 +267,21 @@ pub(crate) fn sweep(
                     );
                     querying = false;
                 }
-                if sw.pending.len() >= batch {
-                    st.patterns_fed_back += sw.pending.len();
-                    sw.refine(&mut classes, i + 1);
-                    let now = classes.count();
-                    progress.add_classes(now as i64 - last_classes as i64);
-                    last_classes = now;
-                }
             }
-            None => {
+            Outcome::Open | Outcome::Partial if t.is_none() => {}
+            Outcome::Open | Outcome::Partial => {
                 st.unresolved += 1;
                 if limits.expired() {
                     querying = false;
                 }
             }
+        }
+        if sw.pending.len() >= batch {
+            st.patterns_fed_back += sw.pending.len();
+            sw.refine(&mut classes, i + 1);
+            let now = classes.count();
+            progress.add_classes(now as i64 - last_classes as i64);
+            last_classes = now;
         }
         if i.is_multiple_of(4096) && limits.expired() {
             querying = false;
@@ -272,8 +297,9 @@ pub(crate) fn sweep(
     st.ands_after = sw.f.num_ands();
     st.whole_cone_queries = sw.whole_cone;
     log::debug!(
-        "sweep: {:.3} s, window answers {:?}, window stats {:?}, whole-cone queries {} with stats {:?}",
+        "sweep: {:.3} s, seconds per stage {:.2?}, window answers {:?}, window stats {:?}, whole-cone queries {} with stats {:?}",
         started.elapsed().as_secs_f64(),
+        sw.times,
         sw.tally,
         sw.window.stats(),
         sw.whole_cone,
@@ -344,6 +370,19 @@ fn sides(g: &Aig, pairs: &[PairQuery]) -> Vec<u8> {
         .collect()
 }
 
+/// The answer of [`Sweeper::prove_equal`] and of one of its stages.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+enum Outcome {
+    /// Equal to this literal of the merged graph.
+    Proved(Lit),
+    /// A counterexample is queued.
+    Refuted,
+    /// A truncated window's model that did not extend (stages only: try a larger window).
+    Partial,
+    /// Not decided.
+    Open,
+}
+
 struct Sweeper<'a> {
     g: &'a Aig,
     f: Aig,
@@ -358,10 +397,18 @@ struct Sweeper<'a> {
     near: Vec<Vec<u32>>,
     rng: u64,
     whole_cone: usize,
-    /// Window answers per stage (fresh tiny, small, large: equal, differ, partial, unknown),
-    /// then lifts.
-    tally: [usize; 13],
-    /// Scratch for [`Sweeper::lift`]: visit stamps and simulation words per merged-graph node.
+    /// Window answers per stage (fresh tiny, small, large: equal, refuted (lifted partial
+    /// models included), partial, unknown), then lifts, then proofs against a member other than the representative.
+    tally: [usize; 14],
+    /// Seconds spent per stage, then on the other members.
+    times: [f64; 4],
+    /// For each node of the merged graph, the node of `g` it was built for.
+    rev: Vec<u32>,
+    /// Fanout lists of the merged graph: the first edge of each node, and the next edge
+    /// after each edge (edge `2u + k` is fan-in `k` of node `u`).
+    fo_head: Vec<u32>,
+    fo_next: Vec<u32>,
+    /// Scratch for [`Sweeper::lift`] and [`Sweeper::twins`]: visit stamps and simulation words per merged-graph node.
     stamp: Vec<u32>,
     value: Vec<u64>,
     epoch: u32,
@@ -370,57 +417,194 @@ struct Sweeper<'a> {
 }
 
 impl Sweeper<'_> {
-    /// Whether `a` and `b` (literals of the merged graph) are equal: `Some(true)` proved,
-    /// `Some(false)` refuted (the pattern is queued), `None` unresolved.
-    fn prove_equal(&mut self, a: Lit, b: Lit) -> Option<bool> {
-        // A small window first, then (when its model does not extend to a real
-        // counterexample) a large one in a fresh solver, then the whole cone.
-        for (stage, (budget, conflicts, fresh)) in [
-            (TINY_WINDOW_BUDGET, WINDOW_CONFLICTS, true),
-            (WINDOW_BUDGET, WINDOW_CONFLICTS, false),
-            (LARGE_WINDOW_BUDGET, SWEEP_CONFLICTS, false),
-        ]
-        .into_iter()
-        .enumerate()
-        {
-            let ans = if fresh {
-                self.window.query_fresh(&self.f, a, b, budget, conflicts)
-            } else {
-                self.window.query(&self.f, a, b, budget, conflicts)
-            };
-            let kind = match &ans {
-                WindowAnswer::Equal => 0,
-                WindowAnswer::Differ(_) => 1,
-                WindowAnswer::Partial(_) => 2,
-                WindowAnswer::Unknown => 3,
-            };
-            self.tally[stage * 4 + kind] += 1;
+    /// Whether `a` equals one of `twins` or the representative's literal `rep` (literals of
+    /// the merged graph): `Proved(lit)` with the literal it was proved equal to, `Refuted`
+    /// (the counterexample is queued) or `Open`.
+    fn prove_equal(&mut self, a: Lit, rep: Option<Lit>, twins: &[Lit]) -> Outcome {
+        // The small window against the twins first: found by structure, they are the likely
+        // partners (a rewritten node's original), whereas in a class of near-constant nodes
+        // the representative is often unrelated. Then the representative: the small window,
+        // and larger ones while its models do not extend to counterexamples.
+        for &twin in twins {
+            let t0 = std::time::Instant::now();
+            let ans =
+                self.window
+                    .query_fresh(&self.f, a, twin, TINY_WINDOW_BUDGET, WINDOW_CONFLICTS);
+            self.times[3] += t0.elapsed().as_secs_f64();
             match ans {
-                WindowAnswer::Equal => return Some(true),
-                WindowAnswer::Differ(vals) => {
-                    let mut p = self.random_pattern();
-                    for &(k, v) in &vals {
-                        p[k as usize] = v;
-                    }
-                    self.pending.push(p);
-                    self.near.push(vals.iter().map(|&(k, _)| k).collect());
-                    return Some(false);
+                WindowAnswer::Equal => {
+                    self.tally[13] += 1;
+                    return Outcome::Proved(twin);
                 }
-                WindowAnswer::Partial(vals) => {
-                    if let Some(p) = self.lift(a, b, &vals) {
-                        self.tally[12] += 1;
-                        self.pending.push(p);
-                        self.near.push(vals.iter().map(|&(k, _)| k).collect());
-                        return Some(false);
-                    }
-                }
-                WindowAnswer::Unknown => return None,
+                WindowAnswer::Differ(vals) => self.queue(&vals, None),
+                _ => {}
+            }
+        }
+        let Some(b) = rep else {
+            return Outcome::Open;
+        };
+        for stage in 0..3 {
+            if stage == 2 && !self.large_pays() {
+                break;
+            }
+            match self.stage(stage, a, b) {
+                Outcome::Partial => {}
+                other => return other,
             }
         }
         // Cones beyond the large window stay unmerged: a whole-cone query on a big graph
         // costs more than the merge saves (the output queries still see the whole cone).
         self.whole_cone += 1;
-        None
+        Outcome::Open
+    }
+
+    /// Record a node just built in the merged graph for `g`'s node `i`: its origin and its
+    /// fanout edges.
+    fn note_built(&mut self, i: usize, l: Lit) {
+        let u = l.node();
+        debug_assert_eq!(u as usize, self.rev.len());
+        self.rev.push(i as u32);
+        self.fo_head.push(NO_EDGE);
+        self.fo_next.extend([NO_EDGE; 2]);
+        if let Node::And(x, y) = self.f.node(u) {
+            for (k, v) in [x.node(), y.node()].into_iter().enumerate() {
+                let e = 2 * u + k as u32;
+                self.fo_next[e as usize] = self.fo_head[v as usize];
+                self.fo_head[v as usize] = e;
+            }
+        }
+    }
+
+    /// Members of `i`'s class found near `l` (its image) in the merged graph: nodes within
+    /// [`TWIN_DEPTH`] levels above the nodes within [`TWIN_DEPTH`] levels below `l`. A locally
+    /// rewritten node and its original share such a neighbourhood, however large their
+    /// class. `rep`, when given, is left out (it is tried anyway).
+    fn twins(
+        &mut self,
+        classes: &Classes,
+        side: &[u8],
+        i: usize,
+        l: Lit,
+        rep: Option<Lit>,
+    ) -> Vec<Lit> {
+        let f = &self.f;
+        if self.stamp.len() < f.len() {
+            self.stamp.resize(f.len(), 0);
+            self.value.resize(f.len(), 0);
+        }
+        self.epoch += 1;
+        let epoch = self.epoch;
+        // Downwards, breadth first.
+        let mut down: Vec<(u32, u32)> = vec![(l.node(), 0)];
+        self.stamp[l.node() as usize] = epoch;
+        let mut head = 0;
+        while head < down.len() && down.len() < TWIN_BELOW {
+            let (n, d) = down[head];
+            head += 1;
+            if d == TWIN_DEPTH {
+                continue;
+            }
+            if let Node::And(x, y) = f.node(n) {
+                for c in [x.node(), y.node()] {
+                    if self.stamp[c as usize] != epoch {
+                        self.stamp[c as usize] = epoch;
+                        down.push((c, d + 1));
+                    }
+                }
+            }
+        }
+        // Upwards from each, breadth first, through the fanout lists.
+        let mut up: Vec<(u32, u32)> = down.iter().skip(1).map(|&(n, _)| (n, 0)).collect();
+        let mut out = Vec::new();
+        let mut head = 0;
+        while head < up.len() && up.len() < TWIN_VISITS {
+            let (n, d) = up[head];
+            head += 1;
+            let g0 = self.rev[n as usize] as usize;
+            if g0 != i && side[i] | side[g0] == BOTH {
+                if let Some(c) = classes.same_class(i, g0) {
+                    let t = self.map[g0].xor_complement(c);
+                    if t != l && Some(t) != rep && !out.contains(&t) {
+                        out.push(t);
+                        if out.len() == TWINS_MAX {
+                            break;
+                        }
+                    }
+                }
+            }
+            if d == TWIN_DEPTH {
+                continue;
+            }
+            let mut e = self.fo_head[n as usize];
+            while e != NO_EDGE && up.len() < TWIN_VISITS {
+                let p = e / 2;
+                if self.stamp[p as usize] != epoch {
+                    self.stamp[p as usize] = epoch;
+                    up.push((p, d + 1));
+                }
+                e = self.fo_next[e as usize];
+            }
+        }
+        out
+    }
+
+    /// Whether the large window is still worth its cost: it is dropped once it has mostly
+    /// returned models that do not extend to counterexamples (in random logic these are
+    /// near-constant nodes paired by chance, each a hard query, and nothing is merged).
+    fn large_pays(&self) -> bool {
+        let decided = self.tally[8] + self.tally[9];
+        let partial = self.tally[10];
+        partial < LARGE_GRACE || decided * LARGE_USEFUL_RATIO >= partial
+    }
+
+    /// One window query of `a` against `b` at `stage` (fresh tiny, small, large); a partial
+    /// model that extends to a real counterexample counts as a refutation.
+    fn stage(&mut self, stage: usize, a: Lit, b: Lit) -> Outcome {
+        let t0 = std::time::Instant::now();
+        let ans = match stage {
+            0 => self
+                .window
+                .query_fresh(&self.f, a, b, TINY_WINDOW_BUDGET, WINDOW_CONFLICTS),
+            1 => self
+                .window
+                .query(&self.f, a, b, WINDOW_BUDGET, WINDOW_CONFLICTS),
+            _ => self
+                .window
+                .query(&self.f, a, b, LARGE_WINDOW_BUDGET, SWEEP_CONFLICTS),
+        };
+        let (kind, out) = match ans {
+            WindowAnswer::Equal => (0, Outcome::Proved(b)),
+            WindowAnswer::Differ(vals) => {
+                self.queue(&vals, None);
+                (1, Outcome::Refuted)
+            }
+            WindowAnswer::Partial(vals) => match self.lift(a, b, &vals) {
+                Some(p) => {
+                    self.tally[12] += 1;
+                    self.queue(&vals, Some(p));
+                    (1, Outcome::Refuted)
+                }
+                None => (2, Outcome::Partial),
+            },
+            WindowAnswer::Unknown => (3, Outcome::Open),
+        };
+        self.tally[stage * 4 + kind] += 1;
+        self.times[stage] += t0.elapsed().as_secs_f64();
+        out
+    }
+
+    /// Queue a counterexample: `pattern` if given, else `vals` over a random pattern; the
+    /// window's inputs are the bits its neighbours flip.
+    fn queue(&mut self, vals: &[(u32, bool)], pattern: Option<Vec<bool>>) {
+        let p = pattern.unwrap_or_else(|| {
+            let mut p = self.random_pattern();
+            for &(k, v) in vals {
+                p[k as usize] = v;
+            }
+            p
+        });
+        self.pending.push(p);
+        self.near.push(vals.iter().map(|&(k, _)| k).collect());
     }
 
     /// Try to extend a truncated window's model to a real counterexample: 64 patterns that
@@ -505,12 +689,25 @@ impl Sweeper<'_> {
         out
     }
 
-    /// Simulate the queued patterns (one word) and split the classes. The word's other bits
+    /// Simulate the queued patterns (a word per 64) and split the classes. The word's other bits
     /// are neighbours of the queued patterns at distance one, each with one input of the
     /// refuted window flipped (Mishchenko et al. 2006): a rare distinguishing pattern, such as
     /// a long carry-propagate run in an adder, usually has rare neighbours that distinguish
     /// other candidates too, which random patterns would not find.
     fn refine(&mut self, classes: &mut Classes, done: usize) {
+        // One word per 64 queued patterns.
+        while self.pending.len() > 64 {
+            let rest = self.pending.split_off(64);
+            let rest_near = self.near.split_off(64);
+            self.refine_word(classes, done);
+            self.pending = rest;
+            self.near = rest_near;
+        }
+        self.refine_word(classes, done);
+    }
+
+    /// [`Sweeper::refine`] for at most 64 queued patterns.
+    fn refine_word(&mut self, classes: &mut Classes, done: usize) {
         let n = self.g.num_inputs();
         let q = self.pending.len();
         let mut row: Vec<Vec<u64>> = vec![vec![0u64]; n];

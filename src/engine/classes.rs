@@ -6,6 +6,7 @@
 //! class. The representative of a class is its smallest node index, so in a topological sweep it
 //! is always decided before the other members.
 
+#[cfg(test)]
 use crate::aig::SimTable;
 use crate::hash::FastMap;
 
@@ -24,7 +25,9 @@ pub(crate) struct Classes {
 }
 
 impl Classes {
-    /// Classes from a simulation table of every node.
+    /// Classes from a simulation table of every node, signatures compared exactly (the
+    /// reference the tests hold [`Classes::from_signatures`] to).
+    #[cfg(test)]
     pub(crate) fn from_table(table: &SimTable, nodes: usize) -> Classes {
         let words = table.words;
         let phase: Vec<bool> = (0..nodes)
@@ -87,6 +90,37 @@ impl Classes {
         Classes { rep, phase, active }
     }
 
+    /// Classes from accumulated signatures: nodes with equal signatures form a class. A 64-bit
+    /// collision of two different signatures (about one chance in 10^12 for a million nodes)
+    /// only makes a candidate pair that the sweep refutes.
+    pub(crate) fn from_signatures(sigs: Signatures) -> Classes {
+        let Signatures { sig, phase, .. } = sigs;
+        let nodes = sig.len();
+        let mut keyed: Vec<(u64, u32)> = sig.into_iter().zip(0u32..).collect();
+        keyed.sort_unstable();
+        let mut rep = vec![NONE; nodes];
+        let mut start = 0;
+        while start < keyed.len() {
+            let mut end = start + 1;
+            while end < keyed.len() && keyed[end].0 == keyed[start].0 {
+                end += 1;
+            }
+            if end - start > 1 {
+                // Sorted by (signature, node): the first is the smallest index.
+                let leader = keyed[start].1;
+                for &(_, n) in &keyed[start..end] {
+                    rep[n as usize] = leader;
+                }
+            }
+            start = end;
+        }
+        drop(keyed);
+        let active = (0..nodes as u32)
+            .filter(|&n| rep[n as usize] != NONE)
+            .collect();
+        Classes { rep, phase, active }
+    }
+
     /// The representative of `n`'s class and whether `n` is its complement, when `n` is a
     /// member other than the representative.
     #[inline]
@@ -143,6 +177,38 @@ impl Classes {
     }
 }
 
+/// Signatures of every node built one simulation word at a time (so that only one word of
+/// values per node is alive): a hash of the node's phase-normalised words.
+pub(crate) struct Signatures {
+    sig: Vec<u64>,
+    phase: Vec<bool>,
+    words: usize,
+}
+
+impl Signatures {
+    /// Empty signatures of `nodes` nodes.
+    pub(crate) fn new(nodes: usize) -> Signatures {
+        Signatures {
+            sig: vec![0x243F_6A88_85A3_08D3; nodes],
+            phase: vec![false; nodes],
+            words: 0,
+        }
+    }
+
+    /// Add one word of simulation values (`values[node]`); the first word sets the phases.
+    pub(crate) fn add(&mut self, values: &[u64]) {
+        if self.words == 0 {
+            for (p, &v) in self.phase.iter_mut().zip(values) {
+                *p = v & 1 == 1;
+            }
+        }
+        self.words += 1;
+        for ((s, &p), &v) in self.sig.iter_mut().zip(&self.phase).zip(values) {
+            *s = mix(*s ^ if p { !v } else { v });
+        }
+    }
+}
+
 /// A 64-bit mixing step (SplitMix64 finaliser).
 #[inline]
 fn mix(mut z: u64) -> u64 {
@@ -183,5 +249,40 @@ mod tests {
         vals[y.index()] = 1;
         c.refine(&vals, 0);
         assert!(c.candidate(y.index()).is_none());
+    }
+
+    #[test]
+    fn signatures_give_the_partition_of_the_whole_table() {
+        // A random graph with many equal and complementary nodes (small fan-in range).
+        let mut g = Aig::new();
+        let ins: Vec<_> = (0..6).map(|_| g.add_input()).collect();
+        let mut lits = ins.clone();
+        let mut r = 12345u64;
+        for _ in 0..400 {
+            r = mix(r.wrapping_add(0x9E37_79B9_7F4A_7C15));
+            let a = lits[(r % lits.len() as u64) as usize];
+            let b = lits[((r >> 20) % lits.len() as u64) as usize];
+            let l = g.and(
+                a.xor_complement(r >> 40 & 1 == 1),
+                b.xor_complement(r >> 41 & 1 == 1),
+            );
+            lits.push(l);
+        }
+        let words = 3;
+        let pats = random_words(ins.len(), words, 9);
+        let whole = Classes::from_table(&simulate(&g, &pats, words), g.len());
+        let mut sigs = Signatures::new(g.len());
+        for w in 0..words {
+            let one: Vec<Vec<u64>> = pats.iter().map(|p| vec![p[w]]).collect();
+            sigs.add(&simulate(&g, &one, 1).values);
+        }
+        let by_word = Classes::from_signatures(sigs);
+        assert!(whole.count() > 5, "the graph should have classes");
+        for a in 0..g.len() {
+            assert_eq!(whole.candidate(a), by_word.candidate(a), "node {a}");
+            for b in 0..g.len() {
+                assert_eq!(whole.same_class(a, b), by_word.same_class(a, b));
+            }
+        }
     }
 }

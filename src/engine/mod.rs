@@ -160,6 +160,7 @@ pub fn prove_shared(
     let mut outcomes = vec![Outcome::Open; shared.pairs.len()];
     let mut cexs: Vec<Counterexample> = Vec::new();
 
+    log::debug!("memory with the shared AIG built: {}", memory_now());
     let progress = Progress::new(opts.progress, shared.pairs.len());
     let patterns = if opts.engine == EngineKind::Plain {
         0
@@ -438,8 +439,20 @@ fn peak_memory_note(nodes: usize) -> String {
 
 /// Peak resident set size of this process in bytes, where the system reports it.
 pub fn peak_rss_bytes() -> Option<u64> {
+    status_kib("VmHWM:").map(|kb| kb * 1024)
+}
+
+/// Current and peak resident memory in MiB, for the debug log of each phase.
+pub(crate) fn memory_now() -> String {
+    match (status_kib("VmRSS:"), status_kib("VmHWM:")) {
+        (Some(now), Some(peak)) => format!("{} MiB resident, {} MiB peak", now >> 10, peak >> 10),
+        _ => "not available on this system".to_string(),
+    }
+}
+
+/// A field of /proc/self/status in KiB.
+fn status_kib(field: &str) -> Option<u64> {
     let s = std::fs::read_to_string("/proc/self/status").ok()?;
-    let line = s.lines().find(|l| l.starts_with("VmHWM:"))?;
-    let kb: u64 = line.split_whitespace().nth(1)?.parse().ok()?;
-    Some(kb * 1024)
+    let line = s.lines().find(|l| l.starts_with(field))?;
+    line.split_whitespace().nth(1)?.parse().ok()
 }

@@ -9,7 +9,7 @@
 //! two literals equal), so the merged graph computes the same function at every mapped node;
 //! debug builds re-simulate every stored pattern on both graphs to check it.
 
-use super::classes::Classes;
+use super::classes::{Classes, Signatures};
 use super::pairs::{decide_pairs, PairQuery};
 use super::progress::Progress;
 use super::split;
@@ -158,30 +158,29 @@ pub(crate) fn sweep(
     }
     let words = cone.words.unwrap_or_else(|| sweep_words(g.len()));
     let ins = random_words(g.num_inputs(), words, cone.seed ^ 0x5EED_5EED);
-    // Classes from the first word, then split by each further word: the same partition as
-    // from all words at once, with one word of simulation values per node alive at a time.
+    // Signatures accumulated a word at a time: the partition of all words at once, with one
+    // word of simulation values per node alive at a time.
     let mut table = SimTable::default();
     let mut row: Vec<Vec<u64>> = vec![vec![0]; ins.len()];
-    let mut classes = None;
+    let mut sigs = Signatures::new(g.len());
     for w in 0..words {
         for (r, i) in row.iter_mut().zip(&ins) {
             r[0] = i[w];
         }
         simulate_into(g, &row, 1, &mut table);
-        match &mut classes {
-            None => classes = Some(Classes::from_table(&table, g.len())),
-            Some(c) => c.refine(&table.values, 0),
-        }
+        sigs.add(&table.values);
     }
-    let mut classes = classes.unwrap_or_else(|| Classes::from_table(&table, g.len()));
+    drop(table);
+    let mut classes = Classes::from_signatures(sigs);
     st.classes = classes.count();
     st.candidates = classes.members();
     log::debug!(
-        "sweep: {} nodes, {} words, {} candidate classes over {} nodes",
+        "sweep: {} nodes, {} words, {} candidate classes over {} nodes; memory {}",
         g.len(),
         words,
         st.classes,
-        st.candidates
+        st.candidates,
+        super::memory_now()
     );
     progress.add_classes(st.classes as i64);
     let mut sw = Sweeper {
@@ -306,14 +305,15 @@ pub(crate) fn sweep(
         sw.global.stats()
     );
     log::debug!(
-        "sweep: merged {} by hashing and {} by SAT, {} refuted, {} unresolved, {} patterns fed back; {} -> {} AND nodes",
+        "sweep: merged {} by hashing and {} by SAT, {} refuted, {} unresolved, {} patterns fed back; {} -> {} AND nodes; memory {}",
         st.merged_by_hashing,
         st.merged_by_sat,
         st.refuted,
         st.unresolved,
         st.patterns_fed_back,
         st.ands_before,
-        st.ands_after
+        st.ands_after,
+        super::memory_now()
     );
     // Decide the output pairs on the merged graph.
     let mapped: Vec<PairQuery> = cone

@@ -20,7 +20,6 @@
 
 use crate::aig::{Aig, Lit, Node};
 use crate::sat::{CLit, ClauseSink, Limits, Sat, SatResult, SatStats};
-use std::collections::HashMap;
 
 /// Variables the small solver of [`Window::query_fresh`] may accumulate before it is replaced
 /// (varisat assigns every variable of a solver before it reports a model).
@@ -49,9 +48,13 @@ pub(crate) enum WindowAnswer {
 /// The small solver of [`Window::query_fresh`] and its scratch space.
 struct Fresh {
     sat: Sat<'static>,
-    vars: HashMap<u32, CLit>,
+    /// Each graph node's variable in the current query, valid when its stamp is `epoch`.
+    var: Vec<(u32, CLit)>,
+    epoch: u32,
     order: Vec<u32>,
+    /// The window's nodes, breadth first.
     stack: Vec<u32>,
+    scope: Vec<CLit>,
 }
 
 /// A reusable window prover.
@@ -80,9 +83,11 @@ impl Window {
         Window {
             fresh: Fresh {
                 sat: Sat::new(limits),
-                vars: HashMap::new(),
+                var: Vec::new(),
+                epoch: 0,
                 order: Vec::new(),
                 stack: Vec::new(),
+                scope: Vec::new(),
             },
             sat: Sat::new(limits),
             limits: limits.clone(),
@@ -123,60 +128,80 @@ impl Window {
         }
         // Collect the window: nodes reached from the two roots, AND nodes expanded while the
         // budget lasts.
-        self.fresh.vars.clear();
-        self.fresh.order.clear();
-        self.fresh.stack.clear();
-        self.fresh.stack.push(a.node());
-        self.fresh.stack.push(b.node());
+        let fr = &mut self.fresh;
+        if fr.var.len() < f.len() {
+            fr.var.resize(f.len(), (0, CLit::from_index(0, true)));
+        }
+        fr.epoch = fr.epoch.wrapping_add(1);
+        if fr.epoch == 0 {
+            fr.var.iter_mut().for_each(|v| v.0 = 0);
+            fr.epoch = 1;
+        }
+        let e = fr.epoch;
+        fr.order.clear();
+        fr.stack.clear();
+        fr.scope.clear();
         let mut expanded = 0usize;
         let mut complete = true;
-        let act = self.fresh.sat.fresh();
+        let act = fr.sat.fresh();
+        fr.scope.push(act);
+        for n in [a.node(), b.node()] {
+            if fr.var[n as usize].0 != e {
+                let v = fr.sat.fresh();
+                fr.var[n as usize] = (e, v);
+                fr.stack.push(n);
+            }
+        }
         // Breadth first, so that the window holds the nodes nearest the two literals.
         let mut head = 0;
-        while head < self.fresh.stack.len() {
-            let n = self.fresh.stack[head];
+        while head < fr.stack.len() {
+            let n = fr.stack[head];
             head += 1;
-            if self.fresh.vars.contains_key(&n) {
-                continue;
-            }
-            let v = self.fresh.sat.fresh();
-            self.fresh.vars.insert(n, v);
+            let v = fr.var[n as usize].1;
+            fr.scope.push(v);
             if let Node::And(x, y) = f.node(n) {
                 if expanded < budget {
                     expanded += 1;
-                    self.fresh.order.push(n);
-                    self.fresh.stack.push(x.node());
-                    self.fresh.stack.push(y.node());
+                    fr.order.push(n);
+                    for c in [x.node(), y.node()] {
+                        if fr.var[c as usize].0 != e {
+                            let v = fr.sat.fresh();
+                            fr.var[c as usize] = (e, v);
+                            fr.stack.push(c);
+                        }
+                    }
                 } else {
                     complete = false;
                 }
             } else if n == 0 {
-                self.fresh.sat.clause(&[!act, !v]);
+                fr.sat.clause(&[!act, !v]);
             }
         }
-        for &n in &self.fresh.order {
+        for &n in &fr.order {
             if let Node::And(x, y) = f.node(n) {
-                let z = self.fresh.vars[&n];
-                let cx = lit_of(self.fresh.vars[&x.node()], x);
-                let cy = lit_of(self.fresh.vars[&y.node()], y);
-                self.fresh.sat.clause(&[!act, !z, cx]);
-                self.fresh.sat.clause(&[!act, !z, cy]);
-                self.fresh.sat.clause(&[!act, z, !cx, !cy]);
+                let z = fr.var[n as usize].1;
+                let cx = lit_of(fr.var[x.index()].1, x);
+                let cy = lit_of(fr.var[y.index()].1, y);
+                fr.sat.clause(&[!act, !z, cx]);
+                fr.sat.clause(&[!act, !z, cy]);
+                fr.sat.clause(&[!act, z, !cx, !cy]);
             }
         }
-        let ca = lit_of(self.fresh.vars[&a.node()], a);
-        let cb = lit_of(self.fresh.vars[&b.node()], b);
-        self.fresh.sat.clause(&[!act, ca, cb]);
-        self.fresh.sat.clause(&[!act, !ca, !cb]);
-        let answer = match self.fresh.sat.solve_within(&[act], Some(conflicts)) {
+        let ca = lit_of(fr.var[a.index()].1, a);
+        let cb = lit_of(fr.var[b.index()].1, b);
+        fr.sat.clause(&[!act, ca, cb]);
+        fr.sat.clause(&[!act, !ca, !cb]);
+        // Decide only on this window: the variables of earlier windows, whose clauses are
+        // all satisfied by their spent activation literals, are left free.
+        fr.sat.set_scope(Some(&fr.scope));
+        let answer = match fr.sat.solve_within(&[act], Some(conflicts)) {
             SatResult::Unsat => WindowAnswer::Equal,
             SatResult::Sat => {
-                let mut values: Vec<(u32, bool)> = self
-                    .fresh
-                    .vars
+                let mut values: Vec<(u32, bool)> = fr
+                    .stack
                     .iter()
-                    .filter_map(|(&n, &v)| match f.node(n) {
-                        Node::Input(k) => Some((k, self.fresh.sat.value(v))),
+                    .filter_map(|&n| match f.node(n) {
+                        Node::Input(k) => Some((k, fr.sat.value(fr.var[n as usize].1))),
                         _ => None,
                     })
                     .collect();
@@ -189,7 +214,7 @@ impl Window {
             }
             SatResult::Stopped(_) => WindowAnswer::Unknown,
         };
-        self.fresh.sat.clause(&[!act]);
+        fr.sat.clause(&[!act]);
         answer
     }
 

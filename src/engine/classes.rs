@@ -8,7 +8,6 @@
 
 #[cfg(test)]
 use crate::aig::SimTable;
-use crate::hash::FastMap;
 
 /// No class (a singleton).
 const NONE: u32 = u32::MAX;
@@ -20,7 +19,7 @@ pub(crate) struct Classes {
     rep: Vec<u32>,
     /// Phase of each node (value under the first pattern).
     phase: Vec<bool>,
-    /// Nodes in classes of two or more, ascending.
+    /// Nodes in classes of two or more, class by class (each class contiguous and ascending).
     active: Vec<u32>,
 }
 
@@ -84,9 +83,10 @@ impl Classes {
             }
             start = end;
         }
-        let active = (0..nodes as u32)
+        let mut active: Vec<u32> = (0..nodes as u32)
             .filter(|&n| rep[n as usize] != NONE)
             .collect();
+        active.sort_unstable_by_key(|&n| (rep[n as usize], n));
         Classes { rep, phase, active }
     }
 
@@ -114,10 +114,10 @@ impl Classes {
             }
             start = end;
         }
-        drop(keyed);
-        let active = (0..nodes as u32)
-            .filter(|&n| rep[n as usize] != NONE)
-            .collect();
+        // The members, class by class, each class ascending.
+        let mut active = keyed;
+        active.retain(|&(_, n)| rep[n as usize] != NONE);
+        let active = active.into_iter().map(|(_, n)| n).collect();
         Classes { rep, phase, active }
     }
 
@@ -141,26 +141,59 @@ impl Classes {
 
     /// Split the classes by one more word of simulation values (`values[node]`). `done` is
     /// the sweep's position (kept for callers; every member stays, since a passed member can
-    /// still represent a later node once its class splits).
+    /// still represent a later node once its class splits). Classes are contiguous in
+    /// `active`, so a class that the word does not split costs one comparison per member and
+    /// no memory, and a split one is sorted on its own.
     pub(crate) fn refine(&mut self, values: &[u64], done: usize) {
         let _ = done;
-        let mut seen: FastMap<(u32, u64), (u32, u32)> =
-            FastMap::with_capacity_and_hasher(self.active.len(), Default::default());
-        for &n in &self.active {
+        let phase = &self.phase;
+        let norm = |n: u32| {
             let v = values[n as usize];
-            let v = if self.phase[n as usize] { !v } else { v };
-            seen.entry((self.rep[n as usize], v))
-                .and_modify(|e| e.1 += 1)
-                .or_insert((n, 1));
+            if phase[n as usize] {
+                !v
+            } else {
+                v
+            }
+        };
+        let mut out = 0;
+        let mut start = 0;
+        let mut scratch: Vec<(u64, u32)> = Vec::new();
+        while start < self.active.len() {
+            let r = self.rep[self.active[start] as usize];
+            let mut end = start + 1;
+            while end < self.active.len() && self.rep[self.active[end] as usize] == r {
+                end += 1;
+            }
+            let lead = norm(self.active[start]);
+            if self.active[start + 1..end].iter().all(|&n| norm(n) == lead) {
+                self.active.copy_within(start..end, out);
+                out += end - start;
+            } else {
+                scratch.clear();
+                scratch.extend(self.active[start..end].iter().map(|&n| (norm(n), n)));
+                scratch.sort_unstable();
+                let mut a = 0;
+                while a < scratch.len() {
+                    let mut b = a + 1;
+                    while b < scratch.len() && scratch[b].0 == scratch[a].0 {
+                        b += 1;
+                    }
+                    if b - a == 1 {
+                        self.rep[scratch[a].1 as usize] = NONE;
+                    } else {
+                        let leader = scratch[a].1;
+                        for &(_, n) in &scratch[a..b] {
+                            self.rep[n as usize] = leader;
+                            self.active[out] = n;
+                            out += 1;
+                        }
+                    }
+                    a = b;
+                }
+            }
+            start = end;
         }
-        for &n in &self.active {
-            let v = values[n as usize];
-            let v = if self.phase[n as usize] { !v } else { v };
-            let (r, k) = seen[&(self.rep[n as usize], v)];
-            self.rep[n as usize] = if k > 1 { r } else { NONE };
-        }
-        let rep = &self.rep;
-        self.active.retain(|&n| rep[n as usize] != NONE);
+        self.active.truncate(out);
     }
 
     /// Number of classes with two or more members.
@@ -277,11 +310,22 @@ mod tests {
             sigs.add(&simulate(&g, &one, 1).values);
         }
         let by_word = Classes::from_signatures(sigs);
+        // The first word's classes, split by each further word, are the same partition too.
+        let first: Vec<Vec<u64>> = pats.iter().map(|p| vec![p[0]]).collect();
+        let mut split = Classes::from_table(&simulate(&g, &first, 1), g.len());
+        for w in 1..words {
+            let one: Vec<Vec<u64>> = pats.iter().map(|p| vec![p[w]]).collect();
+            split.refine(&simulate(&g, &one, 1).values, 0);
+        }
+        assert_eq!(split.count(), whole.count());
+        assert_eq!(split.members(), whole.members());
         assert!(whole.count() > 5, "the graph should have classes");
         for a in 0..g.len() {
             assert_eq!(whole.candidate(a), by_word.candidate(a), "node {a}");
+            assert_eq!(whole.candidate(a), split.candidate(a), "node {a}");
             for b in 0..g.len() {
                 assert_eq!(whole.same_class(a, b), by_word.same_class(a, b));
+                assert_eq!(whole.same_class(a, b), split.same_class(a, b));
             }
         }
     }

@@ -160,6 +160,7 @@ pub fn prove_shared(
     let mut outcomes = vec![Outcome::Open; shared.pairs.len()];
     let mut cexs: Vec<Counterexample> = Vec::new();
 
+    let rss_at_start = status_kib("VmRSS:");
     log::debug!("memory with the shared AIG built: {}", memory_now());
     let progress = Progress::new(opts.progress, shared.pairs.len());
     let patterns = if opts.engine == EngineKind::Plain {
@@ -327,6 +328,9 @@ pub fn prove_shared(
             sim_patterns: patterns,
             sat,
             sweep: sweep_stats,
+            engine_memory_bytes: rss_at_start
+                .zip(status_kib("VmHWM:"))
+                .map(|(a, p)| p.saturating_sub(a) * 1024),
             seconds: start.elapsed().as_secs_f64(),
         },
         warnings,

@@ -131,6 +131,11 @@ pub struct Stats {
     /// Sweeping figures (the `sweep` engine only).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub sweep: Option<crate::engine::SweepStats>,
+    /// Memory the proof added at its peak, in bytes: peak resident memory at the end minus
+    /// resident memory when it began, with both designs and the shared AIG already built
+    /// (absent where the system does not report it).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub engine_memory_bytes: Option<u64>,
     /// Wall-clock seconds for the whole run.
     pub seconds: f64,
 }

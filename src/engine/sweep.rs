@@ -17,6 +17,7 @@ use super::window::{Window, WindowAnswer};
 use super::Finding;
 use crate::aig::{random_words, simulate, simulate_into, Aig, Lit, Node, SimTable};
 use crate::cnf::Tseitin;
+use crate::hash::FastMap;
 use crate::sat::{Limits, Sat, SatStats, StopReason};
 use serde::Serialize;
 
@@ -199,7 +200,7 @@ pub(crate) fn sweep(
         fo_head: vec![NO_EDGE],
         fo_next: vec![NO_EDGE; 2],
         stamp: Vec::new(),
-        value: Vec::new(),
+        value: FastMap::default(),
         epoch: 0,
         rng: cone.seed.wrapping_mul(0x9E37_79B9_7F4A_7C15) | 1,
         stored: if cfg!(debug_assertions) {
@@ -208,7 +209,6 @@ pub(crate) fn sweep(
             Vec::new()
         },
     };
-    sw.f.reserve(g.len());
     let side = sides(g, &cone.pairs);
     // Counterexamples wait for a batch before they are simulated on the whole graph: one
     // at a time for small graphs, up to 64 (one word) for large ones.
@@ -410,7 +410,7 @@ struct Sweeper<'a> {
     fo_next: Vec<u32>,
     /// Scratch for [`Sweeper::lift`] and [`Sweeper::twins`]: visit stamps and simulation words per merged-graph node.
     stamp: Vec<u32>,
-    value: Vec<u64>,
+    value: FastMap<u32, u64>,
     epoch: u32,
     /// Every simulated pattern word per input (debug builds only, for the merge check).
     stored: Vec<Vec<u64>>,
@@ -490,7 +490,6 @@ impl Sweeper<'_> {
         let f = &self.f;
         if self.stamp.len() < f.len() {
             self.stamp.resize(f.len(), 0);
-            self.value.resize(f.len(), 0);
         }
         self.epoch += 1;
         let epoch = self.epoch;
@@ -613,7 +612,6 @@ impl Sweeper<'_> {
         let f = &self.f;
         if self.stamp.len() < f.len() {
             self.stamp.resize(f.len(), 0);
-            self.value.resize(f.len(), 0);
         }
         self.epoch += 1;
         let epoch = self.epoch;
@@ -634,6 +632,7 @@ impl Sweeper<'_> {
             }
         }
         cone.sort_unstable();
+        self.value.clear();
         let mut fixed_word = vec![None; 0];
         fixed_word.resize(f.num_inputs(), None);
         for &(k, v) in fixed {
@@ -648,15 +647,15 @@ impl Sweeper<'_> {
                     mix(rng)
                 }),
                 Node::And(x, y) => {
-                    let vx = self.value[x.index()] ^ if x.is_complemented() { u64::MAX } else { 0 };
-                    let vy = self.value[y.index()] ^ if y.is_complemented() { u64::MAX } else { 0 };
+                    let vx = self.value[&x.node()] ^ if x.is_complemented() { u64::MAX } else { 0 };
+                    let vy = self.value[&y.node()] ^ if y.is_complemented() { u64::MAX } else { 0 };
                     vx & vy
                 }
             };
-            self.value[n as usize] = v;
+            self.value.insert(n, v);
         }
         self.rng = rng;
-        let word = |l: Lit| self.value[l.index()] ^ if l.is_complemented() { u64::MAX } else { 0 };
+        let word = |l: Lit| self.value[&l.node()] ^ if l.is_complemented() { u64::MAX } else { 0 };
         let d = word(a) ^ word(b);
         if d == 0 {
             return None;
@@ -665,7 +664,7 @@ impl Sweeper<'_> {
         let mut p = self.random_pattern();
         for &n in &cone {
             if let Node::Input(k) = self.f.node(n) {
-                p[k as usize] = (self.value[n as usize] >> bit) & 1 == 1;
+                p[k as usize] = (self.value[&n] >> bit) & 1 == 1;
             }
         }
         Some(p)

@@ -48,9 +48,11 @@ pub(crate) enum WindowAnswer {
 /// The small solver of [`Window::query_fresh`] and its scratch space.
 struct Fresh {
     sat: Sat<'static>,
-    /// Each graph node's variable in the current query, valid when its stamp is `epoch`.
-    var: Vec<(u32, CLit)>,
-    epoch: u32,
+    /// Each graph node's variable as a number over every small solver so far, plus one (0:
+    /// none); valid for the current query when at least the query's first number.
+    var: Vec<u32>,
+    /// The number of the current small solver's first variable.
+    base: u32,
     order: Vec<u32>,
     /// The window's nodes, breadth first.
     stack: Vec<u32>,
@@ -63,10 +65,9 @@ pub(crate) struct Window {
     sat: Sat<'static>,
     limits: Limits,
     retired: SatStats,
-    /// Variable of each graph node in the current solver (`None`: not yet seen).
-    var: Vec<Option<CLit>>,
-    /// Whether a node's gate clauses are in the current solver.
-    gated: Vec<bool>,
+    /// Each graph node's slot in the current solver: 0 when not yet seen, else its variable's
+    /// index plus one, shifted left, with the low bit set once its gate clauses are in.
+    var: Vec<u32>,
     /// Visit stamps of the current query.
     stamp: Vec<u32>,
     epoch: u32,
@@ -84,7 +85,7 @@ impl Window {
             fresh: Fresh {
                 sat: Sat::new(limits),
                 var: Vec::new(),
-                epoch: 0,
+                base: 0,
                 order: Vec::new(),
                 stack: Vec::new(),
                 scope: Vec::new(),
@@ -93,7 +94,6 @@ impl Window {
             limits: limits.clone(),
             retired: SatStats::default(),
             var: Vec::new(),
-            gated: Vec::new(),
             stamp: Vec::new(),
             epoch: 0,
             order: Vec::new(),
@@ -123,21 +123,25 @@ impl Window {
         conflicts: u64,
     ) -> WindowAnswer {
         if self.fresh.sat.stats().vars >= FRESH_VARS_PER_SOLVER {
+            let used = self.fresh.sat.stats().vars;
             self.retired.add(&self.fresh.sat.stats());
             self.fresh.sat = Sat::new(&self.limits);
+            self.fresh.base = self.fresh.base.saturating_add(used as u32);
+            if self.fresh.base > u32::MAX / 2 {
+                self.fresh.var.iter_mut().for_each(|v| *v = 0);
+                self.fresh.base = 0;
+            }
         }
         // Collect the window: nodes reached from the two roots, AND nodes expanded while the
         // budget lasts.
         let fr = &mut self.fresh;
         if fr.var.len() < f.len() {
-            fr.var.resize(f.len(), (0, CLit::from_index(0, true)));
+            fr.var.resize(f.len(), 0);
         }
-        fr.epoch = fr.epoch.wrapping_add(1);
-        if fr.epoch == 0 {
-            fr.var.iter_mut().for_each(|v| v.0 = 0);
-            fr.epoch = 1;
-        }
-        let e = fr.epoch;
+        let base = fr.base;
+        // Slots above `first` belong to this query.
+        let first = base + fr.sat.stats().vars as u32;
+        let lit = |slot: u32| varisat::Var::from_index((slot - 1 - base) as usize).positive();
         fr.order.clear();
         fr.stack.clear();
         fr.scope.clear();
@@ -146,9 +150,9 @@ impl Window {
         let act = fr.sat.fresh();
         fr.scope.push(act);
         for n in [a.node(), b.node()] {
-            if fr.var[n as usize].0 != e {
+            if fr.var[n as usize] <= first {
                 let v = fr.sat.fresh();
-                fr.var[n as usize] = (e, v);
+                fr.var[n as usize] = base + v.var().index() as u32 + 1;
                 fr.stack.push(n);
             }
         }
@@ -157,16 +161,16 @@ impl Window {
         while head < fr.stack.len() {
             let n = fr.stack[head];
             head += 1;
-            let v = fr.var[n as usize].1;
+            let v = lit(fr.var[n as usize]);
             fr.scope.push(v);
             if let Node::And(x, y) = f.node(n) {
                 if expanded < budget {
                     expanded += 1;
                     fr.order.push(n);
                     for c in [x.node(), y.node()] {
-                        if fr.var[c as usize].0 != e {
+                        if fr.var[c as usize] <= first {
                             let v = fr.sat.fresh();
-                            fr.var[c as usize] = (e, v);
+                            fr.var[c as usize] = base + v.var().index() as u32 + 1;
                             fr.stack.push(c);
                         }
                     }
@@ -179,16 +183,16 @@ impl Window {
         }
         for &n in &fr.order {
             if let Node::And(x, y) = f.node(n) {
-                let z = fr.var[n as usize].1;
-                let cx = lit_of(fr.var[x.index()].1, x);
-                let cy = lit_of(fr.var[y.index()].1, y);
+                let z = lit(fr.var[n as usize]);
+                let cx = lit_of(lit(fr.var[x.index()]), x);
+                let cy = lit_of(lit(fr.var[y.index()]), y);
                 fr.sat.clause(&[!act, !z, cx]);
                 fr.sat.clause(&[!act, !z, cy]);
                 fr.sat.clause(&[!act, z, !cx, !cy]);
             }
         }
-        let ca = lit_of(fr.var[a.index()].1, a);
-        let cb = lit_of(fr.var[b.index()].1, b);
+        let ca = lit_of(lit(fr.var[a.index()]), a);
+        let cb = lit_of(lit(fr.var[b.index()]), b);
         fr.sat.clause(&[!act, ca, cb]);
         fr.sat.clause(&[!act, !ca, !cb]);
         // Decide only on this window: the variables of earlier windows, whose clauses are
@@ -201,7 +205,7 @@ impl Window {
                     .stack
                     .iter()
                     .filter_map(|&n| match f.node(n) {
-                        Node::Input(k) => Some((k, fr.sat.value(fr.var[n as usize].1))),
+                        Node::Input(k) => Some((k, fr.sat.value(lit(fr.var[n as usize])))),
                         _ => None,
                     })
                     .collect();
@@ -218,12 +222,19 @@ impl Window {
         answer
     }
 
+    /// The variable of node `n` if it has one.
+    #[inline]
+    fn seen(&self, n: u32) -> Option<CLit> {
+        let s = self.var[n as usize] >> 1;
+        (s != 0).then(|| varisat::Var::from_index(s as usize - 1).positive())
+    }
+
     fn var_of(&mut self, f: &Aig, n: u32) -> CLit {
-        if let Some(v) = self.var[n as usize] {
+        if let Some(v) = self.seen(n) {
             return v;
         }
         let v = self.sat.fresh();
-        self.var[n as usize] = Some(v);
+        self.var[n as usize] = (v.var().index() as u32 + 1) << 1;
         if let Node::Const = f.node(n) {
             self.sat.clause(&[!v]);
         }
@@ -243,13 +254,11 @@ impl Window {
         if self.sat.stats().vars >= VARS_PER_SOLVER {
             self.retired.add(&self.sat.stats());
             self.sat = Sat::new(&self.limits);
-            self.var.iter_mut().for_each(|v| *v = None);
-            self.gated.iter_mut().for_each(|g| *g = false);
+            self.var.iter_mut().for_each(|v| *v = 0);
             self.spent.clear();
         }
         if self.var.len() < f.len() {
-            self.var.resize(f.len(), None);
-            self.gated.resize(f.len(), false);
+            self.var.resize(f.len(), 0);
             self.stamp.resize(f.len(), 0);
         }
         self.epoch = self.epoch.wrapping_add(1);
@@ -289,12 +298,12 @@ impl Window {
         }
         for i in 0..self.order.len() {
             let n = self.order[i];
-            if self.gated[n as usize] {
+            if self.var[n as usize] & 1 == 1 {
                 continue;
             }
-            self.gated[n as usize] = true;
+            self.var[n as usize] |= 1;
             if let Node::And(x, y) = f.node(n) {
-                let z = self.var[n as usize].expect("in the window");
+                let z = self.seen(n).expect("in the window");
                 let cx = lit_of(self.var_of(f, x.node()), x);
                 let cy = lit_of(self.var_of(f, y.node()), y);
                 self.sat.clause(&[!z, cx]);
@@ -304,8 +313,8 @@ impl Window {
         }
         let act = self.sat.fresh();
         self.scope.push(act);
-        let ca = lit_of(self.var[a.index()].expect("in the window"), a);
-        let cb = lit_of(self.var[b.index()].expect("in the window"), b);
+        let ca = lit_of(self.seen(a.node()).expect("in the window"), a);
+        let cb = lit_of(self.seen(b.node()).expect("in the window"), b);
         self.sat.clause(&[!act, ca, cb]);
         self.sat.clause(&[!act, !ca, !cb]);
         self.sat.set_scope(Some(&self.scope));
@@ -317,9 +326,7 @@ impl Window {
                     .iter()
                     .filter(|&&n| self.stamp[n as usize] == self.epoch)
                     .filter_map(|&n| match f.node(n) {
-                        Node::Input(k) => {
-                            Some((k, self.sat.value(self.var[n as usize].expect("seen"))))
-                        }
+                        Node::Input(k) => Some((k, self.sat.value(self.seen(n).expect("seen")))),
                         _ => None,
                     })
                     .collect();

@@ -48,120 +48,202 @@ pub(crate) enum SplitResult {
     Stopped(StopReason),
 }
 
+/// One cofactor to examine: the parent graph with its roots, the inputs fixed so far (positions
+/// in the original graph), and one more to fix. `orig[k]` is the position in the original graph
+/// of the parent's input k (cofactors keep only the inputs of their cones); `fix` is the
+/// parent's input position to fix, with its value.
+struct Item {
+    parent: Arc<Aig>,
+    orig: Arc<Vec<usize>>,
+    roots: [Lit; 3],
+    fixed: Vec<(usize, bool)>,
+    fix: Option<(usize, bool)>,
+}
+
+/// What examining one cofactor gave.
+enum Step {
+    /// Equal in this cofactor.
+    Equal,
+    /// Different under these values of the original graph's inputs.
+    Differ(Vec<bool>),
+    Stopped(StopReason),
+    /// Split again: its two cofactors, the one to examine first last.
+    Split(Item, Item),
+}
+
+/// Limits of one worklist: cofactors and nodes rebuilt.
+#[derive(Clone, Copy)]
+struct Budget {
+    leaves: usize,
+    work: usize,
+}
+
 /// Decide whether `a == b` wherever `constraint` holds, by case splitting. Each cofactor is
-/// built from its parent cofactor, so the graphs shrink as inputs are fixed.
+/// built from its parent cofactor, so the graphs shrink as inputs are fixed. The two halves of
+/// the first split are examined in parallel (`rayon::join`, on the caller's pool), each with
+/// half the budget: the answer depends only on the graph, never on the number of threads (when
+/// both halves find a counterexample, the one of the half examined first alone is returned).
 pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits) -> SplitResult {
     let n = aig.num_inputs();
-    // Work items: the parent graph with its roots, the inputs fixed so far, and one more to fix.
-    // `orig[k]` is the position in `aig` of the graph's input k (cofactors keep only the
-    // inputs of their cones); `fix` is the parent's input position to fix, with its value.
-    type Item = (
-        Arc<Aig>,
-        Arc<Vec<usize>>,
-        [Lit; 3],
-        Vec<(usize, bool)>,
-        Option<(usize, bool)>,
-    );
-    let root = Arc::new(aig.clone());
-    let work_limit = WORK_FLOOR.saturating_add(WORK_FACTOR.saturating_mul(aig.len()));
-    let mut work = 0usize;
-    let mut stack: Vec<Item> = vec![(
-        root,
-        Arc::new((0..n).collect()),
-        [a, b, constraint],
-        Vec::new(),
-        None,
-    )];
+    let budget = Budget {
+        leaves: MAX_LEAVES,
+        work: WORK_FLOOR.saturating_add(WORK_FACTOR.saturating_mul(aig.len())),
+    };
+    let root = Item {
+        parent: Arc::new(aig.clone()),
+        orig: Arc::new((0..n).collect()),
+        roots: [a, b, constraint],
+        fixed: Vec::new(),
+        fix: None,
+    };
+    if limits.expired() {
+        return SplitResult::Stopped(StopReason::Timeout);
+    }
+    let (result, leaves) = match step(root, n, limits) {
+        Step::Equal => (SplitResult::Equal, 1),
+        Step::Differ(v) => (SplitResult::Differ(v), 1),
+        Step::Stopped(r) => (SplitResult::Stopped(r), 1),
+        Step::Split(later, first) => {
+            let half = Budget {
+                leaves: budget.leaves / 2,
+                work: budget.work / 2,
+            };
+            let ((rf, lf), (rl, ll)) = rayon::join(
+                || run(vec![first], n, limits, half),
+                || run(vec![later], n, limits, half),
+            );
+            let result = match (rf, rl) {
+                (d @ SplitResult::Differ(_), _) | (_, d @ SplitResult::Differ(_)) => d,
+                (s @ SplitResult::Stopped(_), _) | (_, s @ SplitResult::Stopped(_)) => s,
+                _ => SplitResult::Equal,
+            };
+            (result, 1 + lf + ll)
+        }
+    };
+    if result == SplitResult::Equal {
+        log::debug!("split: equal in all {leaves} cofactors");
+    }
+    result
+}
+
+/// Examine cofactors depth first from `stack` until one differs, the budget or the time runs
+/// out, or all are equal; also returns the number examined.
+fn run(mut stack: Vec<Item>, n: usize, limits: &Limits, budget: Budget) -> (SplitResult, usize) {
     let mut leaves = 0usize;
-    while let Some((parent, porig, roots, fixed, fix)) = stack.pop() {
+    let mut work = 0usize;
+    while let Some(item) = stack.pop() {
         if limits.expired() {
-            return SplitResult::Stopped(StopReason::Timeout);
+            return (SplitResult::Stopped(StopReason::Timeout), leaves);
         }
         leaves += 1;
-        work += parent.len();
-        if leaves > MAX_LEAVES || work > work_limit {
-            return SplitResult::Stopped(StopReason::ConflictLimit);
+        work += item.parent.len();
+        if leaves > budget.leaves || work > budget.work {
+            return (SplitResult::Stopped(StopReason::ConflictLimit), leaves);
         }
-        let parent_ands = parent.num_ands();
-        let mut g = Aig::new();
-        let in_cone = parent.cone_mask(&roots);
-        let mut orig = Vec::new();
-        let map: Vec<Lit> = parent
-            .inputs()
-            .iter()
-            .enumerate()
-            .map(|(k, &node)| match fix {
-                Some((f, v)) if f == k => Lit::constant(v),
-                _ if in_cone[node as usize] => {
-                    orig.push(porig[k]);
-                    g.add_input()
-                }
-                _ => Lit::FALSE,
-            })
-            .collect();
-        let r = g.import(&parent, &map, &roots);
-        drop(parent);
-        let orig = Arc::new(orig);
-        let (x, y, c) = (r[0], r[1], r[2]);
-        if c == Lit::FALSE || x == y {
-            continue;
-        }
-        let shrinking = fix.is_some()
-            && g.num_ands() > SPLIT_FLOOR
-            && g.num_ands() * 10 <= parent_ands * SHRINK_TENTHS;
-        if (g.num_ands() > SPLIT_WITHOUT_SAT || shrinking) && fixed.len() < MAX_DEPTH {
-            // Large cofactors are split at once: a query on them mostly wastes its budget.
-            if let Some(k) = busiest_input(&g, &[x, y, c]) {
-                let g = Arc::new(g);
-                for v in [true, false] {
-                    let mut f = fixed.clone();
-                    f.push((orig[k], v));
-                    stack.push((g.clone(), orig.clone(), [x, y, c], f, Some((k, v))));
-                }
-                continue;
-            }
-        }
-        let mut sat = Sat::new(limits);
-        let mut ts = Tseitin::new();
-        let cx = ts.lit(&g, &mut sat, x);
-        let cy = ts.lit(&g, &mut sat, y);
-        let cc = ts.lit(&g, &mut sat, c);
-        sat.clause(&[cc]);
-        sat.clause(&[cx, cy]);
-        sat.clause(&[!cx, !cy]);
-        match sat.solve_within(&[], Some(LEAF_BUDGET)) {
-            SatResult::Unsat => continue,
-            SatResult::Sat => {
-                let mut values = vec![false; n];
-                for (k, &o) in orig.iter().enumerate() {
-                    values[o] = ts.var_of(g.inputs()[k]).is_some_and(|v| sat.value(v));
-                }
-                for &(k, v) in &fixed {
-                    values[k] = v;
-                }
-                return SplitResult::Differ(values);
-            }
-            SatResult::Stopped(StopReason::Timeout) => {
-                return SplitResult::Stopped(StopReason::Timeout)
-            }
-            SatResult::Stopped(StopReason::ConflictLimit) => {
-                if fixed.len() >= MAX_DEPTH {
-                    return SplitResult::Stopped(StopReason::ConflictLimit);
-                }
-                let Some(k) = busiest_input(&g, &[x, y, c]) else {
-                    return SplitResult::Stopped(StopReason::ConflictLimit);
-                };
-                let g = Arc::new(g);
-                for v in [true, false] {
-                    let mut f = fixed.clone();
-                    f.push((orig[k], v));
-                    stack.push((g.clone(), orig.clone(), [x, y, c], f, Some((k, v))));
-                }
+        match step(item, n, limits) {
+            Step::Equal => {}
+            Step::Differ(v) => return (SplitResult::Differ(v), leaves),
+            Step::Stopped(r) => return (SplitResult::Stopped(r), leaves),
+            Step::Split(later, first) => {
+                stack.push(later);
+                stack.push(first);
             }
         }
     }
-    log::debug!("split: equal in all {leaves} cofactors");
-    SplitResult::Equal
+    (SplitResult::Equal, leaves)
+}
+
+/// Build one cofactor from its parent and decide it, or split it.
+fn step(item: Item, n: usize, limits: &Limits) -> Step {
+    let Item {
+        parent,
+        orig: porig,
+        roots,
+        fixed,
+        fix,
+    } = item;
+    let parent_ands = parent.num_ands();
+    let mut g = Aig::new();
+    let in_cone = parent.cone_mask(&roots);
+    let mut orig = Vec::new();
+    let map: Vec<Lit> = parent
+        .inputs()
+        .iter()
+        .enumerate()
+        .map(|(k, &node)| match fix {
+            Some((f, v)) if f == k => Lit::constant(v),
+            _ if in_cone[node as usize] => {
+                orig.push(porig[k]);
+                g.add_input()
+            }
+            _ => Lit::FALSE,
+        })
+        .collect();
+    let r = g.import(&parent, &map, &roots);
+    drop(parent);
+    let orig = Arc::new(orig);
+    let (x, y, c) = (r[0], r[1], r[2]);
+    if c == Lit::FALSE || x == y {
+        return Step::Equal;
+    }
+    let children = |g: Aig, k: usize| {
+        let g = Arc::new(g);
+        let child = |v: bool| {
+            let mut f = fixed.clone();
+            f.push((orig[k], v));
+            Item {
+                parent: g.clone(),
+                orig: orig.clone(),
+                roots: [x, y, c],
+                fixed: f,
+                fix: Some((k, v)),
+            }
+        };
+        // Depth first, the 0 branch first.
+        Step::Split(child(true), child(false))
+    };
+    let shrinking = fix.is_some()
+        && g.num_ands() > SPLIT_FLOOR
+        && g.num_ands() * 10 <= parent_ands * SHRINK_TENTHS;
+    if (g.num_ands() > SPLIT_WITHOUT_SAT || shrinking) && fixed.len() < MAX_DEPTH {
+        // Large cofactors are split at once: a query on them mostly wastes its budget.
+        if let Some(k) = busiest_input(&g, &[x, y, c]) {
+            return children(g, k);
+        }
+    }
+    let mut sat = Sat::new(limits);
+    let mut ts = Tseitin::new();
+    let cx = ts.lit(&g, &mut sat, x);
+    let cy = ts.lit(&g, &mut sat, y);
+    let cc = ts.lit(&g, &mut sat, c);
+    sat.clause(&[cc]);
+    sat.clause(&[cx, cy]);
+    sat.clause(&[!cx, !cy]);
+    match sat.solve_within(&[], Some(LEAF_BUDGET)) {
+        SatResult::Unsat => Step::Equal,
+        SatResult::Sat => {
+            let mut values = vec![false; n];
+            for (k, &o) in orig.iter().enumerate() {
+                values[o] = ts.var_of(g.inputs()[k]).is_some_and(|v| sat.value(v));
+            }
+            for &(k, v) in &fixed {
+                values[k] = v;
+            }
+            Step::Differ(values)
+        }
+        SatResult::Stopped(StopReason::Timeout) => Step::Stopped(StopReason::Timeout),
+        SatResult::Stopped(StopReason::ConflictLimit) => {
+            if fixed.len() >= MAX_DEPTH {
+                return Step::Stopped(StopReason::ConflictLimit);
+            }
+            drop(sat);
+            drop(ts);
+            match busiest_input(&g, &[x, y, c]) {
+                Some(k) => children(g, k),
+                None => Step::Stopped(StopReason::ConflictLimit),
+            }
+        }
+    }
 }
 
 /// Whether the pair `roots` is better split before any whole query: its cones are large and one
@@ -257,5 +339,53 @@ mod tests {
             }
             other => panic!("expected a difference, got {other:?}"),
         }
+    }
+
+    /// A 256:1 selector (large enough to be split without a query first) against a tree with
+    /// data lines crossed in both halves of any first split: the same counterexample whatever
+    /// the number of threads.
+    #[test]
+    fn split_answer_does_not_depend_on_threads() {
+        let mut g = Aig::new();
+        let s: Vec<Lit> = (0..8).map(|_| g.add_input()).collect();
+        let d: Vec<Lit> = (0..256).map(|_| g.add_input()).collect();
+        let mut terms = Vec::new();
+        for (v, &dv) in d.iter().enumerate() {
+            let lits: Vec<Lit> = (0..8)
+                .map(|j| s[j].xor_complement((v >> j) & 1 == 0))
+                .collect();
+            let dec = g.and_all(&lits);
+            terms.push(g.and(dec, dv));
+        }
+        let o = g.or_all(&terms);
+        let mut crossed = d.clone();
+        for (x, y) in [(0, 255), (1, 254), (7, 200), (64, 190), (3, 129), (130, 17)] {
+            crossed.swap(x, y);
+        }
+        let mut layer = crossed;
+        for bit in &s {
+            layer = layer.chunks(2).map(|p| g.mux(*bit, p[1], p[0])).collect();
+        }
+        let t = layer[0];
+        assert!(g.num_ands() > SPLIT_WITHOUT_SAT);
+        let answers: Vec<SplitResult> = [1, 2, 3]
+            .into_iter()
+            .map(|threads| {
+                let pool = rayon::ThreadPoolBuilder::new()
+                    .num_threads(threads)
+                    .build()
+                    .expect("a pool");
+                pool.install(|| decide(&g, t, o, Lit::TRUE, &Limits::none()))
+            })
+            .collect();
+        match &answers[0] {
+            SplitResult::Differ(values) => {
+                let r = crate::aig::eval(&g, values, &[t, o]);
+                assert_ne!(r[0], r[1]);
+            }
+            other => panic!("expected a difference, got {other:?}"),
+        }
+        assert_eq!(answers[0], answers[1]);
+        assert_eq!(answers[0], answers[2]);
     }
 }

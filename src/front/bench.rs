@@ -11,8 +11,8 @@ use super::ReadError;
 use crate::aig::{Aig, Lit};
 use crate::design::{split_bit, Cell, CellKind, Design, Format, InputBit, Netlist, OutputBit};
 use crate::diag::{Diagnostic, InputError, SourcePos};
+use crate::hash::FastMap;
 use line::{col_of, parse_line, Stmt};
-use std::collections::HashMap;
 use std::sync::Arc;
 
 /// Lines (and gates) between two looks at the stop condition while reading.
@@ -46,7 +46,7 @@ struct GateDef {
 /// Everything a bench file declares, with names interned: no string is kept per use, and the
 /// names point into the text until the netlist's own copies are made.
 struct Parsed<'t> {
-    ids: HashMap<&'t str, u32>,
+    ids: FastMap<&'t str, u32>,
     inputs: Vec<(u32, Pos)>,
     outputs: Vec<(u32, Pos)>,
     gates: Vec<GateDef>,
@@ -105,7 +105,7 @@ fn parse_to_netlist(
     stop: &dyn Fn() -> bool,
 ) -> Result<Compact, ReadError> {
     let mut p = Parsed {
-        ids: HashMap::new(),
+        ids: FastMap::default(),
         inputs: Vec::new(),
         outputs: Vec::new(),
         gates: Vec::new(),

@@ -301,6 +301,19 @@ fn busiest_input(g: &Aig, roots: &[Lit]) -> Option<usize> {
 mod tests {
     use super::*;
 
+    /// A selector as a decoder of the select bits `s` ANDed with the data `d`, then ORed.
+    fn decoder_selector(g: &mut Aig, s: &[Lit], d: &[Lit]) -> Lit {
+        let mut terms = Vec::new();
+        for (v, &dv) in d.iter().enumerate() {
+            let lits: Vec<Lit> = (0..s.len())
+                .map(|j| s[j].xor_complement((v >> j) & 1 == 0))
+                .collect();
+            let dec = g.and_all(&lits);
+            terms.push(g.and(dec, dv));
+        }
+        g.or_all(&terms)
+    }
+
     /// A 16:1 selector as a decoder AND-OR against a 2:1 tree: equal by splitting; with two data
     /// lines crossed, a counterexample that really separates them.
     #[test]
@@ -316,15 +329,7 @@ mod tests {
             layer[0]
         };
         let t = tree(&mut g, &d);
-        let mut terms = Vec::new();
-        for (v, &dv) in d.iter().enumerate() {
-            let lits: Vec<Lit> = (0..4)
-                .map(|j| s[j].xor_complement((v >> j) & 1 == 0))
-                .collect();
-            let dec = g.and_all(&lits);
-            terms.push(g.and(dec, dv));
-        }
-        let o = g.or_all(&terms);
+        let o = decoder_selector(&mut g, &s, &d);
         assert_eq!(
             decide(&g, t, o, Lit::TRUE, &Limits::none()),
             SplitResult::Equal
@@ -349,15 +354,7 @@ mod tests {
         let mut g = Aig::new();
         let s: Vec<Lit> = (0..8).map(|_| g.add_input()).collect();
         let d: Vec<Lit> = (0..256).map(|_| g.add_input()).collect();
-        let mut terms = Vec::new();
-        for (v, &dv) in d.iter().enumerate() {
-            let lits: Vec<Lit> = (0..8)
-                .map(|j| s[j].xor_complement((v >> j) & 1 == 0))
-                .collect();
-            let dec = g.and_all(&lits);
-            terms.push(g.and(dec, dv));
-        }
-        let o = g.or_all(&terms);
+        let o = decoder_selector(&mut g, &s, &d);
         let mut crossed = d.clone();
         for (x, y) in [(0, 255), (1, 254), (7, 200), (64, 190), (3, 129), (130, 17)] {
             crossed.swap(x, y);

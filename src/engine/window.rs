@@ -59,6 +59,18 @@ struct Fresh {
     scope: Vec<CLit>,
 }
 
+impl Fresh {
+    /// Give node `n` a variable of the current query (whose slots are above `first`) and queue
+    /// it, unless it has one already.
+    fn visit(&mut self, n: u32, first: u32) {
+        if self.var[n as usize] <= first {
+            let v = self.sat.fresh();
+            self.var[n as usize] = self.base + v.var().index() as u32 + 1;
+            self.stack.push(n);
+        }
+    }
+}
+
 /// A reusable window prover.
 pub(crate) struct Window {
     fresh: Fresh,
@@ -150,11 +162,7 @@ impl Window {
         let act = fr.sat.fresh();
         fr.scope.push(act);
         for n in [a.node(), b.node()] {
-            if fr.var[n as usize] <= first {
-                let v = fr.sat.fresh();
-                fr.var[n as usize] = base + v.var().index() as u32 + 1;
-                fr.stack.push(n);
-            }
+            fr.visit(n, first);
         }
         // Breadth first, so that the window holds the nodes nearest the two literals.
         let mut head = 0;
@@ -167,13 +175,8 @@ impl Window {
                 if expanded < budget {
                     expanded += 1;
                     fr.order.push(n);
-                    for c in [x.node(), y.node()] {
-                        if fr.var[c as usize] <= first {
-                            let v = fr.sat.fresh();
-                            fr.var[c as usize] = base + v.var().index() as u32 + 1;
-                            fr.stack.push(c);
-                        }
-                    }
+                    fr.visit(x.node(), first);
+                    fr.visit(y.node(), first);
                 } else {
                     complete = false;
                 }

@@ -99,20 +99,11 @@ impl Classes {
         let mut keyed: Vec<(u64, u32)> = sig.into_iter().zip(0u32..).collect();
         keyed.sort_unstable();
         let mut rep = vec![NONE; nodes];
-        let mut start = 0;
-        while start < keyed.len() {
-            let mut end = start + 1;
-            while end < keyed.len() && keyed[end].0 == keyed[start].0 {
-                end += 1;
+        // Sorted by (signature, node): the first of each run is the smallest index.
+        for class in keyed.chunk_by(|x, y| x.0 == y.0).filter(|c| c.len() > 1) {
+            for &(_, n) in class {
+                rep[n as usize] = class[0].1;
             }
-            if end - start > 1 {
-                // Sorted by (signature, node): the first is the smallest index.
-                let leader = keyed[start].1;
-                for &(_, n) in &keyed[start..end] {
-                    rep[n as usize] = leader;
-                }
-            }
-            start = end;
         }
         // The members, class by class, each class ascending.
         let mut active = keyed;
@@ -160,35 +151,29 @@ impl Classes {
         let mut scratch: Vec<(u64, u32)> = Vec::new();
         while start < self.active.len() {
             let r = self.rep[self.active[start] as usize];
-            let mut end = start + 1;
-            while end < self.active.len() && self.rep[self.active[end] as usize] == r {
-                end += 1;
-            }
+            let len = self.active[start..]
+                .iter()
+                .take_while(|&&n| self.rep[n as usize] == r)
+                .count();
+            let end = start + len;
             let lead = norm(self.active[start]);
             if self.active[start + 1..end].iter().all(|&n| norm(n) == lead) {
                 self.active.copy_within(start..end, out);
-                out += end - start;
+                out += len;
             } else {
                 scratch.clear();
                 scratch.extend(self.active[start..end].iter().map(|&n| (norm(n), n)));
                 scratch.sort_unstable();
-                let mut a = 0;
-                while a < scratch.len() {
-                    let mut b = a + 1;
-                    while b < scratch.len() && scratch[b].0 == scratch[a].0 {
-                        b += 1;
-                    }
-                    if b - a == 1 {
-                        self.rep[scratch[a].1 as usize] = NONE;
+                for group in scratch.chunk_by(|x, y| x.0 == y.0) {
+                    if group.len() == 1 {
+                        self.rep[group[0].1 as usize] = NONE;
                     } else {
-                        let leader = scratch[a].1;
-                        for &(_, n) in &scratch[a..b] {
-                            self.rep[n as usize] = leader;
+                        for &(_, n) in group {
+                            self.rep[n as usize] = group[0].1;
                             self.active[out] = n;
                             out += 1;
                         }
                     }
-                    a = b;
                 }
             }
             start = end;

@@ -50,6 +50,17 @@ const TWIN_VISITS: usize = 256;
 const TWINS_MAX: usize = 4;
 /// No fanout edge.
 const NO_EDGE: u32 = u32::MAX;
+/// Stages of a candidate query (fresh tiny window, small and large persistent windows) and
+/// answer kinds: the tally holds four counts per stage, then the lifts and the twin proofs.
+const TINY: usize = 0;
+const SMALL: usize = 1;
+const LARGE: usize = 2;
+const EQUAL: usize = 0;
+const REFUTED: usize = 1;
+const PARTIAL: usize = 2;
+const UNKNOWN: usize = 3;
+const LIFTS: usize = 12;
+const TWIN_PROOFS: usize = 13;
 /// Conflicts allowed to a whole-cone candidate query during the sweep.
 const SWEEP_CONFLICTS: u64 = 200;
 
@@ -410,7 +421,8 @@ struct Sweeper<'a> {
     /// after each edge (edge `2u + k` is fan-in `k` of node `u`).
     fo_head: Vec<u32>,
     fo_next: Vec<u32>,
-    /// Scratch for [`Sweeper::lift`] and [`Sweeper::twins`]: visit stamps and simulation words per merged-graph node.
+    /// Scratch for [`Sweeper::lift`] and [`Sweeper::twins`]: visit stamps per merged-graph
+    /// node, and the simulation words of the cone being lifted.
     stamp: Vec<u32>,
     value: FastMap<u32, u64>,
     epoch: u32,
@@ -435,7 +447,7 @@ impl Sweeper<'_> {
             self.times[3] += t0.elapsed().as_secs_f64();
             match ans {
                 WindowAnswer::Equal => {
-                    self.tally[13] += 1;
+                    self.tally[TWIN_PROOFS] += 1;
                     return Outcome::Proved(twin);
                 }
                 WindowAnswer::Differ(vals) => self.queue(&vals, None),
@@ -445,8 +457,8 @@ impl Sweeper<'_> {
         let Some(b) = rep else {
             return Outcome::Open;
         };
-        for stage in 0..3 {
-            if stage == 2 && !self.large_pays() {
+        for stage in [TINY, SMALL, LARGE] {
+            if stage == LARGE && !self.large_pays() {
                 break;
             }
             match self.stage(stage, a, b) {
@@ -489,12 +501,8 @@ impl Sweeper<'_> {
         l: Lit,
         rep: Option<Lit>,
     ) -> Vec<Lit> {
+        let epoch = self.next_epoch();
         let f = &self.f;
-        if self.stamp.len() < f.len() {
-            self.stamp.resize(f.len(), 0);
-        }
-        self.epoch += 1;
-        let epoch = self.epoch;
         // Downwards, breadth first.
         let mut down: Vec<(u32, u32)> = vec![(l.node(), 0)];
         self.stamp[l.node() as usize] = epoch;
@@ -549,12 +557,26 @@ impl Sweeper<'_> {
         out
     }
 
+    /// A new visit stamp for [`Sweeper::twins`] and [`Sweeper::lift`], with a stamp slot for
+    /// every node of the merged graph.
+    fn next_epoch(&mut self) -> u32 {
+        if self.stamp.len() < self.f.len() {
+            self.stamp.resize(self.f.len(), 0);
+        }
+        self.epoch = self.epoch.wrapping_add(1);
+        if self.epoch == 0 {
+            self.stamp.iter_mut().for_each(|s| *s = 0);
+            self.epoch = 1;
+        }
+        self.epoch
+    }
+
     /// Whether the large window is still worth its cost: it is dropped once it has mostly
     /// returned models that do not extend to counterexamples (in random logic these are
     /// near-constant nodes paired by chance, each a hard query, and nothing is merged).
     fn large_pays(&self) -> bool {
-        let decided = self.tally[8] + self.tally[9];
-        let partial = self.tally[10];
+        let decided = self.tally[LARGE * 4 + EQUAL] + self.tally[LARGE * 4 + REFUTED];
+        let partial = self.tally[LARGE * 4 + PARTIAL];
         partial < LARGE_GRACE || decided * LARGE_USEFUL_RATIO >= partial
     }
 
@@ -563,10 +585,10 @@ impl Sweeper<'_> {
     fn stage(&mut self, stage: usize, a: Lit, b: Lit) -> Outcome {
         let t0 = std::time::Instant::now();
         let ans = match stage {
-            0 => self
+            TINY => self
                 .window
                 .query_fresh(&self.f, a, b, TINY_WINDOW_BUDGET, WINDOW_CONFLICTS),
-            1 => self
+            SMALL => self
                 .window
                 .query(&self.f, a, b, WINDOW_BUDGET, WINDOW_CONFLICTS),
             _ => self
@@ -574,20 +596,20 @@ impl Sweeper<'_> {
                 .query(&self.f, a, b, LARGE_WINDOW_BUDGET, SWEEP_CONFLICTS),
         };
         let (kind, out) = match ans {
-            WindowAnswer::Equal => (0, Outcome::Proved(b)),
+            WindowAnswer::Equal => (EQUAL, Outcome::Proved(b)),
             WindowAnswer::Differ(vals) => {
                 self.queue(&vals, None);
-                (1, Outcome::Refuted)
+                (REFUTED, Outcome::Refuted)
             }
             WindowAnswer::Partial(vals) => match self.lift(a, b, &vals) {
                 Some(p) => {
-                    self.tally[12] += 1;
+                    self.tally[LIFTS] += 1;
                     self.queue(&vals, Some(p));
-                    (1, Outcome::Refuted)
+                    (REFUTED, Outcome::Refuted)
                 }
-                None => (2, Outcome::Partial),
+                None => (PARTIAL, Outcome::Partial),
             },
-            WindowAnswer::Unknown => (3, Outcome::Open),
+            WindowAnswer::Unknown => (UNKNOWN, Outcome::Open),
         };
         self.tally[stage * 4 + kind] += 1;
         self.times[stage] += t0.elapsed().as_secs_f64();
@@ -611,12 +633,8 @@ impl Sweeper<'_> {
     /// Try to extend a truncated window's model to a real counterexample: 64 patterns that
     /// keep `fixed` and draw the other inputs at random, simulated on the cones of `a` and `b`.
     fn lift(&mut self, a: Lit, b: Lit, fixed: &[(u32, bool)]) -> Option<Vec<bool>> {
+        let epoch = self.next_epoch();
         let f = &self.f;
-        if self.stamp.len() < f.len() {
-            self.stamp.resize(f.len(), 0);
-        }
-        self.epoch += 1;
-        let epoch = self.epoch;
         let mut cone = Vec::new();
         let mut stack = vec![a.node(), b.node()];
         while let Some(n) = stack.pop() {

@@ -22,7 +22,7 @@ use crate::aig::{Aig, Lit, Node};
 use crate::sat::{CLit, ClauseSink, Limits, Sat, SatResult, SatStats};
 
 /// Variables the small solver of [`Window::query_fresh`] may accumulate before it is replaced
-/// (varisat assigns every variable of a solver before it reports a model).
+/// (the clauses of spent windows stay until then).
 const FRESH_VARS_PER_SOLVER: u64 = 4_000;
 
 /// Variables the solver may accumulate before it is replaced.

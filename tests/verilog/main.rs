@@ -7,4 +7,5 @@ mod hierarchy;
 mod iverilog_diff;
 mod large;
 mod regress;
+mod rtl_styles;
 mod semantics;

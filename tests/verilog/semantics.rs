@@ -188,7 +188,7 @@ fn several_errors_are_reported_together() {
         "{e}"
     );
     assert!(
-        e.contains("t.v:3:9: error: unsupported: `always` with an event list"),
+        e.contains("t.v:3:9: error: unsupported: `always` block with a clock edge"),
         "{e}"
     );
     assert!(

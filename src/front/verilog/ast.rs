@@ -268,6 +268,42 @@ pub enum Stmt {
     Null,
 }
 
+/// A clock edge in an event list.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub enum Edge {
+    /// `posedge`
+    Rising,
+    /// `negedge`
+    Falling,
+}
+
+/// One entry of an event list: `a`, `a[1]`, `posedge clk`.
+#[derive(Clone, Debug)]
+pub struct Event {
+    /// The edge, if one is named.
+    pub edge: Option<Edge>,
+    /// The expression watched.
+    pub expr: Expr,
+}
+
+/// What an `always` block waits for.
+#[derive(Clone, Debug)]
+pub enum Sensitivity {
+    /// `@*`, `@(*)` or `always_comb`: every variable read (IEEE 1364-2005 clause 9.7.5).
+    Implicit,
+    /// `@(a or b)` / `@(a, b)` (IEEE 1364-2005 clauses 9.7.2 and 9.7.3); where it is.
+    List(Vec<Event>, Pos),
+}
+
+/// An `always` block.
+#[derive(Clone, Debug)]
+pub struct Always {
+    /// Its event control.
+    pub sensitivity: Sensitivity,
+    /// Its statement.
+    pub body: Stmt,
+}
+
 /// A `case` statement.
 #[derive(Clone, Debug)]
 pub struct CaseStmt {
@@ -331,8 +367,8 @@ pub enum Item {
     Gate(GateKind, Box<[Expr]>, Pos),
     /// Module instance.
     Inst(Box<Instance>),
-    /// `always @*`
-    Always(Box<Stmt>, Pos),
+    /// `always @*`, `always @(a or b)`, `always_comb`, ...
+    Always(Box<Always>, Pos),
     /// Generate loop.
     GenFor(Box<GenFor>),
     /// Generate `if`: condition, then-items, else-items.

@@ -2,6 +2,7 @@
 //! keeps a small lookahead), so a million-gate netlist is never held as a token vector.
 
 use super::symbols::{Interner, Sym};
+use super::syntax_error::{SyntaxError, SyntaxKind};
 
 /// A position: file number (index into the reader's source list), 1-based line and column.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Default, PartialOrd, Ord, Hash)]
@@ -39,7 +40,7 @@ pub struct NumLit {
 /// Punctuation and operators.
 #[derive(Copy, Clone, Debug, PartialEq, Eq)]
 #[allow(missing_docs)]
-pub enum P {
+pub enum Punct {
     LParen,
     RParen,
     LBrack,
@@ -97,7 +98,7 @@ pub enum Tok {
     /// A number.
     Num(Box<NumLit>),
     /// An operator or punctuation.
-    P(P),
+    Punct(Punct),
     /// A string literal (never part of the subset).
     Str,
     /// A real number (never part of the subset).
@@ -123,7 +124,7 @@ pub struct Lexer<'s> {
     col: u32,
     file: u32,
     /// Lexical errors found so far.
-    pub errors: Vec<(Pos, String)>,
+    pub errors: Vec<SyntaxError>,
     /// Whether `` `default_nettype none`` is in force at the current point.
     pub nettype_none: bool,
 }
@@ -175,7 +176,11 @@ impl<'s> Lexer<'s> {
     }
 
     fn err(&mut self, pos: Pos, msg: impl Into<String>) {
-        self.errors.push((pos, msg.into()));
+        self.err_of(pos, SyntaxKind::Syntax, msg);
+    }
+
+    fn err_of(&mut self, pos: Pos, kind: SyntaxKind, msg: impl Into<String>) {
+        self.errors.push(SyntaxError::new(pos, kind, msg));
     }
 
     /// Skip white space, comments, attributes and the directives that do not change logic.
@@ -257,9 +262,9 @@ impl<'s> Lexer<'s> {
             "default_nettype" => match rest.as_str() {
                 "none" => self.nettype_none = true,
                 "wire" => self.nettype_none = false,
-                _ => self.err(p, format!("unsupported: `default_nettype {rest}")),
+                _ => self.err_of(p, SyntaxKind::Unsupported, format!("unsupported: `default_nettype {rest}")),
             },
-            _ => self.err(p, format!("unsupported: compiler directive `{name}")),
+            _ => self.err_of(p, SyntaxKind::Unsupported, format!("unsupported: compiler directive `{name}")),
         }
     }
 
@@ -356,53 +361,53 @@ impl<'s> Lexer<'s> {
         }
         let three = [c, self.peek(1), self.peek(2)];
         let (p, n) = match &three {
-            b"===" => (P::EqEqEq, 3),
-            b"!==" => (P::BangEqEq, 3),
-            b"<<<" => (P::AShl, 3),
-            b">>>" => (P::AShr, 3),
+            b"===" => (Punct::EqEqEq, 3),
+            b"!==" => (Punct::BangEqEq, 3),
+            b"<<<" => (Punct::AShl, 3),
+            b">>>" => (Punct::AShr, 3),
             _ => match &three[..2] {
-                b"~&" => (P::TildeAmp, 2),
-                b"~|" => (P::TildePipe, 2),
-                b"~^" => (P::TildeCaret, 2),
-                b"^~" => (P::CaretTilde, 2),
-                b"&&" => (P::AmpAmp, 2),
-                b"||" => (P::PipePipe, 2),
-                b"==" => (P::EqEq, 2),
-                b"!=" => (P::BangEq, 2),
-                b"<=" => (P::Le, 2),
-                b">=" => (P::Ge, 2),
-                b"<<" => (P::Shl, 2),
-                b">>" => (P::Shr, 2),
-                b"**" => (P::Power, 2),
-                b"+:" => (P::PlusColon, 2),
-                b"-:" => (P::MinusColon, 2),
+                b"~&" => (Punct::TildeAmp, 2),
+                b"~|" => (Punct::TildePipe, 2),
+                b"~^" => (Punct::TildeCaret, 2),
+                b"^~" => (Punct::CaretTilde, 2),
+                b"&&" => (Punct::AmpAmp, 2),
+                b"||" => (Punct::PipePipe, 2),
+                b"==" => (Punct::EqEq, 2),
+                b"!=" => (Punct::BangEq, 2),
+                b"<=" => (Punct::Le, 2),
+                b">=" => (Punct::Ge, 2),
+                b"<<" => (Punct::Shl, 2),
+                b">>" => (Punct::Shr, 2),
+                b"**" => (Punct::Power, 2),
+                b"+:" => (Punct::PlusColon, 2),
+                b"-:" => (Punct::MinusColon, 2),
                 _ => match c {
-                    b'(' => (P::LParen, 1),
-                    b')' => (P::RParen, 1),
-                    b'[' => (P::LBrack, 1),
-                    b']' => (P::RBrack, 1),
-                    b'{' => (P::LBrace, 1),
-                    b'}' => (P::RBrace, 1),
-                    b',' => (P::Comma, 1),
-                    b';' => (P::Semi, 1),
-                    b':' => (P::Colon, 1),
-                    b'.' => (P::Dot, 1),
-                    b'#' => (P::Hash, 1),
-                    b'@' => (P::At, 1),
-                    b'=' => (P::Assign, 1),
-                    b'?' => (P::Question, 1),
-                    b'+' => (P::Plus, 1),
-                    b'-' => (P::Minus, 1),
-                    b'*' => (P::Star, 1),
-                    b'/' => (P::Slash, 1),
-                    b'%' => (P::Percent, 1),
-                    b'!' => (P::Bang, 1),
-                    b'~' => (P::Tilde, 1),
-                    b'&' => (P::Amp, 1),
-                    b'|' => (P::Pipe, 1),
-                    b'^' => (P::Caret, 1),
-                    b'<' => (P::Lt, 1),
-                    b'>' => (P::Gt, 1),
+                    b'(' => (Punct::LParen, 1),
+                    b')' => (Punct::RParen, 1),
+                    b'[' => (Punct::LBrack, 1),
+                    b']' => (Punct::RBrack, 1),
+                    b'{' => (Punct::LBrace, 1),
+                    b'}' => (Punct::RBrace, 1),
+                    b',' => (Punct::Comma, 1),
+                    b';' => (Punct::Semi, 1),
+                    b':' => (Punct::Colon, 1),
+                    b'.' => (Punct::Dot, 1),
+                    b'#' => (Punct::Hash, 1),
+                    b'@' => (Punct::At, 1),
+                    b'=' => (Punct::Assign, 1),
+                    b'?' => (Punct::Question, 1),
+                    b'+' => (Punct::Plus, 1),
+                    b'-' => (Punct::Minus, 1),
+                    b'*' => (Punct::Star, 1),
+                    b'/' => (Punct::Slash, 1),
+                    b'%' => (Punct::Percent, 1),
+                    b'!' => (Punct::Bang, 1),
+                    b'~' => (Punct::Tilde, 1),
+                    b'&' => (Punct::Amp, 1),
+                    b'|' => (Punct::Pipe, 1),
+                    b'^' => (Punct::Caret, 1),
+                    b'<' => (Punct::Lt, 1),
+                    b'>' => (Punct::Gt, 1),
                     _ => {
                         let ch = std::str::from_utf8(&self.src[self.i..])
                             .ok()
@@ -422,7 +427,7 @@ impl<'s> Lexer<'s> {
             self.bump();
         }
         Token {
-            tok: Tok::P(p),
+            tok: Tok::Punct(p),
             pos,
         }
     }
@@ -559,7 +564,11 @@ impl<'s> Lexer<'s> {
                 // to no less than 65,536 bits (from memory); wider literals cost memory out of
                 // all proportion to their text (an 18-byte literal once took 400 MiB).
                 Ok(w) if w > (1 << 16) => {
-                    self.err(pos, format!("number `{text}` is wider than 65536 bits"));
+                    self.err_of(
+                        pos,
+                        SyntaxKind::LiteralTooWide,
+                        format!("number `{text}` is wider than 65536 bits"),
+                    );
                     (bits.len().max(1), true)
                 }
                 Ok(w) => (w as usize, true),
@@ -572,7 +581,11 @@ impl<'s> Lexer<'s> {
             _ => B0,
         };
         if bits.len() > width && bits[width..].iter().any(|&b| b != B0) {
-            self.err(pos, format!("number `{text}` does not fit in {width} bits"));
+            self.err_of(
+                pos,
+                SyntaxKind::LiteralOverflow,
+                format!("number `{text}` does not fit in {width} bits"),
+            );
         }
         let mut v = bits;
         v.truncate(width);
@@ -668,10 +681,10 @@ mod tests {
     #[test]
     fn operators_and_comments() {
         let t = toks("a ~^ b /* c */ // d\n >>> (* keep *) @(*)");
-        assert!(matches!(t[1], Tok::P(P::TildeCaret)));
-        assert!(matches!(t[3], Tok::P(P::AShr)));
-        assert!(matches!(t[4], Tok::P(P::At)));
-        assert!(matches!(t[6], Tok::P(P::Star)));
+        assert!(matches!(t[1], Tok::Punct(Punct::TildeCaret)));
+        assert!(matches!(t[3], Tok::Punct(Punct::AShr)));
+        assert!(matches!(t[4], Tok::Punct(Punct::At)));
+        assert!(matches!(t[6], Tok::Punct(Punct::Star)));
         assert_eq!(t.len(), 8);
     }
 

@@ -14,6 +14,7 @@ mod parse_gen;
 mod parse_stmt;
 pub mod parser;
 pub mod symbols;
+pub mod syntax_error;
 
 use crate::design::Design;
 use crate::diag::{Diagnostic, InputError, SourcePos};
@@ -65,23 +66,6 @@ fn read_inner_fallback() -> Result<Design, InputError> {
     ))
 }
 
-/// What to do about a lexer or parser error.
-fn syntax_help(msg: &str) -> &'static str {
-    if msg.starts_with("unsupported:") {
-        "equicone reads the IEEE 1364-2005 subset listed in docs/verilog.md; rewrite this within it"
-    } else if msg.contains("wider than 65536 bits") {
-        "write literals of at most 65536 bits; build wider constants by concatenation"
-    } else if msg.contains("does not fit in") {
-        "give the literal enough bits for its digits (e.g. `8'h1f`), or drop the extra digits"
-    } else if msg.starts_with("missing `endmodule`") {
-        "close each module with `endmodule` before the next one starts"
-    } else if msg.starts_with("nesting deeper") {
-        "split the expression or statement with intermediate wires"
-    } else {
-        "correct the syntax here; the Verilog subset read is listed in docs/verilog.md"
-    }
-}
-
 fn read_inner(sources: &[(Arc<str>, String)], top: Option<&str>) -> Result<Design, InputError> {
     let mut names = symbols::Interner::new();
     let mut mods = Vec::new();
@@ -91,13 +75,10 @@ fn read_inner(sources: &[(Arc<str>, String)], top: Option<&str>) -> Result<Desig
         let mut p = parser::Parser::new(text, k as u32, &mut names);
         mods.extend(p.file());
         let mut errs = std::mem::take(&mut p.errors);
-        errs.sort_by_key(|e| (e.0.line, e.0.col));
-        for (pos, msg) in errs {
-            let help = syntax_help(&msg);
-            diags.push(
-                Diagnostic::error(Some(SourcePos::new(file, pos.line, pos.col)), msg)
-                    .with_help(help),
-            );
+        errs.sort_by_key(|e| (e.pos.line, e.pos.col));
+        for e in errs {
+            let pos = SourcePos::new(file, e.pos.line, e.pos.col);
+            diags.push(Diagnostic::error(Some(pos), e.message).with_help(e.kind.help()));
         }
     }
     if !diags.is_empty() {

@@ -2,34 +2,34 @@
 //! with one loop per level (left-associative chains never nest) and a bounded nesting depth.
 
 use super::ast::{BinOp, Expr, Select, UnOp, LEVELS};
-use super::lexer::{Tok, P};
+use super::lexer::{Tok, Punct};
 use super::parser::{PResult, Parser};
 
-fn binop(p: P) -> Option<BinOp> {
+fn binop(p: Punct) -> Option<BinOp> {
     Some(match p {
-        P::Star => BinOp::Mul,
-        P::Slash => BinOp::Div,
-        P::Percent => BinOp::Mod,
-        P::Plus => BinOp::Add,
-        P::Minus => BinOp::Sub,
-        P::Shl => BinOp::Shl,
-        P::Shr => BinOp::Shr,
-        P::AShl => BinOp::AShl,
-        P::AShr => BinOp::AShr,
-        P::Lt => BinOp::Lt,
-        P::Le => BinOp::Le,
-        P::Gt => BinOp::Gt,
-        P::Ge => BinOp::Ge,
-        P::EqEq => BinOp::Eq,
-        P::BangEq => BinOp::Ne,
-        P::EqEqEq => BinOp::CaseEq,
-        P::BangEqEq => BinOp::CaseNe,
-        P::Amp => BinOp::And,
-        P::Caret => BinOp::Xor,
-        P::TildeCaret | P::CaretTilde => BinOp::Xnor,
-        P::Pipe => BinOp::Or,
-        P::AmpAmp => BinOp::LogAnd,
-        P::PipePipe => BinOp::LogOr,
+        Punct::Star => BinOp::Mul,
+        Punct::Slash => BinOp::Div,
+        Punct::Percent => BinOp::Mod,
+        Punct::Plus => BinOp::Add,
+        Punct::Minus => BinOp::Sub,
+        Punct::Shl => BinOp::Shl,
+        Punct::Shr => BinOp::Shr,
+        Punct::AShl => BinOp::AShl,
+        Punct::AShr => BinOp::AShr,
+        Punct::Lt => BinOp::Lt,
+        Punct::Le => BinOp::Le,
+        Punct::Gt => BinOp::Gt,
+        Punct::Ge => BinOp::Ge,
+        Punct::EqEq => BinOp::Eq,
+        Punct::BangEq => BinOp::Ne,
+        Punct::EqEqEq => BinOp::CaseEq,
+        Punct::BangEqEq => BinOp::CaseNe,
+        Punct::Amp => BinOp::And,
+        Punct::Caret => BinOp::Xor,
+        Punct::TildeCaret | Punct::CaretTilde => BinOp::Xnor,
+        Punct::Pipe => BinOp::Or,
+        Punct::AmpAmp => BinOp::LogAnd,
+        Punct::PipePipe => BinOp::LogOr,
         _ => return None,
     })
 }
@@ -46,10 +46,10 @@ impl Parser<'_, '_> {
 
     fn cond_expr(&mut self) -> PResult<Expr> {
         let c = self.binary(LEVELS - 1)?;
-        if self.peek_p(P::Question) {
+        if self.peek_p(Punct::Question) {
             let pos = self.bump().pos;
             let t = self.expr()?;
-            self.expect_p(P::Colon, "`:` of the conditional operator")?;
+            self.expect_p(Punct::Colon, "`:` of the conditional operator")?;
             let f = self.expr()?;
             return Ok(Expr::Cond(Box::new([c, t, f]), pos));
         }
@@ -66,10 +66,8 @@ impl Parser<'_, '_> {
         while let Some(op) = self.peek_binop(level) {
             let pos = self.bump().pos;
             if matches!(op, BinOp::CaseEq | BinOp::CaseNe) {
-                self.error(
-                    pos,
-                    format!(
-                        "unsupported: case equality operator `{}` (use `==`/`!=`)",
+                self.unsupported(pos, format!(
+                        "case equality operator `{}` (use `==`/`!=`)",
                         op.text()
                     ),
                 );
@@ -81,9 +79,9 @@ impl Parser<'_, '_> {
             };
             rest.push((op, pos, rhs));
         }
-        if self.peek_p(P::Power) {
+        if self.peek_p(Punct::Power) {
             let pos = self.peek_pos();
-            return Err(self.error(pos, "unsupported: power operator `**`"));
+            return Err(self.unsupported(pos, "power operator `**`"));
         }
         if rest.is_empty() {
             Ok(first)
@@ -94,23 +92,23 @@ impl Parser<'_, '_> {
 
     fn peek_binop(&mut self, level: usize) -> Option<BinOp> {
         match &self.peek().tok {
-            Tok::P(p) => binop(*p).filter(|op| op.level() == level),
+            Tok::Punct(p) => binop(*p).filter(|op| op.level() == level),
             _ => None,
         }
     }
 
     fn unary(&mut self) -> PResult<Expr> {
         let op = match &self.peek().tok {
-            Tok::P(P::Plus) => Some(UnOp::Plus),
-            Tok::P(P::Minus) => Some(UnOp::Neg),
-            Tok::P(P::Tilde) => Some(UnOp::Not),
-            Tok::P(P::Bang) => Some(UnOp::LogNot),
-            Tok::P(P::Amp) => Some(UnOp::RedAnd),
-            Tok::P(P::TildeAmp) => Some(UnOp::RedNand),
-            Tok::P(P::Pipe) => Some(UnOp::RedOr),
-            Tok::P(P::TildePipe) => Some(UnOp::RedNor),
-            Tok::P(P::Caret) => Some(UnOp::RedXor),
-            Tok::P(P::TildeCaret) | Tok::P(P::CaretTilde) => Some(UnOp::RedXnor),
+            Tok::Punct(Punct::Plus) => Some(UnOp::Plus),
+            Tok::Punct(Punct::Minus) => Some(UnOp::Neg),
+            Tok::Punct(Punct::Tilde) => Some(UnOp::Not),
+            Tok::Punct(Punct::Bang) => Some(UnOp::LogNot),
+            Tok::Punct(Punct::Amp) => Some(UnOp::RedAnd),
+            Tok::Punct(Punct::TildeAmp) => Some(UnOp::RedNand),
+            Tok::Punct(Punct::Pipe) => Some(UnOp::RedOr),
+            Tok::Punct(Punct::TildePipe) => Some(UnOp::RedNor),
+            Tok::Punct(Punct::Caret) => Some(UnOp::RedXor),
+            Tok::Punct(Punct::TildeCaret) | Tok::Punct(Punct::CaretTilde) => Some(UnOp::RedXnor),
             _ => None,
         };
         match op {
@@ -131,22 +129,22 @@ impl Parser<'_, '_> {
         match t.tok {
             Tok::Num(n) => Ok(Expr::Num(n, pos)),
             Tok::Ident(s) if !super::symbols::is_keyword(s) => {
-                if self.peek_p(P::LParen) {
+                if self.peek_p(Punct::LParen) {
                     let n = self.names.name(s).to_string();
-                    return Err(self.error(pos, format!("unsupported: function call `{n}(...)`")));
+                    return Err(self.unsupported(pos, format!("function call `{n}(...)`")));
                 }
-                if self.peek_p(P::Dot) {
+                if self.peek_p(Punct::Dot) {
                     let n = self.names.name(s).to_string();
                     return Err(
-                        self.error(pos, format!("unsupported: hierarchical name `{n}.`..."))
+                        self.unsupported(pos, format!("hierarchical name `{n}.`..."))
                     );
                 }
-                if self.peek_p(P::LBrack) {
+                if self.peek_p(Punct::LBrack) {
                     let sel = self.select()?;
-                    if self.peek_p(P::LBrack) {
+                    if self.peek_p(Punct::LBrack) {
                         let p2 = self.peek_pos();
                         return Err(
-                            self.error(p2, "unsupported: multiple selects (arrays of vectors)")
+                            self.unsupported(p2, "multiple selects (arrays of vectors)")
                         );
                     }
                     return Ok(Expr::Index(s, pos, Box::new(sel)));
@@ -156,21 +154,21 @@ impl Parser<'_, '_> {
             Tok::Sys(s) => {
                 let n = self.names.name(s).to_string();
                 if !matches!(n.as_str(), "$signed" | "$unsigned" | "$clog2") {
-                    return Err(self.error(pos, format!("unsupported: system function `{n}`")));
+                    return Err(self.unsupported(pos, format!("system function `{n}`")));
                 }
-                self.expect_p(P::LParen, "`(` after a system function")?;
+                self.expect_p(Punct::LParen, "`(` after a system function")?;
                 let a = self.expr()?;
-                self.expect_p(P::RParen, "`)`")?;
+                self.expect_p(Punct::RParen, "`)`")?;
                 Ok(Expr::Call(s, pos, vec![a]))
             }
-            Tok::P(P::LParen) => {
+            Tok::Punct(Punct::LParen) => {
                 let e = self.expr()?;
-                self.expect_p(P::RParen, "`)`")?;
+                self.expect_p(Punct::RParen, "`)`")?;
                 Ok(e)
             }
-            Tok::P(P::LBrace) => self.concat(pos),
-            Tok::Real => Err(self.error(pos, "unsupported: real number")),
-            Tok::Str => Err(self.error(pos, "unsupported: string literal")),
+            Tok::Punct(Punct::LBrace) => self.concat(pos),
+            Tok::Real => Err(self.unsupported(pos, "real number")),
+            Tok::Str => Err(self.unsupported(pos, "string literal")),
             other => {
                 let d = self.describe(&other);
                 Err(self.error(pos, format!("expected an expression, found {d}")))
@@ -180,38 +178,38 @@ impl Parser<'_, '_> {
 
     fn concat(&mut self, pos: super::lexer::Pos) -> PResult<Expr> {
         let first = self.expr()?;
-        if self.peek_p(P::LBrace) {
+        if self.peek_p(Punct::LBrace) {
             self.bump();
             let mut items = vec![self.expr()?];
-            while self.eat_p(P::Comma) {
+            while self.eat_p(Punct::Comma) {
                 items.push(self.expr()?);
             }
-            self.expect_p(P::RBrace, "`}` closing the replicated items")?;
-            self.expect_p(P::RBrace, "`}` closing the replication")?;
+            self.expect_p(Punct::RBrace, "`}` closing the replicated items")?;
+            self.expect_p(Punct::RBrace, "`}` closing the replication")?;
             return Ok(Expr::Repl(Box::new(first), items, pos));
         }
         let mut items = vec![first];
-        while self.eat_p(P::Comma) {
+        while self.eat_p(Punct::Comma) {
             items.push(self.expr()?);
         }
-        self.expect_p(P::RBrace, "`}` closing the concatenation")?;
+        self.expect_p(Punct::RBrace, "`}` closing the concatenation")?;
         Ok(Expr::Concat(items, pos))
     }
 
     /// `[i]`, `[m:l]`, `[b+:w]` or `[b-:w]` (the `[` not yet consumed).
     pub fn select(&mut self) -> PResult<Select> {
-        self.expect_p(P::LBrack, "`[`")?;
+        self.expect_p(Punct::LBrack, "`[`")?;
         let a = self.expr()?;
-        let sel = if self.eat_p(P::Colon) {
+        let sel = if self.eat_p(Punct::Colon) {
             Select::Part(a, self.expr()?)
-        } else if self.eat_p(P::PlusColon) {
+        } else if self.eat_p(Punct::PlusColon) {
             Select::Up(a, self.expr()?)
-        } else if self.eat_p(P::MinusColon) {
+        } else if self.eat_p(Punct::MinusColon) {
             Select::Down(a, self.expr()?)
         } else {
             Select::Bit(a)
         };
-        self.expect_p(P::RBrack, "`]`")?;
+        self.expect_p(Punct::RBrack, "`]`")?;
         Ok(sel)
     }
 }

@@ -3,7 +3,7 @@
 //! otherwise hold a million more names.
 
 use super::ast::*;
-use super::lexer::{Tok, P};
+use super::lexer::{Tok, Punct};
 use super::parser::{PResult, Parser};
 use super::symbols::{kw, Sym};
 
@@ -27,38 +27,38 @@ impl Parser<'_, '_> {
         self.bump();
         let mut named = self.skip_name();
         if named.is_none()
-            && (self.peek_p(P::Hash) || self.peek_p(P::LParen) && self.strength_follows())
+            && (self.peek_p(Punct::Hash) || self.peek_p(Punct::LParen) && self.strength_follows())
         {
-            return Err(self.err_here("unsupported: delay or drive strength on a gate"));
+            return Err(self.unsupported_here("delay or drive strength on a gate"));
         }
         loop {
             let gpos = match named.take() {
                 Some(p) => p,
                 None => {
                     let p = self.peek_pos();
-                    if !self.peek_p(P::LParen) {
+                    if !self.peek_p(Punct::LParen) {
                         self.ident("a gate instance name or `(`")?;
                     }
                     p
                 }
             };
-            if self.peek_p(P::LBrack) {
-                return Err(self.err_here("unsupported: arrays of gate instances"));
+            if self.peek_p(Punct::LBrack) {
+                return Err(self.unsupported_here("arrays of gate instances"));
             }
-            self.expect_p(P::LParen, "`(` of the gate terminals")?;
+            self.expect_p(Punct::LParen, "`(` of the gate terminals")?;
             let mut terms = Vec::with_capacity(4);
             terms.push(self.expr()?);
-            while self.eat_p(P::Comma) {
+            while self.eat_p(Punct::Comma) {
                 terms.push(self.expr()?);
             }
-            self.expect_p(P::RParen, "`)` closing the gate terminals")?;
+            self.expect_p(Punct::RParen, "`)` closing the gate terminals")?;
             out.push(Item::Gate(g, terms.into_boxed_slice(), gpos));
-            if !self.eat_p(P::Comma) {
+            if !self.eat_p(Punct::Comma) {
                 break;
             }
             named = self.skip_name();
         }
-        self.expect_p(P::Semi, "`;` after the gate")?;
+        self.expect_p(Punct::Semi, "`;` after the gate")?;
         Ok(())
     }
 

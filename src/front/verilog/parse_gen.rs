@@ -2,29 +2,29 @@
 //! constructs (`for` loops over a genvar, `if`, `begin : name ... end` blocks).
 
 use super::ast::*;
-use super::lexer::{Pos, Tok, P};
+use super::lexer::{Pos, Tok, Punct};
 use super::parser::{PResult, Parser};
 use super::symbols::{kw, Sym};
 
 impl Parser<'_, '_> {
     pub(super) fn instance(&mut self, out: &mut Vec<Item>) -> PResult<()> {
         let (module, _) = self.ident("a module item")?;
-        let params = if self.eat_p(P::Hash) {
-            self.expect_p(P::LParen, "`(` of the parameter values")?;
+        let params = if self.eat_p(Punct::Hash) {
+            self.expect_p(Punct::LParen, "`(` of the parameter values")?;
             let c = self.conns()?;
-            self.expect_p(P::RParen, "`)` closing the parameter values")?;
+            self.expect_p(Punct::RParen, "`)` closing the parameter values")?;
             Some(c)
         } else {
             None
         };
         loop {
             let (name, pos) = self.ident("an instance name")?;
-            if self.peek_p(P::LBrack) {
-                return Err(self.err_here("unsupported: arrays of instances"));
+            if self.peek_p(Punct::LBrack) {
+                return Err(self.unsupported_here("arrays of instances"));
             }
-            self.expect_p(P::LParen, "`(` of the port connections")?;
+            self.expect_p(Punct::LParen, "`(` of the port connections")?;
             let conns = self.conns()?;
-            self.expect_p(P::RParen, "`)` closing the port connections")?;
+            self.expect_p(Punct::RParen, "`)` closing the port connections")?;
             out.push(Item::Inst(Box::new(Instance {
                 module,
                 params: params.clone(),
@@ -32,31 +32,31 @@ impl Parser<'_, '_> {
                 conns,
                 pos,
             })));
-            if !self.eat_p(P::Comma) {
+            if !self.eat_p(Punct::Comma) {
                 break;
             }
         }
-        self.expect_p(P::Semi, "`;` after the instance")
+        self.expect_p(Punct::Semi, "`;` after the instance")
     }
 
     fn conns(&mut self) -> PResult<Conns> {
-        if self.peek_p(P::RParen) {
+        if self.peek_p(Punct::RParen) {
             return Ok(Conns::Ordered(Vec::new()));
         }
-        if self.peek_p(P::Dot) {
+        if self.peek_p(Punct::Dot) {
             let mut v = Vec::new();
             loop {
-                self.expect_p(P::Dot, "`.name(...)`")?;
+                self.expect_p(Punct::Dot, "`.name(...)`")?;
                 let (n, p) = self.ident("a port or parameter name")?;
-                self.expect_p(P::LParen, "`(`")?;
-                let e = if self.peek_p(P::RParen) {
+                self.expect_p(Punct::LParen, "`(`")?;
+                let e = if self.peek_p(Punct::RParen) {
                     None
                 } else {
                     Some(self.expr()?)
                 };
-                self.expect_p(P::RParen, "`)`")?;
+                self.expect_p(Punct::RParen, "`)`")?;
                 v.push((n, p, e));
-                if !self.eat_p(P::Comma) {
+                if !self.eat_p(Punct::Comma) {
                     break;
                 }
             }
@@ -64,12 +64,12 @@ impl Parser<'_, '_> {
         }
         let mut v = Vec::new();
         loop {
-            if self.peek_p(P::Comma) || self.peek_p(P::RParen) {
+            if self.peek_p(Punct::Comma) || self.peek_p(Punct::RParen) {
                 v.push(None);
             } else {
                 v.push(Some(self.expr()?));
             }
-            if !self.eat_p(P::Comma) {
+            if !self.eat_p(Punct::Comma) {
                 break;
             }
         }
@@ -79,13 +79,13 @@ impl Parser<'_, '_> {
     /// `i = expr` in a `for` header.
     pub fn loop_assign(&mut self) -> PResult<(Sym, Pos, Expr)> {
         let (n, p) = self.ident("a loop variable")?;
-        self.expect_p(P::Assign, "`=` in the loop header")?;
+        self.expect_p(Punct::Assign, "`=` in the loop header")?;
         Ok((n, p, self.expr()?))
     }
 
     pub(super) fn gen_for(&mut self, out: &mut Vec<Item>) -> PResult<()> {
         let pos = self.bump().pos;
-        self.expect_p(P::LParen, "`(` after `for`")?;
+        self.expect_p(Punct::LParen, "`(` after `for`")?;
         if self.eat_kw(kw::GENVAR) {
             let (n, p) = match self.peek().tok {
                 Tok::Ident(s) => (s, self.peek_pos()),
@@ -94,11 +94,11 @@ impl Parser<'_, '_> {
             out.push(Item::Genvar(vec![(n, p)]));
         }
         let init = self.loop_assign()?;
-        self.expect_p(P::Semi, "`;` in the loop header")?;
+        self.expect_p(Punct::Semi, "`;` in the loop header")?;
         let cond = self.expr()?;
-        self.expect_p(P::Semi, "`;` in the loop header")?;
+        self.expect_p(Punct::Semi, "`;` in the loop header")?;
         let step = self.loop_assign()?;
-        self.expect_p(P::RParen, "`)` closing the loop header")?;
+        self.expect_p(Punct::RParen, "`)` closing the loop header")?;
         let (name, items) = self.gen_block()?;
         out.push(Item::GenFor(Box::new(GenFor {
             init,
@@ -113,9 +113,9 @@ impl Parser<'_, '_> {
 
     pub(super) fn gen_if(&mut self, out: &mut Vec<Item>) -> PResult<()> {
         let pos = self.bump().pos;
-        self.expect_p(P::LParen, "`(` after `if`")?;
+        self.expect_p(Punct::LParen, "`(` after `if`")?;
         let cond = self.expr()?;
-        self.expect_p(P::RParen, "`)`")?;
+        self.expect_p(Punct::RParen, "`)`")?;
         let (_, then) = self.gen_block()?;
         let els = if self.eat_kw(kw::ELSE) {
             if self.peek_kw(kw::IF) {
@@ -147,7 +147,7 @@ impl Parser<'_, '_> {
     fn gen_block_inner(&mut self) -> PResult<(Option<Sym>, Vec<Item>)> {
         let mut items = Vec::new();
         if self.eat_kw(kw::BEGIN) {
-            let name = if self.eat_p(P::Colon) {
+            let name = if self.eat_p(Punct::Colon) {
                 Some(self.ident("a block name")?.0)
             } else {
                 None
@@ -162,7 +162,7 @@ impl Parser<'_, '_> {
                 }
                 self.item_or_skip(&mut items);
             }
-            if self.eat_p(P::Colon) {
+            if self.eat_p(Punct::Colon) {
                 self.ident("a block name")?;
             }
             Ok((name, items))

@@ -2,7 +2,7 @@
 //! `case`/`casez` and `for`; everything else is reported as unsupported.
 
 use super::ast::{CaseStmt, ForStmt, Stmt};
-use super::lexer::{Tok, P};
+use super::lexer::{Tok, Punct};
 use super::parser::{PResult, Parser};
 use super::symbols::kw;
 
@@ -20,13 +20,13 @@ impl Parser<'_, '_> {
         let t = self.peek().clone();
         let pos = t.pos;
         match t.tok {
-            Tok::P(P::Semi) => {
+            Tok::Punct(Punct::Semi) => {
                 self.bump();
                 Ok(Stmt::Null)
             }
             Tok::Ident(k) if k == kw::BEGIN => {
                 self.bump();
-                if self.eat_p(P::Colon) {
+                if self.eat_p(Punct::Colon) {
                     self.ident("a block name")?;
                 }
                 let mut v = Vec::new();
@@ -40,9 +40,7 @@ impl Parser<'_, '_> {
                     if self.peek_kw(kw::REG) || self.peek_kw(kw::INTEGER) || self.peek_kw(kw::WIRE)
                     {
                         let p = self.peek_pos();
-                        return Err(self.error(
-                            p,
-                            "unsupported: declaration inside a block (declare it in the module)",
+                        return Err(self.unsupported(p, "declaration inside a block (declare it in the module)",
                         ));
                     }
                     v.push(self.stmt()?);
@@ -51,9 +49,9 @@ impl Parser<'_, '_> {
             }
             Tok::Ident(k) if k == kw::IF => {
                 self.bump();
-                self.expect_p(P::LParen, "`(` after `if`")?;
+                self.expect_p(Punct::LParen, "`(` after `if`")?;
                 let c = self.expr()?;
-                self.expect_p(P::RParen, "`)` after the condition")?;
+                self.expect_p(Punct::RParen, "`)` after the condition")?;
                 let t = self.stmt()?;
                 let e = if self.eat_kw(kw::ELSE) {
                     Some(Box::new(self.stmt()?))
@@ -66,19 +64,17 @@ impl Parser<'_, '_> {
                 self.bump();
                 self.case(k == kw::CASEZ, pos)
             }
-            Tok::Ident(k) if k == kw::CASEX => Err(self.error(
-                pos,
-                "unsupported: `casex` (use `casez` with `?` for don't-care bits)",
+            Tok::Ident(k) if k == kw::CASEX => Err(self.unsupported(pos, "`casex` (use `casez` with `?` for don't-care bits)",
             )),
             Tok::Ident(k) if k == kw::FOR => {
                 self.bump();
-                self.expect_p(P::LParen, "`(` after `for`")?;
+                self.expect_p(Punct::LParen, "`(` after `for`")?;
                 let init = self.loop_assign()?;
-                self.expect_p(P::Semi, "`;` in the loop header")?;
+                self.expect_p(Punct::Semi, "`;` in the loop header")?;
                 let cond = self.expr()?;
-                self.expect_p(P::Semi, "`;` in the loop header")?;
+                self.expect_p(Punct::Semi, "`;` in the loop header")?;
                 let step = self.loop_assign()?;
-                self.expect_p(P::RParen, "`)` closing the loop header")?;
+                self.expect_p(Punct::RParen, "`)` closing the loop header")?;
                 let body = self.stmt()?;
                 Ok(Stmt::For(Box::new(ForStmt {
                     init,
@@ -90,35 +86,31 @@ impl Parser<'_, '_> {
             }
             Tok::Ident(k) if super::symbols::is_keyword(k) => {
                 let n = self.names.name(k).to_string();
-                Err(self.error(
-                    pos,
-                    format!("unsupported: `{n}` statement in an always block"),
+                Err(self.unsupported(pos, format!("`{n}` statement in an always block"),
                 ))
             }
-            Tok::Ident(_) | Tok::P(P::LBrace) => {
+            Tok::Ident(_) | Tok::Punct(Punct::LBrace) => {
                 let lhs = self.lvalue()?;
                 let p = self.peek_pos();
-                if self.eat_p(P::Le) {
-                    return Err(self.error(
-                        p,
-                        "unsupported: non-blocking assignment `<=` in `always @*` (use `=`)",
+                if self.eat_p(Punct::Le) {
+                    return Err(self.unsupported(p, "non-blocking assignment `<=` in `always @*` (use `=`)",
                     ));
                 }
-                self.expect_p(P::Assign, "`=` in an assignment")?;
-                if self.peek_p(P::Hash) || self.peek_p(P::At) {
+                self.expect_p(Punct::Assign, "`=` in an assignment")?;
+                if self.peek_p(Punct::Hash) || self.peek_p(Punct::At) {
                     let p = self.peek_pos();
-                    return Err(self.error(p, "unsupported: intra-assignment timing control"));
+                    return Err(self.unsupported(p, "intra-assignment timing control"));
                 }
                 let rhs = self.expr()?;
-                self.expect_p(P::Semi, "`;` after the assignment")?;
+                self.expect_p(Punct::Semi, "`;` after the assignment")?;
                 Ok(Stmt::Assign(lhs, rhs, p))
             }
             Tok::Sys(s) => {
                 let n = self.names.name(s).to_string();
-                Err(self.error(pos, format!("unsupported: system task `{n}`")))
+                Err(self.unsupported(pos, format!("system task `{n}`")))
             }
-            Tok::P(P::Hash) => Err(self.error(pos, "unsupported: delay control `#`")),
-            Tok::P(P::At) => Err(self.error(pos, "unsupported: event control `@` inside a block")),
+            Tok::Punct(Punct::Hash) => Err(self.unsupported(pos, "delay control `#`")),
+            Tok::Punct(Punct::At) => Err(self.unsupported(pos, "event control `@` inside a block")),
             other => {
                 let d = self.describe(&other);
                 Err(self.error(pos, format!("expected a statement, found {d}")))
@@ -131,7 +123,7 @@ impl Parser<'_, '_> {
         // Parsed as a primary; the elaborator checks that it is assignable.
         let pos = self.peek_pos();
         match self.peek().tok {
-            Tok::Ident(_) | Tok::P(P::LBrace) => {}
+            Tok::Ident(_) | Tok::Punct(Punct::LBrace) => {}
             _ => return Err(self.error(pos, "expected an assignment target")),
         }
         let save_depth_ok = self.enter(pos);
@@ -146,18 +138,18 @@ impl Parser<'_, '_> {
         let t = self.bump();
         match t.tok {
             Tok::Ident(s) if !super::symbols::is_keyword(s) => {
-                if self.peek_p(P::LBrack) {
+                if self.peek_p(Punct::LBrack) {
                     let sel = self.select()?;
                     return Ok(Expr::Index(s, t.pos, Box::new(sel)));
                 }
                 Ok(Expr::Ident(s, t.pos))
             }
-            Tok::P(P::LBrace) => {
+            Tok::Punct(Punct::LBrace) => {
                 let mut v = vec![self.lvalue()?];
-                while self.eat_p(P::Comma) {
+                while self.eat_p(Punct::Comma) {
                     v.push(self.lvalue()?);
                 }
-                self.expect_p(P::RBrace, "`}`")?;
+                self.expect_p(Punct::RBrace, "`}`")?;
                 Ok(Expr::Concat(v, t.pos))
             }
             other => {
@@ -168,9 +160,9 @@ impl Parser<'_, '_> {
     }
 
     fn case(&mut self, casez: bool, pos: super::lexer::Pos) -> PResult<Stmt> {
-        self.expect_p(P::LParen, "`(` after `case`")?;
+        self.expect_p(Punct::LParen, "`(` after `case`")?;
         let expr = self.expr()?;
-        self.expect_p(P::RParen, "`)`")?;
+        self.expect_p(Punct::RParen, "`)`")?;
         let mut items = Vec::new();
         let mut default = None;
         loop {
@@ -182,7 +174,7 @@ impl Parser<'_, '_> {
             }
             if self.peek_kw(kw::DEFAULT) {
                 let p = self.bump().pos;
-                self.eat_p(P::Colon);
+                self.eat_p(Punct::Colon);
                 let s = self.stmt()?;
                 if default.is_some() {
                     return Err(self.error(p, "more than one `default` in a case statement"));
@@ -191,10 +183,10 @@ impl Parser<'_, '_> {
                 continue;
             }
             let mut labels = vec![self.expr()?];
-            while self.eat_p(P::Comma) {
+            while self.eat_p(Punct::Comma) {
                 labels.push(self.expr()?);
             }
-            self.expect_p(P::Colon, "`:` after the case item")?;
+            self.expect_p(Punct::Colon, "`:` after the case item")?;
             let s = self.stmt()?;
             items.push((labels, s));
         }

@@ -2,8 +2,9 @@
 //! blocks. Errors are collected; after one, the parser skips to the next `;` or item keyword.
 
 use super::ast::*;
-use super::lexer::{Lexer, Pos, Tok, Token, P};
+use super::lexer::{Lexer, Pos, Tok, Token, Punct};
 use super::symbols::{is_keyword, kw, Interner, Sym};
+use super::syntax_error::{SyntaxError, SyntaxKind};
 use std::collections::VecDeque;
 
 /// Parse failure marker: the message is already in [`Parser::errors`].
@@ -23,7 +24,7 @@ pub struct Parser<'s, 'n> {
     pub names: &'n mut Interner,
     look: VecDeque<Token>,
     /// Errors found: position and message.
-    pub errors: Vec<(Pos, String)>,
+    pub errors: Vec<SyntaxError>,
     depth: usize,
     /// Tokens taken so far (error recovery checks that it moved on).
     taken: u64,
@@ -74,8 +75,8 @@ impl<'s, 'n> Parser<'s, 'n> {
     }
 
     /// Whether the next token is `p`.
-    pub fn peek_p(&mut self, p: P) -> bool {
-        self.peek().tok == Tok::P(p)
+    pub fn peek_p(&mut self, p: Punct) -> bool {
+        self.peek().tok == Tok::Punct(p)
     }
 
     /// Whether the next token is keyword `k`.
@@ -84,7 +85,7 @@ impl<'s, 'n> Parser<'s, 'n> {
     }
 
     /// Consume `p` if next.
-    pub fn eat_p(&mut self, p: P) -> bool {
+    pub fn eat_p(&mut self, p: Punct) -> bool {
         if self.peek_p(p) {
             self.bump();
             true
@@ -103,10 +104,27 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
     }
 
-    /// Record an error.
+    /// Record a syntax error.
     pub fn error(&mut self, pos: Pos, msg: impl Into<String>) -> Stop {
-        self.errors.push((pos, msg.into()));
+        self.error_of(pos, SyntaxKind::Syntax, msg)
+    }
+
+    /// Record an error of a given kind.
+    pub fn error_of(&mut self, pos: Pos, kind: SyntaxKind, msg: impl Into<String>) -> Stop {
+        self.errors.push(SyntaxError::new(pos, kind, msg));
         Stop
+    }
+
+    /// Record `unsupported: {what}`.
+    pub fn unsupported(&mut self, pos: Pos, what: impl AsRef<str>) -> Stop {
+        let msg = format!("unsupported: {}", what.as_ref());
+        self.error_of(pos, SyntaxKind::Unsupported, msg)
+    }
+
+    /// Record `unsupported: {what}` at the next token.
+    pub fn unsupported_here(&mut self, what: &str) -> Stop {
+        let p = self.peek_pos();
+        self.unsupported(p, what)
     }
 
     /// How a token reads in a message.
@@ -115,7 +133,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             Tok::Ident(s) => format!("`{}`", self.names.name(*s)),
             Tok::Sys(s) => format!("`{}`", self.names.name(*s)),
             Tok::Num(n) => format!("number `{}`", n.text),
-            Tok::P(p) => format!("`{}`", punct_text(*p)),
+            Tok::Punct(p) => format!("`{}`", punct_text(*p)),
             Tok::Str => "a string".into(),
             Tok::Real => "a real number".into(),
             Tok::Eof => "end of file".into(),
@@ -123,7 +141,7 @@ impl<'s, 'n> Parser<'s, 'n> {
     }
 
     /// Consume `p` or report what was expected.
-    pub fn expect_p(&mut self, p: P, what: &str) -> PResult<()> {
+    pub fn expect_p(&mut self, p: Punct, what: &str) -> PResult<()> {
         if self.eat_p(p) {
             return Ok(());
         }
@@ -172,8 +190,9 @@ impl<'s, 'n> Parser<'s, 'n> {
         self.depth += 1;
         if self.depth > MAX_DEPTH {
             self.depth -= 1;
-            return Err(self.error(
+            return Err(self.error_of(
                 pos,
+                SyntaxKind::TooDeep,
                 format!(
                     "nesting deeper than {MAX_DEPTH} levels; split the expression or statement"
                 ),
@@ -201,7 +220,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                     }
                 }
                 Tok::Ident(k) if k == kw::PRIMITIVE => {
-                    self.error(t.pos, "unsupported: user-defined primitive");
+                    self.unsupported(t.pos, "user-defined primitive");
                     self.skip_past(kw::ENDPRIMITIVE);
                 }
                 _ => {
@@ -250,7 +269,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         loop {
             match &self.peek().tok {
                 Tok::Eof => return,
-                Tok::P(P::Semi) => {
+                Tok::Punct(Punct::Semi) => {
                     self.bump();
                     return;
                 }
@@ -294,20 +313,20 @@ impl<'s, 'n> Parser<'s, 'n> {
         };
         if self.header(&mut m).is_err() {
             // Skip the rest of the header.
-            while !self.peek_p(P::Semi)
+            while !self.peek_p(Punct::Semi)
                 && !matches!(self.peek().tok, Tok::Eof)
                 && !self.peek_kw(kw::ENDMODULE)
             {
                 self.bump();
             }
-            self.eat_p(P::Semi);
+            self.eat_p(Punct::Semi);
         }
         m.nettype_none = self.lx.nettype_none;
         loop {
             let t = self.peek().clone();
             match t.tok {
                 Tok::Eof => {
-                    self.error(t.pos, "missing `endmodule`");
+                    self.error_of(t.pos, SyntaxKind::MissingEndmodule, "missing `endmodule`");
                     break;
                 }
                 Tok::Ident(k) if k == kw::ENDMODULE => {
@@ -316,7 +335,11 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
                 Tok::Ident(k) if k == kw::MODULE || k == kw::MACROMODULE => {
                     // The next module starts: this one lacks its `endmodule`.
-                    self.error(t.pos, "missing `endmodule` before this `module`");
+                    self.error_of(
+                        t.pos,
+                        SyntaxKind::MissingEndmodule,
+                        "missing `endmodule` before this `module`",
+                    );
                     break;
                 }
                 _ => self.item_or_skip(&mut m.items),
@@ -326,23 +349,23 @@ impl<'s, 'n> Parser<'s, 'n> {
     }
 
     fn header(&mut self, m: &mut Module) -> PResult<()> {
-        if self.eat_p(P::Hash) {
-            self.expect_p(P::LParen, "`(` of the parameter port list")?;
+        if self.eat_p(Punct::Hash) {
+            self.expect_p(Punct::LParen, "`(` of the parameter port list")?;
             loop {
                 self.eat_kw(kw::PARAMETER);
                 let mut pd = self.param_head(false)?;
                 let (n, p) = self.ident("a parameter name")?;
-                self.expect_p(P::Assign, "`=`")?;
+                self.expect_p(Punct::Assign, "`=`")?;
                 pd.assigns.push((n, p, self.expr()?));
                 m.items.push(Item::Param(Box::new(pd)));
-                if !self.eat_p(P::Comma) {
+                if !self.eat_p(Punct::Comma) {
                     break;
                 }
             }
-            self.expect_p(P::RParen, "`)` closing the parameter port list")?;
+            self.expect_p(Punct::RParen, "`)` closing the parameter port list")?;
         }
-        if self.eat_p(P::LParen) {
-            if !self.peek_p(P::RParen) {
+        if self.eat_p(Punct::LParen) {
+            if !self.peek_p(Punct::RParen) {
                 let t = self.peek().clone();
                 if matches!(t.tok, Tok::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT)
                 {
@@ -350,21 +373,21 @@ impl<'s, 'n> Parser<'s, 'n> {
                 } else {
                     loop {
                         let (n, p) = self.ident("a port name")?;
-                        if self.peek_p(P::LBrack) {
+                        if self.peek_p(Punct::LBrack) {
                             return Err(
-                                self.error(p, "unsupported: port expression in the port list")
+                                self.unsupported(p, "port expression in the port list")
                             );
                         }
                         m.ports.push((n, p));
-                        if !self.eat_p(P::Comma) {
+                        if !self.eat_p(Punct::Comma) {
                             break;
                         }
                     }
                 }
             }
-            self.expect_p(P::RParen, "`)` closing the port list")?;
+            self.expect_p(Punct::RParen, "`)` closing the port list")?;
         }
-        self.expect_p(P::Semi, "`;` after the module header")
+        self.expect_p(Punct::Semi, "`;` after the module header")
     }
 
     fn ansi_ports(&mut self, m: &mut Module) -> PResult<()> {
@@ -387,7 +410,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             };
             d.names.push((n, p, None));
             m.ports.push((n, p));
-            if !self.eat_p(P::Comma) {
+            if !self.eat_p(Punct::Comma) {
                 break;
             }
         }
@@ -413,7 +436,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             Tok::Ident(k) if k == kw::INPUT => d.dir = Some(Dir::Input),
             Tok::Ident(k) if k == kw::OUTPUT => d.dir = Some(Dir::Output),
             Tok::Ident(k) if k == kw::INOUT => {
-                return Err(self.error(pos, "unsupported: `inout` port (only `input` and `output` ports are supported; split the port into an input and an output)"));
+                return Err(self.unsupported(pos, "`inout` port (only `input` and `output` ports are supported; split the port into an input and an output)"));
             }
             Tok::Ident(k) if k == kw::WIRE => d.ty = Some(NetType::Wire),
             Tok::Ident(k) if k == kw::REG => d.ty = Some(NetType::Reg),
@@ -435,20 +458,54 @@ impl<'s, 'n> Parser<'s, 'n> {
             if self.eat_kw(kw::SIGNED) {
                 d.signed = true;
             }
-            if self.peek_p(P::LBrack) {
+            if self.peek_p(Punct::LBrack) {
                 d.range = Some(self.range()?);
             }
         }
         Ok(d)
     }
 
+    /// The event control after `always`: `@*`, `@(*)`, `@(a or b)`, `@(a, b)`,
+    /// `@(posedge clk)` (IEEE 1364-2005 clause 9.7).
+    fn event_control(&mut self) -> PResult<Sensitivity> {
+        let at = self.peek_pos();
+        if !self.eat_p(Punct::At) {
+            return Err(self.unsupported(at, "`always` without an event control `@(...)` (only `always @*` or `always @(...)` blocks are read)"));
+        }
+        if self.eat_p(Punct::Star) {
+            return Ok(Sensitivity::Implicit);
+        }
+        self.expect_p(Punct::LParen, "`(` or `*` after `@`")?;
+        if self.eat_p(Punct::Star) {
+            self.expect_p(Punct::RParen, "`)` after `@(*`")?;
+            return Ok(Sensitivity::Implicit);
+        }
+        let mut events = Vec::new();
+        loop {
+            let edge = if self.eat_kw(kw::POSEDGE) {
+                Some(Edge::Rising)
+            } else if self.eat_kw(kw::NEGEDGE) {
+                Some(Edge::Falling)
+            } else {
+                None
+            };
+            let expr = self.expr()?;
+            events.push(Event { edge, expr });
+            if !(self.eat_p(Punct::Comma) || self.eat_kw(kw::OR)) {
+                break;
+            }
+        }
+        self.expect_p(Punct::RParen, "`)` closing the event list, or `or`/`,` before the next event")?;
+        Ok(Sensitivity::List(events, at))
+    }
+
     /// `[msb:lsb]`
     pub fn range(&mut self) -> PResult<Range> {
-        self.expect_p(P::LBrack, "`[`")?;
+        self.expect_p(Punct::LBrack, "`[`")?;
         let msb = self.expr()?;
-        self.expect_p(P::Colon, "`:` in a range")?;
+        self.expect_p(Punct::Colon, "`:` in a range")?;
         let lsb = self.expr()?;
-        self.expect_p(P::RBrack, "`]`")?;
+        self.expect_p(Punct::RBrack, "`]`")?;
         Ok(Range { msb, lsb })
     }
 
@@ -467,7 +524,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             if self.eat_kw(kw::SIGNED) {
                 pd.signed = true;
             }
-            if self.peek_p(P::LBrack) {
+            if self.peek_p(Punct::LBrack) {
                 pd.range = Some(self.range()?);
             }
         }
@@ -495,78 +552,77 @@ impl<'s, 'n> Parser<'s, 'n> {
             let mut d = self.decl_head()?;
             loop {
                 let (n, p) = self.ident("a name")?;
-                if self.peek_p(P::LBrack) {
-                    return Err(self.err_here("unsupported: arrays (memories)"));
+                if self.peek_p(Punct::LBrack) {
+                    return Err(self.unsupported_here("arrays (memories)"));
                 }
-                let init = if self.eat_p(P::Assign) {
+                let init = if self.eat_p(Punct::Assign) {
                     if d.ty != Some(NetType::Wire) || d.dir.is_some() {
-                        return Err(self.error(p, "unsupported: initial value in a declaration (only `wire w = expr;` is supported)"));
+                        return Err(self.unsupported(p, "initial value in a declaration (only `wire w = expr;` is supported)"));
                     }
                     Some(Box::new(self.expr()?))
                 } else {
                     None
                 };
                 d.names.push((n, p, init));
-                if !self.eat_p(P::Comma) {
+                if !self.eat_p(Punct::Comma) {
                     break;
                 }
             }
-            self.expect_p(P::Semi, "`;` after the declaration")?;
+            self.expect_p(Punct::Semi, "`;` after the declaration")?;
             out.push(Item::Decl(Box::new(d)));
         } else if k == kw::PARAMETER || k == kw::LOCALPARAM {
             self.bump();
             let mut pd = self.param_head(k == kw::LOCALPARAM)?;
             loop {
                 let (n, p) = self.ident("a parameter name")?;
-                self.expect_p(P::Assign, "`=` in a parameter declaration")?;
+                self.expect_p(Punct::Assign, "`=` in a parameter declaration")?;
                 pd.assigns.push((n, p, self.expr()?));
-                if !self.eat_p(P::Comma) {
+                if !self.eat_p(Punct::Comma) {
                     break;
                 }
             }
-            self.expect_p(P::Semi, "`;` after the parameter declaration")?;
+            self.expect_p(Punct::Semi, "`;` after the parameter declaration")?;
             out.push(Item::Param(Box::new(pd)));
         } else if k == kw::GENVAR {
             self.bump();
             let mut v = vec![self.ident("a genvar name")?];
-            while self.eat_p(P::Comma) {
+            while self.eat_p(Punct::Comma) {
                 v.push(self.ident("a genvar name")?);
             }
-            self.expect_p(P::Semi, "`;`")?;
+            self.expect_p(Punct::Semi, "`;`")?;
             out.push(Item::Genvar(v));
         } else if k == kw::ASSIGN {
             self.bump();
-            if self.peek_p(P::Hash) || self.peek_p(P::LParen) {
-                return Err(self.err_here("unsupported: delay or drive strength on `assign`"));
+            if self.peek_p(Punct::Hash) || self.peek_p(Punct::LParen) {
+                return Err(self.unsupported_here("delay or drive strength on `assign`"));
             }
             loop {
                 let lhs = self.expr()?;
-                self.expect_p(P::Assign, "`=` in a continuous assignment")?;
+                self.expect_p(Punct::Assign, "`=` in a continuous assignment")?;
                 let rhs = self.expr()?;
                 out.push(Item::Assign(Box::new((lhs, rhs)), pos));
-                if !self.eat_p(P::Comma) {
+                if !self.eat_p(Punct::Comma) {
                     break;
                 }
             }
-            self.expect_p(P::Semi, "`;` after the assignment")?;
+            self.expect_p(Punct::Semi, "`;` after the assignment")?;
         } else if let Some(g) = Self::gate_kind(k) {
             self.gates(g, out)?;
         } else if k == kw::ALWAYS {
             self.bump();
-            let at = self.peek_pos();
-            if !self.eat_p(P::At) {
-                return Err(self.error(at, "unsupported: `always` without `@*` (only combinational `always @*` blocks are supported)"));
-            }
-            if self.eat_p(P::Star) {
-            } else if self.peek_p(P::LParen) && matches!(self.peek2().tok, Tok::P(P::Star)) {
-                self.bump();
-                self.bump();
-                self.expect_p(P::RParen, "`)` after `@(*`")?;
-            } else {
-                return Err(self.error(at, "unsupported: `always` with an event list (only combinational `always @*` blocks are supported)"));
+            let sensitivity = self.event_control()?;
+            if let Sensitivity::List(events, at) = &sensitivity {
+                if events.iter().any(|e| e.edge.is_some()) {
+                    // Registers are not read yet: their lowering belongs in
+                    // `elaborate/clocked.rs`, with `<=` parsed for these blocks only.
+                    let at = *at;
+                    self.unsupported(at, "`always` block with a clock edge (`posedge`/`negedge`) in its event list: equicone reads combinational logic (`always @*`, `always @(a or b)`, `always_comb`)");
+                    self.skip_statement();
+                    return Ok(());
+                }
             }
             let body = self.stmt()?;
-            out.push(Item::Always(Box::new(body), pos));
+            out.push(Item::Always(Box::new(Always { sensitivity, body }), pos));
         } else if k == kw::GENERATE {
             self.bump();
             while !self.eat_kw(kw::ENDGENERATE) {
@@ -590,7 +646,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 "begin" => "`begin` block outside a generate loop or condition".to_string(),
                 _ => format!("`{n}`"),
             };
-            self.error(pos, format!("unsupported: {what}"));
+            self.unsupported(pos, format!("{what}"));
             let end = match n.as_str() {
                 "function" => Some(kw::ENDFUNCTION),
                 "task" => Some(kw::ENDTASK),
@@ -603,64 +659,122 @@ impl<'s, 'n> Parser<'s, 'n> {
                 return Ok(());
             }
             return Err(Stop);
+        } else if self.names.name(k) == "always_comb" {
+            // IEEE 1800-2017 clause 9.2.2.2 (from memory): combinational, every variable read.
+            self.bump();
+            let body = self.stmt()?;
+            let sensitivity = Sensitivity::Implicit;
+            out.push(Item::Always(Box::new(Always { sensitivity, body }), pos));
+        } else if self.names.name(k) == "always_latch" || self.names.name(k) == "always_ff" {
+            let n = self.names.name(k).to_string();
+            self.unsupported(pos, format!("`{n}` (equicone reads combinational logic: `always @*`, `always @(...)` or `always_comb`)"));
+            self.bump();
+            self.skip_statement();
         } else {
             self.instance(out)?;
         }
         Ok(())
     }
 
-    pub(super) fn err_here(&mut self, msg: &str) -> Stop {
-        let p = self.peek_pos();
-        self.error(p, msg)
+}
+
+impl Parser<'_, '_> {
+    /// Skip one statement (after an error on its head): a `begin ... end` block with its
+    /// nested blocks, or up to the next `;`.
+    pub(super) fn skip_statement(&mut self) {
+        // An event control first.
+        if self.eat_p(Punct::At) && !self.eat_p(Punct::Star) && self.peek_p(Punct::LParen) {
+            let mut depth = 0usize;
+            loop {
+                match self.bump().tok {
+                    Tok::Punct(Punct::LParen) => depth += 1,
+                    Tok::Punct(Punct::RParen) => {
+                        depth = depth.saturating_sub(1);
+                        if depth == 0 {
+                            break;
+                        }
+                    }
+                    Tok::Eof => return,
+                    _ => {}
+                }
+            }
+        }
+        let mut depth = 0usize;
+        loop {
+            match &self.peek().tok {
+                Tok::Eof => return,
+                Tok::Ident(k) if *k == kw::ENDMODULE => return,
+                Tok::Ident(k) if *k == kw::BEGIN || *k == kw::CASE || *k == kw::CASEZ => {
+                    depth += 1;
+                }
+                Tok::Ident(k) if *k == kw::END || *k == kw::ENDCASE => {
+                    self.bump();
+                    depth = depth.saturating_sub(1);
+                    if depth == 0 && !self.peek_kw(kw::ELSE) {
+                        return;
+                    }
+                    continue;
+                }
+                Tok::Punct(Punct::Semi) if depth == 0 => {
+                    self.bump();
+                    if !self.peek_kw(kw::ELSE) {
+                        return;
+                    }
+                    continue;
+                }
+                _ => {}
+            }
+            self.bump();
+        }
     }
 }
 
-fn punct_text(p: P) -> &'static str {
+fn punct_text(p: Punct) -> &'static str {
     match p {
-        P::LParen => "(",
-        P::RParen => ")",
-        P::LBrack => "[",
-        P::RBrack => "]",
-        P::LBrace => "{",
-        P::RBrace => "}",
-        P::Comma => ",",
-        P::Semi => ";",
-        P::Colon => ":",
-        P::Dot => ".",
-        P::Hash => "#",
-        P::At => "@",
-        P::Assign => "=",
-        P::Question => "?",
-        P::Plus => "+",
-        P::Minus => "-",
-        P::Star => "*",
-        P::Slash => "/",
-        P::Percent => "%",
-        P::Bang => "!",
-        P::Tilde => "~",
-        P::Amp => "&",
-        P::Pipe => "|",
-        P::Caret => "^",
-        P::TildeAmp => "~&",
-        P::TildePipe => "~|",
-        P::TildeCaret => "~^",
-        P::CaretTilde => "^~",
-        P::AmpAmp => "&&",
-        P::PipePipe => "||",
-        P::EqEq => "==",
-        P::BangEq => "!=",
-        P::EqEqEq => "===",
-        P::BangEqEq => "!==",
-        P::Lt => "<",
-        P::Le => "<=",
-        P::Gt => ">",
-        P::Ge => ">=",
-        P::Shl => "<<",
-        P::Shr => ">>",
-        P::AShl => "<<<",
-        P::AShr => ">>>",
-        P::Power => "**",
-        P::PlusColon => "+:",
-        P::MinusColon => "-:",
+        Punct::LParen => "(",
+        Punct::RParen => ")",
+        Punct::LBrack => "[",
+        Punct::RBrack => "]",
+        Punct::LBrace => "{",
+        Punct::RBrace => "}",
+        Punct::Comma => ",",
+        Punct::Semi => ";",
+        Punct::Colon => ":",
+        Punct::Dot => ".",
+        Punct::Hash => "#",
+        Punct::At => "@",
+        Punct::Assign => "=",
+        Punct::Question => "?",
+        Punct::Plus => "+",
+        Punct::Minus => "-",
+        Punct::Star => "*",
+        Punct::Slash => "/",
+        Punct::Percent => "%",
+        Punct::Bang => "!",
+        Punct::Tilde => "~",
+        Punct::Amp => "&",
+        Punct::Pipe => "|",
+        Punct::Caret => "^",
+        Punct::TildeAmp => "~&",
+        Punct::TildePipe => "~|",
+        Punct::TildeCaret => "~^",
+        Punct::CaretTilde => "^~",
+        Punct::AmpAmp => "&&",
+        Punct::PipePipe => "||",
+        Punct::EqEq => "==",
+        Punct::BangEq => "!=",
+        Punct::EqEqEq => "===",
+        Punct::BangEqEq => "!==",
+        Punct::Lt => "<",
+        Punct::Le => "<=",
+        Punct::Gt => ">",
+        Punct::Ge => ">=",
+        Punct::Shl => "<<",
+        Punct::Shr => ">>",
+        Punct::AShl => "<<<",
+        Punct::AShr => ">>>",
+        Punct::Power => "**",
+        Punct::PlusColon => "+:",
+        Punct::MinusColon => "-:",
     }
 }

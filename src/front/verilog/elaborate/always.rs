@@ -1,35 +1,46 @@
-//! `always @*` blocks: symbolic execution of blocking assignments, `if`, `case`/`casez` and
+//! Combinational `always` blocks: symbolic execution of blocking assignments, `if`, `case`/`casez` and
 //! constant-bound `for` loops; a variable left unassigned on some path is a latch error.
 
-use super::super::ast::{CaseStmt, Expr, ForStmt, NetType, Select, Stmt};
+use super::super::ast::{Always, CaseStmt, Expr, ForStmt, NetType, Select, Sensitivity, Stmt};
 use super::super::lexer::{Pos, B0, B1};
 use super::bits::{self, extend};
-use super::expr::Cx;
+use super::coverage::{self, Coverage};
+use super::expr::EvalContext;
 use super::{Elab, Symbol};
 use crate::aig::Lit;
 use std::collections::BTreeMap;
 
 /// The state of one variable bit during symbolic execution.
 #[derive(Copy, Clone, Debug, PartialEq, Eq)]
-pub enum BState {
+pub enum BitState {
     /// Assigned on every path so far, with this value.
     Set(Lit),
-    /// Not assigned on some path; the statement that has such a path, if any.
+    /// Not assigned on any path so far; the statement that has such a path, if any.
     Unset(Option<Pos>),
+    /// Assigned, with `value`, on the paths where `assigned` holds; `gap` is the statement
+    /// with a path that does not assign it (a latch unless `assigned` covers every value).
+    Partial {
+        /// The value where assigned.
+        value: Lit,
+        /// Where it is assigned.
+        assigned: Lit,
+        /// The statement with an unassigning path.
+        gap: Pos,
+    },
 }
 
 /// Current values of the variables an always block has assigned.
 #[derive(Clone, Debug, Default)]
 pub struct Env {
-    vars: BTreeMap<u32, Vec<BState>>,
+    vars: BTreeMap<u32, Vec<BitState>>,
 }
 
 impl Env {
     /// The current value of bit `off` of net `n`, if assigned.
     pub fn bit(&self, n: u32, off: usize) -> Option<Lit> {
         match self.vars.get(&n)?.get(off)? {
-            BState::Set(l) => Some(*l),
-            BState::Unset(_) => None,
+            BitState::Set(l) => Some(*l),
+            BitState::Unset(_) | BitState::Partial { .. } => None,
         }
     }
 
@@ -37,7 +48,7 @@ impl Env {
     pub fn overlay(&self, n: u32, bits: &mut [Lit]) {
         if let Some(v) = self.vars.get(&n) {
             for (b, s) in bits.iter_mut().zip(v) {
-                if let BState::Set(l) = s {
+                if let BitState::Set(l) = s {
                     *b = *l;
                 }
             }
@@ -49,76 +60,98 @@ impl Env {
 pub type Target = (u32, Option<u32>);
 
 impl Elab<'_> {
-    /// Elaborate one `always @*` block in scope `sc`.
-    pub(super) fn elab_always(&mut self, sc: u32, body: &Stmt, pos: Pos) {
+    /// Elaborate one `always` block in scope `scope`: clocked ones go to `clocked.rs`;
+    /// combinational ones have their event list checked (`sensitivity.rs`) and run here.
+    pub(super) fn elab_always(&mut self, scope: u32, block: &Always, pos: Pos) {
+        if let Sensitivity::List(events, at) = &block.sensitivity {
+            if let Some(edge) = events.iter().find(|e| e.edge.is_some()) {
+                return self.elab_clocked(scope, block, edge);
+            }
+            self.check_event_list(scope, events, *at, &block.body);
+        }
+        let body = &block.body;
         let mut env = Env::default();
-        self.exec(sc, body, &mut env);
-        let mut latch: BTreeMap<u32, Pos> = BTreeMap::new();
+        self.exec(scope, body, &mut env);
+        let mut latch: BTreeMap<u32, (Pos, Option<Lit>)> = BTreeMap::new();
         for (n, states) in &env.vars {
             if self.nets[*n as usize].ty == NetType::Integer {
                 continue;
             }
             for (off, st) in states.iter().enumerate() {
                 match st {
-                    BState::Set(l) => self.drive(*n, off as u32, *l, pos),
-                    BState::Unset(Some(p)) => {
-                        latch.entry(*n).or_insert(*p);
+                    BitState::Set(l) => self.drive(*n, off as u32, *l, pos),
+                    BitState::Partial { assigned, gap, .. } => {
+                        latch.entry(*n).or_insert((*gap, Some(*assigned)));
+                        self.drive(*n, off as u32, Lit::FALSE, pos);
+                    }
+                    BitState::Unset(Some(p)) => {
+                        latch.entry(*n).or_insert((*p, None));
                         // Reported as a latch below; a placeholder driver avoids a
                         // follow-on "never driven" message for the same bits.
                         self.drive(*n, off as u32, Lit::FALSE, pos);
                     }
-                    BState::Unset(None) => {}
+                    BitState::Unset(None) => {}
                 }
             }
         }
-        for (n, p) in latch {
+        for (n, (p, assigned)) in latch {
             let nm = self.net_name(n);
             let line = p.line;
+            let when = match assigned.map(|a| self.coverage(a)) {
+                Some(Coverage::Gap(g)) if !g.is_empty() => {
+                    format!(", for example when {}", self.gap_text(&g))
+                }
+                Some(Coverage::Undecided) => format!(
+                    "; its coverage reads more than {} bits and was not decided",
+                    coverage::MAX_LEAVES
+                ),
+                _ => String::new(),
+            };
             self.error(
                 p,
-                format!("`{nm}` is not assigned on every path through the always block (the statement at line {line} has a path without an assignment); it would infer a latch"),
+                format!("`{nm}` is not assigned on every path through the always block (the statement at line {line} has a path without an assignment{when}); it would infer a latch"),
                 "assign it a default value at the top of the block, or add the missing `else`/`default`",
             );
         }
     }
 
-    fn exec(&mut self, sc: u32, st: &Stmt, env: &mut Env) {
+    fn exec(&mut self, scope: u32, st: &Stmt, env: &mut Env) {
         match st {
             Stmt::Null => {}
             Stmt::Block(v) => {
                 for s in v {
-                    self.exec(sc, s, env);
+                    self.exec(scope, s, env);
                 }
             }
-            Stmt::Assign(lhs, rhs, pos) => self.proc_assign(sc, lhs, rhs, *pos, env),
+            Stmt::Assign(lhs, rhs, pos) => self.proc_assign(scope, lhs, rhs, *pos, env),
             Stmt::If(c, t, e, pos) => {
                 let cb = {
-                    let cx = Cx {
-                        sc,
+                    let ctx = EvalContext {
+                        scope,
                         env: Some(env),
                         constant: false,
                     };
-                    self.eval_bool(&cx, c)
+                    self.eval_bool(&ctx, c)
                 };
                 if cb == Lit::TRUE {
-                    return self.exec(sc, t, env);
+                    return self.exec(scope, t, env);
                 }
                 if cb == Lit::FALSE {
                     if let Some(e) = e {
-                        self.exec(sc, e, env);
+                        self.exec(scope, e, env);
                     }
                     return;
                 }
                 let mut te = env.clone();
-                self.exec(sc, t, &mut te);
+                self.exec(scope, t, &mut te);
                 let mut ee = env.clone();
                 if let Some(e) = e {
-                    self.exec(sc, e, &mut ee);
+                    self.exec(scope, e, &mut ee);
                 }
                 *env = self.merge(cb, te, ee, *pos);
             }
-            Stmt::Case(c) => self.exec_case(sc, c, env),
-            Stmt::For(f) => self.exec_for(sc, f, env),
+            Stmt::Case(c) => self.exec_case(scope, c, env),
+            Stmt::For(f) => self.exec_for(scope, f, env),
         }
     }
 
@@ -137,46 +170,96 @@ impl Elab<'_> {
                 continue;
             }
             let w = self.nets[n as usize].width as usize;
-            let unset = vec![BState::Unset(None); w];
+            let unset = vec![BitState::Unset(None); w];
             let tv = t.vars.get(&n).unwrap_or(&unset);
             let ev = e.vars.get(&n).unwrap_or(&unset);
             let merged = tv
                 .iter()
                 .zip(ev)
-                .map(|(a, b)| match (a, b) {
-                    (BState::Set(x), BState::Set(y)) => BState::Set(self.g.mux(c, *x, *y)),
-                    (BState::Unset(p), BState::Unset(q)) => BState::Unset(p.or(*q)),
-                    (BState::Unset(p), _) | (_, BState::Unset(p)) => {
-                        BState::Unset(Some(p.unwrap_or(pos)))
-                    }
-                })
+                .map(|(a, b)| self.merge_bit(c, *a, *b, pos))
                 .collect();
             out.vars.insert(n, merged);
         }
         out
     }
 
-    fn proc_assign(&mut self, sc: u32, lhs: &Expr, rhs: &Expr, pos: Pos, env: &mut Env) {
+    /// `c ? a : b` for one bit; a bit assigned on only some paths is checked for value
+    /// coverage (see `coverage.rs`) and counts as assigned when its condition always holds.
+    fn merge_bit(&mut self, c: Lit, a: BitState, b: BitState, pos: Pos) -> BitState {
+        use BitState::{Partial, Set, Unset};
+        // Value and assignment condition of each side.
+        let parts = |s: BitState| match s {
+            Set(v) => Some((v, Lit::TRUE, None)),
+            Partial {
+                value,
+                assigned,
+                gap,
+            } => Some((value, assigned, Some(gap))),
+            Unset(_) => None,
+        };
+        match (parts(a), parts(b)) {
+            (Some((x, _, None)), Some((y, _, None))) => Set(self.g.mux(c, x, y)),
+            (None, None) => match (a, b) {
+                (Unset(p), Unset(q)) => Unset(p.or(q)),
+                _ => Unset(None),
+            },
+            (pa, pb) => {
+                let gap_of = |s: BitState| match s {
+                    Unset(p) => p,
+                    Partial { gap, .. } => Some(gap),
+                    Set(_) => None,
+                };
+                let gap = gap_of(a).or(gap_of(b)).unwrap_or(pos);
+                let (value, assigned) = match (pa, pb) {
+                    (Some((x, ax, _)), Some((y, ay, _))) => {
+                        (self.g.mux(c, x, y), self.g.mux(c, ax, ay))
+                    }
+                    (Some((x, ax, _)), None) => (x, self.g.and(c, ax)),
+                    (None, Some((y, ay, _))) => (y, self.g.and(!c, ay)),
+                    (None, None) => (Lit::FALSE, Lit::FALSE),
+                };
+                self.settle(value, assigned, gap)
+            }
+        }
+    }
+
+    /// A bit assigned where `assigned` holds: fully assigned when that covers every value.
+    fn settle(&mut self, value: Lit, assigned: Lit, gap: Pos) -> BitState {
+        if assigned == Lit::FALSE {
+            return BitState::Unset(Some(gap));
+        }
+        if self.coverage(assigned) == Coverage::Complete {
+            BitState::Set(value)
+        } else {
+            BitState::Partial {
+                value,
+                assigned,
+                gap,
+            }
+        }
+    }
+
+    fn proc_assign(&mut self, scope: u32, lhs: &Expr, rhs: &Expr, pos: Pos, env: &mut Env) {
         // A variable index on the left: r[i] = v writes bit i when i is in range.
         if let Expr::Index(sym, ipos, sel) = lhs {
             if let Select::Bit(ix) = &**sel {
                 let iv = {
-                    let cx = Cx {
-                        sc,
+                    let ctx = EvalContext {
+                        scope,
                         env: Some(env),
                         constant: false,
                     };
-                    self.eval_self(&cx, ix)
+                    self.eval_self(&ctx, ix)
                 };
                 if !bits::is_const(&iv.bits) {
-                    if let Some(n) = self.target_net(sc, *sym, *ipos, true) {
-                        let cx = Cx {
-                            sc,
+                    if let Some(n) = self.target_net(scope, *sym, *ipos, true) {
+                        let ctx = EvalContext {
+                            scope,
                             env: Some(env),
                             constant: false,
                         };
-                        let t = self.ty(&cx, rhs);
-                        let v = self.eval(&cx, rhs, t.w.max(1), t.s)[0];
+                        let t = self.ty(&ctx, rhs);
+                        let v = self.eval(&ctx, rhs, t.width.max(1), t.signed)[0];
                         let net = self.nets[n as usize].clone();
                         let w = net.width as usize;
                         let ww = iv.bits.len() + 66;
@@ -184,15 +267,24 @@ impl Elab<'_> {
                         let entry = env
                             .vars
                             .entry(n)
-                            .or_insert_with(|| vec![BState::Unset(None); w]);
+                            .or_insert_with(|| vec![BitState::Unset(None); w]);
                         for (off, slot) in entry.iter_mut().enumerate() {
                             let idx = bits::constant(net.index(off as u32), ww);
                             let hit = bits::eq(&mut self.g, &ie, &idx);
                             *slot = match *slot {
                                 _ if hit == Lit::FALSE => *slot,
-                                BState::Set(old) => BState::Set(self.g.mux(hit, v, old)),
-                                BState::Unset(_) if hit == Lit::TRUE => BState::Set(v),
-                                BState::Unset(p) => BState::Unset(Some(p.unwrap_or(pos))),
+                                BitState::Set(old) => BitState::Set(self.g.mux(hit, v, old)),
+                                BitState::Unset(_) if hit == Lit::TRUE => BitState::Set(v),
+                                BitState::Unset(p) => BitState::Unset(Some(p.unwrap_or(pos))),
+                                BitState::Partial {
+                                    value,
+                                    assigned,
+                                    gap,
+                                } => {
+                                    let value = self.g.mux(hit, v, value);
+                                    let assigned = self.g.or(hit, assigned);
+                                    self.settle(value, assigned, gap)
+                                }
                             };
                         }
                     }
@@ -200,26 +292,26 @@ impl Elab<'_> {
                 }
             }
         }
-        let cx = Cx {
-            sc,
+        let ctx = EvalContext {
+            scope,
             env: Some(env),
             constant: false,
         };
-        let targets = match self.targets(&cx, lhs, true) {
+        let targets = match self.targets(&ctx, lhs, true) {
             Some(t) => t,
             None => return,
         };
-        let t = self.ty(&cx, rhs);
-        let w = targets.len().max(t.w);
-        let v = self.eval(&cx, rhs, w, t.s);
+        let t = self.ty(&ctx, rhs);
+        let w = targets.len().max(t.width);
+        let v = self.eval(&ctx, rhs, w, t.signed);
         for (k, (n, off)) in targets.iter().enumerate() {
             if let Some(off) = off {
                 let width = self.nets[*n as usize].width as usize;
                 let e = env
                     .vars
                     .entry(*n)
-                    .or_insert_with(|| vec![BState::Unset(None); width]);
-                e[*off as usize] = BState::Set(v[k]);
+                    .or_insert_with(|| vec![BitState::Unset(None); width]);
+                e[*off as usize] = BitState::Set(v[k]);
             }
         }
     }
@@ -227,13 +319,13 @@ impl Elab<'_> {
     /// The net named `sym`, checked as an assignment target (`procedural`: a `reg`).
     pub(super) fn target_net(
         &mut self,
-        sc: u32,
+        scope: u32,
         sym: super::Sym,
         pos: Pos,
         procedural: bool,
     ) -> Option<u32> {
         let nm = || self.name(sym);
-        match self.lookup(sc, sym) {
+        match self.lookup(scope, sym) {
             Some(&Symbol::Net(n)) => {
                 let ty = self.nets[n as usize].ty;
                 if procedural && ty == NetType::Wire {
@@ -278,10 +370,10 @@ impl Elab<'_> {
     }
 
     /// Target bits of an assignment, least significant first.
-    pub(super) fn targets(&mut self, cx: &Cx, lhs: &Expr, procedural: bool) -> Option<Vec<Target>> {
+    pub(super) fn targets(&mut self, ctx: &EvalContext, lhs: &Expr, procedural: bool) -> Option<Vec<Target>> {
         match lhs {
             Expr::Ident(s, p) => {
-                let n = self.target_net(cx.sc, *s, *p, procedural)?;
+                let n = self.target_net(ctx.scope, *s, *p, procedural)?;
                 Some(
                     (0..self.nets[n as usize].width)
                         .map(|k| (n, Some(k)))
@@ -289,11 +381,11 @@ impl Elab<'_> {
                 )
             }
             Expr::Index(s, p, sel) => {
-                let n = self.target_net(cx.sc, *s, *p, procedural)?;
+                let n = self.target_net(ctx.scope, *s, *p, procedural)?;
                 let net = self.nets[n as usize].clone();
-                let ccx = Cx {
-                    sc: cx.sc,
-                    env: cx.env,
+                let ccx = EvalContext {
+                    scope: ctx.scope,
+                    env: ctx.env,
                     constant: false,
                 };
                 let idx: Vec<i64> = match &**sel {
@@ -312,7 +404,7 @@ impl Elab<'_> {
                         }
                     }
                     Select::Part(m, l) => {
-                        let (m, l) = (self.const_int(cx.sc, m)?, self.const_int(cx.sc, l)?);
+                        let (m, l) = (self.const_int(ctx.scope, m)?, self.const_int(ctx.scope, l)?);
                         if (m > l) != (net.msb >= net.lsb) && m != l && net.width > 1 {
                             self.error(
                                 *p,
@@ -333,7 +425,7 @@ impl Elab<'_> {
                         (0..w as i64).map(|j| l + j * step).collect()
                     }
                     Select::Up(b, w) | Select::Down(b, w) => {
-                        let w = self.const_int(cx.sc, w)?;
+                        let w = self.const_int(ctx.scope, w)?;
                         if w <= 0 || w as usize > super::MAX_WIDTH {
                             self.error(
                                 *p,
@@ -378,7 +470,7 @@ impl Elab<'_> {
             Expr::Concat(items, _) => {
                 let mut out = Vec::new();
                 for it in items.iter().rev() {
-                    out.extend(self.targets(cx, it, procedural)?);
+                    out.extend(self.targets(ctx, it, procedural)?);
                 }
                 Some(out)
             }
@@ -393,21 +485,21 @@ impl Elab<'_> {
         }
     }
 
-    fn exec_case(&mut self, sc: u32, c: &CaseStmt, env: &mut Env) {
-        let cx = Cx {
-            sc,
+    fn exec_case(&mut self, scope: u32, c: &CaseStmt, env: &mut Env) {
+        let ctx = EvalContext {
+            scope,
             env: Some(env),
             constant: false,
         };
-        let mut t = self.ty(&cx, &c.expr);
+        let mut t = self.ty(&ctx, &c.expr);
         for (labels, _) in &c.items {
             for l in labels {
-                let u = self.ty(&cx, l);
-                t.w = t.w.max(u.w);
-                t.s = t.s && u.s;
+                let u = self.ty(&ctx, l);
+                t.width = t.width.max(u.width);
+                t.signed = t.signed && u.signed;
             }
         }
-        let sel = self.eval(&cx, &c.expr, t.w, t.s);
+        let sel = self.eval(&ctx, &c.expr, t.width, t.signed);
         let mut conds = Vec::with_capacity(c.items.len());
         for (labels, _) in &c.items {
             let mut any = Lit::FALSE;
@@ -424,12 +516,12 @@ impl Elab<'_> {
                         } else {
                             // Don't-care (z/?) bits are skipped; x bits are unsupported.
                             let mut b = n.bits.clone();
-                            let fill = if n.signed && t.s {
+                            let fill = if n.signed && t.signed {
                                 *b.last().unwrap_or(&B0)
                             } else {
                                 B0
                             };
-                            b.resize(t.w, fill);
+                            b.resize(t.width, fill);
                             let mut eqs = Vec::new();
                             for (k, &bit) in b.iter().enumerate() {
                                 match bit {
@@ -450,7 +542,7 @@ impl Elab<'_> {
                         }
                     }
                     _ => {
-                        let v = self.eval(&cx, l, t.w, t.s);
+                        let v = self.eval(&ctx, l, t.width, t.signed);
                         bits::eq(&mut self.g, &sel, &v)
                     }
                 };
@@ -460,28 +552,28 @@ impl Elab<'_> {
         }
         let mut acc = env.clone();
         if let Some(d) = &c.default {
-            self.exec(sc, d, &mut acc);
+            self.exec(scope, d, &mut acc);
         }
         for (k, (_, st)) in c.items.iter().enumerate().rev() {
             let mut e = env.clone();
-            self.exec(sc, st, &mut e);
+            self.exec(scope, st, &mut e);
             acc = self.merge(conds[k], e, acc, c.pos);
         }
         *env = acc;
     }
 
-    fn exec_for(&mut self, sc: u32, f: &ForStmt, env: &mut Env) {
+    fn exec_for(&mut self, scope: u32, f: &ForStmt, env: &mut Env) {
         let var = Expr::Ident(f.init.0, f.init.1);
-        self.proc_assign(sc, &var, &f.init.2, f.init.1, env);
+        self.proc_assign(scope, &var, &f.init.2, f.init.1, env);
         let mut count = 0;
         loop {
             let c = {
-                let cx = Cx {
-                    sc,
+                let ctx = EvalContext {
+                    scope,
                     env: Some(env),
                     constant: false,
                 };
-                self.eval_bool(&cx, &f.cond)
+                self.eval_bool(&ctx, &f.cond)
             };
             if c == Lit::FALSE {
                 break;
@@ -504,9 +596,9 @@ impl Elab<'_> {
                 break;
             }
             let before = self.errors.len();
-            self.exec(sc, &f.body, env);
+            self.exec(scope, &f.body, env);
             let var = Expr::Ident(f.step.0, f.step.1);
-            self.proc_assign(sc, &var, &f.step.2, f.step.1, env);
+            self.proc_assign(scope, &var, &f.step.2, f.step.1, env);
             if self.errors.len() > before {
                 break;
             }

@@ -6,36 +6,36 @@ use super::super::ast::{BinOp, Expr, UnOp};
 use super::super::lexer::{Pos, B0, B1};
 use super::always::Env;
 use super::bits::{self, extend};
-use super::types::Ty;
+use super::types::ExprType;
 use super::{Elab, Symbol, Val};
 use crate::aig::{Aig, Lit};
 
 /// Evaluation context: the scope, the current values of an always block's variables, and
 /// whether only constants (parameters, genvars) may be read.
 #[derive(Clone, Copy)]
-pub struct Cx<'e> {
+pub struct EvalContext<'e> {
     /// Scope for name lookup.
-    pub sc: u32,
+    pub scope: u32,
     /// Variables of the enclosing always block.
     pub env: Option<&'e Env>,
     /// Constant expression (ranges, parameters, generate conditions).
     pub constant: bool,
 }
 
-impl<'e> Cx<'e> {
-    /// Plain context in scope `sc`.
-    pub fn new(sc: u32) -> Cx<'static> {
-        Cx {
-            sc,
+impl<'e> EvalContext<'e> {
+    /// Plain context in scope `scope`.
+    pub fn new(scope: u32) -> EvalContext<'static> {
+        EvalContext {
+            scope,
             env: None,
             constant: false,
         }
     }
 
-    /// Constant context in scope `sc`.
-    pub fn constant(sc: u32) -> Cx<'static> {
-        Cx {
-            sc,
+    /// Constant context in scope `scope`.
+    pub fn constant(scope: u32) -> EvalContext<'static> {
+        EvalContext {
+            scope,
             env: None,
             constant: true,
         }
@@ -54,11 +54,11 @@ pub struct Operand {
 
 impl Elab<'_> {
     /// Evaluate a constant expression; reports and returns `None` when it is not constant.
-    pub(super) fn const_val(&mut self, sc: u32, e: &Expr) -> Option<Val> {
-        let cx = Cx::constant(sc);
-        let t = self.ty(&cx, e);
+    pub(super) fn const_val(&mut self, scope: u32, e: &Expr) -> Option<Val> {
+        let ctx = EvalContext::constant(scope);
+        let t = self.ty(&ctx, e);
         let before = self.errors.len();
-        let bits = self.eval(&cx, e, t.w, t.s);
+        let bits = self.eval(&ctx, e, t.width, t.signed);
         if self.errors.len() > before {
             return None;
         }
@@ -70,12 +70,12 @@ impl Elab<'_> {
             );
             return None;
         }
-        Some(Val { bits, signed: t.s })
+        Some(Val { bits, signed: t.signed })
     }
 
     /// Evaluate a constant integer expression.
-    pub(super) fn const_int(&mut self, sc: u32, e: &Expr) -> Option<i64> {
-        let v = self.const_val(sc, e)?;
+    pub(super) fn const_int(&mut self, scope: u32, e: &Expr) -> Option<i64> {
+        let v = self.const_val(scope, e)?;
         let r = bits::to_i64(&v.bits, v.signed);
         if r.is_none() {
             self.error(
@@ -88,25 +88,25 @@ impl Elab<'_> {
     }
 
     /// Evaluate `e` self-determined.
-    pub(super) fn eval_self(&mut self, cx: &Cx, e: &Expr) -> Val {
-        let t = self.ty(cx, e);
+    pub(super) fn eval_self(&mut self, ctx: &EvalContext, e: &Expr) -> Val {
+        let t = self.ty(ctx, e);
         Val {
-            bits: self.eval(cx, e, t.w, t.s),
-            signed: t.s,
+            bits: self.eval(ctx, e, t.width, t.signed),
+            signed: t.signed,
         }
     }
 
     /// Evaluate `e` as a condition: true when any bit is 1.
-    pub(super) fn eval_bool(&mut self, cx: &Cx, e: &Expr) -> Lit {
-        let v = self.eval_self(cx, e);
+    pub(super) fn eval_bool(&mut self, ctx: &EvalContext, e: &Expr) -> Lit {
+        let v = self.eval_self(ctx, e);
         self.g.or_all(&v.bits)
     }
 
     /// Value and range of a name.
-    pub(super) fn operand(&mut self, cx: &Cx, s: super::Sym, pos: Pos) -> Option<Operand> {
-        match self.lookup(cx.sc, s).cloned() {
+    pub(super) fn operand(&mut self, ctx: &EvalContext, s: super::Sym, pos: Pos) -> Option<Operand> {
+        match self.lookup(ctx.scope, s).cloned() {
             Some(Symbol::Net(n)) => {
-                if cx.constant {
+                if ctx.constant {
                     let nm = self.name(s);
                     self.error(
                         pos,
@@ -118,7 +118,7 @@ impl Elab<'_> {
                 let net = &self.nets[n as usize];
                 let (msb, lsb, signed) = (net.msb, net.lsb, net.signed);
                 let mut b = self.net_bits(n);
-                if let Some(env) = cx.env {
+                if let Some(env) = ctx.env {
                     env.overlay(n, &mut b);
                 }
                 Some(Operand {
@@ -158,9 +158,9 @@ impl Elab<'_> {
     }
 
     /// Evaluate `e` in a context of width `w` and signedness `s` (`w` at least its own width).
-    pub(super) fn eval(&mut self, cx: &Cx, e: &Expr, w: usize, s: bool) -> Vec<Lit> {
+    pub(super) fn eval(&mut self, ctx: &EvalContext, e: &Expr, w: usize, s: bool) -> Vec<Lit> {
         let w = w.min(super::MAX_WIDTH);
-        let v = self.eval_inner(cx, e, w, s);
+        let v = self.eval_inner(ctx, e, w, s);
         debug_assert!(
             v.len() == w || self.quiet > 0 || !self.errors.is_empty(),
             "width {} != {w}",
@@ -169,7 +169,7 @@ impl Elab<'_> {
         extend(v, w, s)
     }
 
-    fn literal(&mut self, cx: &Cx, n: &super::super::lexer::NumLit, pos: Pos) -> Vec<Lit> {
+    fn literal(&mut self, ctx: &EvalContext, n: &super::super::lexer::NumLit, pos: Pos) -> Vec<Lit> {
         let mut out = Vec::with_capacity(n.bits.len());
         let mut unknown = 0;
         for &b in &n.bits {
@@ -183,7 +183,7 @@ impl Elab<'_> {
             });
         }
         if unknown > 0 {
-            if cx.constant {
+            if ctx.constant {
                 self.error(
                     pos,
                     format!("x/z bits in a constant expression (`{}`)", n.text),
@@ -192,7 +192,7 @@ impl Elab<'_> {
                 return out;
             }
             let what = format!("x/z literal {}", n.text);
-            let u = self.unknown_bits(unknown, pos, &what, cx.sc);
+            let u = self.unknown_bits(unknown, pos, &what, ctx.scope);
             let mut k = 0;
             for (i, &b) in n.bits.iter().enumerate() {
                 if b != B0 && b != B1 {
@@ -204,29 +204,29 @@ impl Elab<'_> {
         out
     }
 
-    fn eval_inner(&mut self, cx: &Cx, e: &Expr, w: usize, s: bool) -> Vec<Lit> {
+    fn eval_inner(&mut self, ctx: &EvalContext, e: &Expr, w: usize, s: bool) -> Vec<Lit> {
         match e {
-            Expr::Ident(sym, pos) => match self.operand(cx, *sym, *pos) {
+            Expr::Ident(sym, pos) => match self.operand(ctx, *sym, *pos) {
                 Some(o) => extend(o.val.bits, w, s),
                 None => vec![Lit::FALSE; w],
             },
             Expr::Num(n, pos) => {
-                let v = self.literal(cx, n, *pos);
+                let v = self.literal(ctx, n, *pos);
                 extend(v, w, s)
             }
             Expr::Index(sym, pos, sel) => {
-                let v = self.eval_select(cx, *sym, *pos, sel);
+                let v = self.eval_select(ctx, *sym, *pos, sel);
                 extend(v, w, false)
             }
             Expr::Unary(op, _, a) => match op {
-                UnOp::Plus => self.eval(cx, a, w, s),
+                UnOp::Plus => self.eval(ctx, a, w, s),
                 UnOp::Neg => {
-                    let v = self.eval(cx, a, w, s);
+                    let v = self.eval(ctx, a, w, s);
                     bits::neg(&mut self.g, &v)
                 }
-                UnOp::Not => bits::not(&self.eval(cx, a, w, s)),
+                UnOp::Not => bits::not(&self.eval(ctx, a, w, s)),
                 _ => {
-                    let v = self.eval_self(cx, a);
+                    let v = self.eval_self(ctx, a);
                     let g = &mut self.g;
                     let r = match op {
                         UnOp::LogNot => !g.or_all(&v.bits),
@@ -240,28 +240,28 @@ impl Elab<'_> {
                     extend(vec![r], w, false)
                 }
             },
-            Expr::Chain(first, rest) => self.eval_chain(cx, first, rest, w, s),
+            Expr::Chain(first, rest) => self.eval_chain(ctx, first, rest, w, s),
             Expr::Cond(b, _) => {
-                let c = self.eval_bool(cx, &b[0]);
+                let c = self.eval_bool(ctx, &b[0]);
                 if c == Lit::TRUE {
-                    return self.eval(cx, &b[1], w, s);
+                    return self.eval(ctx, &b[1], w, s);
                 }
                 if c == Lit::FALSE {
-                    return self.eval(cx, &b[2], w, s);
+                    return self.eval(ctx, &b[2], w, s);
                 }
-                let t = self.eval(cx, &b[1], w, s);
-                let f = self.eval(cx, &b[2], w, s);
+                let t = self.eval(ctx, &b[1], w, s);
+                let f = self.eval(ctx, &b[2], w, s);
                 t.iter()
                     .zip(&f)
                     .map(|(&x, &y)| self.g.mux(c, x, y))
                     .collect()
             }
             Expr::Concat(items, _) => {
-                let v = self.concat(cx, items);
+                let v = self.concat(ctx, items);
                 extend(v, w, false)
             }
             Expr::Repl(n, items, pos) => {
-                let count = match self.const_int(cx.sc, n) {
+                let count = match self.const_int(ctx.scope, n) {
                     Some(c) if c >= 0 => c as usize,
                     Some(_) => {
                         self.error(
@@ -273,7 +273,7 @@ impl Elab<'_> {
                     }
                     None => 0,
                 };
-                let inner = self.concat(cx, items);
+                let inner = self.concat(ctx, items);
                 if count.saturating_mul(inner.len()) > super::MAX_WIDTH {
                     self.error(
                         *pos,
@@ -292,12 +292,12 @@ impl Elab<'_> {
                 let name = self.name(*f);
                 match name {
                     "$signed" | "$unsigned" => {
-                        let v = self.eval_self(cx, &args[0]);
+                        let v = self.eval_self(ctx, &args[0]);
                         extend(v.bits, w, s)
                     }
                     _ => {
                         // $clog2: constant argument only.
-                        let r = match self.const_val(cx.sc, &args[0]) {
+                        let r = match self.const_val(ctx.scope, &args[0]) {
                             Some(v) => clog2(&v.bits),
                             None => 0,
                         };
@@ -310,10 +310,10 @@ impl Elab<'_> {
     }
 
     /// Concatenation: items self-determined, the first item most significant.
-    fn concat(&mut self, cx: &Cx, items: &[Expr]) -> Vec<Lit> {
+    fn concat(&mut self, ctx: &EvalContext, items: &[Expr]) -> Vec<Lit> {
         let mut v = Vec::new();
         for it in items.iter().rev() {
-            let b = self.eval_self(cx, it);
+            let b = self.eval_self(ctx, it);
             v.extend_from_slice(&b.bits);
             if v.len() > super::MAX_WIDTH {
                 self.error(
@@ -330,7 +330,7 @@ impl Elab<'_> {
 
     fn eval_chain(
         &mut self,
-        cx: &Cx,
+        ctx: &EvalContext,
         first: &Expr,
         rest: &[(BinOp, Pos, Expr)],
         w: usize,
@@ -341,9 +341,9 @@ impl Elab<'_> {
             2 => {
                 // Shifts: the left operand takes the context; amounts are self-determined
                 // and unsigned.
-                let mut acc = self.eval(cx, first, w, s);
+                let mut acc = self.eval(ctx, first, w, s);
                 for (op, _, e) in rest {
-                    let amt = self.eval_self(cx, e).bits;
+                    let amt = self.eval_self(ctx, e).bits;
                     let (left, fill) = match op {
                         BinOp::Shl | BinOp::AShl => (true, Lit::FALSE),
                         BinOp::Shr => (false, Lit::FALSE),
@@ -364,29 +364,29 @@ impl Elab<'_> {
                 // Relations: operands sized to each other; result 1 bit, unsigned.
                 let mut r = {
                     let (op, _, e) = &rest[0];
-                    let ta = self.ty(cx, first);
-                    let tb = self.ty(cx, e);
-                    let t = Ty {
-                        w: ta.w.max(tb.w),
-                        s: ta.s && tb.s,
+                    let ta = self.ty(ctx, first);
+                    let tb = self.ty(ctx, e);
+                    let t = ExprType {
+                        width: ta.width.max(tb.width),
+                        signed: ta.signed && tb.signed,
                     };
-                    let a = self.eval(cx, first, t.w, t.s);
-                    let b = self.eval(cx, e, t.w, t.s);
-                    self.compare(*op, &a, &b, t.s)
+                    let a = self.eval(ctx, first, t.width, t.signed);
+                    let b = self.eval(ctx, e, t.width, t.signed);
+                    self.compare(*op, &a, &b, t.signed)
                 };
                 for (op, _, e) in &rest[1..] {
-                    let tb = self.ty(cx, e);
-                    let cw = tb.w.max(1);
+                    let tb = self.ty(ctx, e);
+                    let cw = tb.width.max(1);
                     let a = extend(vec![r], cw, false);
-                    let b = self.eval(cx, e, cw, false);
+                    let b = self.eval(ctx, e, cw, false);
                     r = self.compare(*op, &a, &b, false);
                 }
                 extend(vec![r], w, false)
             }
             8 | 9 => {
-                let mut acc = self.eval_bool(cx, first);
+                let mut acc = self.eval_bool(ctx, first);
                 for (op, _, e) in rest {
-                    let b = self.eval_bool(cx, e);
+                    let b = self.eval_bool(ctx, e);
                     acc = if *op == BinOp::LogAnd {
                         self.g.and(acc, b)
                     } else {
@@ -396,9 +396,9 @@ impl Elab<'_> {
                 extend(vec![acc], w, false)
             }
             _ => {
-                let mut acc = self.eval(cx, first, w, s);
+                let mut acc = self.eval(ctx, first, w, s);
                 for (op, pos, e) in rest {
-                    let b = self.eval(cx, e, w, s);
+                    let b = self.eval(ctx, e, w, s);
                     if *op == BinOp::Mul && acc.len() > super::MAX_MUL_WIDTH {
                         // An array multiplier of w bits has about w * w / 2 gates.
                         self.error(
@@ -422,7 +422,7 @@ impl Elab<'_> {
                         BinOp::Or => bits::zip(g, &acc, &b, Aig::or),
                         BinOp::Xor => bits::zip(g, &acc, &b, Aig::xor),
                         BinOp::Xnor => bits::zip(g, &acc, &b, Aig::xnor),
-                        _ => self.divide(cx, *op, *pos, &acc, &b, s),
+                        _ => self.divide(ctx, *op, *pos, &acc, &b, s),
                     };
                 }
                 acc
@@ -450,7 +450,7 @@ impl Elab<'_> {
     }
 
     /// `/` and `%` of constant operands (two's complement when signed; zero divisor gives x).
-    fn divide(&mut self, cx: &Cx, op: BinOp, pos: Pos, a: &[Lit], b: &[Lit], s: bool) -> Vec<Lit> {
+    fn divide(&mut self, ctx: &EvalContext, op: BinOp, pos: Pos, a: &[Lit], b: &[Lit], s: bool) -> Vec<Lit> {
         let w = a.len();
         let (x, y) = match (bits::to_i64(a, s), bits::to_i64(b, s)) {
             (Some(x), Some(y)) if w <= 63 || s => (x, y),
@@ -467,7 +467,7 @@ impl Elab<'_> {
             }
         };
         if y == 0 {
-            return self.unknown_bits(w, pos, "division by zero", cx.sc);
+            return self.unknown_bits(w, pos, "division by zero", ctx.scope);
         }
         let r = if op == BinOp::Div {
             x.wrapping_div(y)

@@ -4,13 +4,13 @@
 
 use super::super::ast::{Conns, Dir, Expr, Instance};
 use super::bits::extend;
-use super::expr::Cx;
+use super::expr::EvalContext;
 use super::module::{elab_instance, Which};
 use super::{Elab, Symbol};
 
 impl<'a> Elab<'a> {
-    /// Elaborate instance `inst` written in scope `sc`.
-    pub(super) fn instance(&mut self, sc: u32, inst: &'a Instance) {
+    /// Elaborate instance `inst` written in scope `scope`.
+    pub(super) fn instance(&mut self, scope: u32, inst: &'a Instance) {
         let m = match self.modules.get(&inst.module) {
             Some(m) => *m,
             None => {
@@ -30,7 +30,7 @@ impl<'a> Elab<'a> {
             Some(Conns::Named(v)) => {
                 for (s, p, ex) in v {
                     if let Some(ex) = ex {
-                        if let Some(val) = self.const_val(sc, ex) {
+                        if let Some(val) = self.const_val(scope, ex) {
                             overrides.push((Which::Named(*s), val, *p));
                         }
                     }
@@ -39,7 +39,7 @@ impl<'a> Elab<'a> {
             Some(Conns::Ordered(v)) => {
                 for (k, ex) in v.iter().enumerate() {
                     if let Some(ex) = ex {
-                        if let Some(val) = self.const_val(sc, ex) {
+                        if let Some(val) = self.const_val(scope, ex) {
                             overrides.push((Which::Nth(k), val, ex.pos()));
                         }
                     }
@@ -47,7 +47,7 @@ impl<'a> Elab<'a> {
             }
             None => {}
         }
-        let prefix = format!("{}{}.", self.scopes[sc as usize].prefix, iname);
+        let prefix = format!("{}{}.", self.scopes[scope as usize].prefix, iname);
         let child = elab_instance(self, m, prefix, overrides, inst.pos);
         // Connections by port index.
         let mut conn: Vec<Option<&Expr>> = vec![None; m.ports.len()];
@@ -89,7 +89,7 @@ impl<'a> Elab<'a> {
                 }
             }
         }
-        let cx = Cx::new(sc);
+        let ctx = EvalContext::new(scope);
         for (k, (ps, _)) in m.ports.iter().enumerate() {
             let pn = self.name(*ps);
             let n = match self.scopes[child as usize].syms.get(ps) {
@@ -119,17 +119,17 @@ impl<'a> Elab<'a> {
             let pw = net.width as usize;
             match net.dir {
                 Some(Dir::Input) => {
-                    let t = self.ty(&cx, ex);
-                    let v = self.eval(&cx, ex, pw.max(t.w), t.s);
-                    if t.w != pw {
-                        self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected expression is {} bits", t.w));
+                    let t = self.ty(&ctx, ex);
+                    let v = self.eval(&ctx, ex, pw.max(t.width), t.signed);
+                    if t.width != pw {
+                        self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected expression is {} bits", t.width));
                     }
                     for (off, &l) in v.iter().enumerate().take(pw) {
                         self.drive(n, off as u32, l, ex.pos());
                     }
                 }
                 Some(Dir::Output) => {
-                    let t = match self.targets(&cx, ex, false) {
+                    let t = match self.targets(&ctx, ex, false) {
                         Some(t) => t,
                         None => continue,
                     };

@@ -8,11 +8,14 @@
 
 mod always;
 mod bits;
+mod clocked;
+mod coverage;
 mod expr;
 mod instance;
 mod module;
 mod resolve;
 mod select;
+mod sensitivity;
 mod types;
 
 use super::ast::{Dir, Module, NetType};
@@ -151,6 +154,8 @@ pub struct Elab<'a> {
     warnings: Vec<Diagnostic>,
     quiet: u32,
     hier: Vec<Sym>,
+    /// Decided coverage conditions of `always` blocks, by literal.
+    coverage_memo: crate::hash::FastMap<u32, coverage::Coverage>,
 }
 
 impl<'a> Elab<'a> {
@@ -176,6 +181,7 @@ impl<'a> Elab<'a> {
             warnings: Vec::new(),
             quiet: 0,
             hier: Vec::new(),
+            coverage_memo: Default::default(),
         }
     }
 
@@ -199,6 +205,7 @@ impl<'a> Elab<'a> {
             warnings: self.warnings,
             quiet: self.quiet,
             hier: self.hier,
+            coverage_memo: self.coverage_memo,
         }
     }
 
@@ -269,22 +276,22 @@ impl<'a> Elab<'a> {
     }
 
     /// Look a name up through the enclosing scopes of one module instance.
-    fn lookup(&self, mut sc: u32, s: Sym) -> Option<&Symbol> {
+    fn lookup(&self, mut scope: u32, s: Sym) -> Option<&Symbol> {
         loop {
-            let scope = &self.scopes[sc as usize];
-            if let Some(sym) = scope.syms.get(&s) {
+            let entry = &self.scopes[scope as usize];
+            if let Some(sym) = entry.syms.get(&s) {
                 return Some(sym);
             }
-            sc = scope.parent?;
+            scope = entry.parent?;
         }
     }
 
-    /// Room for `nets` more one-bit nets in scope `sc` and `gates` more gate primitives.
-    fn reserve(&mut self, sc: u32, nets: usize, gates: usize) {
+    /// Room for `nets` more one-bit nets in scope `scope` and `gates` more gate primitives.
+    fn reserve(&mut self, scope: u32, nets: usize, gates: usize) {
         self.nets.reserve(nets);
         self.owner.reserve(nets);
         self.drivers.reserve(nets);
-        self.scopes[sc as usize].syms.reserve(nets);
+        self.scopes[scope as usize].syms.reserve(nets);
         self.gates.reserve(gates);
         self.gate_ins.reserve(2 * gates);
     }
@@ -293,7 +300,7 @@ impl<'a> Elab<'a> {
     #[allow(clippy::too_many_arguments)]
     fn add_net(
         &mut self,
-        sc: u32,
+        scope: u32,
         name: Sym,
         msb: i64,
         lsb: i64,
@@ -313,7 +320,7 @@ impl<'a> Elab<'a> {
         }
         self.nets.push(Net {
             name,
-            scope: sc,
+            scope: scope,
             first,
             width,
             msb,
@@ -324,7 +331,7 @@ impl<'a> Elab<'a> {
             dir,
             pos,
         });
-        self.scopes[sc as usize].syms.insert(name, Symbol::Net(id));
+        self.scopes[scope as usize].syms.insert(name, Symbol::Net(id));
         id
     }
 
@@ -337,7 +344,7 @@ impl<'a> Elab<'a> {
     }
 
     /// Fresh unknown-value bits.
-    fn unknown_bits(&mut self, n: usize, pos: Pos, what: &str, sc: u32) -> Vec<Lit> {
+    fn unknown_bits(&mut self, n: usize, pos: Pos, what: &str, scope: u32) -> Vec<Lit> {
         (0..n)
             .map(|k| {
                 let l = self.g.add_input();
@@ -346,7 +353,7 @@ impl<'a> Elab<'a> {
                 self.unknowns.push(Unknown {
                     pos,
                     what: what.to_string(),
-                    scope: sc,
+                    scope: scope,
                     bit: k as u32,
                 });
                 l
@@ -403,12 +410,20 @@ pub fn elaborate(
             })
         }
     };
-    let sc = module::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
+    let scope = module::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
     // The syntax tree is no longer needed: free it before the design is built.
-    let (top_name, top_ports) = (top_mod.name, top_mod.ports.clone());
+    let (top_name, top_ports, top_pos) = (top_mod.name, top_mod.ports.clone(), top_mod.pos);
     let mut e = e.detach(names, files);
     drop(mods);
-    let design = resolve::build(&mut e, top_name, &top_ports, sc);
+    let design = resolve::build(&mut e, top_name, &top_ports, scope);
+    if e.errors.is_empty() && design.outputs.is_empty() {
+        let n = e.name(top_name);
+        e.error(
+            top_pos,
+            format!("top module `{n}` has no output ports: nothing to check"),
+            "give the top module at least one `output` port (equicone compares outputs), or choose another top module",
+        );
+    }
     if !e.errors.is_empty() {
         return Err(InputError {
             diagnostics: e.errors,

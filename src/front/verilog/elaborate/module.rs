@@ -8,7 +8,7 @@ use super::super::ast::{
 use super::super::lexer::Pos;
 use super::super::symbols::Sym;
 use super::bits::{self, extend};
-use super::expr::Cx;
+use super::expr::EvalContext;
 use super::{Elab, GateRec, Symbol, Val};
 use crate::aig::Lit;
 use crate::design::CellKind;
@@ -120,7 +120,7 @@ pub fn elab_instance<'a>(
         .iter()
         .position(|x| std::ptr::eq(*x, m))
         .unwrap_or(0) as u32;
-    let sc = e.new_scope(None, prefix, idx);
+    let scope = e.new_scope(None, prefix, idx);
     if e.hier.contains(&m.name) {
         let n = e.name(m.name);
         e.error(
@@ -128,7 +128,7 @@ pub fn elab_instance<'a>(
             format!("recursive instantiation of module `{n}`"),
             "a module cannot contain itself, directly or through other modules; remove the instance",
         );
-        return sc;
+        return scope;
     }
     if e.hier.len() >= super::MAX_HIER {
         e.error(
@@ -136,11 +136,11 @@ pub fn elab_instance<'a>(
             format!("instance hierarchy deeper than {} levels", super::MAX_HIER),
             "flatten part of the hierarchy; equicone reads at most 64 levels of instances",
         );
-        return sc;
+        return scope;
     }
     e.hier.push(m.name);
     let mut ov = overrides;
-    e.elab_items(sc, &m.items, m, Some(&mut ov), true);
+    e.elab_items(scope, &m.items, m, Some(&mut ov), true);
     for (w, _, p) in ov {
         let mn = e.name(m.name);
         let (msg, help) = match w {
@@ -156,7 +156,7 @@ pub fn elab_instance<'a>(
         e.error(p, msg, help);
     }
     e.hier.pop();
-    sc
+    scope
 }
 
 struct Merged<'m> {
@@ -168,9 +168,9 @@ struct Merged<'m> {
 }
 
 impl<'a> Elab<'a> {
-    fn range_bounds(&mut self, sc: u32, r: &Range) -> Option<(i64, i64)> {
-        let m = self.const_int(sc, &r.msb)?;
-        let l = self.const_int(sc, &r.lsb)?;
+    fn range_bounds(&mut self, scope: u32, r: &Range) -> Option<(i64, i64)> {
+        let m = self.const_int(scope, &r.msb)?;
+        let l = self.const_int(scope, &r.lsb)?;
         for (v, e) in [(m, &r.msb), (l, &r.lsb)] {
             if i32::try_from(v).is_err() {
                 self.error(
@@ -194,7 +194,7 @@ impl<'a> Elab<'a> {
 
     fn param(
         &mut self,
-        sc: u32,
+        scope: u32,
         pd: &ParamDecl,
         overrides: &mut Option<&mut Vec<(Which, Val, Pos)>>,
         nth: &mut usize,
@@ -212,7 +212,7 @@ impl<'a> Elab<'a> {
                 }
                 *nth += 1;
             }
-            let v = match val.or_else(|| self.const_val(sc, ex)) {
+            let v = match val.or_else(|| self.const_val(scope, ex)) {
                 Some(v) => v,
                 None => Val {
                     bits: vec![Lit::FALSE; 32],
@@ -229,7 +229,7 @@ impl<'a> Elab<'a> {
                     0,
                 )
             } else if let Some(r) = &pd.range {
-                match self.range_bounds(sc, r) {
+                match self.range_bounds(scope, r) {
                     Some((m, l)) => {
                         let w = super::span(m, l).unwrap_or(1);
                         (
@@ -254,7 +254,7 @@ impl<'a> Elab<'a> {
                     0,
                 )
             };
-            if self.scopes[sc as usize].syms.contains_key(name) {
+            if self.scopes[scope as usize].syms.contains_key(name) {
                 let n = self.name(*name);
                 self.error(
                     *pos,
@@ -263,16 +263,16 @@ impl<'a> Elab<'a> {
                 );
                 continue;
             }
-            self.scopes[sc as usize]
+            self.scopes[scope as usize]
                 .syms
                 .insert(*name, Symbol::Param(Box::new((v, msb, lsb))));
         }
     }
 
-    /// Elaborate the items of a module or generate block in scope `sc`.
+    /// Elaborate the items of a module or generate block in scope `scope`.
     pub(super) fn elab_items(
         &mut self,
-        sc: u32,
+        scope: u32,
         items: &'a [Item],
         m: &'a Module,
         mut overrides: Option<&mut Vec<(Which, Val, Pos)>>,
@@ -287,15 +287,15 @@ impl<'a> Elab<'a> {
                 _ => {}
             }
         }
-        self.reserve(sc, nnets, ngates);
+        self.reserve(scope, nnets, ngates);
         // A: parameters and genvars, in order.
         let mut nth = 0;
         for it in items {
             match it {
-                Item::Param(pd) => self.param(sc, pd, &mut overrides, &mut nth),
+                Item::Param(pd) => self.param(scope, pd, &mut overrides, &mut nth),
                 Item::Genvar(v) => {
                     for (s, _) in v {
-                        self.scopes[sc as usize]
+                        self.scopes[scope as usize]
                             .syms
                             .insert(*s, Symbol::Genvar(None));
                     }
@@ -310,7 +310,7 @@ impl<'a> Elab<'a> {
         let mut inits: Vec<(Sym, Pos, &Expr)> = Vec::new();
         for it in items {
             if let Item::Decl(d) = it {
-                self.merge_decl(sc, d, &mut order, &mut merged, &mut inits);
+                self.merge_decl(scope, d, &mut order, &mut merged, &mut inits);
             }
         }
         let ports: HashSet<Sym> = m.ports.iter().map(|p| p.0).collect();
@@ -319,7 +319,7 @@ impl<'a> Elab<'a> {
             let (msb, lsb, vector) = if md.ty == Some(NetType::Integer) {
                 (31, 0, true)
             } else if let Some(r) = md.range {
-                match self.range_bounds(sc, r) {
+                match self.range_bounds(scope, r) {
                     Some((a, b)) => (a, b, true),
                     None => (0, 0, false),
                 }
@@ -336,7 +336,7 @@ impl<'a> Elab<'a> {
             }
             let signed = md.signed || md.ty == Some(NetType::Integer);
             self.add_net(
-                sc,
+                scope,
                 s,
                 msb,
                 lsb,
@@ -352,8 +352,8 @@ impl<'a> Elab<'a> {
         if !m.nettype_none {
             let implicit = |e: &mut Self, ex: &Expr| {
                 if let Expr::Ident(s, p) = ex {
-                    if e.lookup(sc, *s).is_none() {
-                        e.add_net(sc, *s, 0, 0, false, false, NetType::Wire, None, *p);
+                    if e.lookup(scope, *s).is_none() {
+                        e.add_net(scope, *s, 0, 0, false, false, NetType::Wire, None, *p);
                     }
                 }
             };
@@ -374,27 +374,27 @@ impl<'a> Elab<'a> {
         }
         // D: logic.
         for (s, p, ex) in inits {
-            self.cont_assign(sc, &Expr::Ident(s, p), ex, p);
+            self.cont_assign(scope, &Expr::Ident(s, p), ex, p);
         }
         let mut genblk = 0;
         for it in items {
             match it {
-                Item::Assign(a, p) => self.cont_assign(sc, &a.0, &a.1, *p),
-                Item::Gate(k, t, p) => self.gate(sc, *k, t, *p),
-                Item::Inst(i) => self.instance(sc, i),
-                Item::Always(b, p) => self.elab_always(sc, b, *p),
+                Item::Assign(a, p) => self.cont_assign(scope, &a.0, &a.1, *p),
+                Item::Gate(k, t, p) => self.gate(scope, *k, t, *p),
+                Item::Inst(i) => self.instance(scope, i),
+                Item::Always(b, p) => self.elab_always(scope, b, *p),
                 Item::GenFor(g) => {
                     genblk += 1;
-                    self.gen_for(sc, g, m, genblk);
+                    self.gen_for(scope, g, m, genblk);
                 }
                 Item::GenIf(g, _) => {
                     let (c, a, b) = &**g;
                     genblk += 1;
-                    let cv = self.const_val(sc, c).map(|v| v.bits.contains(&Lit::TRUE));
+                    let cv = self.const_val(scope, c).map(|v| v.bits.contains(&Lit::TRUE));
                     if let Some(cv) = cv {
-                        let prefix = format!("{}genblk{genblk}.", self.scopes[sc as usize].prefix);
+                        let prefix = format!("{}genblk{genblk}.", self.scopes[scope as usize].prefix);
                         let child =
-                            self.new_scope(Some(sc), prefix, self.scopes[sc as usize].module);
+                            self.new_scope(Some(scope), prefix, self.scopes[scope as usize].module);
                         self.elab_items(child, if cv { a } else { b }, m, None, false);
                     }
                 }
@@ -405,7 +405,7 @@ impl<'a> Elab<'a> {
 
     fn merge_decl<'m>(
         &mut self,
-        sc: u32,
+        scope: u32,
         d: &'m Decl,
         order: &mut Vec<Sym>,
         merged: &mut crate::hash::FastMap<Sym, Merged<'m>>,
@@ -415,7 +415,7 @@ impl<'a> Elab<'a> {
             if let Some(e) = init {
                 inits.push((*s, *p, e));
             }
-            if self.scopes[sc as usize].syms.contains_key(s) {
+            if self.scopes[scope as usize].syms.contains_key(s) {
                 let n = self.name(*s);
                 self.error(
                     *p,
@@ -451,8 +451,8 @@ impl<'a> Elab<'a> {
                         continue;
                     }
                     if let (Some(a), Some(b)) = (md.range, d.range.as_ref()) {
-                        let ra = self.range_bounds(sc, a);
-                        let rb = self.range_bounds(sc, b);
+                        let ra = self.range_bounds(scope, a);
+                        let rb = self.range_bounds(scope, b);
                         if ra != rb {
                             self.error(
                                 *p,
@@ -471,15 +471,15 @@ impl<'a> Elab<'a> {
     }
 
     /// `assign lhs = rhs;`
-    pub(super) fn cont_assign(&mut self, sc: u32, lhs: &Expr, rhs: &Expr, pos: Pos) {
-        let cx = Cx::new(sc);
-        let t = match self.targets(&cx, lhs, false) {
+    pub(super) fn cont_assign(&mut self, scope: u32, lhs: &Expr, rhs: &Expr, pos: Pos) {
+        let ctx = EvalContext::new(scope);
+        let t = match self.targets(&ctx, lhs, false) {
             Some(t) => t,
             None => return,
         };
-        let ty = self.ty(&cx, rhs);
-        let w = t.len().max(ty.w);
-        let v = self.eval(&cx, rhs, w, ty.s);
+        let ty = self.ty(&ctx, rhs);
+        let w = t.len().max(ty.width);
+        let v = self.eval(&ctx, rhs, w, ty.signed);
         for (k, (n, off)) in t.into_iter().enumerate() {
             if let Some(off) = off {
                 self.drive(n, off, v[k], pos);
@@ -487,7 +487,7 @@ impl<'a> Elab<'a> {
         }
     }
 
-    fn gate(&mut self, sc: u32, kind: GateKind, terms: &[Expr], pos: Pos) {
+    fn gate(&mut self, scope: u32, kind: GateKind, terms: &[Expr], pos: Pos) {
         if terms.len() < 2 {
             self.error(
                 pos,
@@ -500,13 +500,13 @@ impl<'a> Elab<'a> {
             GateKind::Not | GateKind::Buf => terms.split_at(terms.len() - 1),
             _ => terms.split_at(1),
         };
-        let cx = Cx::new(sc);
+        let ctx = EvalContext::new(scope);
         let mut lits = Vec::with_capacity(ins.len());
         for t in ins {
             // Plain one-bit net names (the common case in netlists) skip the width
             // computation and the bit vector.
             if let Expr::Ident(s, _) = t {
-                if let Some(Symbol::Net(n)) = self.lookup(sc, *s) {
+                if let Some(Symbol::Net(n)) = self.lookup(scope, *s) {
                     let net = &self.nets[*n as usize];
                     if net.width == 1 {
                         lits.push(self.g.input_lit(net.first as usize));
@@ -514,7 +514,7 @@ impl<'a> Elab<'a> {
                     }
                 }
             }
-            let v = self.eval_self(&cx, t);
+            let v = self.eval_self(&ctx, t);
             if v.bits.len() != 1 {
                 self.error(
                     t.pos(),
@@ -542,11 +542,11 @@ impl<'a> Elab<'a> {
         for o in outs {
             // A plain name needs no target list.
             let (t, width) = match o {
-                Expr::Ident(s, p) => match self.target_net(sc, *s, *p, false) {
+                Expr::Ident(s, p) => match self.target_net(scope, *s, *p, false) {
                     Some(n) => ((n, Some(0)), self.nets[n as usize].width as usize),
                     None => continue,
                 },
-                _ => match self.targets(&cx, o, false) {
+                _ => match self.targets(&ctx, o, false) {
                     Some(t) => (t.first().copied().unwrap_or((0, None)), t.len()),
                     None => continue,
                 },
@@ -579,9 +579,9 @@ impl<'a> Elab<'a> {
         }
     }
 
-    fn gen_for(&mut self, sc: u32, g: &'a super::super::ast::GenFor, m: &'a Module, genblk: usize) {
+    fn gen_for(&mut self, scope: u32, g: &'a super::super::ast::GenFor, m: &'a Module, genblk: usize) {
         let var = g.init.0;
-        if !matches!(self.lookup(sc, var), Some(Symbol::Genvar(_))) {
+        if !matches!(self.lookup(scope, var), Some(Symbol::Genvar(_))) {
             let n = self.name(var);
             self.error(
                 g.init.1,
@@ -590,7 +590,7 @@ impl<'a> Elab<'a> {
             );
             return;
         }
-        let mut v = match self.const_int(sc, &g.init.2) {
+        let mut v = match self.const_int(scope, &g.init.2) {
             Some(v) => v,
             None => return,
         };
@@ -600,8 +600,8 @@ impl<'a> Elab<'a> {
         };
         let mut count = 0;
         loop {
-            let prefix = format!("{}{blk}[{v}].", self.scopes[sc as usize].prefix);
-            let child = self.new_scope(Some(sc), prefix, self.scopes[sc as usize].module);
+            let prefix = format!("{}{blk}[{v}].", self.scopes[scope as usize].prefix);
+            let child = self.new_scope(Some(scope), prefix, self.scopes[scope as usize].module);
             let gv = Val {
                 bits: bits::constant(v, 32),
                 signed: true,

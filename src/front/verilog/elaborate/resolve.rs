@@ -167,8 +167,8 @@ impl Elab<'_> {
     }
 }
 
-/// Build the design of top module `m` (elaborated in scope `sc`).
-pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
+/// Build the design of top module `m` (elaborated in scope `scope`).
+pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design {
     let mut r = Resolver {
         f: Aig::new(),
         memo: Vec::new(),
@@ -180,7 +180,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
     };
     let mut outs: Vec<u32> = Vec::new();
     for (ps, ppos) in ports {
-        let n = match e.scopes[sc as usize].syms.get(ps) {
+        let n = match e.scopes[scope as usize].syms.get(ps) {
             Some(Symbol::Net(n)) => *n,
             _ => {
                 let pn = e.name(*ps);
@@ -254,7 +254,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
     for n in std::mem::take(&mut r.undriven) {
         let net = &e.nets[n as usize];
         let nm = e.net_name(n);
-        let (pos, inport) = (net.pos, net.dir == Some(Dir::Input) && net.scope != sc);
+        let (pos, inport) = (net.pos, net.dir == Some(Dir::Input) && net.scope != scope);
         if inport {
             e.error(
                 pos,
@@ -269,7 +269,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
             );
         }
     }
-    let netlist = netlist(e, &r, &outputs_leaves(e, ports, sc));
+    let netlist = netlist(e, &r, &outputs_leaves(e, ports, scope));
     let name = e.name(top).to_string();
     let d = Design {
         name,
@@ -286,10 +286,10 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], sc: u32) -> Design {
     d
 }
 
-fn outputs_leaves(e: &Elab, ports: &[(Sym, Pos)], sc: u32) -> Vec<u32> {
+fn outputs_leaves(e: &Elab, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> {
     let mut v = Vec::new();
     for (ps, _) in ports {
-        if let Some(Symbol::Net(n)) = e.scopes[sc as usize].syms.get(ps) {
+        if let Some(Symbol::Net(n)) = e.scopes[scope as usize].syms.get(ps) {
             let net = &e.nets[*n as usize];
             if net.dir == Some(Dir::Output) {
                 v.extend(net.first..net.first + net.width);

@@ -4,7 +4,7 @@
 use super::super::ast::Select;
 use super::super::lexer::Pos;
 use super::bits::{self, extend};
-use super::expr::Cx;
+use super::expr::EvalContext;
 use super::{Elab, Symbol};
 use crate::aig::Lit;
 
@@ -36,20 +36,20 @@ impl Elab<'_> {
     /// Evaluate a select of name `sym`: result bits, LSB first, unsigned.
     pub(super) fn eval_select(
         &mut self,
-        cx: &Cx,
+        ctx: &EvalContext,
         sym: super::Sym,
         pos: Pos,
         sel: &Select,
     ) -> Vec<Lit> {
         let width_hint = self
             .ty(
-                cx,
+                ctx,
                 &super::super::ast::Expr::Index(sym, pos, Box::new(sel.clone())),
             )
-            .w;
+            .width;
         // A net's bits are fetched only where the select reads them: a vector driven bit
         // by bit (`assign v[k] = ...;` for every k) then reads in linear time.
-        let o = match self.operand_lazy(cx, sym, pos) {
+        let o = match self.operand_lazy(ctx, sym, pos) {
             Some(o) => o,
             None => return vec![Lit::FALSE; width_hint],
         };
@@ -59,7 +59,7 @@ impl Elab<'_> {
         let nm = self.name(sym);
         match sel {
             Select::Part(m, l) => {
-                let (m, l) = match (self.const_int(cx.sc, m), self.const_int(cx.sc, l)) {
+                let (m, l) = match (self.const_int(ctx.scope, m), self.const_int(ctx.scope, l)) {
                     (Some(m), Some(l)) => (m, l),
                     _ => return vec![Lit::FALSE; width_hint],
                 };
@@ -81,15 +81,15 @@ impl Elab<'_> {
                 };
                 let base = Self::off_of(msb, lsb, l).min(Self::off_of(msb, lsb, m));
                 let what = format!("out-of-range part-select {nm}[{m}:{l}]");
-                self.const_window(cx, &o, base, w, pos, &what)
+                self.const_window(ctx, &o, base, w, pos, &what)
             }
             Select::Bit(i) => {
-                let iv = self.eval_self(cx, i);
+                let iv = self.eval_self(ctx, i);
                 if let Some(k) = bits::to_i64(&iv.bits, iv.signed) {
                     let what = format!("out-of-range bit-select {nm}[{k}]");
-                    return self.const_window(cx, &o, Self::off_of(msb, lsb, k), 1, pos, &what);
+                    return self.const_window(ctx, &o, Self::off_of(msb, lsb, k), 1, pos, &what);
                 }
-                if cx.constant {
+                if ctx.constant {
                     self.error(
                         pos,
                         "select index is not constant",
@@ -100,12 +100,12 @@ impl Elab<'_> {
                 // Offset = i - lsb (descending) or lsb - i (ascending), computed exactly.
                 let off = self.offset_vec(&iv.bits, iv.signed, if desc { -lsb } else { lsb }, desc);
                 let what = format!("out-of-range bit-select {nm}[...]");
-                let data = self.lazy_bits(cx, &o, 0, o.width);
-                self.dyn_window(cx, &data, &off, 1, pos, &what)
+                let data = self.lazy_bits(ctx, &o, 0, o.width);
+                self.dyn_window(ctx, &data, &off, 1, pos, &what)
             }
             Select::Up(b, wd) | Select::Down(b, wd) => {
                 let up = matches!(sel, Select::Up(..));
-                let w = match self.const_int(cx.sc, wd) {
+                let w = match self.const_int(ctx.scope, wd) {
                     Some(w) if w > 0 && w as usize <= super::MAX_WIDTH => w,
                     Some(_) => {
                         self.error(
@@ -125,7 +125,7 @@ impl Elab<'_> {
                     (false, true) => lsb - w + 1,
                     (false, false) => lsb,
                 };
-                let bv = self.eval_self(cx, b);
+                let bv = self.eval_self(ctx, b);
                 let what = format!(
                     "out-of-range indexed part-select {nm}[...{}{w}]",
                     if up { "+:" } else { "-:" }
@@ -136,9 +136,9 @@ impl Elab<'_> {
                     } else {
                         k.saturating_sub(bc)
                     };
-                    return self.const_window(cx, &o, base, w as usize, pos, &what);
+                    return self.const_window(ctx, &o, base, w as usize, pos, &what);
                 }
-                if cx.constant {
+                if ctx.constant {
                     self.error(
                         pos,
                         "select index is not constant",
@@ -160,17 +160,17 @@ impl Elab<'_> {
                     return vec![Lit::FALSE; w as usize];
                 }
                 let off = self.offset_vec(&bv.bits, bv.signed, k, desc);
-                let data = self.lazy_bits(cx, &o, 0, o.width);
-                self.dyn_window(cx, &data, &off, w as usize, pos, &what)
+                let data = self.lazy_bits(ctx, &o, 0, o.width);
+                self.dyn_window(ctx, &data, &off, w as usize, pos, &what)
             }
         }
     }
 
     /// The operand of a select: a net without its bits, anything else as
     /// [`Elab::operand`] gives it.
-    fn operand_lazy(&mut self, cx: &Cx, sym: super::Sym, pos: Pos) -> Option<LazyOperand> {
-        if !cx.constant {
-            if let Some(Symbol::Net(n)) = self.lookup(cx.sc, sym) {
+    fn operand_lazy(&mut self, ctx: &EvalContext, sym: super::Sym, pos: Pos) -> Option<LazyOperand> {
+        if !ctx.constant {
+            if let Some(Symbol::Net(n)) = self.lookup(ctx.scope, sym) {
                 let net = &self.nets[*n as usize];
                 return Some(LazyOperand {
                     src: Ok(*n),
@@ -180,7 +180,7 @@ impl Elab<'_> {
                 });
             }
         }
-        let o = self.operand(cx, sym, pos)?;
+        let o = self.operand(ctx, sym, pos)?;
         Some(LazyOperand {
             width: o.val.bits.len(),
             src: Err(o.val.bits),
@@ -190,13 +190,13 @@ impl Elab<'_> {
     }
 
     /// Bits `lo..hi` (offsets, least significant first) of operand `o`.
-    fn lazy_bits(&self, cx: &Cx, o: &LazyOperand, lo: usize, hi: usize) -> Vec<Lit> {
+    fn lazy_bits(&self, ctx: &EvalContext, o: &LazyOperand, lo: usize, hi: usize) -> Vec<Lit> {
         match &o.src {
             Ok(n) => {
                 let first = self.nets[*n as usize].first as usize;
                 (lo..hi)
                     .map(|k| {
-                        cx.env
+                        ctx.env
                             .and_then(|env| env.bit(*n, k))
                             .unwrap_or_else(|| self.g.input_lit(first + k))
                     })
@@ -222,7 +222,7 @@ impl Elab<'_> {
     /// `w` bits of operand `o` from offset `base` (constant); bits outside it are unknown.
     fn const_window(
         &mut self,
-        cx: &Cx,
+        ctx: &EvalContext,
         o: &LazyOperand,
         base: i64,
         w: usize,
@@ -233,14 +233,14 @@ impl Elab<'_> {
         let width = o.width as i64;
         let lo = base.clamp(0, width);
         let hi = base.saturating_add(w as i64).clamp(lo, width);
-        let data = self.lazy_bits(cx, o, lo as usize, hi as usize);
+        let data = self.lazy_bits(ctx, o, lo as usize, hi as usize);
         let base = base - lo;
         let n = data.len() as i64;
         let outside = (0..w as i64)
             .filter(|j| !(0..n).contains(&base.saturating_add(*j)))
             .count();
         let mut unk = if outside > 0 {
-            if cx.constant {
+            if ctx.constant {
                 self.error(
                     pos,
                     format!("{what} in a constant expression"),
@@ -248,7 +248,7 @@ impl Elab<'_> {
                 );
                 vec![Lit::FALSE; outside]
             } else {
-                self.unknown_bits(outside, pos, what, cx.sc)
+                self.unknown_bits(outside, pos, what, ctx.scope)
             }
         } else {
             Vec::new()
@@ -270,7 +270,7 @@ impl Elab<'_> {
     /// a bit's offset falls outside `data`.
     fn dyn_window(
         &mut self,
-        cx: &Cx,
+        ctx: &EvalContext,
         data: &[Lit],
         off: &[Lit],
         w: usize,
@@ -290,7 +290,7 @@ impl Elab<'_> {
             let r = if valid == Lit::TRUE {
                 v
             } else {
-                let u = self.unknown_bits(1, pos, what, cx.sc)[0];
+                let u = self.unknown_bits(1, pos, what, ctx.scope)[0];
                 self.g.mux(valid, v, u)
             };
             out.push(r);

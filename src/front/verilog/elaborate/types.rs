@@ -2,80 +2,80 @@
 //! 5.4.1 and 5.5.1), used to size every context-determined operation.
 
 use super::super::ast::{Expr, Select, UnOp};
-use super::expr::Cx;
+use super::expr::EvalContext;
 use super::{Elab, Symbol};
 
 /// Bit length and signedness of an expression.
 #[derive(Copy, Clone, Debug, PartialEq, Eq)]
-pub struct Ty {
+pub struct ExprType {
     /// Bit length.
-    pub w: usize,
+    pub width: usize,
     /// Signed?
-    pub s: bool,
+    pub signed: bool,
 }
 
 impl Elab<'_> {
     /// The self-determined type of `e` (no diagnostics; evaluation reports them).
-    pub(super) fn ty(&mut self, cx: &Cx, e: &Expr) -> Ty {
+    pub(super) fn ty(&mut self, ctx: &EvalContext, e: &Expr) -> ExprType {
         self.quiet += 1;
-        let t = self.ty_inner(cx, e);
+        let t = self.ty_inner(ctx, e);
         self.quiet -= 1;
         t
     }
 
-    fn ty_inner(&mut self, cx: &Cx, e: &Expr) -> Ty {
+    fn ty_inner(&mut self, ctx: &EvalContext, e: &Expr) -> ExprType {
         match e {
-            Expr::Ident(s, _) => match self.lookup(cx.sc, *s) {
+            Expr::Ident(s, _) => match self.lookup(ctx.scope, *s) {
                 Some(Symbol::Net(n)) => {
                     let net = &self.nets[*n as usize];
-                    Ty {
-                        w: net.width as usize,
-                        s: net.signed,
+                    ExprType {
+                        width: net.width as usize,
+                        signed: net.signed,
                     }
                 }
-                Some(Symbol::Param(p)) => Ty {
-                    w: p.0.bits.len(),
-                    s: p.0.signed,
+                Some(Symbol::Param(p)) => ExprType {
+                    width: p.0.bits.len(),
+                    signed: p.0.signed,
                 },
-                Some(Symbol::Genvar(_)) => Ty { w: 32, s: true },
-                None => Ty { w: 1, s: false },
+                Some(Symbol::Genvar(_)) => ExprType { width: 32, signed: true },
+                None => ExprType { width: 1, signed: false },
             },
-            Expr::Num(n, _) => Ty {
-                w: n.bits.len(),
-                s: n.signed,
+            Expr::Num(n, _) => ExprType {
+                width: n.bits.len(),
+                signed: n.signed,
             },
             Expr::Index(_, _, sel) => {
                 let w = match &**sel {
                     Select::Bit(_) => 1,
                     Select::Part(m, l) => {
-                        match (self.const_int(cx.sc, m), self.const_int(cx.sc, l)) {
+                        match (self.const_int(ctx.scope, m), self.const_int(ctx.scope, l)) {
                             (Some(m), Some(l)) => super::span(m, l).unwrap_or(1),
                             _ => 1,
                         }
                     }
-                    Select::Up(_, w) | Select::Down(_, w) => match self.const_int(cx.sc, w) {
+                    Select::Up(_, w) | Select::Down(_, w) => match self.const_int(ctx.scope, w) {
                         Some(w) if w > 0 && (w as usize) <= super::MAX_WIDTH => w as usize,
                         _ => 1,
                     },
                 };
-                Ty { w, s: false }
+                ExprType { width: w, signed: false }
             }
             Expr::Unary(op, _, a) => match op {
-                UnOp::Plus | UnOp::Neg | UnOp::Not => self.ty_inner(cx, a),
-                _ => Ty { w: 1, s: false },
+                UnOp::Plus | UnOp::Neg | UnOp::Not => self.ty_inner(ctx, a),
+                _ => ExprType { width: 1, signed: false },
             },
             Expr::Chain(first, rest) => {
                 let op = rest[0].0;
                 match op.level() {
-                    2 => self.ty_inner(cx, first),
-                    3 | 4 | 8 | 9 => Ty { w: 1, s: false },
+                    2 => self.ty_inner(ctx, first),
+                    3 | 4 | 8 | 9 => ExprType { width: 1, signed: false },
                     _ => {
-                        let mut t = self.ty_inner(cx, first);
+                        let mut t = self.ty_inner(ctx, first);
                         for (_, _, e) in rest {
-                            let u = self.ty_inner(cx, e);
-                            t = Ty {
-                                w: t.w.max(u.w),
-                                s: t.s && u.s,
+                            let u = self.ty_inner(ctx, e);
+                            t = ExprType {
+                                width: t.width.max(u.width),
+                                signed: t.signed && u.signed,
                             };
                         }
                         t
@@ -83,40 +83,40 @@ impl Elab<'_> {
                 }
             }
             Expr::Cond(b, _) => {
-                let t = self.ty_inner(cx, &b[1]);
-                let f = self.ty_inner(cx, &b[2]);
-                Ty {
-                    w: t.w.max(f.w),
-                    s: t.s && f.s,
+                let t = self.ty_inner(ctx, &b[1]);
+                let f = self.ty_inner(ctx, &b[2]);
+                ExprType {
+                    width: t.width.max(f.width),
+                    signed: t.signed && f.signed,
                 }
             }
             Expr::Concat(items, _) => {
-                let w = items.iter().map(|i| self.ty_inner(cx, i).w).sum();
-                Ty { w, s: false }
+                let w = items.iter().map(|i| self.ty_inner(ctx, i).width).sum();
+                ExprType { width: w, signed: false }
             }
             Expr::Repl(n, items, _) => {
-                let inner: usize = items.iter().map(|i| self.ty_inner(cx, i).w).sum();
+                let inner: usize = items.iter().map(|i| self.ty_inner(ctx, i).width).sum();
                 let n = self
-                    .const_int(cx.sc, n)
+                    .const_int(ctx.scope, n)
                     .unwrap_or(1)
                     .clamp(0, super::MAX_WIDTH as i64) as usize;
-                Ty {
-                    w: (n * inner).min(super::MAX_WIDTH),
-                    s: false,
+                ExprType {
+                    width: (n * inner).min(super::MAX_WIDTH),
+                    signed: false,
                 }
             }
             Expr::Call(f, _, args) => {
                 let name = self.name(*f);
                 match name {
-                    "$signed" => Ty {
-                        w: self.ty_inner(cx, &args[0]).w,
-                        s: true,
+                    "$signed" => ExprType {
+                        width: self.ty_inner(ctx, &args[0]).width,
+                        signed: true,
                     },
-                    "$unsigned" => Ty {
-                        w: self.ty_inner(cx, &args[0]).w,
-                        s: false,
+                    "$unsigned" => ExprType {
+                        width: self.ty_inner(ctx, &args[0]).width,
+                        signed: false,
                     },
-                    _ => Ty { w: 32, s: true },
+                    _ => ExprType { width: 32, signed: true },
                 }
             }
         }

@@ -36,9 +36,8 @@ fn event_lists_and_full_cases_read_as_combinational_logic() {
         "always_comb case (sel) 0, 1: y = d[sel]; 2: y = d[2]; 3: y = d[3]; endcase",
     ];
     for b in bodies {
-        let src = format!(
-            "module m(input [1:0] sel, input [3:0] d, output reg y);\n{b}\nendmodule"
-        );
+        let src =
+            format!("module m(input [1:0] sel, input [3:0] d, output reg y);\n{b}\nendmodule");
         let d = read(&src);
         assert!(warnings(&d).is_empty(), "{b}: {:?}", warnings(&d));
         for sel in 0..4u128 {
@@ -59,7 +58,11 @@ fn an_event_list_missing_a_read_variable_is_a_warning_naming_it() {
     );
     let w = warnings(&d);
     assert_eq!(w.len(), 1, "{w:?}");
-    assert!(w[0].contains("t.v:2:8: warning: the event list misses `c` (read at line 3)"), "{}", w[0]);
+    assert!(
+        w[0].contains("t.v:2:8: warning: the event list misses `c` (read at line 3)"),
+        "{}",
+        w[0]
+    );
     assert!(w[0].contains("9.7"), "{}", w[0]);
     // Read as `@*`.
     assert_eq!(outs(&d, &[("a", 0), ("b", 0), ("c", 1)])["y"], 1);
@@ -80,18 +83,28 @@ fn a_real_gap_is_still_a_latch_and_names_an_uncovered_value() {
 
 #[test]
 fn clocked_blocks_and_latches_are_refused_precisely() {
-    let e = read_err("module m(input clk, d, output reg q);\nalways @(posedge clk) q <= d;\nendmodule");
-    assert!(e.starts_with("t.v:2:8: error: unsupported: `always` block with a clock edge"), "{e}");
+    let e =
+        read_err("module m(input clk, d, output reg q);\nalways @(posedge clk) q <= d;\nendmodule");
+    assert!(
+        e.starts_with("t.v:2:8: error: unsupported: `always` block with a clock edge"),
+        "{e}"
+    );
     assert_eq!(e.matches("error").count(), 1, "{e}");
     let e = read_err("module m(input en, d, output reg q);\nalways_latch if (en) q = d;\nassign x = ;\nendmodule");
-    assert!(e.contains("t.v:2:1: error: unsupported: `always_latch`"), "{e}");
+    assert!(
+        e.contains("t.v:2:1: error: unsupported: `always_latch`"),
+        "{e}"
+    );
 }
 
 /// Issue 13 A1: a top with no output ports has nothing to compare.
 #[test]
 fn a_top_without_outputs_is_an_error() {
     let e = read_err("module m(input a, b);\nwire w = a & b;\nendmodule");
-    assert!(e.contains("t.v:1:1: error: top module `m` has no output ports: nothing to check"), "{e}");
+    assert!(
+        e.contains("t.v:1:1: error: top module `m` has no output ports: nothing to check"),
+        "{e}"
+    );
     assert!(e.contains("help: "), "{e}");
 }
 

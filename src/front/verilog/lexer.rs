@@ -262,9 +262,17 @@ impl<'s> Lexer<'s> {
             "default_nettype" => match rest.as_str() {
                 "none" => self.nettype_none = true,
                 "wire" => self.nettype_none = false,
-                _ => self.err_of(p, SyntaxKind::Unsupported, format!("unsupported: `default_nettype {rest}")),
+                _ => self.err_of(
+                    p,
+                    SyntaxKind::Unsupported,
+                    format!("unsupported: `default_nettype {rest}"),
+                ),
             },
-            _ => self.err_of(p, SyntaxKind::Unsupported, format!("unsupported: compiler directive `{name}")),
+            _ => self.err_of(
+                p,
+                SyntaxKind::Unsupported,
+                format!("unsupported: compiler directive `{name}"),
+            ),
         }
     }
 

@@ -2,7 +2,7 @@
 //! with one loop per level (left-associative chains never nest) and a bounded nesting depth.
 
 use super::ast::{BinOp, Expr, Select, UnOp, LEVELS};
-use super::lexer::{Tok, Punct};
+use super::lexer::{Punct, Tok};
 use super::parser::{PResult, Parser};
 
 fn binop(p: Punct) -> Option<BinOp> {
@@ -66,10 +66,9 @@ impl Parser<'_, '_> {
         while let Some(op) = self.peek_binop(level) {
             let pos = self.bump().pos;
             if matches!(op, BinOp::CaseEq | BinOp::CaseNe) {
-                self.unsupported(pos, format!(
-                        "case equality operator `{}` (use `==`/`!=`)",
-                        op.text()
-                    ),
+                self.unsupported(
+                    pos,
+                    format!("case equality operator `{}` (use `==`/`!=`)", op.text()),
                 );
             }
             let rhs = if level == 0 {
@@ -135,17 +134,13 @@ impl Parser<'_, '_> {
                 }
                 if self.peek_p(Punct::Dot) {
                     let n = self.names.name(s).to_string();
-                    return Err(
-                        self.unsupported(pos, format!("hierarchical name `{n}.`..."))
-                    );
+                    return Err(self.unsupported(pos, format!("hierarchical name `{n}.`...")));
                 }
                 if self.peek_p(Punct::LBrack) {
                     let sel = self.select()?;
                     if self.peek_p(Punct::LBrack) {
                         let p2 = self.peek_pos();
-                        return Err(
-                            self.unsupported(p2, "multiple selects (arrays of vectors)")
-                        );
+                        return Err(self.unsupported(p2, "multiple selects (arrays of vectors)"));
                     }
                     return Ok(Expr::Index(s, pos, Box::new(sel)));
                 }

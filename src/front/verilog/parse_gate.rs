@@ -3,7 +3,7 @@
 //! otherwise hold a million more names.
 
 use super::ast::*;
-use super::lexer::{Tok, Punct};
+use super::lexer::{Punct, Tok};
 use super::parser::{PResult, Parser};
 use super::symbols::{kw, Sym};
 

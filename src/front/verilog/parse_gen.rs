@@ -2,7 +2,7 @@
 //! constructs (`for` loops over a genvar, `if`, `begin : name ... end` blocks).
 
 use super::ast::*;
-use super::lexer::{Pos, Tok, Punct};
+use super::lexer::{Pos, Punct, Tok};
 use super::parser::{PResult, Parser};
 use super::symbols::{kw, Sym};
 

@@ -2,7 +2,7 @@
 //! `case`/`casez` and `for`; everything else is reported as unsupported.
 
 use super::ast::{CaseStmt, ForStmt, Stmt};
-use super::lexer::{Tok, Punct};
+use super::lexer::{Punct, Tok};
 use super::parser::{PResult, Parser};
 use super::symbols::kw;
 
@@ -40,7 +40,9 @@ impl Parser<'_, '_> {
                     if self.peek_kw(kw::REG) || self.peek_kw(kw::INTEGER) || self.peek_kw(kw::WIRE)
                     {
                         let p = self.peek_pos();
-                        return Err(self.unsupported(p, "declaration inside a block (declare it in the module)",
+                        return Err(self.unsupported(
+                            p,
+                            "declaration inside a block (declare it in the module)",
                         ));
                     }
                     v.push(self.stmt()?);
@@ -64,8 +66,9 @@ impl Parser<'_, '_> {
                 self.bump();
                 self.case(k == kw::CASEZ, pos)
             }
-            Tok::Ident(k) if k == kw::CASEX => Err(self.unsupported(pos, "`casex` (use `casez` with `?` for don't-care bits)",
-            )),
+            Tok::Ident(k) if k == kw::CASEX => {
+                Err(self.unsupported(pos, "`casex` (use `casez` with `?` for don't-care bits)"))
+            }
             Tok::Ident(k) if k == kw::FOR => {
                 self.bump();
                 self.expect_p(Punct::LParen, "`(` after `for`")?;
@@ -86,15 +89,14 @@ impl Parser<'_, '_> {
             }
             Tok::Ident(k) if super::symbols::is_keyword(k) => {
                 let n = self.names.name(k).to_string();
-                Err(self.unsupported(pos, format!("`{n}` statement in an always block"),
-                ))
+                Err(self.unsupported(pos, format!("`{n}` statement in an always block")))
             }
             Tok::Ident(_) | Tok::Punct(Punct::LBrace) => {
                 let lhs = self.lvalue()?;
                 let p = self.peek_pos();
                 if self.eat_p(Punct::Le) {
-                    return Err(self.unsupported(p, "non-blocking assignment `<=` in `always @*` (use `=`)",
-                    ));
+                    return Err(self
+                        .unsupported(p, "non-blocking assignment `<=` in `always @*` (use `=`)"));
                 }
                 self.expect_p(Punct::Assign, "`=` in an assignment")?;
                 if self.peek_p(Punct::Hash) || self.peek_p(Punct::At) {

@@ -2,7 +2,7 @@
 //! blocks. Errors are collected; after one, the parser skips to the next `;` or item keyword.
 
 use super::ast::*;
-use super::lexer::{Lexer, Pos, Tok, Token, Punct};
+use super::lexer::{Lexer, Pos, Punct, Tok, Token};
 use super::symbols::{is_keyword, kw, Interner, Sym};
 use super::syntax_error::{SyntaxError, SyntaxKind};
 use std::collections::VecDeque;
@@ -374,9 +374,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                     loop {
                         let (n, p) = self.ident("a port name")?;
                         if self.peek_p(Punct::LBrack) {
-                            return Err(
-                                self.unsupported(p, "port expression in the port list")
-                            );
+                            return Err(self.unsupported(p, "port expression in the port list"));
                         }
                         m.ports.push((n, p));
                         if !self.eat_p(Punct::Comma) {
@@ -495,7 +493,10 @@ impl<'s, 'n> Parser<'s, 'n> {
                 break;
             }
         }
-        self.expect_p(Punct::RParen, "`)` closing the event list, or `or`/`,` before the next event")?;
+        self.expect_p(
+            Punct::RParen,
+            "`)` closing the event list, or `or`/`,` before the next event",
+        )?;
         Ok(Sensitivity::List(events, at))
     }
 
@@ -557,7 +558,10 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
                 let init = if self.eat_p(Punct::Assign) {
                     if d.ty != Some(NetType::Wire) || d.dir.is_some() {
-                        return Err(self.unsupported(p, "initial value in a declaration (only `wire w = expr;` is supported)"));
+                        return Err(self.unsupported(
+                            p,
+                            "initial value in a declaration (only `wire w = expr;` is supported)",
+                        ));
                     }
                     Some(Box::new(self.expr()?))
                 } else {
@@ -646,7 +650,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 "begin" => "`begin` block outside a generate loop or condition".to_string(),
                 _ => format!("`{n}`"),
             };
-            self.unsupported(pos, format!("{what}"));
+            self.unsupported(pos, what);
             let end = match n.as_str() {
                 "function" => Some(kw::ENDFUNCTION),
                 "task" => Some(kw::ENDTASK),
@@ -675,7 +679,6 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
         Ok(())
     }
-
 }
 
 impl Parser<'_, '_> {

@@ -370,7 +370,12 @@ impl Elab<'_> {
     }
 
     /// Target bits of an assignment, least significant first.
-    pub(super) fn targets(&mut self, ctx: &EvalContext, lhs: &Expr, procedural: bool) -> Option<Vec<Target>> {
+    pub(super) fn targets(
+        &mut self,
+        ctx: &EvalContext,
+        lhs: &Expr,
+        procedural: bool,
+    ) -> Option<Vec<Target>> {
         match lhs {
             Expr::Ident(s, p) => {
                 let n = self.target_net(ctx.scope, *s, *p, procedural)?;

@@ -72,7 +72,11 @@ impl Elab<'_> {
         leaves.sort_unstable();
         let k = leaves.len();
         let words = if k <= 6 { 1 } else { 1usize << (k - 6) };
-        let valid = if k >= 6 { !0u64 } else { (1u64 << (1 << k)) - 1 };
+        let valid = if k >= 6 {
+            !0u64
+        } else {
+            (1u64 << (1 << k)) - 1
+        };
         const PATTERN: [u64; 6] = [
             0xAAAA_AAAA_AAAA_AAAA,
             0xCCCC_CCCC_CCCC_CCCC,
@@ -139,7 +143,7 @@ impl Elab<'_> {
             .iter()
             .map(|&(leaf, v)| (self.leaf_name(leaf), leaf, v))
             .collect();
-        named.sort_by(|a, b| b.1.cmp(&a.1));
+        named.sort_by_key(|n| std::cmp::Reverse(n.1));
         named
             .iter()
             .map(|(n, _, v)| format!("{n}={}", u8::from(*v)))

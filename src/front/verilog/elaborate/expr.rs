@@ -70,7 +70,10 @@ impl Elab<'_> {
             );
             return None;
         }
-        Some(Val { bits, signed: t.signed })
+        Some(Val {
+            bits,
+            signed: t.signed,
+        })
     }
 
     /// Evaluate a constant integer expression.
@@ -103,7 +106,12 @@ impl Elab<'_> {
     }
 
     /// Value and range of a name.
-    pub(super) fn operand(&mut self, ctx: &EvalContext, s: super::Sym, pos: Pos) -> Option<Operand> {
+    pub(super) fn operand(
+        &mut self,
+        ctx: &EvalContext,
+        s: super::Sym,
+        pos: Pos,
+    ) -> Option<Operand> {
         match self.lookup(ctx.scope, s).cloned() {
             Some(Symbol::Net(n)) => {
                 if ctx.constant {
@@ -169,7 +177,12 @@ impl Elab<'_> {
         extend(v, w, s)
     }
 
-    fn literal(&mut self, ctx: &EvalContext, n: &super::super::lexer::NumLit, pos: Pos) -> Vec<Lit> {
+    fn literal(
+        &mut self,
+        ctx: &EvalContext,
+        n: &super::super::lexer::NumLit,
+        pos: Pos,
+    ) -> Vec<Lit> {
         let mut out = Vec::with_capacity(n.bits.len());
         let mut unknown = 0;
         for &b in &n.bits {
@@ -450,7 +463,15 @@ impl Elab<'_> {
     }
 
     /// `/` and `%` of constant operands (two's complement when signed; zero divisor gives x).
-    fn divide(&mut self, ctx: &EvalContext, op: BinOp, pos: Pos, a: &[Lit], b: &[Lit], s: bool) -> Vec<Lit> {
+    fn divide(
+        &mut self,
+        ctx: &EvalContext,
+        op: BinOp,
+        pos: Pos,
+        a: &[Lit],
+        b: &[Lit],
+        s: bool,
+    ) -> Vec<Lit> {
         let w = a.len();
         let (x, y) = match (bits::to_i64(a, s), bits::to_i64(b, s)) {
             (Some(x), Some(y)) if w <= 63 || s => (x, y),

@@ -320,7 +320,7 @@ impl<'a> Elab<'a> {
         }
         self.nets.push(Net {
             name,
-            scope: scope,
+            scope,
             first,
             width,
             msb,
@@ -331,7 +331,9 @@ impl<'a> Elab<'a> {
             dir,
             pos,
         });
-        self.scopes[scope as usize].syms.insert(name, Symbol::Net(id));
+        self.scopes[scope as usize]
+            .syms
+            .insert(name, Symbol::Net(id));
         id
     }
 
@@ -353,7 +355,7 @@ impl<'a> Elab<'a> {
                 self.unknowns.push(Unknown {
                     pos,
                     what: what.to_string(),
-                    scope: scope,
+                    scope,
                     bit: k as u32,
                 });
                 l

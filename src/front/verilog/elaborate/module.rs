@@ -390,9 +390,12 @@ impl<'a> Elab<'a> {
                 Item::GenIf(g, _) => {
                     let (c, a, b) = &**g;
                     genblk += 1;
-                    let cv = self.const_val(scope, c).map(|v| v.bits.contains(&Lit::TRUE));
+                    let cv = self
+                        .const_val(scope, c)
+                        .map(|v| v.bits.contains(&Lit::TRUE));
                     if let Some(cv) = cv {
-                        let prefix = format!("{}genblk{genblk}.", self.scopes[scope as usize].prefix);
+                        let prefix =
+                            format!("{}genblk{genblk}.", self.scopes[scope as usize].prefix);
                         let child =
                             self.new_scope(Some(scope), prefix, self.scopes[scope as usize].module);
                         self.elab_items(child, if cv { a } else { b }, m, None, false);
@@ -579,7 +582,13 @@ impl<'a> Elab<'a> {
         }
     }
 
-    fn gen_for(&mut self, scope: u32, g: &'a super::super::ast::GenFor, m: &'a Module, genblk: usize) {
+    fn gen_for(
+        &mut self,
+        scope: u32,
+        g: &'a super::super::ast::GenFor,
+        m: &'a Module,
+        genblk: usize,
+    ) {
         let var = g.init.0;
         if !matches!(self.lookup(scope, var), Some(Symbol::Genvar(_))) {
             let n = self.name(var);

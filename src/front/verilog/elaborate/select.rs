@@ -168,7 +168,12 @@ impl Elab<'_> {
 
     /// The operand of a select: a net without its bits, anything else as
     /// [`Elab::operand`] gives it.
-    fn operand_lazy(&mut self, ctx: &EvalContext, sym: super::Sym, pos: Pos) -> Option<LazyOperand> {
+    fn operand_lazy(
+        &mut self,
+        ctx: &EvalContext,
+        sym: super::Sym,
+        pos: Pos,
+    ) -> Option<LazyOperand> {
         if !ctx.constant {
             if let Some(Symbol::Net(n)) = self.lookup(ctx.scope, sym) {
                 let net = &self.nets[*n as usize];

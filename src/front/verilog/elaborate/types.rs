@@ -37,8 +37,14 @@ impl Elab<'_> {
                     width: p.0.bits.len(),
                     signed: p.0.signed,
                 },
-                Some(Symbol::Genvar(_)) => ExprType { width: 32, signed: true },
-                None => ExprType { width: 1, signed: false },
+                Some(Symbol::Genvar(_)) => ExprType {
+                    width: 32,
+                    signed: true,
+                },
+                None => ExprType {
+                    width: 1,
+                    signed: false,
+                },
             },
             Expr::Num(n, _) => ExprType {
                 width: n.bits.len(),
@@ -58,17 +64,26 @@ impl Elab<'_> {
                         _ => 1,
                     },
                 };
-                ExprType { width: w, signed: false }
+                ExprType {
+                    width: w,
+                    signed: false,
+                }
             }
             Expr::Unary(op, _, a) => match op {
                 UnOp::Plus | UnOp::Neg | UnOp::Not => self.ty_inner(ctx, a),
-                _ => ExprType { width: 1, signed: false },
+                _ => ExprType {
+                    width: 1,
+                    signed: false,
+                },
             },
             Expr::Chain(first, rest) => {
                 let op = rest[0].0;
                 match op.level() {
                     2 => self.ty_inner(ctx, first),
-                    3 | 4 | 8 | 9 => ExprType { width: 1, signed: false },
+                    3 | 4 | 8 | 9 => ExprType {
+                        width: 1,
+                        signed: false,
+                    },
                     _ => {
                         let mut t = self.ty_inner(ctx, first);
                         for (_, _, e) in rest {
@@ -92,7 +107,10 @@ impl Elab<'_> {
             }
             Expr::Concat(items, _) => {
                 let w = items.iter().map(|i| self.ty_inner(ctx, i).width).sum();
-                ExprType { width: w, signed: false }
+                ExprType {
+                    width: w,
+                    signed: false,
+                }
             }
             Expr::Repl(n, items, _) => {
                 let inner: usize = items.iter().map(|i| self.ty_inner(ctx, i).width).sum();
@@ -116,7 +134,10 @@ impl Elab<'_> {
                         width: self.ty_inner(ctx, &args[0]).width,
                         signed: false,
                     },
-                    _ => ExprType { width: 32, signed: true },
+                    _ => ExprType {
+                        width: 32,
+                        signed: true,
+                    },
                 }
             }
         }

@@ -17,6 +17,8 @@ pub enum StopReason {
     ConflictLimit,
     /// The wall-clock time limit was reached.
     Timeout,
+    /// The engine's own size limit (support, BDD nodes) was reached.
+    EngineLimit,
 }
 
 impl std::fmt::Display for StopReason {
@@ -24,6 +26,7 @@ impl std::fmt::Display for StopReason {
         f.write_str(match self {
             StopReason::ConflictLimit => "conflict limit reached",
             StopReason::Timeout => "time limit reached",
+            StopReason::EngineLimit => "engine size limit reached",
         })
     }
 }

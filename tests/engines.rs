@@ -389,7 +389,8 @@ fn check_pair(seed: u64, engines: &[EngineKind], t: &mut Tally) {
 
 /// The differential campaign: `EQUICONE_CAMPAIGN_PAIRS` random pairs (default 10,000) of up to
 /// 16 inputs, half equivalent rewrites and half single-edit mutants, every pair proved by the
-/// `sweep` and `plain` engines (and every fourth also by `pairs`), checked against exhaustive
+/// `sweep`, `plain` and `portfolio` engines, every second by `exhaustive` and the others by
+/// `bdd` (and every fourth also by `pairs`), checked against exhaustive
 /// simulation and batsat (`tests/oracle/`). Spread over the cores; the counts go to standard
 /// error (written directly, so the test harness does not hide them).
 #[test]
@@ -411,12 +412,17 @@ fn engines_agree_with_exhaustive_simulation_and_batsat() {
                         if seed >= total {
                             return t;
                         }
-                        let engines: &[EngineKind] = if seed % 4 == 3 {
-                            &[EngineKind::Sweep, EngineKind::Plain, EngineKind::Pairs]
+                        let mut engines =
+                            vec![EngineKind::Sweep, EngineKind::Plain, EngineKind::Portfolio];
+                        engines.push(if seed.is_multiple_of(2) {
+                            EngineKind::Exhaustive
                         } else {
-                            &[EngineKind::Sweep, EngineKind::Plain]
-                        };
-                        check_pair(seed, engines, &mut t);
+                            EngineKind::Bdd
+                        });
+                        if seed % 4 == 3 {
+                            engines.push(EngineKind::Pairs);
+                        }
+                        check_pair(seed, &engines, &mut t);
                     }
                 })
             })

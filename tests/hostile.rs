@@ -179,7 +179,9 @@ mod atomic_writes {
                 "gen",
                 "multiplier",
                 "--n",
-                "12",
+                // 16 bits: 32 inputs, past exhaustive simulation (the portfolio decides a
+                // 12-bit pair, 24 inputs, within the wait below).
+                "16",
                 "--style",
                 style,
                 "--format",
@@ -208,7 +210,7 @@ mod atomic_writes {
         child.wait().unwrap();
         assert!(
             !finished,
-            "a 12-bit multiplier pair was expected to take longer"
+            "a 16-bit multiplier pair was expected to take longer"
         );
         assert!(
             !report.exists(),

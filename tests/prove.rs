@@ -19,6 +19,12 @@ fn engines() -> Vec<EngineKind> {
     EngineKind::value_variants().to_vec()
 }
 
+/// Engines that decide only what fits their limits (one method of the portfolio alone): an
+/// undecided verdict is allowed from them, a wrong one never.
+fn partial(e: EngineKind) -> bool {
+    matches!(e, EngineKind::Exhaustive | EngineKind::Bdd)
+}
+
 fn run(r: &Design, c: &Design, by: PairBy, engine: EngineKind) -> ProveReport {
     let opts = ProveOptions {
         pair_by: by,
@@ -88,6 +94,9 @@ mod iscas {
         let c = design("c1355.bench", &read(&dir, "c1355"));
         for e in engines() {
             let rep = run(&r, &c, PairBy::Position, e);
+            if partial(e) && rep.verdict == Verdict::Undecided {
+                continue;
+            }
             assert_eq!(rep.verdict, Verdict::Equivalent, "engine {e:?}");
             assert_eq!(rep.pairs.len(), 32);
             assert!(rep.counterexamples.is_empty());
@@ -119,7 +128,7 @@ mod iscas {
             shuffled.extend(decls);
             let r = design(name, &text);
             let c = design("shuffled", &shuffled.join("\n"));
-            for e in engines() {
+            for e in engines().into_iter().filter(|&e| !partial(e)) {
                 assert_eq!(
                     run(&r, &r, PairBy::Name, e).verdict,
                     Verdict::Equivalent,
@@ -252,6 +261,10 @@ mod iscas {
                 let expect_diff = oracle::batsat_differs(&net, &m).is_some();
                 for e in engines() {
                     let rep = run(&r, &c, PairBy::Name, e);
+                    check_counterexamples(&rep, &net, &m);
+                    if partial(e) && rep.verdict == Verdict::Undecided {
+                        continue;
+                    }
                     assert_eq!(
                         rep.verdict == Verdict::Different,
                         expect_diff,

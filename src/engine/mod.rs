@@ -7,12 +7,15 @@
 //! [`monolithic`]) and `pairs` (simulation, then one query per output pair, [`pairs`]). An engine
 //! returns one [`Finding`] per output pair; this module owns everything after that.
 
+mod bdd;
 mod classes;
 pub mod counterexample;
+mod exhaustive;
 mod monolithic;
 pub mod pairing;
 mod pairs;
 mod parallel;
+pub mod portfolio;
 mod progress;
 pub mod result;
 mod split;
@@ -35,15 +38,22 @@ pub use sweep::SweepStats;
 /// Which engine decides the output pairs.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Default, clap::ValueEnum)]
 pub enum EngineKind {
+    /// The portfolio: exhaustive simulation for output groups with small supports, BDDs within
+    /// a node limit, then SAT sweeping for the rest (the method of each pair is reported).
+    #[default]
+    Portfolio,
     /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair
     /// the same literal or an XOR query; independent output cones on several threads.
-    #[default]
     Sweep,
     /// The single-call miter: all output XORs ORed in one SAT query (repeated only to separate
     /// more pairs after a counterexample). No simulation, no sweeping: the baseline.
     Plain,
     /// Simulation, then one incremental SAT query per output pair on its XOR, no sweeping.
     Pairs,
+    /// Exhaustive simulation alone (pairs whose support is too large stay undecided).
+    Exhaustive,
+    /// BDDs alone (pairs past the node limit stay undecided).
+    Bdd,
 }
 
 impl EngineKind {
@@ -53,6 +63,9 @@ impl EngineKind {
             EngineKind::Sweep => "sweep",
             EngineKind::Plain => "plain",
             EngineKind::Pairs => "pairs",
+            EngineKind::Portfolio => "portfolio",
+            EngineKind::Exhaustive => "exhaustive",
+            EngineKind::Bdd => "bdd",
         }
     }
 }
@@ -97,7 +110,7 @@ impl Default for ProveOptions {
         ProveOptions {
             pair_by: PairBy::Name,
             free_extra_inputs: false,
-            engine: EngineKind::Sweep,
+            engine: EngineKind::Portfolio,
             timeout: None,
             conflict_limit: None,
             seed: 1,
@@ -190,6 +203,7 @@ pub fn prove_shared(
         .filter(|&p| outcomes[p] == Outcome::Open)
         .collect();
     let mut sweep_stats = None;
+    let mut portfolio_groups = None;
     let (findings, sat): (Vec<Option<Finding>>, SatStats) = match opts.engine {
         _ if open.is_empty() => (vec![None; queries.len()], SatStats::default()),
         EngineKind::Plain => {
@@ -228,6 +242,31 @@ pub fn prove_shared(
                 &progress,
             );
             (f, sat.stats())
+        }
+        EngineKind::Portfolio | EngineKind::Exhaustive | EngineKind::Bdd => {
+            let stages: &[portfolio::Stage] = match opts.engine {
+                EngineKind::Exhaustive => &[portfolio::Stage::Exhaustive],
+                EngineKind::Bdd => &[portfolio::Stage::Bdd],
+                _ => &[
+                    portfolio::Stage::Exhaustive,
+                    portfolio::Stage::Bdd,
+                    portfolio::Stage::Sweep,
+                ],
+            };
+            let cx = portfolio::Context {
+                aig: &shared.aig,
+                pairs: &queries,
+                constraint: shared.constraint,
+                seed: opts.seed,
+                words: opts.sim_words,
+                jobs: opts.jobs,
+                limits: &limits,
+                progress: &progress,
+            };
+            let out = portfolio::run(&cx, &open, stages).map_err(ProveError::Internal)?;
+            sweep_stats = out.sweep;
+            portfolio_groups = Some(out.groups);
+            (out.findings, out.sat)
         }
         EngineKind::Sweep => {
             let (f, s, w) = parallel::sweep_groups(
@@ -328,6 +367,7 @@ pub fn prove_shared(
             sim_patterns: patterns,
             sat,
             sweep: sweep_stats,
+            portfolio: portfolio_groups,
             engine_memory_bytes: rss_at_start
                 .zip(status_kib("VmHWM:"))
                 .map(|(a, p)| p.saturating_sub(a) * 1024),

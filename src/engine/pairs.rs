@@ -69,7 +69,7 @@ pub(crate) fn decide_pairs(
                     }
                     continue;
                 }
-                SplitResult::Stopped(StopReason::Timeout) => {
+                SplitResult::Stopped(StopReason::Timeout | StopReason::EngineLimit) => {
                     findings[p] = Some(Finding::Stopped(StopReason::Timeout));
                     continue;
                 }
@@ -118,7 +118,7 @@ pub(crate) fn decide_pairs(
                     sat.clause(&[!act]);
                     continue;
                 }
-                SplitResult::Stopped(StopReason::Timeout) => {
+                SplitResult::Stopped(StopReason::Timeout | StopReason::EngineLimit) => {
                     findings[p] = Some(Finding::Stopped(StopReason::Timeout));
                     sat.clause(&[!act]);
                     continue;

@@ -41,6 +41,10 @@ pub enum Method {
     Sat,
     /// Case splitting on inputs, each cofactor decided by SAT or structural hashing.
     Split,
+    /// Exhaustive simulation of every assignment of the pair's support.
+    Exhaustive,
+    /// Equal canonical BDDs, or a path of their difference.
+    Bdd,
     /// Nothing decided it (the verdict is undecided).
     None,
 }
@@ -54,6 +58,8 @@ impl Method {
             Method::Simulation => "simulation",
             Method::Sat => "sat",
             Method::Split => "split",
+            Method::Exhaustive => "exhaustive",
+            Method::Bdd => "bdd",
             Method::None => "-",
         }
     }
@@ -131,6 +137,9 @@ pub struct Stats {
     /// Sweeping figures (the `sweep` engine only).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub sweep: Option<crate::engine::SweepStats>,
+    /// What each method of the portfolio did with each group (the portfolio engines only).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub portfolio: Option<Vec<crate::engine::portfolio::GroupRecord>>,
     /// Memory the proof added at its peak, in bytes: peak resident memory at the end minus
     /// resident memory when it began, with both designs and the shared AIG already built
     /// (absent where the system does not report it).

@@ -231,7 +231,9 @@ fn step(item: Item, n: usize, limits: &Limits) -> Step {
             }
             Step::Differ(values)
         }
-        SatResult::Stopped(StopReason::Timeout) => Step::Stopped(StopReason::Timeout),
+        SatResult::Stopped(StopReason::Timeout | StopReason::EngineLimit) => {
+            Step::Stopped(StopReason::Timeout)
+        }
         SatResult::Stopped(StopReason::ConflictLimit) => {
             if fixed.len() >= MAX_DEPTH {
                 return Step::Stopped(StopReason::ConflictLimit);

@@ -54,6 +54,8 @@ pub fn prove_text(r: &ProveReport) -> String {
             Method::Simulation,
             Method::Sat,
             Method::Split,
+            Method::Exhaustive,
+            Method::Bdd,
         ] {
             let k = r
                 .pairs

@@ -1,0 +1,553 @@
+//! A small reduced ordered BDD package with complement edges, and the BDD check of output
+//! pairs built on it. One manager per output group: a shared unique table (so equal functions
+//! are the same edge), a lossy computed table for AND, and a node limit after which every
+//! operation gives up (the group goes to the next method, undecided here, never wrong).
+//!
+//! Canonical form: the terminal is node 0 (`ONE` is its regular edge, `ZERO` its complement);
+//! a node's high edge is never complemented. Two functions are equal exactly when their edges
+//! are equal, which is the evidence of an `equal` answer. A difference gives one path to `ONE`
+//! of `(a XOR b) AND constraint`: a counterexample the caller re-simulates.
+//!
+//! Recursion depth of the operations is bounded by the number of variables (each call goes one
+//! variable down), not by the depth of the netlist; the graph itself is walked iteratively.
+
+use crate::aig::{Aig, Lit, Node};
+use crate::hash::FastMap;
+use crate::sat::Limits;
+
+/// A BDD edge: node index times two, plus one when complemented.
+pub(crate) type Edge = u32;
+/// The constant-true function.
+pub(crate) const ONE: Edge = 0;
+/// The constant-false function.
+pub(crate) const ZERO: Edge = 1;
+/// Level of the terminal (below every variable).
+const TERMINAL: u32 = u32::MAX;
+/// Entries of the computed table (a power of two).
+const CACHE: usize = 1 << 18;
+
+/// The node limit was reached (or the time ran out) before the operation finished.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub(crate) struct Exceeded;
+
+/// A BDD manager: nodes `(level, low, high)` with `high` regular.
+pub(crate) struct Manager<'l> {
+    nodes: Vec<(u32, Edge, Edge)>,
+    unique: FastMap<(u32, Edge, Edge), u32>,
+    cache: Vec<(Edge, Edge, Edge)>,
+    limit: usize,
+    limits: &'l Limits,
+    ops: u64,
+}
+
+impl<'l> Manager<'l> {
+    /// A manager that fails once it holds `limit` nodes or the time of `limits` runs out.
+    pub(crate) fn new(limit: usize, limits: &'l Limits) -> Manager<'l> {
+        Manager {
+            nodes: vec![(TERMINAL, ONE, ONE)],
+            unique: FastMap::default(),
+            cache: vec![(u32::MAX, u32::MAX, 0); CACHE],
+            limit,
+            limits,
+            ops: 0,
+        }
+    }
+
+    /// Nodes held (the terminal included).
+    pub(crate) fn len(&self) -> usize {
+        self.nodes.len()
+    }
+
+    /// The function of variable `level` (level 0 is the top of the order).
+    pub(crate) fn var(&mut self, level: u32) -> Result<Edge, Exceeded> {
+        self.mk(level, ZERO, ONE)
+    }
+
+    fn level(&self, e: Edge) -> u32 {
+        self.nodes[(e >> 1) as usize].0
+    }
+
+    /// Low and high cofactors of `e` with respect to `level` (itself when `e` does not test it).
+    fn cofactors(&self, e: Edge, level: u32) -> (Edge, Edge) {
+        let (l, lo, hi) = self.nodes[(e >> 1) as usize];
+        if l != level {
+            return (e, e);
+        }
+        let c = e & 1;
+        (lo ^ c, hi ^ c)
+    }
+
+    fn mk(&mut self, level: u32, lo: Edge, hi: Edge) -> Result<Edge, Exceeded> {
+        if lo == hi {
+            return Ok(lo);
+        }
+        if hi & 1 == 1 {
+            return Ok(self.mk(level, lo ^ 1, hi ^ 1)? ^ 1);
+        }
+        if let Some(&n) = self.unique.get(&(level, lo, hi)) {
+            return Ok(n << 1);
+        }
+        if self.nodes.len() >= self.limit {
+            return Err(Exceeded);
+        }
+        let n = self.nodes.len() as u32;
+        self.nodes.push((level, lo, hi));
+        self.unique.insert((level, lo, hi), n);
+        Ok(n << 1)
+    }
+
+    /// The conjunction of two functions.
+    pub(crate) fn and(&mut self, f: Edge, g: Edge) -> Result<Edge, Exceeded> {
+        if f == ZERO || g == ZERO || f == g ^ 1 {
+            return Ok(ZERO);
+        }
+        if f == ONE || f == g {
+            return Ok(g);
+        }
+        if g == ONE {
+            return Ok(f);
+        }
+        let (f, g) = if f < g { (f, g) } else { (g, f) };
+        let slot = (((f as u64).wrapping_mul(0x9E37_79B9) ^ (g as u64).wrapping_mul(0x85EB_CA6B))
+            >> 7) as usize
+            & (CACHE - 1);
+        let (cf, cg, cr) = self.cache[slot];
+        if cf == f && cg == g {
+            return Ok(cr);
+        }
+        self.ops += 1;
+        if self.ops & 0xFFFF == 0 && self.limits.expired() {
+            return Err(Exceeded);
+        }
+        let top = self.level(f).min(self.level(g));
+        let (f0, f1) = self.cofactors(f, top);
+        let (g0, g1) = self.cofactors(g, top);
+        let lo = self.and(f0, g0)?;
+        let hi = self.and(f1, g1)?;
+        let r = self.mk(top, lo, hi)?;
+        self.cache[slot] = (f, g, r);
+        Ok(r)
+    }
+
+    /// The exclusive or of two functions.
+    pub(crate) fn xor(&mut self, f: Edge, g: Edge) -> Result<Edge, Exceeded> {
+        let a = self.and(f, g ^ 1)?;
+        let b = self.and(f ^ 1, g)?;
+        Ok(self.and(a ^ 1, b ^ 1)? ^ 1)
+    }
+
+    /// One assignment (by level) under which `e` is true, unset levels false; `None` for `ZERO`.
+    pub(crate) fn witness(&self, mut e: Edge, levels: usize) -> Option<Vec<bool>> {
+        if e == ZERO {
+            return None;
+        }
+        let mut v = vec![false; levels];
+        while e >> 1 != 0 {
+            let (level, lo, hi) = self.nodes[(e >> 1) as usize];
+            let c = e & 1;
+            // Every edge other than ZERO reaches ONE: take the low branch unless it is ZERO.
+            if lo ^ c != ZERO {
+                e = lo ^ c;
+            } else {
+                v[level as usize] = true;
+                e = hi ^ c;
+            }
+        }
+        debug_assert_eq!(e, ONE);
+        Some(v)
+    }
+}
+
+/// The answer for one output pair.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub(crate) enum Decision {
+    /// The two BDDs (under the constraint) are the same edge.
+    Equal,
+    /// Different under these values of all inputs of the graph.
+    Differ(Vec<bool>),
+}
+
+/// Figures of one BDD check.
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub(crate) struct BddFigures {
+    /// Nodes the manager held at the end (or when it gave up).
+    pub nodes: usize,
+}
+
+/// A variable order for the inputs of the cones of `roots`: inputs by first appearance in a
+/// depth-first walk of the cones taken root by root, the whole list reversed (for an adder
+/// with its low bits first this puts the high bits on top, where the carries share their
+/// sub-functions), except that inputs of a much higher fan-out than the median (control
+/// inputs such as select bits) come first. Inputs outside the cones come last.
+pub(crate) fn order(aig: &Aig, roots: &[Lit]) -> Vec<usize> {
+    let mut seen = vec![false; aig.len()];
+    let mut found: Vec<usize> = Vec::new();
+    let mut stack: Vec<u32> = Vec::new();
+    for r in roots {
+        stack.push(r.node());
+        while let Some(n) = stack.pop() {
+            if seen[n as usize] {
+                continue;
+            }
+            seen[n as usize] = true;
+            match aig.node(n) {
+                Node::Const => {}
+                Node::Input(k) => found.push(k as usize),
+                Node::And(a, b) => {
+                    stack.push(b.node());
+                    stack.push(a.node());
+                }
+            }
+        }
+    }
+    found.reverse();
+    // Control inputs first: those that drive many more AND nodes than is typical (the select
+    // bits of a selector or shifter), in the order found.
+    let mut fanout = vec![0u32; aig.num_inputs()];
+    for (i, node) in aig.nodes().iter().enumerate() {
+        if let (true, Node::And(a, b)) = (seen[i], *node) {
+            for l in [a, b] {
+                if let Node::Input(k) = aig.node(l.node()) {
+                    fanout[k as usize] += 1;
+                }
+            }
+        }
+    }
+    let mut sorted: Vec<u32> = found.iter().map(|&k| fanout[k]).collect();
+    sorted.sort_unstable();
+    if let Some(&median) = sorted.get(sorted.len() / 2) {
+        let high = |k: usize| fanout[k] >= 3 * median.max(1);
+        let (mut control, data): (Vec<usize>, Vec<usize>) = found.iter().partition(|&&k| high(k));
+        control.extend(data);
+        found = control;
+    }
+    let mut used = vec![false; aig.num_inputs()];
+    for &k in &found {
+        used[k] = true;
+    }
+    found.extend((0..aig.num_inputs()).filter(|&k| !used[k]));
+    found
+}
+
+/// Decide the pairs of `pairs` with BDDs in one manager of at most `limit` nodes. The graph is
+/// built in topological order and each pair is decided as soon as both of its sides are built,
+/// so the pairs decided before the limit was reached keep their answers (`None`: not decided).
+pub(crate) fn decide(
+    aig: &Aig,
+    pairs: &[(Lit, Lit)],
+    constraint: Lit,
+    limit: usize,
+    limits: &Limits,
+) -> (Vec<Option<Decision>>, BddFigures) {
+    let mut roots: Vec<Lit> = pairs.iter().flat_map(|&(a, b)| [a, b]).collect();
+    roots.push(constraint);
+    let ord = order(aig, &roots);
+    let mut level_of = vec![0u32; aig.num_inputs()];
+    for (l, &k) in ord.iter().enumerate() {
+        level_of[k] = l as u32;
+    }
+    let mut m = Manager::new(limit, limits);
+    let mut out = vec![None; pairs.len()];
+    let _ = build_and_compare(aig, pairs, constraint, &ord, &level_of, &mut m, &mut out);
+    let figures = BddFigures { nodes: m.len() };
+    (out, figures)
+}
+
+fn build_and_compare(
+    aig: &Aig,
+    pairs: &[(Lit, Lit)],
+    constraint: Lit,
+    ord: &[usize],
+    level_of: &[u32],
+    m: &mut Manager<'_>,
+    out: &mut [Option<Decision>],
+) -> Result<(), Exceeded> {
+    let mut roots: Vec<Lit> = pairs.iter().flat_map(|&(a, b)| [a, b]).collect();
+    roots.push(constraint);
+    let mask = aig.cone_mask(&roots);
+    // Pairs by the later of their two sides (the constraint must be built before any).
+    let ready = |&(a, b): &(Lit, Lit)| a.index().max(b.index()).max(constraint.index());
+    let mut by_ready: Vec<usize> = (0..pairs.len()).collect();
+    by_ready.sort_by_key(|&p| ready(&pairs[p]));
+    let mut next = 0;
+    let mut f = vec![ZERO; aig.len()];
+    let lit = |f: &[Edge], l: Lit| f[l.index()] ^ u32::from(l.is_complemented());
+    for (i, node) in aig.nodes().iter().enumerate() {
+        if mask[i] {
+            f[i] = match *node {
+                Node::Const => ZERO,
+                Node::Input(k) => m.var(level_of[k as usize])?,
+                Node::And(a, b) => {
+                    let (x, y) = (lit(&f, a), lit(&f, b));
+                    m.and(x, y)?
+                }
+            };
+        }
+        while next < by_ready.len() && ready(&pairs[by_ready[next]]) <= i {
+            let p = by_ready[next];
+            next += 1;
+            let (x, y) = (lit(&f, pairs[p].0), lit(&f, pairs[p].1));
+            if x == y {
+                out[p] = Some(Decision::Equal);
+                continue;
+            }
+            let c = lit(&f, constraint);
+            let d = m.xor(x, y)?;
+            let d = m.and(d, c)?;
+            out[p] = Some(match m.witness(d, ord.len()) {
+                None => Decision::Equal,
+                Some(by_level) => {
+                    let mut values = vec![false; aig.num_inputs()];
+                    for (l, &k) in ord.iter().enumerate() {
+                        values[k] = by_level[l];
+                    }
+                    Decision::Differ(values)
+                }
+            });
+        }
+    }
+    Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::aig::eval;
+
+    /// Majority of `ins` as a sum of its inputs (a ripple of half adders) compared to a threshold.
+    pub(super) fn majority_by_count(g: &mut Aig, ins: &[Lit]) -> Lit {
+        // Counter bits, least significant first.
+        let mut count: Vec<Lit> = Vec::new();
+        for &x in ins {
+            let mut carry = x;
+            for bit in count.iter_mut() {
+                let s = g.xor(*bit, carry);
+                carry = g.and(*bit, carry);
+                *bit = s;
+            }
+            if carry != Lit::FALSE {
+                count.push(carry);
+            }
+        }
+        // count > n/2, compared from the top bit down.
+        let t = ins.len() / 2;
+        let mut gt = Lit::FALSE;
+        let mut eq = Lit::TRUE;
+        for (i, &c) in count.iter().enumerate().rev() {
+            let tb = i < 64 && (t >> i) & 1 == 1;
+            if tb {
+                eq = g.and(eq, c);
+            } else {
+                let here = g.and(eq, c);
+                gt = g.or(gt, here);
+                eq = g.and(eq, !c);
+            }
+        }
+        gt
+    }
+
+    /// Majority by the recursive "at least k of the rest" expansion (a different structure).
+    pub(super) fn majority_by_threshold(g: &mut Aig, ins: &[Lit]) -> Lit {
+        let n = ins.len();
+        let need = n / 2 + 1;
+        // at[k]: at least k of the inputs seen so far (k = 0..=need).
+        let mut at: Vec<Lit> = vec![Lit::FALSE; need + 1];
+        at[0] = Lit::TRUE;
+        for &x in ins {
+            for k in (1..=need).rev() {
+                let with = g.and(x, at[k - 1]);
+                at[k] = g.or(at[k], with);
+            }
+        }
+        at[need]
+    }
+
+    #[test]
+    fn majorities_of_two_structures_are_equal() {
+        let mut g = Aig::new();
+        let ins: Vec<Lit> = (0..41).map(|_| g.add_input()).collect();
+        let a = majority_by_count(&mut g, &ins);
+        let b = majority_by_threshold(&mut g, &ins);
+        let (r, fig) = decide(&g, &[(a, b)], Lit::TRUE, 1 << 20, &Limits::none());
+        assert_eq!(r, vec![Some(Decision::Equal)]);
+        assert!(fig.nodes > 41);
+    }
+
+    #[test]
+    fn a_wrong_threshold_gives_a_separating_vector() {
+        let mut g = Aig::new();
+        let ins: Vec<Lit> = (0..21).map(|_| g.add_input()).collect();
+        let a = majority_by_count(&mut g, &ins);
+        let b = majority_by_threshold(&mut g, &ins[..20]);
+        let (r, _) = decide(&g, &[(a, b)], Lit::TRUE, 1 << 20, &Limits::none());
+        let Some(Decision::Differ(v)) = &r[0] else {
+            panic!("the pair differs")
+        };
+        let vals = eval(&g, v, &[a, b]);
+        assert_ne!(vals[0], vals[1]);
+    }
+
+    #[test]
+    fn node_limit_gives_up() {
+        let mut g = Aig::new();
+        let ins: Vec<Lit> = (0..31).map(|_| g.add_input()).collect();
+        let a = majority_by_count(&mut g, &ins);
+        let b = majority_by_threshold(&mut g, &ins);
+        let (r, fig) = decide(&g, &[(a, b)], Lit::TRUE, 50, &Limits::none());
+        assert_eq!(r, vec![None]);
+        assert!(fig.nodes <= 50);
+    }
+
+    #[test]
+    fn constraint_and_canonical_edges() {
+        let limits = Limits::none();
+        let mut m = Manager::new(1000, &limits);
+        let x = m.var(0).unwrap();
+        let y = m.var(1).unwrap();
+        let xy = m.and(x, y).unwrap();
+        let yx = m.and(y, x).unwrap();
+        assert_eq!(xy, yx);
+        // De Morgan: NOT(NOT x AND NOT y) AND (x OR y) are the same edge.
+        let or1 = m.and(x ^ 1, y ^ 1).unwrap() ^ 1;
+        let t = m.xor(x, y).unwrap();
+        let u = m.xor(t, xy).unwrap();
+        assert_eq!(u, or1, "x ^ y ^ xy = x | y");
+        assert_eq!(m.witness(ZERO, 2), None);
+        let w = m.witness(xy, 2).unwrap();
+        assert_eq!(w, vec![true, true]);
+    }
+}
+
+/// Against biodivine-lib-bdd (a BDD library from crates.io, used as an independent oracle):
+/// the same functions must be equal or different in both packages, and the speed comparison
+/// behind the choice of our own package (`cargo test --release --lib bdd_speed -- --ignored
+/// --nocapture`; figures in docs/engine.md).
+#[cfg(test)]
+mod oracle {
+    use super::*;
+    use biodivine_lib_bdd::{Bdd, BddVariableSet};
+
+    fn random_aig(seed: u64, inputs: usize, ands: usize) -> Aig {
+        let mut g = Aig::new();
+        let mut lits: Vec<Lit> = (0..inputs).map(|_| g.add_input()).collect();
+        let mut x = seed.wrapping_mul(0x9E37_79B9_7F4A_7C15) | 1;
+        let mut next = move || {
+            x ^= x << 13;
+            x ^= x >> 7;
+            x ^= x << 17;
+            x
+        };
+        for _ in 0..ands {
+            let a = lits[next() as usize % lits.len()].xor_complement(next() & 1 == 1);
+            let b = lits[next() as usize % lits.len()].xor_complement(next() & 1 == 1);
+            let l = g.and(a, b);
+            lits.push(l);
+        }
+        g
+    }
+
+    /// Both packages over the same order: ours as edges, biodivine's as `Bdd`s.
+    fn both(g: &Aig) -> (Vec<Edge>, Vec<Bdd>) {
+        let limits = Limits::none();
+        let mut m = Manager::new(1 << 22, &limits);
+        let vars = BddVariableSet::new_anonymous(g.num_inputs() as u16);
+        let vs = vars.variables();
+        let mut ours = vec![ZERO; g.len()];
+        let mut theirs: Vec<Bdd> = Vec::with_capacity(g.len());
+        for (i, node) in g.nodes().iter().enumerate() {
+            let lit_b = |t: &[Bdd], l: Lit| {
+                if l.is_complemented() {
+                    t[l.index()].not()
+                } else {
+                    t[l.index()].clone()
+                }
+            };
+            let lit_o = |o: &[Edge], l: Lit| o[l.index()] ^ u32::from(l.is_complemented());
+            let (o, t) = match *node {
+                Node::Const => (ZERO, vars.mk_false()),
+                Node::Input(k) => (m.var(k).unwrap(), vars.mk_var(vs[k as usize])),
+                Node::And(a, b) => (
+                    m.and(lit_o(&ours, a), lit_o(&ours, b)).unwrap(),
+                    lit_b(&theirs, a).and(&lit_b(&theirs, b)),
+                ),
+            };
+            ours[i] = o;
+            theirs.push(t);
+        }
+        (ours, theirs)
+    }
+
+    #[test]
+    fn equalities_agree_with_biodivine() {
+        let mut checked = 0;
+        for seed in 1..40 {
+            let g = random_aig(seed, 8, 60);
+            let (ours, theirs) = both(&g);
+            for i in 0..g.len() {
+                for j in i + 1..g.len() {
+                    let eq_theirs = theirs[i].xor(&theirs[j]).is_false();
+                    let co_theirs = theirs[i].xor(&theirs[j].not()).is_false();
+                    assert_eq!(ours[i] == ours[j], eq_theirs, "seed {seed}: {i} {j}");
+                    assert_eq!(ours[i] == ours[j] ^ 1, co_theirs, "seed {seed}: {i} {j}");
+                    checked += 1;
+                }
+            }
+        }
+        assert!(checked > 50_000);
+    }
+
+    #[test]
+    #[ignore = "a measurement, run by hand in release mode"]
+    fn bdd_speed() {
+        let mut g = Aig::new();
+        let ins: Vec<Lit> = (0..101).map(|_| g.add_input()).collect();
+        let a = super::tests::majority_by_count(&mut g, &ins);
+        let b = super::tests::majority_by_threshold(&mut g, &ins);
+        let t = std::time::Instant::now();
+        let (ours, _) = {
+            let limits = Limits::none();
+            let mut m = Manager::new(1 << 24, &limits);
+            let mut e = vec![ZERO; g.len()];
+            for (i, node) in g.nodes().iter().enumerate() {
+                let lit = |e: &[Edge], l: Lit| e[l.index()] ^ u32::from(l.is_complemented());
+                e[i] = match *node {
+                    Node::Const => ZERO,
+                    Node::Input(k) => m.var(k).unwrap(),
+                    Node::And(x, y) => m.and(lit(&e, x), lit(&e, y)).unwrap(),
+                };
+            }
+            (e, m.len())
+        };
+        let t_ours = t.elapsed();
+        assert_eq!(
+            ours[a.index()] ^ u32::from(a.is_complemented()),
+            ours[b.index()] ^ u32::from(b.is_complemented())
+        );
+        let t = std::time::Instant::now();
+        let vars = BddVariableSet::new_anonymous(g.num_inputs() as u16);
+        let vs = vars.variables();
+        let mut theirs: Vec<Bdd> = Vec::with_capacity(g.len());
+        for node in g.nodes() {
+            let lit = |t: &[Bdd], l: Lit| {
+                if l.is_complemented() {
+                    t[l.index()].not()
+                } else {
+                    t[l.index()].clone()
+                }
+            };
+            let f = match *node {
+                Node::Const => vars.mk_false(),
+                Node::Input(k) => vars.mk_var(vs[k as usize]),
+                Node::And(x, y) => lit(&theirs, x).and(&lit(&theirs, y)),
+            };
+            theirs.push(f);
+        }
+        let t_theirs = t.elapsed();
+        eprintln!(
+            "majority of 101 inputs, two structures, {} AND nodes: ours {:.3} s, biodivine-lib-bdd {:.3} s",
+            g.num_ands(),
+            t_ours.as_secs_f64(),
+            t_theirs.as_secs_f64()
+        );
+    }
+}

@@ -1,0 +1,453 @@
+//! The engine portfolio (the default engine): a table of methods tried in order on the output
+//! pairs still open, each with its own grouping and its own limits, each answer with its
+//! evidence. Exhaustive simulation takes the groups whose combined support is small (every
+//! assignment enumerated), BDDs take what stays within a node limit (equal canonical edges),
+//! and SAT sweeping takes the rest (UNSAT answers and sound merges). A method that declines a
+//! group leaves it open for the next one; only the last method's stop reason reaches the
+//! report. The choice and each method's time per group are recorded ([`GroupRecord`]) for the
+//! JSON report and the debug log.
+//!
+//! Adding a method: one entry in [`TABLE`] (a name and a function from the open pairs to the
+//! decided ones and the group records), one variant of [`Stage`].
+
+use super::bdd;
+use super::exhaustive;
+use super::pairs::PairQuery;
+use super::parallel;
+use super::progress::Progress;
+use super::sweep::SweepStats;
+use super::{Finding, Method};
+use crate::aig::{Aig, Lit, Node};
+use crate::sat::{Limits, SatStats, StopReason};
+use serde::Serialize;
+use std::time::Instant;
+
+/// One method of the portfolio.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum Stage {
+    /// Exhaustive bit-parallel simulation of small supports.
+    Exhaustive,
+    /// BDDs within a node limit.
+    Bdd,
+    /// SAT sweeping and per-pair queries.
+    Sweep,
+}
+
+impl Stage {
+    /// Word used in reports and the debug log.
+    pub fn word(self) -> &'static str {
+        match self {
+            Stage::Exhaustive => "exhaustive",
+            Stage::Bdd => "bdd",
+            Stage::Sweep => "sweep",
+        }
+    }
+}
+
+/// What one method did with one group of output pairs.
+#[derive(Clone, Debug, PartialEq, Serialize)]
+pub struct GroupRecord {
+    /// The method.
+    pub method: Stage,
+    /// Output pair indices of the group (into the report's `pairs`), ascending.
+    pub pairs: Vec<usize>,
+    /// How many of them it decided.
+    pub decided: usize,
+    /// Wall-clock seconds it spent on the group.
+    pub seconds: f64,
+    /// What it measured (support size, BDD nodes, ...) or why it declined.
+    pub note: String,
+}
+
+/// Everything a method needs.
+pub(crate) struct Context<'a> {
+    pub aig: &'a Aig,
+    pub pairs: &'a [PairQuery],
+    pub constraint: Lit,
+    pub seed: u64,
+    pub words: Option<usize>,
+    pub jobs: usize,
+    pub limits: &'a Limits,
+    pub progress: &'a Progress,
+}
+
+/// What a method returns: findings for the pairs it decided (or, for the last method, for
+/// all), group records, and its solver figures.
+#[derive(Default)]
+pub(crate) struct StageOutput {
+    pub findings: Vec<(usize, Finding)>,
+    pub groups: Vec<GroupRecord>,
+    pub sat: SatStats,
+    pub sweep: Option<SweepStats>,
+}
+
+type Runner = fn(&Context<'_>, &[usize]) -> Result<StageOutput, String>;
+
+/// The methods in the order they are tried.
+pub(crate) const TABLE: &[(Stage, Runner)] = &[
+    (Stage::Exhaustive, run_exhaustive),
+    (Stage::Bdd, run_bdd),
+    (Stage::Sweep, run_sweep),
+];
+
+/// The portfolio's result: one finding per pair (`None` for pairs not in `open`).
+pub(crate) struct PortfolioOutput {
+    pub findings: Vec<Option<Finding>>,
+    pub groups: Vec<GroupRecord>,
+    pub sat: SatStats,
+    pub sweep: Option<SweepStats>,
+}
+
+/// Run the methods of `stages` (entries of [`TABLE`], in table order) on the `open` pairs. Pairs
+/// no method decided are stopped with `StopReason::EngineLimit` (or the timeout).
+pub(crate) fn run(
+    cx: &Context<'_>,
+    open: &[usize],
+    stages: &[Stage],
+) -> Result<PortfolioOutput, String> {
+    let mut findings: Vec<Option<Finding>> = vec![None; cx.pairs.len()];
+    let mut out = PortfolioOutput {
+        findings: Vec::new(),
+        groups: Vec::new(),
+        sat: SatStats::default(),
+        sweep: None,
+    };
+    let mut left: Vec<usize> = open.to_vec();
+    for &(stage, runner) in TABLE.iter().filter(|(s, _)| stages.contains(s)) {
+        if left.is_empty() {
+            break;
+        }
+        let so = runner(cx, &left)?;
+        for g in &so.groups {
+            log::debug!(
+                "portfolio: {} on {} output pair(s) (first {}): {} decided in {:.3} s; {}",
+                stage.word(),
+                g.pairs.len(),
+                g.pairs.first().copied().unwrap_or(0),
+                g.decided,
+                g.seconds,
+                g.note
+            );
+        }
+        for (p, f) in so.findings {
+            findings[p] = Some(f);
+        }
+        out.groups.extend(so.groups);
+        out.sat.add(&so.sat);
+        if let Some(w) = so.sweep {
+            out.sweep.get_or_insert_with(SweepStats::default).add(&w);
+        }
+        left.retain(|&p| findings[p].is_none());
+    }
+    let reason = if cx.limits.expired() {
+        StopReason::Timeout
+    } else {
+        StopReason::EngineLimit
+    };
+    for p in left {
+        findings[p] = Some(Finding::Stopped(reason));
+    }
+    out.findings = findings;
+    Ok(out)
+}
+
+/// Up to `cap + 1` input positions of the structural cone of `roots` (stops once past `cap`).
+fn small_support(
+    aig: &Aig,
+    roots: &[Lit],
+    cap: usize,
+    mark: &mut Vec<u32>,
+    stamp: u32,
+) -> Vec<u32> {
+    if mark.len() < aig.len() {
+        mark.resize(aig.len(), 0);
+    }
+    let mut found = Vec::new();
+    let mut stack: Vec<u32> = roots.iter().map(|r| r.node()).collect();
+    while let Some(n) = stack.pop() {
+        if mark[n as usize] == stamp {
+            continue;
+        }
+        mark[n as usize] = stamp;
+        match aig.node(n) {
+            Node::Const => {}
+            Node::Input(k) => {
+                found.push(k);
+                if found.len() > cap {
+                    break;
+                }
+            }
+            Node::And(a, b) => {
+                stack.push(a.node());
+                stack.push(b.node());
+            }
+        }
+    }
+    found.sort_unstable();
+    found
+}
+
+fn union(a: &[u32], b: &[u32]) -> Vec<u32> {
+    let mut u: Vec<u32> = a.iter().chain(b).copied().collect();
+    u.sort_unstable();
+    u.dedup();
+    u
+}
+
+/// Exhaustive simulation: consecutive open pairs grouped while their combined support (with the
+/// constraint's) has at most [`exhaustive::MAX_INPUTS`] inputs.
+fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
+    let cap = exhaustive::MAX_INPUTS;
+    let mut mark = Vec::new();
+    let mut stamp = 0u32;
+    let mut support = |roots: &[Lit]| {
+        stamp += 1;
+        small_support(cx.aig, roots, cap, &mut mark, stamp)
+    };
+    let base = support(&[cx.constraint]);
+    let mut groups: Vec<(Vec<usize>, Vec<u32>)> = Vec::new();
+    for &p in open {
+        let s = support(&[cx.pairs[p].reference, cx.pairs[p].candidate]);
+        let s = union(&s, &base);
+        if s.len() > cap {
+            continue;
+        }
+        match groups.last_mut() {
+            Some((members, sup)) if union(sup, &s).len() <= cap => {
+                *sup = union(sup, &s);
+                members.push(p);
+            }
+            _ => groups.push((vec![p], s)),
+        }
+    }
+    let mut out = StageOutput::default();
+    for (members, sup) in groups {
+        if cx.limits.expired() {
+            break;
+        }
+        let t = Instant::now();
+        let qs: Vec<(Lit, Lit)> = members
+            .iter()
+            .map(|&p| (cx.pairs[p].reference, cx.pairs[p].candidate))
+            .collect();
+        let r = exhaustive::decide(
+            cx.aig,
+            &qs,
+            cx.constraint,
+            cap,
+            exhaustive::MAX_WORK,
+            cx.limits,
+        );
+        let (decided, note) = match r {
+            Ok(ds) => {
+                let n = ds.len();
+                for (&p, d) in members.iter().zip(ds) {
+                    out.findings.push((
+                        p,
+                        match d {
+                            exhaustive::Decision::Equal => Finding::Equal(Method::Exhaustive),
+                            exhaustive::Decision::Differ(v) => {
+                                Finding::Differ(Method::Exhaustive, v)
+                            }
+                        },
+                    ));
+                }
+                cx.progress.outputs_done(n);
+                (
+                    n,
+                    format!("support {}: all 2^{} assignments", sup.len(), sup.len()),
+                )
+            }
+            Err(exhaustive::Declined::TooLarge) => (
+                0,
+                format!("support {}: cone too large to enumerate", sup.len()),
+            ),
+            Err(exhaustive::Declined::Timeout) => (0, "time limit".to_string()),
+        };
+        out.groups.push(GroupRecord {
+            method: Stage::Exhaustive,
+            pairs: members,
+            decided,
+            seconds: t.elapsed().as_secs_f64(),
+            note,
+        });
+    }
+    Ok(out)
+}
+
+/// BDD node limit for a graph of `nodes` AND nodes: BDDs a few times the size of the graph
+/// (so that a blow-up costs about as much as building the graph a few times), at most about
+/// 50 MiB.
+fn bdd_limit(nodes: usize) -> usize {
+    (nodes.saturating_mul(16)).clamp(50_000, 1_000_000)
+}
+
+/// BDDs: all open pairs in one manager (sharing sub-functions); pairs decided before the node
+/// limit was reached keep their answers.
+fn run_bdd(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
+    let t = Instant::now();
+    let qs: Vec<(Lit, Lit)> = open
+        .iter()
+        .map(|&p| (cx.pairs[p].reference, cx.pairs[p].candidate))
+        .collect();
+    let limit = bdd_limit(cx.aig.num_ands());
+    let (ds, fig) = bdd::decide(cx.aig, &qs, cx.constraint, limit, cx.limits);
+    let mut out = StageOutput::default();
+    let mut decided = 0;
+    for (&p, d) in open.iter().zip(&ds) {
+        let Some(d) = d else { continue };
+        decided += 1;
+        out.findings.push((
+            p,
+            match d {
+                bdd::Decision::Equal => Finding::Equal(Method::Bdd),
+                bdd::Decision::Differ(v) => Finding::Differ(Method::Bdd, v.clone()),
+            },
+        ));
+    }
+    cx.progress.outputs_done(decided);
+    out.groups.push(GroupRecord {
+        method: Stage::Bdd,
+        pairs: open.to_vec(),
+        decided,
+        seconds: t.elapsed().as_secs_f64(),
+        note: format!(
+            "{} BDD nodes{}",
+            fig.nodes,
+            if decided < open.len() {
+                format!(" (node limit {limit} or time limit reached)")
+            } else {
+                String::new()
+            }
+        ),
+    });
+    Ok(out)
+}
+
+/// SAT sweeping ([`parallel::sweep_groups`]) on every open pair; it decides or stops each.
+fn run_sweep(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
+    let t = Instant::now();
+    let (f, sat, w) = parallel::sweep_groups(
+        cx.aig,
+        cx.pairs,
+        cx.constraint,
+        open,
+        cx.seed,
+        cx.words,
+        cx.jobs,
+        cx.limits,
+        cx.progress,
+    )?;
+    let mut out = StageOutput {
+        sat,
+        sweep: Some(w),
+        ..StageOutput::default()
+    };
+    let mut decided = 0;
+    for (p, f) in f.into_iter().enumerate() {
+        if let Some(f) = f {
+            if !matches!(f, Finding::Stopped(_)) {
+                decided += 1;
+            }
+            out.findings.push((p, f));
+        }
+    }
+    out.groups.push(GroupRecord {
+        method: Stage::Sweep,
+        pairs: open.to_vec(),
+        decided,
+        seconds: t.elapsed().as_secs_f64(),
+        note: format!("{} SAT calls", out.sat.calls),
+    });
+    Ok(out)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn cx<'a>(
+        aig: &'a Aig,
+        pairs: &'a [PairQuery],
+        limits: &'a Limits,
+        p: &'a Progress,
+    ) -> Context<'a> {
+        Context {
+            aig,
+            pairs,
+            constraint: Lit::TRUE,
+            seed: 1,
+            words: None,
+            jobs: 1,
+            limits,
+            progress: p,
+        }
+    }
+
+    #[test]
+    fn small_supports_go_to_exhaustive_and_wide_ones_onward() {
+        let mut g = Aig::new();
+        let ins: Vec<Lit> = (0..40).map(|_| g.add_input()).collect();
+        // Pair 0: 4 inputs; pair 1: 40 inputs (AND chains in two orders); pair 2: differs.
+        let a0 = g.and_all(&ins[..4]);
+        let mut b0 = ins[3];
+        for &x in ins[..3].iter().rev() {
+            b0 = g.and(b0, x);
+        }
+        let a1 = g.and_all(&ins);
+        let mut b1 = ins[39];
+        for &x in ins[..39].iter().rev() {
+            b1 = g.and(x, b1);
+        }
+        let a2 = g.or(ins[5], ins[6]);
+        let b2 = g.xor(ins[5], ins[6]);
+        let pairs = [
+            PairQuery {
+                reference: a0,
+                candidate: b0,
+            },
+            PairQuery {
+                reference: a1,
+                candidate: b1,
+            },
+            PairQuery {
+                reference: a2,
+                candidate: b2,
+            },
+        ];
+        let limits = Limits::none();
+        let progress = Progress::new(false, 3);
+        let c = cx(&g, &pairs, &limits, &progress);
+        let out = run(
+            &c,
+            &[0, 1, 2],
+            &[Stage::Exhaustive, Stage::Bdd, Stage::Sweep],
+        )
+        .unwrap();
+        assert_eq!(out.findings[0], Some(Finding::Equal(Method::Exhaustive)));
+        assert_eq!(out.findings[1], Some(Finding::Equal(Method::Bdd)));
+        assert!(matches!(
+            out.findings[2],
+            Some(Finding::Differ(Method::Exhaustive, _))
+        ));
+        assert_eq!(out.groups[0].method, Stage::Exhaustive);
+        assert_eq!(out.groups[0].pairs, vec![0, 2]);
+        // Exhaustive alone leaves the wide pair open with a limit as its reason.
+        let out = run(&c, &[0, 1, 2], &[Stage::Exhaustive]).unwrap();
+        assert_eq!(
+            out.findings[1],
+            Some(Finding::Stopped(StopReason::EngineLimit))
+        );
+    }
+
+    #[test]
+    fn support_walk_stops_past_the_cap() {
+        let mut g = Aig::new();
+        let ins: Vec<Lit> = (0..50).map(|_| g.add_input()).collect();
+        let a = g.and_all(&ins);
+        let mut mark = Vec::new();
+        assert_eq!(small_support(&g, &[a], 10, &mut mark, 1).len(), 11);
+        assert_eq!(small_support(&g, &[a], 60, &mut mark, 2).len(), 50);
+    }
+}

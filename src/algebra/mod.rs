@@ -182,7 +182,7 @@ fn rewrite<C: Coef>(
         if p.len() > limits.max_terms {
             return Err(Stop::TermBudget(limits.max_terms));
         }
-        if stats.steps % 256 == 0 && limits.deadline.is_some_and(|d| Instant::now() >= d) {
+        if stats.steps.is_multiple_of(256) && limits.deadline.is_some_and(|d| Instant::now() >= d) {
             return Err(Stop::Timeout);
         }
     }

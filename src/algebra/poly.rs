@@ -71,6 +71,11 @@ impl<C: Coef> Poly<C> {
         self.terms.is_empty()
     }
 
+    /// Whether there are no terms (the zero polynomial).
+    pub fn is_empty(&self) -> bool {
+        self.terms.is_empty()
+    }
+
     /// The terms in increasing monomial order.
     pub fn terms(&self) -> impl Iterator<Item = (&[u32], &C)> {
         self.terms.iter().map(|(m, c)| (&m[..], c))

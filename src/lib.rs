@@ -5,6 +5,7 @@
 //! proof engine ([`engine`]) -> reports ([`report`]).
 
 pub mod aig;
+pub mod algebra;
 pub mod assume;
 pub mod certify;
 pub mod cli;

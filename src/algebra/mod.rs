@@ -1,0 +1,190 @@
+//! The algebraic engine: output words proved equal as polynomials over Z / 2^n.
+//!
+//! A word pair is the reference's and the candidate's n output bits, least significant first.
+//! Its difference sum 2^i (r_i - c_i) is rewritten backward through the AIG, one unit at a time
+//! in decreasing rank ([`units`]), until only primary inputs remain ([`poly`], with x^2 = x and
+//! vanishing products removed). Signed and unsigned words are the same modulo 2^n
+//! (-2^(n-1) = 2^(n-1)), so one check serves both.
+//!
+//! - Remainder zero: the n bit pairs are equal (equal polynomials, a complete method).
+//! - Every coefficient divisible by 2^t but not all by 2^(t+1): bits below t are equal; a
+//!   monomial with t trailing zeros and fewest variables, its variables set to 1 and every other
+//!   input 0, makes the remainder equal to that coefficient, so bit t differs there
+//!   ([`remainder`]). The vector is re-simulated on the AIG before it is returned; bits above t
+//!   that differ under it are different too, the others are given back undecided.
+//! - More live terms than the budget, or the deadline: no polynomial verdict; 1024 random
+//!   patterns are simulated, bits they tell apart are different (the vector re-simulated),
+//!   the rest undecided.
+
+pub mod coef;
+pub mod poly;
+mod remainder;
+pub mod units;
+
+use crate::aig::{Aig, Lit};
+use coef::{Coef, Wide};
+use poly::Poly;
+use std::time::Instant;
+use units::Units;
+
+/// Limits of one word check.
+#[derive(Clone, Debug)]
+pub struct Limits {
+    /// Live terms allowed in the polynomial; past it the word is given back undecided.
+    pub max_terms: usize,
+    /// Wall-clock deadline.
+    pub deadline: Option<Instant>,
+}
+
+impl Default for Limits {
+    fn default() -> Self {
+        Limits {
+            max_terms: 1_000_000,
+            deadline: None,
+        }
+    }
+}
+
+/// Why a bit was left undecided.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum Stop {
+    /// The polynomial grew past this many terms.
+    TermBudget(usize),
+    /// The deadline passed.
+    Timeout,
+    /// The remainder only decides bits up to the first difference (this bit); the vector
+    /// found there does not tell this one apart.
+    AboveDifference(u32),
+    /// The remainder's vector did not re-simulate as predicted (an internal inconsistency;
+    /// nothing is claimed).
+    Inconsistent,
+}
+
+/// The verdict on one bit pair of a word.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum BitVerdict {
+    /// Equal: the word polynomials agree modulo 2^(i+1).
+    Equal,
+    /// Different under these input values (one per AIG input), re-simulated on the AIG.
+    Differ(Vec<bool>),
+    /// Not decided here.
+    Undecided(Stop),
+}
+
+/// Figures of one word check.
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct Stats {
+    /// Units (variables above the inputs).
+    pub units: usize,
+    /// Of them full-adder sums and carries.
+    pub adder_cells: usize,
+    /// Of them two-leaf XORs.
+    pub xors: usize,
+    /// Substitution steps done.
+    pub steps: usize,
+    /// Largest number of live terms.
+    pub peak_terms: usize,
+    /// Terms of the remainder (0 when equal).
+    pub remainder_terms: usize,
+}
+
+/// The outcome of one word check.
+#[derive(Clone, Debug)]
+pub struct WordCheck {
+    /// One verdict per bit, least significant first.
+    pub bits: Vec<BitVerdict>,
+    /// Figures.
+    pub stats: Stats,
+}
+
+/// Check the word pair `reference[i]` / `candidate[i]` (least significant first, equal
+/// lengths) in `aig`.
+pub fn check_word(aig: &Aig, reference: &[Lit], candidate: &[Lit], limits: &Limits) -> WordCheck {
+    assert_eq!(
+        reference.len(),
+        candidate.len(),
+        "word halves of equal width"
+    );
+    let n = reference.len();
+    if n <= 128 {
+        check_in::<u128>(aig, reference, candidate, limits)
+    } else {
+        check_in::<Wide>(aig, reference, candidate, limits)
+    }
+}
+
+/// The polynomial of one word (least significant bit first) over the AIG inputs, with
+/// coefficients modulo 2^n (n <= 128): (input numbers decreasing, coefficient) in
+/// increasing monomial order.
+pub fn word_poly(aig: &Aig, word: &[Lit], limits: &Limits) -> Result<Vec<(Vec<u32>, u128)>, Stop> {
+    assert!(
+        word.len() <= 128,
+        "word_poly takes words of at most 128 bits"
+    );
+    let units = Units::build(aig, word);
+    let mut stats = Stats::default();
+    let p: Poly<u128> = rewrite(&units, word, &[], limits, &mut stats)?;
+    Ok(p.terms().map(|(m, c)| (m.to_vec(), *c)).collect())
+}
+
+fn check_in<C: Coef>(
+    aig: &Aig,
+    reference: &[Lit],
+    candidate: &[Lit],
+    limits: &Limits,
+) -> WordCheck {
+    let n = reference.len();
+    let roots: Vec<Lit> = reference.iter().chain(candidate).copied().collect();
+    let units = Units::build(aig, &roots);
+    let mut stats = Stats {
+        units: units.units.len(),
+        adder_cells: units.adder_cells,
+        xors: units.xors,
+        ..Stats::default()
+    };
+    let bits = match rewrite::<C>(&units, reference, candidate, limits, &mut stats) {
+        Err(stop) => remainder::simulated(aig, reference, candidate, stop),
+        Ok(p) if p.is_zero() => vec![BitVerdict::Equal; n],
+        Ok(p) => {
+            stats.remainder_terms = p.len();
+            remainder::verdicts(aig, reference, candidate, &p)
+        }
+    };
+    WordCheck { bits, stats }
+}
+
+/// Rewrite sum 2^i (plus_i - minus_i) down to the inputs.
+fn rewrite<C: Coef>(
+    units: &Units,
+    plus: &[Lit],
+    minus: &[Lit],
+    limits: &Limits,
+    stats: &mut Stats,
+) -> Result<Poly<C>, Stop> {
+    let n = plus.len().max(minus.len()) as u32;
+    let mut p: Poly<C> = Poly::zero(n);
+    for (side, sign) in [(plus, 1i64), (minus, -1i64)] {
+        for (i, &l) in side.iter().enumerate() {
+            let w = C::pow2(i as u32, n);
+            for (mono, s) in units.lit_poly(l) {
+                p.add_term(&mono, &w, s * sign);
+            }
+        }
+    }
+    let reduce = |m: &mut Vec<u32>| units.reduce(m);
+    while let Some(v) = p.leading_var() {
+        if v < units.num_inputs {
+            break;
+        }
+        p.substitute(v, units.poly(v), &reduce);
+        stats.steps += 1;
+        stats.peak_terms = stats.peak_terms.max(p.len());
+        if p.len() > limits.max_terms {
+            return Err(Stop::TermBudget(limits.max_terms));
+        }
+        if stats.steps.is_multiple_of(256) && limits.deadline.is_some_and(|d| Instant::now() >= d) {
+            return Err(Stop::Timeout);
+        }
+    }
+    Ok(p)
+}

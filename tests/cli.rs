@@ -388,4 +388,14 @@ mod demo {
             "{out}"
         );
     }
+
+    /// Issue 13 D: `demo --write DIR` creates DIR (and its parents) when missing.
+    #[test]
+    fn demo_write_creates_its_folder() {
+        let dir = tmp("demo-new").join("sub");
+        let _ = std::fs::remove_dir_all(&dir);
+        let o = equicone(&["demo", "--write", dir.to_str().unwrap()]);
+        assert_eq!(code(&o), 0, "{}", String::from_utf8_lossy(&o.stderr));
+        assert!(dir.join("t7_sensor_sel_spec.v").is_file());
+    }
 }

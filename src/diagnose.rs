@@ -215,7 +215,13 @@ fn value_runs(values: &[usize], most: usize) -> String {
     let mut parts: Vec<String> = runs
         .iter()
         .take(most)
-        .map(|&(a, b)| if a == b { a.to_string() } else { format!("{a}..{b}") })
+        .map(|&(a, b)| {
+            if a == b {
+                a.to_string()
+            } else {
+                format!("{a}..{b}")
+            }
+        })
         .collect();
     if runs.len() > most {
         parts.push(format!("... ({} more)", runs.len() - most));
@@ -264,7 +270,12 @@ mod tests {
         let t = diagnosis_text(&d);
         assert_eq!(t.matches('!').count(), 1, "{t}");
         assert!(t.contains("s 1: reference d1, candidate d2  !"), "{t}");
-        assert!(t.contains("undecided at 2 select values (a limit stopped a route proof; no claim): s 2..3"), "{t}");
+        assert!(
+            t.contains(
+                "undecided at 2 select values (a limit stopped a route proof; no claim): s 2..3"
+            ),
+            "{t}"
+        );
         assert_eq!(value_runs(&[1, 2, 3, 5, 9, 10], 2), "1..3, 5, ... (1 more)");
     }
 }

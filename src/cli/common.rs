@@ -74,7 +74,10 @@ pub fn timeout_of(t: Option<f64>) -> Result<Option<std::time::Duration>, Exit> {
         }
         Some(s) => {
             let (what, help) = if !s.is_finite() {
-                ("is not a positive number of seconds", "for example `--timeout 30`")
+                (
+                    "is not a positive number of seconds",
+                    "for example `--timeout 30`",
+                )
             } else if s <= 0.0 {
                 ("must be positive", "for example `--timeout 30`")
             } else {

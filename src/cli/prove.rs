@@ -143,7 +143,8 @@ impl PairArgs {
                 // The same file read twice with the same error: say it once.
                 Err(ReadError::Input(e))
                     if k == 1
-                        && matches!(&r, Err(ReadError::Input(f)) if f.to_string() == e.to_string()) => {}
+                        && matches!(&r, Err(ReadError::Input(f)) if f.to_string() == e.to_string()) =>
+                    {}
                 Err(ReadError::Input(e)) => {
                     report_input_error(e);
                     bad = true;

@@ -498,7 +498,10 @@ mod tests {
     fn an_output_declared_twice_is_an_error() {
         let e = read("INPUT(a)\nOUTPUT(y)\nOUTPUT(y)\ny = NOT(a)\n").unwrap_err();
         let m = e.to_string();
-        assert!(m.contains("t.bench:3:8: error: output `y` is declared twice (first at t.bench:2:8)"), "{m}");
+        assert!(
+            m.contains("t.bench:3:8: error: output `y` is declared twice (first at t.bench:2:8)"),
+            "{m}"
+        );
     }
 
     #[test]

@@ -287,9 +287,11 @@ mod tests {
         let spent = Limits::new(Some(std::time::Duration::from_nanos(1)), None);
         std::thread::sleep(std::time::Duration::from_millis(2));
         let t = route_table(&d, 0, "s", &sel, Lit::TRUE, &spent);
-        assert!(t
-            .routes
-            .iter()
-            .all(|r| matches!(r, Route::Undecided { reason: StopReason::Timeout })));
+        assert!(t.routes.iter().all(|r| matches!(
+            r,
+            Route::Undecided {
+                reason: StopReason::Timeout
+            }
+        )));
     }
 }

@@ -181,11 +181,53 @@ pub fn report_internal(msg: &str) -> Exit {
 /// Write `contents` to `path` atomically: a temporary file in the same folder, then a rename.
 pub fn write_atomic(path: &str, contents: &[u8]) -> Result<(), InputError> {
     let p = Path::new(path);
-    let dir = match p.parent() {
+    let dir = folder_of(p);
+    let fail = |e: std::io::Error| write_failure(path, dir, e);
+    let mut tmp = tempfile::NamedTempFile::new_in(dir).map_err(fail)?;
+    tmp.write_all(contents).map_err(fail)?;
+    #[cfg(unix)]
+    {
+        // A temporary file is private (0600); the result should read like any new file.
+        use std::os::unix::fs::PermissionsExt;
+        let _ = tmp
+            .as_file()
+            .set_permissions(std::fs::Permissions::from_mode(0o644));
+    }
+    tmp.as_file().sync_all().map_err(fail)?;
+    tmp.persist(p).map_err(|e| fail(e.error))?;
+    Ok(())
+}
+
+/// Check, before any work, that [`write_atomic`] can write `path`: it is not a folder and a
+/// temporary file can be made beside it (the probe is removed at once). Each path that is
+/// `Some` is checked; the first failure is printed and gives [`Exit::BadInput`].
+pub fn check_writable<'a>(paths: impl IntoIterator<Item = Option<&'a str>>) -> Result<(), Exit> {
+    for path in paths.into_iter().flatten() {
+        let p = Path::new(path);
+        let dir = folder_of(p);
+        let probe = if p.is_dir() {
+            Err(std::io::Error::from(std::io::ErrorKind::IsADirectory))
+        } else {
+            tempfile::NamedTempFile::new_in(dir).map(drop)
+        };
+        if let Err(e) = probe {
+            return Err(report_input_error(&write_failure(path, dir, e)));
+        }
+    }
+    Ok(())
+}
+
+/// The folder a file is written into (`.` for a bare file name).
+fn folder_of(p: &Path) -> &Path {
+    match p.parent() {
         Some(d) if !d.as_os_str().is_empty() => d,
         _ => Path::new("."),
-    };
-    let fail = |e: std::io::Error| {
+    }
+}
+
+/// The message for a failed write of `path` in `dir`.
+fn write_failure(path: &str, dir: &Path, e: std::io::Error) -> InputError {
+    {
         let what = match e.kind() {
             std::io::ErrorKind::NotFound => {
                 format!("the folder `{}` does not exist", dir.display())
@@ -206,20 +248,7 @@ pub fn write_atomic(path: &str, contents: &[u8]) -> Result<(), InputError> {
             format!("cannot write `{path}`: {what}"),
             "check that the folder exists and is writable; nothing was written",
         )
-    };
-    let mut tmp = tempfile::NamedTempFile::new_in(dir).map_err(fail)?;
-    tmp.write_all(contents).map_err(fail)?;
-    #[cfg(unix)]
-    {
-        // A temporary file is private (0600); the result should read like any new file.
-        use std::os::unix::fs::PermissionsExt;
-        let _ = tmp
-            .as_file()
-            .set_permissions(std::fs::Permissions::from_mode(0o644));
     }
-    tmp.as_file().sync_all().map_err(fail)?;
-    tmp.persist(p).map_err(|e| fail(e.error))?;
-    Ok(())
 }
 
 /// Print to standard output; a closed pipe is not an error.

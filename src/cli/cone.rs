@@ -1,7 +1,9 @@
 //! `equicone cone` (structural cone against exact support, per output bit) and
 //! `equicone stats` (gate counts, cost, delay, bounds).
 
-use super::common::{print, report_input_error, timeout_of, write_atomic, DesignArgs};
+use super::common::{
+    check_writable, print, report_input_error, timeout_of, write_atomic, DesignArgs,
+};
 use super::Exit;
 use crate::cone::{self, AuditOptions, SupportOptions};
 use crate::cost::{self, CostModel};
@@ -70,6 +72,9 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
         Ok(l) => l,
         Err(e) => return e,
     };
+    if let Err(e) = check_writable([a.dot.as_deref()]) {
+        return e;
+    }
     let d = match a.design.load_within(&limits) {
         Ok(d) => d,
         Err(e) => return e,
@@ -133,9 +138,17 @@ pub struct StatsArgs {
     /// Print the report as JSON (schema in docs/cone.md).
     #[arg(long)]
     json: bool,
+    /// Seconds the exact supports (for the bounds) may take; claims still open then are
+    /// undecided and the bounds use the inputs proved so far (still valid, maybe low).
+    /// 0 skips the supports; gate counts, cost and depth never wait for them.
+    #[arg(long, value_name = "SECONDS", default_value_t = STATS_SUPPORT_SECONDS)]
+    support_time: f64,
     #[command(flatten)]
     limits: AuditLimitArgs,
 }
+
+/// Default of `stats --support-time`.
+const STATS_SUPPORT_SECONDS: f64 = 2.0;
 
 /// Run `stats`.
 pub fn run_stats(a: &StatsArgs) -> Exit {
@@ -155,7 +168,18 @@ pub fn run_stats(a: &StatsArgs) -> Exit {
         },
         None => CostModel::unit(),
     };
-    let rep = cost::stats_with(&d, &model, &a.limits.support(!a.json), &limits);
+    if !(a.support_time.is_finite() && a.support_time >= 0.0) {
+        eprintln!(
+            "error: --support-time {} is not a number of seconds\n  help: for example `--support-time 10`, or 0 to skip the supports",
+            a.support_time
+        );
+        return Exit::BadInput;
+    }
+    // The supports get their own share of the time; the rest of the figures need no SAT.
+    let share = std::time::Duration::from_secs_f64(a.support_time.min(1e9));
+    let share = limits.remaining().map_or(share, |r| r.min(share));
+    let support_limits = Limits::new(Some(share), limits.conflicts_per_query);
+    let rep = cost::stats_with(&d, &model, &a.limits.support(!a.json), &support_limits);
     print(&if a.json {
         rep.to_json() + "\n"
     } else {

@@ -1,8 +1,8 @@
 //! `equicone prove` and `equicone cnf`: read two designs, pair them, prove or export the miter.
 
 use super::common::{
-    print, report_input_error, report_internal, report_stopped_reading, timeout_of, write_atomic,
-    FormatArg,
+    check_writable, print, report_input_error, report_internal, report_stopped_reading, timeout_of,
+    write_atomic, FormatArg,
 };
 use super::Exit;
 use crate::certify::{Certificate, NoCertificate, ProofFormat};
@@ -237,6 +237,15 @@ pub fn run(a: &ProveArgs) -> Exit {
         Err(e) => return e,
     };
     let deadline = crate::sat::Limits::new(timeout, None);
+    // Output paths are checked before any work, so that a long run is not lost to a typo.
+    let proof_cnf = a.proof.as_ref().map(|p| format!("{p}.cnf"));
+    if let Err(e) = check_writable([
+        a.report.as_deref(),
+        a.proof.as_deref(),
+        proof_cnf.as_deref(),
+    ]) {
+        return e;
+    }
     let (r, c) = match a.pair.load_within(&deadline) {
         Ok(x) => x,
         Err(e) => return e,
@@ -272,15 +281,18 @@ pub fn run(a: &ProveArgs) -> Exit {
             "warning: no route tables: `{b}` is not an input bus of both designs (up to 16 bits)"
         );
     }
+    // A write that fails at the end anyway (disk full, folder removed) still lets the
+    // verdict be printed; the exit code then says that an output is missing.
+    let mut failed = None;
     if let (Some(path), Some(cert)) = (&a.proof, &out.certificate) {
         if let Err(code) = write_proof(cert, path) {
-            return code;
+            failed = Some(code);
         }
     }
     let json = report::to_json(&out);
     if let Some(path) = &a.report {
         if let Err(e) = write_atomic(path, json.as_bytes()) {
-            return report_input_error(&e);
+            failed = Some(report_input_error(&e));
         }
     }
     print(&if a.json {
@@ -288,6 +300,9 @@ pub fn run(a: &ProveArgs) -> Exit {
     } else {
         report::check_text(&out)
     });
+    if let Some(code) = failed {
+        return code;
+    }
     match out.verdict() {
         Verdict::Equivalent => Exit::Ok,
         Verdict::Different => Exit::Flagged,
@@ -298,6 +313,9 @@ pub fn run(a: &ProveArgs) -> Exit {
 /// Run `cnf`: the miter (OR of the XORs of all output pairs) asserted true, so that the
 /// formula is unsatisfiable exactly when the designs are equivalent.
 pub fn run_cnf(a: &CnfArgs) -> Exit {
+    if let Err(e) = check_writable([Some(a.output.as_str())]) {
+        return e;
+    }
     let (r, c) = match a.pair.load() {
         Ok(x) => x,
         Err(e) => return e,

@@ -75,6 +75,31 @@ fn exit_codes_0_1_2_3() {
     );
 }
 
+/// Issue 13 B4: the supports of `stats` have their own time share; with none, the counts and
+/// depth are still there, the support claims are undecided (exit 3) and no bound claims more
+/// than the proved inputs give.
+#[test]
+fn stats_support_time_bounds_the_supports() {
+    let o = Command::new(env!("CARGO_BIN_EXE_equicone"))
+        .args([
+            "stats",
+            "bench-circuits/examples/mux4_tree.bench",
+            "--support-time",
+            "0",
+        ])
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(3), "{}", out(&o));
+    assert!(out(&o).contains("gates as written: 11"), "{}", out(&o));
+    assert!(out(&o).contains("6 undecided)"), "{}", out(&o));
+    assert!(
+        out(&o).contains("  y       0+6?     11   0   11"),
+        "{}",
+        out(&o)
+    );
+}
+
 #[test]
 fn json_dot_and_expect_files() {
     let d = folder(&[

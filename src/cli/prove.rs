@@ -169,6 +169,14 @@ pub struct ProveArgs {
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
     select: Option<String>,
+    /// Clocked designs: cycles from reset searched for a difference when the register pairing
+    /// does not prove every output pair.
+    #[arg(long, value_name = "K", default_value_t = 20)]
+    cycles: usize,
+    /// Clocked designs: how registers without a reset start (`0` is the usual convention for
+    /// the ISCAS-89 circuits).
+    #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
+    init_unset: super::clocked::InitUnsetArg,
 }
 
 /// Options of `cnf`.
@@ -193,6 +201,9 @@ pub fn run(a: &ProveArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
+    if r.is_clocked() || c.is_clocked() {
+        return run_clocked(a, &r, &c, &deadline);
+    }
     let opts = ProveOptions {
         pair_by: a.pair.pair_by,
         free_extra_inputs: a.pair.free_extra_inputs,
@@ -256,6 +267,33 @@ pub fn run(a: &ProveArgs) -> Exit {
     }
 }
 
+/// `prove` on designs with registers.
+fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Limits) -> Exit {
+    let mut refused = Vec::new();
+    if !a.assume.is_empty() {
+        refused.push("--assume");
+    }
+    if a.proof.is_some() {
+        refused.push("--proof");
+    }
+    if a.pair.pair_by != PairBy::Name {
+        refused.push("--pair-by position");
+    }
+    super::clocked::run(
+        r,
+        c,
+        super::clocked::ClockedRun {
+            cycles: a.cycles,
+            init_unset: a.init_unset,
+            free_extra_inputs: a.pair.free_extra_inputs,
+            limits: crate::sat::Limits::new(deadline.remaining(), a.conflict_limit),
+            json: a.json,
+            report: a.report.as_deref(),
+            refused,
+        },
+    )
+}
+
 /// Run `cnf`: the miter (OR of the XORs of all output pairs) asserted true, so that the
 /// formula is unsatisfiable exactly when the designs are equivalent.
 pub fn run_cnf(a: &CnfArgs) -> Exit {
@@ -263,6 +301,10 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
+    if r.is_clocked() || c.is_clocked() {
+        eprintln!("error: cnf writes the miter of combinational designs, and {} has registers\n  help: use `prove` for clocked designs", if r.is_clocked() { &r.name } else { &c.name });
+        return Exit::BadInput;
+    }
     let shared = match engine::pair(&r, &c, a.pair.pair_by, a.pair.free_extra_inputs) {
         Ok(s) => s,
         Err(e) => return report_input_error(&e),

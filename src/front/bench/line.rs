@@ -12,6 +12,8 @@ pub(super) enum Stmt<'t> {
     Input(&'t str, usize),
     Output(&'t str, usize),
     Gate(&'t str, usize, CellKind),
+    /// `q = DFF(d)`: a D flip-flop on the one implicit clock (ISCAS-89); `d` is in the fan-in.
+    Dff(&'t str, usize),
 }
 
 /// The 1-based character column of byte offset `byte` of `line`.
@@ -148,7 +150,11 @@ pub(super) fn parse_line<'t>(
                     .with_help("for example `y = NAND(a, b)`")
             })?;
             let gpos = cur.pos_at(gat);
-            let kind = gate_kind(gname).ok_or_else(|| unknown_gate(gname, &gpos))?;
+            let dff = gname.eq_ignore_ascii_case("DFF");
+            let kind = match dff {
+                true => CellKind::Buf,
+                false => gate_kind(gname).ok_or_else(|| unknown_gate(gname, &gpos))?,
+            };
             cur.expect('(', "after the gate type")?;
             fanin.clear();
             if cur.peek() != Some(')') {
@@ -169,7 +175,10 @@ pub(super) fn parse_line<'t>(
             cur.expect(')', "to close the gate's input list")?;
             cur.expect_end()?;
             check_arity(kind, gname, fanin.len(), &gpos)?;
-            Ok(Stmt::Gate(first, first_at, kind))
+            Ok(match dff {
+                true => Stmt::Dff(first, first_at),
+                false => Stmt::Gate(first, first_at, kind),
+            })
         }
         Some(c) => Err(Diagnostic::error(
             Some(cur.pos()),
@@ -200,7 +209,7 @@ fn gate_kind(name: &str) -> Option<CellKind> {
 
 fn unknown_gate(name: &str, pos: &SourcePos) -> Diagnostic {
     let upper = name.to_ascii_uppercase();
-    if upper == "DFF" || upper == "LATCH" {
+    if upper == "LATCH" {
         Diagnostic::error(
             Some(pos.clone()),
             format!("unsupported: sequential element `{name}`"),

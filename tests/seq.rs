@@ -26,7 +26,10 @@ fn iscas89() -> Option<PathBuf> {
         return Some(p);
     }
     if std::env::var("EQUICONE_REQUIRE_SHARED").as_deref() == Ok("1") {
-        panic!("{} is required (EQUICONE_REQUIRE_SHARED=1) but missing", p.display());
+        panic!(
+            "{} is required (EQUICONE_REQUIRE_SHARED=1) but missing",
+            p.display()
+        );
     }
     eprintln!("SKIPPED: {} not found", p.display());
     None
@@ -46,9 +49,9 @@ fn rewrite(d: &Design, invert: impl Fn(usize) -> bool) -> Design {
     for (k, r) in d.registers.iter().enumerate() {
         flip[r.input] = invert(k);
     }
-    for k in 0..d.inputs.len() {
+    for &f in &flip {
         let l = g.add_input();
-        map.push(l.xor_complement(flip[k]));
+        map.push(l.xor_complement(f));
     }
     let mut roots: Vec<Lit> = d.outputs.iter().map(|o| o.lit).collect();
     roots.extend(d.registers.iter().map(|r| r.next));
@@ -86,18 +89,29 @@ fn iscas89_proved_equal_to_copies_with_renamed_and_inverted_registers() {
     for (name, dffs) in [("s27", 3), ("s298", 14)] {
         let text = std::fs::read_to_string(dir.join(format!("{name}.bench"))).unwrap();
         let d = read(name, &text);
-        assert_eq!(d.registers.len(), dffs, "{name}: flip-flops as SOURCE.md counts them");
+        assert_eq!(
+            d.registers.len(),
+            dffs,
+            "{name}: flip-flops as SOURCE.md counts them"
+        );
         let c = rewrite(&d, |k| k % 2 == 1);
-        let rep = seq::check(&d, &c, &options()).map_err(|e| format!("{e:?}")).unwrap();
+        let rep = seq::check(&d, &c, &options())
+            .map_err(|e| format!("{e:?}"))
+            .unwrap();
         assert_eq!(rep.verdict, "equivalent", "{name}:\n{rep}");
         // Every register that is not constant from reset is paired, inverted where rewritten so.
         for p in &rep.pairs {
-            let k: usize = p.candidate["state_".len()..p.candidate.len() - 1].parse().unwrap();
+            let k: usize = p.candidate["state_".len()..p.candidate.len() - 1]
+                .parse()
+                .unwrap();
             assert_eq!(p.inverted, (k - 100) % 2 == 1, "{name}: {p:?}");
             assert_eq!(p.found_by, "behaviour");
         }
         for u in &rep.unpaired {
-            assert!(u.note.starts_with("constant") || u.note.starts_with("duplicate"), "{name}: {u:?}");
+            assert!(
+                u.note.starts_with("constant") || u.note.starts_with("duplicate"),
+                "{name}: {u:?}"
+            );
         }
     }
 }
@@ -107,7 +121,13 @@ fn mutants(text: &str) -> Vec<String> {
     let lines: Vec<&str> = text.lines().collect();
     let mut out = Vec::new();
     for (i, l) in lines.iter().enumerate() {
-        let swaps = [("= AND(", "= OR("), ("= OR(", "= AND("), ("= NAND(", "= NOR("), ("= NOR(", "= NAND("), ("= NOT(", "= BUFF(")];
+        let swaps = [
+            ("= AND(", "= OR("),
+            ("= OR(", "= AND("),
+            ("= NAND(", "= NOR("),
+            ("= NOR(", "= NAND("),
+            ("= NOT(", "= BUFF("),
+        ];
         if let Some((a, b)) = swaps.iter().find(|(a, _)| l.contains(a)) {
             let mut m = lines.clone();
             let new = l.replace(a, b);
@@ -147,10 +167,21 @@ fn iscas89_mutants_differ_with_traces_the_oracle_replays() {
                     let ins = cycles_of(t);
                     let (a, b) = (reference.run(&ins), mutant.run(&ins));
                     let first = (0..ins.len()).find(|&k| a[k] != b[k]);
-                    assert_eq!(first, Some(fd.cycle), "{name}: the oracle's first difference");
+                    assert_eq!(
+                        first,
+                        Some(fd.cycle),
+                        "{name}: the oracle's first difference"
+                    );
                     for o in &fd.outputs {
-                        let j = reference.outputs.iter().position(|x| *x == o.reference).unwrap();
-                        assert_eq!((a[fd.cycle][j], b[fd.cycle][j]), (o.reference_value, o.candidate_value));
+                        let j = reference
+                            .outputs
+                            .iter()
+                            .position(|x| *x == o.reference)
+                            .unwrap();
+                        assert_eq!(
+                            (a[fd.cycle][j], b[fd.cycle][j]),
+                            (o.reference_value, o.candidate_value)
+                        );
                     }
                 }
                 "equivalent" => {
@@ -159,21 +190,32 @@ fn iscas89_mutants_differ_with_traces_the_oracle_replays() {
                     for _ in 0..64 {
                         let ins: Vec<BTreeMap<String, bool>> = (0..200)
                             .map(|_| {
-                                reference.inputs.iter().map(|i| {
-                                    x ^= x << 13;
-                                    x ^= x >> 7;
-                                    x ^= x << 17;
-                                    (i.clone(), x & 1 == 1)
-                                }).collect()
+                                reference
+                                    .inputs
+                                    .iter()
+                                    .map(|i| {
+                                        x ^= x << 13;
+                                        x ^= x >> 7;
+                                        x ^= x << 17;
+                                        (i.clone(), x & 1 == 1)
+                                    })
+                                    .collect()
                             })
                             .collect();
-                        assert_eq!(reference.run(&ins), mutant.run(&ins), "{name}: an equivalent mutant differs");
+                        assert_eq!(
+                            reference.run(&ins),
+                            mutant.run(&ins),
+                            "{name}: an equivalent mutant differs"
+                        );
                     }
                 }
                 v => panic!("{name}: verdict {v}:\n{rep}"),
             }
         }
-        assert!(different * 2 > total, "{name}: only {different} of {total} mutants differ");
+        assert!(
+            different * 2 > total,
+            "{name}: only {different} of {total} mutants differ"
+        );
     }
 }
 
@@ -190,7 +232,9 @@ fn icarus_replays_every_trace_to_the_same_first_difference() {
     for m in mutants(&text) {
         let c = read("mutant", &m);
         let rep = seq::check(&d, &c, &options()).unwrap();
-        let Some(t) = rep.trace.as_ref() else { continue };
+        let Some(t) = rep.trace.as_ref() else {
+            continue;
+        };
         let fd = t.first_difference.as_ref().unwrap();
         let mutant = oracle::parse(&m);
         // A testbench: both designs from reset (registers at 0), the trace's inputs applied each
@@ -203,12 +247,26 @@ fn icarus_replays_every_trace_to_the_same_first_difference() {
             tb += &format!("  reg {};\n", esc(i));
         }
         for o in &reference.outputs {
-            tb += &format!("  wire {}, {};\n", esc(&format!("r_{o}")), esc(&format!("c_{o}")));
+            tb += &format!(
+                "  wire {}, {};\n",
+                esc(&format!("r_{o}")),
+                esc(&format!("c_{o}"))
+            );
         }
         let conn = |p: &str| {
             let mut s: Vec<String> = vec![".clk(clk)".into()];
-            s.extend(reference.inputs.iter().map(|i| format!(".{}({})", esc(i), esc(i))));
-            s.extend(reference.outputs.iter().map(|o| format!(".{}({})", esc(o), esc(&format!("{p}_{o}")))));
+            s.extend(
+                reference
+                    .inputs
+                    .iter()
+                    .map(|i| format!(".{}({})", esc(i), esc(i))),
+            );
+            s.extend(
+                reference
+                    .outputs
+                    .iter()
+                    .map(|o| format!(".{}({})", esc(o), esc(&format!("{p}_{o}")))),
+            );
             s.join(", ")
         };
         tb += &format!("  ref_m r({});\n  cand_m c({});\n", conn("r"), conn("c"));
@@ -224,7 +282,15 @@ fn icarus_replays_every_trace_to_the_same_first_difference() {
                     esc(&format!("r_{o}")), esc(&format!("c_{o}")), cyc.cycle, o, esc(&format!("r_{o}")), esc(&format!("c_{o}"))
                 );
             }
-            tb += &format!("    if (found == 0 && ({})) found = 1;\n", reference.outputs.iter().map(|o| format!("{} !== {}", esc(&format!("r_{o}")), esc(&format!("c_{o}")))).collect::<Vec<_>>().join(" || "));
+            tb += &format!(
+                "    if (found == 0 && ({})) found = 1;\n",
+                reference
+                    .outputs
+                    .iter()
+                    .map(|o| format!("{} !== {}", esc(&format!("r_{o}")), esc(&format!("c_{o}"))))
+                    .collect::<Vec<_>>()
+                    .join(" || ")
+            );
             tb += "    clk = 1; #1; clk = 0; #1;\n";
         }
         tb += "  end\nendmodule\n";
@@ -232,9 +298,18 @@ fn icarus_replays_every_trace_to_the_same_first_difference() {
         let want: Vec<String> = fd
             .outputs
             .iter()
-            .map(|o| format!("cycle {} output {} {} {}", fd.cycle, o.reference, o.reference_value as u8, o.candidate_value as u8))
+            .map(|o| {
+                format!(
+                    "cycle {} output {} {} {}",
+                    fd.cycle, o.reference, o.reference_value as u8, o.candidate_value as u8
+                )
+            })
             .collect();
-        let got: Vec<String> = out.lines().map(|l| l.trim().to_string()).filter(|l| !l.is_empty()).collect();
+        let got: Vec<String> = out
+            .lines()
+            .map(|l| l.trim().to_string())
+            .filter(|l| !l.is_empty())
+            .collect();
         assert_eq!(got, want, "Icarus Verilog disagrees with the trace:\n{tb}");
         checked += 1;
     }
@@ -256,7 +331,13 @@ fn counter(rewrite: bool, wrap_at: u32) -> String {
         s += &format!("i{k} = XOR(q{k}, c{k})\n");
         s += &format!("c{} = AND(q{k}, c{k})\n", k + 1);
     }
-    let lit = |k: u32| if wrap_at >> k & 1 == 1 { format!("q{k}") } else { format!("nq{k}") };
+    let lit = |k: u32| {
+        if wrap_at >> k & 1 == 1 {
+            format!("q{k}")
+        } else {
+            format!("nq{k}")
+        }
+    };
     if rewrite {
         // q >= 9: q3 & (q2 | q1 | q0)
         s += "any = OR(q2, q1, q0)\nw = AND(q3, any)\n";
@@ -276,18 +357,20 @@ fn counter_mod_10_differing_only_in_unreachable_states_is_never_different() {
     let c = read("cand", &counter(true, 9));
     // The counter starts at 0 (the convention for registers without a reset). With free initial
     // values instead, states 10..15 are possible starting states and `different` is right.
-    for init in [InitUnset::Value(false)] {
-        let o = SeqOptions {
-            init_unset: init,
-            cycles: 30,
-            ..SeqOptions::default()
-        };
-        let rep = seq::check(&r, &c, &o).unwrap();
-        assert_ne!(rep.verdict, "different", "{rep}");
-        if rep.verdict == "undecided" {
-            assert_eq!(rep.cycles_checked, 30, "{rep}");
-            assert!(rep.to_string().contains("no difference in the first 30 cycles"), "{rep}");
-        }
+    let o = SeqOptions {
+        init_unset: InitUnset::Value(false),
+        cycles: 30,
+        ..SeqOptions::default()
+    };
+    let rep = seq::check(&r, &c, &o).unwrap();
+    assert_ne!(rep.verdict, "different", "{rep}");
+    if rep.verdict == "undecided" {
+        assert_eq!(rep.cycles_checked, 30, "{rep}");
+        assert!(
+            rep.to_string()
+                .contains("no difference in the first 30 cycles"),
+            "{rep}"
+        );
     }
     // A real bug (wrapping at 8) is found, first on the ninth enabled cycle.
     let bug = read("bug", &counter(false, 8));
@@ -305,7 +388,80 @@ fn a_design_against_itself_with_free_initial_values_is_equivalent() {
     let r = read("ref", &counter(false, 9));
     let rep = seq::check(&r, &r.clone(), &SeqOptions::default()).unwrap();
     assert_eq!(rep.verdict, "equivalent", "{rep}");
-    assert!(rep.pairs.iter().all(|p| p.found_by == "name" && !p.inverted));
-    assert!(r.inputs.iter().filter(|b| matches!(b.kind, InputKind::Register)).count() == 4);
+    assert!(rep
+        .pairs
+        .iter()
+        .all(|p| p.found_by == "name" && !p.inverted));
+    assert!(
+        r.inputs
+            .iter()
+            .filter(|b| matches!(b.kind, InputKind::Register))
+            .count()
+            == 4
+    );
     let _ = Side::Both;
+}
+
+#[test]
+fn cli_prove_gives_a_trace_that_eval_replays() {
+    let dir = tempfile::tempdir().unwrap();
+    let r = dir.path().join("ref.bench");
+    let c = dir.path().join("bug.bench");
+    std::fs::write(&r, counter(false, 9)).unwrap();
+    std::fs::write(&c, counter(false, 8)).unwrap();
+    let bin = env!("CARGO_BIN_EXE_equicone");
+    let rep = dir.path().join("rep.json");
+    let out = std::process::Command::new(bin)
+        .args(["prove", "--init-unset", "0", "--json", "--report"])
+        .arg(&rep)
+        .arg(&r)
+        .arg(&c)
+        .output()
+        .unwrap();
+    assert_eq!(
+        out.status.code(),
+        Some(1),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    assert_eq!(v["verdict"], "different");
+    let cycles = v["trace"]["cycles"].as_array().unwrap();
+    assert_eq!(cycles.len(), 10);
+    assert!(cycles.iter().all(|c| c["inputs"][0]["name"] == "en"));
+    assert_eq!(v["trace"]["first_difference"]["cycle"], 9);
+    // Text: one row per cycle, the first difference marked.
+    let text = std::process::Command::new(bin)
+        .args(["prove", "--init-unset", "0"])
+        .arg(&r)
+        .arg(&c)
+        .output()
+        .unwrap();
+    let text = String::from_utf8_lossy(&text.stdout);
+    assert!(text.contains("<- first difference"), "{text}");
+    assert!(text.contains("verdict: different"), "{text}");
+    // eval steps each design through the trace: they part in cycle 9.
+    let run = |design: &PathBuf, side: &str| {
+        let o = std::process::Command::new(bin)
+            .args(["eval", "--json", "--side", side, "--trace"])
+            .arg(&rep)
+            .arg(design)
+            .output()
+            .unwrap();
+        assert_eq!(
+            o.status.code(),
+            Some(0),
+            "{}",
+            String::from_utf8_lossy(&o.stderr)
+        );
+        let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+        v["cycles"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .map(|c| c["outputs"].clone())
+            .collect::<Vec<_>>()
+    };
+    let (a, b) = (run(&r, "reference"), run(&c, "candidate"));
+    assert_eq!((0..10).find(|&k| a[k] != b[k]), Some(9));
 }

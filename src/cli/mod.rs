@@ -9,6 +9,7 @@ mod common;
 mod cone;
 mod demo;
 mod eval;
+mod eval_trace;
 mod gen;
 mod prove;
 mod routes;

@@ -283,7 +283,9 @@ fn check_definitions(file: &Arc<str>, text: &str, p: &Parsed<'_>) -> Result<(), 
         let mut fanin = Vec::new();
         for (ln, raw) in text.lines().enumerate() {
             let line = raw.split('#').next().unwrap_or("");
-            if let Ok(Stmt::Gate(..) | Stmt::Dff(..)) = parse_line(file, ln as u32 + 1, line, &mut fanin) {
+            if let Ok(Stmt::Gate(..) | Stmt::Dff(..)) =
+                parse_line(file, ln as u32 + 1, line, &mut fanin)
+            {
                 for &(a, at) in &fanin {
                     if def[p.ids[a] as usize].is_none() {
                         errors.push(undefined(

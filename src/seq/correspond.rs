@@ -89,7 +89,6 @@ impl Classes {
             }
         });
     }
-
 }
 
 /// The next-state literal of a group member.
@@ -97,7 +96,9 @@ pub fn next_of(p: &Product, at: &BTreeMap<u32, usize>, m: Lit) -> Lit {
     if m.is_const() {
         return m;
     }
-    p.state[at[&m.node()]].next.xor_complement(m.is_complemented())
+    p.state[at[&m.node()]]
+        .next
+        .xor_complement(m.is_complemented())
 }
 
 /// A solver over one copy of the product with every group asserted on the current state.

@@ -150,7 +150,8 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
         let fd = t.first_difference.as_ref().expect("confirmed");
         for d in &fd.outputs {
             if let Some(k) = p.outputs.iter().position(|op| {
-                r.outputs[op.reference].name == d.reference && c.outputs[op.candidate].name == d.candidate
+                r.outputs[op.reference].name == d.reference
+                    && c.outputs[op.candidate].name == d.candidate
             }) {
                 status[k] = OutputStatus::Different;
             }
@@ -158,7 +159,10 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     }
     let verdict = if trace.is_some() {
         Verdict::Different
-    } else if status.iter().all(|s| matches!(s, OutputStatus::Equivalent(_))) {
+    } else if status
+        .iter()
+        .all(|s| matches!(s, OutputStatus::Equivalent(_)))
+    {
         Verdict::Equivalent
     } else {
         Verdict::Undecided
@@ -252,7 +256,11 @@ fn confirm(
 ) -> Result<Trace, SeqError> {
     let rr = replay(r, Side::Reference, &t).map_err(SeqError::Internal)?;
     let cr = replay(c, Side::Candidate, &t).map_err(SeqError::Internal)?;
-    let pairs: Vec<(usize, usize)> = p.outputs.iter().map(|o| (o.reference, o.candidate)).collect();
+    let pairs: Vec<(usize, usize)> = p
+        .outputs
+        .iter()
+        .map(|o| (o.reference, o.candidate))
+        .collect();
     match first_difference(r, c, &pairs, &rr, &cr) {
         Some(fd) if fd.cycle == cycle => {
             t.first_difference = Some(fd);

@@ -128,7 +128,11 @@ fn held_inputs(d: &Design) -> BTreeMap<usize, (bool, &'static str)> {
             held.insert(reset.input, (!reset.active, "reset"));
         }
     }
-    let clocks: BTreeSet<&str> = d.registers.iter().filter_map(|r| r.clock.as_deref()).collect();
+    let clocks: BTreeSet<&str> = d
+        .registers
+        .iter()
+        .filter_map(|r| r.clock.as_deref())
+        .collect();
     for (k, b) in d.inputs.iter().enumerate() {
         if matches!(b.kind, InputKind::Port) && clocks.contains(b.name.as_str()) {
             held.entry(k).or_insert((false, "clock"));
@@ -219,7 +223,11 @@ impl Product {
                         if let Some(j) = other {
                             map_c[j] = Lit::constant(v);
                         }
-                        let side = if other.is_some() { Side::Both } else { Side::Reference };
+                        let side = if other.is_some() {
+                            Side::Both
+                        } else {
+                            Side::Reference
+                        };
                         held.push(HeldInput {
                             name: b.name.clone(),
                             side,
@@ -239,7 +247,11 @@ impl Product {
                     }
                     free.push(FreeInput {
                         name: b.name.clone(),
-                        side: if other.is_some() { Side::Both } else { Side::Reference },
+                        side: if other.is_some() {
+                            Side::Both
+                        } else {
+                            Side::Reference
+                        },
                     });
                 }
             }
@@ -280,8 +292,13 @@ impl Product {
                 parts.push(format!("only the candidate has {}", only_c.join(", ")));
             }
             return Err(InputError::one(
-                Diagnostic::error(None, format!("input bits without a partner: {}", parts.join("; ")))
-                    .with_help("rename the ports to match, or pass --free-extra-inputs to leave them free"),
+                Diagnostic::error(
+                    None,
+                    format!("input bits without a partner: {}", parts.join("; ")),
+                )
+                .with_help(
+                    "rename the ports to match, or pass --free-extra-inputs to leave them free",
+                ),
             ));
         }
         // State bits: reference registers, then candidate registers.
@@ -387,5 +404,4 @@ impl Product {
             held,
         })
     }
-
 }

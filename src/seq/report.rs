@@ -161,7 +161,11 @@ pub fn name_matches(
                 )),
                 _ => None,
             };
-            out.push(NameMatch { r: j, c: k, sim: ev });
+            out.push(NameMatch {
+                r: j,
+                c: k,
+                sim: ev,
+            });
         }
     }
     out
@@ -216,8 +220,12 @@ pub fn build(x: Parts<'_>) -> SeqReport {
             }
             continue;
         }
-        let first_r = refs.iter().find(|(k, _)| p.state[*k].side == Side::Reference);
-        let first_c = refs.iter().find(|(k, _)| p.state[*k].side == Side::Candidate);
+        let first_r = refs
+            .iter()
+            .find(|(k, _)| p.state[*k].side == Side::Reference);
+        let first_c = refs
+            .iter()
+            .find(|(k, _)| p.state[*k].side == Side::Candidate);
         for &(k, inv) in &refs {
             let s = &p.state[k];
             match (s.side, first_r, first_c) {
@@ -251,7 +259,12 @@ pub fn build(x: Parts<'_>) -> SeqReport {
         .filter(|(_, s)| s.side == Side::Reference)
         .map(|(k, s)| (s.name.as_str(), k))
         .collect();
-    pairs.sort_by_key(|x: &RegisterPair| (order.get(x.reference.as_str()).copied(), x.candidate.clone()));
+    pairs.sort_by_key(|x: &RegisterPair| {
+        (
+            order.get(x.reference.as_str()).copied(),
+            x.candidate.clone(),
+        )
+    });
     let unpaired = p
         .state
         .iter()
@@ -260,22 +273,25 @@ pub fn build(x: Parts<'_>) -> SeqReport {
             let paired = group_of.get(k).is_some_and(|&g| {
                 let grp = &x.classes.groups[g];
                 !grp[0].is_const()
-                    && grp.iter().any(|m| {
-                        !m.is_const() && p.state[at[&m.node()]].side != s.side
-                    })
+                    && grp
+                        .iter()
+                        .any(|m| !m.is_const() && p.state[at[&m.node()]].side != s.side)
             });
             !paired
         })
         .map(|(k, s)| UnpairedRegister {
             side: s.side,
             register: s.name.clone(),
-            note: note.get(&k).cloned().unwrap_or_else(|| "no partner".to_string()),
+            note: note
+                .get(&k)
+                .cloned()
+                .unwrap_or_else(|| "no partner".to_string()),
         })
         .collect();
     let name_mismatches = x
         .name_checks
         .iter()
-        .filter(|m| group_of.get(&m.r).is_none() || group_of.get(&m.r) != group_of.get(&m.c))
+        .filter(|m| !group_of.contains_key(&m.r) || group_of.get(&m.r) != group_of.get(&m.c))
         .map(|m| NameMismatch {
             reference: p.state[m.r].name.clone(),
             candidate: p.state[m.c].name.clone(),
@@ -285,7 +301,8 @@ pub fn build(x: Parts<'_>) -> SeqReport {
                 {
                     "their initial values may differ".to_string()
                 } else {
-                    "equal in simulation, but an induction counterexample separated them".to_string()
+                    "equal in simulation, but an induction counterexample separated them"
+                        .to_string()
                 }
             }),
         })

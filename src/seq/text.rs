@@ -12,9 +12,12 @@ use std::fmt::{self, Write};
 /// Column key of an input bit: (bus, side).
 type Column = (String, Side);
 
+/// A column and its bits: (bit index, position in the cycle's inputs), by index.
+type Bits = (Column, Vec<(Option<i64>, usize)>);
+
 /// The columns of a trace's inputs, in first-appearance order, with each bit's (index, position).
-fn columns(t: &Trace) -> Vec<(Column, Vec<(Option<i64>, usize)>)> {
-    let mut cols: Vec<(Column, Vec<(Option<i64>, usize)>)> = Vec::new();
+fn columns(t: &Trace) -> Vec<Bits> {
+    let mut cols: Vec<Bits> = Vec::new();
     if let Some(c0) = t.cycles.first() {
         let mut at: BTreeMap<Column, usize> = BTreeMap::new();
         for (k, i) in c0.inputs.iter().enumerate() {
@@ -93,7 +96,12 @@ pub fn trace_table(t: &Trace, outputs: &[Vec<(bool, bool)>]) -> String {
     }
     let ncol = rows[0].len();
     let width: Vec<usize> = (0..ncol)
-        .map(|j| rows.iter().map(|r| r.get(j).map_or(0, |x| x.len())).max().unwrap_or(0))
+        .map(|j| {
+            rows.iter()
+                .map(|r| r.get(j).map_or(0, |x| x.len()))
+                .max()
+                .unwrap_or(0)
+        })
         .collect();
     for (ri, r) in rows.iter().enumerate() {
         let mut line = String::from("  ");
@@ -127,7 +135,8 @@ impl fmt::Display for SeqReport {
         }
         if !self.without_reset.is_empty() {
             let how = match self.init_unset.as_str() {
-                "free" => "start at free values (a register and its same-named partner share one)".to_string(),
+                "free" => "start at free values (a register and its same-named partner share one)"
+                    .to_string(),
                 v => format!("start at {v} (--init-unset {v})"),
             };
             writeln!(
@@ -137,8 +146,17 @@ impl fmt::Display for SeqReport {
                 self.without_reset.join(", ")
             )?;
         }
-        writeln!(f, "register pairs ({}), inductive from reset:", self.pairs.len())?;
-        let w = self.pairs.iter().map(|p| p.reference.len()).max().unwrap_or(0);
+        writeln!(
+            f,
+            "register pairs ({}), inductive from reset:",
+            self.pairs.len()
+        )?;
+        let w = self
+            .pairs
+            .iter()
+            .map(|p| p.reference.len())
+            .max()
+            .unwrap_or(0);
         for p in &self.pairs {
             let inv = if p.inverted { "!" } else { "" };
             let how = if p.inverted {

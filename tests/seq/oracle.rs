@@ -39,7 +39,10 @@ pub fn parse(text: &str) -> SeqNet {
         } else {
             let (lhs, rhs) = line.split_once('=').unwrap();
             let kind = rhs[..rhs.find('(').unwrap()].trim().to_ascii_uppercase();
-            let args: Vec<String> = inner(rhs).split(',').map(|s| s.trim().to_string()).collect();
+            let args: Vec<String> = inner(rhs)
+                .split(',')
+                .map(|s| s.trim().to_string())
+                .collect();
             if kind == "DFF" {
                 n.dffs.push((lhs.trim().to_string(), args[0].clone()));
             } else {
@@ -120,7 +123,10 @@ impl SeqNet {
         let declared: Vec<&String> = self.inputs.iter().chain(&self.outputs).collect();
         for (q, d) in &self.dffs {
             let r = id(&format!("{q}$ff"));
-            s += &format!("  reg {r} = 1'b0;\n  always @(posedge clk) {r} <= {};\n", id(d));
+            s += &format!(
+                "  reg {r} = 1'b0;\n  always @(posedge clk) {r} <= {};\n",
+                id(d)
+            );
             if !declared.contains(&q) {
                 s += &format!("  wire {};\n", id(q));
             }

@@ -174,6 +174,16 @@ pub(super) fn parse_line<'t>(
             }
             cur.expect(')', "to close the gate's input list")?;
             cur.expect_end()?;
+            if dff && fanin.len() != 1 {
+                return Err(Diagnostic::error(
+                    Some(gpos),
+                    format!(
+                        "flip-flop `{gname}` has {} inputs but needs exactly 1",
+                        fanin.len()
+                    ),
+                )
+                .with_help("a D flip-flop takes its data signal, e.g. `q = DFF(d)`"));
+            }
             check_arity(kind, gname, fanin.len(), &gpos)?;
             Ok(match dff {
                 true => Stmt::Dff(first, first_at),
@@ -214,7 +224,7 @@ fn unknown_gate(name: &str, pos: &SourcePos) -> Diagnostic {
             Some(pos.clone()),
             format!("unsupported: sequential element `{name}`"),
         )
-        .with_help("equicone checks combinational logic; cut the design at its flip-flops and check the logic between them")
+        .with_help("equicone reads edge-triggered flip-flops (`q = DFF(d)`) but not level-sensitive latches; replace the latch with a DFF or cut the design there")
     } else {
         Diagnostic::error(Some(pos.clone()), format!("unknown gate type `{name}`"))
             .with_help("known gates: AND NAND OR NOR XOR XNOR NOT BUF BUFF (any case)")

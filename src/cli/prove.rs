@@ -93,6 +93,9 @@ pub struct PairArgs {
     /// Leave input bits that exist on one side only free (the verdict then covers all their values).
     #[arg(long)]
     pub free_extra_inputs: bool,
+    /// Include directories and macros for the Verilog preprocessor (both designs).
+    #[command(flatten)]
+    pub pre: super::common::PreprocArgs,
 }
 
 impl PairArgs {
@@ -109,6 +112,7 @@ impl PairArgs {
             paths,
             format: format.map(Format::from),
             top,
+            preprocess: self.pre.options(),
         };
         let rs = source(rp, self.ref_format.or(self.format), self.ref_top.clone());
         let cs = source(cp, self.cand_format.or(self.format), self.cand_top.clone());

@@ -25,6 +25,7 @@ pub mod report;
 pub mod rng;
 pub mod routes;
 pub mod sat;
+pub mod seq;
 
 pub use aig::{Aig, Lit};
 pub use design::{Design, Format, InputBit, OutputBit};

@@ -74,7 +74,7 @@ fn exit_codes_0_1_2_3() {
 /// than the proved inputs give.
 #[test]
 fn stats_support_time_bounds_the_supports() {
-    let o = Command::new(env!("CARGO_BIN_EXE_equicone"))
+    let o = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
         .args([
             "stats",
             "bench-circuits/examples/mux4_tree.bench",

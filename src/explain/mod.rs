@@ -1,0 +1,15 @@
+//! Explaining a difference and replaying it where designers look: difference cubes
+//! ([`cubes`]), Value Change Dumps ([`vcd`]) and self-checking Verilog testbenches
+//! ([`testbench`]).
+
+pub mod cubes;
+pub mod ternary;
+pub mod explanation;
+pub mod notation;
+
+pub use explanation::{explain, explanation_text, Explanation};
+pub mod nets;
+pub mod vcd;
+pub mod waves;
+pub mod testbench;
+pub mod verilog_out;

@@ -10,6 +10,7 @@ mod demo;
 mod eval;
 mod gen;
 mod prove;
+mod replay;
 mod routes;
 
 use clap::{Parser, Subcommand};

@@ -169,6 +169,8 @@ pub struct ProveArgs {
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
     select: Option<String>,
+    #[command(flatten)]
+    replay: super::replay::ReplayArgs,
 }
 
 /// Options of `cnf`.
@@ -211,7 +213,7 @@ pub fn run(a: &ProveArgs) -> Exit {
     if let Err(e) = crate::assume::apply_to_shared(&mut shared, &r, &a.assume) {
         return report_input_error(&e);
     }
-    let kept = a.proof.as_ref().map(|_| shared.clone());
+    let kept = (a.proof.is_some() || a.replay.wanted()).then(|| shared.clone());
     let mut rep = match engine::prove_shared(&r, &c, shared, &a.assume, &opts) {
         Ok(rep) => rep,
         Err(ProveError::Input(e)) => return report_input_error(&e),
@@ -238,6 +240,17 @@ pub fn run(a: &ProveArgs) -> Exit {
             return code;
         }
     }
+    if let Some(shared) = &kept {
+        let mut rf = vec![a.pair.reference.clone()];
+        rf.extend(a.pair.ref_also.iter().cloned());
+        let mut cf = vec![a.pair.candidate.clone()];
+        cf.extend(a.pair.cand_also.iter().cloned());
+        let limits = crate::sat::Limits::new(deadline.remaining(), a.conflict_limit);
+        let files = (&rf[..], &cf[..]);
+        if let Err(code) = super::replay::after_prove(&a.replay, &r, &c, files, shared, &mut rep, a.seed, &limits) {
+            return code;
+        }
+    }
     let json = report::to_json(&rep);
     if let Some(path) = &a.report {
         if let Err(e) = write_atomic(path, json.as_bytes()) {
@@ -247,7 +260,11 @@ pub fn run(a: &ProveArgs) -> Exit {
     print(&if a.json {
         json
     } else {
-        report::prove_text(&rep)
+        let mut t = report::prove_text(&rep);
+        if let Some(e) = &rep.explanation {
+            t += &crate::explain::explanation_text(e);
+        }
+        t
     });
     match rep.verdict {
         Verdict::Equivalent => Exit::Ok,

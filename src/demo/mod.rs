@@ -48,6 +48,7 @@ fn prove(r: &Design, c: &Design) -> Result<ProveReport, String> {
     let assume = vec![ASSUME.to_string()];
     let mut shared = engine::pair(r, c, opts.pair_by, false).map_err(|e| e.to_string())?;
     crate::assume::apply_to_shared(&mut shared, r, &assume).map_err(|e| e.to_string())?;
+    let kept = shared.clone();
     let mut rep = engine::prove_shared(r, c, shared, &assume, &opts).map_err(|e| match e {
         engine::ProveError::Input(e) => e.to_string(),
         engine::ProveError::Internal(m) => m,
@@ -55,6 +56,18 @@ fn prove(r: &Design, c: &Design) -> Result<ProveReport, String> {
     let (r2, rc) = crate::assume::on_design(r, &assume).map_err(|e| e.to_string())?;
     let (c2, cc) = crate::assume::on_design(c, &assume).map_err(|e| e.to_string())?;
     rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, Some("sel"), (rc, cc), &Limits::none());
+    if rep.verdict == engine::Verdict::Different {
+        let cl = crate::explain::cubes::CubeLimits::default();
+        rep.explanation = Some(crate::explain::explain(
+            &kept,
+            r,
+            c,
+            &rep,
+            &cl,
+            crate::explain::MAX_PAIRS,
+            &Limits::none(),
+        ));
+    }
     Ok(rep)
 }
 
@@ -72,7 +85,11 @@ pub fn run() -> Result<String, String> {
     s += "\n== 1. Revision r2 (2:1 tree + decoder AND-OR) against the spec\n";
     s += &report::prove_text(&prove(&spec, &r2)?);
     s += "\n== 2. Revision r3 against the spec\n";
-    s += &report::prove_text(&prove(&spec, &r3)?);
+    let bad = prove(&spec, &r3)?;
+    s += &report::prove_text(&bad);
+    if let Some(e) = &bad.explanation {
+        s += &crate::explain::explanation_text(e);
+    }
     s += "\n== 3. Cone audit of r2: what really reaches each output\n";
     let limits = Limits::none();
     let audit = cone::audit(

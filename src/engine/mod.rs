@@ -377,6 +377,7 @@ pub fn prove_shared(
         scope: SCOPE,
         unknowns: unknowns::sources(r, c),
         diagnosis: None,
+        explanation: None,
     })
 }
 

@@ -183,6 +183,9 @@ pub struct ProveReport {
     /// Route tables of differing selector-like outputs (filled by the caller).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub diagnosis: Option<crate::diagnose::Diagnosis>,
+    /// Difference cubes of the differing output pairs (`--explain`; filled by the caller).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub explanation: Option<crate::explain::Explanation>,
 }
 
 /// What a proof covers, for every report.

@@ -80,7 +80,7 @@ pub fn explain(
                     .collect()
             })
             .collect();
-        let terms = merge_pairs(&cov.cubes)
+        let terms = merge_pairs(&cov.cubes, &names)
             .iter()
             .map(|t| term_text(t, &names))
             .collect();

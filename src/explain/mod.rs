@@ -13,3 +13,6 @@ pub mod vcd;
 pub mod waves;
 pub mod testbench;
 pub mod verilog_out;
+
+/// Differing output pairs explained by default (the rest are counted as skipped).
+pub const MAX_PAIRS: usize = 32;

@@ -18,8 +18,10 @@ pub struct Term {
 }
 
 /// Merge cubes that differ only in two inputs with both values flipped into relation terms;
-/// other cubes stay as they are. Order: by the first cube of each term.
-pub fn merge_pairs(cubes: &[Cube]) -> Vec<Term> {
+/// other cubes stay as they are. Among several partners a cube prefers the one that leaves
+/// the most buses fully fixed (shown by value), then two inputs of different buses. `names[k]`
+/// is shared input k's bit name. Order: by the first cube of each term.
+pub fn merge_pairs(cubes: &[Cube], names: &[String]) -> Vec<Term> {
     let mut used = vec![false; cubes.len()];
     let mut out = Vec::new();
     for i in 0..cubes.len() {
@@ -28,10 +30,7 @@ pub fn merge_pairs(cubes: &[Cube]) -> Vec<Term> {
         }
         used[i] = true;
         let a = &cubes[i];
-        let mut term = Term {
-            fixed: a.lits.clone(),
-            relation: None,
-        };
+        let mut best: Option<(usize, usize, Term)> = None;
         for j in i + 1..cubes.len() {
             let b = &cubes[j];
             if used[j] || b.lits.len() != a.lits.len() {
@@ -44,22 +43,68 @@ pub fn merge_pairs(cubes: &[Cube]) -> Vec<Term> {
                 .filter(|&t| a.lits[t].1 != b.lits[t].1)
                 .collect();
             if let [p, q] = flipped[..] {
-                used[j] = true;
                 let (x, y) = (a.lits[p], a.lits[q]);
-                term.fixed = a
+                let fixed: Vec<(usize, bool)> = a
                     .lits
                     .iter()
                     .enumerate()
                     .filter(|&(t, _)| t != p && t != q)
                     .map(|(_, &l)| l)
                     .collect();
-                term.relation = Some((x.0, y.0, x.1 == y.1));
-                break;
+                let whole = whole_buses(&fixed, names);
+                let apart = split_bit(&names[x.0]).0 != split_bit(&names[y.0]).0;
+                let score = whole * 2 + apart as usize;
+                if best.as_ref().is_none_or(|b| score > b.0) {
+                    let term = Term {
+                        fixed,
+                        relation: Some((x.0, y.0, x.1 == y.1)),
+                    };
+                    best = Some((score, j, term));
+                }
             }
         }
-        out.push(term);
+        match best {
+            Some((_, j, term)) => {
+                used[j] = true;
+                out.push(term);
+            }
+            None => out.push(Term {
+                fixed: a.lits.clone(),
+                relation: None,
+            }),
+        }
     }
     out
+}
+
+/// How many buses (of more than one bit) have every bit in `fixed`.
+fn whole_buses(fixed: &[(usize, bool)], names: &[String]) -> usize {
+    let mut ports: Vec<&str> = fixed
+        .iter()
+        .filter_map(|&(k, _)| {
+            let (p, i) = split_bit(&names[k]);
+            i.map(|_| p)
+        })
+        .collect();
+    ports.sort_unstable();
+    ports.dedup();
+    ports
+        .into_iter()
+        .filter(|p| {
+            let width = names
+                .iter()
+                .filter(|n| {
+                    let (q, i) = split_bit(n);
+                    q == *p && i.is_some()
+                })
+                .count();
+            let have = fixed
+                .iter()
+                .filter(|&&(k, _)| split_bit(&names[k]).0 == *p)
+                .count();
+            width > 1 && have == width
+        })
+        .count()
 }
 
 /// The text of one term; `names[k]` is shared input k's bit name.
@@ -139,7 +184,7 @@ mod tests {
                 lits: vec![(1, true), (4, true)],
             },
         ];
-        let terms = merge_pairs(&cubes);
+        let terms = merge_pairs(&cubes, &names);
         assert_eq!(terms.len(), 2);
         assert_eq!(term_text(&terms[0], &names), "s=1, a!=b");
         assert_eq!(term_text(&terms[1], &names), "s[1]=1, c=1");

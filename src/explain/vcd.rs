@@ -6,7 +6,8 @@
 
 use std::fmt::Write;
 
-/// One variable: a scalar, or a vector whose bits are listed most significant first.
+/// One variable: a scalar (one bit, possibly a bit of a bus: `d [3]`), or a vector whose
+/// bits are listed most significant first. One-bit variables change as scalars (`1!`).
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub struct VcdVar {
     /// The reference name (no white space).
@@ -52,7 +53,7 @@ fn bit_char(b: Option<bool>) -> char {
 }
 
 fn value_change(s: &mut String, var: &VcdVar, id: &str, v: &[Option<bool>]) {
-    if var.range.is_none() && var.width == 1 {
+    if var.width == 1 {
         let _ = writeln!(s, "{}{id}", bit_char(v[0]));
     } else {
         let bits: String = v.iter().map(|&b| bit_char(b)).collect();
@@ -77,6 +78,7 @@ pub fn write_vcd(comment: &str, scopes: &[VcdScope], steps: &[Vec<Bits>]) -> Str
         for v in &sc.vars {
             let id = code(vars.len());
             let range = match v.range {
+                Some((m, l)) if m == l && v.width == 1 => format!(" [{m}]"),
                 Some((m, l)) => format!(" [{m}:{l}]"),
                 None => String::new(),
             };

@@ -247,7 +247,9 @@ pub fn run(a: &ProveArgs) -> Exit {
         cf.extend(a.pair.cand_also.iter().cloned());
         let limits = crate::sat::Limits::new(deadline.remaining(), a.conflict_limit);
         let files = (&rf[..], &cf[..]);
-        if let Err(code) = super::replay::after_prove(&a.replay, &r, &c, files, shared, &mut rep, a.seed, &limits) {
+        if let Err(code) =
+            super::replay::after_prove(&a.replay, &r, &c, files, shared, &mut rep, a.seed, &limits)
+        {
             return code;
         }
     }

@@ -55,7 +55,11 @@ fn random_vectors(shared: &Shared, n: usize, seed: u64) -> Vec<Vec<bool>> {
             break;
         }
         if t.lit_bit(shared.constraint, p) {
-            out.push((0..ni).map(|k| (pats[k][p / 64] >> (p % 64)) & 1 == 1).collect());
+            out.push(
+                (0..ni)
+                    .map(|k| (pats[k][p / 64] >> (p % 64)) & 1 == 1)
+                    .collect(),
+            );
         }
     }
     out
@@ -93,12 +97,17 @@ pub fn after_prove(
         if rep.counterexamples.is_empty() {
             eprintln!("vcd: not written, there is no counterexample");
         } else {
-            let text = explain::waves::counterexample_vcd(r, c, shared, &rep.counterexamples, a.vcd_nets);
+            let text =
+                explain::waves::counterexample_vcd(r, c, shared, &rep.counterexamples, a.vcd_nets);
             write_atomic(path, text.as_bytes()).map_err(|e| report_input_error(&e))?;
             eprintln!(
                 "vcd: {path} ({} vector{})",
                 rep.counterexamples.len(),
-                if rep.counterexamples.len() == 1 { "" } else { "s" }
+                if rep.counterexamples.len() == 1 {
+                    ""
+                } else {
+                    "s"
+                }
             );
         }
     }

@@ -157,7 +157,9 @@ impl<'a> Enumerator<'a> {
                     SatResult::Sat => {
                         let mut v = vec![false; n];
                         for &k in &self.cone.inputs {
-                            let l = self.find_map.lit(&self.aig, &mut self.find, self.aig.input_lit(k));
+                            let l =
+                                self.find_map
+                                    .lit(&self.aig, &mut self.find, self.aig.input_lit(k));
                             v[k] = self.find.value(l);
                         }
                         v
@@ -169,7 +171,9 @@ impl<'a> Enumerator<'a> {
                 .lits
                 .iter()
                 .map(|&(k, b)| {
-                    let l = self.find_map.lit(&self.aig, &mut self.find, self.aig.input_lit(k));
+                    let l = self
+                        .find_map
+                        .lit(&self.aig, &mut self.find, self.aig.input_lit(k));
                     if b {
                         !l
                     } else {
@@ -211,9 +215,9 @@ impl<'a> Enumerator<'a> {
             .map(|c| c.lits.iter().filter(|&&(k, b)| cur[k] == Some(!b)).count())
             .collect();
         let may_drop = |k: usize, cur: &[Option<bool>], conflicts: &[usize]| {
-            prev.iter().zip(conflicts).all(|(c, &n)| {
-                n > 1 || !c.lits.iter().any(|&(j, b)| j == k && cur[k] == Some(!b))
-            })
+            prev.iter()
+                .zip(conflicts)
+                .all(|(c, &n)| n > 1 || !c.lits.iter().any(|&(j, b)| j == k && cur[k] == Some(!b)))
         };
         let drop = |k: usize, cur: &mut [Option<bool>], conflicts: &mut [usize]| {
             for (c, n) in prev.iter().zip(conflicts.iter_mut()) {
@@ -286,10 +290,7 @@ impl<'a> Enumerator<'a> {
             }
         }
         Cube {
-            lits: ins
-                .iter()
-                .filter_map(|&k| cur[k].map(|b| (k, b)))
-                .collect(),
+            lits: ins.iter().filter_map(|&k| cur[k].map(|b| (k, b))).collect(),
         }
     }
 }

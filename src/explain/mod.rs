@@ -3,16 +3,16 @@
 //! ([`testbench`]).
 
 pub mod cubes;
-pub mod ternary;
 pub mod explanation;
 pub mod notation;
+pub mod ternary;
 
 pub use explanation::{explain, explanation_text, Explanation};
 pub mod nets;
-pub mod vcd;
-pub mod waves;
 pub mod testbench;
+pub mod vcd;
 pub mod verilog_out;
+pub mod waves;
 
 /// Differing output pairs explained by default (the rest are counted as skipped).
 pub const MAX_PAIRS: usize = 32;

@@ -152,7 +152,9 @@ pub fn testbench(
         if run.is_empty() { "" } else { " " },
         run.join(" ")
     );
-    s.push_str("// One line per vector: `pass` when every output pair is equal (!==), else FAIL.\n");
+    s.push_str(
+        "// One line per vector: `pass` when every output pair is equal (!==), else FAIL.\n",
+    );
     if rd.inputs.iter().chain(&cd.inputs).any(|b| b.is_unknown()) {
         s.push_str("// Unknown values (x) in the designs stay x here; compare them with care.\n");
     }
@@ -212,7 +214,12 @@ pub fn testbench(
             }
         };
         for p in &ports {
-            let e: Vec<String> = p.bits.iter().rev().map(|&(k, _)| tb_name[map[k]].clone()).collect();
+            let e: Vec<String> = p
+                .bits
+                .iter()
+                .rev()
+                .map(|&(k, _)| tb_name[map[k]].clone())
+                .collect();
             conns.push(format!(".{}({{{}}})", port_name(&p.name), e.join(", ")));
         }
         let outs = group_ports(
@@ -222,10 +229,20 @@ pub fn testbench(
                 .map(|(k, b)| (k, b.port.as_str(), b.index)),
         );
         for p in &outs {
-            let e: Vec<String> = p.bits.iter().rev().map(|&(k, _)| out_bit(wires, k)).collect();
+            let e: Vec<String> = p
+                .bits
+                .iter()
+                .rev()
+                .map(|&(k, _)| out_bit(wires, k))
+                .collect();
             conns.push(format!(".{}({{{}}})", port_name(&p.name), e.join(", ")));
         }
-        let _ = writeln!(s, "  {} {inst} (\n    {});", ident(&sd.module), conns.join(",\n    "));
+        let _ = writeln!(
+            s,
+            "  {} {inst} (\n    {});",
+            ident(&sd.module),
+            conns.join(",\n    ")
+        );
     }
     let np = shared.pairs.len();
     s.push_str("  integer eqc_fails, eqc_n;\n");

@@ -118,7 +118,9 @@ mod tests {
     fn codes_are_distinct_printable_and_short() {
         let all: std::collections::BTreeSet<String> = (0..20_000).map(code).collect();
         assert_eq!(all.len(), 20_000);
-        assert!(all.iter().all(|c| c.bytes().all(|b| (33..=126).contains(&b))));
+        assert!(all
+            .iter()
+            .all(|c| c.bytes().all(|b| (33..=126).contains(&b))));
         assert_eq!(code(0), "!");
         assert_eq!(code(93), "~");
         assert_eq!(code(94).len(), 2);
@@ -147,6 +149,9 @@ mod tests {
         ];
         let v = write_vcd("test", &scopes, &steps);
         assert!(v.contains("$var wire 2 ! s [1:0] $end\n$var wire 1 \" y $end\n"));
-        assert!(v.ends_with("#0\n$dumpvars\nb10 !\n0\"\n$end\n#1\nx\"\n#2\n"), "{v}");
+        assert!(
+            v.ends_with("#0\n$dumpvars\nb10 !\n0\"\n$end\n#1\nx\"\n#2\n"),
+            "{v}"
+        );
     }
 }

@@ -9,20 +9,129 @@ use std::collections::{BTreeMap, BTreeSet};
 use std::fmt::Write;
 
 const KEYWORDS: &[&str] = &[
-    "always", "and", "assign", "automatic", "begin", "buf", "bufif0", "bufif1", "case", "casex",
-    "casez", "cell", "cmos", "config", "deassign", "default", "defparam", "design", "disable",
-    "edge", "else", "end", "endcase", "endconfig", "endfunction", "endgenerate", "endmodule",
-    "endprimitive", "endspecify", "endtable", "endtask", "event", "for", "force", "forever",
-    "fork", "function", "generate", "genvar", "highz0", "highz1", "if", "ifnone", "incdir",
-    "include", "initial", "inout", "input", "instance", "integer", "join", "large", "liblist",
-    "library", "localparam", "macromodule", "medium", "module", "nand", "negedge", "nmos", "nor",
-    "noshowcancelled", "not", "notif0", "notif1", "or", "output", "parameter", "pmos", "posedge",
-    "primitive", "pull0", "pull1", "pulldown", "pullup", "pulsestyle_onevent",
-    "pulsestyle_ondetect", "rcmos", "real", "realtime", "reg", "release", "repeat", "rnmos",
-    "rpmos", "rtran", "rtranif0", "rtranif1", "scalared", "showcancelled", "signed", "small",
-    "specify", "specparam", "strong0", "strong1", "supply0", "supply1", "table", "task", "time",
-    "tran", "tranif0", "tranif1", "tri", "tri0", "tri1", "triand", "trior", "trireg", "unsigned",
-    "use", "uwire", "vectored", "wait", "wand", "weak0", "weak1", "while", "wire", "wor", "xnor",
+    "always",
+    "and",
+    "assign",
+    "automatic",
+    "begin",
+    "buf",
+    "bufif0",
+    "bufif1",
+    "case",
+    "casex",
+    "casez",
+    "cell",
+    "cmos",
+    "config",
+    "deassign",
+    "default",
+    "defparam",
+    "design",
+    "disable",
+    "edge",
+    "else",
+    "end",
+    "endcase",
+    "endconfig",
+    "endfunction",
+    "endgenerate",
+    "endmodule",
+    "endprimitive",
+    "endspecify",
+    "endtable",
+    "endtask",
+    "event",
+    "for",
+    "force",
+    "forever",
+    "fork",
+    "function",
+    "generate",
+    "genvar",
+    "highz0",
+    "highz1",
+    "if",
+    "ifnone",
+    "incdir",
+    "include",
+    "initial",
+    "inout",
+    "input",
+    "instance",
+    "integer",
+    "join",
+    "large",
+    "liblist",
+    "library",
+    "localparam",
+    "macromodule",
+    "medium",
+    "module",
+    "nand",
+    "negedge",
+    "nmos",
+    "nor",
+    "noshowcancelled",
+    "not",
+    "notif0",
+    "notif1",
+    "or",
+    "output",
+    "parameter",
+    "pmos",
+    "posedge",
+    "primitive",
+    "pull0",
+    "pull1",
+    "pulldown",
+    "pullup",
+    "pulsestyle_onevent",
+    "pulsestyle_ondetect",
+    "rcmos",
+    "real",
+    "realtime",
+    "reg",
+    "release",
+    "repeat",
+    "rnmos",
+    "rpmos",
+    "rtran",
+    "rtranif0",
+    "rtranif1",
+    "scalared",
+    "showcancelled",
+    "signed",
+    "small",
+    "specify",
+    "specparam",
+    "strong0",
+    "strong1",
+    "supply0",
+    "supply1",
+    "table",
+    "task",
+    "time",
+    "tran",
+    "tranif0",
+    "tranif1",
+    "tri",
+    "tri0",
+    "tri1",
+    "triand",
+    "trior",
+    "trireg",
+    "unsigned",
+    "use",
+    "uwire",
+    "vectored",
+    "wait",
+    "wand",
+    "weak0",
+    "weak1",
+    "while",
+    "wire",
+    "wor",
+    "xnor",
     "xor",
 ];
 
@@ -69,7 +178,9 @@ impl PortBits {
 }
 
 /// Group named bits into ports in order of first appearance.
-pub fn group_ports<'a>(names: impl IntoIterator<Item = (usize, &'a str, Option<i64>)>) -> Vec<PortBits> {
+pub fn group_ports<'a>(
+    names: impl IntoIterator<Item = (usize, &'a str, Option<i64>)>,
+) -> Vec<PortBits> {
     let mut out: Vec<PortBits> = Vec::new();
     let mut at: BTreeMap<String, usize> = BTreeMap::new();
     for (k, port, idx) in names {
@@ -150,13 +261,17 @@ pub fn design_module(d: &Design, module: &str) -> Result<String, String> {
                     let _ = writeln!(s, "  wire {};", net(n));
                 }
             }
-            for (g, c) in nl.cells.iter().enumerate() {
+            for c in &nl.cells {
                 let out = net(&nl.signals[c.output as usize]);
-                let ins: Vec<String> = c.inputs.iter().map(|&i| net(&nl.signals[i as usize])).collect();
+                let ins: Vec<String> = c
+                    .inputs
+                    .iter()
+                    .map(|&i| net(&nl.signals[i as usize]))
+                    .collect();
                 if c.kind == crate::design::CellKind::Mux2 {
                     let _ = writeln!(s, "  assign {out} = {} ? {} : {};", ins[0], ins[1], ins[2]);
                 } else {
-                    let _ = writeln!(s, "  {} g{g} ({out}, {});", c.kind.name(), ins.join(", "));
+                    let _ = writeln!(s, "  {} ({out}, {});", c.kind.name(), ins.join(", "));
                 }
             }
             // Outputs driven by no gate: an output that is another signal by a plain connection.

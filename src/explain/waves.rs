@@ -23,7 +23,10 @@ fn ports(names: &[&str]) -> Vec<Port> {
         let (port, idx) = split_bit(names[i]);
         let mut j = i + 1;
         if idx.is_some() {
-            while j < names.len() && split_bit(names[j]).0 == port && split_bit(names[j]).1.is_some() {
+            while j < names.len()
+                && split_bit(names[j]).0 == port
+                && split_bit(names[j]).1.is_some()
+            {
                 j += 1;
             }
         }
@@ -66,7 +69,13 @@ pub fn scope_name(d: &Design) -> String {
         .unwrap_or(base);
     let s: String = base
         .chars()
-        .map(|ch| if ch.is_ascii_alphanumeric() || ch == '_' { ch } else { '_' })
+        .map(|ch| {
+            if ch.is_ascii_alphanumeric() || ch == '_' {
+                ch
+            } else {
+                '_'
+            }
+        })
         .collect();
     if s.is_empty() || s.starts_with(|c: char| c.is_ascii_digit()) {
         format!("d_{s}")
@@ -120,7 +129,12 @@ impl<'d> Side<'d> {
     }
 
     fn scope(&self, name: String) -> VcdScope {
-        let mut vars: Vec<VcdVar> = self.ins.iter().chain(&self.outs).map(|p| p.var.clone()).collect();
+        let mut vars: Vec<VcdVar> = self
+            .ins
+            .iter()
+            .chain(&self.outs)
+            .map(|p| p.var.clone())
+            .collect();
         if let Some(nl) = &self.d.netlist {
             for &s in &self.nets {
                 vars.push(VcdVar {
@@ -210,7 +224,12 @@ pub fn counterexample_vcd(
         let ro = r.eval(&rv);
         let co = c.eval(&cv);
         let differs = shared.pairs.iter().any(|&(a, b)| ro[a] != co[b]);
-        step.push((0..32).rev().map(|j| Some(((t + 1) >> j) & 1 == 1)).collect());
+        step.push(
+            (0..32)
+                .rev()
+                .map(|j| Some(((t + 1) >> j) & 1 == 1))
+                .collect(),
+        );
         step.push(vec![Some(differs)]);
         steps.push(step);
     }
@@ -230,7 +249,10 @@ pub fn design_vcd(d: &Design, inputs: &[bool], nets: bool) -> String {
     let scopes = vec![side.scope(name.clone())];
     let steps = vec![side.values(inputs)];
     write_vcd(
-        &format!("equicone eval: design {} (scope {name}); one vector", d.name),
+        &format!(
+            "equicone eval: design {} (scope {name}); one vector",
+            d.name
+        ),
         &scopes,
         &steps,
     )

@@ -6,7 +6,6 @@
 mod common;
 #[path = "explain/cubes.rs"]
 mod cubes;
-#[allow(dead_code)]
 #[path = "oracle/mod.rs"]
 mod oracle;
 #[path = "explain/replay.rs"]

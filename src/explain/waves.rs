@@ -43,10 +43,10 @@ fn ports(names: &[&str]) -> Vec<Port> {
                 bits: (i..j).rev().collect(),
             }),
             _ => {
-                for k in i..j {
+                for (k, name) in names.iter().enumerate().take(j).skip(i) {
                     out.push(Port {
                         var: VcdVar {
-                            name: names[k].to_string(),
+                            name: name.to_string(),
                             range: None,
                             width: 1,
                         },

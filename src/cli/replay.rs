@@ -5,10 +5,10 @@
 
 use super::common::{report_input_error, write_atomic};
 use super::Exit;
+use crate::check::CheckOutcome;
 use crate::design::Design;
-use crate::engine::{ProveReport, Shared};
+use crate::engine::Shared;
 use crate::explain::{self, cubes::CubeLimits, testbench::TbDesign};
-use crate::sat::Limits;
 use clap::Args;
 
 /// Explaining and replaying a result.
@@ -36,9 +36,17 @@ pub struct ReplayArgs {
 }
 
 impl ReplayArgs {
-    /// Whether any option needs the shared graph after the proof.
+    /// Whether the files need the paired graph after the proof.
     pub fn wanted(&self) -> bool {
-        self.explain || self.vcd.is_some() || self.testbench.is_some()
+        self.vcd.is_some() || self.testbench.is_some()
+    }
+
+    /// The cube limits of `--explain`, when it is given.
+    pub fn cube_limits(&self) -> Option<CubeLimits> {
+        self.explain.then(|| CubeLimits {
+            max_cubes: self.explain_cubes.max(1),
+            ..CubeLimits::default()
+        })
     }
 }
 
@@ -65,34 +73,20 @@ fn random_vectors(shared: &Shared, n: usize, seed: u64) -> Vec<Vec<bool>> {
     out
 }
 
-/// After a proof: add the explanation to `rep` and write the VCD and testbench files.
-/// `files` are the source paths of each side (for the testbench).
-#[allow(clippy::too_many_arguments)]
-pub fn after_prove(
+/// After a check: write the VCD and testbench files the options ask for. `files` are the
+/// source paths of each side (for the testbench).
+pub fn write_files(
     a: &ReplayArgs,
     r: &Design,
     c: &Design,
     files: (&[String], &[String]),
-    shared: &Shared,
-    rep: &mut ProveReport,
+    out: &CheckOutcome,
     seed: u64,
-    limits: &Limits,
 ) -> Result<(), Exit> {
-    if a.explain && !rep.counterexamples.is_empty() {
-        let cl = CubeLimits {
-            max_cubes: a.explain_cubes.max(1),
-            ..CubeLimits::default()
-        };
-        rep.explanation = Some(explain::explain(
-            shared,
-            r,
-            c,
-            rep,
-            &cl,
-            explain::MAX_PAIRS,
-            limits,
-        ));
-    }
+    let Some(shared) = &out.pairing else {
+        return Ok(());
+    };
+    let rep = &out.report;
     if let Some(path) = &a.vcd {
         if rep.counterexamples.is_empty() {
             eprintln!("vcd: not written, there is no counterexample");
@@ -113,14 +107,14 @@ pub fn after_prove(
     }
     if let Some(path) = &a.testbench {
         let (vectors, what) = if rep.counterexamples.is_empty() {
-            (random_vectors(shared, 16, seed), "random vectors")
+            (random_vectors(shared, 16, seed), "random vector(s)")
         } else {
             (
                 rep.counterexamples
                     .iter()
                     .map(|cx| cx.inputs.iter().map(|v| v.value).collect())
                     .collect(),
-                "counterexamples",
+                "counterexample(s)",
             )
         };
         let side = |d: &'_ Design, paths: &[String]| -> Result<Vec<(String, String)>, Exit> {

@@ -58,7 +58,7 @@ pub fn explain(
     let mut pairs = Vec::new();
     let mut skipped = 0;
     for (p, pr) in rep.pairs.iter().enumerate() {
-        if pr.status != Verdict::Different {
+        if pr.status() != Verdict::Different {
             continue;
         }
         if pairs.len() >= max_pairs {
@@ -66,7 +66,8 @@ pub fn explain(
             continue;
         }
         let first: Option<Vec<bool>> = pr
-            .counterexample
+            .verdict
+            .counterexample()
             .and_then(|i| rep.counterexamples.get(i))
             .map(|cx| cx.inputs.iter().map(|v| v.value).collect());
         let cov = cover_pair(shared, p, first.as_deref(), cl, limits);

@@ -99,7 +99,7 @@ fn cube_covers_match_exhaustive_simulation() {
             .map(|k| pos(shared.input_name(k, &r, &c).0))
             .collect();
         for (p, pr) in rep.pairs.iter().enumerate() {
-            if pr.status != Verdict::Different {
+            if pr.status() != Verdict::Different {
                 continue;
             }
             let o = na

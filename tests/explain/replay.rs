@@ -58,7 +58,7 @@ fn check_vcd(r: &Design, c: &Design, shared: &Shared, rep: &ProveReport) {
     for (t, cx) in rep.counterexamples.iter().enumerate() {
         let t = t as u64;
         for iv in cx.inputs.iter().filter(|i| !i.unknown) {
-            if iv.side != "candidate" {
+            if iv.side.word() != "candidate" {
                 assert_eq!(
                     bit(&dump, &rs, &iv.name, t),
                     Some(iv.value),
@@ -66,7 +66,7 @@ fn check_vcd(r: &Design, c: &Design, shared: &Shared, rep: &ProveReport) {
                     iv.name
                 );
             }
-            if iv.side == "both" && r.inputs.iter().any(|b| b.name == iv.name) {
+            if iv.side.word() == "both" && r.inputs.iter().any(|b| b.name == iv.name) {
                 assert_eq!(
                     bit(&dump, &cs, &iv.name, t),
                     Some(iv.value),

@@ -142,8 +142,13 @@ impl PairArgs {
         let (r, c) = self.read_pair(&|| limits.expired());
         let mut bad = false;
         let mut stopped = None;
-        for side in [&r, &c] {
+        for (k, side) in [&r, &c].into_iter().enumerate() {
             match side {
+                // The same file read twice with the same error: say it once.
+                Err(ReadError::Input(e))
+                    if k == 1
+                        && matches!(&r, Err(ReadError::Input(f)) if f.to_string() == e.to_string()) =>
+                    {}
                 Err(ReadError::Input(e)) => {
                     report_input_error(e);
                     bad = true;
@@ -183,7 +188,7 @@ pub struct ProveArgs {
     jobs: Option<usize>,
     /// Stop after this many seconds, reading the designs included; open output pairs are then
     /// undecided.
-    #[arg(long, value_name = "SECONDS")]
+    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
     timeout: Option<f64>,
     /// Conflicts allowed per SAT query; a query that needs more is undecided.
     #[arg(long, value_name = "N")]

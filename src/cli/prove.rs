@@ -219,6 +219,14 @@ pub struct ProveArgs {
     select: Option<String>,
     #[command(flatten)]
     replay: super::replay::ReplayArgs,
+    /// Clocked designs: cycles from reset searched for a difference when the register pairing
+    /// does not prove every output pair.
+    #[arg(long, value_name = "K", default_value_t = 20)]
+    cycles: usize,
+    /// Clocked designs: how registers without a reset start (`0` is the usual convention for
+    /// the ISCAS-89 circuits).
+    #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
+    init_unset: super::clocked::InitUnsetArg,
 }
 
 /// Options of `cnf`.
@@ -243,6 +251,12 @@ pub fn run(a: &ProveArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
+    if r.is_clocked() || c.is_clocked() {
+        if a.replay.explain || a.replay.wanted() {
+            eprintln!("note: --explain, --vcd and --testbench cover combinational designs only; nothing of theirs is written for clocked designs");
+        }
+        return run_clocked(a, &r, &c, &deadline);
+    }
     let req = CheckRequest {
         reference: &r,
         candidate: &c,
@@ -306,6 +320,33 @@ pub fn run(a: &ProveArgs) -> Exit {
     }
 }
 
+/// `prove` on designs with registers: the same request, the clocked session.
+fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Limits) -> Exit {
+    let req = CheckRequest {
+        reference: r,
+        candidate: c,
+        assumptions: a.assume.clone(),
+        options: ProveOptions {
+            pair_by: a.pair.pair_by.into(),
+            free_extra_inputs: a.pair.free_extra_inputs,
+            engine: a.engine.into(),
+            timeout: deadline.remaining(),
+            conflict_limit: a.conflict_limit,
+            seed: a.seed,
+            sim_words: None,
+            jobs: a.jobs.unwrap_or(0),
+            progress: false,
+        },
+        diagnosis: DiagnosisRequest::Off,
+        certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
+    };
+    let settings = check::ClockedSettings {
+        cycles: a.cycles,
+        init_unset: a.init_unset.into(),
+    };
+    super::clocked::run(&req, &settings, a.json, a.report.as_deref())
+}
+
 /// Run `cnf`: the miter (OR of the XORs of all output pairs) asserted true, so that the
 /// formula is unsatisfiable exactly when the designs are equivalent.
 pub fn run_cnf(a: &CnfArgs) -> Exit {
@@ -313,6 +354,10 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
+    if r.is_clocked() || c.is_clocked() {
+        eprintln!("error: cnf writes the miter of combinational designs, and {} has registers\n  help: use `prove` for clocked designs", if r.is_clocked() { &r.name } else { &c.name });
+        return Exit::BadInput;
+    }
     let miter = match check::miter_cnf(&r, &c, a.pair.pair_by.into(), a.pair.free_extra_inputs) {
         Ok(m) => m,
         Err(e) => return report_input_error(&e),

@@ -339,6 +339,8 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
         },
         diagnosis: DiagnosisRequest::Off,
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
+        explain: None,
+        keep_pairing: false,
     };
     let settings = check::ClockedSettings {
         cycles: a.cycles,

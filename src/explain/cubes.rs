@@ -314,6 +314,7 @@ mod tests {
             outputs: vec![OutputBit::new("y", None, y, None)],
             netlist: None,
             warnings: vec![],
+            registers: vec![],
         }
     }
 

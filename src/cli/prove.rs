@@ -291,7 +291,9 @@ pub fn run(a: &ProveArgs) -> Exit {
     rf.extend(a.pair.ref_also.iter().cloned());
     let mut cf = vec![a.pair.candidate.clone()];
     cf.extend(a.pair.cand_also.iter().cloned());
-    if let Err(code) = super::replay::write_files(&a.replay, &r, &c, (&rf, &cf), &out, a.seed) {
+    if let Err(code) =
+        super::replay::write_files(&a.replay, &r, &c, (&rf, &cf), &out, a.limits.seed)
+    {
         return code;
     }
     let json = report::to_json(&out);

@@ -7,7 +7,7 @@
 //! the target folder (`target/tmp/verilog-regress/`); copied into tests/data/verilog/regress/ it
 //! is replayed by `regress`.
 
-use super::common::{data_dir, eval_ports, iverilog_available, read, run_iverilog};
+use super::common::{eval_ports, iverilog_available, read, run_iverilog};
 use rand::rngs::StdRng;
 use rand::{Rng, SeedableRng};
 use std::collections::HashMap;

@@ -56,6 +56,7 @@ pub fn prove_text(r: &ProveReport) -> String {
             Method::Split,
             Method::Exhaustive,
             Method::Bdd,
+            Method::Algebra,
         ] {
             let k = r
                 .pairs

@@ -221,7 +221,7 @@ fn rewrite<C: Coef>(
         if p.len() > limits.max_terms {
             return Err(Stop::TermBudget(limits.max_terms));
         }
-        if stats.steps.is_multiple_of(256) && limits.deadline.is_some_and(|d| Instant::now() >= d) {
+        if limits.deadline.is_some_and(|d| Instant::now() >= d) {
             return Err(Stop::Timeout);
         }
     }

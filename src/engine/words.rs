@@ -25,10 +25,13 @@ pub const MIN_BITS: usize = 4;
 pub const MAX_CONE: usize = 4_000_000;
 /// One AND node in this many must root an XOR for the portfolio to build units.
 pub const MIN_XOR_SHARE: usize = 16;
-/// Live terms allowed in the word polynomial.
-pub const MAX_TERMS: usize = 2_000_000;
+/// Live terms allowed in the word polynomial in the portfolio (a blow-up shows early; the
+/// other methods get the word back).
+pub const MAX_TERMS: usize = 200_000;
+/// Live terms allowed with `--engine algebra` alone.
+pub const MAX_TERMS_ALONE: usize = 2_000_000;
 /// Wall-clock time one word may take in the portfolio (the run's own deadline still applies).
-pub const WORD_SECONDS: u64 = 60;
+pub const WORD_SECONDS: u64 = 10;
 
 /// The output pairs grouped by the reference side's bus, each least significant bit first;
 /// scalar outputs are words of one bit. In order of each word's first pair.
@@ -114,7 +117,11 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
             deadline = Some(deadline.map_or(cap, |d| d.min(cap)));
         }
         let limits = Limits {
-            max_terms: MAX_TERMS,
+            max_terms: if cx.arithmetic_only {
+                MAX_TERMS
+            } else {
+                MAX_TERMS_ALONE
+            },
             deadline,
         };
         let check = prepared.check(&limits);

@@ -8,6 +8,7 @@ pub mod aig;
 pub mod algebra;
 pub mod assume;
 pub mod certify;
+pub mod check;
 pub mod cli;
 pub mod cnf;
 pub mod cone;
@@ -23,6 +24,7 @@ pub(crate) mod hash;
 pub mod report;
 pub mod routes;
 pub mod sat;
+pub mod seq;
 
 pub use aig::{Aig, Lit};
 pub use design::{Design, Format, InputBit, OutputBit};

@@ -225,7 +225,9 @@ mod engine {
             let rep = run(&r, &c, EngineKind::Portfolio, true);
             assert_eq!(rep.verdict, Verdict::Equivalent, "{kind:?} {style:?}");
             assert!(
-                rep.pairs.iter().any(|p| p.method == Method::Algebra),
+                rep.pairs
+                    .iter()
+                    .any(|p| p.verdict.method() == Some(Method::Algebra)),
                 "{kind:?} {style:?}: {:?}",
                 rep.stats.portfolio
             );

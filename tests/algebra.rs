@@ -303,8 +303,8 @@ mod engine {
         // Carry-lookahead and prefix carries blow the polynomial up: undecided or proved,
         // never a wrong verdict.
         for fin in [Style::Cla, Style::KoggeStone, Style::BrentKung] {
-            let (r, _) = two(Kind::Multiplier, Style::Spec, 8, false);
-            let c = design(&GenSpec::new(Kind::Multiplier, Style::Dadda, 8).final_adder(fin));
+            let (r, _) = two(Kind::Multiplier, Style::Spec, 6, false);
+            let c = design(&GenSpec::new(Kind::Multiplier, Style::Dadda, 6).final_adder(fin));
             let rep = run(&r, &c, EngineKind::Algebra, false);
             assert_ne!(rep.verdict, Verdict::Different, "{fin:?}");
             let rep = run(&r, &c, EngineKind::Portfolio, true);

@@ -42,8 +42,9 @@ pub use sweep::SweepStats;
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Default, serde::Serialize)]
 #[serde(rename_all = "lowercase")]
 pub enum EngineKind {
-    /// The portfolio: exhaustive simulation for output groups with small supports, BDDs within
-    /// a node limit, then SAT sweeping for the rest (the method of each pair is reported).
+    /// The portfolio: word polynomials for output buses that look arithmetic, exhaustive
+    /// simulation for output groups with small supports, BDDs within a node limit, then SAT
+    /// sweeping for the rest (the method of each pair is reported).
     #[default]
     Portfolio,
     /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair

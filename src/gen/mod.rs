@@ -28,7 +28,6 @@
 
 pub mod emit;
 pub mod mutate;
-pub mod rng;
 pub mod set;
 
 mod arith;
@@ -414,7 +413,7 @@ fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenE
     validate(spec)?;
     let module = spec.module.clone().unwrap_or_else(|| spec.default_module());
     let mut c = Circuit::new(&module);
-    let mut rng = rng::Rng::new(spec.seed, 1);
+    let mut rng = crate::rng::SplitMix64::new(spec.seed, 1);
     let mut arith_bug = None;
     let notes = match spec.kind {
         Kind::Selector => selector::build(&mut c, spec.n, spec.width, spec.style, &mut rng),

@@ -19,8 +19,8 @@ mod reduce;
 pub use reduce::dadda_heights;
 
 use super::emit::{Circuit, Net, Op};
-use super::rng::Rng;
 use super::{Bug, GenError, GenSpec, Kind, Style};
+use crate::rng::SplitMix64;
 
 /// Where an arithmetic bug goes: the index of the partial product, adder cell or Booth row
 /// that gets it, counted in construction order.
@@ -90,7 +90,7 @@ pub(super) fn build(
     // A first build counts the places, the seed picks one, the second build plants it.
     let mut scratch = Circuit::new("scratch");
     let (_, counted) = build_with(&mut scratch, spec, Plant::default());
-    let mut rng = Rng::new(spec.seed, 7);
+    let mut rng = SplitMix64::new(spec.seed, 7);
     let mut plant = Plant::default();
     let (count, slot) = match bug {
         Bug::PpBit => (counted.pp, &mut plant.pp_at),

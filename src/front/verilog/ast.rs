@@ -49,6 +49,8 @@ pub enum BinOp {
     Or,
     LogAnd,
     LogOr,
+    /// `**` (level 10: parsed apart, it binds tighter than `*`).
+    Pow,
 }
 
 impl BinOp {
@@ -66,6 +68,7 @@ impl BinOp {
             Or => 7,
             LogAnd => 8,
             LogOr => 9,
+            Pow => 10,
         }
     }
 
@@ -96,6 +99,7 @@ impl BinOp {
             Or => "|",
             LogAnd => "&&",
             LogOr => "||",
+            Pow => "**",
         }
     }
 }

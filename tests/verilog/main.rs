@@ -6,6 +6,7 @@ mod fixtures;
 mod hierarchy;
 mod iverilog_diff;
 mod large;
+mod netlists;
 mod preprocess;
 mod regress;
 mod rtl_styles;

@@ -24,6 +24,7 @@ pub(crate) mod hash;
 pub mod report;
 pub mod routes;
 pub mod sat;
+pub mod seq;
 
 pub use aig::{Aig, Lit};
 pub use design::{Design, Format, InputBit, OutputBit};

@@ -89,16 +89,32 @@ impl DesignArgs {
     }
 }
 
-/// A `--timeout` value as a duration; a value that is not a positive number of seconds is a
-/// usage error.
+/// The largest `--timeout` accepted, in seconds (about 31 years).
+const TIMEOUT_MAX: f64 = 1e9;
+
+/// A `--timeout` value as a duration; a value that is not a positive number of seconds, or
+/// one beyond [`TIMEOUT_MAX`], is a usage error that says which.
 pub fn timeout_of(t: Option<f64>) -> Result<Option<std::time::Duration>, Exit> {
     match t {
         None => Ok(None),
-        Some(s) if s.is_finite() && s > 0.0 && s < 1e9 => {
+        Some(s) if s.is_finite() && s > 0.0 && s < TIMEOUT_MAX => {
             Ok(Some(std::time::Duration::from_secs_f64(s)))
         }
         Some(s) => {
-            eprintln!("error: --timeout {s} is not a positive number of seconds\n  help: for example `--timeout 30`");
+            let (what, help) = if !s.is_finite() {
+                (
+                    "is not a positive number of seconds",
+                    "for example `--timeout 30`",
+                )
+            } else if s <= 0.0 {
+                ("must be positive", "for example `--timeout 30`")
+            } else {
+                (
+                    "is more than the largest limit, 1000000000 seconds",
+                    "leave --timeout out to run without a time limit",
+                )
+            };
+            eprintln!("error: --timeout {s} {what}\n  help: {help}");
             Err(Exit::BadInput)
         }
     }

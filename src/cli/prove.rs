@@ -142,8 +142,13 @@ impl PairArgs {
         let (r, c) = self.read_pair(&|| limits.expired());
         let mut bad = false;
         let mut stopped = None;
-        for side in [&r, &c] {
+        for (k, side) in [&r, &c].into_iter().enumerate() {
             match side {
+                // The same file read twice with the same error: say it once.
+                Err(ReadError::Input(e))
+                    if k == 1
+                        && matches!(&r, Err(ReadError::Input(f)) if f.to_string() == e.to_string()) =>
+                    {}
                 Err(ReadError::Input(e)) => {
                     report_input_error(e);
                     bad = true;
@@ -183,7 +188,7 @@ pub struct ProveArgs {
     jobs: Option<usize>,
     /// Stop after this many seconds, reading the designs included; open output pairs are then
     /// undecided.
-    #[arg(long, value_name = "SECONDS")]
+    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
     timeout: Option<f64>,
     /// Conflicts allowed per SAT query; a query that needs more is undecided.
     #[arg(long, value_name = "N")]
@@ -212,6 +217,14 @@ pub struct ProveArgs {
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
     select: Option<String>,
+    /// Clocked designs: cycles from reset searched for a difference when the register pairing
+    /// does not prove every output pair.
+    #[arg(long, value_name = "K", default_value_t = 20)]
+    cycles: usize,
+    /// Clocked designs: how registers without a reset start (`0` is the usual convention for
+    /// the ISCAS-89 circuits).
+    #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
+    init_unset: super::clocked::InitUnsetArg,
 }
 
 /// Options of `cnf`.
@@ -236,6 +249,9 @@ pub fn run(a: &ProveArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
+    if r.is_clocked() || c.is_clocked() {
+        return run_clocked(a, &r, &c, &deadline);
+    }
     let req = CheckRequest {
         reference: &r,
         candidate: &c,
@@ -290,6 +306,33 @@ pub fn run(a: &ProveArgs) -> Exit {
     }
 }
 
+/// `prove` on designs with registers: the same request, the clocked session.
+fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Limits) -> Exit {
+    let req = CheckRequest {
+        reference: r,
+        candidate: c,
+        assumptions: a.assume.clone(),
+        options: ProveOptions {
+            pair_by: a.pair.pair_by.into(),
+            free_extra_inputs: a.pair.free_extra_inputs,
+            engine: a.engine.into(),
+            timeout: deadline.remaining(),
+            conflict_limit: a.conflict_limit,
+            seed: a.seed,
+            sim_words: None,
+            jobs: a.jobs.unwrap_or(0),
+            progress: false,
+        },
+        diagnosis: DiagnosisRequest::Off,
+        certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
+    };
+    let settings = check::ClockedSettings {
+        cycles: a.cycles,
+        init_unset: a.init_unset.into(),
+    };
+    super::clocked::run(&req, &settings, a.json, a.report.as_deref())
+}
+
 /// Run `cnf`: the miter (OR of the XORs of all output pairs) asserted true, so that the
 /// formula is unsatisfiable exactly when the designs are equivalent.
 pub fn run_cnf(a: &CnfArgs) -> Exit {
@@ -297,6 +340,10 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
+    if r.is_clocked() || c.is_clocked() {
+        eprintln!("error: cnf writes the miter of combinational designs, and {} has registers\n  help: use `prove` for clocked designs", if r.is_clocked() { &r.name } else { &c.name });
+        return Exit::BadInput;
+    }
     let miter = match check::miter_cnf(&r, &c, a.pair.pair_by.into(), a.pair.free_extra_inputs) {
         Ok(m) => m,
         Err(e) => return report_input_error(&e),

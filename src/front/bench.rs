@@ -9,7 +9,10 @@ mod line;
 
 use super::ReadError;
 use crate::aig::{Aig, Lit};
-use crate::design::{split_bit, Cell, CellKind, Design, Format, InputBit, Netlist, OutputBit};
+use crate::design::{
+    split_bit, Cell, CellKind, ClockEdge, Design, Format, InputBit, InputKind, Netlist, OutputBit,
+    Register,
+};
 use crate::diag::{Diagnostic, InputError, SourcePos};
 use crate::hash::FastMap;
 use line::{col_of, parse_line, Stmt};
@@ -51,6 +54,8 @@ struct Parsed<'t> {
     outputs: Vec<(u32, Pos)>,
     gates: Vec<GateDef>,
     args: Vec<u32>,
+    /// `q = DFF(d)` lines: (q, d); each q is also in `inputs` (the state cut).
+    dffs: Vec<(u32, u32)>,
 }
 
 impl<'t> Parsed<'t> {
@@ -75,8 +80,8 @@ pub fn read_bench_until(
     text: &str,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
-    let (netlist, inputs, outputs) = parse_to_netlist(file, text, stop)?;
-    elaborate(file, netlist, inputs, outputs, stop)
+    let compact = parse_to_netlist(file, text, stop)?;
+    elaborate(file, compact, stop)
 }
 
 /// [`read_bench_until`] taking the text, which is dropped as soon as the netlist holds its
@@ -86,14 +91,14 @@ pub fn read_bench_text(
     text: String,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
-    let (netlist, inputs, outputs) = parse_to_netlist(file, &text, stop)?;
+    let compact = parse_to_netlist(file, &text, stop)?;
     drop(text);
-    elaborate(file, netlist, inputs, outputs, stop)
+    elaborate(file, compact, stop)
 }
 
 /// The parse result without the text: the netlist as written plus the input and output
-/// positions (signal, place).
-type Compact = (Netlist, Vec<(u32, Pos)>, Vec<(u32, Pos)>);
+/// positions (signal, place) and the flip-flops (output signal, data signal).
+type Compact = (Netlist, Vec<(u32, Pos)>, Vec<(u32, Pos)>, Vec<(u32, u32)>);
 
 fn stopped(file: &Arc<str>) -> ReadError {
     ReadError::Stopped(file.to_string())
@@ -104,12 +109,15 @@ fn parse_to_netlist(
     text: &str,
     stop: &dyn Fn() -> bool,
 ) -> Result<Compact, ReadError> {
+    // A UTF-8 byte-order mark (some editors write one) is not part of the first line.
+    let text = text.strip_prefix('\u{feff}').unwrap_or(text);
     let mut p = Parsed {
         ids: FastMap::default(),
         inputs: Vec::new(),
         outputs: Vec::new(),
         gates: Vec::new(),
         args: Vec::new(),
+        dffs: Vec::new(),
     };
     let mut errors = Vec::new();
     let mut fanin: Vec<(&str, usize)> = Vec::new();
@@ -139,6 +147,13 @@ fn parse_to_netlist(
             Ok(Stmt::Output(name, at)) => {
                 let id = p.id(name);
                 p.outputs.push((id, pos(at)));
+            }
+            Ok(Stmt::Dff(name, at)) => {
+                let q = p.id(name);
+                let d = p.id(fanin[0].0);
+                p.inputs.push((q, pos(at)));
+                p.args.push(d);
+                p.dffs.push((q, d));
             }
             Ok(Stmt::Gate(name, at, kind)) => {
                 let output = p.id(name);
@@ -185,6 +200,7 @@ fn parse_to_netlist(
         outputs,
         gates,
         args,
+        dffs,
     } = p;
     let mut number = vec![UNDEFINED; ids.len()];
     for (k, &(id, _)) in inputs.iter().enumerate() {
@@ -224,7 +240,11 @@ fn parse_to_netlist(
         outputs: outputs.iter().map(|&(s, _)| s).collect(),
         complete: true,
     };
-    Ok((netlist, inputs, outputs))
+    let dffs = dffs
+        .iter()
+        .map(|&(q, d)| (number[q as usize], number[d as usize]))
+        .collect();
+    Ok((netlist, inputs, outputs, dffs))
 }
 
 /// Every signal defined once and every used signal defined; all such errors of the file.
@@ -258,6 +278,25 @@ fn check_definitions(file: &Arc<str>, text: &str, p: &Parsed<'_>) -> Result<(), 
             ));
         }
     }
+    // An output declared twice would be paired twice in one design and refused in the other.
+    let mut declared: Vec<Option<Pos>> = vec![None; p.ids.len()];
+    let mut twice: Vec<(u32, Pos, Pos)> = Vec::new();
+    for &(o, pos) in &p.outputs {
+        match declared[o as usize] {
+            Some(first) => twice.push((o, pos, first)),
+            None => declared[o as usize] = Some(pos),
+        }
+    }
+    if !twice.is_empty() {
+        let names = names();
+        for (o, pos, first) in twice {
+            errors.push(output_twice(
+                names[o as usize],
+                &pos.at(file),
+                &first.at(file),
+            ));
+        }
+    }
     let undefined_args = p.args.iter().any(|&a| def[a as usize].is_none());
     let undefined_outputs = p.outputs.iter().any(|&(o, _)| def[o as usize].is_none());
     if undefined_args {
@@ -265,7 +304,9 @@ fn check_definitions(file: &Arc<str>, text: &str, p: &Parsed<'_>) -> Result<(), 
         let mut fanin = Vec::new();
         for (ln, raw) in text.lines().enumerate() {
             let line = raw.split('#').next().unwrap_or("");
-            if let Ok(Stmt::Gate(..)) = parse_line(file, ln as u32 + 1, line, &mut fanin) {
+            if let Ok(Stmt::Gate(..) | Stmt::Dff(..)) =
+                parse_line(file, ln as u32 + 1, line, &mut fanin)
+            {
                 for &(a, at) in &fanin {
                     if def[p.ids[a] as usize].is_none() {
                         errors.push(undefined(
@@ -308,9 +349,7 @@ fn undefined(name: &str, pos: &SourcePos) -> Diagnostic {
 /// stack (no recursion), so a deep chain cannot overflow.
 fn elaborate(
     file: &Arc<str>,
-    netlist: Netlist,
-    in_pos: Vec<(u32, Pos)>,
-    out_pos: Vec<(u32, Pos)>,
+    (netlist, in_pos, out_pos, dffs): Compact,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
     let ni = netlist.inputs.len();
@@ -321,6 +360,10 @@ fn elaborate(
     // everywhere else.
     aig.reserve(cells.len() + cells.len() / 4);
     let mut inputs = Vec::with_capacity(ni);
+    let mut is_register = vec![false; ni];
+    for &(q, _) in &dffs {
+        is_register[q as usize] = true;
+    }
     for (k, &(s, pos)) in in_pos.iter().enumerate() {
         let lit = aig.add_input();
         debug_assert_eq!(lit, aig.input_lit(k));
@@ -328,6 +371,9 @@ fn elaborate(
         let (port, index) = split_bit(name);
         let mut bit = InputBit::port(port, index, Some(pos.at(file)));
         bit.name = name.clone();
+        if is_register[s as usize] {
+            bit.kind = InputKind::Register;
+        }
         inputs.push(bit);
     }
     // Literal of every signal; a gate's is set once it is built.
@@ -390,6 +436,7 @@ fn elaborate(
             bit
         })
         .collect();
+    let registers = dff_registers(&inputs, &dffs, &lit);
     let design = Design {
         name: file.to_string(),
         format: Format::Bench,
@@ -398,9 +445,32 @@ fn elaborate(
         outputs,
         netlist: Some(netlist),
         warnings: Vec::new(),
+        registers,
     };
     design.debug_check();
     Ok(design)
+}
+
+/// The registers of `q = DFF(d)` lines: rising edge of the one implicit clock, no reset
+/// (the published ISCAS-89 files define no initial state).
+fn dff_registers(inputs: &[InputBit], dffs: &[(u32, u32)], lit: &[Option<Lit>]) -> Vec<Register> {
+    dffs.iter()
+        .map(|&(q, d)| {
+            let b = &inputs[q as usize];
+            Register {
+                name: b.name.clone(),
+                port: b.port.clone(),
+                index: b.index,
+                input: q as usize,
+                next: lit[d as usize].expect("every signal is built"),
+                clock: None,
+                edge: ClockEdge::Rising,
+                init: None,
+                reset: None,
+                pos: b.pos.clone(),
+            }
+        })
+        .collect()
 }
 
 fn redefined(name: &str, pos: &SourcePos, first: &SourcePos) -> Diagnostic {
@@ -409,6 +479,14 @@ fn redefined(name: &str, pos: &SourcePos, first: &SourcePos) -> Diagnostic {
         format!("signal `{name}` is defined twice (first at {first})"),
     )
     .with_help("every signal is an INPUT or the output of exactly one gate; rename one of them")
+}
+
+fn output_twice(name: &str, pos: &SourcePos, first: &SourcePos) -> Diagnostic {
+    Diagnostic::error(
+        Some(pos.clone()),
+        format!("output `{name}` is declared twice (first at {first})"),
+    )
+    .with_help("declare each OUTPUT once; delete one of the two lines")
 }
 
 fn cycle_error(names: &[&str], pos: &SourcePos) -> InputError {
@@ -454,6 +532,25 @@ mod tests {
             let (a, b) = (v & 1 == 1, v & 2 == 2);
             assert_eq!(d.eval(&[a, b]), vec![!(a & (a ^ b))]);
         }
+    }
+
+    /// Issue 13 D: a byte-order mark before the first line is accepted.
+    #[test]
+    fn a_byte_order_mark_is_skipped() {
+        let d = read("\u{feff}INPUT(a)\nOUTPUT(y)\ny = NOT(a)\n").unwrap();
+        assert_eq!(d.inputs.len(), 1);
+        assert_eq!(d.outputs.len(), 1);
+    }
+
+    /// Issue 13 A5: a duplicate OUTPUT line is an error naming both lines, whichever side.
+    #[test]
+    fn an_output_declared_twice_is_an_error() {
+        let e = read("INPUT(a)\nOUTPUT(y)\nOUTPUT(y)\ny = NOT(a)\n").unwrap_err();
+        let m = e.to_string();
+        assert!(
+            m.contains("t.bench:3:8: error: output `y` is declared twice (first at t.bench:2:8)"),
+            "{m}"
+        );
     }
 
     #[test]

@@ -420,7 +420,13 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
         Kind::Multiplier => (2, 256, "a multiplier needs operands of at least 2 bits"),
         Kind::Random => (1, 20_000_000, "a random circuit needs at least 1 gate"),
     };
-    if spec.n < min || spec.n > max {
+    if spec.n > max {
+        return Err(GenError::new(
+            format!("--n {} is too large for kind {kind}: at most {max}", spec.n),
+            format!("give --n between {min} and {max} for kind {kind}"),
+        ));
+    }
+    if spec.n < min {
         return Err(GenError::new(
             format!("{what} (got --n {})", spec.n),
             format!("give --n between {min} and {max} for kind {kind}"),

@@ -11,3 +11,4 @@ mod preprocess;
 mod regress;
 mod rtl_styles;
 mod semantics;
+mod systemverilog;

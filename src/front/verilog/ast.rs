@@ -182,6 +182,9 @@ pub enum NetType {
     Reg,
     /// `integer`
     Integer,
+    /// SystemVerilog `logic` or `bit` (IEEE 1800-2017 clause 6.11, from memory): driven by
+    /// one continuous assignment or assigned in always blocks.
+    Logic,
 }
 
 /// A declaration of nets, variables or ports.

@@ -454,6 +454,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             Tok::Ident(k) if k == kw::SUPPLY0 || k == kw::SUPPLY1 => d.ty = Some(NetType::Wire),
             Tok::Ident(k) if k == kw::REG => d.ty = Some(NetType::Reg),
             Tok::Ident(k) if k == kw::INTEGER => d.ty = Some(NetType::Integer),
+            Tok::Ident(k) if self.is_sv_type(k) => d.ty = Some(NetType::Logic),
             _ => unreachable!("decl_head called on a declaration keyword"),
         }
         if d.dir.is_some() {
@@ -463,6 +464,11 @@ impl<'s, 'n> Parser<'s, 'n> {
                 d.ty = Some(NetType::Reg);
             } else if self.eat_kw(kw::INTEGER) {
                 d.ty = Some(NetType::Integer);
+            } else if let Tok::Ident(k) = self.peek().tok {
+                if self.is_sv_type(k) {
+                    self.bump();
+                    d.ty = Some(NetType::Logic);
+                }
             }
         }
         if d.ty == Some(NetType::Integer) {
@@ -476,6 +482,12 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
         }
         Ok(d)
+    }
+
+    /// SystemVerilog's `logic` and `bit` (not keywords of IEEE 1364, so looked up by name:
+    /// a 1364 design may use them as names, and does not put them before a declaration).
+    fn is_sv_type(&self, k: Sym) -> bool {
+        matches!(self.names.name(k), "logic" | "bit")
     }
 
     /// At `#`: skip a delay (`#3`, `#1.5`, `#D`, `#(1, 2)`, `#(1:2:3)`), warning once per file
@@ -600,6 +612,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             || k == kw::TRI
             || k == kw::SUPPLY0
             || k == kw::SUPPLY1
+            || self.is_sv_type(k)
         {
             // IEEE 1364-2005 clause 4.6: `tri` is `wire` by another name; `supply0` and
             // `supply1` nets are driven by the constants 0 and 1 (clause 4.6.7).

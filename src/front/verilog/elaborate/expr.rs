@@ -223,6 +223,9 @@ impl Elab<'_> {
                 Some(o) => extend(o.val.bits, w, s),
                 None => vec![Lit::FALSE; w],
             },
+            Expr::Num(n, _) if matches!(&*n.text, "'0" | "'1") => {
+                vec![Lit::constant(&*n.text == "'1"); w]
+            }
             Expr::Num(n, pos) => {
                 let v = self.literal(ctx, n, *pos);
                 extend(v, w, s)

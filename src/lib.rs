@@ -22,6 +22,7 @@ pub mod front;
 pub mod gen;
 pub(crate) mod hash;
 pub mod report;
+pub mod rng;
 pub mod routes;
 pub mod sat;
 pub mod seq;

@@ -2,7 +2,7 @@
 
 use super::common::{
     print, report_input_error, report_internal, report_stopped_reading, timeout_of, write_atomic,
-    FormatArg,
+    FormatArg, LimitArgs,
 };
 use super::Exit;
 use crate::certify::{Certificate, NoCertificate, ProofFormat};
@@ -186,16 +186,8 @@ pub struct ProveArgs {
     /// not depend on it.
     #[arg(long, short = 'j', value_name = "N")]
     jobs: Option<usize>,
-    /// Stop after this many seconds, reading the designs included; open output pairs are then
-    /// undecided.
-    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
-    timeout: Option<f64>,
-    /// Conflicts allowed per SAT query; a query that needs more is undecided.
-    #[arg(long, value_name = "N")]
-    conflict_limit: Option<u64>,
-    /// Seed of the random simulation patterns.
-    #[arg(long, default_value_t = 1)]
-    seed: u64,
+    #[command(flatten)]
+    limits: LimitArgs,
     /// Print the report as JSON (schema in the README).
     #[arg(long)]
     json: bool,
@@ -240,7 +232,7 @@ pub struct CnfArgs {
 /// Run `prove`: read both designs, hand them to the check session, print its outcome.
 pub fn run(a: &ProveArgs) -> Exit {
     // The clock starts before reading: --timeout covers the whole run.
-    let timeout = match timeout_of(a.timeout) {
+    let timeout = match timeout_of(a.limits.timeout) {
         Ok(t) => t,
         Err(e) => return e,
     };
@@ -261,8 +253,8 @@ pub fn run(a: &ProveArgs) -> Exit {
             free_extra_inputs: a.pair.free_extra_inputs,
             engine: a.engine.into(),
             timeout: deadline.remaining(),
-            conflict_limit: a.conflict_limit,
-            seed: a.seed,
+            conflict_limit: a.limits.conflict_limit,
+            seed: a.limits.seed,
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: !a.json && std::io::stderr().is_terminal(),
@@ -317,8 +309,8 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
             free_extra_inputs: a.pair.free_extra_inputs,
             engine: a.engine.into(),
             timeout: deadline.remaining(),
-            conflict_limit: a.conflict_limit,
-            seed: a.seed,
+            conflict_limit: a.limits.conflict_limit,
+            seed: a.limits.seed,
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: false,

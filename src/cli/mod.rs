@@ -14,6 +14,7 @@ mod eval;
 mod eval_trace;
 mod gen;
 mod prove;
+mod replay;
 mod routes;
 
 use clap::{Parser, Subcommand};

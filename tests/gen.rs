@@ -15,6 +15,8 @@ mod arith;
 mod kinds;
 #[path = "gen/misc.rs"]
 mod misc;
+#[path = "gen/mult_family.rs"]
+mod mult_family;
 #[path = "gen/mutants.rs"]
 mod mutants;
 #[path = "gen/random_circuits.rs"]

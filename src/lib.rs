@@ -23,6 +23,7 @@ pub(crate) mod hash;
 pub mod report;
 pub mod routes;
 pub mod sat;
+pub mod shard;
 
 pub use aig::{Aig, Lit};
 pub use design::{Design, Format, InputBit, OutputBit};

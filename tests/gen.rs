@@ -11,14 +11,20 @@ mod support;
 
 #[path = "gen/arith.rs"]
 mod arith;
+#[path = "gen/families.rs"]
+mod families;
 #[path = "gen/kinds.rs"]
 mod kinds;
 #[path = "gen/misc.rs"]
 mod misc;
 #[path = "gen/mutants.rs"]
 mod mutants;
+#[path = "oracle/mod.rs"]
+mod oracle;
 #[path = "gen/random_circuits.rs"]
 mod random_circuits;
+#[path = "gen/remap.rs"]
+mod remap;
 #[path = "gen/selectors.rs"]
 mod selectors;
 #[path = "gen/verilog.rs"]

@@ -9,7 +9,9 @@ mod cone;
 mod demo;
 mod eval;
 mod gen;
+mod merge;
 mod prove;
+mod remap;
 mod routes;
 
 use clap::{Parser, Subcommand};
@@ -54,13 +56,17 @@ pub enum Command {
     Cnf(prove::CnfArgs),
     /// For each value of a select bus, show which data input each output follows (proved by SAT).
     Routes(routes::RoutesArgs),
-    /// Write a generated circuit: selectors, decoders, priority encoders, shifters, adders,
-    /// multipliers, random circuits; optionally with a planted bug.
+    /// Write a generated circuit (selectors, decoders, priority encoders, shifters, adders,
+    /// multipliers, popcounts, majorities, comparators, dividers, square roots, arbiters, random
+    /// circuits; optionally with a planted bug), or `gen remap DESIGN --k K`: a design rewritten
+    /// into K-input lookup functions.
     Gen(gen::GenArgs),
     /// Audit each output's structural cone against its exact support; flag redundant inputs.
     Cone(cone::ConeArgs),
     /// Gate counts, cost, delay and depth, with the lower bounds each output's support implies.
     Stats(cone::StatsArgs),
+    /// Merge the partial reports of `prove --shard K/N` runs into the whole report.
+    Merge(merge::MergeArgs),
 }
 
 /// Run a parsed command line and return its exit code.
@@ -74,5 +80,6 @@ pub fn run(cli: Cli) -> Exit {
         Command::Gen(a) => gen::run(&a),
         Command::Cone(a) => cone::run_cone(&a),
         Command::Stats(a) => cone::run_stats(&a),
+        Command::Merge(a) => merge::run(&a),
     }
 }

@@ -14,7 +14,7 @@ use crate::engine::Shared;
 use crate::sat::{ClauseSink, Limits, StopReason};
 
 /// Proof formats.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Default, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Default)]
 pub enum ProofFormat {
     /// DRAT in text form, checkable by any DRAT checker.
     #[default]
@@ -70,11 +70,7 @@ pub fn certify(
     let vars: Vec<_> = (0..shared.aig.num_inputs()).map(|_| f.fresh()).collect();
     for (k, v) in vars.iter().enumerate() {
         let (name, side) = shared.input_name(k, r, c);
-        let side = if side.is_empty() {
-            String::new()
-        } else {
-            format!(" ({side} only)")
-        };
+        let side = side.only_note();
         comments.push(format!("input {} {name}{side}", dimacs::dimacs_number(*v)));
     }
     let mut tr = Tseitin::new();

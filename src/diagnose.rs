@@ -68,7 +68,7 @@ pub fn diagnose(
     let differing: Vec<(usize, usize)> = rep
         .pairs
         .iter()
-        .filter(|p| p.status == Verdict::Different)
+        .filter(|p| p.status() == Verdict::Different)
         .take(MAX_TABLES)
         .filter_map(|p| Some((r.output_index(&p.reference)?, c.output_index(&p.candidate)?)))
         .collect();

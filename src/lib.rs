@@ -8,6 +8,7 @@ pub mod aig;
 pub mod algebra;
 pub mod assume;
 pub mod certify;
+pub mod check;
 pub mod cli;
 pub mod cnf;
 pub mod cone;

@@ -360,11 +360,11 @@ fn check_pair(seed: u64, engines: &[EngineKind], t: &mut Tally) {
         for (k, (p, &e)) in rep.pairs.iter().zip(&equal).enumerate() {
             assert_eq!(p.reference, na.outputs[k], "{what}");
             if e {
-                assert_eq!(p.status, Verdict::Equivalent, "{what}: output {k}");
+                assert_eq!(p.status(), Verdict::Equivalent, "{what}: output {k}");
                 continue;
             }
-            assert_eq!(p.status, Verdict::Different, "{what}: output {k}");
-            let cx = &rep.counterexamples[p.counterexample.expect("a counterexample")];
+            assert_eq!(p.status(), Verdict::Different, "{what}: output {k}");
+            let cx = &rep.counterexamples[p.verdict.counterexample().expect("a counterexample")];
             let v: HashMap<String, bool> = cx
                 .inputs
                 .iter()

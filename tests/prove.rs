@@ -15,8 +15,7 @@ fn design(name: &str, text: &str) -> Design {
 }
 
 fn engines() -> Vec<EngineKind> {
-    use clap::ValueEnum;
-    EngineKind::value_variants().to_vec()
+    EngineKind::ALL.to_vec()
 }
 
 /// Engines that decide only what fits their limits (one method of the portfolio alone): an

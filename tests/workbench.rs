@@ -3,6 +3,7 @@
 //! different with counterexamples that Icarus Verilog (an independent simulator) confirms.
 
 use equicone::assume;
+use equicone::check::{check, CheckRequest, DiagnosisRequest};
 use equicone::design::Format;
 use equicone::engine::{self, Counterexample, ProveOptions, ProveReport, Verdict};
 use equicone::front::load_texts;
@@ -25,11 +26,12 @@ fn verilog(spec: &GenSpec) -> (String, Design) {
 }
 
 fn prove(r: &Design, c: &Design, assumptions: &[String]) -> ProveReport {
-    let opts = ProveOptions::default();
-    let mut shared = engine::pair(r, c, opts.pair_by, false).unwrap_or_else(|e| panic!("{e}"));
-    assume::apply_to_shared(&mut shared, r, assumptions).unwrap_or_else(|e| panic!("{e}"));
-    engine::prove_shared(r, c, shared, assumptions, &opts)
-        .unwrap_or_else(|_| panic!("prove failed"))
+    let req = CheckRequest {
+        assumptions: assumptions.to_vec(),
+        diagnosis: DiagnosisRequest::Off,
+        ..CheckRequest::new(r, c)
+    };
+    check(&req).unwrap_or_else(|e| panic!("{e}")).report
 }
 
 fn range_assumption(n: usize) -> Vec<String> {
@@ -94,7 +96,11 @@ fn iverilog_available() -> bool {
 /// Bus values of a counterexample's shared inputs: port -> bits by index.
 fn buses(c: &Counterexample) -> BTreeMap<String, BTreeMap<i64, bool>> {
     let mut m: BTreeMap<String, BTreeMap<i64, bool>> = BTreeMap::new();
-    for i in c.inputs.iter().filter(|i| i.side == "both") {
+    for i in c
+        .inputs
+        .iter()
+        .filter(|i| i.side == equicone::engine::Side::Both)
+    {
         let (port, idx) = equicone::design::split_bit(&i.name);
         m.entry(port.to_string())
             .or_default()

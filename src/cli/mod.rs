@@ -4,6 +4,8 @@
 //! Exit codes: 0 equivalent / nothing flagged, 1 different / something flagged, 2 bad input or
 //! usage, 3 undecided (a limit was hit), 4 internal error (no claim is made).
 
+#[macro_use]
+mod enums;
 mod common;
 mod cone;
 mod demo;

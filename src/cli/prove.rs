@@ -5,18 +5,57 @@ use super::common::{
     FormatArg,
 };
 use super::Exit;
-use crate::cnf::{dimacs, Tseitin};
+use crate::certify::{Certificate, NoCertificate, ProofFormat};
+use crate::check::{self, CheckError, CheckRequest, DiagnosisRequest};
 use crate::design::Design;
 use crate::design::Format;
 use crate::diag::InputError;
-use crate::diagnose;
-use crate::engine::{self, EngineKind, PairBy, ProveError, ProveOptions, Verdict};
+use crate::engine::{EngineKind, PairBy, ProveOptions, Verdict};
 use crate::front::{self, ReadError, Source};
 use crate::report;
-use crate::sat::ClauseSink;
 use clap::Args;
 use std::io::IsTerminal;
-use std::time::Duration;
+
+cli_enum! {
+    /// How to match input and output bits (`--pair-by`).
+    PairByArg => PairBy {
+        /// Bits with the same name.
+        Name,
+        /// Bits in the same position (same counts and order on both sides).
+        Position,
+    }
+}
+
+cli_enum! {
+    /// The proof engine (`--engine`).
+    EngineArg => EngineKind {
+        /// The portfolio: exhaustive simulation for output groups with small supports, BDDs within
+        /// a node limit, then SAT sweeping for the rest (the method of each pair is reported).
+        Portfolio,
+        /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair
+        /// the same literal or an XOR query; independent output cones on several threads.
+        Sweep,
+        /// The single-call miter: all output XORs ORed in one SAT query (repeated only to separate
+        /// more pairs after a counterexample). No simulation, no sweeping: the baseline.
+        Plain,
+        /// Simulation, then one incremental SAT query per output pair on its XOR, no sweeping.
+        Pairs,
+        /// Exhaustive simulation alone (pairs whose support is too large stay undecided).
+        Exhaustive,
+        /// BDDs alone (pairs past the node limit stay undecided).
+        Bdd,
+    }
+}
+
+cli_enum! {
+    /// Proof formats (`--proof-format`).
+    ProofFormatArg => ProofFormat {
+        /// DRAT in text form, checkable by any DRAT checker.
+        Drat,
+        /// varisat's native format, checkable by the varisat-checker crate.
+        Varisat,
+    }
+}
 
 /// Reading the reference and the candidate.
 #[derive(Args, Debug, Clone)]
@@ -49,8 +88,8 @@ pub struct PairArgs {
     #[arg(long)]
     pub cand_top: Option<String>,
     /// How to match input and output bits.
-    #[arg(long, value_enum, default_value_t = PairBy::Name)]
-    pub pair_by: PairBy,
+    #[arg(long, value_enum, default_value_t = PairByArg::Name)]
+    pub pair_by: PairByArg,
     /// Leave input bits that exist on one side only free (the verdict then covers all their values).
     #[arg(long)]
     pub free_extra_inputs: bool,
@@ -132,8 +171,8 @@ pub struct ProveArgs {
     /// The proof engine: `sweep` (default) merges proved internal node pairs before the output
     /// queries; `plain` is the single-call miter (baseline and fallback); `pairs` is
     /// simulation plus one query per output pair.
-    #[arg(long, value_enum, default_value_t = EngineKind::default())]
-    engine: EngineKind,
+    #[arg(long, value_enum, default_value_t = EngineArg::Portfolio)]
+    engine: EngineArg,
     /// Worker threads for independent output cones (default: one per core). The verdicts do
     /// not depend on it.
     #[arg(long, short = 'j', value_name = "N")]
@@ -163,8 +202,8 @@ pub struct ProveArgs {
     #[arg(long, value_name = "FILE")]
     proof: Option<String>,
     /// Format of the --proof file.
-    #[arg(long, value_enum, default_value_t = crate::certify::ProofFormat::Drat)]
-    proof_format: crate::certify::ProofFormat,
+    #[arg(long, value_enum, default_value_t = ProofFormatArg::Drat)]
+    proof_format: ProofFormatArg,
     /// The select bus for route tables of differing outputs (default: `sel`, `s`, `select` or
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
@@ -181,7 +220,7 @@ pub struct CnfArgs {
     output: String,
 }
 
-/// Run `prove`.
+/// Run `prove`: read both designs, hand them to the check session, print its outcome.
 pub fn run(a: &ProveArgs) -> Exit {
     // The clock starts before reading: --timeout covers the whole run.
     let timeout = match timeout_of(a.timeout) {
@@ -193,52 +232,43 @@ pub fn run(a: &ProveArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
-    let opts = ProveOptions {
-        pair_by: a.pair.pair_by,
-        free_extra_inputs: a.pair.free_extra_inputs,
-        engine: a.engine,
-        timeout: deadline.remaining(),
-        conflict_limit: a.conflict_limit,
-        seed: a.seed,
-        sim_words: None,
-        jobs: a.jobs.unwrap_or(0),
-        progress: !a.json && std::io::stderr().is_terminal(),
+    let req = CheckRequest {
+        reference: &r,
+        candidate: &c,
+        assumptions: a.assume.clone(),
+        options: ProveOptions {
+            pair_by: a.pair.pair_by.into(),
+            free_extra_inputs: a.pair.free_extra_inputs,
+            engine: a.engine.into(),
+            timeout: deadline.remaining(),
+            conflict_limit: a.conflict_limit,
+            seed: a.seed,
+            sim_words: None,
+            jobs: a.jobs.unwrap_or(0),
+            progress: !a.json && std::io::stderr().is_terminal(),
+        },
+        diagnosis: match &a.select {
+            Some(b) => DiagnosisRequest::Select(b.clone()),
+            None => DiagnosisRequest::Auto,
+        },
+        certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
     };
-    let mut shared = match engine::pair(&r, &c, opts.pair_by, opts.free_extra_inputs) {
-        Ok(s) => s,
-        Err(e) => return report_input_error(&e),
+    let out = match check::check(&req) {
+        Ok(out) => out,
+        Err(CheckError::Input(e)) => return report_input_error(&e),
+        Err(CheckError::Internal(m)) => return report_internal(&m),
     };
-    if let Err(e) = crate::assume::apply_to_shared(&mut shared, &r, &a.assume) {
-        return report_input_error(&e);
-    }
-    let kept = a.proof.as_ref().map(|_| shared.clone());
-    let mut rep = match engine::prove_shared(&r, &c, shared, &a.assume, &opts) {
-        Ok(rep) => rep,
-        Err(ProveError::Input(e)) => return report_input_error(&e),
-        Err(ProveError::Internal(m)) => return report_internal(&m),
-    };
-    let bus = diagnose::pick_select(&r, &c, a.select.as_deref());
-    if let (None, Some(b)) = (&bus, &a.select) {
+    if let Some(b) = &out.select_missing {
         eprintln!(
             "warning: no route tables: `{b}` is not an input bus of both designs (up to 16 bits)"
         );
     }
-    if rep.verdict == Verdict::Different {
-        let limits = crate::sat::Limits::new(deadline.remaining(), a.conflict_limit);
-        if let (Ok((r2, rc)), Ok((c2, cc))) = (
-            crate::assume::on_design(&r, &a.assume),
-            crate::assume::on_design(&c, &a.assume),
-        ) {
-            rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, bus.as_deref(), (rc, cc), &limits);
-        }
-    }
-    if let (Some(path), Some(shared)) = (&a.proof, &kept) {
-        let left = deadline.remaining();
-        if let Err(code) = write_proof(&r, &c, shared, &rep, path, a.proof_format, left) {
+    if let (Some(path), Some(cert)) = (&a.proof, &out.certificate) {
+        if let Err(code) = write_proof(cert, path) {
             return code;
         }
     }
-    let json = report::to_json(&rep);
+    let json = report::to_json(&out);
     if let Some(path) = &a.report {
         if let Err(e) = write_atomic(path, json.as_bytes()) {
             return report_input_error(&e);
@@ -247,9 +277,9 @@ pub fn run(a: &ProveArgs) -> Exit {
     print(&if a.json {
         json
     } else {
-        report::prove_text(&rep)
+        report::check_text(&out)
     });
-    match rep.verdict {
+    match out.verdict() {
         Verdict::Equivalent => Exit::Ok,
         Verdict::Different => Exit::Flagged,
         Verdict::Undecided => Exit::Undecided,
@@ -263,58 +293,17 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
-    let shared = match engine::pair(&r, &c, a.pair.pair_by, a.pair.free_extra_inputs) {
-        Ok(s) => s,
+    let miter = match check::miter_cnf(&r, &c, a.pair.pair_by.into(), a.pair.free_extra_inputs) {
+        Ok(m) => m,
         Err(e) => return report_input_error(&e),
     };
-    let mut f = varisat::CnfFormula::new();
-    let mut ts = Tseitin::new();
-    let mut xors = Vec::new();
-    let mut comments = vec![
-        format!(
-            "equicone miter: reference {} vs candidate {}",
-            r.name, c.name
-        ),
-        "unsatisfiable exactly when every output pair is equal".to_string(),
-    ];
-    for k in 0..shared.aig.num_inputs() {
-        let v = ts.lit(&shared.aig, &mut f, shared.aig.input_lit(k));
-        let (name, side) = shared.input_name(k, &r, &c);
-        let side = if side.is_empty() {
-            String::new()
-        } else {
-            format!(" ({side} only)")
-        };
-        comments.push(format!("input {} {name}{side}", dimacs::dimacs_number(v)));
-    }
-    for p in 0..shared.pairs.len() {
-        let x = ts.lit(&shared.aig, &mut f, shared.ref_lits[p]);
-        let y = ts.lit(&shared.aig, &mut f, shared.cand_lits[p]);
-        let d = f.fresh();
-        // d <-> (x xor y)
-        f.clause(&[!d, x, y]);
-        f.clause(&[!d, !x, !y]);
-        f.clause(&[d, !x, y]);
-        f.clause(&[d, x, !y]);
-        let (ri, ci) = shared.pairs[p];
-        comments.push(format!(
-            "pair {} reference {} candidate {} (differs when true)",
-            dimacs::dimacs_number(d),
-            r.outputs[ri].name,
-            c.outputs[ci].name
-        ));
-        xors.push(d);
-    }
-    f.clause(&xors);
-    let mut buf = Vec::new();
-    dimacs::write_dimacs(&mut buf, &f, &comments).expect("writing to memory");
-    match write_atomic(&a.output, &buf) {
+    match write_atomic(&a.output, &miter.to_dimacs()) {
         Ok(()) => {
             eprintln!(
                 "wrote {} ({} variables, {} clauses)",
                 a.output,
-                f.var_count(),
-                f.len()
+                miter.formula.var_count(),
+                miter.formula.len()
             );
             Exit::Ok
         }
@@ -322,22 +311,9 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
     }
 }
 
-/// Certify the equivalent output pairs and write the proof and its formula.
-fn write_proof(
-    r: &Design,
-    c: &Design,
-    shared: &engine::Shared,
-    rep: &engine::ProveReport,
-    path: &str,
-    format: crate::certify::ProofFormat,
-    timeout: Option<Duration>,
-) -> Result<(), Exit> {
-    use crate::certify::{certify, NoCertificate};
-    let pairs: Vec<usize> = (0..rep.pairs.len())
-        .filter(|&p| rep.pairs[p].status == Verdict::Equivalent)
-        .collect();
-    let limits = crate::sat::Limits::new(timeout, None);
-    match certify(r, c, shared, &pairs, format, &limits) {
+/// Write the certificate of the equivalent output pairs and its formula, or say why there is none.
+fn write_proof(cert: &Result<Certificate, NoCertificate>, path: &str) -> Result<(), Exit> {
+    match cert {
         Ok(cert) => {
             let cnf_path = format!("{path}.cnf");
             if let Err(e) = write_atomic(&cnf_path, &cert.cnf).and_then(|_| write_atomic(path, &cert.proof)) {

@@ -4,11 +4,10 @@
 //! cones (the masked test-mode pin shows as a redundant input) and prints its cost, delay and
 //! bounds. Every figure printed is computed here and now by the tool.
 
+use crate::check::{self, CheckOutcome, CheckRequest, DiagnosisRequest};
 use crate::cone::{self, AuditOptions};
 use crate::cost::{self, CostModel};
 use crate::design::{Design, Format};
-use crate::diagnose;
-use crate::engine::{self, ProveOptions, ProveReport};
 use crate::front;
 use crate::report;
 use crate::sat::Limits;
@@ -43,19 +42,13 @@ fn load(k: usize) -> Design {
     .unwrap_or_else(|e| panic!("embedded demo file {name} must read: {e}"))
 }
 
-fn prove(r: &Design, c: &Design) -> Result<ProveReport, String> {
-    let opts = ProveOptions::default();
-    let assume = vec![ASSUME.to_string()];
-    let mut shared = engine::pair(r, c, opts.pair_by, false).map_err(|e| e.to_string())?;
-    crate::assume::apply_to_shared(&mut shared, r, &assume).map_err(|e| e.to_string())?;
-    let mut rep = engine::prove_shared(r, c, shared, &assume, &opts).map_err(|e| match e {
-        engine::ProveError::Input(e) => e.to_string(),
-        engine::ProveError::Internal(m) => m,
-    })?;
-    let (r2, rc) = crate::assume::on_design(r, &assume).map_err(|e| e.to_string())?;
-    let (c2, cc) = crate::assume::on_design(c, &assume).map_err(|e| e.to_string())?;
-    rep.diagnosis = diagnose::diagnose(&r2, &c2, &rep, Some("sel"), (rc, cc), &Limits::none());
-    Ok(rep)
+fn prove(r: &Design, c: &Design) -> Result<CheckOutcome, String> {
+    let req = CheckRequest {
+        assumptions: vec![ASSUME.to_string()],
+        diagnosis: DiagnosisRequest::Select("sel".to_string()),
+        ..CheckRequest::new(r, c)
+    };
+    check::check(&req).map_err(|e| e.to_string())
 }
 
 /// Run the demo; returns the text to print, or an internal error.
@@ -70,9 +63,9 @@ pub fn run() -> Result<String, String> {
         "The sequencer never drives sel above 11, so every check below assumes `{ASSUME}`.\n"
     );
     s += "\n== 1. Revision r2 (2:1 tree + decoder AND-OR) against the spec\n";
-    s += &report::prove_text(&prove(&spec, &r2)?);
+    s += &report::check_text(&prove(&spec, &r2)?);
     s += "\n== 2. Revision r3 against the spec\n";
-    s += &report::prove_text(&prove(&spec, &r3)?);
+    s += &report::check_text(&prove(&spec, &r3)?);
     s += "\n== 3. Cone audit of r2: what really reaches each output\n";
     let limits = Limits::none();
     let audit = cone::audit(

@@ -3,7 +3,7 @@
 
 use crate::design::Design;
 use crate::engine::pairing::{Shared, SharedInput};
-use crate::engine::result::{Counterexample, InputValue, Method, OutputDiff};
+use crate::engine::result::{Counterexample, InputValue, Method, OutputDiff, Side};
 
 /// Re-simulate `values` (one per shared input) on both designs. Returns the counterexample
 /// with every differing output pair, or an error message when `must_differ` (a pair index)
@@ -46,9 +46,9 @@ pub fn confirm(
         .enumerate()
         .map(|(k, origin)| {
             let (bit, side) = match *origin {
-                SharedInput::Both { reference, .. } => (&r.inputs[reference], "both"),
-                SharedInput::Reference(i) => (&r.inputs[i], "reference"),
-                SharedInput::Candidate(i) => (&c.inputs[i], "candidate"),
+                SharedInput::Both { reference, .. } => (&r.inputs[reference], Side::Both),
+                SharedInput::Reference(i) => (&r.inputs[i], Side::Reference),
+                SharedInput::Candidate(i) => (&c.inputs[i], Side::Candidate),
             };
             InputValue {
                 name: bit.name.clone(),

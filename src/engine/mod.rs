@@ -31,12 +31,15 @@ use crate::sat::{Limits, Sat, SatStats, StopReason};
 pub use pairing::{pair, PairBy, Shared};
 use pairs::PairQuery;
 use progress::Progress;
-pub use result::{Counterexample, Method, PairResult, ProveReport, Stats, Verdict, SCOPE};
+pub use result::{
+    Counterexample, Method, PairResult, PairVerdict, ProveReport, Scope, Side, Stats, Verdict,
+};
 use std::time::{Duration, Instant};
 pub use sweep::SweepStats;
 
 /// Which engine decides the output pairs.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Default, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Default, serde::Serialize)]
+#[serde(rename_all = "lowercase")]
 pub enum EngineKind {
     /// The portfolio: exhaustive simulation for output groups with small supports, BDDs within
     /// a node limit, then SAT sweeping for the rest (the method of each pair is reported).
@@ -57,6 +60,16 @@ pub enum EngineKind {
 }
 
 impl EngineKind {
+    /// Every engine, in the order of the command line's list.
+    pub const ALL: [EngineKind; 6] = [
+        EngineKind::Portfolio,
+        EngineKind::Sweep,
+        EngineKind::Plain,
+        EngineKind::Pairs,
+        EngineKind::Exhaustive,
+        EngineKind::Bdd,
+    ];
+
     /// Name used in reports.
     pub fn name(self) -> &'static str {
         match self {
@@ -136,13 +149,13 @@ impl From<InputError> for ProveError {
     }
 }
 
-/// The state of one output pair during a run.
-#[derive(Copy, Clone, Debug, PartialEq)]
-enum Outcome {
-    Open,
-    Equal(Method),
-    Differ(Method, usize),
-    Stopped(StopReason),
+/// The state of one output pair during a run: `None` while open.
+type Outcome = Option<PairVerdict>;
+
+/// Whether a pair may still take a verdict from a later finding: open, or stopped (a
+/// counterexample found by another pair's query may still separate it).
+fn revisable(o: &Outcome) -> bool {
+    matches!(o, None | Some(PairVerdict::Undecided(_)))
 }
 
 /// Prove `candidate` equivalent to `reference`, or find where they differ.
@@ -170,7 +183,7 @@ pub fn prove_shared(
 ) -> Result<ProveReport, ProveError> {
     let start = Instant::now();
     let limits = Limits::new(opts.timeout, opts.conflict_limit);
-    let mut outcomes = vec![Outcome::Open; shared.pairs.len()];
+    let mut outcomes = vec![None; shared.pairs.len()];
     let mut cexs: Vec<Counterexample> = Vec::new();
 
     let rss_at_start = status_kib("VmRSS:");
@@ -186,7 +199,7 @@ pub fn prove_shared(
         patterns,
         cexs.len()
     );
-    progress.outputs_done(outcomes.iter().filter(|o| **o != Outcome::Open).count());
+    progress.outputs_done(outcomes.iter().filter(|o| o.is_some()).count());
     let queries: Vec<PairQuery> = (0..shared.pairs.len())
         .map(|p| PairQuery {
             reference: shared.ref_lits[p],
@@ -195,12 +208,12 @@ pub fn prove_shared(
         .collect();
     // Pairs whose two sides hashed to the same literal need no engine at all.
     for (p, q) in queries.iter().enumerate() {
-        if outcomes[p] == Outcome::Open && q.reference == q.candidate {
-            outcomes[p] = Outcome::Equal(Method::Structure);
+        if outcomes[p].is_none() && q.reference == q.candidate {
+            outcomes[p] = Some(PairVerdict::Equivalent(Method::Structure));
         }
     }
     let open: Vec<usize> = (0..shared.pairs.len())
-        .filter(|&p| outcomes[p] == Outcome::Open)
+        .filter(|&p| outcomes[p].is_none())
         .collect();
     let mut sweep_stats = None;
     let mut portfolio_groups = None;
@@ -217,27 +230,16 @@ pub fn prove_shared(
             (f.into_iter().map(Some).collect(), s)
         }
         EngineKind::Pairs => {
-            // Pairs decided by simulation get a placeholder that the merge below ignores.
-            let mut f: Vec<Option<Finding>> = (0..queries.len())
-                .map(|p| {
-                    if outcomes[p] != Outcome::Open {
-                        Some(Finding::Stopped(StopReason::Timeout))
-                    } else if queries[p].reference == queries[p].candidate {
-                        Some(Finding::Equal(Method::Structure))
-                    } else {
-                        None
-                    }
-                })
-                .collect();
+            // Only the open pairs are queried; the others keep their outcome.
             let mut sat = Sat::new(&limits);
             let mut ts = Tseitin::new();
-            pairs::decide_pairs(
+            let f = pairs::decide_open_pairs(
                 &shared.aig,
                 &queries,
                 shared.constraint,
+                &open,
                 &mut sat,
                 &mut ts,
-                &mut f,
                 &limits,
                 &progress,
             );
@@ -292,18 +294,18 @@ pub fn prove_shared(
         let Some(f) = f else { continue };
         match f {
             Finding::Equal(m) => {
-                if outcomes[p] == Outcome::Open {
-                    outcomes[p] = Outcome::Equal(m);
+                if outcomes[p].is_none() {
+                    outcomes[p] = Some(PairVerdict::Equivalent(m));
                 }
             }
             Finding::Differ(m, values) => {
-                if matches!(outcomes[p], Outcome::Open | Outcome::Stopped(_)) {
+                if revisable(&outcomes[p]) {
                     record(&shared, r, c, &values, p, m, &mut outcomes, &mut cexs)?;
                 }
             }
             Finding::Stopped(s) => {
-                if outcomes[p] == Outcome::Open {
-                    outcomes[p] = Outcome::Stopped(s);
+                if outcomes[p].is_none() {
+                    outcomes[p] = Some(PairVerdict::Undecided(s));
                 }
             }
         }
@@ -314,31 +316,16 @@ pub fn prove_shared(
         .pairs
         .iter()
         .zip(&outcomes)
-        .map(|(&(ri, ci), o)| {
-            let (status, method, stopped, counterexample) = match *o {
-                Outcome::Equal(m) => (Verdict::Equivalent, m, None, None),
-                Outcome::Differ(m, k) => (Verdict::Different, m, None, Some(k)),
-                Outcome::Stopped(s) => (Verdict::Undecided, Method::None, Some(s), None),
-                Outcome::Open => (
-                    Verdict::Undecided,
-                    Method::None,
-                    Some(StopReason::Timeout),
-                    None,
-                ),
-            };
-            PairResult {
-                reference: r.outputs[ri].name.clone(),
-                candidate: c.outputs[ci].name.clone(),
-                status,
-                method,
-                stopped,
-                counterexample,
-            }
+        .map(|(&(ri, ci), o)| PairResult {
+            reference: r.outputs[ri].name.clone(),
+            candidate: c.outputs[ci].name.clone(),
+            // A pair no engine reached was stopped by the clock.
+            verdict: o.unwrap_or(PairVerdict::Undecided(StopReason::Timeout)),
         })
         .collect();
-    let verdict = if pairs.iter().any(|p| p.status == Verdict::Different) {
+    let verdict = if pairs.iter().any(|p| p.status() == Verdict::Different) {
         Verdict::Different
-    } else if pairs.iter().any(|p| p.status == Verdict::Undecided) {
+    } else if pairs.iter().any(|p| p.status() == Verdict::Undecided) {
         Verdict::Undecided
     } else {
         Verdict::Equivalent
@@ -355,7 +342,7 @@ pub fn prove_shared(
         reference: r.name.clone(),
         candidate: c.name.clone(),
         pair_by: opts.pair_by,
-        engine: opts.engine.name(),
+        engine: opts.engine,
         assumptions: assumptions.to_vec(),
         free_inputs: shared.unmatched.clone(),
         pairs,
@@ -374,9 +361,8 @@ pub fn prove_shared(
             seconds: start.elapsed().as_secs_f64(),
         },
         warnings,
-        scope: SCOPE,
+        scope: Scope::ZeroDelayLogic,
         unknowns: unknowns::sources(r, c),
-        diagnosis: None,
     })
 }
 
@@ -412,7 +398,7 @@ fn simulate_phase(
         }
         simulate_into(&shared.aig, &row, 1, &mut table);
         for p in 0..shared.pairs.len() {
-            if outcomes[p] != Outcome::Open || first[p].is_some() {
+            if outcomes[p].is_some() || first[p].is_some() {
                 continue;
             }
             let (a, b) = (shared.ref_lits[p], shared.cand_lits[p]);
@@ -424,7 +410,7 @@ fn simulate_phase(
         }
     }
     for p in 0..shared.pairs.len() {
-        if outcomes[p] != Outcome::Open {
+        if outcomes[p].is_some() {
             continue;
         }
         if let Some(pat) = first[p] {
@@ -454,13 +440,16 @@ fn record(
         counterexample::confirm(shared, r, c, values, p, method).map_err(ProveError::Internal)?;
     let k = cexs.len();
     for (q, &(ri, ci)) in shared.pairs.iter().enumerate() {
-        if matches!(outcomes[q], Outcome::Open | Outcome::Stopped(_))
+        if revisable(&outcomes[q])
             && cex
                 .differing
                 .iter()
                 .any(|d| d.reference == r.outputs[ri].name && d.candidate == c.outputs[ci].name)
         {
-            outcomes[q] = Outcome::Differ(method, k);
+            outcomes[q] = Some(PairVerdict::Different {
+                found_by: method,
+                counterexample: k,
+            });
         }
     }
     cexs.push(cex);

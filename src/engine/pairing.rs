@@ -7,10 +7,11 @@
 use crate::aig::{Aig, Lit};
 use crate::design::{Design, InputKind};
 use crate::diag::InputError;
+use crate::engine::result::Side;
 use serde::Serialize;
 
 /// How output and input bits of the two designs are matched.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize, clap::ValueEnum, Default)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize, Default)]
 #[serde(rename_all = "lowercase")]
 pub enum PairBy {
     /// Bits with the same name.
@@ -64,16 +65,11 @@ pub struct Shared {
 
 impl Shared {
     /// Name of a shared input for reports.
-    pub fn input_name<'a>(
-        &self,
-        k: usize,
-        r: &'a Design,
-        c: &'a Design,
-    ) -> (&'a str, &'static str) {
+    pub fn input_name<'a>(&self, k: usize, r: &'a Design, c: &'a Design) -> (&'a str, Side) {
         match self.inputs[k] {
-            SharedInput::Both { reference, .. } => (&r.inputs[reference].name, ""),
-            SharedInput::Reference(i) => (&r.inputs[i].name, "reference"),
-            SharedInput::Candidate(i) => (&c.inputs[i].name, "candidate"),
+            SharedInput::Both { reference, .. } => (&r.inputs[reference].name, Side::Both),
+            SharedInput::Reference(i) => (&r.inputs[i].name, Side::Reference),
+            SharedInput::Candidate(i) => (&c.inputs[i].name, Side::Candidate),
         }
     }
 }

@@ -21,6 +21,29 @@ pub(crate) struct PairQuery {
     pub candidate: Lit,
 }
 
+/// Decide the pairs `open` (indices into `pairs`) in order under `constraint`; the findings
+/// of the other pairs stay `None`.
+#[allow(clippy::too_many_arguments)]
+pub(crate) fn decide_open_pairs(
+    aig: &Aig,
+    pairs: &[PairQuery],
+    constraint: Lit,
+    open: &[usize],
+    sat: &mut Sat<'_>,
+    ts: &mut Tseitin,
+    limits: &Limits,
+    progress: &Progress,
+) -> Vec<Option<Finding>> {
+    let sub: Vec<PairQuery> = open.iter().map(|&p| pairs[p]).collect();
+    let mut found = vec![None; sub.len()];
+    decide_pairs(aig, &sub, constraint, sat, ts, &mut found, limits, progress);
+    let mut findings = vec![None; pairs.len()];
+    for (&p, f) in open.iter().zip(found) {
+        findings[p] = f;
+    }
+    findings
+}
+
 /// Decide every pair whose finding is still `None`, in order, under `constraint`.
 #[allow(clippy::too_many_arguments)]
 pub(crate) fn decide_pairs(
@@ -69,11 +92,12 @@ pub(crate) fn decide_pairs(
                     }
                     continue;
                 }
-                SplitResult::Stopped(StopReason::Timeout | StopReason::EngineLimit) => {
+                SplitResult::TimedOut => {
                     findings[p] = Some(Finding::Stopped(StopReason::Timeout));
                     continue;
                 }
-                SplitResult::Stopped(StopReason::ConflictLimit) => {}
+                // Out of cofactors: the whole query below decides instead.
+                SplitResult::BudgetSpent => {}
             }
         }
         let a = ts.lit(aig, sat, pairs[p].reference);
@@ -118,12 +142,13 @@ pub(crate) fn decide_pairs(
                     sat.clause(&[!act]);
                     continue;
                 }
-                SplitResult::Stopped(StopReason::Timeout | StopReason::EngineLimit) => {
+                SplitResult::TimedOut => {
                     findings[p] = Some(Finding::Stopped(StopReason::Timeout));
                     sat.clause(&[!act]);
                     continue;
                 }
-                SplitResult::Stopped(StopReason::ConflictLimit) => answer = sat.solve(&[act]),
+                // Out of cofactors: solve on without a conflict budget.
+                SplitResult::BudgetSpent => answer = sat.solve(&[act]),
             }
         } else if answer == SatResult::Stopped(StopReason::ConflictLimit) {
             answer = sat.solve(&[act]);

@@ -45,8 +45,6 @@ pub enum Method {
     Exhaustive,
     /// Equal canonical BDDs, or a path of their difference.
     Bdd,
-    /// Nothing decided it (the verdict is undecided).
-    None,
 }
 
 impl Method {
@@ -60,28 +58,163 @@ impl Method {
             Method::Split => "split",
             Method::Exhaustive => "exhaustive",
             Method::Bdd => "bdd",
-            Method::None => "-",
         }
     }
 }
 
-/// The result for one output pair.
-#[derive(Clone, Debug, PartialEq, Serialize)]
+/// The verdict of one output pair with its evidence: how an equivalence was shown, which
+/// counterexample separates a difference, or why no answer came.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub enum PairVerdict {
+    /// Equal on every input vector (that satisfies the assumptions), shown by this method.
+    Equivalent(Method),
+    /// Different: `counterexample` indexes [`ProveReport::counterexamples`]; `found_by` is the
+    /// method that found a vector separating this pair.
+    Different {
+        /// What found the separating vector.
+        found_by: Method,
+        /// Index of a re-simulated vector on which this pair differs.
+        counterexample: usize,
+    },
+    /// No answer: a limit stopped the engine first.
+    Undecided(StopReason),
+}
+
+impl PairVerdict {
+    /// The verdict word without its evidence.
+    pub fn verdict(self) -> Verdict {
+        match self {
+            PairVerdict::Equivalent(_) => Verdict::Equivalent,
+            PairVerdict::Different { .. } => Verdict::Different,
+            PairVerdict::Undecided(_) => Verdict::Undecided,
+        }
+    }
+
+    /// What decided the pair (`None` when undecided).
+    pub fn method(self) -> Option<Method> {
+        match self {
+            PairVerdict::Equivalent(m) | PairVerdict::Different { found_by: m, .. } => Some(m),
+            PairVerdict::Undecided(_) => None,
+        }
+    }
+
+    /// The counterexample index of a different pair.
+    pub fn counterexample(self) -> Option<usize> {
+        match self {
+            PairVerdict::Different { counterexample, .. } => Some(counterexample),
+            _ => None,
+        }
+    }
+
+    /// Why an undecided pair stopped.
+    pub fn stopped(self) -> Option<StopReason> {
+        match self {
+            PairVerdict::Undecided(s) => Some(s),
+            _ => None,
+        }
+    }
+}
+
+/// The result for one output pair. Its JSON form keeps the flat fields `status`, `method`
+/// (`none` when undecided), `stopped` and `counterexample`.
+#[derive(Clone, Debug, PartialEq)]
 pub struct PairResult {
     /// Reference output bit name.
     pub reference: String,
     /// Candidate output bit name.
     pub candidate: String,
-    /// The verdict for this pair.
-    pub status: Verdict,
-    /// What decided it.
-    pub method: Method,
-    /// Why it is undecided.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub stopped: Option<StopReason>,
-    /// Index into [`ProveReport::counterexamples`] of a vector on which this pair differs.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub counterexample: Option<usize>,
+    /// The verdict for this pair and its evidence.
+    pub verdict: PairVerdict,
+}
+
+impl PairResult {
+    /// The verdict word of this pair.
+    pub fn status(&self) -> Verdict {
+        self.verdict.verdict()
+    }
+}
+
+impl Serialize for PairResult {
+    fn serialize<S: serde::Serializer>(&self, s: S) -> Result<S::Ok, S::Error> {
+        use serde::ser::SerializeStruct;
+        let v = self.verdict;
+        let extra = usize::from(v.stopped().is_some()) + usize::from(v.counterexample().is_some());
+        let mut st = s.serialize_struct("PairResult", 4 + extra)?;
+        st.serialize_field("reference", &self.reference)?;
+        st.serialize_field("candidate", &self.candidate)?;
+        st.serialize_field("status", &v.verdict())?;
+        match v.method() {
+            Some(m) => st.serialize_field("method", &m)?,
+            None => st.serialize_field("method", "none")?,
+        }
+        if let Some(r) = v.stopped() {
+            st.serialize_field("stopped", &r)?;
+        }
+        if let Some(k) = v.counterexample() {
+            st.serialize_field("counterexample", &k)?;
+        }
+        st.end()
+    }
+}
+
+/// Which design an input bit belongs to.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Side {
+    /// A paired port bit of both designs.
+    Both,
+    /// A free input of the reference only.
+    Reference,
+    /// A free input of the candidate only.
+    Candidate,
+}
+
+impl Side {
+    /// Word used in reports.
+    pub fn word(self) -> &'static str {
+        match self {
+            Side::Both => "both",
+            Side::Reference => "reference",
+            Side::Candidate => "candidate",
+        }
+    }
+
+    /// ` (reference only)` or ` (candidate only)` for a one-sided input, empty for both.
+    pub fn only_note(self) -> String {
+        match self {
+            Side::Both => String::new(),
+            s => format!(" ({} only)", s.word()),
+        }
+    }
+}
+
+/// What a verdict covers.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Default)]
+pub enum Scope {
+    /// Zero-delay Boolean logic of the netlists as modeled.
+    #[default]
+    ZeroDelayLogic,
+}
+
+impl Scope {
+    /// The sentence printed in every report.
+    pub fn text(self) -> &'static str {
+        match self {
+            Scope::ZeroDelayLogic => SCOPE,
+        }
+    }
+}
+
+impl std::fmt::Display for Scope {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(self.text())
+    }
+}
+
+impl Serialize for Scope {
+    fn serialize<S: serde::Serializer>(&self, s: S) -> Result<S::Ok, S::Error> {
+        s.serialize_str(self.text())
+    }
 }
 
 /// One input bit's value in a counterexample.
@@ -89,8 +222,8 @@ pub struct PairResult {
 pub struct InputValue {
     /// Bit name.
     pub name: String,
-    /// `both` for a paired port bit, else `reference` or `candidate` (a free input of one side).
-    pub side: &'static str,
+    /// A paired port bit of both designs, or a free input of one side.
+    pub side: Side,
     /// Whether this bit stands for an unknown (`x`) value in the source.
     pub unknown: bool,
     /// The value.
@@ -163,7 +296,7 @@ pub struct ProveReport {
     /// How bits were paired.
     pub pair_by: PairBy,
     /// The engine used.
-    pub engine: &'static str,
+    pub engine: crate::engine::EngineKind,
     /// The assumptions in force (source text).
     pub assumptions: Vec<String>,
     /// Port inputs of one side only, left free.
@@ -177,21 +310,18 @@ pub struct ProveReport {
     /// Warnings from reading the designs.
     pub warnings: Vec<String>,
     /// What the verdict covers.
-    pub scope: &'static str,
+    pub scope: Scope,
     /// Where either design reads unknown values (`side: file:line:col: what`).
     pub unknowns: Vec<String>,
-    /// Route tables of differing selector-like outputs (filled by the caller).
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub diagnosis: Option<crate::diagnose::Diagnosis>,
 }
 
-/// What a proof covers, for every report.
-pub const SCOPE: &str =
+/// What a proof of combinational logic covers, for every report.
+const SCOPE: &str =
     "zero-delay Boolean logic of the netlists as modeled; timing, power and layout are not covered";
 
 impl ProveReport {
     /// Count of pairs with the given status.
     pub fn count(&self, v: Verdict) -> usize {
-        self.pairs.iter().filter(|p| p.status == v).count()
+        self.pairs.iter().filter(|p| p.status() == v).count()
     }
 }

@@ -44,8 +44,11 @@ pub(crate) enum SplitResult {
     Equal,
     /// Different under these values of the graph's inputs.
     Differ(Vec<bool>),
-    /// Splitting gave up (too many cofactors) or the time ran out.
-    Stopped(StopReason),
+    /// The time ran out.
+    TimedOut,
+    /// Splitting gave up: its cofactor budget (cofactors examined, nodes rebuilt, inputs fixed
+    /// along one branch) was spent. The caller may go on another way.
+    BudgetSpent,
 }
 
 /// One cofactor to examine: the parent graph with its roots, the inputs fixed so far (positions
@@ -66,7 +69,10 @@ enum Step {
     Equal,
     /// Different under these values of the original graph's inputs.
     Differ(Vec<bool>),
-    Stopped(StopReason),
+    /// The time ran out.
+    TimedOut,
+    /// Too deep, or nothing left to split on.
+    BudgetSpent,
     /// Split again: its two cofactors, the one to examine first last.
     Split(Item, Item),
 }
@@ -97,12 +103,13 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
         fix: None,
     };
     if limits.expired() {
-        return SplitResult::Stopped(StopReason::Timeout);
+        return SplitResult::TimedOut;
     }
     let (result, leaves) = match step(root, n, limits) {
         Step::Equal => (SplitResult::Equal, 1),
         Step::Differ(v) => (SplitResult::Differ(v), 1),
-        Step::Stopped(r) => (SplitResult::Stopped(r), 1),
+        Step::TimedOut => (SplitResult::TimedOut, 1),
+        Step::BudgetSpent => (SplitResult::BudgetSpent, 1),
         Step::Split(later, first) => {
             let half = Budget {
                 leaves: budget.leaves / 2,
@@ -114,14 +121,17 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
             );
             let result = match (rf, rl) {
                 (d @ SplitResult::Differ(_), _) | (_, d @ SplitResult::Differ(_)) => d,
-                (s @ SplitResult::Stopped(_), _) | (_, s @ SplitResult::Stopped(_)) => s,
+                (s @ (SplitResult::TimedOut | SplitResult::BudgetSpent), _)
+                | (_, s @ (SplitResult::TimedOut | SplitResult::BudgetSpent)) => s,
                 _ => SplitResult::Equal,
             };
             (result, 1 + lf + ll)
         }
     };
-    if result == SplitResult::Equal {
-        log::debug!("split: equal in all {leaves} cofactors");
+    match result {
+        SplitResult::Equal => log::debug!("split: equal in all {leaves} cofactors"),
+        SplitResult::BudgetSpent => log::debug!("split: cofactor budget spent after {leaves}"),
+        _ => {}
     }
     result
 }
@@ -133,17 +143,18 @@ fn run(mut stack: Vec<Item>, n: usize, limits: &Limits, budget: Budget) -> (Spli
     let mut work = 0usize;
     while let Some(item) = stack.pop() {
         if limits.expired() {
-            return (SplitResult::Stopped(StopReason::Timeout), leaves);
+            return (SplitResult::TimedOut, leaves);
         }
         leaves += 1;
         work += item.parent.len();
         if leaves > budget.leaves || work > budget.work {
-            return (SplitResult::Stopped(StopReason::ConflictLimit), leaves);
+            return (SplitResult::BudgetSpent, leaves);
         }
         match step(item, n, limits) {
             Step::Equal => {}
             Step::Differ(v) => return (SplitResult::Differ(v), leaves),
-            Step::Stopped(r) => return (SplitResult::Stopped(r), leaves),
+            Step::TimedOut => return (SplitResult::TimedOut, leaves),
+            Step::BudgetSpent => return (SplitResult::BudgetSpent, leaves),
             Step::Split(later, first) => {
                 stack.push(later);
                 stack.push(first);
@@ -231,18 +242,16 @@ fn step(item: Item, n: usize, limits: &Limits) -> Step {
             }
             Step::Differ(values)
         }
-        SatResult::Stopped(StopReason::Timeout | StopReason::EngineLimit) => {
-            Step::Stopped(StopReason::Timeout)
-        }
+        SatResult::Stopped(StopReason::Timeout | StopReason::EngineLimit) => Step::TimedOut,
         SatResult::Stopped(StopReason::ConflictLimit) => {
             if fixed.len() >= MAX_DEPTH {
-                return Step::Stopped(StopReason::ConflictLimit);
+                return Step::BudgetSpent;
             }
             drop(sat);
             drop(ts);
             match busiest_input(&g, &[x, y, c]) {
                 Some(k) => children(g, k),
-                None => Step::Stopped(StopReason::ConflictLimit),
+                None => Step::BudgetSpent,
             }
         }
     }

@@ -1,6 +1,8 @@
 //! The text form of a proof report.
 
-use crate::engine::{Method, ProveReport, Verdict};
+use crate::check::CheckOutcome;
+use crate::diagnose::Diagnosis;
+use crate::engine::{Method, ProveReport, Side, Verdict};
 use crate::report::values::{group, wrap};
 use std::fmt::Write;
 
@@ -11,8 +13,13 @@ const LIST_ALL: usize = 32;
 /// Counterexamples printed in full; the JSON report holds them all.
 const SHOW_CEX: usize = 2;
 
-/// The human-readable report of a proof run.
-pub fn prove_text(r: &ProveReport) -> String {
+/// The human-readable report of a check session.
+pub fn check_text(o: &CheckOutcome) -> String {
+    prove_text(&o.report, o.diagnosis.as_ref())
+}
+
+/// The human-readable report of a proof run, with the diagnosis of a difference when there is one.
+pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
     let mut s = String::new();
     let n = r.pairs.len();
     let _ = writeln!(s, "reference   {}", r.reference);
@@ -60,7 +67,7 @@ pub fn prove_text(r: &ProveReport) -> String {
             let k = r
                 .pairs
                 .iter()
-                .filter(|p| p.status == v && p.method == m)
+                .filter(|p| p.status() == v && p.verdict.method() == Some(m))
                 .count();
             if k > 0 {
                 parts.push(format!("{k} by {}", m.word()));
@@ -108,19 +115,19 @@ pub fn prove_text(r: &ProveReport) -> String {
             .max()
             .unwrap_or(0);
         for p in &r.pairs {
-            if n > LIST_ALL && p.status == Verdict::Equivalent {
+            if n > LIST_ALL && p.status() == Verdict::Equivalent {
                 continue;
             }
             let mut line = format!(
                 "  {:w$}  {:10}  {}",
                 pair_label(&p.reference, &p.candidate),
-                p.status.word(),
-                p.method.word()
+                p.status().word(),
+                p.verdict.method().map_or("-", Method::word)
             );
-            if let Some(k) = p.counterexample {
+            if let Some(k) = p.verdict.counterexample() {
                 let _ = write!(line, "  counterexample {}", k + 1);
             }
-            if let Some(st) = p.stopped {
+            if let Some(st) = p.verdict.stopped() {
                 let _ = write!(line, "  ({st})");
             }
             let _ = writeln!(s, "{}", line.trim_end());
@@ -136,12 +143,12 @@ pub fn prove_text(r: &ProveReport) -> String {
         let shared: Vec<(&str, bool)> = c
             .inputs
             .iter()
-            .filter(|i| i.side == "both")
+            .filter(|i| i.side == Side::Both)
             .map(|i| (i.name.as_str(), i.value))
             .collect();
         let _ = writeln!(s, "  inputs");
         s += &wrap(&group(shared), "    ", 100);
-        for side in ["reference", "candidate"] {
+        for side in [Side::Reference, Side::Candidate] {
             let own: Vec<(&str, bool)> = c
                 .inputs
                 .iter()
@@ -151,7 +158,8 @@ pub fn prove_text(r: &ProveReport) -> String {
             if !own.is_empty() {
                 let _ = writeln!(
                     s,
-                    "  free inputs of the {side} (unknown values or unpaired ports)"
+                    "  free inputs of the {} (unknown values or unpaired ports)",
+                    side.word()
                 );
                 s += &wrap(&group(own), "    ", 100);
             }
@@ -175,14 +183,14 @@ pub fn prove_text(r: &ProveReport) -> String {
             r.counterexamples.len()
         );
     }
-    if let Some(d) = &r.diagnosis {
+    if let Some(d) = diagnosis {
         s += &crate::diagnose::diagnosis_text(d);
     }
     let st = &r.stats;
     let _ = writeln!(
         s,
         "\nfigures     engine {}; AIG {} nodes shared (reference {} ANDs, candidate {} ANDs); {} random patterns; {} SAT calls, {} conflicts; {:.3} s",
-        r.engine, st.shared_nodes, st.reference_ands, st.candidate_ands, st.sim_patterns, st.sat.calls, st.sat.conflicts, st.seconds
+        r.engine.name(), st.shared_nodes, st.reference_ands, st.candidate_ands, st.sim_patterns, st.sat.calls, st.sat.conflicts, st.seconds
     );
     for w in &r.warnings {
         let _ = writeln!(s, "{w}");

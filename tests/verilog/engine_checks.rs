@@ -3,30 +3,20 @@
 //! the one-line selector spec `assign y = d[s];` against gate-level trees of 2:1 selectors.
 
 use super::common::{read, shared_dir};
-use equicone::engine::{self, PairBy, ProveOptions, Verdict};
+use equicone::check::{check, CheckRequest, DiagnosisRequest};
+use equicone::engine::Verdict;
 use equicone::front::bench::read_bench;
 use equicone::Design;
 use std::fmt::Write;
 use std::sync::Arc;
 
 fn prove(r: &Design, c: &Design, assume: &[String]) -> Verdict {
-    let opts = ProveOptions::default();
-    let mut shared = engine::pair(r, c, PairBy::Name, false).expect("pairing");
-    if !assume.is_empty() {
-        let by_name: std::collections::BTreeMap<String, equicone::Lit> = shared
-            .ref_input
-            .iter()
-            .enumerate()
-            .map(|(i, &k)| (r.inputs[i].name.clone(), shared.aig.input_lit(k)))
-            .collect();
-        let mut aig = std::mem::take(&mut shared.aig);
-        let cons = equicone::assume::constraint(r, assume, &mut aig, &|n| by_name.get(n).copied())
-            .expect("assumption");
-        shared.aig = aig;
-        shared.constraint = cons;
-    }
-    let rep = engine::prove_shared(r, c, shared, assume, &opts).expect("prove");
-    rep.verdict
+    let req = CheckRequest {
+        assumptions: assume.to_vec(),
+        diagnosis: DiagnosisRequest::Off,
+        ..CheckRequest::new(r, c)
+    };
+    check(&req).expect("check").verdict()
 }
 
 /// A structural Verilog translation of a bench netlist: one gate primitive per line.

@@ -7,7 +7,8 @@
 //! text is legal Verilog with the bench file's function on random vectors.
 
 use super::common::{iverilog_available, read, run_iverilog, shared_dir};
-use equicone::engine::{self, PairBy, ProveOptions, Verdict};
+use equicone::check::{check, CheckRequest, DiagnosisRequest};
+use equicone::engine::Verdict;
 use equicone::front::bench::read_bench;
 use equicone::Design;
 use std::collections::{HashMap, HashSet};
@@ -337,10 +338,11 @@ fn hierarchical(b: &Bench, parts: usize, mutate: bool) -> String {
 }
 
 fn prove(r: &Design, c: &Design) -> Verdict {
-    let shared = engine::pair(r, c, PairBy::Name, false).expect("pairing by name");
-    engine::prove_shared(r, c, shared, &[], &ProveOptions::default())
-        .expect("prove")
-        .verdict
+    let req = CheckRequest {
+        diagnosis: DiagnosisRequest::Off,
+        ..CheckRequest::new(r, c)
+    };
+    check(&req).expect("check").verdict()
 }
 
 /// c2670 and c7552 are left out: some of their outputs are also inputs, which a Verilog

@@ -82,6 +82,23 @@ pub fn fingerprint<'a>(parts: impl IntoIterator<Item = &'a [u8]>) -> String {
     format!("{h:016x}")
 }
 
+/// Keep only the output pairs of `shard` in `shared`; the stamp lists them (fingerprints empty).
+pub(crate) fn restrict(shared: &mut crate::engine::Shared, shard: Shard) -> ShardStamp {
+    let total = shared.pairs.len();
+    let keep: Vec<usize> = (0..total).filter(|&i| shard.owns(i)).collect();
+    shared.pairs = keep.iter().map(|&i| shared.pairs[i]).collect();
+    shared.ref_lits = keep.iter().map(|&i| shared.ref_lits[i]).collect();
+    shared.cand_lits = keep.iter().map(|&i| shared.cand_lits[i]).collect();
+    ShardStamp {
+        index: shard.index,
+        count: shard.count,
+        total_pairs: total,
+        pairs: keep,
+        inputs: String::new(),
+        options: String::new(),
+    }
+}
+
 fn err(file: &str, what: impl Into<String>, help: &str) -> InputError {
     InputError::plain(format!("{file}: {}", what.into()), help)
 }
@@ -420,7 +437,7 @@ mod tests {
         assert_eq!(m["pairs"][2]["status"], "undecided");
         assert_eq!(m["stats"]["seconds"], 2.0);
         assert!(m.get("shard").is_none());
-        let e = merge_prove(&[a.clone()]).unwrap_err();
+        let e = merge_prove(std::slice::from_ref(&a)).unwrap_err();
         assert!(e.to_string().contains("shards missing: 2/2"), "{e}");
         let e = merge_prove(&[a.clone(), a.clone()]).unwrap_err();
         assert!(e.to_string().contains("again"), "{e}");

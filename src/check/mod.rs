@@ -18,6 +18,7 @@ use crate::diag::InputError;
 use crate::diagnose::{self, Diagnosis};
 use crate::engine::{self, ProveOptions, ProveReport, Verdict};
 use crate::sat::Limits;
+use crate::shard::{Shard, ShardStamp};
 use serde::Serialize;
 
 /// What to diagnose when output pairs differ.
@@ -83,6 +84,9 @@ pub struct CheckOutcome {
     /// tables were built).
     #[serde(skip)]
     pub select_missing: Option<String>,
+    /// For a shard of a split run ([`check_shard`]): which output pairs it decided.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub shard: Option<ShardStamp>,
 }
 
 impl CheckOutcome {
@@ -129,12 +133,22 @@ impl std::fmt::Display for CheckError {
 /// Run one comparison: pair, build the assumptions in, prove, then diagnose a difference and
 /// certify the equivalent pairs as the request asks.
 pub fn check(req: &CheckRequest<'_>) -> Result<CheckOutcome, CheckError> {
+    check_shard(req, None)
+}
+
+/// As [`check`], deciding only the output pairs of `shard` (all when `None`); the outcome's
+/// stamp lists them (its fingerprints are left empty for the caller, who has the files).
+pub fn check_shard(
+    req: &CheckRequest<'_>,
+    shard: Option<Shard>,
+) -> Result<CheckOutcome, CheckError> {
     let (r, c) = (req.reference, req.candidate);
     let opts = &req.options;
     // The session's clock: the engine, the diagnosis and the certificate share the budget.
     let deadline = Limits::new(opts.timeout, None);
     let mut shared = engine::pair(r, c, opts.pair_by, opts.free_extra_inputs)?;
     crate::assume::apply_to_shared(&mut shared, r, &req.assumptions)?;
+    let stamp = shard.map(|s| crate::shard::restrict(&mut shared, s));
     let kept = req.certificate.map(|_| shared.clone());
     let report = engine::prove_shared(r, c, shared, &req.assumptions, opts)?;
     let (select, select_missing) = match &req.diagnosis {
@@ -177,6 +191,7 @@ pub fn check(req: &CheckRequest<'_>) -> Result<CheckOutcome, CheckError> {
         diagnosis,
         certificate,
         select_missing,
+        shard: stamp,
     })
 }
 

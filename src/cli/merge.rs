@@ -59,7 +59,8 @@ pub fn run(a: &MergeArgs) -> Exit {
                 .map_or(0, |ps| ps.iter().filter(|p| p["status"] == w).count())
         };
         print(&format!(
-            "verdict     {verdict} (merged {} shards: {} equivalent, {} different, {} undecided output pairs)\n",
+            "verdict     {} (merged {} shards: {} equivalent, {} different, {} undecided output pairs)\n",
+            verdict.to_uppercase(),
             a.parts.len(),
             count("equivalent"),
             count("different"),

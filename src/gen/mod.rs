@@ -588,7 +588,7 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
 }
 
 fn is_power_of_three(mut n: usize) -> bool {
-    while n > 1 && n % 3 == 0 {
+    while n > 1 && n.is_multiple_of(3) {
         n /= 3;
     }
     n == 1

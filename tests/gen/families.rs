@@ -138,10 +138,9 @@ fn comparators_compare() {
 fn dividers_divide() {
     check(Kind::Divider, &[2, 3, 5, 7, 8, 16, 33, 64], 300, |n, v| {
         let (a, b) = (value(&v[0]), value(&v[1]));
-        if b == 0 {
-            vec![(1u128 << n) - 1, a]
-        } else {
-            vec![a / b, a % b]
+        match (a.checked_div(b), a.checked_rem(b)) {
+            (Some(q), Some(r)) => vec![q, r],
+            _ => vec![(1u128 << n) - 1, a],
         }
     });
 }

@@ -163,6 +163,13 @@ fn relocate(mut e: InputError, label: &Arc<str>, len: u32) -> InputError {
                 if p.line != EXPR_LINE {
                     // Before the expression: its start; after it: just past its end.
                     p.col = if p.line < EXPR_LINE { 1 } else { len + 1 };
+                    if p.line > EXPR_LINE {
+                        // What was found there is the wrapper's text, not the user's.
+                        if let Some(i) = d.message.find(", found ") {
+                            d.message.truncate(i);
+                            d.message += ", found the end of the assumption";
+                        }
+                    }
                 }
                 p.line = 1;
             }

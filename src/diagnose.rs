@@ -21,8 +21,10 @@ pub struct RouteDiff {
     pub reference_routes: Vec<Route>,
     /// Candidate route per select value.
     pub candidate_routes: Vec<Route>,
-    /// Select values whose routes differ.
+    /// Select values whose routes are proved different (both routes decided).
     pub differing_values: Vec<usize>,
+    /// Select values where a limit left either route undecided: no claim either way.
+    pub undecided_values: Vec<usize>,
 }
 
 /// What the diagnosis found.
@@ -95,19 +97,14 @@ pub fn diagnose(
         for &(ri, ci) in &differing {
             let rt = routes::route_table(r, ri, bus, rs, constraints.0, limits);
             let ct = routes::route_table(c, ci, bus, cs, constraints.1, limits);
-            let differing_values = (0..rt.routes.len())
-                .filter(|&v| {
-                    !matches!(rt.routes[v], Route::Excluded)
-                        && !matches!(ct.routes[v], Route::Excluded)
-                        && rt.routes[v] != ct.routes[v]
-                })
-                .collect();
+            let (differing_values, undecided_values) = split_values(&rt.routes, &ct.routes);
             routes_out.push(RouteDiff {
                 reference: r.outputs[ri].name.clone(),
                 candidate: c.outputs[ci].name.clone(),
                 reference_routes: rt.routes,
                 candidate_routes: ct.routes,
                 differing_values,
+                undecided_values,
             });
         }
     }
@@ -116,6 +113,24 @@ pub fn diagnose(
         select: sel.map(|(b, _, _)| b.to_string()),
         routes: routes_out,
     })
+}
+
+/// The select values whose routes are proved different (both decided, not excluded, not
+/// equal), and those where either route is undecided.
+fn split_values(r: &[Route], c: &[Route]) -> (Vec<usize>, Vec<usize>) {
+    let open = |x: &Route| matches!(x, Route::Undecided { .. });
+    let (mut differing, mut undecided) = (Vec::new(), Vec::new());
+    for (v, (a, b)) in r.iter().zip(c).enumerate() {
+        if matches!(a, Route::Excluded) || matches!(b, Route::Excluded) {
+            continue;
+        }
+        if open(a) || open(b) {
+            undecided.push(v);
+        } else if a != b {
+            differing.push(v);
+        }
+    }
+    (differing, undecided)
 }
 
 /// Text form: supports that differ, then both route tables compressed with every differing
@@ -176,6 +191,91 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
                 t.candidate_routes[v].text()
             );
         }
+        if !t.undecided_values.is_empty() {
+            s += &format!(
+                "    undecided at {} select value{} (a limit stopped a route proof; no claim): {select} {}\n",
+                t.undecided_values.len(),
+                if t.undecided_values.len() == 1 { "" } else { "s" },
+                value_runs(&t.undecided_values, 8)
+            );
+        }
     }
     s
+}
+
+/// Sorted values as runs `3, 7..9, 12`, at most `most` runs, then `... (N more)`.
+fn value_runs(values: &[usize], most: usize) -> String {
+    let mut runs: Vec<(usize, usize)> = Vec::new();
+    for &v in values {
+        match runs.last_mut() {
+            Some((_, to)) if *to + 1 == v => *to = v,
+            _ => runs.push((v, v)),
+        }
+    }
+    let mut parts: Vec<String> = runs
+        .iter()
+        .take(most)
+        .map(|&(a, b)| {
+            if a == b {
+                a.to_string()
+            } else {
+                format!("{a}..{b}")
+            }
+        })
+        .collect();
+    if runs.len() > most {
+        parts.push(format!("... ({} more)", runs.len() - most));
+    }
+    parts.join(", ")
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn routes(texts: &[&str]) -> Vec<Route> {
+        texts
+            .iter()
+            .map(|t| match *t {
+                "?" => Route::Undecided {
+                    reason: crate::sat::StopReason::Timeout,
+                },
+                n => Route::Input {
+                    name: n.to_string(),
+                    inverted: false,
+                },
+            })
+            .collect()
+    }
+
+    /// Issue 13 A3: `!` marks only values whose routes are both decided and differ; the
+    /// undecided ones are listed apart and counted.
+    #[test]
+    fn undecided_routes_are_not_marked_as_differences() {
+        let d = Diagnosis {
+            supports: Vec::new(),
+            select: Some("s".into()),
+            routes: vec![RouteDiff {
+                reference: "y".into(),
+                candidate: "y".into(),
+                reference_routes: routes(&["d0", "d1", "?", "d3"]),
+                candidate_routes: routes(&["d0", "d2", "d2", "?"]),
+                differing_values: vec![1],
+                undecided_values: vec![2, 3],
+            }],
+        };
+        let t = &d.routes[0];
+        let (differing, undecided) = split_values(&t.reference_routes, &t.candidate_routes);
+        assert_eq!((differing, undecided), (vec![1], vec![2, 3]));
+        let t = diagnosis_text(&d);
+        assert_eq!(t.matches('!').count(), 1, "{t}");
+        assert!(t.contains("s 1: reference d1, candidate d2  !"), "{t}");
+        assert!(
+            t.contains(
+                "undecided at 2 select values (a limit stopped a route proof; no claim): s 2..3"
+            ),
+            "{t}"
+        );
+        assert_eq!(value_runs(&[1, 2, 3, 5, 9, 10], 2), "1..3, 5, ... (1 more)");
+    }
 }

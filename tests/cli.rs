@@ -31,6 +31,26 @@ fn tmp(name: &str) -> PathBuf {
 mod exit_codes {
     use super::*;
 
+    /// Issue 13 B1: an absurd `--jobs` is capped at the useful number of threads, so the run
+    /// ends with its verdict (it used to start every thread asked for, past the deadline).
+    #[test]
+    fn a_huge_jobs_value_still_gives_the_verdict() {
+        for engine in ["sweep", "portfolio"] {
+            let o = equicone(&[
+                "prove",
+                "bench-circuits/examples/mux4_spec.bench",
+                "bench-circuits/examples/mux4_tree.bench",
+                "--engine",
+                engine,
+                "--jobs",
+                "100000",
+                "--timeout",
+                "30",
+            ]);
+            assert_eq!(code(&o), 0, "{}", String::from_utf8_lossy(&o.stderr));
+        }
+    }
+
     #[test]
     fn equivalent_is_0_and_different_is_1() {
         let o = equicone(&[
@@ -387,6 +407,16 @@ mod demo {
             out.contains("redundant input: y[0] does not depend on test_mode"),
             "{out}"
         );
+    }
+
+    /// Issue 13 D: `demo --write DIR` creates DIR (and its parents) when missing.
+    #[test]
+    fn demo_write_creates_its_folder() {
+        let dir = tmp("demo-new").join("sub");
+        let _ = std::fs::remove_dir_all(&dir);
+        let o = equicone(&["demo", "--write", dir.to_str().unwrap()]);
+        assert_eq!(code(&o), 0, "{}", String::from_utf8_lossy(&o.stderr));
+        assert!(dir.join("t7_sensor_sel_spec.v").is_file());
     }
 }
 

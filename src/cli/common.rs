@@ -42,6 +42,34 @@ pub struct DesignArgs {
     /// The top module (Verilog; default: the module nobody instantiates).
     #[arg(long)]
     pub top: Option<String>,
+    /// Include directories and macros for the Verilog preprocessor.
+    #[command(flatten)]
+    pub pre: PreprocArgs,
+}
+
+/// The Verilog preprocessor's options on the command line.
+#[derive(Args, Debug, Clone, Default)]
+pub struct PreprocArgs {
+    /// A directory searched for `include files, after the including file's own (repeatable).
+    #[arg(short = 'I', long = "include-dir", value_name = "DIR")]
+    pub include_dirs: Vec<String>,
+    /// A macro defined before the first file: NAME or NAME=VALUE (repeatable).
+    #[arg(short = 'D', long = "define", value_name = "NAME=VALUE", value_parser = parse_define)]
+    pub defines: Vec<(String, String)>,
+}
+
+fn parse_define(s: &str) -> Result<(String, String), String> {
+    front::verilog::preprocess::Options::parse_define(s)
+}
+
+impl PreprocArgs {
+    /// The options of the reader.
+    pub fn options(&self) -> front::verilog::preprocess::Options {
+        front::verilog::preprocess::Options {
+            include_dirs: self.include_dirs.iter().map(Into::into).collect(),
+            defines: self.defines.clone(),
+        }
+    }
 }
 
 impl DesignArgs {
@@ -49,7 +77,7 @@ impl DesignArgs {
     pub fn load(&self) -> Result<Design, Exit> {
         let mut paths = vec![self.path.clone()];
         paths.extend(self.also.iter().cloned());
-        load(paths, self.format, self.top.clone())
+        load(paths, self.format, self.top.clone(), &self.pre)
     }
 
     /// Read the design under `limits`: when its deadline passes while reading, the run is
@@ -57,20 +85,36 @@ impl DesignArgs {
     pub fn load_within(&self, limits: &Limits) -> Result<Design, Exit> {
         let mut paths = vec![self.path.clone()];
         paths.extend(self.also.iter().cloned());
-        load_within(paths, self.format, self.top.clone(), limits)
+        load_within(paths, self.format, self.top.clone(), &self.pre, limits)
     }
 }
 
-/// A `--timeout` value as a duration; a value that is not a positive number of seconds is a
-/// usage error.
+/// The largest `--timeout` accepted, in seconds (about 31 years).
+const TIMEOUT_MAX: f64 = 1e9;
+
+/// A `--timeout` value as a duration; a value that is not a positive number of seconds, or
+/// one beyond [`TIMEOUT_MAX`], is a usage error that says which.
 pub fn timeout_of(t: Option<f64>) -> Result<Option<std::time::Duration>, Exit> {
     match t {
         None => Ok(None),
-        Some(s) if s.is_finite() && s > 0.0 && s < 1e9 => {
+        Some(s) if s.is_finite() && s > 0.0 && s < TIMEOUT_MAX => {
             Ok(Some(std::time::Duration::from_secs_f64(s)))
         }
         Some(s) => {
-            eprintln!("error: --timeout {s} is not a positive number of seconds\n  help: for example `--timeout 30`");
+            let (what, help) = if !s.is_finite() {
+                (
+                    "is not a positive number of seconds",
+                    "for example `--timeout 30`",
+                )
+            } else if s <= 0.0 {
+                ("must be positive", "for example `--timeout 30`")
+            } else {
+                (
+                    "is more than the largest limit, 1000000000 seconds",
+                    "leave --timeout out to run without a time limit",
+                )
+            };
+            eprintln!("error: --timeout {s} {what}\n  help: {help}");
             Err(Exit::BadInput)
         }
     }
@@ -81,11 +125,13 @@ pub fn load(
     paths: Vec<String>,
     format: Option<FormatArg>,
     top: Option<String>,
+    pre: &PreprocArgs,
 ) -> Result<Design, Exit> {
     let src = Source {
         paths,
         format: format.map(Format::from),
         top,
+        preprocess: pre.options(),
     };
     front::load(&src).map_err(|e| report_input_error(&e))
 }
@@ -96,12 +142,14 @@ pub fn load_within(
     paths: Vec<String>,
     format: Option<FormatArg>,
     top: Option<String>,
+    pre: &PreprocArgs,
     limits: &Limits,
 ) -> Result<Design, Exit> {
     let src = Source {
         paths,
         format: format.map(Format::from),
         top,
+        preprocess: pre.options(),
     };
     match front::load_until(&src, &|| limits.expired()) {
         Ok(d) => Ok(d),

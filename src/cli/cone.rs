@@ -13,7 +13,7 @@ use clap::Args;
 pub struct AuditLimitArgs {
     /// Stop after this many seconds, reading the design included; open claims are then
     /// undecided.
-    #[arg(long, value_name = "SECONDS")]
+    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
     timeout: Option<f64>,
     /// Conflicts allowed per SAT query; a query that needs more leaves its claim undecided.
     #[arg(long, value_name = "N")]

@@ -15,6 +15,13 @@ pub struct DemoArgs {
 /// Run `demo`.
 pub fn run(a: &DemoArgs) -> Exit {
     if let Some(dir) = &a.write {
+        // The folder is created when missing (with its parents), like `mkdir -p`.
+        if let Err(e) = std::fs::create_dir_all(dir) {
+            return report_input_error(&crate::InputError::plain(
+                format!("cannot create the folder `{dir}`: {e}"),
+                "give a folder path that can be created or already exists",
+            ));
+        }
         for (name, text) in crate::demo::FILES {
             let path = format!("{}/{name}", dir.trim_end_matches('/'));
             if let Err(e) = write_atomic(&path, text.as_bytes()) {

@@ -93,6 +93,9 @@ pub struct PairArgs {
     /// Leave input bits that exist on one side only free (the verdict then covers all their values).
     #[arg(long)]
     pub free_extra_inputs: bool,
+    /// Include directories and macros for the Verilog preprocessor (both designs).
+    #[command(flatten)]
+    pub pre: super::common::PreprocArgs,
 }
 
 impl PairArgs {
@@ -109,6 +112,7 @@ impl PairArgs {
             paths,
             format: format.map(Format::from),
             top,
+            preprocess: self.pre.options(),
         };
         let rs = source(rp, self.ref_format.or(self.format), self.ref_top.clone());
         let cs = source(cp, self.cand_format.or(self.format), self.cand_top.clone());
@@ -138,8 +142,13 @@ impl PairArgs {
         let (r, c) = self.read_pair(&|| limits.expired());
         let mut bad = false;
         let mut stopped = None;
-        for side in [&r, &c] {
+        for (k, side) in [&r, &c].into_iter().enumerate() {
             match side {
+                // The same file read twice with the same error: say it once.
+                Err(ReadError::Input(e))
+                    if k == 1
+                        && matches!(&r, Err(ReadError::Input(f)) if f.to_string() == e.to_string()) =>
+                    {}
                 Err(ReadError::Input(e)) => {
                     report_input_error(e);
                     bad = true;
@@ -179,7 +188,7 @@ pub struct ProveArgs {
     jobs: Option<usize>,
     /// Stop after this many seconds, reading the designs included; open output pairs are then
     /// undecided.
-    #[arg(long, value_name = "SECONDS")]
+    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
     timeout: Option<f64>,
     /// Conflicts allowed per SAT query; a query that needs more is undecided.
     #[arg(long, value_name = "N")]

@@ -1,6 +1,6 @@
 //! `equicone routes`: for each value of a select bus, which data input each output follows.
 
-use super::common::{print, report_input_error, DesignArgs};
+use super::common::{print, report_input_error, timeout_of, DesignArgs};
 use super::Exit;
 use crate::report;
 use crate::routes::{self, Route, RouteTable};
@@ -23,18 +23,31 @@ pub struct RoutesArgs {
     /// (repeatable: all must hold).
     #[arg(long, value_name = "EXPR")]
     assume: Vec<String>,
+    /// Stop after this many seconds, reading the design included; the select values left
+    /// are undecided.
+    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
+    timeout: Option<f64>,
+    /// Conflicts allowed per SAT query; a route that needs more is undecided.
+    #[arg(long, value_name = "N")]
+    conflict_limit: Option<u64>,
     /// Print the result as JSON.
     #[arg(long)]
     json: bool,
 }
 
+/// Version of the `routes` JSON report; fields are only ever added within a version.
+const ROUTES_SCHEMA: u32 = 1;
+
 #[derive(Serialize)]
 struct RoutesReport {
+    schema: u32,
     design: String,
     select: String,
     select_bits: usize,
     assumptions: Vec<String>,
     tables: Vec<TableJson>,
+    /// Select values left undecided by a limit, over all tables.
+    undecided_routes: usize,
 }
 
 #[derive(Serialize)]
@@ -84,7 +97,12 @@ pub fn table_text(t: &RouteTable) -> String {
 
 /// Run `routes`.
 pub fn run(a: &RoutesArgs) -> Exit {
-    let d = match a.design.load() {
+    // The clock starts before reading: --timeout covers the whole run.
+    let limits = match timeout_of(a.timeout) {
+        Ok(t) => Limits::new(t, a.conflict_limit),
+        Err(e) => return e,
+    };
+    let d = match a.design.load_within(&limits) {
         Ok(d) => d,
         Err(e) => return e,
     };
@@ -100,18 +118,18 @@ pub fn run(a: &RoutesArgs) -> Exit {
         Ok(o) => o,
         Err(e) => return report_input_error(&e),
     };
-    let limits = Limits::none();
     let tables: Vec<RouteTable> = outs
         .iter()
         .map(|&k| routes::route_table(&d, k, &a.select, &sel, constraint, &limits))
         .collect();
-    let undecided = tables.iter().any(|t| {
-        t.routes
-            .iter()
-            .any(|r| matches!(r, Route::Undecided { .. }))
-    });
+    let undecided = tables
+        .iter()
+        .flat_map(|t| &t.routes)
+        .filter(|r| matches!(r, Route::Undecided { .. }))
+        .count();
     if a.json {
         let rep = RoutesReport {
+            schema: ROUTES_SCHEMA,
             design: d.name.clone(),
             select: a.select.clone(),
             select_bits: sel.len(),
@@ -124,6 +142,7 @@ pub fn run(a: &RoutesArgs) -> Exit {
                     routes: t.routes.clone(),
                 })
                 .collect(),
+            undecided_routes: undecided,
         };
         print(&report::to_json(&rep));
     } else {
@@ -141,9 +160,15 @@ pub fn run(a: &RoutesArgs) -> Exit {
         for t in &tables {
             s += &table_text(t);
         }
+        if undecided > 0 {
+            s += &format!(
+                "undecided: {undecided} route{} (select value and output) stopped by a limit; no claim for them\n",
+                if undecided == 1 { "" } else { "s" }
+            );
+        }
         print(&s);
     }
-    if undecided {
+    if undecided > 0 {
         Exit::Undecided
     } else {
         Exit::Ok

@@ -47,6 +47,18 @@ pub(crate) fn groups(aig: &Aig, pairs: &[PairQuery], open: &[usize]) -> Vec<Vec<
     vec![open.to_vec()]
 }
 
+/// Threads worth starting for `groups` groups when `jobs` were asked for (0: one per core):
+/// at most one per group, or one per core when there are fewer groups than cores (the split
+/// of a hard pair runs its halves in parallel), never more than asked.
+fn useful_threads(jobs: usize, groups: usize, cores: usize) -> usize {
+    let useful = groups.max(cores).max(1);
+    if jobs == 0 {
+        cores.max(1).min(useful)
+    } else {
+        jobs.min(useful)
+    }
+}
+
 /// Sweep every group on a pool of `jobs` threads (0: one per core). Findings are indexed like
 /// `pairs` (`None` for pairs not in `open`).
 #[allow(clippy::too_many_arguments)]
@@ -102,8 +114,20 @@ pub(crate) fn sweep_groups(
         };
         sweep(&cone, limits, progress)
     };
+    let cores = std::thread::available_parallelism().map_or(1, |n| n.get());
+    let threads = useful_threads(jobs, groups.len(), cores);
+    if limits.expired() {
+        // No thread is started once the time is up; every open pair is then stopped.
+        let f = (0..pairs.len())
+            .map(|p| {
+                open.contains(&p)
+                    .then_some(Finding::Stopped(crate::sat::StopReason::Timeout))
+            })
+            .collect();
+        return Ok((f, SatStats::default(), SweepStats::default()));
+    }
     let pool = rayon::ThreadPoolBuilder::new()
-        .num_threads(jobs)
+        .num_threads(threads)
         .build()
         .map_err(|e| format!("cannot start worker threads: {e}"))?;
     let results: Vec<_> = pool.install(|| {
@@ -124,4 +148,20 @@ pub(crate) fn sweep_groups(
         st.add(&w);
     }
     Ok((findings, sat, st))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::useful_threads;
+
+    /// Issue 13 B1: `--jobs 10000` starts no more threads than there is work or cores for.
+    #[test]
+    fn threads_are_capped_at_the_useful_number() {
+        assert_eq!(useful_threads(10_000, 1, 2), 2);
+        assert_eq!(useful_threads(10_000, 8, 2), 8);
+        assert_eq!(useful_threads(3, 8, 2), 3);
+        assert_eq!(useful_threads(0, 8, 4), 4);
+        assert_eq!(useful_threads(1, 8, 4), 1);
+        assert_eq!(useful_threads(0, 1, 0), 1);
+    }
 }

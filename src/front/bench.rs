@@ -104,6 +104,8 @@ fn parse_to_netlist(
     text: &str,
     stop: &dyn Fn() -> bool,
 ) -> Result<Compact, ReadError> {
+    // A UTF-8 byte-order mark (some editors write one) is not part of the first line.
+    let text = text.strip_prefix('\u{feff}').unwrap_or(text);
     let mut p = Parsed {
         ids: FastMap::default(),
         inputs: Vec::new(),
@@ -253,6 +255,25 @@ fn check_definitions(file: &Arc<str>, text: &str, p: &Parsed<'_>) -> Result<(), 
         for (id, pos, first) in again {
             errors.push(redefined(
                 names[id as usize],
+                &pos.at(file),
+                &first.at(file),
+            ));
+        }
+    }
+    // An output declared twice would be paired twice in one design and refused in the other.
+    let mut declared: Vec<Option<Pos>> = vec![None; p.ids.len()];
+    let mut twice: Vec<(u32, Pos, Pos)> = Vec::new();
+    for &(o, pos) in &p.outputs {
+        match declared[o as usize] {
+            Some(first) => twice.push((o, pos, first)),
+            None => declared[o as usize] = Some(pos),
+        }
+    }
+    if !twice.is_empty() {
+        let names = names();
+        for (o, pos, first) in twice {
+            errors.push(output_twice(
+                names[o as usize],
                 &pos.at(file),
                 &first.at(file),
             ));
@@ -411,6 +432,14 @@ fn redefined(name: &str, pos: &SourcePos, first: &SourcePos) -> Diagnostic {
     .with_help("every signal is an INPUT or the output of exactly one gate; rename one of them")
 }
 
+fn output_twice(name: &str, pos: &SourcePos, first: &SourcePos) -> Diagnostic {
+    Diagnostic::error(
+        Some(pos.clone()),
+        format!("output `{name}` is declared twice (first at {first})"),
+    )
+    .with_help("declare each OUTPUT once; delete one of the two lines")
+}
+
 fn cycle_error(names: &[&str], pos: &SourcePos) -> InputError {
     let mut ring: Vec<&str> = names.to_vec();
     ring.push(names[0]);
@@ -454,6 +483,25 @@ mod tests {
             let (a, b) = (v & 1 == 1, v & 2 == 2);
             assert_eq!(d.eval(&[a, b]), vec![!(a & (a ^ b))]);
         }
+    }
+
+    /// Issue 13 D: a byte-order mark before the first line is accepted.
+    #[test]
+    fn a_byte_order_mark_is_skipped() {
+        let d = read("\u{feff}INPUT(a)\nOUTPUT(y)\ny = NOT(a)\n").unwrap();
+        assert_eq!(d.inputs.len(), 1);
+        assert_eq!(d.outputs.len(), 1);
+    }
+
+    /// Issue 13 A5: a duplicate OUTPUT line is an error naming both lines, whichever side.
+    #[test]
+    fn an_output_declared_twice_is_an_error() {
+        let e = read("INPUT(a)\nOUTPUT(y)\nOUTPUT(y)\ny = NOT(a)\n").unwrap_err();
+        let m = e.to_string();
+        assert!(
+            m.contains("t.bench:3:8: error: output `y` is declared twice (first at t.bench:2:8)"),
+            "{m}"
+        );
     }
 
     #[test]

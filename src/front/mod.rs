@@ -141,6 +141,8 @@ pub struct Source {
     pub format: Option<Format>,
     /// The top module (Verilog only).
     pub top: Option<String>,
+    /// Include directories and command-line macros (Verilog only).
+    pub preprocess: verilog::preprocess::Options,
 }
 
 /// Read a design from files.
@@ -183,7 +185,7 @@ pub fn load_until(src: &Source, stop: &dyn Fn() -> bool) -> Result<Design, ReadE
     if stop() {
         return Err(ReadError::Stopped(first.clone()));
     }
-    let d = load_texts_until(format, &texts, src.top.as_deref(), stop)?;
+    let d = load_texts_until(format, &texts, src.top.as_deref(), &src.preprocess, stop)?;
     if stop() {
         return Err(ReadError::Stopped(first.clone()));
     }
@@ -196,7 +198,8 @@ pub fn load_texts(
     texts: &[(Arc<str>, String)],
     top: Option<&str>,
 ) -> Result<Design, InputError> {
-    load_texts_until(format, texts, top, &|| false).map_err(|e| match e {
+    let opts = verilog::preprocess::Options::default();
+    load_texts_until(format, texts, top, &opts, &|| false).map_err(|e| match e {
         ReadError::Input(e) => e,
         ReadError::Stopped(_) => unreachable!("no stop condition"),
     })
@@ -206,6 +209,7 @@ fn load_texts_until(
     format: Format,
     texts: &[(Arc<str>, String)],
     top: Option<&str>,
+    opts: &verilog::preprocess::Options,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
     match format {
@@ -226,13 +230,6 @@ fn load_texts_until(
             }
             bench::read_bench_until(&texts[0].0, &texts[0].1, stop)
         }
-        Format::Verilog => Ok(read_verilog_texts(texts, top)?),
+        Format::Verilog => Ok(verilog::read_verilog_with(texts, top, opts)?),
     }
-}
-
-fn read_verilog_texts(
-    texts: &[(Arc<str>, String)],
-    top: Option<&str>,
-) -> Result<Design, InputError> {
-    verilog::read_verilog(texts, top)
 }

@@ -510,7 +510,13 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
         Kind::Arbiter => (2, 1 << 14, "an arbiter needs 2 to 16384 requesters"),
         Kind::Remap => unreachable!("handled above"),
     };
-    if spec.n < min || spec.n > max {
+    if spec.n > max {
+        return Err(GenError::new(
+            format!("--n {} is too large for kind {kind}: at most {max}", spec.n),
+            format!("give --n between {min} and {max} for kind {kind}"),
+        ));
+    }
+    if spec.n < min {
         return Err(GenError::new(
             format!("{what} (got --n {})", spec.n),
             format!("give --n between {min} and {max} for kind {kind}"),

@@ -136,6 +136,16 @@ pub fn route_table(
     let mut v0 = 0;
     while v0 < values {
         let n = CHUNK.min(values - v0);
+        if limits.expired() {
+            // The time is up: the rest is undecided, without simulating or solving.
+            routes.resize(
+                values,
+                Route::Undecided {
+                    reason: StopReason::Timeout,
+                },
+            );
+            break;
+        }
         let mut ins = random_words(d.inputs.len(), n, 0x5e1ec7 ^ v0 as u64);
         for (j, &k) in sel.iter().enumerate() {
             for (w, word) in ins[k].iter_mut().enumerate() {
@@ -149,6 +159,12 @@ pub fn route_table(
         let t = simulate(&d.aig, &ins, n);
         for w in 0..n {
             let v = v0 + w;
+            if limits.expired() {
+                routes.push(Route::Undecided {
+                    reason: StopReason::Timeout,
+                });
+                continue;
+            }
             let assume: Vec<_> = sel_lits
                 .iter()
                 .enumerate()
@@ -267,5 +283,15 @@ mod tests {
         let t = route_table(&d, 0, "s", &sel, Lit::TRUE, &Limits::none());
         let texts: Vec<String> = t.routes.iter().map(|r| r.text()).collect();
         assert_eq!(texts, vec!["d[0]", "d[1]", "d[3]", "0"]);
+        // Issue 13 B2: a spent deadline leaves every value undecided instead of running on.
+        let spent = Limits::new(Some(std::time::Duration::from_nanos(1)), None);
+        std::thread::sleep(std::time::Duration::from_millis(2));
+        let t = route_table(&d, 0, "s", &sel, Lit::TRUE, &spent);
+        assert!(t.routes.iter().all(|r| matches!(
+            r,
+            Route::Undecided {
+                reason: StopReason::Timeout
+            }
+        )));
     }
 }

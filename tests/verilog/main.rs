@@ -6,6 +6,7 @@ mod fixtures;
 mod hierarchy;
 mod iverilog_diff;
 mod large;
+mod preprocess;
 mod regress;
 mod rtl_styles;
 mod semantics;

@@ -127,6 +127,22 @@ pub struct Lexer<'s> {
     pub errors: Vec<SyntaxError>,
     /// Whether `` `default_nettype none`` is in force at the current point.
     pub nettype_none: bool,
+    /// Where the text came from (the preprocessor's marks; empty: this file, as is).
+    marks: &'s [Mark],
+    /// The next mark to apply.
+    mark_k: usize,
+    /// The byte offset of that mark (`usize::MAX` when there is none).
+    next_mark: usize,
+}
+
+/// A mark of preprocessed text: from byte `off` on, the text came from `pos` (and runs on
+/// from there character by character until the next mark).
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub struct Mark {
+    /// Byte offset in the preprocessed text.
+    pub off: usize,
+    /// Where the byte at `off` was written.
+    pub pos: Pos,
 }
 
 fn is_ident_start(c: u8) -> bool {
@@ -140,7 +156,13 @@ fn is_ident_char(c: u8) -> bool {
 impl<'s> Lexer<'s> {
     /// A lexer over `src`, which is file number `file`.
     pub fn new(src: &'s str, file: u32) -> Lexer<'s> {
-        Lexer {
+        Lexer::with_marks(src, file, &[])
+    }
+
+    /// A lexer over preprocessed text: positions follow `marks` (sorted by offset) back to
+    /// the files the text came from; before the first mark they are in file `file`.
+    pub fn with_marks(src: &'s str, file: u32, marks: &'s [Mark]) -> Lexer<'s> {
+        let mut lx = Lexer {
             src: src.as_bytes(),
             i: 0,
             line: 1,
@@ -148,6 +170,23 @@ impl<'s> Lexer<'s> {
             file,
             errors: Vec::new(),
             nettype_none: false,
+            marks,
+            mark_k: 0,
+            next_mark: marks.first().map_or(usize::MAX, |m| m.off),
+        };
+        lx.apply_marks();
+        lx
+    }
+
+    /// Take the position of every mark at the current offset.
+    fn apply_marks(&mut self) {
+        while self.next_mark <= self.i {
+            let m = self.marks[self.mark_k];
+            if m.off == self.i {
+                (self.file, self.line, self.col) = (m.pos.file, m.pos.line, m.pos.col);
+            }
+            self.mark_k += 1;
+            self.next_mark = self.marks.get(self.mark_k).map_or(usize::MAX, |m| m.off);
         }
     }
 
@@ -171,6 +210,9 @@ impl<'s> Lexer<'s> {
                 self.col = 1;
             } else if c & 0xC0 != 0x80 {
                 self.col += 1;
+            }
+            if self.i >= self.next_mark {
+                self.apply_marks();
             }
         }
     }
@@ -258,7 +300,9 @@ impl<'s> Lexer<'s> {
         let rest = String::from_utf8_lossy(&self.src[line_start..self.i]);
         let rest = rest.split("//").next().unwrap_or("").trim().to_string();
         match name.as_str() {
-            "timescale" | "resetall" | "celldefine" | "endcelldefine" => {}
+            "timescale" | "celldefine" | "endcelldefine" => {}
+            // IEEE 1364-2005 clause 19.6: back to the defaults (nets are implicit again).
+            "resetall" => self.nettype_none = false,
             "default_nettype" => match rest.as_str() {
                 "none" => self.nettype_none = true,
                 "wire" => self.nettype_none = false,
@@ -475,10 +519,11 @@ impl<'s> Lexer<'s> {
                     pos,
                 };
             }
-            let save = (self.i, self.line, self.col);
+            let save = (self.i, self.line, self.col, self.file, self.mark_k);
             self.skip_ws();
             if self.peek(0) != b'\'' {
-                (self.i, self.line, self.col) = save;
+                (self.i, self.line, self.col, self.file, self.mark_k) = save;
+                self.next_mark = self.marks.get(self.mark_k).map_or(usize::MAX, |m| m.off);
                 let text = String::from_utf8_lossy(&self.src[start..self.i]).into_owned();
                 let bits = decimal_bits(&d);
                 let width = if bits.len() <= 32 { 32 } else { bits.len() + 1 };

@@ -13,6 +13,7 @@ mod parse_gate;
 mod parse_gen;
 mod parse_stmt;
 pub mod parser;
+pub mod preprocess;
 pub mod symbols;
 pub mod syntax_error;
 
@@ -38,6 +39,15 @@ pub fn read_verilog(
     sources: &[(Arc<str>, String)],
     top: Option<&str>,
 ) -> Result<Design, InputError> {
+    read_verilog_with(sources, top, &preprocess::Options::default())
+}
+
+/// [`read_verilog`] with include directories and macros from the command line.
+pub fn read_verilog_with(
+    sources: &[(Arc<str>, String)],
+    top: Option<&str>,
+    opts: &preprocess::Options,
+) -> Result<Design, InputError> {
     // Parsing and elaboration recurse over expression syntax (bounded by the parser's
     // nesting limit); a dedicated thread gives that recursion a known, ample stack. The
     // thread is scoped, so it reads the sources in place (no copy of a large text).
@@ -45,7 +55,7 @@ pub fn read_verilog(
         let h = std::thread::Builder::new()
             .name("verilog-reader".into())
             .stack_size(256 << 20)
-            .spawn_scoped(s, || read_inner(sources, top));
+            .spawn_scoped(s, || read_inner(sources, top, opts));
         match h {
             Ok(h) => match h.join() {
                 Ok(r) => r,
@@ -66,17 +76,30 @@ fn read_inner_fallback() -> Result<Design, InputError> {
     ))
 }
 
-fn read_inner(sources: &[(Arc<str>, String)], top: Option<&str>) -> Result<Design, InputError> {
+fn read_inner(
+    sources: &[(Arc<str>, String)],
+    top: Option<&str>,
+    opts: &preprocess::Options,
+) -> Result<Design, InputError> {
+    // IEEE 1364-2005 clause 19: the preprocessor runs first, over all files in order (a
+    // macro defined in one file is in force in the next).
+    let pre = preprocess::preprocess(sources, opts);
+    if !pre.errors.is_empty() {
+        return Err(InputError {
+            diagnostics: pre.errors,
+        });
+    }
+    let files = pre.files;
     let mut names = symbols::Interner::new();
     let mut mods = Vec::new();
     let mut diags = Vec::new();
-    let files: Vec<Arc<str>> = sources.iter().map(|s| s.0.clone()).collect();
-    for (k, (file, text)) in sources.iter().enumerate() {
-        let mut p = parser::Parser::new(text, k as u32, &mut names);
+    for (k, unit) in pre.units.iter().enumerate() {
+        let mut p = parser::Parser::with_marks(&unit.text, k as u32, &unit.marks, &mut names);
         mods.extend(p.file());
         let mut errs = std::mem::take(&mut p.errors);
-        errs.sort_by_key(|e| (e.pos.line, e.pos.col));
+        errs.sort_by_key(|e| (e.pos.file != k as u32, e.pos.file, e.pos.line, e.pos.col));
         for e in errs {
+            let file = &files[e.pos.file as usize];
             let pos = SourcePos::new(file, e.pos.line, e.pos.col);
             diags.push(Diagnostic::error(Some(pos), e.message).with_help(e.kind.help()));
         }

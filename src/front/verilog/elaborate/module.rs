@@ -100,7 +100,7 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
             e.error(
                 p,
                 format!("several modules could be the top: {}", all.join(", ")),
-                "name the top module (`--ref-top` / `--cand-top` in `prove`)",
+                "name the top module with `--top NAME` (in `prove` and `cnf`: `--ref-top NAME` for the reference, `--cand-top NAME` for the candidate)",
             );
             None
         }

@@ -1,0 +1,6 @@
+module a(input x, output y);
+  assign y = x;
+endmodule
+module b(input x, output y);
+  assign y = ~x;
+endmodule

@@ -23,6 +23,9 @@ pub struct GenArgs {
     /// `remap` only: inputs per lookup function (2 to 6).
     #[arg(long, default_value_t = 6)]
     k: usize,
+    /// `remap` only: the Verilog preprocessor's options for reading DESIGN.
+    #[command(flatten)]
+    pre: super::common::PreprocArgs,
     /// How to build it (default: the kind's first style, the one-line spec where there is one).
     #[arg(long, value_enum)]
     style: Option<Style>,
@@ -58,9 +61,8 @@ pub fn run(a: &GenArgs) -> Exit {
         return super::remap::run(
             a.design.as_deref(),
             a.k,
-            a.module.as_deref(),
-            a.format,
-            a.output.as_deref(),
+            &a.pre,
+            (a.module.as_deref(), a.format, a.output.as_deref()),
         );
     }
     let Some(n) = a.n else {

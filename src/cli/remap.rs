@@ -1,6 +1,6 @@
 //! `equicone gen remap DESIGN --k K`: read a design and write its lookup-function rewrite.
 
-use super::common::{load, print, report_input_error, write_atomic};
+use super::common::{load, print, report_input_error, write_atomic, PreprocArgs};
 use super::Exit;
 use crate::diag::InputError;
 use crate::gen::{remap, GenFormat};
@@ -9,9 +9,8 @@ use crate::gen::{remap, GenFormat};
 pub fn run(
     design: Option<&str>,
     k: usize,
-    module: Option<&str>,
-    format: GenFormat,
-    output: Option<&str>,
+    pre: &PreprocArgs,
+    (module, format, output): (Option<&str>, GenFormat, Option<&str>),
 ) -> Exit {
     let Some(path) = design else {
         return report_input_error(&InputError::plain(
@@ -19,7 +18,7 @@ pub fn run(
             "run `equicone gen remap DESIGN --k 6` with a bench or Verilog file",
         ));
     };
-    let d = match load(vec![path.to_string()], None, None) {
+    let d = match load(vec![path.to_string()], None, None, pre) {
         Ok(d) => d,
         Err(e) => return e,
     };

@@ -95,8 +95,7 @@ pub fn certify(
         let x = tr.lit(&r.aig, &mut f, r.outputs[ri].lit);
         let y = tc.lit(&c.aig, &mut f, c.outputs[ci].lit);
         let d = f.fresh();
-        f.clause(&[!d, x, y]);
-        f.clause(&[!d, !x, !y]);
+        crate::cnf::xor_if(&mut f, d, x, y);
         comments.push(format!(
             "pair {} reference {} candidate {} (differs when true)",
             dimacs::dimacs_number(d),

@@ -21,6 +21,8 @@ pub enum InputKind {
         /// What produces it, e.g. "out-of-range select d[s]".
         what: String,
     },
+    /// The current value of a register bit (the state cut): `registers[k].input` names it.
+    Register,
 }
 
 /// One input bit.
@@ -216,6 +218,56 @@ pub struct Design {
     pub netlist: Option<Netlist>,
     /// Warnings found while reading (e.g. width changes at port connections).
     pub warnings: Vec<Diagnostic>,
+    /// Register bits (empty for combinational designs); see [`Register`].
+    pub registers: Vec<Register>,
+}
+
+/// The clock edge a register samples on.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum ClockEdge {
+    /// `posedge`, and the implicit clock of a bench `DFF`.
+    Rising,
+    /// `negedge`.
+    Falling,
+}
+
+/// How a register is reset: by a port bit, active high or low, synchronously or not.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct RegisterReset {
+    /// The reset port bit (an input of kind [`InputKind::Port`]).
+    pub input: usize,
+    /// The port value that resets.
+    pub active: bool,
+    /// Asynchronous (in the event list) rather than synchronous.
+    pub asynchronous: bool,
+}
+
+/// One register bit, cut into logic: AIG input `input` carries its current value and `next`
+/// its value after the clock edge (enables and synchronous reset folded in).
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct Register {
+    /// The bit's name: `q` or `q[3]`.
+    pub name: String,
+    /// The variable (bus) name without the index.
+    pub port: String,
+    /// The bit index, for a vector register.
+    pub index: Option<i64>,
+    /// The AIG input holding the current value.
+    pub input: usize,
+    /// The next value.
+    #[serde(skip)]
+    pub next: Lit,
+    /// The clock's name (`None`: the one implicit clock of a bench file).
+    pub clock: Option<String>,
+    /// The edge it samples on.
+    pub edge: ClockEdge,
+    /// The value reset gives it; `None`: no reset, a free initial value.
+    pub init: Option<bool>,
+    /// Its reset, if any.
+    pub reset: Option<RegisterReset>,
+    /// Where it is declared.
+    pub pos: Option<SourcePos>,
 }
 
 impl Design {
@@ -229,9 +281,17 @@ impl Design {
         self.outputs.iter().position(|b| b.name == name)
     }
 
-    /// Number of port input bits (unknown-value sources not counted).
+    /// Number of port input bits (unknown-value sources and register bits not counted).
     pub fn num_port_inputs(&self) -> usize {
-        self.inputs.iter().filter(|b| !b.is_unknown()).count()
+        self.inputs
+            .iter()
+            .filter(|b| matches!(b.kind, InputKind::Port))
+            .count()
+    }
+
+    /// Whether the design has registers (a clocked design).
+    pub fn is_clocked(&self) -> bool {
+        !self.registers.is_empty()
     }
 
     /// Evaluate every output for one assignment of the AIG inputs.

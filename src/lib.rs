@@ -22,8 +22,10 @@ pub mod front;
 pub mod gen;
 pub(crate) mod hash;
 pub mod report;
+pub mod rng;
 pub mod routes;
 pub mod sat;
+pub mod seq;
 pub mod shard;
 
 pub use aig::{Aig, Lit};

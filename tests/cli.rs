@@ -4,19 +4,10 @@
 mod oracle;
 
 use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
+use std::process::Output;
 
-fn equicone(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .args(args)
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .output()
-        .expect("the binary runs")
-}
-
-fn code(o: &Output) -> i32 {
-    o.status.code().expect("exit code")
-}
+mod runner;
+use runner::{code, equicone};
 
 fn stdout(o: &Output) -> String {
     String::from_utf8_lossy(&o.stdout).into_owned()

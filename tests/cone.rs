@@ -12,5 +12,7 @@ mod flags;
 mod iscas;
 #[path = "oracle/mod.rs"]
 mod oracle;
+#[path = "runner/mod.rs"]
+mod runner;
 #[path = "cone/selectors.rs"]
 mod selectors;

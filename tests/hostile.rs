@@ -11,17 +11,8 @@ fn root() -> &'static Path {
     Path::new(env!("CARGO_MANIFEST_DIR"))
 }
 
-fn equicone(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .args(args)
-        .current_dir(root())
-        .output()
-        .expect("the binary runs")
-}
-
-fn code(o: &Output) -> i32 {
-    o.status.code().expect("exit code")
-}
+mod runner;
+use runner::{code, equicone};
 
 fn stderr(o: &Output) -> String {
     String::from_utf8_lossy(&o.stderr).into_owned()

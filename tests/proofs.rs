@@ -5,15 +5,8 @@
 
 mod oracle;
 
-use std::process::Command;
-
-fn equicone(args: &[&str]) -> std::process::Output {
-    Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .args(args)
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .output()
-        .unwrap()
-}
+mod runner;
+use runner::equicone;
 
 fn prove_with_proof(a: &str, b: &str, extra: &[&str], format: &str) -> (String, Vec<u8>) {
     let dir = tempfile::tempdir().unwrap();

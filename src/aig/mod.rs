@@ -6,9 +6,11 @@
 //! input and output bits live in [`crate::design::Design`].
 
 mod lit;
+mod marks;
 mod sim;
 
 pub use lit::Lit;
+pub use marks::Marks;
 pub use sim::{eval, random_words, simulate, simulate_into, SimTable};
 
 use crate::hash::FastMap;

@@ -100,16 +100,9 @@ pub fn eval(aig: &Aig, inputs: &[bool], roots: &[Lit]) -> Vec<bool> {
 
 /// Deterministic pseudo-random words (SplitMix64) for `n` inputs and `words` words each.
 pub fn random_words(n: usize, words: usize, seed: u64) -> Vec<Vec<u64>> {
-    let mut state = seed ^ 0x9E37_79B9_7F4A_7C15;
-    let mut next = move || {
-        state = state.wrapping_add(0x9E37_79B9_7F4A_7C15);
-        let mut z = state;
-        z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
-        z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
-        z ^ (z >> 31)
-    };
+    let mut rng = crate::rng::SplitMix64::from_state(seed ^ crate::rng::GOLDEN);
     (0..n)
-        .map(|_| (0..words).map(|_| next()).collect())
+        .map(|_| (0..words).map(|_| rng.next_u64()).collect())
         .collect()
 }
 

@@ -57,11 +57,7 @@ pub fn miter_cnf(
         let x = ts.lit(&shared.aig, &mut f, shared.ref_lits[p]);
         let y = ts.lit(&shared.aig, &mut f, shared.cand_lits[p]);
         let d = f.fresh();
-        // d <-> (x xor y)
-        f.clause(&[!d, x, y]);
-        f.clause(&[!d, !x, !y]);
-        f.clause(&[d, !x, y]);
-        f.clause(&[d, x, !y]);
+        crate::cnf::xor_iff(&mut f, d, x, y);
         let (ri, ci) = shared.pairs[p];
         comments.push(format!(
             "pair {} reference {} candidate {} (differs when true)",

@@ -8,8 +8,10 @@
 //! files and writing the results stay with the caller. [`miter_cnf`] builds the formula of
 //! `equicone cnf` from the same pairing.
 
+mod clocked;
 mod miter;
 
+pub use clocked::{check_clocked, is_clocked, ClockedSettings};
 pub use miter::{miter_cnf, MiterCnf};
 
 use crate::certify::{certify, Certificate, NoCertificate, ProofFormat};
@@ -143,6 +145,12 @@ pub fn check_shard(
     shard: Option<Shard>,
 ) -> Result<CheckOutcome, CheckError> {
     let (r, c) = (req.reference, req.candidate);
+    if is_clocked(req) {
+        return Err(CheckError::Input(InputError::plain(
+            "the designs have registers; this session compares combinational logic",
+            "use `check_clocked` (the `prove` command does so by itself)",
+        )));
+    }
     let opts = &req.options;
     // The session's clock: the engine, the diagnosis and the certificate share the budget.
     let deadline = Limits::new(opts.timeout, None);

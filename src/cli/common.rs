@@ -27,6 +27,22 @@ impl From<FormatArg> for Format {
     }
 }
 
+/// The limits and the simulation seed of `prove`, `cone` and `stats`.
+#[derive(Args, Debug, Clone)]
+pub struct LimitArgs {
+    /// Stop after this many seconds, reading the designs included; what is still open (output
+    /// pairs, claims) is then undecided.
+    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
+    pub timeout: Option<f64>,
+    /// Conflicts allowed per SAT query; a query that needs more leaves its output pair or
+    /// claim undecided.
+    #[arg(long, value_name = "N")]
+    pub conflict_limit: Option<u64>,
+    /// Seed of the random simulation patterns.
+    #[arg(long, default_value_t = 1)]
+    pub seed: u64,
+}
+
 /// How to read one design given on the command line.
 #[derive(Args, Debug, Clone)]
 pub struct DesignArgs {

@@ -1,29 +1,14 @@
 //! `equicone cone` (structural cone against exact support, per output bit) and
 //! `equicone stats` (gate counts, cost, delay, bounds).
 
-use super::common::{print, report_input_error, timeout_of, write_atomic, DesignArgs};
+use super::common::{print, report_input_error, timeout_of, write_atomic, DesignArgs, LimitArgs};
 use super::Exit;
 use crate::cone::{self, AuditOptions, SupportOptions};
 use crate::cost::{self, CostModel};
 use crate::sat::Limits;
 use clap::Args;
 
-/// Limits and simulation seed shared by `cone` and `stats`.
-#[derive(Args, Debug, Clone)]
-pub struct AuditLimitArgs {
-    /// Stop after this many seconds, reading the design included; open claims are then
-    /// undecided.
-    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
-    timeout: Option<f64>,
-    /// Conflicts allowed per SAT query; a query that needs more leaves its claim undecided.
-    #[arg(long, value_name = "N")]
-    conflict_limit: Option<u64>,
-    /// Seed of the random simulation patterns.
-    #[arg(long, default_value_t = 1)]
-    seed: u64,
-}
-
-impl AuditLimitArgs {
+impl LimitArgs {
     fn limits(&self) -> Result<Limits, Exit> {
         Ok(Limits::new(timeout_of(self.timeout)?, self.conflict_limit))
     }
@@ -60,7 +45,7 @@ pub struct ConeArgs {
     #[arg(long)]
     json: bool,
     #[command(flatten)]
-    limits: AuditLimitArgs,
+    limits: LimitArgs,
 }
 
 /// Run `cone`.
@@ -134,7 +119,7 @@ pub struct StatsArgs {
     #[arg(long)]
     json: bool,
     #[command(flatten)]
-    limits: AuditLimitArgs,
+    limits: LimitArgs,
 }
 
 /// Run `stats`.

@@ -26,6 +26,21 @@ pub struct EvalArgs {
     /// Print the result as JSON.
     #[arg(long)]
     json: bool,
+    /// Step a clocked design through a trace from reset (a `prove --json` report or its `trace`).
+    #[arg(long, value_name = "FILE", conflicts_with_all = ["set", "vector", "rest"])]
+    trace: Option<String>,
+    /// Which design of the trace this is (its own unknown inputs and initial values).
+    #[arg(long, value_enum, default_value_t = TraceSide::Reference)]
+    side: TraceSide,
+}
+
+/// `--side` of `eval --trace`.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, clap::ValueEnum)]
+pub enum TraceSide {
+    /// The trace's reference.
+    Reference,
+    /// The trace's candidate.
+    Candidate,
 }
 
 #[derive(Serialize)]
@@ -41,6 +56,13 @@ pub fn run(a: &EvalArgs) -> Exit {
         Ok(d) => d,
         Err(e) => return e,
     };
+    if let Some(path) = &a.trace {
+        let side = match a.side {
+            TraceSide::Reference => crate::seq::Side::Reference,
+            TraceSide::Candidate => crate::seq::Side::Candidate,
+        };
+        return super::eval_trace::run(&d, path, side, a.json);
+    }
     match evaluate(&d, a) {
         Ok(text) => {
             print(&text);

@@ -6,10 +6,12 @@
 
 #[macro_use]
 mod enums;
+mod clocked;
 mod common;
 mod cone;
 mod demo;
 mod eval;
+mod eval_trace;
 mod gen;
 mod merge;
 mod prove;

@@ -2,7 +2,7 @@
 
 use super::common::{
     print, report_input_error, report_internal, report_stopped_reading, timeout_of, write_atomic,
-    FormatArg,
+    FormatArg, LimitArgs,
 };
 use super::Exit;
 use crate::certify::{Certificate, NoCertificate, ProofFormat};
@@ -186,16 +186,8 @@ pub struct ProveArgs {
     /// not depend on it.
     #[arg(long, short = 'j', value_name = "N")]
     jobs: Option<usize>,
-    /// Stop after this many seconds, reading the designs included; open output pairs are then
-    /// undecided.
-    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
-    timeout: Option<f64>,
-    /// Conflicts allowed per SAT query; a query that needs more is undecided.
-    #[arg(long, value_name = "N")]
-    conflict_limit: Option<u64>,
-    /// Seed of the random simulation patterns.
-    #[arg(long, default_value_t = 1)]
-    seed: u64,
+    #[command(flatten)]
+    limits: LimitArgs,
     /// Print the report as JSON (schema in the README).
     #[arg(long)]
     json: bool,
@@ -217,6 +209,14 @@ pub struct ProveArgs {
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
     select: Option<String>,
+    /// Clocked designs: cycles from reset searched for a difference when the register pairing
+    /// does not prove every output pair.
+    #[arg(long, value_name = "K", default_value_t = 20)]
+    cycles: usize,
+    /// Clocked designs: how registers without a reset start (`0` is the usual convention for
+    /// the ISCAS-89 circuits).
+    #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
+    init_unset: super::clocked::InitUnsetArg,
     /// Decide only shard K of N (output pairs i with i mod N = K-1) and write a partial report;
     /// `equicone merge` joins the N partial reports into the whole.
     #[arg(long, value_name = "K/N")]
@@ -236,7 +236,7 @@ pub struct CnfArgs {
 /// Run `prove`: read both designs, hand them to the check session, print its outcome.
 pub fn run(a: &ProveArgs) -> Exit {
     // The clock starts before reading: --timeout covers the whole run.
-    let timeout = match timeout_of(a.timeout) {
+    let timeout = match timeout_of(a.limits.timeout) {
         Ok(t) => t,
         Err(e) => return e,
     };
@@ -245,6 +245,15 @@ pub fn run(a: &ProveArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
+    if r.is_clocked() || c.is_clocked() {
+        if a.shard.is_some() {
+            return report_input_error(&crate::diag::InputError::plain(
+                "--shard splits the output pairs of combinational designs; these have registers",
+                "leave out --shard for clocked designs",
+            ));
+        }
+        return run_clocked(a, &r, &c, &deadline);
+    }
     let req = CheckRequest {
         reference: &r,
         candidate: &c,
@@ -254,8 +263,8 @@ pub fn run(a: &ProveArgs) -> Exit {
             free_extra_inputs: a.pair.free_extra_inputs,
             engine: a.engine.into(),
             timeout: deadline.remaining(),
-            conflict_limit: a.conflict_limit,
-            seed: a.seed,
+            conflict_limit: a.limits.conflict_limit,
+            seed: a.limits.seed,
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: !a.json && std::io::stderr().is_terminal(),
@@ -313,6 +322,33 @@ pub fn run(a: &ProveArgs) -> Exit {
     }
 }
 
+/// `prove` on designs with registers: the same request, the clocked session.
+fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Limits) -> Exit {
+    let req = CheckRequest {
+        reference: r,
+        candidate: c,
+        assumptions: a.assume.clone(),
+        options: ProveOptions {
+            pair_by: a.pair.pair_by.into(),
+            free_extra_inputs: a.pair.free_extra_inputs,
+            engine: a.engine.into(),
+            timeout: deadline.remaining(),
+            conflict_limit: a.limits.conflict_limit,
+            seed: a.limits.seed,
+            sim_words: None,
+            jobs: a.jobs.unwrap_or(0),
+            progress: false,
+        },
+        diagnosis: DiagnosisRequest::Off,
+        certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
+    };
+    let settings = check::ClockedSettings {
+        cycles: a.cycles,
+        init_unset: a.init_unset.into(),
+    };
+    super::clocked::run(&req, &settings, a.json, a.report.as_deref())
+}
+
 /// Run `cnf`: the miter (OR of the XORs of all output pairs) asserted true, so that the
 /// formula is unsatisfiable exactly when the designs are equivalent.
 pub fn run_cnf(a: &CnfArgs) -> Exit {
@@ -320,6 +356,10 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return e,
     };
+    if r.is_clocked() || c.is_clocked() {
+        eprintln!("error: cnf writes the miter of combinational designs, and {} has registers\n  help: use `prove` for clocked designs", if r.is_clocked() { &r.name } else { &c.name });
+        return Exit::BadInput;
+    }
     let miter = match check::miter_cnf(&r, &c, a.pair.pair_by.into(), a.pair.free_extra_inputs) {
         Ok(m) => m,
         Err(e) => return report_input_error(&e),
@@ -392,8 +432,8 @@ fn stamp_run(stamp: &mut crate::shard::ShardStamp, a: &ProveArgs) {
         p.pair_by,
         p.free_extra_inputs,
         a.engine,
-        a.seed,
-        a.conflict_limit,
+        a.limits.seed,
+        a.limits.conflict_limit,
         a.assume,
         p.ref_also.len()
     );

@@ -5,8 +5,29 @@
 
 pub mod dimacs;
 
-use crate::aig::{Aig, Lit, Node};
+use crate::aig::{Aig, Lit, Marks, Node};
 use crate::sat::{CLit, ClauseSink};
+
+/// The XOR miter of one output pair, one direction: the clauses of `d -> (x xor y)`. Enough
+/// where `d` is only ever asked to be true (an assumption, or one literal of the clause that
+/// some pair differs): a model with `d` true has `x != y`.
+pub fn xor_if<S: ClauseSink + ?Sized>(sink: &mut S, d: CLit, x: CLit, y: CLit) {
+    sink.clause(&[!d, x, y]);
+    sink.clause(&[!d, !x, !y]);
+}
+
+/// `d <-> (x xor y)`: the clauses of [`xor_if`] and their converse.
+pub fn xor_iff<S: ClauseSink + ?Sized>(sink: &mut S, d: CLit, x: CLit, y: CLit) {
+    xor_if(sink, d, x, y);
+    sink.clause(&[d, !x, y]);
+    sink.clause(&[d, x, !y]);
+}
+
+/// `x xor y` asserted outright.
+pub fn xor_true<S: ClauseSink + ?Sized>(sink: &mut S, x: CLit, y: CLit) {
+    sink.clause(&[x, y]);
+    sink.clause(&[!x, !y]);
+}
 
 /// The map from AIG nodes to CNF variables, growing as cones are encoded.
 #[derive(Clone, Debug, Default)]
@@ -14,9 +35,8 @@ pub struct Tseitin {
     map: Vec<Option<CLit>>,
     stack: Vec<u32>,
     todo: Vec<u32>,
-    /// Visit stamps for [`Tseitin::cone_vars`].
-    stamp: Vec<u32>,
-    epoch: u32,
+    /// Visit marks for [`Tseitin::cone_vars`].
+    marks: Marks,
 }
 
 impl Tseitin {
@@ -63,22 +83,14 @@ impl Tseitin {
     /// a solver's decision scope: an assignment of them that violates no clause extends to the
     /// whole formula by simulating the other nodes, since the cones are closed under fan-in.
     pub fn cone_vars(&mut self, aig: &Aig, roots: &[Lit]) -> Vec<CLit> {
-        if self.stamp.len() < aig.len() {
-            self.stamp.resize(aig.len(), 0);
-        }
-        self.epoch = self.epoch.wrapping_add(1);
-        if self.epoch == 0 {
-            self.stamp.iter_mut().for_each(|s| *s = 0);
-            self.epoch = 1;
-        }
+        self.marks.start(aig.len());
         let mut out = Vec::new();
         self.stack.clear();
         self.stack.extend(roots.iter().map(|r| r.node()));
         while let Some(n) = self.stack.pop() {
-            if self.stamp[n as usize] == self.epoch {
+            if !self.marks.mark(n as usize) {
                 continue;
             }
-            self.stamp[n as usize] = self.epoch;
             if let Some(v) = self.map.get(n as usize).copied().flatten() {
                 out.push(v);
             }

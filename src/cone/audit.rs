@@ -191,6 +191,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
                 InputKind::Unknown { pos, what } => {
                     ("unknown", Some(what.clone()), Some(pos.to_string()))
                 }
+                InputKind::Register => ("register", None, b.pos.as_ref().map(|p| p.to_string())),
             };
             InputSummary {
                 name: b.name.clone(),

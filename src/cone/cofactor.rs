@@ -6,14 +6,14 @@
 //! without a SAT call.
 
 use super::flip::Fanout;
-use crate::aig::{Aig, Lit, Node};
+use crate::aig::{Aig, Lit, Marks, Node};
 
 /// Reusable scratch space for building cofactor miters over one original graph.
 pub(crate) struct Cofactorer {
     /// Number of nodes of the original graph (the fan-out lists cover these).
     original: usize,
-    stamp: Vec<u32>,
-    epoch: u32,
+    /// The nodes rebuilt for the current input.
+    marks: Marks,
     map0: Vec<Lit>,
     map1: Vec<Lit>,
     order: Vec<u32>,
@@ -25,8 +25,7 @@ impl Cofactorer {
     pub(crate) fn new(original: usize) -> Cofactorer {
         Cofactorer {
             original,
-            stamp: vec![0; original],
-            epoch: 0,
+            marks: Marks::new(),
             map0: vec![Lit::FALSE; original],
             map1: vec![Lit::FALSE; original],
             order: Vec::new(),
@@ -58,23 +57,17 @@ impl Cofactorer {
         xn: u32,
     ) -> (Lit, Lit) {
         debug_assert!(root.index() < self.original && (xn as usize) < self.original);
-        if self.epoch == u32::MAX {
-            self.stamp.iter_mut().for_each(|s| *s = 0);
-            self.epoch = 0;
-        }
-        self.epoch += 1;
-        let e = self.epoch;
+        self.marks.start(self.original);
         // The nodes on a path from x to the root: x's transitive fan-out within the cone.
         self.order.clear();
         self.stack.clear();
-        self.stamp[xn as usize] = e;
+        self.marks.mark(xn as usize);
         self.stack.push(xn);
         while let Some(n) = self.stack.pop() {
             self.order.push(n);
             for &f in fanout.of(n as usize) {
                 let fi = f as usize;
-                if fi < self.original && in_cone[fi] && self.stamp[fi] != e {
-                    self.stamp[fi] = e;
+                if fi < self.original && in_cone[fi] && self.marks.mark(fi) {
                     self.stack.push(f);
                 }
             }
@@ -98,7 +91,7 @@ impl Cofactorer {
     #[inline]
     fn get(&self, l: Lit) -> (Lit, Lit) {
         let n = l.index();
-        if self.stamp[n] == self.epoch {
+        if self.marks.is_marked(n) {
             let c = l.is_complemented();
             (
                 self.map0[n].xor_complement(c),

@@ -3,7 +3,7 @@
 //! words change proves that it depends on the flipped input; the pattern is the evidence.
 
 use super::bits::Bits;
-use crate::aig::{simulate, Aig, Lit, Node, SimTable};
+use crate::aig::{simulate, Aig, Lit, Marks, Node, SimTable};
 use std::cmp::Reverse;
 use std::collections::BinaryHeap;
 
@@ -60,9 +60,12 @@ pub(crate) struct FlipSim<'a> {
     inputs: Vec<Vec<u64>>,
     table: SimTable,
     scratch: Vec<u64>,
-    changed: Vec<u32>,
-    queued: Vec<u32>,
-    epoch: u32,
+    /// Nodes whose words changed in the current flip.
+    changed: Marks,
+    /// Nodes queued for re-simulation in the current flip.
+    queued: Marks,
+    /// Whether any flip was made yet.
+    flipped: bool,
     heap: BinaryHeap<Reverse<u32>>,
     /// Node evaluations done by flips so far (a cost figure).
     pub(crate) work: u64,
@@ -80,9 +83,9 @@ impl<'a> FlipSim<'a> {
             inputs,
             table,
             scratch: vec![0u64; aig.len() * words],
-            changed: vec![0; aig.len()],
-            queued: vec![0; aig.len()],
-            epoch: 0,
+            changed: Marks::new(),
+            queued: Marks::new(),
+            flipped: false,
             heap: BinaryHeap::new(),
             work: 0,
         }
@@ -91,23 +94,18 @@ impl<'a> FlipSim<'a> {
     /// Flip primary input `k` in every pattern and propagate the change through its fan-out,
     /// in topological order, stopping wherever a node's words do not change.
     pub(crate) fn flip(&mut self, k: usize) {
-        if self.epoch == u32::MAX {
-            self.changed.iter_mut().for_each(|c| *c = 0);
-            self.queued.iter_mut().for_each(|c| *c = 0);
-            self.epoch = 0;
-        }
-        self.epoch += 1;
-        let e = self.epoch;
+        self.changed.start(self.aig.len());
+        self.queued.start(self.aig.len());
+        self.flipped = true;
         let w = self.words;
         let xn = self.aig.inputs()[k] as usize;
         for i in 0..w {
             self.scratch[xn * w + i] = !self.table.values[xn * w + i];
         }
-        self.changed[xn] = e;
+        self.changed.mark(xn);
         self.heap.clear();
         for &f in self.fanout.of(xn) {
-            if self.queued[f as usize] != e {
-                self.queued[f as usize] = e;
+            if self.queued.mark(f as usize) {
                 self.heap.push(Reverse(f));
             }
         }
@@ -119,7 +117,7 @@ impl<'a> FlipSim<'a> {
             self.work += 1;
             let (ia, ib) = (a.index(), b.index());
             let (ma, mb) = (mask(a), mask(b));
-            let (ca, cb) = (self.changed[ia] == e, self.changed[ib] == e);
+            let (ca, cb) = (self.changed.is_marked(ia), self.changed.is_marked(ib));
             let mut differs = false;
             for i in 0..w {
                 let va = if ca {
@@ -137,10 +135,9 @@ impl<'a> FlipSim<'a> {
                 differs |= v != self.table.values[n * w + i];
             }
             if differs {
-                self.changed[n] = e;
+                self.changed.mark(n);
                 for &f in self.fanout.of(n) {
-                    if self.queued[f as usize] != e {
-                        self.queued[f as usize] = e;
+                    if self.queued.mark(f as usize) {
                         self.heap.push(Reverse(f));
                     }
                 }
@@ -151,7 +148,7 @@ impl<'a> FlipSim<'a> {
     /// After [`FlipSim::flip`]: the first pattern in which `root` changed, if any.
     pub(crate) fn first_difference(&self, root: Lit) -> Option<usize> {
         let n = root.index();
-        if self.changed[n] != self.epoch || self.epoch == 0 {
+        if !self.flipped || !self.changed.is_marked(n) {
             return None;
         }
         let w = self.words;

@@ -8,6 +8,7 @@
 
 #[cfg(test)]
 use crate::aig::SimTable;
+use crate::rng::mix;
 
 /// No class (a singleton).
 const NONE: u32 = u32::MAX;
@@ -227,14 +228,6 @@ impl Signatures {
     }
 }
 
-/// A 64-bit mixing step (SplitMix64 finaliser).
-#[inline]
-fn mix(mut z: u64) -> u64 {
-    z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
-    z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
-    z ^ (z >> 31)
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -277,7 +270,7 @@ mod tests {
         let mut lits = ins.clone();
         let mut r = 12345u64;
         for _ in 0..400 {
-            r = mix(r.wrapping_add(0x9E37_79B9_7F4A_7C15));
+            r = mix(r.wrapping_add(crate::rng::GOLDEN));
             let a = lits[(r % lits.len() as u64) as usize];
             let b = lits[((r >> 20) % lits.len() as u64) as usize];
             let l = g.and(

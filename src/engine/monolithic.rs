@@ -40,8 +40,7 @@ pub(crate) fn monolithic(
         let a = ts.lit(aig, &mut sat, q.reference);
         let b = ts.lit(aig, &mut sat, q.candidate);
         let d = sat.fresh();
-        sat.clause(&[!d, a, b]);
-        sat.clause(&[!d, !a, !b]);
+        crate::cnf::xor_if(&mut sat, d, a, b);
         diff.push(Some(d));
     }
     loop {

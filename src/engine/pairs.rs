@@ -103,8 +103,7 @@ pub(crate) fn decide_pairs(
         let a = ts.lit(aig, sat, pairs[p].reference);
         let b = ts.lit(aig, sat, pairs[p].candidate);
         let act = sat.fresh();
-        sat.clause(&[!act, a, b]);
-        sat.clause(&[!act, !a, !b]);
+        crate::cnf::xor_if(sat, act, a, b);
         // Decide only within the pair's cones (and the constraint's): the solver also holds
         // the cones of earlier pairs, which this query does not need to assign.
         let mut scope = ts.cone_vars(aig, &roots);

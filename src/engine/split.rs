@@ -228,8 +228,7 @@ fn step(item: Item, n: usize, limits: &Limits) -> Step {
     let cy = ts.lit(&g, &mut sat, y);
     let cc = ts.lit(&g, &mut sat, c);
     sat.clause(&[cc]);
-    sat.clause(&[cx, cy]);
-    sat.clause(&[!cx, !cy]);
+    crate::cnf::xor_true(&mut sat, cx, cy);
     match sat.solve_within(&[], Some(LEAF_BUDGET)) {
         SatResult::Unsat => Step::Equal,
         SatResult::Sat => {

@@ -15,9 +15,10 @@ use super::progress::Progress;
 use super::split;
 use super::window::{Window, WindowAnswer};
 use super::Finding;
-use crate::aig::{random_words, simulate, simulate_into, Aig, Lit, Node, SimTable};
+use crate::aig::{random_words, simulate, simulate_into, Aig, Lit, Marks, Node, SimTable};
 use crate::cnf::Tseitin;
 use crate::hash::FastMap;
+use crate::rng::{SplitMix64, GOLDEN};
 use crate::sat::{Limits, Sat, SatStats, StopReason};
 use serde::Serialize;
 
@@ -210,10 +211,9 @@ pub(crate) fn sweep(
         rev: vec![0],
         fo_head: vec![NO_EDGE],
         fo_next: vec![NO_EDGE; 2],
-        stamp: Vec::new(),
+        marks: Marks::new(),
         value: FastMap::default(),
-        epoch: 0,
-        rng: cone.seed.wrapping_mul(0x9E37_79B9_7F4A_7C15) | 1,
+        rng: SplitMix64::from_state(cone.seed.wrapping_mul(GOLDEN) | 1),
         stored: if cfg!(debug_assertions) {
             ins
         } else {
@@ -408,7 +408,7 @@ struct Sweeper<'a> {
     /// For each pending pattern, the inputs of the window that found it: the bits to flip for
     /// its neighbours.
     near: Vec<Vec<u32>>,
-    rng: u64,
+    rng: SplitMix64,
     whole_cone: usize,
     /// Window answers per stage (fresh tiny, small, large: equal, refuted (lifted partial
     /// models included), partial, unknown), then lifts, then proofs against a member other than the representative.
@@ -421,11 +421,10 @@ struct Sweeper<'a> {
     /// after each edge (edge `2u + k` is fan-in `k` of node `u`).
     fo_head: Vec<u32>,
     fo_next: Vec<u32>,
-    /// Scratch for [`Sweeper::lift`] and [`Sweeper::twins`]: visit stamps per merged-graph
+    /// Scratch for [`Sweeper::lift`] and [`Sweeper::twins`]: visit marks per merged-graph
     /// node, and the simulation words of the cone being lifted.
-    stamp: Vec<u32>,
+    marks: Marks,
     value: FastMap<u32, u64>,
-    epoch: u32,
     /// Every simulated pattern word per input (debug builds only, for the merge check).
     stored: Vec<Vec<u64>>,
 }
@@ -501,11 +500,11 @@ impl Sweeper<'_> {
         l: Lit,
         rep: Option<Lit>,
     ) -> Vec<Lit> {
-        let epoch = self.next_epoch();
+        self.marks.start(self.f.len());
         let f = &self.f;
         // Downwards, breadth first.
         let mut down: Vec<(u32, u32)> = vec![(l.node(), 0)];
-        self.stamp[l.node() as usize] = epoch;
+        self.marks.mark(l.node() as usize);
         let mut head = 0;
         while head < down.len() && down.len() < TWIN_BELOW {
             let (n, d) = down[head];
@@ -515,8 +514,7 @@ impl Sweeper<'_> {
             }
             if let Node::And(x, y) = f.node(n) {
                 for c in [x.node(), y.node()] {
-                    if self.stamp[c as usize] != epoch {
-                        self.stamp[c as usize] = epoch;
+                    if self.marks.mark(c as usize) {
                         down.push((c, d + 1));
                     }
                 }
@@ -547,28 +545,13 @@ impl Sweeper<'_> {
             let mut e = self.fo_head[n as usize];
             while e != NO_EDGE && up.len() < TWIN_VISITS {
                 let p = e / 2;
-                if self.stamp[p as usize] != epoch {
-                    self.stamp[p as usize] = epoch;
+                if self.marks.mark(p as usize) {
                     up.push((p, d + 1));
                 }
                 e = self.fo_next[e as usize];
             }
         }
         out
-    }
-
-    /// A new visit stamp for [`Sweeper::twins`] and [`Sweeper::lift`], with a stamp slot for
-    /// every node of the merged graph.
-    fn next_epoch(&mut self) -> u32 {
-        if self.stamp.len() < self.f.len() {
-            self.stamp.resize(self.f.len(), 0);
-        }
-        self.epoch = self.epoch.wrapping_add(1);
-        if self.epoch == 0 {
-            self.stamp.iter_mut().for_each(|s| *s = 0);
-            self.epoch = 1;
-        }
-        self.epoch
     }
 
     /// Whether the large window is still worth its cost: it is dropped once it has mostly
@@ -633,15 +616,14 @@ impl Sweeper<'_> {
     /// Try to extend a truncated window's model to a real counterexample: 64 patterns that
     /// keep `fixed` and draw the other inputs at random, simulated on the cones of `a` and `b`.
     fn lift(&mut self, a: Lit, b: Lit, fixed: &[(u32, bool)]) -> Option<Vec<bool>> {
-        let epoch = self.next_epoch();
+        self.marks.start(self.f.len());
         let f = &self.f;
         let mut cone = Vec::new();
         let mut stack = vec![a.node(), b.node()];
         while let Some(n) = stack.pop() {
-            if self.stamp[n as usize] == epoch {
+            if !self.marks.mark(n as usize) {
                 continue;
             }
-            self.stamp[n as usize] = epoch;
             cone.push(n);
             if cone.len() > LIFT_MAX_CONE {
                 return None;
@@ -662,10 +644,7 @@ impl Sweeper<'_> {
         for &n in &cone {
             let v = match f.node(n) {
                 Node::Const => 0,
-                Node::Input(k) => fixed_word[k as usize].unwrap_or_else(|| {
-                    rng = rng.wrapping_add(0x9E37_79B9_7F4A_7C15);
-                    mix(rng)
-                }),
+                Node::Input(k) => fixed_word[k as usize].unwrap_or_else(|| rng.next_u64()),
                 Node::And(x, y) => {
                     let vx = self.value[&x.node()] ^ if x.is_complemented() { u64::MAX } else { 0 };
                     let vy = self.value[&y.node()] ^ if y.is_complemented() { u64::MAX } else { 0 };
@@ -691,8 +670,7 @@ impl Sweeper<'_> {
     }
 
     fn random_word(&mut self) -> u64 {
-        self.rng = self.rng.wrapping_add(0x9E37_79B9_7F4A_7C15);
-        mix(self.rng)
+        self.rng.next_u64()
     }
 
     fn random_pattern(&mut self) -> Vec<bool> {
@@ -785,12 +763,4 @@ impl Sweeper<'_> {
             }
         }
     }
-}
-
-/// SplitMix64 output function.
-#[inline]
-fn mix(mut z: u64) -> u64 {
-    z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
-    z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
-    z ^ (z >> 31)
 }

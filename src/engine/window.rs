@@ -196,8 +196,7 @@ impl Window {
         }
         let ca = lit_of(lit(fr.var[a.index()]), a);
         let cb = lit_of(lit(fr.var[b.index()]), b);
-        fr.sat.clause(&[!act, ca, cb]);
-        fr.sat.clause(&[!act, !ca, !cb]);
+        crate::cnf::xor_if(&mut fr.sat, act, ca, cb);
         // Decide only on this window: the variables of earlier windows, whose clauses are
         // all satisfied by their spent activation literals, are left free.
         fr.sat.set_scope(Some(&fr.scope));
@@ -318,8 +317,7 @@ impl Window {
         self.scope.push(act);
         let ca = lit_of(self.seen(a.node()).expect("in the window"), a);
         let cb = lit_of(self.seen(b.node()).expect("in the window"), b);
-        self.sat.clause(&[!act, ca, cb]);
-        self.sat.clause(&[!act, !ca, !cb]);
+        crate::cnf::xor_if(&mut self.sat, act, ca, cb);
         self.sat.set_scope(Some(&self.scope));
         let answer = match self.sat.solve_within(&[act], Some(conflicts)) {
             SatResult::Unsat => WindowAnswer::Equal,

@@ -9,7 +9,10 @@ mod line;
 
 use super::ReadError;
 use crate::aig::{Aig, Lit};
-use crate::design::{split_bit, Cell, CellKind, Design, Format, InputBit, Netlist, OutputBit};
+use crate::design::{
+    split_bit, Cell, CellKind, ClockEdge, Design, Format, InputBit, InputKind, Netlist, OutputBit,
+    Register,
+};
 use crate::diag::{Diagnostic, InputError, SourcePos};
 use crate::hash::FastMap;
 use line::{col_of, parse_line, Stmt};
@@ -51,6 +54,8 @@ struct Parsed<'t> {
     outputs: Vec<(u32, Pos)>,
     gates: Vec<GateDef>,
     args: Vec<u32>,
+    /// `q = DFF(d)` lines: (q, d); each q is also in `inputs` (the state cut).
+    dffs: Vec<(u32, u32)>,
 }
 
 impl<'t> Parsed<'t> {
@@ -75,8 +80,8 @@ pub fn read_bench_until(
     text: &str,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
-    let (netlist, inputs, outputs) = parse_to_netlist(file, text, stop)?;
-    elaborate(file, netlist, inputs, outputs, stop)
+    let compact = parse_to_netlist(file, text, stop)?;
+    elaborate(file, compact, stop)
 }
 
 /// [`read_bench_until`] taking the text, which is dropped as soon as the netlist holds its
@@ -86,14 +91,14 @@ pub fn read_bench_text(
     text: String,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
-    let (netlist, inputs, outputs) = parse_to_netlist(file, &text, stop)?;
+    let compact = parse_to_netlist(file, &text, stop)?;
     drop(text);
-    elaborate(file, netlist, inputs, outputs, stop)
+    elaborate(file, compact, stop)
 }
 
 /// The parse result without the text: the netlist as written plus the input and output
-/// positions (signal, place).
-type Compact = (Netlist, Vec<(u32, Pos)>, Vec<(u32, Pos)>);
+/// positions (signal, place) and the flip-flops (output signal, data signal).
+type Compact = (Netlist, Vec<(u32, Pos)>, Vec<(u32, Pos)>, Vec<(u32, u32)>);
 
 fn stopped(file: &Arc<str>) -> ReadError {
     ReadError::Stopped(file.to_string())
@@ -112,6 +117,7 @@ fn parse_to_netlist(
         outputs: Vec::new(),
         gates: Vec::new(),
         args: Vec::new(),
+        dffs: Vec::new(),
     };
     let mut errors = Vec::new();
     let mut fanin: Vec<(&str, usize)> = Vec::new();
@@ -141,6 +147,13 @@ fn parse_to_netlist(
             Ok(Stmt::Output(name, at)) => {
                 let id = p.id(name);
                 p.outputs.push((id, pos(at)));
+            }
+            Ok(Stmt::Dff(name, at)) => {
+                let q = p.id(name);
+                let d = p.id(fanin[0].0);
+                p.inputs.push((q, pos(at)));
+                p.args.push(d);
+                p.dffs.push((q, d));
             }
             Ok(Stmt::Gate(name, at, kind)) => {
                 let output = p.id(name);
@@ -187,6 +200,7 @@ fn parse_to_netlist(
         outputs,
         gates,
         args,
+        dffs,
     } = p;
     let mut number = vec![UNDEFINED; ids.len()];
     for (k, &(id, _)) in inputs.iter().enumerate() {
@@ -226,7 +240,11 @@ fn parse_to_netlist(
         outputs: outputs.iter().map(|&(s, _)| s).collect(),
         complete: true,
     };
-    Ok((netlist, inputs, outputs))
+    let dffs = dffs
+        .iter()
+        .map(|&(q, d)| (number[q as usize], number[d as usize]))
+        .collect();
+    Ok((netlist, inputs, outputs, dffs))
 }
 
 /// Every signal defined once and every used signal defined; all such errors of the file.
@@ -286,7 +304,9 @@ fn check_definitions(file: &Arc<str>, text: &str, p: &Parsed<'_>) -> Result<(), 
         let mut fanin = Vec::new();
         for (ln, raw) in text.lines().enumerate() {
             let line = raw.split('#').next().unwrap_or("");
-            if let Ok(Stmt::Gate(..)) = parse_line(file, ln as u32 + 1, line, &mut fanin) {
+            if let Ok(Stmt::Gate(..) | Stmt::Dff(..)) =
+                parse_line(file, ln as u32 + 1, line, &mut fanin)
+            {
                 for &(a, at) in &fanin {
                     if def[p.ids[a] as usize].is_none() {
                         errors.push(undefined(
@@ -329,9 +349,7 @@ fn undefined(name: &str, pos: &SourcePos) -> Diagnostic {
 /// stack (no recursion), so a deep chain cannot overflow.
 fn elaborate(
     file: &Arc<str>,
-    netlist: Netlist,
-    in_pos: Vec<(u32, Pos)>,
-    out_pos: Vec<(u32, Pos)>,
+    (netlist, in_pos, out_pos, dffs): Compact,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
     let ni = netlist.inputs.len();
@@ -342,6 +360,10 @@ fn elaborate(
     // everywhere else.
     aig.reserve(cells.len() + cells.len() / 4);
     let mut inputs = Vec::with_capacity(ni);
+    let mut is_register = vec![false; ni];
+    for &(q, _) in &dffs {
+        is_register[q as usize] = true;
+    }
     for (k, &(s, pos)) in in_pos.iter().enumerate() {
         let lit = aig.add_input();
         debug_assert_eq!(lit, aig.input_lit(k));
@@ -349,6 +371,9 @@ fn elaborate(
         let (port, index) = split_bit(name);
         let mut bit = InputBit::port(port, index, Some(pos.at(file)));
         bit.name = name.clone();
+        if is_register[s as usize] {
+            bit.kind = InputKind::Register;
+        }
         inputs.push(bit);
     }
     // Literal of every signal; a gate's is set once it is built.
@@ -411,6 +436,7 @@ fn elaborate(
             bit
         })
         .collect();
+    let registers = dff_registers(&inputs, &dffs, &lit);
     let design = Design {
         name: file.to_string(),
         format: Format::Bench,
@@ -419,9 +445,32 @@ fn elaborate(
         outputs,
         netlist: Some(netlist),
         warnings: Vec::new(),
+        registers,
     };
     design.debug_check();
     Ok(design)
+}
+
+/// The registers of `q = DFF(d)` lines: rising edge of the one implicit clock, no reset
+/// (the published ISCAS-89 files define no initial state).
+fn dff_registers(inputs: &[InputBit], dffs: &[(u32, u32)], lit: &[Option<Lit>]) -> Vec<Register> {
+    dffs.iter()
+        .map(|&(q, d)| {
+            let b = &inputs[q as usize];
+            Register {
+                name: b.name.clone(),
+                port: b.port.clone(),
+                index: b.index,
+                input: q as usize,
+                next: lit[d as usize].expect("every signal is built"),
+                clock: None,
+                edge: ClockEdge::Rising,
+                init: None,
+                reset: None,
+                pos: b.pos.clone(),
+            }
+        })
+        .collect()
 }
 
 fn redefined(name: &str, pos: &SourcePos, first: &SourcePos) -> Diagnostic {

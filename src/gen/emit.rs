@@ -11,7 +11,7 @@
 //! (1) with `const__n = NOT(x)` for the first input bit `x`: the constant then has `x` in its
 //! structural cone but not in its support. Bit `i` of bus `d` is named `d[i]` in both formats.
 
-use super::rng::Rng;
+use crate::rng::SplitMix64 as Rng;
 use std::collections::HashSet;
 
 mod print;

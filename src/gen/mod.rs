@@ -37,7 +37,6 @@
 pub mod emit;
 pub mod mutate;
 pub mod remap;
-pub mod rng;
 pub mod set;
 
 mod arbiter;
@@ -432,7 +431,7 @@ fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenE
     validate(spec)?;
     let module = spec.module.clone().unwrap_or_else(|| spec.default_module());
     let mut c = Circuit::new(&module);
-    let mut rng = rng::Rng::new(spec.seed, 1);
+    let mut rng = crate::rng::SplitMix64::new(spec.seed, 1);
     let notes = match spec.kind {
         Kind::Selector => selector::build(&mut c, spec.n, spec.width, spec.style, &mut rng),
         Kind::Decoder => decoder::build_decoder(&mut c, spec.n, spec.style),

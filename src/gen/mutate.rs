@@ -3,8 +3,8 @@
 //! only if some output differs, so a planted bug is always a real difference.
 
 use super::emit::{Circuit, Gate, Net, Op};
-use super::rng::Rng;
 use super::{Bug, GenError};
+use crate::rng::SplitMix64 as Rng;
 
 /// Places tried before giving up on a seed-chosen place (or choices tried at a named place).
 const ATTEMPTS: usize = 64;

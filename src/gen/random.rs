@@ -6,8 +6,8 @@
 //! at the end are the outputs `y`, so every gate is in the cone of some output.
 
 use super::emit::{Circuit, Net, Op};
-use super::rng::Rng;
 use super::Style;
+use crate::rng::SplitMix64 as Rng;
 
 const WINDOW: usize = 2048;
 

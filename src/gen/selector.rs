@@ -7,8 +7,8 @@
 
 use super::decoder::{flat_lines, predecode};
 use super::emit::{Care, Circuit, Net, Op};
-use super::rng::Rng;
 use super::{clog2, Style};
+use crate::rng::SplitMix64 as Rng;
 
 /// Build the selector; returns the header notes (the first is the one-line description).
 pub(super) fn build(

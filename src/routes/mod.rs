@@ -244,8 +244,7 @@ fn decide(
             }
         };
         let act = sat.fresh();
-        sat.clause(&[!act, co, target]);
-        sat.clause(&[!act, !co, !target]);
+        crate::cnf::xor_if(sat, act, co, target);
         let mut q = with.clone();
         q.push(act);
         let r = sat.solve(&q);

@@ -1,15 +1,9 @@
 //! The real executable's `cone` and `stats` commands: exit codes, JSON, `--dot`, `--expect`
 //! and bad input, run in a temporary folder.
 
-use std::process::{Command, Output};
+use std::process::Output;
 
-fn equicone(dir: &std::path::Path, args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .args(args)
-        .current_dir(dir)
-        .output()
-        .expect("the binary runs")
-}
+use crate::runner::equicone_in as equicone;
 
 fn folder(files: &[(&str, &str)]) -> tempfile::TempDir {
     let d = tempfile::tempdir().unwrap();

@@ -101,6 +101,7 @@ pub fn from_cells(
         outputs: outs,
         netlist: Some(netlist),
         warnings: Vec::new(),
+        registers: Vec::new(),
     };
     d.debug_check();
     d

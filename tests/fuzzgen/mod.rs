@@ -10,28 +10,26 @@
 #![allow(dead_code)]
 
 use equicone::diag::InputError;
+use equicone::rng::{SplitMix64, GOLDEN};
 use equicone::Design;
 use std::sync::atomic::{AtomicBool, Ordering};
 use std::sync::{Arc, Mutex, Once};
 use std::time::{Duration, Instant};
 
-/// SplitMix64 (Steele, Lea and Flood 2014): small, fast and reproducible everywhere.
-pub struct Rng(u64);
+/// The crate's SplitMix64, with the choices the fuzz generators make.
+pub struct Rng(SplitMix64);
 
 impl Rng {
     /// The generator for input `index` of the campaign with `seed`.
     pub fn for_input(seed: u64, index: u64) -> Rng {
-        let mut r = Rng(seed ^ 0x9e37_79b9_7f4a_7c15);
-        let a = r.next();
-        Rng(a ^ index.wrapping_mul(0xd1b5_4a32_d192_ed03))
+        let a = SplitMix64::from_state(seed ^ GOLDEN).next_u64();
+        Rng(SplitMix64::from_state(
+            a ^ index.wrapping_mul(0xd1b5_4a32_d192_ed03),
+        ))
     }
 
     pub fn next(&mut self) -> u64 {
-        self.0 = self.0.wrapping_add(0x9e37_79b9_7f4a_7c15);
-        let mut z = self.0;
-        z = (z ^ (z >> 30)).wrapping_mul(0xbf58_476d_1ce4_e5b9);
-        z = (z ^ (z >> 27)).wrapping_mul(0x94d0_49bb_1331_11eb);
-        z ^ (z >> 31)
+        self.0.next_u64()
     }
 
     /// A number in `0..n` (`n > 0`).

@@ -12,6 +12,8 @@ pub(super) enum Stmt<'t> {
     Input(&'t str, usize),
     Output(&'t str, usize),
     Gate(&'t str, usize, CellKind),
+    /// `q = DFF(d)`: a D flip-flop on the one implicit clock (ISCAS-89); `d` is in the fan-in.
+    Dff(&'t str, usize),
 }
 
 /// The 1-based character column of byte offset `byte` of `line`.
@@ -148,7 +150,11 @@ pub(super) fn parse_line<'t>(
                     .with_help("for example `y = NAND(a, b)`")
             })?;
             let gpos = cur.pos_at(gat);
-            let kind = gate_kind(gname).ok_or_else(|| unknown_gate(gname, &gpos))?;
+            let dff = gname.eq_ignore_ascii_case("DFF");
+            let kind = match dff {
+                true => CellKind::Buf,
+                false => gate_kind(gname).ok_or_else(|| unknown_gate(gname, &gpos))?,
+            };
             cur.expect('(', "after the gate type")?;
             fanin.clear();
             if cur.peek() != Some(')') {
@@ -168,8 +174,21 @@ pub(super) fn parse_line<'t>(
             }
             cur.expect(')', "to close the gate's input list")?;
             cur.expect_end()?;
+            if dff && fanin.len() != 1 {
+                return Err(Diagnostic::error(
+                    Some(gpos),
+                    format!(
+                        "flip-flop `{gname}` has {} inputs but needs exactly 1",
+                        fanin.len()
+                    ),
+                )
+                .with_help("a D flip-flop takes its data signal, e.g. `q = DFF(d)`"));
+            }
             check_arity(kind, gname, fanin.len(), &gpos)?;
-            Ok(Stmt::Gate(first, first_at, kind))
+            Ok(match dff {
+                true => Stmt::Dff(first, first_at),
+                false => Stmt::Gate(first, first_at, kind),
+            })
         }
         Some(c) => Err(Diagnostic::error(
             Some(cur.pos()),
@@ -200,12 +219,12 @@ fn gate_kind(name: &str) -> Option<CellKind> {
 
 fn unknown_gate(name: &str, pos: &SourcePos) -> Diagnostic {
     let upper = name.to_ascii_uppercase();
-    if upper == "DFF" || upper == "LATCH" {
+    if upper == "LATCH" {
         Diagnostic::error(
             Some(pos.clone()),
             format!("unsupported: sequential element `{name}`"),
         )
-        .with_help("equicone checks combinational logic; cut the design at its flip-flops and check the logic between them")
+        .with_help("equicone reads edge-triggered flip-flops (`q = DFF(d)`) but not level-sensitive latches; replace the latch with a DFF or cut the design there")
     } else {
         Diagnostic::error(Some(pos.clone()), format!("unknown gate type `{name}`"))
             .with_help("known gates: AND NAND OR NOR XOR XNOR NOT BUF BUFF (any case)")

@@ -279,6 +279,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
         outputs,
         netlist: Some(netlist),
         warnings: std::mem::take(&mut e.warnings),
+        registers: Vec::new(),
     };
     if e.errors.is_empty() {
         d.debug_check();

@@ -1,0 +1,277 @@
+//! Equivalence of clocked designs: both designs cut at their registers (the state cut) into one
+//! product machine (`product.rs`), register bits paired by name and by simulated behaviour from
+//! the reset state (`simulate.rs`, `names.rs`), the pairing refined until it is inductive
+//! (`correspond.rs`, signal correspondence), the output pairs proved under it, and otherwise a
+//! bounded unrolling from reset (`bmc.rs`) for a trace that both designs replay (`trace.rs`).
+//!
+//! **Invariant:** `equivalent` only when the pairing is inductive from the reset state and every
+//! output pair is equal under it (UNSAT or equal literals); `different` only with a trace that both
+//! original designs replay to the reported first difference.
+
+mod bmc;
+mod correspond;
+mod names;
+mod product;
+mod report;
+mod simulate;
+mod text;
+mod trace;
+
+pub use product::{HeldInput, InitUnset, Side};
+pub use report::{NameMismatch, OutputStatus, RegisterPair, SeqReport, UnpairedRegister};
+pub use trace::{
+    first_difference, replay, FirstDifference, InitialValue, OutputDifference, Replay, Trace,
+    TraceCycle, TraceInput, TraceReset,
+};
+
+use crate::design::Design;
+use crate::diag::InputError;
+use crate::engine::Verdict;
+use crate::sat::Limits;
+use correspond::{Classes, Constrained};
+use product::{Init, Product};
+use std::collections::BTreeMap;
+
+/// Settings of a clocked check.
+#[derive(Clone, Debug)]
+pub struct SeqOptions {
+    /// Cycles from reset the bounded unrolling checks (`--cycles`).
+    pub cycles: usize,
+    /// How registers without a reset start.
+    pub init_unset: InitUnset,
+    /// Leave port bits that one design lacks free.
+    pub free_extra_inputs: bool,
+    /// Simulated cycles for the pairing by behaviour.
+    pub sim_cycles: usize,
+    /// Simulated runs, in 64-run words.
+    pub sim_words: usize,
+    /// Time and conflict limits.
+    pub limits: Limits,
+}
+
+impl Default for SeqOptions {
+    fn default() -> Self {
+        SeqOptions {
+            cycles: 20,
+            init_unset: InitUnset::Free,
+            free_extra_inputs: false,
+            sim_cycles: 64,
+            sim_words: 4,
+            limits: Limits::none(),
+        }
+    }
+}
+
+/// Why a clocked check could not give a verdict at all.
+#[derive(Debug)]
+pub enum SeqError {
+    /// The designs cannot be paired (exit code 2).
+    Input(InputError),
+    /// An internal check failed: a trace did not replay (exit code 4).
+    Internal(String),
+}
+
+/// Check two clocked designs (either may have no registers).
+pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqError> {
+    let start = std::time::Instant::now();
+    let mut p = Product::build(r, c, o.init_unset, o.free_extra_inputs).map_err(SeqError::Input)?;
+    let sim = simulate::simulate(&p, o.sim_cycles.max(1), o.sim_words.max(1), 0x5E9_0001);
+    let mut classes = Classes::from_signatures(&p, &sim.signatures);
+    classes.split_by_init(&p);
+    let name_checks = report::name_matches(r, c, &p, &classes, &sim);
+    let mut stopped = None;
+    let refinements = match correspond::make_inductive(&mut p, &mut classes, &o.limits) {
+        Ok(n) => n,
+        Err(reason) => {
+            // Without an inductive pairing nothing is proved: keep no groups.
+            stopped = Some(reason);
+            classes.groups.clear();
+            0
+        }
+    };
+    // Output pairs under the pairing.
+    let mut status = vec![OutputStatus::Undecided; p.outputs.len()];
+    let mut pending = Vec::new();
+    let xors: Vec<_> = p
+        .outputs
+        .iter()
+        .map(|op| (op.lit_r == op.lit_c, p.aig.xor(op.lit_r, op.lit_c)))
+        .collect();
+    {
+        let mut cs = Constrained::new(&p, &classes, &o.limits);
+        for (k, &(same, x)) in xors.iter().enumerate() {
+            if same || x == crate::aig::Lit::FALSE {
+                status[k] = OutputStatus::Equivalent("structure");
+                continue;
+            }
+            let l = cs.ts.lit(&p.aig, &mut cs.sat, x);
+            match cs.sat.solve(&[l]) {
+                crate::sat::SatResult::Unsat => status[k] = OutputStatus::Equivalent("induction"),
+                crate::sat::SatResult::Sat => pending.push(k),
+                crate::sat::SatResult::Stopped(reason) => {
+                    stopped.get_or_insert(reason);
+                    pending.push(k);
+                }
+            }
+        }
+    }
+    let open_under_cut: Vec<usize> = pending.clone();
+    let mut trace = None;
+    let mut cycles_checked = 0;
+    if !pending.is_empty() {
+        match bmc::unroll(&mut p, &pending, o.cycles, &o.limits) {
+            bmc::Bmc::Found(f) => {
+                let t = build_trace(r, c, &p, &f.free, &f.init, o.init_unset);
+                trace = Some(confirm(r, c, &p, t, f.cycle)?);
+                cycles_checked = f.cycle;
+            }
+            bmc::Bmc::Clean => cycles_checked = o.cycles,
+            bmc::Bmc::Stopped(reason, k) => {
+                stopped.get_or_insert(reason);
+                cycles_checked = k;
+                if let Some((cycle, run)) = sim.first_difference {
+                    let free: Vec<Vec<bool>> = sim.inputs[..=cycle]
+                        .iter()
+                        .map(|ws| ws.iter().map(|w| simulate::SimRun::bit(w, run)).collect())
+                        .collect();
+                    let init: BTreeMap<u32, bool> = sim
+                        .init
+                        .iter()
+                        .enumerate()
+                        .map(|(k, w)| (k as u32, simulate::SimRun::bit(w, run)))
+                        .collect();
+                    let t = build_trace(r, c, &p, &free, &init, o.init_unset);
+                    trace = Some(confirm(r, c, &p, t, cycle)?);
+                }
+            }
+        }
+    }
+    if let Some(t) = &trace {
+        let fd = t.first_difference.as_ref().expect("confirmed");
+        for d in &fd.outputs {
+            if let Some(k) = p.outputs.iter().position(|op| {
+                r.outputs[op.reference].name == d.reference
+                    && c.outputs[op.candidate].name == d.candidate
+            }) {
+                status[k] = OutputStatus::Different;
+            }
+        }
+    }
+    let verdict = if trace.is_some() {
+        Verdict::Different
+    } else if status
+        .iter()
+        .all(|s| matches!(s, OutputStatus::Equivalent(_)))
+    {
+        Verdict::Equivalent
+    } else {
+        Verdict::Undecided
+    };
+    Ok(report::build(report::Parts {
+        r,
+        c,
+        p: &p,
+        classes: &classes,
+        name_checks,
+        status,
+        open_under_cut,
+        refinements,
+        verdict,
+        trace,
+        cycles_checked,
+        cycles_asked: o.cycles,
+        stopped,
+        init_unset: o.init_unset,
+        sim_runs: o.sim_words.max(1) * 64,
+        sim_cycles: o.sim_cycles.max(1),
+        seconds: start.elapsed().as_secs_f64(),
+    }))
+}
+
+/// A trace from per-cycle input values and free initial values.
+fn build_trace(
+    r: &Design,
+    c: &Design,
+    p: &Product,
+    free: &[Vec<bool>],
+    init: &BTreeMap<u32, bool>,
+    init_unset: InitUnset,
+) -> Trace {
+    let mut initial = Vec::new();
+    for s in &p.state {
+        let d = if s.side == Side::Reference { r } else { c };
+        if d.registers[s.register].init.is_some() {
+            continue;
+        }
+        let value = match s.init {
+            Init::Const(v) => v,
+            Init::Free(k) => init.get(&k).copied().unwrap_or(false),
+        };
+        initial.push(InitialValue {
+            side: s.side,
+            register: s.name.clone(),
+            value,
+        });
+    }
+    let description = match init_unset {
+        InitUnset::Free => "registers with a reset start at their reset value, the others at the values listed; reset ports are held inactive and clocks at 0 in every cycle",
+        InitUnset::Value(false) => "registers with a reset start at their reset value, the others at 0 (--init-unset 0); reset ports are held inactive and clocks at 0 in every cycle",
+        InitUnset::Value(true) => "registers with a reset start at their reset value, the others at 1 (--init-unset 1); reset ports are held inactive and clocks at 0 in every cycle",
+    };
+    let cycles = free
+        .iter()
+        .enumerate()
+        .map(|(cycle, vals)| TraceCycle {
+            cycle,
+            inputs: p
+                .free
+                .iter()
+                .zip(vals)
+                .map(|(f, &value)| TraceInput {
+                    name: f.name.clone(),
+                    side: f.side,
+                    value,
+                })
+                .collect(),
+        })
+        .collect();
+    Trace {
+        reset: TraceReset {
+            description: description.to_string(),
+            held: p.held.clone(),
+            initial,
+        },
+        cycles,
+        first_difference: None,
+    }
+}
+
+/// Replay `t` on both designs; its first difference must be in cycle `cycle`.
+fn confirm(
+    r: &Design,
+    c: &Design,
+    p: &Product,
+    mut t: Trace,
+    cycle: usize,
+) -> Result<Trace, SeqError> {
+    let rr = replay(r, Side::Reference, &t).map_err(SeqError::Internal)?;
+    let cr = replay(c, Side::Candidate, &t).map_err(SeqError::Internal)?;
+    let pairs: Vec<(usize, usize)> = p
+        .outputs
+        .iter()
+        .map(|o| (o.reference, o.candidate))
+        .collect();
+    match first_difference(r, c, &pairs, &rr, &cr) {
+        Some(fd) if fd.cycle == cycle => {
+            t.first_difference = Some(fd);
+            Ok(t)
+        }
+        other => Err(SeqError::Internal(format!(
+            "a trace found for cycle {cycle} replays to {}",
+            match other {
+                Some(fd) => format!("a first difference in cycle {}", fd.cycle),
+                None => "no difference".to_string(),
+            }
+        ))),
+    }
+}

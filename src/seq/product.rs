@@ -1,0 +1,407 @@
+//! The product machine of two clocked designs: both designs' logic in one AIG over shared
+//! per-cycle inputs (port bits paired by name) and the state bits of both (the state cut).
+//!
+//! AIG inputs `0..free.len()` are the per-cycle inputs; the next `state.len()` inputs are the
+//! state bits. Reset ports are held at their inactive value and clock ports at 0 in every
+//! cycle: a run starts in the reset state and reset is not asserted again.
+
+use crate::aig::{Aig, Lit};
+use crate::design::{Design, InputKind};
+use crate::diag::{Diagnostic, InputError};
+use serde::{Deserialize, Serialize};
+use std::collections::{BTreeMap, BTreeSet};
+
+/// Which design a bit belongs to.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Side {
+    /// Both designs (a paired port bit).
+    Both,
+    /// The reference only.
+    Reference,
+    /// The candidate only.
+    Candidate,
+}
+
+impl Side {
+    /// The word used in reports.
+    pub fn word(self) -> &'static str {
+        match self {
+            Side::Both => "both",
+            Side::Reference => "reference",
+            Side::Candidate => "candidate",
+        }
+    }
+}
+
+/// One per-cycle input of the product machine.
+#[derive(Clone, Debug)]
+pub struct FreeInput {
+    /// The bit's name (a port bit, or an unknown-value source).
+    pub name: String,
+    /// Whose input it is.
+    pub side: Side,
+}
+
+/// The initial value of a state bit.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, PartialOrd, Ord)]
+pub enum Init {
+    /// Set by reset (or `--init-unset 0|1`).
+    Const(bool),
+    /// A free initial value; the number identifies it (each register without a reset has its own).
+    Free(u32),
+}
+
+/// One state bit: a register of one design.
+#[derive(Clone, Debug)]
+pub struct StateBit {
+    /// Whose register.
+    pub side: Side,
+    /// Index into that design's `registers`.
+    pub register: usize,
+    /// The register bit's name.
+    pub name: String,
+    /// Its current value (an AIG input of the product).
+    pub current: Lit,
+    /// Its next value.
+    pub next: Lit,
+    /// Its initial value.
+    pub init: Init,
+}
+
+/// One output pair of the product.
+#[derive(Clone, Debug)]
+pub struct OutPair {
+    /// Index into the reference's outputs.
+    pub reference: usize,
+    /// Index into the candidate's outputs.
+    pub candidate: usize,
+    /// The reference output in the product.
+    pub lit_r: Lit,
+    /// The candidate output in the product.
+    pub lit_c: Lit,
+}
+
+/// A port bit held at one value in every cycle (a reset at its inactive value, a clock at 0).
+#[derive(Clone, Debug, PartialEq, Eq, PartialOrd, Ord, Serialize, Deserialize)]
+pub struct HeldInput {
+    /// The port bit.
+    pub name: String,
+    /// Whose port (both when both designs have it).
+    pub side: Side,
+    /// The value held.
+    pub value: bool,
+    /// `reset` or `clock`.
+    pub role: String,
+}
+
+/// How registers without a reset start.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Default)]
+pub enum InitUnset {
+    /// Each starts at its own free value (reported).
+    #[default]
+    Free,
+    /// Each starts at this value (for ISCAS-89 files, all zeros is the usual convention).
+    Value(bool),
+}
+
+/// Both designs in one AIG, with their registers cut.
+#[derive(Clone, Debug)]
+pub struct Product {
+    /// The logic of both designs.
+    pub aig: Aig,
+    /// Per-cycle inputs (AIG inputs `0..free.len()`).
+    pub free: Vec<FreeInput>,
+    /// State bits (AIG inputs from `free.len()` on), reference registers first.
+    pub state: Vec<StateBit>,
+    /// Output pairs, in the reference's output order.
+    pub outputs: Vec<OutPair>,
+    /// Inputs held constant.
+    pub held: Vec<HeldInput>,
+}
+
+/// The role of each AIG input of one design in a run: held at a value, or free.
+fn held_inputs(d: &Design) -> BTreeMap<usize, (bool, &'static str)> {
+    let mut held = BTreeMap::new();
+    for r in &d.registers {
+        if let Some(reset) = &r.reset {
+            held.insert(reset.input, (!reset.active, "reset"));
+        }
+    }
+    let clocks: BTreeSet<&str> = d
+        .registers
+        .iter()
+        .filter_map(|r| r.clock.as_deref())
+        .collect();
+    for (k, b) in d.inputs.iter().enumerate() {
+        if matches!(b.kind, InputKind::Port) && clocks.contains(b.name.as_str()) {
+            held.entry(k).or_insert((false, "clock"));
+        }
+    }
+    held
+}
+
+fn error(design: &Design, msg: String, help: &str) -> InputError {
+    InputError::one(
+        Diagnostic::error(None, format!("{}: {msg}", design.name)).with_help(help.to_string()),
+    )
+}
+
+/// Every register of a design must sample on the same clock and edge (one clock domain).
+fn check_one_clock(d: &Design) -> Result<(), InputError> {
+    let mut seen: BTreeSet<(Option<&str>, &str)> = BTreeSet::new();
+    for r in &d.registers {
+        let edge = match r.edge {
+            crate::design::ClockEdge::Rising => "posedge",
+            crate::design::ClockEdge::Falling => "negedge",
+        };
+        seen.insert((r.clock.as_deref(), edge));
+    }
+    if seen.len() > 1 {
+        let list: Vec<String> = seen
+            .iter()
+            .map(|(c, e)| format!("{e} {}", c.unwrap_or("(implicit)")))
+            .collect();
+        return Err(error(
+            d,
+            format!(
+                "unsupported: registers on more than one clock or edge ({}); equicone checks one clock domain",
+                list.join(", ")
+            ),
+            "check each clock domain as its own module",
+        ));
+    }
+    Ok(())
+}
+
+impl Product {
+    /// Build the product of `r` and `c`; port bits pair by name. `free_extra` leaves port bits
+    /// that only one design has free instead of refusing them.
+    pub fn build(
+        r: &Design,
+        c: &Design,
+        init_unset: InitUnset,
+        free_extra: bool,
+    ) -> Result<Product, InputError> {
+        check_one_clock(r)?;
+        check_one_clock(c)?;
+        let held_r = held_inputs(r);
+        let held_c = held_inputs(c);
+        let mut aig = Aig::new();
+        let mut free: Vec<FreeInput> = Vec::new();
+        let mut map_r = vec![Lit::FALSE; r.inputs.len()];
+        let mut map_c = vec![Lit::FALSE; c.inputs.len()];
+        let mut held: Vec<HeldInput> = Vec::new();
+        let cand_ports: BTreeMap<&str, usize> = c
+            .inputs
+            .iter()
+            .enumerate()
+            .filter(|(_, b)| matches!(b.kind, InputKind::Port))
+            .map(|(k, b)| (b.name.as_str(), k))
+            .collect();
+        let mut used_c = vec![false; c.inputs.len()];
+        let mut only_r = Vec::new();
+        for (k, b) in r.inputs.iter().enumerate() {
+            match b.kind {
+                InputKind::Register => {}
+                InputKind::Unknown { .. } => {
+                    map_r[k] = aig.add_input();
+                    free.push(FreeInput {
+                        name: b.name.clone(),
+                        side: Side::Reference,
+                    });
+                }
+                InputKind::Port => {
+                    let other = cand_ports.get(b.name.as_str()).copied();
+                    if let Some(j) = other {
+                        used_c[j] = true;
+                    }
+                    let hr = held_r.get(&k);
+                    let hc = other.and_then(|j| held_c.get(&j));
+                    if let Some(&(v, role)) = hr.or(hc) {
+                        map_r[k] = Lit::constant(v);
+                        if let Some(j) = other {
+                            map_c[j] = Lit::constant(v);
+                        }
+                        let side = if other.is_some() {
+                            Side::Both
+                        } else {
+                            Side::Reference
+                        };
+                        held.push(HeldInput {
+                            name: b.name.clone(),
+                            side,
+                            value: v,
+                            role: role.to_string(),
+                        });
+                        continue;
+                    }
+                    if other.is_none() && !free_extra {
+                        only_r.push(b.name.clone());
+                        continue;
+                    }
+                    let l = aig.add_input();
+                    map_r[k] = l;
+                    if let Some(j) = other {
+                        map_c[j] = l;
+                    }
+                    free.push(FreeInput {
+                        name: b.name.clone(),
+                        side: if other.is_some() {
+                            Side::Both
+                        } else {
+                            Side::Reference
+                        },
+                    });
+                }
+            }
+        }
+        let mut only_c = Vec::new();
+        for (k, b) in c.inputs.iter().enumerate() {
+            if used_c[k] || matches!(b.kind, InputKind::Register) {
+                continue;
+            }
+            if matches!(b.kind, InputKind::Port) {
+                if let Some(&(v, role)) = held_c.get(&k) {
+                    map_c[k] = Lit::constant(v);
+                    held.push(HeldInput {
+                        name: b.name.clone(),
+                        side: Side::Candidate,
+                        value: v,
+                        role: role.to_string(),
+                    });
+                    continue;
+                }
+                if !free_extra {
+                    only_c.push(b.name.clone());
+                    continue;
+                }
+            }
+            map_c[k] = aig.add_input();
+            free.push(FreeInput {
+                name: b.name.clone(),
+                side: Side::Candidate,
+            });
+        }
+        if !only_r.is_empty() || !only_c.is_empty() {
+            let mut parts = Vec::new();
+            if !only_r.is_empty() {
+                parts.push(format!("only the reference has {}", only_r.join(", ")));
+            }
+            if !only_c.is_empty() {
+                parts.push(format!("only the candidate has {}", only_c.join(", ")));
+            }
+            return Err(InputError::one(
+                Diagnostic::error(
+                    None,
+                    format!("input bits without a partner: {}", parts.join("; ")),
+                )
+                .with_help(
+                    "rename the ports to match, or pass --free-extra-inputs to leave them free",
+                ),
+            ));
+        }
+        // State bits: reference registers, then candidate registers.
+        let mut state = Vec::new();
+        let mut next_free = 0u32;
+        // Same-named registers without a reset share one free initial value.
+        let mut free_of: BTreeMap<String, u32> = BTreeMap::new();
+        for (side, d, map) in [
+            (Side::Reference, r, &mut map_r),
+            (Side::Candidate, c, &mut map_c),
+        ] {
+            for (i, reg) in d.registers.iter().enumerate() {
+                let cur = aig.add_input();
+                map[reg.input] = cur;
+                let init = match (reg.init, init_unset) {
+                    (Some(v), _) => Init::Const(v),
+                    (None, InitUnset::Value(v)) => Init::Const(v),
+                    (None, InitUnset::Free) => {
+                        let key = super::names::normalize(&reg.name);
+                        let shared = match side {
+                            Side::Candidate => free_of.remove(&key),
+                            _ => None,
+                        };
+                        Init::Free(shared.unwrap_or_else(|| {
+                            next_free += 1;
+                            if side == Side::Reference {
+                                free_of.insert(key, next_free - 1);
+                            }
+                            next_free - 1
+                        }))
+                    }
+                };
+                state.push(StateBit {
+                    side,
+                    register: i,
+                    name: reg.name.clone(),
+                    current: cur,
+                    next: Lit::FALSE,
+                    init,
+                });
+            }
+        }
+        // Outputs pair by name; the next-state functions come with them.
+        let mut outputs = Vec::new();
+        let mut unpaired = Vec::new();
+        for (i, o) in r.outputs.iter().enumerate() {
+            match c.output_index(&o.name) {
+                Some(j) => outputs.push((i, j)),
+                None => unpaired.push(format!("reference output {}", o.name)),
+            }
+        }
+        for o in &c.outputs {
+            if r.output_index(&o.name).is_none() {
+                unpaired.push(format!("candidate output {}", o.name));
+            }
+        }
+        if !unpaired.is_empty() {
+            return Err(InputError::one(
+                Diagnostic::error(
+                    None,
+                    format!("output bits without a partner: {}", unpaired.join(", ")),
+                )
+                .with_help("outputs pair by name in clocked designs; rename them to match"),
+            ));
+        }
+        let roots_r: Vec<Lit> = outputs
+            .iter()
+            .map(|&(i, _)| r.outputs[i].lit)
+            .chain(r.registers.iter().map(|g| g.next))
+            .collect();
+        let roots_c: Vec<Lit> = outputs
+            .iter()
+            .map(|&(_, j)| c.outputs[j].lit)
+            .chain(c.registers.iter().map(|g| g.next))
+            .collect();
+        let lr = aig.import(&r.aig, &map_r, &roots_r);
+        let lc = aig.import(&c.aig, &map_c, &roots_c);
+        let n = outputs.len();
+        for (k, s) in state.iter_mut().enumerate() {
+            s.next = if k < r.registers.len() {
+                lr[n + k]
+            } else {
+                lc[n + k - r.registers.len()]
+            };
+        }
+        let outputs = outputs
+            .iter()
+            .enumerate()
+            .map(|(k, &(i, j))| OutPair {
+                reference: i,
+                candidate: j,
+                lit_r: lr[k],
+                lit_c: lc[k],
+            })
+            .collect();
+        held.sort();
+        held.dedup();
+        Ok(Product {
+            aig,
+            free,
+            state,
+            outputs,
+            held,
+        })
+    }
+}

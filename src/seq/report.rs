@@ -1,0 +1,394 @@
+//! The report of a clocked check: register pairs with how each was found, constants, unpaired
+//! registers, refuted name matches with their evidence, output pairs, and the trace; its text
+//! form (a trace is a table, one row per cycle, buses by value) and its JSON form.
+
+use super::correspond::Classes;
+use super::names::normalize;
+use super::product::{HeldInput, Init, InitUnset, Product, Side};
+use super::simulate::SimRun;
+use super::trace::{replay, Trace};
+use crate::design::Design;
+use crate::engine::Verdict;
+use crate::sat::StopReason;
+use serde::Serialize;
+use std::collections::BTreeMap;
+
+/// A reference register bit paired with a candidate register bit.
+#[derive(Clone, Debug, Serialize)]
+pub struct RegisterPair {
+    /// The reference register bit.
+    pub reference: String,
+    /// The candidate register bit.
+    pub candidate: String,
+    /// The candidate holds the complement.
+    pub inverted: bool,
+    /// `name` (the names agree up to synthesis renamings) or `behaviour`.
+    pub found_by: &'static str,
+}
+
+/// A register bit with no partner in the other design.
+#[derive(Clone, Debug, Serialize)]
+pub struct UnpairedRegister {
+    /// Whose register.
+    pub side: Side,
+    /// The register bit.
+    pub register: String,
+    /// `constant 0`/`constant 1` when it never changes from reset, `duplicate of X` when it always
+    /// equals another register of its own design, else `no partner`.
+    pub note: String,
+}
+
+/// Registers whose names match but that are not paired, with the evidence.
+#[derive(Clone, Debug, Serialize)]
+pub struct NameMismatch {
+    /// The reference register bit.
+    pub reference: String,
+    /// The candidate register bit.
+    pub candidate: String,
+    /// Why they are not a pair.
+    pub evidence: String,
+}
+
+/// The status of one output pair.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub enum OutputStatus {
+    /// Equal in every reachable state; the method (`structure` or `induction`).
+    Equivalent(&'static str),
+    /// Differs on the trace.
+    Different,
+    /// Neither.
+    Undecided,
+}
+
+/// One output pair in the report.
+#[derive(Clone, Debug, Serialize)]
+pub struct OutputLine {
+    /// The reference output bit.
+    pub reference: String,
+    /// The candidate output bit.
+    pub candidate: String,
+    /// `equivalent`, `different` or `undecided`.
+    pub status: &'static str,
+    /// How it was decided.
+    pub method: &'static str,
+}
+
+/// The report of a clocked check.
+#[derive(Clone, Debug, Serialize)]
+pub struct SeqReport {
+    /// Schema of this JSON form.
+    pub schema: u32,
+    /// `clocked`.
+    pub kind: &'static str,
+    /// The verdict.
+    pub verdict: &'static str,
+    /// The reference.
+    pub reference: String,
+    /// The candidate.
+    pub candidate: String,
+    /// Register bits of each design.
+    pub registers: [usize; 2],
+    /// Inputs held at a value in every cycle.
+    pub held: Vec<HeldInput>,
+    /// Registers without a reset and how they start.
+    pub without_reset: Vec<String>,
+    /// `free` or the value given by `--init-unset`.
+    pub init_unset: String,
+    /// Register pairs (inductive from reset).
+    pub pairs: Vec<RegisterPair>,
+    /// Registers without a partner.
+    pub unpaired: Vec<UnpairedRegister>,
+    /// Name matches that did not become pairs.
+    pub name_mismatches: Vec<NameMismatch>,
+    /// How the pairing was found and proved.
+    pub pairing_evidence: String,
+    /// Induction counterexamples that refined the pairing.
+    pub refinements: usize,
+    /// The output pairs.
+    pub outputs: Vec<OutputLine>,
+    /// Output pairs not proved under the pairing (before the unrolling).
+    pub open_under_cut: Vec<String>,
+    /// Cycles from reset checked without a difference by the unrolling.
+    pub cycles_checked: usize,
+    /// Cycles asked for (`--cycles`).
+    pub cycles_asked: usize,
+    /// Why a limit stopped part of the check.
+    pub stopped: Option<StopReason>,
+    /// The trace, for `different`.
+    pub trace: Option<Trace>,
+    /// Output values along the trace: per cycle, (reference, candidate) values of the outputs that
+    /// differ at the first difference.
+    #[serde(skip)]
+    pub trace_outputs: Vec<Vec<(bool, bool)>>,
+    /// Seconds taken.
+    pub seconds: f64,
+}
+
+/// A name match found before the pairing is proved.
+pub struct NameMatch {
+    r: usize,
+    c: usize,
+    sim: Option<String>,
+}
+
+/// Register bits of the two designs whose names agree after `normalize`, with the simulation's
+/// evidence when their sequences differ.
+pub fn name_matches(
+    _r: &Design,
+    _c: &Design,
+    p: &Product,
+    _classes: &Classes,
+    sim: &SimRun,
+) -> Vec<NameMatch> {
+    let mut by_name: BTreeMap<String, usize> = BTreeMap::new();
+    for (k, s) in p.state.iter().enumerate() {
+        if s.side == Side::Reference {
+            by_name.entry(normalize(&s.name)).or_insert(k);
+        }
+    }
+    let mut out = Vec::new();
+    for (k, s) in p.state.iter().enumerate() {
+        if s.side != Side::Candidate {
+            continue;
+        }
+        if let Some(&j) = by_name.get(&normalize(&s.name)) {
+            let (a, b) = (&sim.signatures[j], &sim.signatures[k]);
+            let differ = |inv: u64| a.iter().zip(b).position(|(x, y)| x ^ y ^ inv != 0);
+            let ev = match (differ(0), differ(!0)) {
+                (Some(w), Some(_)) => Some(format!(
+                    "their values differ in simulated cycle {} from reset",
+                    w / sim.words
+                )),
+                _ => None,
+            };
+            out.push(NameMatch {
+                r: j,
+                c: k,
+                sim: ev,
+            });
+        }
+    }
+    out
+}
+
+/// What [`build`] needs.
+#[allow(missing_docs)]
+pub struct Parts<'a> {
+    pub r: &'a Design,
+    pub c: &'a Design,
+    pub p: &'a Product,
+    pub classes: &'a Classes,
+    pub name_checks: Vec<NameMatch>,
+    pub status: Vec<OutputStatus>,
+    pub open_under_cut: Vec<usize>,
+    pub refinements: usize,
+    pub verdict: Verdict,
+    pub trace: Option<Trace>,
+    pub cycles_checked: usize,
+    pub cycles_asked: usize,
+    pub stopped: Option<StopReason>,
+    pub init_unset: InitUnset,
+    pub sim_runs: usize,
+    pub sim_cycles: usize,
+    pub seconds: f64,
+}
+
+/// Assemble the report.
+pub fn build(x: Parts<'_>) -> SeqReport {
+    let p = x.p;
+    let at: BTreeMap<u32, usize> = p
+        .state
+        .iter()
+        .enumerate()
+        .map(|(k, s)| (s.current.node(), k))
+        .collect();
+    let mut group_of: BTreeMap<usize, usize> = BTreeMap::new();
+    let mut pairs = Vec::new();
+    let mut note: BTreeMap<usize, String> = BTreeMap::new();
+    for (gi, g) in x.classes.groups.iter().enumerate() {
+        let refs: Vec<(usize, bool)> = g
+            .iter()
+            .filter(|m| !m.is_const())
+            .map(|m| (at[&m.node()], m.is_complemented()))
+            .collect();
+        for &(k, _) in &refs {
+            group_of.insert(k, gi);
+        }
+        if g[0].is_const() {
+            for &(k, inv) in &refs {
+                note.insert(k, format!("constant {}", inv as u8));
+            }
+            continue;
+        }
+        let first_r = refs
+            .iter()
+            .find(|(k, _)| p.state[*k].side == Side::Reference);
+        let first_c = refs
+            .iter()
+            .find(|(k, _)| p.state[*k].side == Side::Candidate);
+        for &(k, inv) in &refs {
+            let s = &p.state[k];
+            match (s.side, first_r, first_c) {
+                (Side::Candidate, Some(&(j, jinv)), _) => {
+                    let rn = &p.state[j].name;
+                    pairs.push(RegisterPair {
+                        reference: rn.clone(),
+                        candidate: s.name.clone(),
+                        inverted: inv != jinv,
+                        found_by: if normalize(rn) == normalize(&s.name) {
+                            "name"
+                        } else {
+                            "behaviour"
+                        },
+                    });
+                }
+                (Side::Reference, _, Some(_)) => {}
+                (_, _, _) => {
+                    let (j, _) = refs[0];
+                    if j != k {
+                        note.insert(k, format!("duplicate of {}", p.state[j].name));
+                    }
+                }
+            }
+        }
+    }
+    let order: BTreeMap<&str, usize> = p
+        .state
+        .iter()
+        .enumerate()
+        .filter(|(_, s)| s.side == Side::Reference)
+        .map(|(k, s)| (s.name.as_str(), k))
+        .collect();
+    pairs.sort_by_key(|x: &RegisterPair| {
+        (
+            order.get(x.reference.as_str()).copied(),
+            x.candidate.clone(),
+        )
+    });
+    let unpaired = p
+        .state
+        .iter()
+        .enumerate()
+        .filter(|(k, s)| {
+            let paired = group_of.get(k).is_some_and(|&g| {
+                let grp = &x.classes.groups[g];
+                !grp[0].is_const()
+                    && grp
+                        .iter()
+                        .any(|m| !m.is_const() && p.state[at[&m.node()]].side != s.side)
+            });
+            !paired
+        })
+        .map(|(k, s)| UnpairedRegister {
+            side: s.side,
+            register: s.name.clone(),
+            note: note
+                .get(&k)
+                .cloned()
+                .unwrap_or_else(|| "no partner".to_string()),
+        })
+        .collect();
+    let name_mismatches = x
+        .name_checks
+        .iter()
+        .filter(|m| !group_of.contains_key(&m.r) || group_of.get(&m.r) != group_of.get(&m.c))
+        .map(|m| NameMismatch {
+            reference: p.state[m.r].name.clone(),
+            candidate: p.state[m.c].name.clone(),
+            evidence: m.sim.clone().unwrap_or_else(|| {
+                if p.state[m.r].init != p.state[m.c].init
+                    || matches!(p.state[m.r].init, Init::Free(_))
+                {
+                    "their initial values may differ".to_string()
+                } else {
+                    "equal in simulation, but an induction counterexample separated them"
+                        .to_string()
+                }
+            }),
+        })
+        .collect();
+    let without_reset: Vec<String> = p
+        .state
+        .iter()
+        .filter(|s| {
+            let d = if s.side == Side::Reference { x.r } else { x.c };
+            d.registers[s.register].init.is_none()
+        })
+        .map(|s| format!("{} {}", s.side.word(), s.name))
+        .collect();
+    let outputs: Vec<OutputLine> = p
+        .outputs
+        .iter()
+        .zip(&x.status)
+        .map(|(o, st)| OutputLine {
+            reference: x.r.outputs[o.reference].name.clone(),
+            candidate: x.c.outputs[o.candidate].name.clone(),
+            status: match st {
+                OutputStatus::Equivalent(_) => "equivalent",
+                OutputStatus::Different => "different",
+                OutputStatus::Undecided => "undecided",
+            },
+            method: match st {
+                OutputStatus::Equivalent(m) => m,
+                OutputStatus::Different => "unrolling",
+                OutputStatus::Undecided => "none",
+            },
+        })
+        .collect();
+    let mut trace_outputs = Vec::new();
+    if let Some(t) = &x.trace {
+        if let (Ok(rr), Ok(cr), Some(fd)) = (
+            replay(x.r, Side::Reference, t),
+            replay(x.c, Side::Candidate, t),
+            &t.first_difference,
+        ) {
+            for (ro, co) in rr.outputs.iter().zip(&cr.outputs) {
+                trace_outputs.push(
+                    fd.outputs
+                        .iter()
+                        .map(|d| {
+                            let i = x.r.output_index(&d.reference).unwrap_or(0);
+                            let j = x.c.output_index(&d.candidate).unwrap_or(0);
+                            (ro[i], co[j])
+                        })
+                        .collect(),
+                );
+            }
+        }
+    }
+    SeqReport {
+        schema: 1,
+        kind: "clocked",
+        verdict: x.verdict.word(),
+        reference: x.r.name.clone(),
+        candidate: x.c.name.clone(),
+        registers: [x.r.registers.len(), x.c.registers.len()],
+        held: p.held.clone(),
+        without_reset,
+        init_unset: match x.init_unset {
+            InitUnset::Free => "free".to_string(),
+            InitUnset::Value(v) => (v as u8).to_string(),
+        },
+        pairs,
+        unpaired,
+        name_mismatches,
+        pairing_evidence: format!(
+            "grouped by equal or complementary values in {} simulated runs of {} cycles from reset, kept where the initial values agree, then proved inductive by SAT after {} refinement(s)",
+            x.sim_runs, x.sim_cycles,
+            x.refinements
+        ),
+        refinements: x.refinements,
+        outputs,
+        open_under_cut: x
+            .open_under_cut
+            .iter()
+            .map(|&k| x.r.outputs[p.outputs[k].reference].name.clone())
+            .collect(),
+        cycles_checked: x.cycles_checked,
+        cycles_asked: x.cycles_asked,
+        stopped: x.stopped,
+        trace: x.trace,
+        trace_outputs,
+        seconds: x.seconds,
+    }
+}

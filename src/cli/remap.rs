@@ -39,7 +39,7 @@ pub fn run(
     }
     c.notes.insert(0, cmd);
     let text = match format {
-        GenFormat::Bench => c.to_bench(),
+        GenFormat::Bench => remap::to_bench(&c),
         GenFormat::Verilog => {
             if let Err(e) = remap::verilog_names_ok(&c) {
                 return report_input_error(&e.into());

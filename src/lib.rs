@@ -18,6 +18,7 @@ pub mod design;
 pub mod diag;
 pub mod diagnose;
 pub mod engine;
+pub mod explain;
 pub mod front;
 pub mod gen;
 pub(crate) mod hash;

@@ -220,6 +220,15 @@ impl<'a> Sat<'a> {
         self.model.get(l.index()).copied().unwrap_or(false) == l.is_positive()
     }
 
+    /// After an UNSAT answer under assumptions: a subset of the assumptions that is already
+    /// unsatisfiable with the clauses (empty when the clauses alone are unsatisfiable).
+    pub fn failed_core(&self) -> Vec<CLit> {
+        self.solver
+            .failed_core()
+            .map(|c| c.to_vec())
+            .unwrap_or_default()
+    }
+
     /// Statistics so far.
     pub fn stats(&self) -> SatStats {
         self.stats

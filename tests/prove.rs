@@ -377,7 +377,7 @@ mod random_pairs {
     }
 
     proptest! {
-        #![proptest_config(ProptestConfig { cases: 600, failure_persistence: None, .. ProptestConfig::default() })]
+        #![proptest_config(ProptestConfig { cases: 600, .. ProptestConfig::default() })]
 
         /// Random pairs of small circuits (up to 12 inputs): equivalent rewrites and single-gate
         /// mutants; the verdict agrees with exhaustive truth-table comparison for every engine.

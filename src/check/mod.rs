@@ -18,7 +18,8 @@ use crate::certify::{certify, Certificate, NoCertificate, ProofFormat};
 use crate::design::Design;
 use crate::diag::InputError;
 use crate::diagnose::{self, Diagnosis};
-use crate::engine::{self, ProveOptions, ProveReport, Verdict};
+use crate::engine::{self, ProveOptions, ProveReport, Shared, Verdict};
+use crate::explain::{cubes::CubeLimits, Explanation};
 use crate::sat::Limits;
 use crate::shard::{Shard, ShardStamp};
 use serde::Serialize;
@@ -52,6 +53,10 @@ pub struct CheckRequest<'a> {
     pub diagnosis: DiagnosisRequest,
     /// Certify the equivalent output pairs in this proof format.
     pub certificate: Option<ProofFormat>,
+    /// Explain the differing output pairs by difference cubes, within these limits.
+    pub explain: Option<CubeLimits>,
+    /// Keep the paired graph in the outcome, to replay counterexamples (VCD, testbench).
+    pub keep_pairing: bool,
 }
 
 impl<'a> CheckRequest<'a> {
@@ -65,6 +70,8 @@ impl<'a> CheckRequest<'a> {
             options: ProveOptions::default(),
             diagnosis: DiagnosisRequest::Auto,
             certificate: None,
+            explain: None,
+            keep_pairing: false,
         }
     }
 }
@@ -86,6 +93,12 @@ pub struct CheckOutcome {
     /// tables were built).
     #[serde(skip)]
     pub select_missing: Option<String>,
+    /// Difference cubes of the differing output pairs (when asked for).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub explanation: Option<Explanation>,
+    /// The paired graph the proof ran on, assumptions built in (when asked for).
+    #[serde(skip)]
+    pub pairing: Option<Shared>,
     /// For a shard of a split run ([`check_shard`]): which output pairs it decided.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub shard: Option<ShardStamp>,
@@ -157,7 +170,8 @@ pub fn check_shard(
     let mut shared = engine::pair(r, c, opts.pair_by, opts.free_extra_inputs)?;
     crate::assume::apply_to_shared(&mut shared, r, &req.assumptions)?;
     let stamp = shard.map(|s| crate::shard::restrict(&mut shared, s));
-    let kept = req.certificate.map(|_| shared.clone());
+    let kept = (req.certificate.is_some() || req.explain.is_some() || req.keep_pairing)
+        .then(|| shared.clone());
     let report = engine::prove_shared(r, c, shared, &req.assumptions, opts)?;
     let (select, select_missing) = match &req.diagnosis {
         DiagnosisRequest::Off => (None, None),
@@ -194,11 +208,28 @@ pub fn check_shard(
         }
         _ => None,
     };
+    let explanation = match (&req.explain, &kept) {
+        (Some(cl), Some(shared)) if !report.counterexamples.is_empty() => {
+            let limits = Limits::new(deadline.remaining(), opts.conflict_limit);
+            Some(crate::explain::explain(
+                shared,
+                r,
+                c,
+                &report,
+                cl,
+                crate::explain::MAX_PAIRS,
+                &limits,
+            ))
+        }
+        _ => None,
+    };
     Ok(CheckOutcome {
         report,
         diagnosis,
         certificate,
         select_missing,
+        explanation,
+        pairing: if req.keep_pairing { kept } else { None },
         shard: stamp,
     })
 }

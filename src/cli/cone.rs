@@ -59,6 +59,13 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
         Ok(d) => d,
         Err(e) => return e,
     };
+    if d.is_clocked() {
+        eprintln!(
+            "warning: {} has {} register bits: this covers the logic of one clock cycle, with register outputs read as inputs; register inputs are not outputs here, so an input that reaches an output only through registers shows as unused",
+            d.name,
+            d.registers.len()
+        );
+    }
     let outputs = match cone::select_outputs(&d, &a.outputs) {
         Ok(o) => o,
         Err(e) => return report_input_error(&e),
@@ -133,6 +140,13 @@ pub fn run_stats(a: &StatsArgs) -> Exit {
         Ok(d) => d,
         Err(e) => return e,
     };
+    if d.is_clocked() {
+        eprintln!(
+            "warning: {} has {} register bits: this covers the logic of one clock cycle, with register outputs read as inputs; register inputs are not outputs here, so an input that reaches an output only through registers shows as unused",
+            d.name,
+            d.registers.len()
+        );
+    }
     let model = match &a.cost_model {
         Some(p) => match CostModel::read(p) {
             Ok(m) => m,

@@ -26,6 +26,12 @@ pub struct EvalArgs {
     /// Print the result as JSON.
     #[arg(long)]
     json: bool,
+    /// Also write the vector as a Value Change Dump (IEEE 1364-2005 clause 18) to FILE.
+    #[arg(long, value_name = "FILE")]
+    vcd: Option<String>,
+    /// With --vcd: also every internal net of the design's netlist.
+    #[arg(long)]
+    vcd_nets: bool,
     /// Step a clocked design through a trace from reset (a `prove --json` report or its `trace`).
     #[arg(long, value_name = "FILE", conflicts_with_all = ["set", "vector", "rest"])]
     trace: Option<String>,
@@ -117,6 +123,11 @@ fn evaluate(d: &Design, a: &EvalArgs) -> Result<String, InputError> {
     }
     let inputs: Vec<bool> = vals.iter().map(|v| v.or(rest).unwrap_or(false)).collect();
     let outs = d.eval(&inputs);
+    if let Some(path) = &a.vcd {
+        let text = crate::explain::waves::design_vcd(d, &inputs, a.vcd_nets);
+        super::common::write_atomic(path, text.as_bytes())?;
+        eprintln!("vcd: {path}");
+    }
     if a.json {
         let mut im = serde_json::Map::new();
         for (b, v) in d.inputs.iter().zip(&inputs) {

@@ -16,6 +16,7 @@ mod gen;
 mod merge;
 mod prove;
 mod remap;
+mod replay;
 mod routes;
 
 use clap::{Parser, Subcommand};

@@ -209,6 +209,8 @@ pub struct ProveArgs {
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
     select: Option<String>,
+    #[command(flatten)]
+    replay: super::replay::ReplayArgs,
     /// Clocked designs: cycles from reset searched for a difference when the register pairing
     /// does not prove every output pair.
     #[arg(long, value_name = "K", default_value_t = 20)]
@@ -252,6 +254,9 @@ pub fn run(a: &ProveArgs) -> Exit {
                 "leave out --shard for clocked designs",
             ));
         }
+        if a.replay.explain || a.replay.wanted() {
+            eprintln!("note: --explain, --vcd and --testbench cover combinational designs only; nothing of theirs is written for clocked designs");
+        }
         return run_clocked(a, &r, &c, &deadline);
     }
     let req = CheckRequest {
@@ -274,6 +279,8 @@ pub fn run(a: &ProveArgs) -> Exit {
             None => DiagnosisRequest::Auto,
         },
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
+        explain: a.replay.cube_limits(),
+        keep_pairing: a.replay.wanted(),
     };
     let shard = match a
         .shard
@@ -303,6 +310,15 @@ pub fn run(a: &ProveArgs) -> Exit {
         if let Err(code) = write_proof(cert, path) {
             return code;
         }
+    }
+    let mut rf = vec![a.pair.reference.clone()];
+    rf.extend(a.pair.ref_also.iter().cloned());
+    let mut cf = vec![a.pair.candidate.clone()];
+    cf.extend(a.pair.cand_also.iter().cloned());
+    if let Err(code) =
+        super::replay::write_files(&a.replay, &r, &c, (&rf, &cf), &out, a.limits.seed)
+    {
+        return code;
     }
     let json = report::to_json(&out);
     if let Some(path) = &a.report {
@@ -341,6 +357,8 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
         },
         diagnosis: DiagnosisRequest::Off,
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
+        explain: None,
+        keep_pairing: false,
     };
     let settings = check::ClockedSettings {
         cycles: a.cycles,

@@ -303,7 +303,7 @@ impl<'a> Engine<'a> {
     fn simulate_rounds(&mut self, opts: &SupportOptions) {
         let design = self.design;
         let aig = &design.aig;
-        // At most about 32 MiB of simulation values per block.
+        // Words times nodes at most 4 million (8 bytes each: 32 MiB of values per block).
         let words = (4_000_000 / aig.len().max(1)).clamp(1, 64);
         for round in 0..opts.max_rounds {
             if !self.any_open() || self.limits.expired() {

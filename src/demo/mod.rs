@@ -46,6 +46,7 @@ fn prove(r: &Design, c: &Design) -> Result<CheckOutcome, String> {
     let req = CheckRequest {
         assumptions: vec![ASSUME.to_string()],
         diagnosis: DiagnosisRequest::Select("sel".to_string()),
+        explain: Some(Default::default()),
         ..CheckRequest::new(r, c)
     };
     check::check(&req).map_err(|e| e.to_string())

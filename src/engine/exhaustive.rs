@@ -16,7 +16,8 @@ pub(crate) const MAX_INPUTS: usize = 24;
 /// Largest amount of work, in node-words (cone nodes times words), one group may take.
 pub(crate) const MAX_WORK: u64 = 1 << 31;
 
-/// Words of values per node per block (at most about 32 MiB of values alive).
+/// Bytes of simulation values alive per block: the words per node of a block are this divided
+/// by eight times the nodes.
 const BLOCK_BYTES: usize = 32 << 20;
 
 /// The answer for one output pair.

@@ -366,8 +366,9 @@ pub fn prove_shared(
     })
 }
 
-/// Words of random patterns for a graph of `nodes` nodes: more for small graphs, at most
-/// about 64 MiB of simulation values.
+/// Words of random patterns for a graph of `nodes` nodes: more for small graphs (the words
+/// times the nodes stay under 4 million node-words of simulation work), between 1 and 64. The
+/// words are simulated one at a time, so only one word per node is alive.
 fn default_words(nodes: usize) -> usize {
     (4_000_000 / nodes.max(1)).clamp(1, 64)
 }

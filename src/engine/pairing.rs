@@ -7,8 +7,38 @@
 use crate::aig::{Aig, Lit};
 use crate::design::{Design, InputKind};
 use crate::diag::InputError;
-use crate::engine::result::Side;
 use serde::Serialize;
+
+/// Which design an input bit belongs to.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Side {
+    /// A paired port bit of both designs.
+    Both,
+    /// A free input of the reference only.
+    Reference,
+    /// A free input of the candidate only.
+    Candidate,
+}
+
+impl Side {
+    /// Word used in reports.
+    pub fn word(self) -> &'static str {
+        match self {
+            Side::Both => "both",
+            Side::Reference => "reference",
+            Side::Candidate => "candidate",
+        }
+    }
+
+    /// ` (reference only)` or ` (candidate only)` for a one-sided input, empty for both.
+    pub fn only_note(self) -> String {
+        match self {
+            Side::Both => String::new(),
+            s => format!(" ({} only)", s.word()),
+        }
+    }
+}
 
 /// How output and input bits of the two designs are matched.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize, Default)]

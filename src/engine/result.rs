@@ -1,6 +1,7 @@
 //! Typed results of a proof run: verdicts per output pair and overall, counterexamples, figures.
 
 use crate::engine::pairing::PairBy;
+pub use crate::engine::pairing::Side;
 use crate::sat::{SatStats, StopReason};
 use serde::Serialize;
 
@@ -154,37 +155,6 @@ impl Serialize for PairResult {
             st.serialize_field("counterexample", &k)?;
         }
         st.end()
-    }
-}
-
-/// Which design an input bit belongs to.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
-#[serde(rename_all = "lowercase")]
-pub enum Side {
-    /// A paired port bit of both designs.
-    Both,
-    /// A free input of the reference only.
-    Reference,
-    /// A free input of the candidate only.
-    Candidate,
-}
-
-impl Side {
-    /// Word used in reports.
-    pub fn word(self) -> &'static str {
-        match self {
-            Side::Both => "both",
-            Side::Reference => "reference",
-            Side::Candidate => "candidate",
-        }
-    }
-
-    /// ` (reference only)` or ` (candidate only)` for a one-sided input, empty for both.
-    pub fn only_note(self) -> String {
-        match self {
-            Side::Both => String::new(),
-            s => format!(" ({} only)", s.word()),
-        }
     }
 }
 

@@ -15,7 +15,11 @@ const SHOW_CEX: usize = 2;
 
 /// The human-readable report of a check session.
 pub fn check_text(o: &CheckOutcome) -> String {
-    prove_text(&o.report, o.diagnosis.as_ref())
+    let mut s = prove_text(&o.report, o.diagnosis.as_ref());
+    if let Some(e) = &o.explanation {
+        s += &crate::explain::explanation_text(e);
+    }
+    s
 }
 
 /// The human-readable report of a proof run, with the diagnosis of a difference when there is one.

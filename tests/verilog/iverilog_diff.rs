@@ -3,9 +3,11 @@
 //! of the subset, nested; simulated by iverilog on random vectors and compared bit for bit
 //! with `Design::eval`. Bits that iverilog reports as x may be anything in our model; every
 //! other bit must match for every value of our unknown inputs (two random settings tried).
-//! A failing batch is saved under tests/data/verilog/regress/ to be replayed by `regress`.
+//! A failing batch (every batch with `EQUICONE_DIFF_KEEP=1`) is written as a reproducer under
+//! the target folder (`target/tmp/verilog-regress/`); copied into tests/data/verilog/regress/ it
+//! is replayed by `regress`.
 
-use super::common::{data_dir, eval_ports, iverilog_available, read, run_iverilog};
+use super::common::{eval_ports, iverilog_available, read, run_iverilog};
 use rand::rngs::StdRng;
 use rand::{Rng, SeedableRng};
 use std::collections::HashMap;
@@ -348,9 +350,11 @@ fn batch(seed: u64, n_expr: usize, n_vec: usize) -> Result<(usize, usize), Strin
         .collect();
     let widths: Vec<u32> = outs.iter().map(|o| o.width).collect();
     let r = compare(&module, &vs, &widths, &vectors, &lines, seed);
-    if let Err(msg) = &r {
-        // Keep the failing batch as a regression fixture (module, vectors, simulator output).
-        let dir = data_dir().join("regress");
+    let keep = std::env::var_os("EQUICONE_DIFF_KEEP").is_some();
+    if r.is_err() || keep {
+        // The batch as a reproducer (module, vectors, simulator output) under the target
+        // folder; copied into tests/data/verilog/regress it becomes a regression fixture.
+        let dir = std::path::Path::new(env!("CARGO_TARGET_TMPDIR")).join("verilog-regress");
         let _ = std::fs::create_dir_all(&dir);
         let base = dir.join(format!("diff-seed{seed}"));
         let _ = std::fs::write(base.with_extension("v"), &module);
@@ -364,7 +368,12 @@ fn batch(seed: u64, n_expr: usize, n_vec: usize) -> Result<(usize, usize), Strin
             let _ = writeln!(exp, "{} -> {line}", vals.join(" "));
         }
         let _ = std::fs::write(base.with_extension("expect"), exp);
-        return Err(format!("seed {seed}: {msg}"));
+        if let Err(msg) = &r {
+            return Err(format!(
+                "seed {seed}: {msg}\n  reproducer: {}.v and .expect (copy both into tests/data/verilog/regress/ to keep it)",
+                base.display()
+            ));
+        }
     }
     r
 }

@@ -43,5 +43,10 @@ fn saved_regressions_still_match() {
         }
         n += 1;
     }
+    assert!(
+        n > 0,
+        "no fixture replayed from {}: the folder must hold at least one",
+        dir.display()
+    );
     eprintln!("replayed {n} regression fixtures");
 }

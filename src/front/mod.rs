@@ -30,7 +30,7 @@ pub fn format_from_name(path: &str) -> Option<Format> {
     let ext = Path::new(path).extension()?.to_str()?.to_ascii_lowercase();
     match ext.as_str() {
         "bench" | "bch" => Some(Format::Bench),
-        "v" | "vh" | "verilog" => Some(Format::Verilog),
+        "v" | "vh" | "verilog" | "sv" | "svh" => Some(Format::Verilog),
         _ => None,
     }
 }

@@ -80,12 +80,17 @@ pub fn iverilog_available() -> bool {
 
 /// Compile and run `src` (with top module `top`) with Icarus Verilog; returns stdout.
 pub fn run_iverilog(src: &str, top: &str) -> String {
+    run_iverilog_as(src, top, "-g2005")
+}
+
+/// [`run_iverilog`] with another language generation (`-g2012` for SystemVerilog).
+pub fn run_iverilog_as(src: &str, top: &str, generation: &str) -> String {
     let dir = tempfile::tempdir().expect("temp dir");
     let v = dir.path().join("tb.v");
     std::fs::write(&v, src).expect("write");
     let out = dir.path().join("tb.vvp");
     let c = Command::new("iverilog")
-        .args(["-g2005", "-s", top, "-o"])
+        .args([generation, "-s", top, "-o"])
         .arg(&out)
         .arg(&v)
         .output()

@@ -49,6 +49,8 @@ pub enum BinOp {
     Or,
     LogAnd,
     LogOr,
+    /// `**` (level 10: parsed apart, it binds tighter than `*`).
+    Pow,
 }
 
 impl BinOp {
@@ -66,6 +68,7 @@ impl BinOp {
             Or => 7,
             LogAnd => 8,
             LogOr => 9,
+            Pow => 10,
         }
     }
 
@@ -96,6 +99,7 @@ impl BinOp {
             Or => "|",
             LogAnd => "&&",
             LogOr => "||",
+            Pow => "**",
         }
     }
 }
@@ -178,6 +182,9 @@ pub enum NetType {
     Reg,
     /// `integer`
     Integer,
+    /// SystemVerilog `logic` or `bit` (IEEE 1800-2017 clause 6.11, from memory): driven by
+    /// one continuous assignment or assigned in always blocks.
+    Logic,
 }
 
 /// A declaration of nets, variables or ports.

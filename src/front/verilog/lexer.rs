@@ -541,6 +541,21 @@ impl<'s> Lexer<'s> {
         }
         // Based literal: ' [s] base digits
         self.bump();
+        if size.is_none() && matches!(self.peek(0), b'0' | b'1') && !is_ident_char(self.peek(1)) {
+            // SystemVerilog `'0` / `'1` (IEEE 1800-2017 clause 5.7.1, from memory): every
+            // bit of the context's width is that bit.
+            let one = self.peek(0) == b'1';
+            self.bump();
+            return Token {
+                tok: Tok::Num(Box::new(NumLit {
+                    bits: vec![if one { B1 } else { B0 }],
+                    signed: false,
+                    sized: false,
+                    text: if one { "'1" } else { "'0" }.into(),
+                })),
+                pos,
+            };
+        }
         let mut signed = false;
         if matches!(self.peek(0), b's' | b'S') {
             signed = true;

@@ -93,9 +93,16 @@ fn read_inner(
     let mut names = symbols::Interner::new();
     let mut mods = Vec::new();
     let mut diags = Vec::new();
+    let mut warnings = Vec::new();
     for (k, unit) in pre.units.iter().enumerate() {
         let mut p = parser::Parser::with_marks(&unit.text, k as u32, &unit.marks, &mut names);
         mods.extend(p.file());
+        for w in std::mem::take(&mut p.warnings) {
+            let pos = SourcePos::new(&files[w.pos.file as usize], w.pos.line, w.pos.col);
+            warnings.push(Diagnostic::warning(Some(pos), w.message).with_help(
+                "equicone compares the logic only; delays do not change what is proved",
+            ));
+        }
         let mut errs = std::mem::take(&mut p.errors);
         errs.sort_by_key(|e| (e.pos.file != k as u32, e.pos.file, e.pos.line, e.pos.col));
         for e in errs {
@@ -107,5 +114,10 @@ fn read_inner(
     if !diags.is_empty() {
         return Err(InputError { diagnostics: diags });
     }
-    elaborate::elaborate(&names, &files, mods, top)
+    let mut d = elaborate::elaborate(&names, &files, mods, top)?;
+    if !warnings.is_empty() {
+        warnings.append(&mut d.warnings);
+        d.warnings = warnings;
+    }
+    Ok(d)
 }

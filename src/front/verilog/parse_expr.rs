@@ -56,9 +56,25 @@ impl Parser<'_, '_> {
         Ok(c)
     }
 
+    /// `a ** b ** c` (left-associative, binding tighter than `*` and looser than the unary
+    /// operators: IEEE 1364-2005 Table 5-4).
+    fn power(&mut self) -> PResult<Expr> {
+        let first = self.unary()?;
+        let mut rest = Vec::new();
+        while self.peek_p(Punct::Power) {
+            let pos = self.bump().pos;
+            rest.push((BinOp::Pow, pos, self.unary()?));
+        }
+        if rest.is_empty() {
+            Ok(first)
+        } else {
+            Ok(Expr::Chain(Box::new(first), rest))
+        }
+    }
+
     fn binary(&mut self, level: usize) -> PResult<Expr> {
         let first = if level == 0 {
-            self.unary()?
+            self.power()?
         } else {
             self.binary(level - 1)?
         };
@@ -72,15 +88,11 @@ impl Parser<'_, '_> {
                 );
             }
             let rhs = if level == 0 {
-                self.unary()?
+                self.power()?
             } else {
                 self.binary(level - 1)?
             };
             rest.push((op, pos, rhs));
-        }
-        if self.peek_p(Punct::Power) {
-            let pos = self.peek_pos();
-            return Err(self.unsupported(pos, "power operator `**`"));
         }
         if rest.is_empty() {
             Ok(first)

@@ -26,10 +26,12 @@ impl Parser<'_, '_> {
     pub(super) fn gates(&mut self, g: GateKind, out: &mut Vec<Item>) -> PResult<()> {
         self.bump();
         let mut named = self.skip_name();
-        if named.is_none()
-            && (self.peek_p(Punct::Hash) || self.peek_p(Punct::LParen) && self.strength_follows())
-        {
-            return Err(self.unsupported_here("delay or drive strength on a gate"));
+        if named.is_none() && self.peek_p(Punct::LParen) && self.strength_follows() {
+            return Err(self.unsupported_here("drive strength on a gate"));
+        }
+        if named.is_none() && self.peek_p(Punct::Hash) {
+            self.skip_delay()?;
+            named = self.skip_name();
         }
         loop {
             let gpos = match named.take() {

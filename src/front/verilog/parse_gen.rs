@@ -79,8 +79,50 @@ impl Parser<'_, '_> {
     /// `i = expr` in a `for` header.
     pub fn loop_assign(&mut self) -> PResult<(Sym, Pos, Expr)> {
         let (n, p) = self.ident("a loop variable")?;
+        if let Some(e) = self.step_assign(Expr::Ident(n, p))? {
+            return Ok((n, p, e));
+        }
         self.expect_p(Punct::Assign, "`=` in the loop header")?;
         Ok((n, p, self.expr()?))
+    }
+
+    /// After an assignment target `lhs`: SystemVerilog's `lhs++`, `lhs--` and
+    /// `lhs op= e` for `+ - * & | ^` (IEEE 1800-2017 clause 11.4.1, from memory) as the
+    /// value `lhs op e` to assign; `None` (nothing read) when the next token is not one.
+    pub fn step_assign(&mut self, lhs: Expr) -> PResult<Option<Expr>> {
+        let op = match self.peek().tok {
+            Tok::Punct(Punct::Plus) => BinOp::Add,
+            Tok::Punct(Punct::Minus) => BinOp::Sub,
+            Tok::Punct(Punct::Star) => BinOp::Mul,
+            Tok::Punct(Punct::Amp) => BinOp::And,
+            Tok::Punct(Punct::Pipe) => BinOp::Or,
+            Tok::Punct(Punct::Caret) => BinOp::Xor,
+            _ => return Ok(None),
+        };
+        let pos = self.peek_pos();
+        let second = self.peek2().tok.clone();
+        let rhs = match (op, second) {
+            (BinOp::Add, Tok::Punct(Punct::Plus)) | (BinOp::Sub, Tok::Punct(Punct::Minus)) => {
+                self.bump();
+                self.bump();
+                Expr::Num(
+                    Box::new(super::lexer::NumLit {
+                        bits: [vec![super::lexer::B1], vec![super::lexer::B0; 31]].concat(),
+                        signed: true,
+                        sized: false,
+                        text: "1".into(),
+                    }),
+                    pos,
+                )
+            }
+            (_, Tok::Punct(Punct::Assign)) => {
+                self.bump();
+                self.bump();
+                self.expr()?
+            }
+            _ => return Ok(None),
+        };
+        Ok(Some(Expr::Chain(Box::new(lhs), vec![(op, pos, rhs)])))
     }
 
     pub(super) fn gen_for(&mut self, out: &mut Vec<Item>) -> PResult<()> {

@@ -17,6 +17,16 @@ impl Parser<'_, '_> {
     }
 
     fn stmt_inner(&mut self) -> PResult<Stmt> {
+        // SystemVerilog `unique`, `unique0` and `priority` before `case` or `if` (IEEE
+        // 1800-2017 clauses 12.4.2 and 12.5.3, from memory): read as the plain statement;
+        // the checks they ask of a simulator are not made.
+        if let Tok::Ident(k) = self.peek().tok {
+            if matches!(self.names.name(k), "unique" | "unique0" | "priority")
+                && matches!(self.peek2().tok, Tok::Ident(c) if c == kw::CASE || c == kw::CASEZ || c == kw::IF)
+            {
+                self.bump();
+            }
+        }
         let t = self.peek().clone();
         let pos = t.pos;
         match t.tok {
@@ -94,6 +104,10 @@ impl Parser<'_, '_> {
             Tok::Ident(_) | Tok::Punct(Punct::LBrace) => {
                 let lhs = self.lvalue()?;
                 let p = self.peek_pos();
+                if let Some(rhs) = self.step_assign(lhs.clone())? {
+                    self.expect_p(Punct::Semi, "`;` after the assignment")?;
+                    return Ok(Stmt::Assign(lhs, rhs, p));
+                }
                 if self.eat_p(Punct::Le) {
                     return Err(self
                         .unsupported(p, "non-blocking assignment `<=` in `always @*` (use `=`)"));

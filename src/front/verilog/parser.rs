@@ -25,6 +25,8 @@ pub struct Parser<'s, 'n> {
     look: VecDeque<Token>,
     /// Errors found: position and message.
     pub errors: Vec<SyntaxError>,
+    /// Warnings (a delay ignored: one per file).
+    pub warnings: Vec<SyntaxError>,
     depth: usize,
     /// Tokens taken so far (error recovery checks that it moved on).
     taken: u64,
@@ -49,6 +51,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             names,
             look: VecDeque::new(),
             errors: Vec::new(),
+            warnings: Vec::new(),
             depth: 0,
             taken: 0,
         }
@@ -447,18 +450,25 @@ impl<'s, 'n> Parser<'s, 'n> {
             Tok::Ident(k) if k == kw::INOUT => {
                 return Err(self.unsupported(pos, "`inout` port (only `input` and `output` ports are supported; split the port into an input and an output)"));
             }
-            Tok::Ident(k) if k == kw::WIRE => d.ty = Some(NetType::Wire),
+            Tok::Ident(k) if k == kw::WIRE || k == kw::TRI => d.ty = Some(NetType::Wire),
+            Tok::Ident(k) if k == kw::SUPPLY0 || k == kw::SUPPLY1 => d.ty = Some(NetType::Wire),
             Tok::Ident(k) if k == kw::REG => d.ty = Some(NetType::Reg),
             Tok::Ident(k) if k == kw::INTEGER => d.ty = Some(NetType::Integer),
+            Tok::Ident(k) if self.is_sv_type(k) => d.ty = Some(NetType::Logic),
             _ => unreachable!("decl_head called on a declaration keyword"),
         }
         if d.dir.is_some() {
-            if self.eat_kw(kw::WIRE) {
+            if self.eat_kw(kw::WIRE) || self.eat_kw(kw::TRI) {
                 d.ty = Some(NetType::Wire);
             } else if self.eat_kw(kw::REG) {
                 d.ty = Some(NetType::Reg);
             } else if self.eat_kw(kw::INTEGER) {
                 d.ty = Some(NetType::Integer);
+            } else if let Tok::Ident(k) = self.peek().tok {
+                if self.is_sv_type(k) {
+                    self.bump();
+                    d.ty = Some(NetType::Logic);
+                }
             }
         }
         if d.ty == Some(NetType::Integer) {
@@ -472,6 +482,45 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
         }
         Ok(d)
+    }
+
+    /// SystemVerilog's `logic` and `bit` (not keywords of IEEE 1364, so looked up by name:
+    /// a 1364 design may use them as names, and does not put them before a declaration).
+    fn is_sv_type(&self, k: Sym) -> bool {
+        matches!(self.names.name(k), "logic" | "bit")
+    }
+
+    /// At `#`: skip a delay (`#3`, `#1.5`, `#D`, `#(1, 2)`, `#(1:2:3)`), warning once per file
+    /// that delays are ignored (equivalence is about the logic at rest; IEEE 1364-2005
+    /// clause 7.14 gives gate delays, clause 6.1.3 assignment delays).
+    pub(super) fn skip_delay(&mut self) -> PResult<()> {
+        let pos = self.bump().pos;
+        if self.eat_p(Punct::LParen) {
+            let mut nest = 1usize;
+            while nest > 0 {
+                match self.bump().tok {
+                    Tok::Punct(Punct::LParen) => nest += 1,
+                    Tok::Punct(Punct::RParen) => nest -= 1,
+                    Tok::Eof => return Err(self.error(pos, "unclosed delay `#(`")),
+                    _ => {}
+                }
+            }
+        } else {
+            match self.peek().tok {
+                Tok::Num(_) | Tok::Real | Tok::Ident(_) => {
+                    self.bump();
+                }
+                _ => return Err(self.error(pos, "expected a delay value after `#`")),
+            }
+        }
+        if self.warnings.is_empty() {
+            self.warnings.push(SyntaxError::new(
+                pos,
+                SyntaxKind::Syntax,
+                "delays are ignored (this is the first; the logic is read as if every delay were 0)",
+            ));
+        }
+        Ok(())
     }
 
     /// The event control after `always`: `@*`, `@(*)`, `@(a or b)`, `@(a, b)`,
@@ -560,7 +609,14 @@ impl<'s, 'n> Parser<'s, 'n> {
             || k == kw::WIRE
             || k == kw::REG
             || k == kw::INTEGER
+            || k == kw::TRI
+            || k == kw::SUPPLY0
+            || k == kw::SUPPLY1
+            || self.is_sv_type(k)
         {
+            // IEEE 1364-2005 clause 4.6: `tri` is `wire` by another name; `supply0` and
+            // `supply1` nets are driven by the constants 0 and 1 (clause 4.6.7).
+            let supply = [kw::SUPPLY0, kw::SUPPLY1].iter().position(|&x| x == k);
             let mut d = self.decl_head()?;
             loop {
                 let (n, p) = self.ident("a name")?;
@@ -578,6 +634,12 @@ impl<'s, 'n> Parser<'s, 'n> {
                 } else {
                     None
                 };
+                if let Some(v) = supply {
+                    out.push(Item::Assign(
+                        Box::new((Expr::Ident(n, p), supply_value(v, p))),
+                        p,
+                    ));
+                }
                 d.names.push((n, p, init));
                 if !self.eat_p(Punct::Comma) {
                     break;
@@ -608,8 +670,11 @@ impl<'s, 'n> Parser<'s, 'n> {
             out.push(Item::Genvar(v));
         } else if k == kw::ASSIGN {
             self.bump();
-            if self.peek_p(Punct::Hash) || self.peek_p(Punct::LParen) {
-                return Err(self.unsupported_here("delay or drive strength on `assign`"));
+            if self.peek_p(Punct::LParen) {
+                return Err(self.unsupported_here("drive strength on `assign`"));
+            }
+            if self.peek_p(Punct::Hash) {
+                self.skip_delay()?;
             }
             loop {
                 let lhs = self.expr()?;
@@ -790,5 +855,24 @@ fn punct_text(p: Punct) -> &'static str {
         Punct::Power => "**",
         Punct::PlusColon => "+:",
         Punct::MinusColon => "-:",
+    }
+}
+
+/// The constant driving a `supply0` (`v` = 0) or `supply1` (`v` = 1) net: `0` or `~0`,
+/// sized by the net.
+fn supply_value(v: usize, p: Pos) -> Expr {
+    let zero = Expr::Num(
+        Box::new(super::lexer::NumLit {
+            bits: vec![super::lexer::B0; 32],
+            signed: true,
+            sized: false,
+            text: "0".into(),
+        }),
+        p,
+    );
+    if v == 0 {
+        zero
+    } else {
+        Expr::Unary(UnOp::Not, p, Box::new(zero))
     }
 }

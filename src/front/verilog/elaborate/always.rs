@@ -337,7 +337,7 @@ impl Elab<'_> {
                     );
                     return None;
                 }
-                if !procedural && ty != NetType::Wire {
+                if !procedural && ty != NetType::Wire && ty != NetType::Logic {
                     let nm = nm();
                     self.error(
                         pos,

@@ -223,6 +223,9 @@ impl Elab<'_> {
                 Some(o) => extend(o.val.bits, w, s),
                 None => vec![Lit::FALSE; w],
             },
+            Expr::Num(n, _) if matches!(&*n.text, "'0" | "'1") => {
+                vec![Lit::constant(&*n.text == "'1"); w]
+            }
             Expr::Num(n, pos) => {
                 let v = self.literal(ctx, n, *pos);
                 extend(v, w, s)
@@ -351,6 +354,14 @@ impl Elab<'_> {
     ) -> Vec<Lit> {
         let level = rest[0].0.level();
         match level {
+            10 => {
+                // `**`: the base takes the context, the exponent is self-determined.
+                let mut acc = self.eval(ctx, first, w, s);
+                for (_, pos, e) in rest {
+                    acc = self.power(ctx, *pos, &acc, e, s);
+                }
+                acc
+            }
             2 => {
                 // Shifts: the left operand takes the context; amounts are self-determined
                 // and unsigned.
@@ -462,7 +473,9 @@ impl Elab<'_> {
         }
     }
 
-    /// `/` and `%` of constant operands (two's complement when signed; zero divisor gives x).
+    /// `/` and `%` (IEEE 1364-2005 clause 5.1.5): constants folded, anything else through
+    /// the array divider of `divide.rs` up to [`super::MAX_DIV_WIDTH`] bits; a divisor of
+    /// zero gives an unknown value.
     fn divide(
         &mut self,
         ctx: &EvalContext,
@@ -473,29 +486,89 @@ impl Elab<'_> {
         s: bool,
     ) -> Vec<Lit> {
         let w = a.len();
-        let (x, y) = match (bits::to_i64(a, s), bits::to_i64(b, s)) {
-            (Some(x), Some(y)) if w <= 63 || s => (x, y),
-            _ => {
+        if let (Some(x), Some(y)) = (bits::to_i64(a, s), bits::to_i64(b, s)) {
+            if w <= 63 || s {
+                if y == 0 {
+                    return self.unknown_bits(w, pos, "division by zero", ctx.scope);
+                }
+                let r = if op == BinOp::Div {
+                    x.wrapping_div(y)
+                } else {
+                    x.wrapping_rem(y)
+                };
+                return bits::constant(r, w);
+            }
+        }
+        if b.iter().all(|&l| l == Lit::FALSE) {
+            return self.unknown_bits(w, pos, "division by zero", ctx.scope);
+        }
+        if w > super::MAX_DIV_WIDTH {
+            self.error(
+                pos,
+                format!(
+                    "unsupported: `{}` {w} bits wide (at most {} bits)",
+                    op.text(),
+                    super::MAX_DIV_WIDTH
+                ),
+                "narrow the operands or the assignment target",
+            );
+            return vec![Lit::FALSE; w];
+        }
+        let r = super::divide::divmod(&mut self.g, a, b, s, op == BinOp::Mod);
+        if bits::is_const(b) {
+            return r;
+        }
+        // A divisor that can be zero: x there (clause 5.1.5), an unknown input.
+        let zero = !self.g.or_all(b);
+        let u = self.unknown_bits(w, pos, "division by zero", ctx.scope);
+        r.iter()
+            .zip(&u)
+            .map(|(&v, &x)| self.g.mux(zero, x, v))
+            .collect()
+    }
+
+    /// `a ** e` (IEEE 1364-2005 clause 5.1.5): the exponent must be constant; a negative
+    /// one follows the clause's table (1 for a base of 1, +-1 for -1, x for 0, else 0) and
+    /// then needs a constant base.
+    fn power(&mut self, ctx: &EvalContext, pos: Pos, a: &[Lit], e: &Expr, s: bool) -> Vec<Lit> {
+        let w = a.len();
+        let ev = self.eval_self(ctx, e);
+        let Some(n) = bits::to_i64(&ev.bits, ev.signed) else {
+            self.error(
+                pos,
+                "unsupported: `**` with an exponent that is not constant",
+                "give the exponent as a constant or parameter, or write the product out",
+            );
+            return vec![Lit::FALSE; w];
+        };
+        if n >= 0 {
+            if w > super::MAX_MUL_WIDTH {
                 self.error(
                     pos,
                     format!(
-                        "unsupported: `{}` of non-constant or wider than 63-bit values",
-                        op.text()
+                        "unsupported: `**` {w} bits wide (at most {} bits)",
+                        super::MAX_MUL_WIDTH
                     ),
-                    "`/` and `%` are read for constants only; compute the quotient with logic, or use a parameter"
+                    "narrow the operands or the assignment target",
                 );
                 return vec![Lit::FALSE; w];
             }
-        };
-        if y == 0 {
-            return self.unknown_bits(w, pos, "division by zero", ctx.scope);
+            return super::divide::pow_const(&mut self.g, a, n as u64);
         }
-        let r = if op == BinOp::Div {
-            x.wrapping_div(y)
-        } else {
-            x.wrapping_rem(y)
-        };
-        bits::constant(r, w)
+        match bits::to_i64(a, s) {
+            Some(0) => self.unknown_bits(w, pos, "zero to a negative power", ctx.scope),
+            Some(1) => bits::constant(1, w),
+            Some(-1) if s => bits::constant(if n % 2 == 0 { 1 } else { -1 }, w),
+            Some(_) => bits::constant(0, w),
+            None => {
+                self.error(
+                    pos,
+                    "unsupported: `**` with a negative exponent and a base that is not constant",
+                    "give the base as a constant, or write the result out",
+                );
+                vec![Lit::FALSE; w]
+            }
+        }
     }
 }
 

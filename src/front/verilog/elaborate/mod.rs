@@ -10,6 +10,7 @@ mod always;
 mod bits;
 mod clocked;
 mod coverage;
+mod divide;
 mod expr;
 mod instance;
 mod module;
@@ -36,6 +37,10 @@ const MAX_WIDTH: usize = 1 << 16;
 
 /// Widest multiplication built (an array multiplier of w bits has about w * w / 2 gates).
 const MAX_MUL_WIDTH: usize = 4096;
+
+/// Widest `/` or `%` of non-constant operands (the array divider of w bits has about
+/// 3 * w * w gates).
+const MAX_DIV_WIDTH: usize = 256;
 
 /// The number of bits from index `m` to index `l` inclusive, computed without overflow;
 /// `None` when it is more than [`MAX_WIDTH`].

@@ -79,7 +79,8 @@ impl Elab<'_> {
             Expr::Chain(first, rest) => {
                 let op = rest[0].0;
                 match op.level() {
-                    2 => self.ty_inner(ctx, first),
+                    // Shifts and `**`: the left operand's type (IEEE 1364-2005 Table 5-22).
+                    2 | 10 => self.ty_inner(ctx, first),
                     3 | 4 | 8 | 9 => ExprType {
                         width: 1,
                         signed: false,

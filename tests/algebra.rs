@@ -185,3 +185,169 @@ fn a_wrong_partial_product_is_found_from_the_remainder() {
     assert!(matches!(w.bits[3], BitVerdict::Differ(_)));
     assert_counterexamples(&r, &c, &s, &w.bits, "p");
 }
+
+mod engine {
+    //! The algebraic method inside `prove`: alone (`--engine algebra`) and in the portfolio.
+
+    use super::design;
+    use equicone::engine::{prove, EngineKind, Method, ProveOptions, ProveReport, Verdict};
+    use equicone::front::load_texts;
+    use equicone::gen::{Bug, GenSpec, Kind, Style};
+    use equicone::{Design, Format};
+    use std::sync::Arc;
+
+    fn run(r: &Design, c: &Design, engine: EngineKind, simulate: bool) -> ProveReport {
+        let opts = ProveOptions {
+            engine,
+            sim_words: if simulate { None } else { Some(0) },
+            ..ProveOptions::default()
+        };
+        prove(r, c, &opts).expect("prove runs")
+    }
+
+    fn two(kind: Kind, style: Style, n: usize, signed: bool) -> (Design, Design) {
+        let mut s = GenSpec::new(kind, Style::Spec, n);
+        s.signed = signed;
+        let mut c = GenSpec::new(kind, style, n);
+        c.signed = signed;
+        (design(&s), design(&c))
+    }
+
+    #[test]
+    fn the_portfolio_proves_multiplier_words_by_algebra() {
+        for (kind, style, signed) in [
+            (Kind::Multiplier, Style::Booth, true),
+            (Kind::Multiplier, Style::Dadda, false),
+            (Kind::Mac, Style::Wallace, true),
+            (Kind::Squarer, Style::Array, false),
+        ] {
+            let (r, c) = two(kind, style, 12, signed);
+            let rep = run(&r, &c, EngineKind::Portfolio, true);
+            assert_eq!(rep.verdict, Verdict::Equivalent, "{kind:?} {style:?}");
+            assert!(
+                rep.pairs
+                    .iter()
+                    .any(|p| p.verdict.method() == Some(Method::Algebra)),
+                "{kind:?} {style:?}: {:?}",
+                rep.stats.portfolio
+            );
+            let groups = rep.stats.portfolio.as_ref().expect("portfolio figures");
+            assert!(groups.iter().any(|g| g.method.word() == "algebra"));
+        }
+    }
+
+    #[test]
+    fn planted_bugs_get_counterexamples_from_the_remainder() {
+        // Simulation off, so that the remainder finds the vector; `prove` re-simulates it on
+        // both designs, and the reference's output is checked against i128 products here.
+        for (style, bug, signed, seed) in [
+            (Style::Array, Bug::PpBit, false, 1),
+            (Style::Dadda, Bug::SwapCarry, true, 2),
+            (Style::Booth, Bug::BoothSign, true, 3),
+            (Style::Wallace, Bug::PpBit, true, 4),
+        ] {
+            let mut s = GenSpec::new(Kind::Multiplier, Style::Spec, 10);
+            s.signed = signed;
+            let mut cs = GenSpec::new(Kind::Multiplier, style, 10)
+                .seed(seed)
+                .bug(bug);
+            cs.signed = signed;
+            let (r, c) = (design(&s), design(&cs));
+            let rep = run(&r, &c, EngineKind::Algebra, false);
+            assert_eq!(rep.verdict, Verdict::Different, "{style:?} {bug:?}");
+            let cex = rep
+                .counterexamples
+                .iter()
+                .find(|x| x.found_by == Method::Algebra)
+                .expect("a counterexample from the algebra");
+            let val = |name: &str| -> i128 {
+                let mut v = 0i128;
+                for i in 0..10 {
+                    let bit = cex
+                        .inputs
+                        .iter()
+                        .find(|x| x.name == format!("{name}[{i}]"))
+                        .expect("operand bit")
+                        .value;
+                    v |= (bit as i128) << i;
+                }
+                if signed && v >= 512 {
+                    v - 1024
+                } else {
+                    v
+                }
+            };
+            let want = (val("a") * val("b")) as u128 & 0xFFFFF;
+            let inputs: Vec<bool> = (0..r.inputs.len())
+                .map(|k| {
+                    let name = &r.inputs[k].name;
+                    cex.inputs
+                        .iter()
+                        .find(|x| &x.name == name)
+                        .expect("bit")
+                        .value
+                })
+                .collect();
+            let out = r.eval(&inputs);
+            let got = (0..20).fold(0u128, |v, i| {
+                v | (out[r.output_index(&format!("p[{i}]")).expect("p bit")] as u128) << i
+            });
+            assert_eq!(got, want, "the reference computes the product");
+            let d = &cex.differing[0];
+            assert_ne!(d.reference_value, d.candidate_value);
+        }
+    }
+
+    #[test]
+    fn prefix_final_adders_are_never_called_different() {
+        // Carry-lookahead and prefix carries blow the polynomial up: undecided or proved,
+        // never a wrong verdict.
+        for fin in [Style::Cla, Style::KoggeStone, Style::BrentKung] {
+            let (r, _) = two(Kind::Multiplier, Style::Spec, 6, false);
+            let c = design(&GenSpec::new(Kind::Multiplier, Style::Dadda, 6).final_adder(fin));
+            let rep = run(&r, &c, EngineKind::Algebra, false);
+            assert_ne!(rep.verdict, Verdict::Different, "{fin:?}");
+            let rep = run(&r, &c, EngineKind::Portfolio, true);
+            assert_eq!(rep.verdict, Verdict::Equivalent, "{fin:?}");
+        }
+    }
+
+    fn verilog(text: &str) -> Design {
+        load_texts(
+            Format::Verilog,
+            &[(Arc::from("sub.v"), text.to_string())],
+            None,
+        )
+        .expect("reads")
+    }
+
+    #[test]
+    fn a_borrow_chain_subtractor_is_proved_against_a_minus_b() {
+        // d = a - b by a borrow chain (borrow out = majority of !a, b and borrow in; common
+        // practice) against the reader's a + ~b + 1.
+        let n = 300;
+        let spec = verilog(&format!(
+            "module s(input [{m}:0] a, input [{m}:0] b, output [{m}:0] d);\n  assign d = a - b;\nendmodule\n",
+            m = n - 1
+        ));
+        let gates = verilog(&format!(
+            "module s(input [{m}:0] a, input [{m}:0] b, output [{m}:0] d);\n  wire [{n}:0] br;\n  \
+             assign br[0] = 1'b0;\n  genvar i;\n  generate for (i = 0; i < {n}; i = i + 1) begin : g\n    \
+             assign d[i] = a[i] ^ b[i] ^ br[i];\n    \
+             assign br[i+1] = (~a[i] & b[i]) | (~a[i] & br[i]) | (b[i] & br[i]);\n  end endgenerate\nendmodule\n",
+            m = n - 1
+        ));
+        let rep = run(&spec, &gates, EngineKind::Algebra, false);
+        assert_eq!(rep.verdict, Verdict::Equivalent);
+        // A wrong borrow (b & br dropped) is caught with a re-simulated vector.
+        let bad = verilog(&format!(
+            "module s(input [{m}:0] a, input [{m}:0] b, output [{m}:0] d);\n  wire [{n}:0] br;\n  \
+             assign br[0] = 1'b0;\n  genvar i;\n  generate for (i = 0; i < {n}; i = i + 1) begin : g\n    \
+             assign d[i] = a[i] ^ b[i] ^ br[i];\n    \
+             assign br[i+1] = (~a[i] & b[i]) | (~a[i] & br[i]);\n  end endgenerate\nendmodule\n",
+            m = n - 1
+        ));
+        let rep = run(&spec, &bad, EngineKind::Algebra, false);
+        assert_eq!(rep.verdict, Verdict::Different);
+    }
+}

@@ -17,6 +17,8 @@ mod families;
 mod kinds;
 #[path = "gen/misc.rs"]
 mod misc;
+#[path = "gen/mult_family.rs"]
+mod mult_family;
 #[path = "gen/mutants.rs"]
 mod mutants;
 #[path = "oracle/mod.rs"]

@@ -21,7 +21,10 @@ fn engines() -> Vec<EngineKind> {
 /// Engines that decide only what fits their limits (one method of the portfolio alone): an
 /// undecided verdict is allowed from them, a wrong one never.
 fn partial(e: EngineKind) -> bool {
-    matches!(e, EngineKind::Exhaustive | EngineKind::Bdd)
+    matches!(
+        e,
+        EngineKind::Exhaustive | EngineKind::Bdd | EngineKind::Algebra
+    )
 }
 
 fn run(r: &Design, c: &Design, by: PairBy, engine: EngineKind) -> ProveReport {

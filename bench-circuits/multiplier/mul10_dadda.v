@@ -1,6 +1,6 @@
 // equicone gen multiplier --n 10 --style dadda --seed 1
-// 10x10 unsigned multiplier: a[9:0], b[9:0] in; p[19:0] = a * b
-// style dadda: carry-save reduction of the partial-product columns in 5 stages of full and half adders, then a ripple-carry final adder f*
+// 10x10 unsigned multiplier: a[9:0], b[9:0] in; p[19:0] = a * b (modulo 2^20)
+// style dadda: 10 partial-product rows, a Dadda tree of 5 stages of full and half adders, then a ripple final adder
 // mutation: none
 module multiplier10_dadda (a, b, p);
   input [9:0] a;

@@ -1,6 +1,6 @@
 // equicone gen multiplier --n 12 --style dadda --seed 1
-// 12x12 unsigned multiplier: a[11:0], b[11:0] in; p[23:0] = a * b
-// style dadda: carry-save reduction of the partial-product columns in 5 stages of full and half adders, then a ripple-carry final adder f*
+// 12x12 unsigned multiplier: a[11:0], b[11:0] in; p[23:0] = a * b (modulo 2^24)
+// style dadda: 12 partial-product rows, a Dadda tree of 5 stages of full and half adders, then a ripple final adder
 // mutation: none
 module multiplier12_dadda (a, b, p);
   input [11:0] a;

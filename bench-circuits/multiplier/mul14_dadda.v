@@ -1,6 +1,6 @@
 // equicone gen multiplier --n 14 --style dadda --seed 1
-// 14x14 unsigned multiplier: a[13:0], b[13:0] in; p[27:0] = a * b
-// style dadda: carry-save reduction of the partial-product columns in 6 stages of full and half adders, then a ripple-carry final adder f*
+// 14x14 unsigned multiplier: a[13:0], b[13:0] in; p[27:0] = a * b (modulo 2^28)
+// style dadda: 14 partial-product rows, a Dadda tree of 6 stages of full and half adders, then a ripple final adder
 // mutation: none
 module multiplier14_dadda (a, b, p);
   input [13:0] a;

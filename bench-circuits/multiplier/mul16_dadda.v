@@ -1,6 +1,6 @@
 // equicone gen multiplier --n 16 --style dadda --seed 1
-// 16x16 unsigned multiplier: a[15:0], b[15:0] in; p[31:0] = a * b
-// style dadda: carry-save reduction of the partial-product columns in 6 stages of full and half adders, then a ripple-carry final adder f*
+// 16x16 unsigned multiplier: a[15:0], b[15:0] in; p[31:0] = a * b (modulo 2^32)
+// style dadda: 16 partial-product rows, a Dadda tree of 6 stages of full and half adders, then a ripple final adder
 // mutation: none
 module multiplier16_dadda (a, b, p);
   input [15:0] a;

@@ -1,6 +1,6 @@
 // equicone gen multiplier --n 4 --style dadda --seed 1
-// 4x4 unsigned multiplier: a[3:0], b[3:0] in; p[7:0] = a * b
-// style dadda: carry-save reduction of the partial-product columns in 2 stages of full and half adders, then a ripple-carry final adder f*
+// 4x4 unsigned multiplier: a[3:0], b[3:0] in; p[7:0] = a * b (modulo 2^8)
+// style dadda: 4 partial-product rows, a Dadda tree of 2 stages of full and half adders, then a ripple final adder
 // mutation: none
 module multiplier4_dadda (a, b, p);
   input [3:0] a;

@@ -1,6 +1,6 @@
 // equicone gen multiplier --n 6 --style dadda --seed 1
-// 6x6 unsigned multiplier: a[5:0], b[5:0] in; p[11:0] = a * b
-// style dadda: carry-save reduction of the partial-product columns in 3 stages of full and half adders, then a ripple-carry final adder f*
+// 6x6 unsigned multiplier: a[5:0], b[5:0] in; p[11:0] = a * b (modulo 2^12)
+// style dadda: 6 partial-product rows, a Dadda tree of 3 stages of full and half adders, then a ripple final adder
 // mutation: none
 module multiplier6_dadda (a, b, p);
   input [5:0] a;

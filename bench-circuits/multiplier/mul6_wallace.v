@@ -1,6 +1,6 @@
 // equicone gen multiplier --n 6 --style wallace --seed 1
-// 6x6 unsigned multiplier: a[5:0], b[5:0] in; p[11:0] = a * b
-// style wallace: carry-save reduction of the partial-product columns in 3 stages of full and half adders, then a ripple-carry final adder f*
+// 6x6 unsigned multiplier: a[5:0], b[5:0] in; p[11:0] = a * b (modulo 2^12)
+// style wallace: 6 partial-product rows, a Wallace tree of 3 stages of full and half adders, then a ripple final adder
 // mutation: none
 module multiplier6_wallace (a, b, p);
   input [5:0] a;

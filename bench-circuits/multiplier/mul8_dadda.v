@@ -1,6 +1,6 @@
 // equicone gen multiplier --n 8 --style dadda --seed 1
-// 8x8 unsigned multiplier: a[7:0], b[7:0] in; p[15:0] = a * b
-// style dadda: carry-save reduction of the partial-product columns in 4 stages of full and half adders, then a ripple-carry final adder f*
+// 8x8 unsigned multiplier: a[7:0], b[7:0] in; p[15:0] = a * b (modulo 2^16)
+// style dadda: 8 partial-product rows, a Dadda tree of 4 stages of full and half adders, then a ripple final adder
 // mutation: none
 module multiplier8_dadda (a, b, p);
   input [7:0] a;

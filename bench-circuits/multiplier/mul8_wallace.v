@@ -1,6 +1,6 @@
 // equicone gen multiplier --n 8 --style wallace --seed 1
-// 8x8 unsigned multiplier: a[7:0], b[7:0] in; p[15:0] = a * b
-// style wallace: carry-save reduction of the partial-product columns in 4 stages of full and half adders, then a ripple-carry final adder f*
+// 8x8 unsigned multiplier: a[7:0], b[7:0] in; p[15:0] = a * b (modulo 2^16)
+// style wallace: 8 partial-product rows, a Wallace tree of 4 stages of full and half adders, then a ripple final adder
 // mutation: none
 module multiplier8_wallace (a, b, p);
   input [7:0] a;

@@ -100,17 +100,7 @@ pub struct WordCheck {
 /// Check the word pair `reference[i]` / `candidate[i]` (least significant first, equal
 /// lengths) in `aig`.
 pub fn check_word(aig: &Aig, reference: &[Lit], candidate: &[Lit], limits: &Limits) -> WordCheck {
-    assert_eq!(
-        reference.len(),
-        candidate.len(),
-        "word halves of equal width"
-    );
-    let n = reference.len();
-    if n <= 128 {
-        check_in::<u128>(aig, reference, candidate, limits)
-    } else {
-        check_in::<Wide>(aig, reference, candidate, limits)
-    }
+    Prepared::new(aig, reference, candidate).check(limits)
 }
 
 /// The polynomial of one word (least significant bit first) over the AIG inputs, with
@@ -127,30 +117,79 @@ pub fn word_poly(aig: &Aig, word: &[Lit], limits: &Limits) -> Result<Vec<(Vec<u3
     Ok(p.terms().map(|(m, c)| (m.to_vec(), *c)).collect())
 }
 
-fn check_in<C: Coef>(
-    aig: &Aig,
-    reference: &[Lit],
-    candidate: &[Lit],
-    limits: &Limits,
-) -> WordCheck {
-    let n = reference.len();
-    let roots: Vec<Lit> = reference.iter().chain(candidate).copied().collect();
-    let units = Units::build(aig, &roots);
-    let mut stats = Stats {
-        units: units.units.len(),
-        adder_cells: units.adder_cells,
-        xors: units.xors,
-        ..Stats::default()
-    };
-    let bits = match rewrite::<C>(&units, reference, candidate, limits, &mut stats) {
-        Err(stop) => remainder::simulated(aig, reference, candidate, stop),
-        Ok(p) if p.is_zero() => vec![BitVerdict::Equal; n],
-        Ok(p) => {
-            stats.remainder_terms = p.len();
-            remainder::verdicts(aig, reference, candidate, &p)
+/// A word pair with its rewriting units built: look at the units (is it arithmetic?) before
+/// paying for the rewriting.
+pub struct Prepared<'a> {
+    aig: &'a Aig,
+    reference: Vec<Lit>,
+    candidate: Vec<Lit>,
+    units: Units,
+}
+
+impl<'a> Prepared<'a> {
+    /// Build the units of the word pair `reference[i]` / `candidate[i]` (least significant
+    /// first, equal lengths).
+    pub fn new(aig: &'a Aig, reference: &[Lit], candidate: &[Lit]) -> Prepared<'a> {
+        assert_eq!(
+            reference.len(),
+            candidate.len(),
+            "word halves of equal width"
+        );
+        let roots: Vec<Lit> = reference.iter().chain(candidate).copied().collect();
+        Prepared {
+            aig,
+            reference: reference.to_vec(),
+            candidate: candidate.to_vec(),
+            units: Units::build(aig, &roots),
         }
-    };
-    WordCheck { bits, stats }
+    }
+
+    /// Units above the inputs.
+    pub fn units(&self) -> usize {
+        self.units.units.len()
+    }
+
+    /// Units taken as full-adder sums and carries or two-leaf XORs.
+    pub fn adder_units(&self) -> usize {
+        self.units.adder_cells + self.units.xors
+    }
+
+    /// Whether the word looks like arithmetic: at least 16 units, at least a quarter of them
+    /// adder cells or XORs (a selector or decoder has none; an adder or a multiplier is mostly
+    /// made of them).
+    pub fn looks_arithmetic(&self) -> bool {
+        self.units() >= 16 && self.adder_units() * 4 >= self.units()
+    }
+
+    /// Rewrite the word difference and give one verdict per bit.
+    pub fn check(&self, limits: &Limits) -> WordCheck {
+        if self.reference.len() <= 128 {
+            self.check_in::<u128>(limits)
+        } else {
+            self.check_in::<Wide>(limits)
+        }
+    }
+
+    fn check_in<C: Coef>(&self, limits: &Limits) -> WordCheck {
+        let (aig, reference, candidate, units) =
+            (self.aig, &self.reference, &self.candidate, &self.units);
+        let n = reference.len();
+        let mut stats = Stats {
+            units: units.units.len(),
+            adder_cells: units.adder_cells,
+            xors: units.xors,
+            ..Stats::default()
+        };
+        let bits = match rewrite::<C>(units, reference, candidate, limits, &mut stats) {
+            Err(stop) => remainder::simulated(aig, reference, candidate, stop),
+            Ok(p) if p.is_zero() => vec![BitVerdict::Equal; n],
+            Ok(p) => {
+                stats.remainder_terms = p.len();
+                remainder::verdicts(aig, reference, candidate, &p)
+            }
+        };
+        WordCheck { bits, stats }
+    }
 }
 
 /// Rewrite sum 2^i (plus_i - minus_i) down to the inputs.
@@ -182,7 +221,7 @@ fn rewrite<C: Coef>(
         if p.len() > limits.max_terms {
             return Err(Stop::TermBudget(limits.max_terms));
         }
-        if stats.steps.is_multiple_of(256) && limits.deadline.is_some_and(|d| Instant::now() >= d) {
+        if limits.deadline.is_some_and(|d| Instant::now() >= d) {
             return Err(Stop::Timeout);
         }
     }

@@ -47,6 +47,13 @@ pub struct GenArgs {
     /// Verilog module name.
     #[arg(long)]
     module: Option<String>,
+    /// Multipliers, mac and squarers: two's complement signed operands.
+    #[arg(long)]
+    signed: bool,
+    /// Multipliers, mac and squarers of style wallace, dadda or booth: the final adder
+    /// (ripple, cla, kogge-stone, brent-kung; default ripple).
+    #[arg(long, value_enum, value_name = "STYLE")]
+    final_adder: Option<Style>,
     /// Output format.
     #[arg(long, value_enum, default_value_t = GenFormat::Verilog)]
     format: GenFormat,
@@ -87,6 +94,8 @@ pub fn run(a: &GenArgs) -> Exit {
         bug: a.bug,
         at: a.at.clone(),
         module: a.module.clone(),
+        signed: a.signed,
+        final_adder: a.final_adder,
     };
     let g = match gen::generate(&spec, a.format) {
         Ok(g) => g,

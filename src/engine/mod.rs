@@ -22,6 +22,7 @@ mod split;
 mod sweep;
 pub mod unknowns;
 mod window;
+mod words;
 
 use crate::aig::{random_words, simulate_into, SimTable};
 use crate::cnf::Tseitin;
@@ -41,8 +42,9 @@ pub use sweep::SweepStats;
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Default, serde::Serialize)]
 #[serde(rename_all = "lowercase")]
 pub enum EngineKind {
-    /// The portfolio: exhaustive simulation for output groups with small supports, BDDs within
-    /// a node limit, then SAT sweeping for the rest (the method of each pair is reported).
+    /// The portfolio: word polynomials for output buses that look arithmetic, exhaustive
+    /// simulation for output groups with small supports, BDDs within a node limit, then SAT
+    /// sweeping for the rest (the method of each pair is reported).
     #[default]
     Portfolio,
     /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair
@@ -57,6 +59,9 @@ pub enum EngineKind {
     Exhaustive,
     /// BDDs alone (pairs past the node limit stay undecided).
     Bdd,
+    /// Word polynomials alone, on output buses of at least 4 bits (other pairs, and bits past
+    /// the term budget, stay undecided).
+    Algebra,
 }
 
 impl EngineKind {
@@ -79,6 +84,7 @@ impl EngineKind {
             EngineKind::Portfolio => "portfolio",
             EngineKind::Exhaustive => "exhaustive",
             EngineKind::Bdd => "bdd",
+            EngineKind::Algebra => "algebra",
         }
     }
 }
@@ -245,16 +251,19 @@ pub fn prove_shared(
             );
             (f, sat.stats())
         }
-        EngineKind::Portfolio | EngineKind::Exhaustive | EngineKind::Bdd => {
+        EngineKind::Portfolio | EngineKind::Exhaustive | EngineKind::Bdd | EngineKind::Algebra => {
             let stages: &[portfolio::Stage] = match opts.engine {
                 EngineKind::Exhaustive => &[portfolio::Stage::Exhaustive],
                 EngineKind::Bdd => &[portfolio::Stage::Bdd],
+                EngineKind::Algebra => &[portfolio::Stage::Algebra],
                 _ => &[
+                    portfolio::Stage::Algebra,
                     portfolio::Stage::Exhaustive,
                     portfolio::Stage::Bdd,
                     portfolio::Stage::Sweep,
                 ],
             };
+            let buses = words::output_buses(r, c, &shared);
             let cx = portfolio::Context {
                 aig: &shared.aig,
                 pairs: &queries,
@@ -264,6 +273,8 @@ pub fn prove_shared(
                 jobs: opts.jobs,
                 limits: &limits,
                 progress: &progress,
+                buses: &buses,
+                arithmetic_only: opts.engine != EngineKind::Algebra,
             };
             let out = portfolio::run(&cx, &open, stages).map_err(ProveError::Internal)?;
             sweep_stats = out.sweep;

@@ -1,7 +1,8 @@
 //! The engine portfolio (the default engine): a table of methods tried in order on the output
 //! pairs still open, each with its own grouping and its own limits, each answer with its
-//! evidence. Exhaustive simulation takes the groups whose combined support is small (every
-//! assignment enumerated), BDDs take what stays within a node limit (equal canonical edges),
+//! evidence. Word polynomials take the output buses that look like arithmetic (equal
+//! polynomials over Z / 2^n, [`super::words`]), exhaustive simulation the groups whose
+//! combined support is small (every assignment enumerated), BDDs take what stays within a node limit (equal canonical edges),
 //! and SAT sweeping takes the rest (UNSAT answers and sound merges). A method that declines a
 //! group leaves it open for the next one; only the last method's stop reason reaches the
 //! report. The choice and each method's time per group are recorded ([`GroupRecord`]) for the
@@ -26,6 +27,8 @@ use std::time::Instant;
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
 #[serde(rename_all = "snake_case")]
 pub enum Stage {
+    /// Word polynomials of arithmetic output buses ([`super::words`]).
+    Algebra,
     /// Exhaustive bit-parallel simulation of small supports.
     Exhaustive,
     /// BDDs within a node limit.
@@ -39,6 +42,7 @@ impl Stage {
     pub fn word(self) -> &'static str {
         match self {
             Stage::Exhaustive => "exhaustive",
+            Stage::Algebra => "algebra",
             Stage::Bdd => "bdd",
             Stage::Sweep => "sweep",
         }
@@ -70,6 +74,10 @@ pub(crate) struct Context<'a> {
     pub jobs: usize,
     pub limits: &'a Limits,
     pub progress: &'a Progress,
+    /// Output pairs grouped into words, least significant bit first ([`super::words`]).
+    pub buses: &'a [Vec<usize>],
+    /// The algebraic method takes only words that look like arithmetic.
+    pub arithmetic_only: bool,
 }
 
 /// What a method returns: findings for the pairs it decided (or, for the last method, for
@@ -86,6 +94,7 @@ type Runner = fn(&Context<'_>, &[usize]) -> Result<StageOutput, String>;
 
 /// The methods in the order they are tried.
 pub(crate) const TABLE: &[(Stage, Runner)] = &[
+    (Stage::Algebra, super::words::run_algebra),
     (Stage::Exhaustive, run_exhaustive),
     (Stage::Bdd, run_bdd),
     (Stage::Sweep, run_sweep),
@@ -382,6 +391,8 @@ mod tests {
             jobs: 1,
             limits,
             progress: p,
+            buses: &[],
+            arithmetic_only: true,
         }
     }
 

@@ -46,6 +46,8 @@ pub enum Method {
     Exhaustive,
     /// Equal canonical BDDs, or a path of their difference.
     Bdd,
+    /// Equal word polynomials over Z / 2^n, or a vector read off their non-zero difference.
+    Algebra,
 }
 
 impl Method {
@@ -59,6 +61,7 @@ impl Method {
             Method::Split => "split",
             Method::Exhaustive => "exhaustive",
             Method::Bdd => "bdd",
+            Method::Algebra => "algebra",
         }
     }
 }

@@ -12,7 +12,9 @@
 //! | priority | requests N >= 2 | `r[N-1:0]` | `y[K-1:0]` = highest i with `r[i]` (0 if none), `v` = any request |
 //! | shifter | data bits n >= 2 | `a[n-1:0]`, `s[K-1:0]`, K = ceil(log2 n) | `y[n-1:0]` = `a << s` (zeros shifted in) |
 //! | adder | operand bits n >= 1 | `a[n-1:0]`, `b[n-1:0]` | `y[n:0]` = a + b |
-//! | multiplier | operand bits n >= 2 | `a[n-1:0]`, `b[n-1:0]` | `p[2n-1:0]` = a * b (unsigned) |
+//! | multiplier | operand bits n >= 2 | `a[n-1:0]`, `b[n-1:0]` | `p[2n-1:0]` = a * b (`--signed`: two's complement) |
+//! | mac | operand bits n >= 2 | `a[n-1:0]`, `b[n-1:0]`, `c[2n-1:0]` | `p[2n-1:0]` = a * b + c (modulo 2^2n) |
+//! | squarer | operand bits n >= 2 | `a[n-1:0]` | `p[2n-1:0]` = a * a |
 //! | random | gates | `x[I-1:0]` (`--inputs` I) | `y[..]`: every gate without fan-out |
 //! | popcount | inputs n >= 2 | `x[n-1:0]` | `y[K-1:0]` = number of ones, K = ceil(log2(n+1)) |
 //! | majority | inputs n >= 3 | `x[n-1:0]` | `y` = at least n/2+1 inputs are 1 |
@@ -45,7 +47,7 @@ mod count;
 mod decoder;
 mod divide;
 mod fold;
-mod mult;
+pub mod mult;
 mod random;
 mod selector;
 mod shifter;
@@ -67,8 +69,12 @@ pub enum Kind {
     Shifter,
     /// Adder of two n-bit numbers.
     Adder,
-    /// Unsigned multiplier of two n-bit numbers.
+    /// Multiplier of two n-bit numbers (unsigned, or signed with `--signed`).
     Multiplier,
+    /// Multiply-accumulate: a * b + c.
+    Mac,
+    /// Squarer: a * a.
+    Squarer,
     /// Random gate-level circuit (and its locally rewritten copy).
     Random,
     /// Population count (number of ones).
@@ -99,6 +105,8 @@ impl Kind {
             Kind::Shifter => "shifter",
             Kind::Adder => "adder",
             Kind::Multiplier => "multiplier",
+            Kind::Mac => "mac",
+            Kind::Squarer => "squarer",
             Kind::Random => "random",
             Kind::Popcount => "popcount",
             Kind::Majority => "majority",
@@ -120,7 +128,8 @@ impl Kind {
             Kind::Priority => &[Spec, Chain, Tree],
             Kind::Shifter => &[Spec, Log, Decoder],
             Kind::Adder => &[Spec, Ripple, Cla, KoggeStone, BrentKung],
-            Kind::Multiplier => &[Spec, Array, Wallace, Dadda],
+            Kind::Multiplier | Kind::Mac => &[Spec, Array, Wallace, Dadda, Booth],
+            Kind::Squarer => &[Spec, Array, Wallace, Dadda],
             Kind::Random => &[Plain, Rewritten],
             Kind::Popcount => &[AdderTree, Csa],
             Kind::Majority => &[Sorting, AdderTree],
@@ -168,10 +177,12 @@ pub enum Style {
     BrentKung,
     /// Multiplier: array of rows of ripple-carry adders.
     Array,
-    /// Multiplier: Wallace carry-save tree and a ripple-carry final adder.
+    /// Multiplier: Wallace carry-save tree and a final adder (`--final-adder`, ripple by default).
     Wallace,
-    /// Multiplier: Dadda carry-save tree and a ripple-carry final adder.
+    /// Multiplier: Dadda carry-save tree and a final adder (`--final-adder`, ripple by default).
     Dadda,
+    /// Multiplier: radix-4 Booth partial products, a Dadda tree and a final adder.
+    Booth,
     /// Random: the random circuit as drawn.
     Plain,
     /// Random: the same circuit after local equivalent rewrites.
@@ -212,6 +223,7 @@ impl Style {
             Style::Array => "array",
             Style::Wallace => "wallace",
             Style::Dadda => "dadda",
+            Style::Booth => "booth",
             Style::Plain => "plain",
             Style::Rewritten => "rewritten",
             Style::AdderTree => "adder-tree",
@@ -239,6 +251,12 @@ pub enum Bug {
     Invert,
     /// One fan-in of a gate connected to the wrong net.
     Misroute,
+    /// Multiplier family: one partial product takes the wrong operand bit.
+    PpBit,
+    /// Multiplier family: one adder cell's sum and carry exchanged.
+    SwapCarry,
+    /// Booth multipliers: one row's sign bit enters without its inversion.
+    BoothSign,
 }
 
 impl Bug {
@@ -250,6 +268,9 @@ impl Bug {
             Bug::Stuck1 => "stuck1",
             Bug::Invert => "invert",
             Bug::Misroute => "misroute",
+            Bug::PpBit => "pp-bit",
+            Bug::SwapCarry => "swap-carry",
+            Bug::BoothSign => "booth-sign",
         }
     }
 }
@@ -284,6 +305,10 @@ pub struct GenSpec {
     pub at: Option<String>,
     /// Verilog module name; derived from the spec if absent.
     pub module: Option<String>,
+    /// Multiplier family: two's complement signed operands.
+    pub signed: bool,
+    /// Multiplier family, tree styles: the final adder's style (ripple if absent).
+    pub final_adder: Option<Style>,
 }
 
 impl GenSpec {
@@ -299,7 +324,21 @@ impl GenSpec {
             bug: None,
             at: None,
             module: None,
+            signed: false,
+            final_adder: None,
         }
+    }
+
+    /// The same spec with signed operands.
+    pub fn signed(mut self) -> GenSpec {
+        self.signed = true;
+        self
+    }
+
+    /// The same spec with final adder `style`.
+    pub fn final_adder(mut self, style: Style) -> GenSpec {
+        self.final_adder = Some(style);
+        self
     }
 
     /// The same spec with channel width `w`.
@@ -327,8 +366,13 @@ impl GenSpec {
             _ => self.n.to_string(),
         };
         let bug = if self.bug.is_some() { "_bug" } else { "" };
+        let signed = if self.signed { "_signed" } else { "" };
+        let fin = match self.final_adder {
+            Some(f) if f != Style::Ripple => format!("_{}", f.name().replace('-', "_")),
+            _ => String::new(),
+        };
         format!(
-            "{}{size}_{}{bug}",
+            "{}{size}_{}{fin}{signed}{bug}",
             self.kind.name(),
             self.style.name().replace('-', "_")
         )
@@ -344,6 +388,12 @@ impl GenSpec {
             s += &format!(" --inputs {}", self.inputs);
         }
         s += &format!(" --style {} --seed {}", self.style.name(), self.seed);
+        if self.signed {
+            s += " --signed";
+        }
+        if let Some(f) = self.final_adder {
+            s += &format!(" --final-adder {}", f.name());
+        }
         if let Some(b) = self.bug {
             s += &format!(" --bug {}", b.name());
         }
@@ -432,13 +482,18 @@ fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenE
     let module = spec.module.clone().unwrap_or_else(|| spec.default_module());
     let mut c = Circuit::new(&module);
     let mut rng = crate::rng::SplitMix64::new(spec.seed, 1);
+    let mut arith_bug = None;
     let notes = match spec.kind {
         Kind::Selector => selector::build(&mut c, spec.n, spec.width, spec.style, &mut rng),
         Kind::Decoder => decoder::build_decoder(&mut c, spec.n, spec.style),
         Kind::Priority => decoder::build_priority(&mut c, spec.n, spec.style),
         Kind::Shifter => shifter::build(&mut c, spec.n, spec.style),
         Kind::Adder => arith::build(&mut c, spec.n, spec.style),
-        Kind::Multiplier => mult::build(&mut c, spec.n, spec.style),
+        Kind::Multiplier | Kind::Mac | Kind::Squarer => {
+            let (notes, planted) = mult::build(&mut c, spec)?;
+            arith_bug = planted;
+            notes
+        }
         Kind::Random => random::build(&mut c, spec.n, spec.inputs, spec.style, spec.seed),
         Kind::Popcount => count::build_popcount(&mut c, spec.n, spec.style),
         Kind::Majority => count::build_majority(&mut c, spec.n, spec.style),
@@ -460,6 +515,12 @@ fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenE
     }
     c.notes = notes;
     let mutation = match spec.bug {
+        Some(bug) if mult::is_arithmetic_bug(bug) => Some(arith_bug.ok_or_else(|| {
+            GenError::new(
+                format!("--bug {} found no place in this circuit", bug.name()),
+                "try another --seed",
+            )
+        })?),
         Some(bug) => {
             let (m, what) = mutate::apply(&c, bug, spec.at.as_deref(), spec.seed)?;
             c = m;
@@ -499,6 +560,12 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
         Kind::Shifter => (2, 1 << 16, "a shifter needs at least 2 data bits"),
         Kind::Adder => (1, 1 << 16, "an adder needs operands of at least 1 bit"),
         Kind::Multiplier => (2, 256, "a multiplier needs operands of at least 2 bits"),
+        Kind::Mac => (
+            2,
+            256,
+            "a multiply-accumulate unit needs operands of at least 2 bits",
+        ),
+        Kind::Squarer => (2, 256, "a squarer needs an operand of at least 2 bits"),
         Kind::Random => (1, 20_000_000, "a random circuit needs at least 1 gate"),
         Kind::Popcount => (2, 1 << 16, "a population count needs 2 to 65536 inputs"),
         Kind::Majority => (3, 1 << 16, "a majority needs 3 to 65536 inputs"),
@@ -574,6 +641,52 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
                 spec.kind.styles()[1].name()
             ),
         ));
+    }
+    let family = matches!(spec.kind, Kind::Multiplier | Kind::Mac | Kind::Squarer);
+    if spec.signed && !family {
+        return Err(GenError::new(
+            format!("--signed applies to multipliers, mac and squarers, not to kind {kind}"),
+            "leave --signed out",
+        ));
+    }
+    if let Some(f) = spec.final_adder {
+        if !family || !matches!(spec.style, Style::Wallace | Style::Dadda | Style::Booth) {
+            return Err(GenError::new(
+                format!(
+                    "--final-adder applies to the wallace, dadda and booth styles, not to {kind} style {}",
+                    spec.style.name()
+                ),
+                "use --style wallace, dadda or booth, or leave --final-adder out",
+            ));
+        }
+        if !matches!(
+            f,
+            Style::Ripple | Style::Cla | Style::KoggeStone | Style::BrentKung
+        ) {
+            return Err(GenError::new(
+                format!("`{}` is not an adder style", f.name()),
+                "use --final-adder ripple, cla, kogge-stone or brent-kung",
+            ));
+        }
+    }
+    if let Some(bug) = spec.bug.filter(|&b| mult::is_arithmetic_bug(b)) {
+        if !family || (bug == Bug::BoothSign && spec.style != Style::Booth) {
+            return Err(GenError::new(
+                format!(
+                    "--bug {} does not apply to {kind} style {}",
+                    bug.name(),
+                    spec.style.name()
+                ),
+                "pp-bit and swap-carry need a gate-level multiplier, mac or squarer; booth-sign \
+                 needs --style booth",
+            ));
+        }
+        if spec.at.is_some() {
+            return Err(GenError::new(
+                format!("--at does not apply to --bug {}", bug.name()),
+                "leave --at out; the seed chooses the place (try other --seed values)",
+            ));
+        }
     }
     if spec.at.is_some() && spec.bug.is_none() {
         return Err(GenError::new(

@@ -1,153 +1,208 @@
-//! Unsigned n x n multipliers (`p[2n-1:0]` = a * b): the spec `a * b`, an array of rows of
-//! ripple-carry adders, and Wallace and Dadda carry-save trees with a ripple-carry final adder.
+//! The multiplier family: n x n multipliers (`p[2n-1:0]` = a * b), multiply-accumulate units
+//! (`p[2n-1:0]` = a * b + c, modulo 2^(2n)) and squarers (`p[2n-1:0]` = a * a), unsigned or
+//! two's complement signed (`--signed`).
 //!
-//! Partial products are `pp{i}_{j}` = a[j] & b[i] of weight i + j. Full and half adders are
-//! named by their place: `r{row}_{j}` (array), `w{stage}_{col}_{k}` (Wallace),
-//! `d{stage}_{col}_{k}` (Dadda), `f{col}` (final adder).
+//! Partial products ([`partial`]): an AND array (Baugh-Wooley when signed), radix-4 Booth
+//! (style `booth`), or the folded squarer; reduction ([`reduce`]): an array of ripple-carry
+//! rows, or Wallace or Dadda trees (Booth rows go through a Dadda tree) with a final adder
+//! chosen by `--final-adder` (ripple, cla, kogge-stone, brent-kung). The spec style is the
+//! Verilog one-liner (`a * b`, `$signed(a) * $signed(b)`, `a * b + c`, `a * a`); in bench it is
+//! written as the array.
+//!
+//! Arithmetic bugs planted here (the place chosen by the seed): a partial product taking the
+//! wrong operand bit (`pp-bit`), one adder cell's sum and carry exchanged (`swap-carry`), a
+//! Booth row's sign bit entering without its inversion (`booth-sign`).
 
-use super::arith::add3;
+mod partial;
+mod reduce;
+
+pub use reduce::dadda_heights;
+
 use super::emit::{Circuit, Net, Op};
-use super::Style;
+use super::{Bug, GenError, GenSpec, Kind, Style};
+use crate::rng::SplitMix64;
 
-/// Multiplier: inputs `a[n-1:0]`, `b[n-1:0]`, output `p[2n-1:0]` = a * b.
-pub(super) fn build(c: &mut Circuit, n: usize, style: Style) -> Vec<String> {
-    let a = c.input("a", n);
-    let b = c.input("b", n);
-    let mut notes = vec![format!(
-        "{n}x{n} unsigned multiplier: a[{}:0], b[{}:0] in; p[{}:0] = a * b",
-        n - 1,
-        n - 1,
-        2 * n - 1
-    )];
-    let mut pp = vec![Vec::with_capacity(n); n];
-    for (i, row) in pp.iter_mut().enumerate() {
-        for (j, &aj) in a.iter().enumerate() {
-            row.push(c.gate(Op::And, vec![aj, b[i]], format!("pp{i}_{j}")));
-        }
+/// Where an arithmetic bug goes: the index of the partial product, adder cell or Booth row
+/// that gets it, counted in construction order.
+#[derive(Clone, Debug, Default)]
+pub(super) struct Plant {
+    pp_at: Option<usize>,
+    cell_at: Option<usize>,
+    row_at: Option<usize>,
+    pp: usize,
+    cells: usize,
+    rows: usize,
+    what: Option<String>,
+}
+
+impl Plant {
+    fn hit(at: Option<usize>, count: &mut usize) -> bool {
+        let h = at == Some(*count);
+        *count += 1;
+        h
     }
-    let bits: Vec<Option<Net>> = match style {
-        Style::Spec | Style::Array => {
-            notes.push(if style == Style::Spec {
-                "style spec: `p = a * b`; in bench written as the array multiplier".to_string()
-            } else {
-                "style array: row i adds partial products pp{i}_* to the running sum with a \
-                 ripple-carry adder r{i}_*"
-                    .to_string()
-            });
-            let mut acc: Vec<Option<Net>> = vec![None; 2 * n];
-            for (j, &x) in pp[0].iter().enumerate() {
-                acc[j] = Some(x);
-            }
-            for (i, row) in pp.iter().enumerate().skip(1) {
-                let mut carry = None;
-                for (j, &x) in row.iter().enumerate() {
-                    let ins: Vec<Net> =
-                        [acc[i + j], Some(x), carry].into_iter().flatten().collect();
-                    let (s, co) = add3(c, &ins, &format!("r{i}_{j}"));
-                    acc[i + j] = Some(s);
-                    carry = co;
-                }
-                acc[i + n] = carry;
-            }
-            acc
-        }
-        Style::Wallace | Style::Dadda => {
-            let mut cols: Vec<Vec<Net>> = vec![Vec::new(); 2 * n + 1];
-            for (i, row) in pp.iter().enumerate() {
-                for (j, &x) in row.iter().enumerate() {
-                    cols[i + j].push(x);
-                }
-            }
-            let stages = if style == Style::Wallace {
-                wallace(c, &mut cols)
-            } else {
-                dadda(c, &mut cols)
-            };
-            notes.push(format!(
-                "style {}: carry-save reduction of the partial-product columns in {stages} stages \
-                 of full and half adders, then a ripple-carry final adder f*",
-                style.name()
-            ));
-            let mut carry = None;
-            (0..2 * n)
-                .map(|w| {
-                    let ins: Vec<Net> = cols[w].iter().copied().chain(carry).collect();
-                    if ins.is_empty() {
-                        carry = None;
-                        return None;
-                    }
-                    let (s, co) = add3(c, &ins, &format!("f{w}"));
-                    carry = co;
-                    Some(s)
-                })
-                .collect()
-        }
-        other => unreachable!("multiplier style {other:?} passed validation"),
+
+    /// The next partial product: whether it gets the bug.
+    pub(super) fn next_pp(&mut self) -> bool {
+        Plant::hit(self.pp_at, &mut self.pp)
+    }
+
+    /// The next adder cell with a carry: whether it gets the bug.
+    pub(super) fn next_cell(&mut self) -> bool {
+        Plant::hit(self.cell_at, &mut self.cells)
+    }
+
+    /// The next Booth row: whether it gets the bug.
+    pub(super) fn next_booth_row(&mut self) -> bool {
+        Plant::hit(self.row_at, &mut self.rows)
+    }
+
+    /// Describe the planted bug.
+    pub(super) fn note(&mut self, what: String) {
+        self.what = Some(what);
+    }
+}
+
+/// What the builders share: the circuit, the bug plan and the constant nets.
+pub(super) struct Ctx<'a> {
+    pub c: &'a mut Circuit,
+    pub plant: Plant,
+    pub zero: Net,
+    pub one: Net,
+}
+
+/// Whether `bug` is one planted by this module.
+pub fn is_arithmetic_bug(bug: Bug) -> bool {
+    matches!(bug, Bug::PpBit | Bug::SwapCarry | Bug::BoothSign)
+}
+
+/// Build the circuit of `spec` (a multiplier-family kind) into `c`; returns the notes and the
+/// planted arithmetic bug, if any.
+pub(super) fn build(
+    c: &mut Circuit,
+    spec: &GenSpec,
+) -> Result<(Vec<String>, Option<String>), GenError> {
+    let bug = spec.bug.filter(|&b| is_arithmetic_bug(b));
+    let Some(bug) = bug else {
+        let (notes, _) = build_with(c, spec, Plant::default());
+        return Ok((notes, None));
     };
-    let p: Vec<Net> = bits
-        .into_iter()
-        .enumerate()
-        .map(|(w, x)| x.unwrap_or_else(|| c.gate(Op::Const0, vec![], format!("zero{w}"))))
-        .collect();
+    // A first build counts the places, the seed picks one, the second build plants it.
+    let mut scratch = Circuit::new("scratch");
+    let (_, counted) = build_with(&mut scratch, spec, Plant::default());
+    let mut rng = SplitMix64::new(spec.seed, 7);
+    let mut plant = Plant::default();
+    let (count, slot) = match bug {
+        Bug::PpBit => (counted.pp, &mut plant.pp_at),
+        Bug::SwapCarry => (counted.cells, &mut plant.cell_at),
+        _ => (counted.rows, &mut plant.row_at),
+    };
+    if count == 0 {
+        return Err(GenError::new(
+            format!("this circuit has no place for --bug {}", bug.name()),
+            "--bug booth-sign needs --style booth; pp-bit and swap-carry need a gate-level style",
+        ));
+    }
+    *slot = Some(rng.below(count));
+    let (notes, planted) = build_with(c, spec, plant);
+    Ok((notes, planted.what))
+}
+
+fn build_with(c: &mut Circuit, spec: &GenSpec, plant: Plant) -> (Vec<String>, Plant) {
+    let n = spec.n;
+    let w = 2 * n;
+    let signed = spec.signed;
+    let a = c.input("a", n);
+    let b = if spec.kind == Kind::Squarer {
+        Vec::new()
+    } else {
+        c.input("b", n)
+    };
+    let acc = if spec.kind == Kind::Mac {
+        c.input("c", w)
+    } else {
+        Vec::new()
+    };
+    let zero = c.gate(Op::Const0, vec![], "zero");
+    let one = c.gate(Op::Const1, vec![], "one");
+    let mut x = Ctx {
+        c,
+        plant,
+        zero,
+        one,
+    };
+    let sign = if signed { "signed" } else { "unsigned" };
+    let (what, expr) = match (spec.kind, signed) {
+        (Kind::Squarer, false) => ("squarer", "a * a".to_string()),
+        (Kind::Squarer, true) => ("squarer", "$signed(a) * $signed(a)".to_string()),
+        (Kind::Mac, false) => ("multiply-accumulate", "a * b + c".to_string()),
+        (Kind::Mac, true) => (
+            "multiply-accumulate",
+            "$signed(a) * $signed(b) + $signed(c)".to_string(),
+        ),
+        (_, false) => ("multiplier", "a * b".to_string()),
+        (_, true) => ("multiplier", "$signed(a) * $signed(b)".to_string()),
+    };
+    let mut notes = vec![format!(
+        "{n}x{n} {sign} {what}: a[{}:0]{}{} in; p[{}:0] = {expr} (modulo 2^{w})",
+        n - 1,
+        if b.is_empty() {
+            String::new()
+        } else {
+            format!(", b[{}:0]", n - 1)
+        },
+        if acc.is_empty() {
+            String::new()
+        } else {
+            format!(", c[{}:0]", w - 1)
+        },
+        w - 1
+    )];
+    let mut rows = match (spec.kind, spec.style) {
+        (Kind::Squarer, _) => partial::squarer(&mut x, &a, signed),
+        (_, Style::Booth) => partial::booth(&mut x, &a, &b, signed, w),
+        _ => partial::and_array(&mut x, &a, &b, signed),
+    };
+    let pp_rows = rows.len();
+    if !acc.is_empty() {
+        rows.push(acc.iter().copied().enumerate().collect());
+    }
+    let fin = spec.final_adder.unwrap_or(Style::Ripple);
+    let bits: Vec<Option<Net>> = match spec.style {
+        Style::Spec | Style::Array => {
+            notes.push(if spec.style == Style::Spec {
+                format!("style spec: `p = {expr};` in bench written as the array")
+            } else {
+                format!(
+                    "style array: {pp_rows} partial-product rows added one after the other by \
+                     ripple-carry rows r{{row}}_{{weight}}"
+                )
+            });
+            reduce::array(&mut x, &rows, w)
+        }
+        style => {
+            let dadda = style != Style::Wallace;
+            let (bits, stages) = reduce::tree(&mut x, &rows, w, dadda, fin);
+            notes.push(format!(
+                "style {}: {pp_rows} partial-product rows{}, a {} tree of {stages} stages of full \
+                 and half adders, then a {} final adder",
+                style.name(),
+                if style == Style::Booth {
+                    " (radix-4 Booth digits)"
+                } else {
+                    ""
+                },
+                if dadda { "Dadda" } else { "Wallace" },
+                fin.name()
+            ));
+            bits
+        }
+    };
+    let Ctx { c, plant, zero, .. } = x;
+    let p: Vec<Net> = bits.into_iter().map(|b| b.unwrap_or(zero)).collect();
     c.output("p", &p);
-    if style == Style::Spec {
-        c.behaviour = vec!["assign p = a * b;".to_string()];
+    if spec.style == Style::Spec {
+        c.behaviour = vec![format!("assign p = {expr};")];
     }
-    notes
-}
-
-/// Wallace: each stage puts every column's bits through full adders in threes and a half
-/// adder for a remaining pair, until no column has more than two bits. Returns the stage count.
-fn wallace(c: &mut Circuit, cols: &mut Vec<Vec<Net>>) -> usize {
-    let mut stage = 0;
-    while cols.iter().any(|col| col.len() > 2) {
-        let mut next: Vec<Vec<Net>> = vec![Vec::new(); cols.len() + 1];
-        for (w, col) in cols.iter().enumerate() {
-            let mut rest: &[Net] = col;
-            let mut k = 0;
-            while rest.len() >= 2 {
-                let take = rest.len().min(3);
-                let (s, co) = add3(c, &rest[..take], &format!("w{stage}_{w}_{k}"));
-                next[w].push(s);
-                next[w + 1].extend(co);
-                rest = &rest[take..];
-                k += 1;
-            }
-            next[w].extend_from_slice(rest);
-        }
-        next.truncate(cols.len());
-        *cols = next;
-        stage += 1;
-    }
-    stage
-}
-
-/// Dadda: heights 2, 3, 4, 6, 9, ... (d_{j+1} = floor(3 d_j / 2)); each stage reduces every
-/// column to the next lower height with as few adders as possible. Returns the stage count.
-fn dadda(c: &mut Circuit, cols: &mut [Vec<Net>]) -> usize {
-    let max = cols.iter().map(|col| col.len()).max().unwrap_or(0);
-    let mut heights = vec![2usize];
-    while *heights.last().expect("non-empty") < max {
-        let d = *heights.last().expect("non-empty");
-        heights.push(d * 3 / 2);
-    }
-    heights.pop();
-    let mut stage = 0;
-    for &target in heights.iter().rev() {
-        for w in 0..cols.len() {
-            let mut k = 0;
-            while cols[w].len() > target {
-                let take = if cols[w].len() == target + 1 { 2 } else { 3 };
-                let ins: Vec<Net> = cols[w].drain(..take).collect();
-                let (s, co) = add3(c, &ins, &format!("d{stage}_{w}_{k}"));
-                cols[w].push(s);
-                if let (Some(co), true) = (co, w + 1 < cols.len()) {
-                    cols[w + 1].push(co);
-                }
-                k += 1;
-            }
-        }
-        stage += 1;
-    }
-    stage
+    (notes, plant)
 }

@@ -257,6 +257,8 @@ fn plant(
             }
             None
         }
+        // Planted by the multiplier builder (src/gen/mult.rs), never here.
+        Bug::PpBit | Bug::SwapCarry | Bug::BoothSign => None,
         Bug::Misroute => {
             let gi = driver[place.index()]?;
             let g = m.gates()[gi].clone();

@@ -67,6 +67,7 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
             Method::Split,
             Method::Exhaustive,
             Method::Bdd,
+            Method::Algebra,
         ] {
             let k = r
                 .pairs

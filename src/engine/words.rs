@@ -1,0 +1,186 @@
+//! The algebraic method of the portfolio: output pairs grouped into words (the bits of one
+//! output bus, least significant first), each word pair that looks like arithmetic checked as
+//! polynomials over Z / 2^n ([`crate::algebra`]).
+//!
+//! A word is tried when it has at least [`MIN_BITS`] bits, its cone is at most
+//! [`MAX_CONE`] AND nodes, at least one AND node in [`MIN_XOR_SHARE`] roots an XOR (a cheap
+//! structural count), and its rewriting units are rich in adder cells and XORs
+//! ([`Prepared::looks_arithmetic`]). `--engine algebra` alone tries every word of any width.
+//! Equal polynomials decide every open bit of the word; a bit the remainder tells apart is
+//! different under a vector already re-simulated on the graph (and confirmed on both designs
+//! afterwards, like every counterexample); the rest stays open for the next method.
+
+use super::pairing::Shared;
+use super::portfolio::{Context, GroupRecord, Stage, StageOutput};
+use super::{Finding, Method};
+use crate::aig::{eval, Aig, Lit, Node};
+use crate::algebra::{BitVerdict, Limits, Prepared, Stop};
+use crate::design::Design;
+use std::collections::BTreeMap;
+use std::time::{Duration, Instant};
+
+/// Fewest bits of a word the portfolio tries.
+pub const MIN_BITS: usize = 4;
+/// Largest cone (AND nodes of both sides) the portfolio tries.
+pub const MAX_CONE: usize = 4_000_000;
+/// One AND node in this many must root an XOR for the portfolio to build units.
+pub const MIN_XOR_SHARE: usize = 16;
+/// Live terms allowed in the word polynomial in the portfolio (a blow-up shows early; the
+/// other methods get the word back).
+pub const MAX_TERMS: usize = 200_000;
+/// Live terms allowed with `--engine algebra` alone.
+pub const MAX_TERMS_ALONE: usize = 2_000_000;
+/// Wall-clock time one word may take in the portfolio (the run's own deadline still applies).
+pub const WORD_SECONDS: u64 = 10;
+
+/// The output pairs grouped by the reference side's bus, each least significant bit first;
+/// scalar outputs are words of one bit. In order of each word's first pair.
+pub(crate) fn output_buses(r: &Design, _c: &Design, shared: &Shared) -> Vec<Vec<usize>> {
+    let mut by_port: BTreeMap<&str, Vec<(i64, usize)>> = BTreeMap::new();
+    let mut scalars = Vec::new();
+    for (p, &(ri, _)) in shared.pairs.iter().enumerate() {
+        let o = &r.outputs[ri];
+        match o.index {
+            Some(i) => by_port.entry(o.port.as_str()).or_default().push((i, p)),
+            None => scalars.push(vec![p]),
+        }
+    }
+    let mut words: Vec<Vec<usize>> = by_port
+        .into_values()
+        .map(|mut bits| {
+            bits.sort_unstable();
+            bits.into_iter().map(|(_, p)| p).collect()
+        })
+        .chain(scalars)
+        .collect();
+    words.sort_by_key(|w| w.iter().min().copied());
+    words
+}
+
+/// AND nodes in the cone of `roots` and how many of them root an XOR or XNOR of two literals.
+fn xor_count(aig: &Aig, roots: &[Lit]) -> (usize, usize) {
+    let mask = aig.cone_mask(roots);
+    let (mut ands, mut xors) = (0, 0);
+    for (i, &m) in mask.iter().enumerate() {
+        if !m {
+            continue;
+        }
+        if let Node::And(a, b) = aig.node(i as u32) {
+            ands += 1;
+            if a.is_complemented() && b.is_complemented() {
+                if let (Node::And(x, y), Node::And(u, v)) = (aig.node(a.node()), aig.node(b.node()))
+                {
+                    if (x == !u && y == !v) || (x == !v && y == !u) {
+                        xors += 1;
+                    }
+                }
+            }
+        }
+    }
+    (ands, xors)
+}
+
+/// The algebraic stage: every word with an open bit that qualifies (see the module docs).
+pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
+    let mut is_open = vec![false; cx.pairs.len()];
+    for &p in open {
+        is_open[p] = true;
+    }
+    let mut out = StageOutput::default();
+    for word in cx.buses {
+        if !word.iter().any(|&p| is_open[p]) {
+            continue;
+        }
+        if cx.limits.expired() {
+            break;
+        }
+        let t = Instant::now();
+        let rl: Vec<Lit> = word.iter().map(|&p| cx.pairs[p].reference).collect();
+        let cl: Vec<Lit> = word.iter().map(|&p| cx.pairs[p].candidate).collect();
+        if cx.arithmetic_only {
+            if word.len() < MIN_BITS {
+                continue;
+            }
+            let roots: Vec<Lit> = rl.iter().chain(&cl).copied().collect();
+            let (ands, xors) = xor_count(cx.aig, &roots);
+            if ands > MAX_CONE || xors * MIN_XOR_SHARE < ands {
+                continue;
+            }
+        }
+        let prepared = Prepared::new(cx.aig, &rl, &cl);
+        if cx.arithmetic_only && !prepared.looks_arithmetic() {
+            continue;
+        }
+        let mut deadline = cx.limits.remaining().map(|r| Instant::now() + r);
+        if cx.arithmetic_only {
+            let cap = Instant::now() + Duration::from_secs(WORD_SECONDS);
+            deadline = Some(deadline.map_or(cap, |d| d.min(cap)));
+        }
+        let limits = Limits {
+            max_terms: if cx.arithmetic_only {
+                MAX_TERMS
+            } else {
+                MAX_TERMS_ALONE
+            },
+            deadline,
+        };
+        let check = prepared.check(&limits);
+        let mut decided = 0;
+        let mut stop = None;
+        for (&p, v) in word.iter().zip(&check.bits) {
+            if !is_open[p] {
+                continue;
+            }
+            let f = match v {
+                BitVerdict::Equal => Finding::Equal(Method::Algebra),
+                BitVerdict::Differ(values)
+                    if cx.constraint == Lit::TRUE || eval(cx.aig, values, &[cx.constraint])[0] =>
+                {
+                    Finding::Differ(Method::Algebra, values.clone())
+                }
+                BitVerdict::Differ(_) => continue,
+                BitVerdict::Undecided(s) => {
+                    stop.get_or_insert_with(|| s.clone());
+                    continue;
+                }
+            };
+            decided += 1;
+            out.findings.push((p, f));
+        }
+        cx.progress.outputs_done(decided);
+        let s = &check.stats;
+        let mut note = format!(
+            "{}-bit word: {} units ({} adder cells, {} XORs), {} steps, peak {} terms",
+            word.len(),
+            s.units,
+            s.adder_cells,
+            s.xors,
+            s.steps,
+            s.peak_terms
+        );
+        if s.remainder_terms > 0 {
+            note += &format!(", remainder of {} terms", s.remainder_terms);
+        }
+        match stop {
+            Some(Stop::TermBudget(k)) => note += &format!("; stopped past {k} terms"),
+            Some(Stop::Timeout) => note += "; stopped by the time limit",
+            Some(Stop::AboveDifference(t)) => {
+                note += &format!("; bits above the first difference (bit {t}) left open")
+            }
+            Some(Stop::Inconsistent) => note += "; a vector did not re-simulate, nothing claimed",
+            None => {}
+        }
+        out.groups.push(GroupRecord {
+            method: Stage::Algebra,
+            pairs: {
+                let mut ps = word.clone();
+                ps.sort_unstable();
+                ps
+            },
+            decided,
+            seconds: t.elapsed().as_secs_f64(),
+            note,
+        });
+    }
+    Ok(out)
+}

@@ -54,7 +54,7 @@ pub enum Command {
     /// Run the built-in demo: the Tidewater 7 buoy's sensor selector, proved, broken and audited.
     Demo(demo::DemoArgs),
     /// Prove CAND equivalent to REF for every input, or give a checked counterexample.
-    Prove(prove::ProveArgs),
+    Prove(Box<prove::ProveArgs>),
     /// Evaluate a design's outputs for one input vector.
     Eval(eval::EvalArgs),
     /// Write the miter of REF and CAND as DIMACS CNF for an external solver.

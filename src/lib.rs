@@ -27,6 +27,7 @@ pub mod rng;
 pub mod routes;
 pub mod sat;
 pub mod seq;
+pub mod shard;
 
 pub use aig::{Aig, Lit};
 pub use design::{Design, Format, InputBit, OutputBit};

@@ -410,3 +410,137 @@ mod demo {
         assert!(dir.join("t7_sensor_sel_spec.v").is_file());
     }
 }
+
+mod shards {
+    use super::*;
+    use serde_json::Value;
+
+    fn json(path: &Path) -> Value {
+        serde_json::from_str(&std::fs::read_to_string(path).unwrap()).unwrap()
+    }
+
+    /// Run `prove ARGS --shard k/n` for every k, merge the parts, and compare with one run.
+    fn merged_equals_one_run(args: &[&str], n: usize, tag: &str) {
+        let mut parts = Vec::new();
+        for k in 1..=n {
+            let part = tmp(&format!("{tag}-{k}.json"));
+            let shard = format!("{k}/{n}");
+            let mut a = args.to_vec();
+            a.extend(["--shard", &shard, "--report", part.to_str().unwrap()]);
+            let o = equicone(&a);
+            assert!([0, 1].contains(&code(&o)), "{tag} {shard}: {}", stdout(&o));
+            parts.push(part);
+        }
+        let whole = tmp(&format!("{tag}-whole.json"));
+        let mut m = vec!["merge", "--report", whole.to_str().unwrap()];
+        // Any order of the parts.
+        m.extend(parts.iter().rev().map(|p| p.to_str().unwrap()));
+        let merged = equicone(&m);
+        let mut a = args.to_vec();
+        a.push("--json");
+        let one = equicone(&a);
+        assert_eq!(code(&merged), code(&one), "{tag}: {}", stdout(&merged));
+        let (w, o) = (
+            json(&whole),
+            serde_json::from_slice::<Value>(&one.stdout).unwrap(),
+        );
+        assert_eq!(w["verdict"], o["verdict"], "{tag}");
+        let (wp, op) = (
+            w["pairs"].as_array().unwrap(),
+            o["pairs"].as_array().unwrap(),
+        );
+        assert_eq!(wp.len(), op.len(), "{tag}");
+        let cexs = w["counterexamples"].as_array().unwrap();
+        for (x, y) in wp.iter().zip(op) {
+            for f in ["reference", "candidate", "status"] {
+                assert_eq!(x[f], y[f], "{tag}: {x} against {y}");
+            }
+            if let Some(k) = x["counterexample"].as_u64() {
+                let c = &cexs[k as usize];
+                let names: Vec<&Value> = c["differing"]
+                    .as_array()
+                    .unwrap()
+                    .iter()
+                    .map(|d| &d["reference"])
+                    .collect();
+                assert!(names.contains(&&x["reference"]), "{tag}: {x} -> {c}");
+            }
+        }
+        assert!(w.get("shard").is_none());
+        assert_eq!(w["merged_shards"], n);
+    }
+
+    #[test]
+    fn merged_partial_runs_equal_one_run() {
+        let (r, c) = (tmp("shard-ref.bench"), tmp("shard-bug.bench"));
+        for (file, style, bug) in [(&r, "ripple", None), (&c, "kogge-stone", Some("invert"))] {
+            let mut a = vec![
+                "gen", "adder", "--n", "12", "--style", style, "--format", "bench",
+            ];
+            a.extend(["-o", file.to_str().unwrap()]);
+            if let Some(b) = bug {
+                a.extend(["--bug", b, "--seed", "3"]);
+            }
+            assert_eq!(code(&equicone(&a)), 0);
+        }
+        let (rs, cs) = (r.to_str().unwrap(), c.to_str().unwrap());
+        merged_equals_one_run(&["prove", rs, cs], 4, "adder-bug");
+        // One pair, two shards: the second shard decides nothing.
+        merged_equals_one_run(
+            &[
+                "prove",
+                "bench-circuits/examples/mux4_spec.bench",
+                "bench-circuits/examples/mux4_tree.bench",
+            ],
+            2,
+            "mux4",
+        );
+        // The published fact (SOURCE.md of the shared data): c499 and c1355 are equivalent.
+        if let Some(dir) = oracle::iscas_dir() {
+            let (a, b) = (dir.join("c499.bench"), dir.join("c1355.bench"));
+            let args = [
+                "prove",
+                a.to_str().unwrap(),
+                b.to_str().unwrap(),
+                "--pair-by",
+                "position",
+            ];
+            merged_equals_one_run(&args, 3, "c499");
+        }
+    }
+
+    #[test]
+    fn merge_refuses_parts_that_do_not_make_one_run() {
+        let spec = "bench-circuits/examples/mux4_spec.bench";
+        let tree = "bench-circuits/examples/mux4_tree.bench";
+        let part = |k: &str, seed: &str, name: &str| {
+            let p = tmp(name);
+            let o = equicone(&[
+                "prove",
+                spec,
+                tree,
+                "--shard",
+                k,
+                "--seed",
+                seed,
+                "--report",
+                p.to_str().unwrap(),
+            ]);
+            assert_eq!(code(&o), 0, "{}", stdout(&o));
+            p.to_str().unwrap().to_string()
+        };
+        let a = part("1/2", "1", "refuse-1.json");
+        let b = part("2/2", "1", "refuse-2.json");
+        let b_seed = part("2/2", "9", "refuse-2-seed.json");
+        let err = |args: &[&str]| {
+            let o = equicone(args);
+            assert_eq!(code(&o), 2, "{}", stdout(&o));
+            String::from_utf8_lossy(&o.stderr).into_owned()
+        };
+        assert!(err(&["merge", &a]).contains("shards missing: 2/2"));
+        assert!(err(&["merge", &a, &a, &b]).contains("again"));
+        assert!(err(&["merge", &a, &b_seed]).contains("other options"));
+        assert!(err(&["prove", spec, tree, "--shard", "3/2"]).contains("K/N"));
+        assert_eq!(code(&equicone(&["merge", &a, &b])), 0);
+    }
+}

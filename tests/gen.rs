@@ -11,6 +11,8 @@ mod support;
 
 #[path = "gen/arith.rs"]
 mod arith;
+#[path = "gen/families.rs"]
+mod families;
 #[path = "gen/kinds.rs"]
 mod kinds;
 #[path = "gen/misc.rs"]
@@ -19,8 +21,12 @@ mod misc;
 mod mult_family;
 #[path = "gen/mutants.rs"]
 mod mutants;
+#[path = "oracle/mod.rs"]
+mod oracle;
 #[path = "gen/random_circuits.rs"]
 mod random_circuits;
+#[path = "gen/remap.rs"]
+mod remap;
 #[path = "gen/selectors.rs"]
 mod selectors;
 #[path = "gen/verilog.rs"]

@@ -21,6 +21,7 @@ use crate::diagnose::{self, Diagnosis};
 use crate::engine::{self, ProveOptions, ProveReport, Shared, Verdict};
 use crate::explain::{cubes::CubeLimits, Explanation};
 use crate::sat::Limits;
+use crate::shard::{Shard, ShardStamp};
 use serde::Serialize;
 
 /// What to diagnose when output pairs differ.
@@ -98,6 +99,9 @@ pub struct CheckOutcome {
     /// The paired graph the proof ran on, assumptions built in (when asked for).
     #[serde(skip)]
     pub pairing: Option<Shared>,
+    /// For a shard of a split run ([`check_shard`]): which output pairs it decided.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub shard: Option<ShardStamp>,
 }
 
 impl CheckOutcome {
@@ -144,6 +148,15 @@ impl std::fmt::Display for CheckError {
 /// Run one comparison: pair, build the assumptions in, prove, then diagnose a difference and
 /// certify the equivalent pairs as the request asks.
 pub fn check(req: &CheckRequest<'_>) -> Result<CheckOutcome, CheckError> {
+    check_shard(req, None)
+}
+
+/// As [`check`], deciding only the output pairs of `shard` (all when `None`); the outcome's
+/// stamp lists them (its fingerprints are left empty for the caller, who has the files).
+pub fn check_shard(
+    req: &CheckRequest<'_>,
+    shard: Option<Shard>,
+) -> Result<CheckOutcome, CheckError> {
     let (r, c) = (req.reference, req.candidate);
     if is_clocked(req) {
         return Err(CheckError::Input(InputError::plain(
@@ -156,6 +169,7 @@ pub fn check(req: &CheckRequest<'_>) -> Result<CheckOutcome, CheckError> {
     let deadline = Limits::new(opts.timeout, None);
     let mut shared = engine::pair(r, c, opts.pair_by, opts.free_extra_inputs)?;
     crate::assume::apply_to_shared(&mut shared, r, &req.assumptions)?;
+    let stamp = shard.map(|s| crate::shard::restrict(&mut shared, s));
     let kept = (req.certificate.is_some() || req.explain.is_some() || req.keep_pairing)
         .then(|| shared.clone());
     let report = engine::prove_shared(r, c, shared, &req.assumptions, opts)?;
@@ -216,6 +230,7 @@ pub fn check(req: &CheckRequest<'_>) -> Result<CheckOutcome, CheckError> {
         select_missing,
         explanation,
         pairing: if req.keep_pairing { kept } else { None },
+        shard: stamp,
     })
 }
 

@@ -11,10 +11,21 @@ pub struct GenArgs {
     /// What to generate.
     #[arg(value_enum)]
     kind: Kind,
+    /// `remap` only: the design file to rewrite (bench or Verilog).
+    #[arg(value_name = "DESIGN")]
+    design: Option<String>,
     /// Size: channels of a selector, select bits of a decoder, requests of a priority encoder,
-    /// bits of a shifter, adder or multiplier operand, gates of a random circuit.
+    /// bits of a shifter, adder or multiplier operand, gates of a random circuit, inputs of a
+    /// popcount or majority, operand bits of a comparator or divider, root bits of a square
+    /// root, requesters of an arbiter.
     #[arg(long)]
-    n: usize,
+    n: Option<usize>,
+    /// `remap` only: inputs per lookup function (2 to 6).
+    #[arg(long, default_value_t = 6)]
+    k: usize,
+    /// `remap` only: the Verilog preprocessor's options for reading DESIGN.
+    #[command(flatten)]
+    pre: super::common::PreprocArgs,
     /// How to build it (default: the kind's first style, the one-line spec where there is one).
     #[arg(long, value_enum)]
     style: Option<Style>,
@@ -53,10 +64,30 @@ pub struct GenArgs {
 
 /// Run `gen`.
 pub fn run(a: &GenArgs) -> Exit {
+    if a.kind == Kind::Remap {
+        return super::remap::run(
+            a.design.as_deref(),
+            a.k,
+            &a.pre,
+            (a.module.as_deref(), a.format, a.output.as_deref()),
+        );
+    }
+    let Some(n) = a.n else {
+        return report_input_error(&crate::diag::InputError::plain(
+            format!("gen {} needs a size", a.kind.name()),
+            "give --n (see `equicone gen --help` for what it counts)",
+        ));
+    };
+    if a.design.is_some() {
+        return report_input_error(&crate::diag::InputError::plain(
+            format!("gen {} takes no design file", a.kind.name()),
+            "only `gen remap DESIGN` reads a design; leave the file name out",
+        ));
+    }
     let spec = GenSpec {
         kind: a.kind,
         style: a.style.unwrap_or(a.kind.styles()[0]),
-        n: a.n,
+        n,
         width: a.width,
         inputs: a.inputs,
         seed: a.seed,

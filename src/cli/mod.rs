@@ -13,7 +13,9 @@ mod demo;
 mod eval;
 mod eval_trace;
 mod gen;
+mod merge;
 mod prove;
+mod remap;
 mod replay;
 mod routes;
 
@@ -52,20 +54,24 @@ pub enum Command {
     /// Run the built-in demo: the Tidewater 7 buoy's sensor selector, proved, broken and audited.
     Demo(demo::DemoArgs),
     /// Prove CAND equivalent to REF for every input, or give a checked counterexample.
-    Prove(prove::ProveArgs),
+    Prove(Box<prove::ProveArgs>),
     /// Evaluate a design's outputs for one input vector.
     Eval(eval::EvalArgs),
     /// Write the miter of REF and CAND as DIMACS CNF for an external solver.
     Cnf(prove::CnfArgs),
     /// For each value of a select bus, show which data input each output follows (proved by SAT).
     Routes(routes::RoutesArgs),
-    /// Write a generated circuit: selectors, decoders, priority encoders, shifters, adders,
-    /// multipliers, random circuits; optionally with a planted bug.
+    /// Write a generated circuit (selectors, decoders, priority encoders, shifters, adders,
+    /// multipliers, popcounts, majorities, comparators, dividers, square roots, arbiters, random
+    /// circuits; optionally with a planted bug), or `gen remap DESIGN --k K`: a design rewritten
+    /// into K-input lookup functions.
     Gen(gen::GenArgs),
     /// Audit each output's structural cone against its exact support; flag redundant inputs.
     Cone(cone::ConeArgs),
     /// Gate counts, cost, delay and depth, with the lower bounds each output's support implies.
     Stats(cone::StatsArgs),
+    /// Merge the partial reports of `prove --shard K/N` runs into the whole report.
+    Merge(merge::MergeArgs),
 }
 
 /// Run a parsed command line and return its exit code.
@@ -79,5 +85,6 @@ pub fn run(cli: Cli) -> Exit {
         Command::Gen(a) => gen::run(&a),
         Command::Cone(a) => cone::run_cone(&a),
         Command::Stats(a) => cone::run_stats(&a),
+        Command::Merge(a) => merge::run(&a),
     }
 }

@@ -219,6 +219,10 @@ pub struct ProveArgs {
     /// the ISCAS-89 circuits).
     #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
     init_unset: super::clocked::InitUnsetArg,
+    /// Decide only shard K of N (output pairs i with i mod N = K-1) and write a partial report;
+    /// `equicone merge` joins the N partial reports into the whole.
+    #[arg(long, value_name = "K/N")]
+    shard: Option<String>,
 }
 
 /// Options of `cnf`.
@@ -253,6 +257,12 @@ pub fn run(a: &ProveArgs) -> Exit {
         Err(e) => return e,
     };
     if r.is_clocked() || c.is_clocked() {
+        if a.shard.is_some() {
+            return report_input_error(&crate::diag::InputError::plain(
+                "--shard splits the output pairs of combinational designs; these have registers",
+                "leave out --shard for clocked designs",
+            ));
+        }
         if a.replay.explain || a.replay.wanted() {
             eprintln!("note: --explain, --vcd and --testbench cover combinational designs only; nothing of theirs is written for clocked designs");
         }
@@ -281,8 +291,22 @@ pub fn run(a: &ProveArgs) -> Exit {
         explain: a.replay.cube_limits(),
         keep_pairing: a.replay.wanted(),
     };
-    let out = match check::check(&req) {
-        Ok(out) => out,
+    let shard = match a
+        .shard
+        .as_deref()
+        .map(crate::shard::Shard::parse)
+        .transpose()
+    {
+        Ok(s) => s,
+        Err(e) => return report_input_error(&e),
+    };
+    let out = match check::check_shard(&req, shard) {
+        Ok(mut out) => {
+            if let Some(stamp) = &mut out.shard {
+                stamp_run(stamp, a);
+            }
+            out
+        }
         Err(CheckError::Input(e)) => return report_input_error(&e),
         Err(CheckError::Internal(m)) => return report_internal(&m),
     };
@@ -417,4 +441,37 @@ fn write_proof(cert: &Result<Certificate, NoCertificate>, path: &str) -> Result<
             "the separately encoded miter is satisfiable although the engine proved the pairs equal; no claim is made",
         )),
     }
+}
+
+/// Fill a partial report's fingerprints: the input files' contents, and the options that can
+/// change a verdict (not the time limit or the thread count).
+fn stamp_run(stamp: &mut crate::shard::ShardStamp, a: &ProveArgs) {
+    let p = &a.pair;
+    let files: Vec<String> = std::iter::once(&p.reference)
+        .chain(&p.ref_also)
+        .chain(std::iter::once(&p.candidate))
+        .chain(&p.cand_also)
+        .cloned()
+        .collect();
+    let contents: Vec<Vec<u8>> = files
+        .iter()
+        .map(|f| std::fs::read(f).unwrap_or_default())
+        .collect();
+    stamp.inputs = crate::shard::fingerprint(contents.iter().map(Vec::as_slice));
+    let options = format!(
+        "{:?}|{:?}|{:?}|{:?}|{:?}|{:?}|{}|{:?}|{}|{:?}|{:?}|{}",
+        p.format,
+        p.ref_format,
+        p.cand_format,
+        p.ref_top,
+        p.cand_top,
+        p.pair_by,
+        p.free_extra_inputs,
+        a.engine,
+        a.limits.seed,
+        a.limits.conflict_limit,
+        a.assume,
+        p.ref_also.len()
+    );
+    stamp.options = crate::shard::fingerprint([options.as_bytes()]);
 }

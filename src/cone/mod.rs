@@ -14,6 +14,7 @@ pub mod dot;
 pub mod expect;
 mod flip;
 pub mod names;
+mod pattern;
 pub mod report;
 pub mod structural;
 pub mod support;

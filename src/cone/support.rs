@@ -2,16 +2,20 @@
 //! a decided claim with its evidence.
 //!
 //! Order of work: (1) inputs without a path in the AIG are independent at once; (2) rounds of
-//! random flip simulation prove most "depends" claims with a pattern pair; (3) the rest go to
-//! SAT, one incremental solver per output, one query per claim on the cofactor miter
-//! `f|x=0 XOR f|x=1` built in a shared copy of the AIG (assumed true as the query's
-//! activation literal: UNSAT proves independence, a model is a pattern pair); (4) every SAT
-//! model is replayed by flip simulation on the claims still open. A query stopped by a limit
-//! leaves its claim undecided; nothing is guessed.
+//! flip simulation prove most "depends" claims with a pattern pair: one round of uniform random
+//! patterns, then rounds of mixed-density patterns (`pattern.rs`: sparse and dense vectors
+//! beside uniform ones); (3) the rest go to SAT, one incremental solver per output, one query
+//! per claim on the cofactor miter `f|x=0 XOR f|x=1` built in a shared copy of the AIG
+//! (assumed true as the query's activation literal: UNSAT proves independence, a model is a
+//! pattern pair); (4) every SAT model is replayed at once by flip simulation, with 63
+//! neighbours of it (a walk that flips one to three inputs, control inputs first), on every
+//! claim still open, so one model decides many claims. A query stopped by a limit leaves its
+//! claim undecided; nothing is guessed.
 
 use super::bits::Bits;
 use super::cofactor::Cofactorer;
 use super::flip::{Fanout, FlipSim};
+use super::pattern::{mixed_density, walk, WalkInputs};
 use crate::aig::{eval, random_words, Lit};
 use crate::cnf::Tseitin;
 use crate::design::Design;
@@ -34,7 +38,7 @@ impl Default for SupportOptions {
     fn default() -> Self {
         SupportOptions {
             seed: 1,
-            max_rounds: 16,
+            max_rounds: 64,
             progress: false,
         }
     }
@@ -309,7 +313,11 @@ impl<'a> Engine<'a> {
                 .seed
                 .wrapping_mul(0x1000_0000_0000)
                 .wrapping_add(round as u64);
-            let ins = random_words(aig.num_inputs(), words, seed);
+            let ins = if round == 0 {
+                random_words(aig.num_inputs(), words, seed)
+            } else {
+                mixed_density(aig.num_inputs(), words, seed)
+            };
             self.stats.simulation_rounds += 1;
             self.stats.random_patterns += (words * 64) as u64;
             if self.simulate_block(ins, DependsBy::RandomSimulation) == 0 {
@@ -368,6 +376,7 @@ impl<'a> Engine<'a> {
         let mut work = aig.clone();
         let mut cof = Cofactorer::new(aig.len());
         let mut pool: Vec<Bits> = Vec::new();
+        let mut walks = 0u64;
         for pos in 0..self.outputs.len() {
             let todo: Vec<usize> = (0..self.claims[pos].len())
                 .filter(|&ci| self.claims[pos][ci].is_none())
@@ -379,7 +388,11 @@ impl<'a> Engine<'a> {
             let mask = aig.cone_mask(&[root]);
             let mut sat = Sat::new(self.limits);
             let mut ts = Tseitin::new();
+            let cands = WalkInputs::new(aig, &self.fanout, &self.cones[pos]);
             for ci in todo {
+                if self.claims[pos][ci].is_some() {
+                    continue; // decided by a walk from an earlier model
+                }
                 let x = self.cones[pos][ci];
                 let m = if self.limits.expired() {
                     Membership::Undecided(StopReason::Timeout)
@@ -397,12 +410,16 @@ impl<'a> Engine<'a> {
                 }
                 self.claims[pos][ci] = Some(m);
                 self.bar.inc(1);
+                if let Some(model) = pool.pop() {
+                    if self.any_open() {
+                        walks += 1;
+                        let ins = walk(&model, &cands, walks);
+                        self.stats.replayed_patterns += 64;
+                        self.simulate_block(ins, DependsBy::ReplayedSimulation);
+                    }
+                }
             }
             self.stats.sat.add(&sat.stats());
-            if !pool.is_empty() && self.any_later_open(pos) {
-                self.replay(&mut pool);
-            }
-            pool.clear();
         }
     }
 
@@ -448,27 +465,6 @@ impl<'a> Engine<'a> {
                     by: DependsBy::Sat,
                 }
             }
-        }
-    }
-
-    fn any_later_open(&self, pos: usize) -> bool {
-        self.claims[pos + 1..]
-            .iter()
-            .any(|c| c.iter().any(|s| s.is_none()))
-    }
-
-    /// Flip simulation on the SAT models in `pool`, 64 per word, padded with random patterns.
-    fn replay(&mut self, pool: &mut [Bits]) {
-        for (w, chunk) in pool.chunks(64).enumerate() {
-            let n = self.design.aig.num_inputs();
-            let mut ins = random_words(n, 1, 0xC0FF_EE00 + w as u64);
-            for (p, vector) in chunk.iter().enumerate() {
-                for (k, row) in ins.iter_mut().enumerate() {
-                    row[0] = (row[0] & !(1u64 << p)) | ((vector.get(k) as u64) << p);
-                }
-            }
-            self.stats.replayed_patterns += chunk.len() as u64;
-            self.simulate_block(ins, DependsBy::ReplayedSimulation);
         }
     }
 

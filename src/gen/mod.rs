@@ -16,6 +16,16 @@
 //! | mac | operand bits n >= 2 | `a[n-1:0]`, `b[n-1:0]`, `c[2n-1:0]` | `p[2n-1:0]` = a * b + c (modulo 2^2n) |
 //! | squarer | operand bits n >= 2 | `a[n-1:0]` | `p[2n-1:0]` = a * a |
 //! | random | gates | `x[I-1:0]` (`--inputs` I) | `y[..]`: every gate without fan-out |
+//! | popcount | inputs n >= 2 | `x[n-1:0]` | `y[K-1:0]` = number of ones, K = ceil(log2(n+1)) |
+//! | majority | inputs n >= 3 | `x[n-1:0]` | `y` = at least n/2+1 inputs are 1 |
+//! | recursive-majority | inputs n = 3^L | `x[n-1:0]` | `y`: majority of three, level by level |
+//! | comparator | operand bits n >= 1 | `a[n-1:0]`, `b[n-1:0]` | `lt`, `eq`, `gt` (unsigned) |
+//! | divider | operand bits n >= 2 | `a[n-1:0]`, `b[n-1:0]` | `q[n-1:0]` = a / b, `r[n-1:0]` = a % b (b = 0: q all ones, r = a) |
+//! | sqrt | root bits n >= 1 | `a[2n-1:0]` | `s[n-1:0]` = floor(sqrt(a)), `r[n:0]` = a - s*s |
+//! | arbiter | requesters n >= 2 | `r[n-1:0]`, `p[n-1:0]` | `g[n-1:0]` grants (round robin from the pointer), `v` |
+//!
+//! `remap` is not built from a size: `equicone gen remap DESIGN --k K` rewrites a design
+//! ([`remap::remap`]).
 //!
 //! A selector whose N is not a power of two leaves select values N..2^K-1 out of range: the
 //! spec reads x there (IEEE 1364-2005), gate-level styles give whatever their structure gives,
@@ -28,10 +38,15 @@
 
 pub mod emit;
 pub mod mutate;
+pub mod remap;
 pub mod set;
 
+mod arbiter;
 mod arith;
+mod count;
 mod decoder;
+mod divide;
+mod fold;
 pub mod mult;
 mod random;
 mod selector;
@@ -62,6 +77,22 @@ pub enum Kind {
     Squarer,
     /// Random gate-level circuit (and its locally rewritten copy).
     Random,
+    /// Population count (number of ones).
+    Popcount,
+    /// Majority of n inputs.
+    Majority,
+    /// Recursive majority of three (n a power of 3).
+    RecursiveMajority,
+    /// Unsigned magnitude comparator (lt, eq, gt).
+    Comparator,
+    /// Unsigned divider (quotient and remainder).
+    Divider,
+    /// Integer square root (root and remainder).
+    Sqrt,
+    /// Round-robin arbiter.
+    Arbiter,
+    /// K-input lookup-function rewrite of a design file (`gen remap DESIGN --k K`).
+    Remap,
 }
 
 impl Kind {
@@ -77,6 +108,14 @@ impl Kind {
             Kind::Mac => "mac",
             Kind::Squarer => "squarer",
             Kind::Random => "random",
+            Kind::Popcount => "popcount",
+            Kind::Majority => "majority",
+            Kind::RecursiveMajority => "recursive-majority",
+            Kind::Comparator => "comparator",
+            Kind::Divider => "divider",
+            Kind::Sqrt => "sqrt",
+            Kind::Arbiter => "arbiter",
+            Kind::Remap => "remap",
         }
     }
 
@@ -92,6 +131,14 @@ impl Kind {
             Kind::Multiplier | Kind::Mac => &[Spec, Array, Wallace, Dadda, Booth],
             Kind::Squarer => &[Spec, Array, Wallace, Dadda],
             Kind::Random => &[Plain, Rewritten],
+            Kind::Popcount => &[AdderTree, Csa],
+            Kind::Majority => &[Sorting, AdderTree],
+            Kind::RecursiveMajority => &[Sop, Select],
+            Kind::Comparator => &[Spec, Ripple, Tree],
+            Kind::Divider => &[Restoring, NonRestoring],
+            Kind::Sqrt => &[Restoring, NonRestoring],
+            Kind::Arbiter => &[Chain, KoggeStone],
+            Kind::Remap => &[Plain],
         }
     }
 }
@@ -140,6 +187,20 @@ pub enum Style {
     Plain,
     /// Random: the same circuit after local equivalent rewrites.
     Rewritten,
+    /// Popcount, majority: a balanced tree of ripple-carry adders (majority: then a comparison).
+    AdderTree,
+    /// Popcount: carry-save compression of the weight columns.
+    Csa,
+    /// Majority: Batcher odd-even merge sorting network.
+    Sorting,
+    /// Recursive majority: maj(a, b, c) as a&b | a&c | b&c.
+    Sop,
+    /// Recursive majority: maj(a, b, c) as (a ^ b) ? c : a.
+    Select,
+    /// Divider, square root: restoring digit recurrence.
+    Restoring,
+    /// Divider, square root: non-restoring digit recurrence.
+    NonRestoring,
 }
 
 impl Style {
@@ -165,6 +226,13 @@ impl Style {
             Style::Booth => "booth",
             Style::Plain => "plain",
             Style::Rewritten => "rewritten",
+            Style::AdderTree => "adder-tree",
+            Style::Csa => "csa",
+            Style::Sorting => "sorting",
+            Style::Sop => "sop",
+            Style::Select => "select",
+            Style::Restoring => "restoring",
+            Style::NonRestoring => "non-restoring",
         }
     }
 }
@@ -352,7 +420,7 @@ pub struct GenError {
 }
 
 impl GenError {
-    fn new(message: impl Into<String>, help: impl Into<String>) -> GenError {
+    pub(crate) fn new(message: impl Into<String>, help: impl Into<String>) -> GenError {
         GenError {
             message: message.into(),
             help: help.into(),
@@ -427,6 +495,14 @@ fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenE
             notes
         }
         Kind::Random => random::build(&mut c, spec.n, spec.inputs, spec.style, spec.seed),
+        Kind::Popcount => count::build_popcount(&mut c, spec.n, spec.style),
+        Kind::Majority => count::build_majority(&mut c, spec.n, spec.style),
+        Kind::RecursiveMajority => count::build_recursive_majority(&mut c, spec.n, spec.style),
+        Kind::Comparator => count::build_comparator(&mut c, spec.n, spec.style),
+        Kind::Divider => divide::build_divider(&mut c, spec.n, spec.style),
+        Kind::Sqrt => divide::build_sqrt(&mut c, spec.n, spec.style),
+        Kind::Arbiter => arbiter::build(&mut c, spec.n, spec.style),
+        Kind::Remap => unreachable!("validate refuses remap"),
     };
     c.prune();
     if cfg!(debug_assertions) {
@@ -461,6 +537,12 @@ fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenE
 
 fn validate(spec: &GenSpec) -> Result<(), GenError> {
     let kind = spec.kind.name();
+    if spec.kind == Kind::Remap {
+        return Err(GenError::new(
+            "remap rewrites a design file and has no size",
+            "run `equicone gen remap DESIGN --k 6`",
+        ));
+    }
     if !spec.kind.styles().contains(&spec.style) {
         let names: Vec<&str> = spec.kind.styles().iter().map(|s| s.name()).collect();
         return Err(GenError::new(
@@ -485,6 +567,14 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
         ),
         Kind::Squarer => (2, 256, "a squarer needs an operand of at least 2 bits"),
         Kind::Random => (1, 20_000_000, "a random circuit needs at least 1 gate"),
+        Kind::Popcount => (2, 1 << 16, "a population count needs 2 to 65536 inputs"),
+        Kind::Majority => (3, 1 << 16, "a majority needs 3 to 65536 inputs"),
+        Kind::RecursiveMajority => (3, 19683, "a recursive majority needs 3 to 3^9 inputs"),
+        Kind::Comparator => (1, 1 << 16, "a comparator needs operands of at least 1 bit"),
+        Kind::Divider => (2, 256, "a divider needs operands of 2 to 256 bits"),
+        Kind::Sqrt => (1, 128, "a square root needs 1 to 128 root bits"),
+        Kind::Arbiter => (2, 1 << 14, "an arbiter needs 2 to 16384 requesters"),
+        Kind::Remap => unreachable!("handled above"),
     };
     if spec.n > max {
         return Err(GenError::new(
@@ -496,6 +586,15 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
         return Err(GenError::new(
             format!("{what} (got --n {})", spec.n),
             format!("give --n between {min} and {max} for kind {kind}"),
+        ));
+    }
+    if spec.kind == Kind::RecursiveMajority && !is_power_of_three(spec.n) {
+        return Err(GenError::new(
+            format!(
+                "a recursive majority needs a power of 3 inputs (got --n {})",
+                spec.n
+            ),
+            "give --n 3, 9, 27, 81, 243, 729, 2187, 6561 or 19683",
         ));
     }
     if spec.width == 0 {
@@ -604,6 +703,13 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
         }
     }
     Ok(())
+}
+
+fn is_power_of_three(mut n: usize) -> bool {
+    while n > 1 && n.is_multiple_of(3) {
+        n /= 3;
+    }
+    n == 1
 }
 
 /// ceil(log2 n) for n >= 1.

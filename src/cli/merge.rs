@@ -1,0 +1,75 @@
+//! `equicone merge PART...`: check that partial reports of `prove --shard K/N` belong to the same
+//! run and cover every output pair once, then write the whole report.
+
+use super::common::{print, report_input_error, write_atomic};
+use super::Exit;
+use crate::diag::InputError;
+use crate::front::read_text;
+use clap::Args;
+
+/// Options of `merge`.
+#[derive(Args, Debug)]
+pub struct MergeArgs {
+    /// The partial reports (JSON files written by `prove --shard K/N --report FILE`), any order.
+    #[arg(value_name = "PART", required = true)]
+    parts: Vec<String>,
+    /// Write the whole JSON report to this file (atomically).
+    #[arg(long = "report", value_name = "FILE")]
+    report: Option<String>,
+    /// Print the whole JSON report on standard output.
+    #[arg(long)]
+    json: bool,
+}
+
+/// Run `merge`.
+pub fn run(a: &MergeArgs) -> Exit {
+    let mut parts = Vec::with_capacity(a.parts.len());
+    for p in &a.parts {
+        let text = match read_text(p) {
+            Ok(t) => t,
+            Err(e) => return report_input_error(&e),
+        };
+        let v: serde_json::Value =
+            match serde_json::from_str(&text) {
+                Ok(v) => v,
+                Err(e) => return report_input_error(&InputError::plain(
+                    format!("{p}:{}:{}: not JSON: {e}", e.line(), e.column()),
+                    "give the JSON partial reports that `prove --shard K/N --report FILE` wrote",
+                )),
+            };
+        parts.push((p.clone(), v));
+    }
+    let whole = match crate::shard::merge_prove(&parts) {
+        Ok(w) => w,
+        Err(e) => return report_input_error(&e),
+    };
+    let text = serde_json::to_string_pretty(&whole).expect("JSON serializes") + "\n";
+    if let Some(path) = &a.report {
+        if let Err(e) = write_atomic(path, text.as_bytes()) {
+            return report_input_error(&e);
+        }
+    }
+    let verdict = whole["verdict"].as_str().unwrap_or("undecided");
+    if a.json {
+        print(&text);
+    } else {
+        let count = |w: &str| {
+            whole["pairs"]
+                .as_array()
+                .map_or(0, |ps| ps.iter().filter(|p| p["status"] == w).count())
+        };
+        print(&format!(
+            "verdict     {} (merged {} shards: {} equivalent, {} different, {} undecided output pairs)\n",
+            verdict.to_uppercase(),
+            a.parts.len(),
+            count("equivalent"),
+            count("different"),
+            count("undecided")
+        ));
+    }
+    match verdict {
+        "equivalent" => Exit::Ok,
+        "different" => Exit::Flagged,
+        _ => Exit::Undecided,
+    }
+}

@@ -1,0 +1,172 @@
+//! Structured input patterns for the "depends" claims of the cone audit, where uniform random
+//! patterns rarely sensitize an output to an input: patterns of mixed density (the even lanes
+//! of a word stay uniform, each odd lane draws its bits with its own probability, from 1/128 to
+//! 127/128, so sparse and dense vectors sit beside uniform ones), and walks from a SAT model (lane 0 the model, the
+//! other lanes the model with one to three inputs flipped, favouring the inputs with a large
+//! fan-out, the control inputs such as select lines).
+
+use super::bits::Bits;
+use super::flip::Fanout;
+use crate::aig::Aig;
+
+/// The generators' stream of 64-bit numbers (SplitMix64).
+struct Stream(u64);
+
+impl Stream {
+    fn next(&mut self) -> u64 {
+        self.0 = self.0.wrapping_add(0x9E37_79B9_7F4A_7C15);
+        let mut z = self.0;
+        z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
+        z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
+        z ^ (z >> 31)
+    }
+
+    fn below(&mut self, n: usize) -> usize {
+        (self.next() % n.max(1) as u64) as usize
+    }
+}
+
+/// Lane masks of the density levels: even lanes are level 0 (uniform), odd lane `l` is level
+/// `(l / 2) % 16`.
+fn level_mask(level: usize) -> u64 {
+    (0..64)
+        .filter(|l| {
+            if l % 2 == 0 {
+                level == 0
+            } else {
+                (l / 2) % 16 == level
+            }
+        })
+        .fold(0u64, |m, l| m | 1 << l)
+}
+
+/// `words` words per input of mixed-density patterns: lanes of level 0 and 8 are uniform,
+/// levels 1..=7 have ones with probability 2^-level, levels 9..=15 zeros with 2^-(level-8).
+pub(crate) fn mixed_density(inputs: usize, words: usize, seed: u64) -> Vec<Vec<u64>> {
+    let mut s = Stream(seed ^ 0xD1B5_4A32_D192_ED03);
+    let masks: Vec<u64> = (0..16).map(level_mask).collect();
+    (0..inputs)
+        .map(|_| {
+            (0..words)
+                .map(|_| {
+                    let mut w = s.next() & (masks[0] | masks[8]);
+                    let (mut and, mut or) = (!0u64, 0u64);
+                    for k in 1..8 {
+                        let r = s.next();
+                        and &= r;
+                        or |= s.next();
+                        w |= and & masks[k];
+                        w |= or & masks[8 + k];
+                    }
+                    w
+                })
+                .collect()
+        })
+        .collect()
+}
+
+/// Flip candidates of one output's cone for walks: every cone input, and separately the
+/// control-like ones (fan-out at least four times the cone's median and at most half of them).
+pub(crate) struct WalkInputs {
+    all: Vec<usize>,
+    control: Vec<usize>,
+}
+
+impl WalkInputs {
+    /// Candidates among `cone` (design input indices).
+    pub(crate) fn new(aig: &Aig, fanout: &Fanout, cone: &[usize]) -> WalkInputs {
+        let fo: Vec<usize> = cone
+            .iter()
+            .map(|&k| fanout.of(aig.inputs()[k] as usize).len())
+            .collect();
+        let mut sorted = fo.clone();
+        sorted.sort_unstable();
+        let median = sorted.get(sorted.len() / 2).copied().unwrap_or(0);
+        let control: Vec<usize> = cone
+            .iter()
+            .zip(&fo)
+            .filter(|(_, &f)| f >= 4 * median.max(1))
+            .map(|(&k, _)| k)
+            .collect();
+        let control = if control.len() * 2 <= cone.len() {
+            control
+        } else {
+            Vec::new()
+        };
+        WalkInputs {
+            all: cone.to_vec(),
+            control,
+        }
+    }
+}
+
+/// One word per input: lane 0 is `model`, lanes 1..63 are `model` with one to three inputs
+/// flipped (half of the lanes flip control inputs when there are any).
+pub(crate) fn walk(model: &Bits, cands: &WalkInputs, seed: u64) -> Vec<Vec<u64>> {
+    let n = model.len();
+    let mut s = Stream(seed ^ 0x6A09_E667_F3BC_C908);
+    let mut rows: Vec<Vec<u64>> = (0..n)
+        .map(|k| vec![if model.get(k) { !0u64 } else { 0 }])
+        .collect();
+    if cands.all.is_empty() {
+        return rows;
+    }
+    for lane in 1..64 {
+        let flips = 1 + lane % 3;
+        for f in 0..flips {
+            let pool = if !cands.control.is_empty() && (lane + f) % 2 == 0 {
+                &cands.control
+            } else {
+                &cands.all
+            };
+            let k = pool[s.below(pool.len())];
+            rows[k][0] ^= 1u64 << lane;
+        }
+    }
+    rows
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn densities_differ_by_lane() {
+        let w = mixed_density(64, 64, 3);
+        let ones = |lane: usize| -> u32 {
+            w.iter()
+                .flat_map(|r| r.iter())
+                .map(|x| (x >> lane & 1) as u32)
+                .sum()
+        };
+        // 4096 draws per lane: lane 15 (level 7, p = 1/128) about 32 ones, lane 31 (level 15)
+        // about 4064, lane 0 (uniform) about 2048.
+        assert!(ones(15) < 120, "{}", ones(15));
+        assert!(ones(31) > 3950, "{}", ones(31));
+        assert!((1700..2400).contains(&ones(0)), "{}", ones(0));
+    }
+
+    #[test]
+    fn walks_start_at_the_model_and_stay_near_it() {
+        let mut g = Aig::new();
+        let ins: Vec<_> = (0..10).map(|_| g.add_input()).collect();
+        let _ = g.and_all(&ins);
+        let fo = Fanout::new(&g);
+        let model = Bits::from_bools(&[
+            true, false, true, false, true, false, true, false, true, false,
+        ]);
+        let cands = WalkInputs::new(&g, &fo, &(0..10).collect::<Vec<_>>());
+        let rows = walk(&model, &cands, 1);
+        for lane in 0..64 {
+            let diff = (0..10)
+                .filter(|&k| (rows[k][0] >> lane & 1 == 1) != model.get(k))
+                .count();
+            if lane == 0 {
+                assert_eq!(diff, 0);
+            } else {
+                // Two flips of the same input cancel, so a lane may differ in fewer places.
+                assert!(diff <= 3, "lane {lane}: {diff}");
+            }
+        }
+    }
+}

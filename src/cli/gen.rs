@@ -54,9 +54,9 @@ pub struct GenArgs {
     /// (ripple, cla, kogge-stone, brent-kung; default ripple).
     #[arg(long, value_enum, value_name = "STYLE")]
     final_adder: Option<Style>,
-    /// Output format.
-    #[arg(long, value_enum, default_value_t = GenFormat::Verilog)]
-    format: GenFormat,
+    /// Output format (default: bench when the output file ends in `.bench`, else Verilog).
+    #[arg(long, value_enum)]
+    format: Option<GenFormat>,
     /// Write to this file (atomically) instead of standard output.
     #[arg(short = 'o', long = "output", value_name = "FILE")]
     output: Option<String>,
@@ -64,12 +64,16 @@ pub struct GenArgs {
 
 /// Run `gen`.
 pub fn run(a: &GenArgs) -> Exit {
+    let format = a.format.unwrap_or(match &a.output {
+        Some(path) if path.ends_with(".bench") => GenFormat::Bench,
+        _ => GenFormat::Verilog,
+    });
     if a.kind == Kind::Remap {
         return super::remap::run(
             a.design.as_deref(),
             a.k,
             &a.pre,
-            (a.module.as_deref(), a.format, a.output.as_deref()),
+            (a.module.as_deref(), format, a.output.as_deref()),
         );
     }
     let Some(n) = a.n else {
@@ -97,7 +101,7 @@ pub fn run(a: &GenArgs) -> Exit {
         signed: a.signed,
         final_adder: a.final_adder,
     };
-    let g = match gen::generate(&spec, a.format) {
+    let g = match gen::generate(&spec, format) {
         Ok(g) => g,
         Err(e) => return report_input_error(&e.into()),
     };

@@ -222,3 +222,30 @@ fn the_cli_writes_the_same_files_from_the_manifest_command_lines() {
         );
     }
 }
+
+#[test]
+fn the_output_file_name_picks_the_format_unless_one_is_given() {
+    // `-o NAME.bench` writes bench, any other name Verilog; `--format` wins over the name.
+    let dir = tempfile::tempdir().unwrap();
+    let run = |args: &[&str], file: &str| {
+        let path = dir.path().join(file);
+        let o = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
+            .args(["gen", "adder", "--n", "4"])
+            .args(args)
+            .arg("-o")
+            .arg(&path)
+            .output()
+            .unwrap();
+        assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
+        std::fs::read_to_string(&path).unwrap()
+    };
+    let bench = run(&[], "a.bench");
+    assert!(
+        bench.contains("INPUT(") && !bench.contains("module "),
+        "{bench}"
+    );
+    let verilog = run(&[], "a.v");
+    assert!(verilog.contains("module "), "{verilog}");
+    let forced = run(&["--format", "verilog"], "b.bench");
+    assert!(forced.contains("module "), "{forced}");
+}

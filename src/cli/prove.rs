@@ -44,6 +44,9 @@ cli_enum! {
         Exhaustive,
         /// BDDs alone (pairs past the node limit stay undecided).
         Bdd,
+        /// Word polynomials alone, on output buses of at least 4 bits (other pairs, and bits past
+        /// the term budget, stay undecided).
+        Algebra,
     }
 }
 

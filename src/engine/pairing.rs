@@ -10,7 +10,7 @@ use crate::diag::InputError;
 use serde::Serialize;
 
 /// Which design an input bit belongs to.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, PartialOrd, Ord, Serialize, serde::Deserialize)]
 #[serde(rename_all = "lowercase")]
 pub enum Side {
     /// A paired port bit of both designs.

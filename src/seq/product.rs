@@ -8,31 +8,9 @@
 use crate::aig::{Aig, Lit};
 use crate::design::{Design, InputKind};
 use crate::diag::{Diagnostic, InputError};
+pub use crate::engine::Side;
 use serde::{Deserialize, Serialize};
 use std::collections::{BTreeMap, BTreeSet};
-
-/// Which design a bit belongs to.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, PartialOrd, Ord, Serialize, Deserialize)]
-#[serde(rename_all = "lowercase")]
-pub enum Side {
-    /// Both designs (a paired port bit).
-    Both,
-    /// The reference only.
-    Reference,
-    /// The candidate only.
-    Candidate,
-}
-
-impl Side {
-    /// The word used in reports.
-    pub fn word(self) -> &'static str {
-        match self {
-            Side::Both => "both",
-            Side::Reference => "reference",
-            Side::Candidate => "candidate",
-        }
-    }
-}
 
 /// One per-cycle input of the product machine.
 #[derive(Clone, Debug)]

@@ -11,6 +11,8 @@ mod support;
 
 #[path = "gen/arith.rs"]
 mod arith;
+#[path = "gen/clocked.rs"]
+mod clocked;
 #[path = "gen/families.rs"]
 mod families;
 #[path = "gen/kinds.rs"]
@@ -29,5 +31,11 @@ mod random_circuits;
 mod remap;
 #[path = "gen/selectors.rs"]
 mod selectors;
+#[allow(dead_code)]
+#[path = "seq/oracle.rs"]
+mod seq_oracle;
+#[allow(dead_code)]
+#[path = "verilog/common.rs"]
+mod vcommon;
 #[path = "gen/verilog.rs"]
 mod verilog;

@@ -54,6 +54,17 @@ pub struct GenArgs {
     /// (ripple, cla, kogge-stone, brent-kung; default ripple).
     #[arg(long, value_enum, value_name = "STYLE")]
     final_adder: Option<Style>,
+    /// Pipelined adder: register stages.
+    #[arg(long, default_value_t = 2)]
+    stages: usize,
+    /// Clocked families: give every register a new name and store a fraction of them
+    /// inverted (`--invert`; which ones follows `--seed`).
+    #[arg(long)]
+    rename: bool,
+    /// With --rename: the fraction of registers stored inverted (0 to 1; at least one when
+    /// above 0).
+    #[arg(long, default_value_t = 0.1, value_name = "F")]
+    invert: f64,
     /// Output format (default: bench when the output file ends in `.bench`, else Verilog).
     #[arg(long, value_enum)]
     format: Option<GenFormat>,
@@ -88,6 +99,21 @@ pub fn run(a: &GenArgs) -> Exit {
             "only `gen remap DESIGN` reads a design; leave the file name out",
         ));
     }
+    if a.rename && !(0.0..=1.0).contains(&a.invert) {
+        return report_input_error(&crate::diag::InputError::plain(
+            format!("--invert {}: not a fraction from 0 to 1", a.invert),
+            "give --invert 0.1 for a tenth of the registers",
+        ));
+    }
+    if a.rename && !gen::clocked::is_clocked(a.kind) {
+        return report_input_error(&crate::diag::InputError::plain(
+            format!(
+                "--rename applies to the clocked families, not to {}",
+                a.kind.name()
+            ),
+            "use it with reg-selector, pipe-adder, counter, shift-register or fsm",
+        ));
+    }
     let spec = GenSpec {
         kind: a.kind,
         style: a.style.unwrap_or(a.kind.styles()[0]),
@@ -100,6 +126,8 @@ pub fn run(a: &GenArgs) -> Exit {
         module: a.module.clone(),
         signed: a.signed,
         final_adder: a.final_adder,
+        stages: a.stages,
+        rename: a.rename.then_some((a.invert * 1000.0).round() as u32),
     };
     let g = match gen::generate(&spec, format) {
         Ok(g) => g,

@@ -36,6 +36,7 @@
 //! gates: selector as the decoder AND-OR (0 out of range), decoder flat, priority encoder as
 //! the chain, shifter as the log shifter, adder as the ripple adder, multiplier as the array.
 
+pub mod clocked;
 pub mod emit;
 pub mod mutate;
 pub mod remap;
@@ -93,6 +94,16 @@ pub enum Kind {
     Arbiter,
     /// K-input lookup-function rewrite of a design file (`gen remap DESIGN --k K`).
     Remap,
+    /// Clocked: N:1 selector of 1-bit channels with a registered output.
+    RegSelector,
+    /// Clocked: n-bit ripple adder cut into `--stages` register stages.
+    PipeAdder,
+    /// Clocked: n-bit counter with enable.
+    Counter,
+    /// Clocked: n-bit shift register.
+    ShiftRegister,
+    /// Clocked: state machine of n states (styles onehot and binary, same behaviour).
+    Fsm,
 }
 
 impl Kind {
@@ -116,6 +127,11 @@ impl Kind {
             Kind::Sqrt => "sqrt",
             Kind::Arbiter => "arbiter",
             Kind::Remap => "remap",
+            Kind::RegSelector => "reg-selector",
+            Kind::PipeAdder => "pipe-adder",
+            Kind::Counter => "counter",
+            Kind::ShiftRegister => "shift-register",
+            Kind::Fsm => "fsm",
         }
     }
 
@@ -139,6 +155,8 @@ impl Kind {
             Kind::Sqrt => &[Restoring, NonRestoring],
             Kind::Arbiter => &[Chain, KoggeStone],
             Kind::Remap => &[Plain],
+            Kind::RegSelector | Kind::PipeAdder | Kind::Counter | Kind::ShiftRegister => &[Plain],
+            Kind::Fsm => &[Onehot, Binary],
         }
     }
 }
@@ -201,6 +219,8 @@ pub enum Style {
     Restoring,
     /// Divider, square root: non-restoring digit recurrence.
     NonRestoring,
+    /// State machine: binary state encoding.
+    Binary,
 }
 
 impl Style {
@@ -233,6 +253,7 @@ impl Style {
             Style::Select => "select",
             Style::Restoring => "restoring",
             Style::NonRestoring => "non-restoring",
+            Style::Binary => "binary",
         }
     }
 }
@@ -309,6 +330,10 @@ pub struct GenSpec {
     pub signed: bool,
     /// Multiplier family, tree styles: the final adder's style (ripple if absent).
     pub final_adder: Option<Style>,
+    /// Pipelined adder: register stages.
+    pub stages: usize,
+    /// Clocked families: rename the registers and store this many per mille inverted.
+    pub rename: Option<u32>,
 }
 
 impl GenSpec {
@@ -326,6 +351,8 @@ impl GenSpec {
             module: None,
             signed: false,
             final_adder: None,
+            stages: 2,
+            rename: None,
         }
     }
 
@@ -365,15 +392,28 @@ impl GenSpec {
             Kind::Selector => format!("{}x{}", self.n, self.width),
             _ => self.n.to_string(),
         };
+        let size = match self.kind {
+            Kind::PipeAdder => format!("{size}x{}", self.stages),
+            _ => size,
+        };
         let bug = if self.bug.is_some() { "_bug" } else { "" };
+        let bug = if self.rename.is_some() {
+            "_renamed"
+        } else {
+            bug
+        };
         let signed = if self.signed { "_signed" } else { "" };
         let fin = match self.final_adder {
             Some(f) if f != Style::Ripple => format!("_{}", f.name().replace('-', "_")),
             _ => String::new(),
         };
+        let kind = if clocked::is_clocked(self.kind) {
+            self.kind.name().replace('-', "_")
+        } else {
+            self.kind.name().to_string()
+        };
         format!(
-            "{}{size}_{}{fin}{signed}{bug}",
-            self.kind.name(),
+            "{kind}{size}_{}{fin}{signed}{bug}",
             self.style.name().replace('-', "_")
         )
     }
@@ -393,6 +433,12 @@ impl GenSpec {
         }
         if let Some(f) = self.final_adder {
             s += &format!(" --final-adder {}", f.name());
+        }
+        if self.kind == Kind::PipeAdder {
+            s += &format!(" --stages {}", self.stages);
+        }
+        if let Some(r) = self.rename {
+            s += &format!(" --rename --invert {}", r as f64 / 1000.0);
         }
         if let Some(b) = self.bug {
             s += &format!(" --bug {}", b.name());
@@ -457,6 +503,10 @@ pub struct Generated {
 
 /// Generate the circuit `spec` as text in `format`.
 pub fn generate(spec: &GenSpec, format: GenFormat) -> Result<Generated, GenError> {
+    if clocked::is_clocked(spec.kind) {
+        validate(spec)?;
+        return clocked::generate(spec, format);
+    }
     let (mut c, mutation) = build_with_mutation(spec)?;
     let description = c.notes.first().cloned().unwrap_or_default();
     c.notes.insert(0, spec.command_line(format));
@@ -479,6 +529,15 @@ pub fn build(spec: &GenSpec) -> Result<Circuit, GenError> {
 
 fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenError> {
     validate(spec)?;
+    if clocked::is_clocked(spec.kind) {
+        return Err(GenError::new(
+            format!(
+                "{} is a clocked family, built by gen::clocked",
+                spec.kind.name()
+            ),
+            "use gen::generate or gen::clocked::build",
+        ));
+    }
     let module = spec.module.clone().unwrap_or_else(|| spec.default_module());
     let mut c = Circuit::new(&module);
     let mut rng = crate::rng::SplitMix64::new(spec.seed, 1);
@@ -503,6 +562,9 @@ fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenE
         Kind::Sqrt => divide::build_sqrt(&mut c, spec.n, spec.style),
         Kind::Arbiter => arbiter::build(&mut c, spec.n, spec.style),
         Kind::Remap => unreachable!("validate refuses remap"),
+        Kind::RegSelector | Kind::PipeAdder | Kind::Counter | Kind::ShiftRegister | Kind::Fsm => {
+            unreachable!("refused above")
+        }
     };
     c.prune();
     if cfg!(debug_assertions) {
@@ -575,6 +637,15 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
         Kind::Sqrt => (1, 128, "a square root needs 1 to 128 root bits"),
         Kind::Arbiter => (2, 1 << 14, "an arbiter needs 2 to 16384 requesters"),
         Kind::Remap => unreachable!("handled above"),
+        Kind::RegSelector => (
+            2,
+            1 << 16,
+            "a registered selector needs at least 2 channels",
+        ),
+        Kind::PipeAdder => (1, 1 << 16, "a pipelined adder needs at least 1 bit"),
+        Kind::Counter => (1, 1 << 16, "a counter needs at least 1 bit"),
+        Kind::ShiftRegister => (1, 1 << 16, "a shift register needs at least 1 bit"),
+        Kind::Fsm => (2, 1 << 12, "a state machine needs 2 to 4096 states"),
     };
     if spec.n > max {
         return Err(GenError::new(

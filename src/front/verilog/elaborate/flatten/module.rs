@@ -2,16 +2,16 @@
 //! declarations, implicit nets, continuous assignments, gate primitives, and generate loops
 //! and conditions. Sub-instances are in `instance.rs`, flattened with hierarchical names.
 
-use super::super::ast::{
-    Conns, Decl, Dir, Expr, GateKind, Instance, Item, Module, NetType, ParamDecl, Range,
-};
-use super::super::lexer::Pos;
-use super::super::symbols::Sym;
-use super::bits::{self, extend};
-use super::expr::EvalContext;
-use super::{Elab, GateRec, Symbol, Val};
+use super::super::bits::{self, extend};
+use super::super::context::EvalContext;
+use super::super::{span, Elab, GateRec, Symbol, Val, MAX_HIER, MAX_LOOP};
 use crate::aig::Lit;
 use crate::design::CellKind;
+use crate::front::verilog::ast::{
+    Conns, Decl, Dir, Expr, GateKind, Instance, Item, Module, NetType, ParamDecl, Range,
+};
+use crate::front::verilog::pos::Pos;
+use crate::front::verilog::symbols::Sym;
 use std::collections::HashSet;
 
 /// Which parameter an override sets.
@@ -130,10 +130,10 @@ pub fn elab_instance<'a>(
         );
         return scope;
     }
-    if e.hier.len() >= super::MAX_HIER {
+    if e.hier.len() >= MAX_HIER {
         e.error(
             pos,
-            format!("instance hierarchy deeper than {} levels", super::MAX_HIER),
+            format!("instance hierarchy deeper than {} levels", MAX_HIER),
             "flatten part of the hierarchy; equicone reads at most 64 levels of instances",
         );
         return scope;
@@ -181,7 +181,7 @@ impl<'a> Elab<'a> {
                 return None;
             }
         }
-        if super::span(m, l).is_none() {
+        if span(m, l).is_none() {
             self.error(
                 r.msb.pos(),
                 "range wider than 65536 bits",
@@ -231,7 +231,7 @@ impl<'a> Elab<'a> {
             } else if let Some(r) = &pd.range {
                 match self.range_bounds(scope, r) {
                     Some((m, l)) => {
-                        let w = super::span(m, l).unwrap_or(1);
+                        let w = span(m, l).unwrap_or(1);
                         (
                             Val {
                                 bits: extend(v.bits, w, v.signed),
@@ -270,7 +270,7 @@ impl<'a> Elab<'a> {
     }
 
     /// Elaborate the items of a module or generate block in scope `scope`.
-    pub(super) fn elab_items(
+    pub(crate) fn elab_items(
         &mut self,
         scope: u32,
         items: &'a [Item],
@@ -474,13 +474,13 @@ impl<'a> Elab<'a> {
     }
 
     /// `assign lhs = rhs;`
-    pub(super) fn cont_assign(&mut self, scope: u32, lhs: &Expr, rhs: &Expr, pos: Pos) {
+    pub(crate) fn cont_assign(&mut self, scope: u32, lhs: &Expr, rhs: &Expr, pos: Pos) {
         let ctx = EvalContext::new(scope);
         let t = match self.targets(&ctx, lhs, false) {
             Some(t) => t,
             None => return,
         };
-        let ty = self.ty(&ctx, rhs);
+        let ty = self.expr_type(&ctx, rhs);
         let w = t.len().max(ty.width);
         let v = self.eval(&ctx, rhs, w, ty.signed);
         for (k, (n, off)) in t.into_iter().enumerate() {
@@ -512,7 +512,7 @@ impl<'a> Elab<'a> {
                 if let Some(Symbol::Net(n)) = self.lookup(scope, *s) {
                     let net = &self.nets[*n as usize];
                     if net.width == 1 {
-                        lits.push(self.g.input_lit(net.first as usize));
+                        lits.push(self.aig.input_lit(net.first as usize));
                         continue;
                     }
                 }
@@ -530,7 +530,7 @@ impl<'a> Elab<'a> {
             }
             lits.push(v.bits.first().copied().unwrap_or(Lit::FALSE));
         }
-        let g = &mut self.g;
+        let g = &mut self.aig;
         let (cell, out) = match kind {
             GateKind::And => (CellKind::And, g.and_all(&lits)),
             GateKind::Nand => (CellKind::Nand, !g.and_all(&lits)),
@@ -585,7 +585,7 @@ impl<'a> Elab<'a> {
     fn gen_for(
         &mut self,
         scope: u32,
-        g: &'a super::super::ast::GenFor,
+        g: &'a crate::front::verilog::ast::GenFor,
         m: &'a Module,
         genblk: usize,
     ) {
@@ -626,12 +626,12 @@ impl<'a> Elab<'a> {
                 return;
             }
             count += 1;
-            if count > super::MAX_LOOP {
+            if count > MAX_LOOP {
                 self.error(
                     g.pos,
                     format!(
                         "generate loop runs more than {} iterations",
-                        super::MAX_LOOP
+                        MAX_LOOP
                     ),
                     "check the loop's condition and step; equicone unrolls at most 65536 iterations"
                 );

@@ -2,15 +2,15 @@
 //! its hierarchical prefix, and its port connections (by name or by position; inputs
 //! driven from the connected expression, outputs driving the connected nets).
 
-use super::super::ast::{Conns, Dir, Expr, Instance};
-use super::bits::extend;
-use super::expr::EvalContext;
+use super::super::bits::extend;
+use super::super::context::EvalContext;
+use super::super::{Elab, Symbol};
 use super::module::{elab_instance, Which};
-use super::{Elab, Symbol};
+use crate::front::verilog::ast::{Conns, Dir, Expr, Instance};
 
 impl<'a> Elab<'a> {
     /// Elaborate instance `inst` written in scope `scope`.
-    pub(super) fn instance(&mut self, scope: u32, inst: &'a Instance) {
+    pub(crate) fn instance(&mut self, scope: u32, inst: &'a Instance) {
         let m = match self.modules.get(&inst.module) {
             Some(m) => *m,
             None => {
@@ -119,7 +119,7 @@ impl<'a> Elab<'a> {
             let pw = net.width as usize;
             match net.dir {
                 Some(Dir::Input) => {
-                    let t = self.ty(&ctx, ex);
+                    let t = self.expr_type(&ctx, ex);
                     let v = self.eval(&ctx, ex, pw.max(t.width), t.signed);
                     if t.width != pw {
                         self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected expression is {} bits", t.width));

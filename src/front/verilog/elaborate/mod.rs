@@ -3,6 +3,11 @@
 //! blocks record each leaf's driver; [`resolve`] then builds the design's AIG from the
 //! outputs back through the drivers (iteratively, finding combinational loops).
 //!
+//! Stages: [`flatten`] walks the instance hierarchy from the top module, declaring nets and
+//! parameters scope by scope; it hands expressions to [`expr`] (typing and evaluation to
+//! literals) and `always` blocks to [`stmt`] (statement lowering), which uses [`expr`] in
+//! turn; what they share is in [`context`] and the state below ([`Elab`]).
+//!
 //! **Invariant:** leaf `k` of the intermediate AIG is either a bit of a net (`owner[k]`) or
 //! an unknown-value source; each net bit has at most one driver.
 

@@ -6,7 +6,7 @@
 //! Stages: [`flatten`] walks the instance hierarchy from the top module, declaring nets and
 //! parameters scope by scope; it hands expressions to [`expr`] (typing and evaluation to
 //! literals) and `always` blocks to [`stmt`] (statement lowering), which uses [`expr`] in
-//! turn; what they share is in [`context`] and the state below ([`Elab`]).
+//! turn; what they share is in [`context`] and the state below ([`Elaborator`]).
 //!
 //! **Invariant:** leaf `k` of the intermediate AIG is either a bit of a net (`owner[k]`) or
 //! an unknown-value source; each net bit has at most one driver.
@@ -50,7 +50,7 @@ fn span(m: i64, l: i64) -> Option<usize> {
 
 /// A constant or symbolic value: bits LSB first, and signedness.
 #[derive(Clone, Debug)]
-pub struct Val {
+pub struct Value {
     /// Bits, least significant first.
     pub bits: Vec<Lit>,
     /// Signed?
@@ -97,9 +97,12 @@ impl Net {
 /// What a name means in a scope.
 #[derive(Clone, Debug)]
 enum Symbol {
+    /// A net or variable: its index in `Elaborator::nets`.
     Net(u32),
-    Param(Box<(Val, i64, i64)>),
-    Genvar(Option<Box<Val>>),
+    /// A parameter: its value and declared range (left index, right index).
+    Param(Box<(Value, i64, i64)>),
+    /// A genvar: its value while a generate loop runs, `None` outside one.
+    Genvar(Option<Box<Value>>),
 }
 
 /// A name scope: a module instance or a generate block.
@@ -128,9 +131,9 @@ struct Driver {
 }
 
 /// A gate primitive as written (for the netlist); its inputs are
-/// `Elab::gate_ins[first..first + count]`.
+/// `Elaborator::gate_ins[first..first + count]`.
 #[derive(Clone, Debug)]
-struct GateRec {
+struct GateRecord {
     kind: CellKind,
     count: u32,
     first: u32,
@@ -141,7 +144,7 @@ struct GateRec {
 const UNKNOWN_BIT: u32 = 1 << 31;
 
 /// The elaborator's state.
-pub struct Elab<'a> {
+pub struct Elaborator<'a> {
     names: &'a Interner,
     files: &'a [Arc<str>],
     modules: HashMap<Sym, &'a Module>,
@@ -152,7 +155,7 @@ pub struct Elab<'a> {
     nets: Vec<Net>,
     drivers: Vec<Option<Driver>>,
     scopes: Vec<Scope>,
-    gates: Vec<GateRec>,
+    gates: Vec<GateRecord>,
     gate_ins: Vec<Lit>,
     errors: Vec<Diagnostic>,
     warnings: Vec<Diagnostic>,
@@ -162,13 +165,13 @@ pub struct Elab<'a> {
     coverage_memo: crate::hash::FastMap<u32, stmt::Coverage>,
 }
 
-impl<'a> Elab<'a> {
+impl<'a> Elaborator<'a> {
     fn new(names: &'a Interner, files: &'a [Arc<str>], mods: &'a [Module]) -> Self {
         let mut modules = HashMap::new();
         for m in mods {
             modules.entry(m.name).or_insert(m);
         }
-        Elab {
+        Elaborator {
             names,
             files,
             modules,
@@ -191,8 +194,8 @@ impl<'a> Elab<'a> {
 
     /// The same state without the borrowed syntax tree, so that the tree can be freed
     /// before the design is built.
-    fn detach<'n>(self, names: &'n Interner, files: &'n [Arc<str>]) -> Elab<'n> {
-        Elab {
+    fn detach<'n>(self, names: &'n Interner, files: &'n [Arc<str>]) -> Elaborator<'n> {
+        Elaborator {
             names,
             files,
             modules: HashMap::new(),
@@ -392,7 +395,7 @@ pub fn elaborate(
     mods: Vec<Module>,
     top: Option<&str>,
 ) -> Result<Design, InputError> {
-    let mut e = Elab::new(names, files, &mods);
+    let mut e = Elaborator::new(names, files, &mods);
     // Duplicate module names.
     let mut seen: HashMap<Sym, Pos> = HashMap::new();
     for m in &mods {

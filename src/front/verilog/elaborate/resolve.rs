@@ -6,7 +6,7 @@
 use super::super::ast::Dir;
 use super::super::pos::Pos;
 use super::super::symbols::Sym;
-use super::{Elab, Symbol, UNKNOWN_BIT};
+use super::{Elaborator, Symbol, UNKNOWN_BIT};
 use crate::aig::{Aig, Lit, Node};
 use crate::design::{bit_name, Cell, Design, Format, InputBit, InputKind, Netlist, OutputBit};
 use std::collections::{BTreeSet, HashMap, HashSet};
@@ -36,7 +36,7 @@ impl Resolver {
     }
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     fn resolve(&mut self, r: &mut Resolver, root: Lit) -> Lit {
         let mut stack = vec![root.node()];
         while let Some(&n) = stack.last() {
@@ -169,7 +169,7 @@ impl Elab<'_> {
 }
 
 /// Build the design of top module `m` (elaborated in scope `scope`).
-pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design {
+pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design {
     let mut r = Resolver {
         design_aig: Aig::new(),
         memo: Vec::new(),
@@ -288,7 +288,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
     d
 }
 
-fn outputs_leaves(e: &Elab, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> {
+fn outputs_leaves(e: &Elaborator, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> {
     let mut v = Vec::new();
     for (ps, _) in ports {
         if let Some(Symbol::Net(n)) = e.scopes[scope as usize].syms.get(ps) {
@@ -303,7 +303,7 @@ fn outputs_leaves(e: &Elab, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> {
 
 /// The gate-level netlist: one signal per net bit after merging plain connections
 /// (port connections, `assign a = b;`).
-fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
+fn netlist(e: &Elaborator, r: &Resolver, outs: &[u32]) -> Netlist {
     let nleaves = e.owner.len();
     let mut gate_out = vec![false; nleaves];
     for gr in &e.gates {

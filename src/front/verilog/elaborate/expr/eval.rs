@@ -4,7 +4,7 @@
 
 use super::super::bits::{self, extend};
 use super::super::context::EvalContext;
-use super::super::{Elab, Sym, Symbol, Val, MAX_DIV_WIDTH, MAX_MUL_WIDTH, MAX_WIDTH};
+use super::super::{Elaborator, Sym, Symbol, Value, MAX_DIV_WIDTH, MAX_MUL_WIDTH, MAX_WIDTH};
 use super::types::ExprType;
 use crate::aig::{Aig, Lit};
 use crate::front::verilog::ast::{BinOp, Expr, UnOp};
@@ -14,16 +14,16 @@ use crate::front::verilog::pos::Pos;
 /// A named operand: its value and declared range.
 pub struct Operand {
     /// Value bits.
-    pub val: Val,
+    pub val: Value,
     /// Declared left index.
     pub msb: i64,
     /// Declared right index.
     pub lsb: i64,
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Evaluate a constant expression; reports and returns `None` when it is not constant.
-    pub(crate) fn const_val(&mut self, scope: u32, e: &Expr) -> Option<Val> {
+    pub(crate) fn const_val(&mut self, scope: u32, e: &Expr) -> Option<Value> {
         let ctx = EvalContext::constant(scope);
         let t = self.expr_type(&ctx, e);
         let before = self.errors.len();
@@ -39,7 +39,7 @@ impl Elab<'_> {
             );
             return None;
         }
-        Some(Val {
+        Some(Value {
             bits,
             signed: t.signed,
         })
@@ -60,9 +60,9 @@ impl Elab<'_> {
     }
 
     /// Evaluate `e` self-determined.
-    pub(crate) fn eval_self(&mut self, ctx: &EvalContext, e: &Expr) -> Val {
+    pub(crate) fn eval_self(&mut self, ctx: &EvalContext, e: &Expr) -> Value {
         let t = self.expr_type(ctx, e);
-        Val {
+        Value {
             bits: self.eval(ctx, e, t.width, t.signed),
             signed: t.signed,
         }
@@ -94,7 +94,7 @@ impl Elab<'_> {
                     env.overlay(n, &mut b);
                 }
                 Some(Operand {
-                    val: Val { bits: b, signed },
+                    val: Value { bits: b, signed },
                     msb,
                     lsb,
                 })
@@ -129,16 +129,23 @@ impl Elab<'_> {
         }
     }
 
-    /// Evaluate `e` in a context of width `w` and signedness `s` (`w` at least its own width).
-    pub(crate) fn eval(&mut self, ctx: &EvalContext, e: &Expr, w: usize, s: bool) -> Vec<Lit> {
-        let w = w.min(MAX_WIDTH);
-        let v = self.eval_inner(ctx, e, w, s);
+    /// Evaluate `e` in a context of width `width` and signedness `signed` (`width` at least
+    /// its own width).
+    pub(crate) fn eval(
+        &mut self,
+        ctx: &EvalContext,
+        e: &Expr,
+        width: usize,
+        signed: bool,
+    ) -> Vec<Lit> {
+        let width = width.min(MAX_WIDTH);
+        let v = self.eval_inner(ctx, e, width, signed);
         debug_assert!(
-            v.len() == w || self.quiet > 0 || !self.errors.is_empty(),
-            "width {} != {w}",
+            v.len() == width || self.quiet > 0 || !self.errors.is_empty(),
+            "width {} != {width}",
             v.len()
         );
-        extend(v, w, s)
+        extend(v, width, signed)
     }
 
     fn literal(

@@ -3,7 +3,7 @@
 
 use super::super::bits::{self, extend};
 use super::super::context::EvalContext;
-use super::super::{span, Elab, Sym, Symbol, MAX_WIDTH};
+use super::super::{span, Elaborator, Sym, Symbol, MAX_WIDTH};
 use crate::aig::Lit;
 use crate::front::verilog::ast::Select;
 use crate::front::verilog::pos::Pos;
@@ -21,7 +21,7 @@ pub(crate) struct LazyOperand {
     lsb: i64,
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Offsets (0 = least significant bit) of declared index `i` for range `msb:lsb`.
     fn off_of(msb: i64, lsb: i64, i: i64) -> i64 {
         // Saturating: an index this far out stays out of any declared range (at most 65536
@@ -167,7 +167,7 @@ impl Elab<'_> {
     }
 
     /// The operand of a select: a net without its bits, anything else as
-    /// [`Elab::operand`] gives it.
+    /// [`Elaborator::operand`] gives it.
     fn operand_lazy(&mut self, ctx: &EvalContext, sym: Sym, pos: Pos) -> Option<LazyOperand> {
         if !ctx.constant {
             if let Some(Symbol::Net(n)) = self.lookup(ctx.scope, sym) {

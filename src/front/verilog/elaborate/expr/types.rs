@@ -2,7 +2,7 @@
 //! 5.4.1 and 5.5.1), used to size every context-determined operation.
 
 use super::super::context::EvalContext;
-use super::super::{span, Elab, Symbol, MAX_WIDTH};
+use super::super::{span, Elaborator, Symbol, MAX_WIDTH};
 use crate::front::verilog::ast::{Expr, Select, UnOp};
 
 /// Bit length and signedness of an expression.
@@ -14,7 +14,7 @@ pub struct ExprType {
     pub signed: bool,
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// The self-determined type of `e` (no diagnostics; evaluation reports them).
     pub(crate) fn expr_type(&mut self, ctx: &EvalContext, e: &Expr) -> ExprType {
         self.quiet += 1;

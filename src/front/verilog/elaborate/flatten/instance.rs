@@ -4,11 +4,11 @@
 
 use super::super::bits::extend;
 use super::super::context::EvalContext;
-use super::super::{Elab, Symbol};
-use super::module::{elab_instance, Which};
+use super::super::{Elaborator, Symbol};
+use super::module::{elab_instance, OverrideTarget};
 use crate::front::verilog::ast::{Conns, Dir, Expr, Instance};
 
-impl<'a> Elab<'a> {
+impl<'a> Elaborator<'a> {
     /// Elaborate instance `inst` written in scope `scope`.
     pub(crate) fn instance(&mut self, scope: u32, inst: &'a Instance) {
         let m = match self.modules.get(&inst.module) {
@@ -31,7 +31,7 @@ impl<'a> Elab<'a> {
                 for (s, p, ex) in v {
                     if let Some(ex) = ex {
                         if let Some(val) = self.const_val(scope, ex) {
-                            overrides.push((Which::Named(*s), val, *p));
+                            overrides.push((OverrideTarget::ByName(*s), val, *p));
                         }
                     }
                 }
@@ -40,7 +40,7 @@ impl<'a> Elab<'a> {
                 for (k, ex) in v.iter().enumerate() {
                     if let Some(ex) = ex {
                         if let Some(val) = self.const_val(scope, ex) {
-                            overrides.push((Which::Nth(k), val, ex.pos()));
+                            overrides.push((OverrideTarget::ByPosition(k), val, ex.pos()));
                         }
                     }
                 }

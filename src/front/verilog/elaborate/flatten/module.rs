@@ -4,7 +4,7 @@
 
 use super::super::bits::{self, extend};
 use super::super::context::EvalContext;
-use super::super::{span, Elab, GateRec, Symbol, Val, MAX_HIER, MAX_LOOP};
+use super::super::{span, Elaborator, GateRecord, Symbol, Value, MAX_HIER, MAX_LOOP};
 use crate::aig::Lit;
 use crate::design::CellKind;
 use crate::front::verilog::ast::{
@@ -14,13 +14,13 @@ use crate::front::verilog::pos::Pos;
 use crate::front::verilog::symbols::Sym;
 use std::collections::HashSet;
 
-/// Which parameter an override sets.
+/// OverrideTarget parameter an override sets.
 #[derive(Clone, Debug)]
-pub enum Which {
+pub enum OverrideTarget {
     /// By name.
-    Named(Sym),
+    ByName(Sym),
     /// By position among the overridable parameters.
-    Nth(usize),
+    ByPosition(usize),
 }
 
 fn walk_instances<'m>(items: &'m [Item], out: &mut Vec<&'m Instance>) {
@@ -39,7 +39,7 @@ fn walk_instances<'m>(items: &'m [Item], out: &mut Vec<&'m Instance>) {
 }
 
 /// Choose the top module: the one named, or the only one that no module instantiates.
-pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
+pub fn pick_top<'a>(e: &mut Elaborator<'a>, top: Option<&str>) -> Option<&'a Module> {
     let list = e.module_list.clone();
     let names = e.names;
     let nopos = Pos::default();
@@ -109,10 +109,10 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
 
 /// Elaborate module `m` as an instance with hierarchical `prefix`; returns its scope.
 pub fn elab_instance<'a>(
-    e: &mut Elab<'a>,
+    e: &mut Elaborator<'a>,
     m: &'a Module,
     prefix: String,
-    overrides: Vec<(Which, Val, Pos)>,
+    overrides: Vec<(OverrideTarget, Value, Pos)>,
     pos: Pos,
 ) -> u32 {
     let idx = e
@@ -144,11 +144,11 @@ pub fn elab_instance<'a>(
     for (w, _, p) in ov {
         let mn = e.name(m.name);
         let (msg, help) = match w {
-            Which::Named(s) => (
+            OverrideTarget::ByName(s) => (
                 format!("module `{mn}` has no parameter `{}`", e.name(s)),
                 "override only parameters the module declares (not `localparam`); check the spelling",
             ),
-            Which::Nth(k) => (
+            OverrideTarget::ByPosition(k) => (
                 format!("module `{mn}` has fewer than {} parameters", k + 1),
                 "give no more overrides than the module has parameters, or override by name (`#(.N(8))`)",
             ),
@@ -167,7 +167,7 @@ struct Merged<'m> {
     pos: Pos,
 }
 
-impl<'a> Elab<'a> {
+impl<'a> Elaborator<'a> {
     fn range_bounds(&mut self, scope: u32, r: &Range) -> Option<(i64, i64)> {
         let m = self.const_int(scope, &r.msb)?;
         let l = self.const_int(scope, &r.lsb)?;
@@ -196,7 +196,7 @@ impl<'a> Elab<'a> {
         &mut self,
         scope: u32,
         pd: &ParamDecl,
-        overrides: &mut Option<&mut Vec<(Which, Val, Pos)>>,
+        overrides: &mut Option<&mut Vec<(OverrideTarget, Value, Pos)>>,
         nth: &mut usize,
     ) {
         for (name, pos, ex) in &pd.assigns {
@@ -204,8 +204,8 @@ impl<'a> Elab<'a> {
             if !pd.local {
                 if let Some(ov) = overrides.as_deref_mut() {
                     if let Some(k) = ov.iter().position(|(w, _, _)| match w {
-                        Which::Named(s) => s == name,
-                        Which::Nth(k) => *k == *nth,
+                        OverrideTarget::ByName(s) => s == name,
+                        OverrideTarget::ByPosition(k) => *k == *nth,
                     }) {
                         val = Some(ov.remove(k).1);
                     }
@@ -214,14 +214,14 @@ impl<'a> Elab<'a> {
             }
             let v = match val.or_else(|| self.const_val(scope, ex)) {
                 Some(v) => v,
-                None => Val {
+                None => Value {
                     bits: vec![Lit::FALSE; 32],
                     signed: true,
                 },
             };
             let (v, msb, lsb) = if pd.integer {
                 (
-                    Val {
+                    Value {
                         bits: extend(v.bits, 32, v.signed),
                         signed: true,
                     },
@@ -233,7 +233,7 @@ impl<'a> Elab<'a> {
                     Some((m, l)) => {
                         let w = span(m, l).unwrap_or(1);
                         (
-                            Val {
+                            Value {
                                 bits: extend(v.bits, w, v.signed),
                                 signed: pd.signed,
                             },
@@ -246,7 +246,7 @@ impl<'a> Elab<'a> {
             } else {
                 let w = v.bits.len() as i64;
                 (
-                    Val {
+                    Value {
                         bits: v.bits,
                         signed: v.signed || pd.signed,
                     },
@@ -275,7 +275,7 @@ impl<'a> Elab<'a> {
         scope: u32,
         items: &'a [Item],
         m: &'a Module,
-        mut overrides: Option<&mut Vec<(Which, Val, Pos)>>,
+        mut overrides: Option<&mut Vec<(OverrideTarget, Value, Pos)>>,
         is_module: bool,
     ) {
         // Room for the nets and gates of the items (a flat netlist has a million of each).
@@ -571,7 +571,7 @@ impl<'a> Elab<'a> {
                     shared = Some(self.gate_ins.len() as u32);
                     self.gate_ins.extend_from_slice(&lits);
                 }
-                self.gates.push(GateRec {
+                self.gates.push(GateRecord {
                     kind: cell,
                     count: lits.len() as u32,
                     first: shared.unwrap_or(0),
@@ -611,7 +611,7 @@ impl<'a> Elab<'a> {
         loop {
             let prefix = format!("{}{blk}[{v}].", self.scopes[scope as usize].prefix);
             let child = self.new_scope(Some(scope), prefix, self.scopes[scope as usize].module);
-            let gv = Val {
+            let gv = Value {
                 bits: bits::constant(v, 32),
                 signed: true,
             };

@@ -3,7 +3,7 @@
 
 use super::super::bits::{self, extend};
 use super::super::context::{BitState, Env, EvalContext};
-use super::super::{span, Elab, Sym, Symbol, MAX_LOOP, MAX_WIDTH};
+use super::super::{span, Elaborator, Sym, Symbol, MAX_LOOP, MAX_WIDTH};
 use super::coverage::{self, Coverage};
 use crate::aig::Lit;
 use crate::front::verilog::ast::{
@@ -16,7 +16,7 @@ use std::collections::BTreeMap;
 /// One assignment target bit: net and offset (`None` offset: outside the range, dropped).
 pub type Target = (u32, Option<u32>);
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Elaborate one `always` block in scope `scope`: clocked ones go to `clocked.rs`;
     /// combinational ones have their event list checked (`sensitivity.rs`) and run here.
     pub(crate) fn elab_always(&mut self, scope: u32, block: &Always, pos: Pos) {

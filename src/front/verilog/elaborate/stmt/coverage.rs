@@ -6,7 +6,7 @@
 //! every assignment of the net bits it reads (bit-parallel, at most [`MAX_LEAVES`] of them),
 //! so the answer is exact, never a guess. Wider conditions are not proved and stay latches.
 
-use super::super::Elab;
+use super::super::Elaborator;
 use crate::aig::{Lit, Node};
 
 /// Most net bits a coverage condition may read to be decided by enumeration.
@@ -25,7 +25,7 @@ pub enum Coverage {
     Undecided,
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Decide whether `cond` is true for every value of the net bits it reads (memoized).
     pub(crate) fn coverage(&mut self, cond: Lit) -> Coverage {
         if cond == Lit::TRUE {

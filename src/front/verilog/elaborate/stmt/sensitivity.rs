@@ -4,7 +4,7 @@
 //! naming it: a simulator would not wake on that variable, so simulation and synthesis
 //! disagree there (common practice).
 
-use super::super::{Elab, Symbol};
+use super::super::{Elaborator, Symbol};
 use crate::front::verilog::ast::NetType;
 use crate::front::verilog::ast::{Event, Expr, Select, Stmt};
 use crate::front::verilog::pos::Pos;
@@ -114,7 +114,7 @@ fn event_name(ev: &Event) -> Option<Sym> {
     }
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Warn when the event list `events` (at `at`) misses a net that `body` reads.
     pub(crate) fn check_event_list(&mut self, scope: u32, events: &[Event], at: Pos, body: &Stmt) {
         let listed: HashSet<Sym> = events.iter().filter_map(event_name).collect();

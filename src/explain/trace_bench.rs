@@ -56,9 +56,8 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
     let (rn, cn) = scope_names(rd, cd);
     let rs = side(r, &rn, &BTreeSet::new())?;
     let cs = side(c, &cn, &clash)?;
-    let generated = |d: &Design, files: &[(String, String)]| {
-        d.format != Format::Verilog || files.is_empty()
-    };
+    let generated =
+        |d: &Design, files: &[(String, String)]| d.format != Format::Verilog || files.is_empty();
     let (rg, cg) = (generated(rd, &r.files), generated(cd, &c.files));
     // Testbench registers for the port bits: paired bits by the reference's names.
     let mut bits: BitMap = BTreeMap::new();

@@ -161,6 +161,8 @@ pub struct Elab<'a> {
     hier: Vec<Sym>,
     /// Decided coverage conditions of `always` blocks, by literal.
     coverage_memo: crate::hash::FastMap<u32, coverage::Coverage>,
+    /// Registers of clocked `always` blocks (`clocked.rs`).
+    clocked: clocked::Clocked,
 }
 
 impl<'a> Elab<'a> {
@@ -187,6 +189,7 @@ impl<'a> Elab<'a> {
             quiet: 0,
             hier: Vec::new(),
             coverage_memo: Default::default(),
+            clocked: Default::default(),
         }
     }
 
@@ -211,6 +214,7 @@ impl<'a> Elab<'a> {
             quiet: self.quiet,
             hier: self.hier,
             coverage_memo: self.coverage_memo,
+            clocked: self.clocked,
         }
     }
 
@@ -418,6 +422,7 @@ pub fn elaborate(
         }
     };
     let scope = module::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
+    e.check_clocked_blocks();
     // The syntax tree is no longer needed: free it before the design is built.
     let (top_name, top_ports, top_pos) = (top_mod.name, top_mod.ports.clone(), top_mod.pos);
     let mut e = e.detach(names, files);

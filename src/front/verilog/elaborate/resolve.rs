@@ -13,13 +13,13 @@ use std::collections::{BTreeSet, HashMap, HashSet};
 
 const NONE: u32 = u32::MAX;
 
-struct Resolver {
-    f: Aig,
+pub(super) struct Resolver {
+    pub(super) f: Aig,
     memo: Vec<u32>,
     busy: Vec<bool>,
-    primary: HashMap<u32, Lit>,
-    inputs: Vec<InputBit>,
-    used_names: HashSet<String>,
+    pub(super) primary: HashMap<u32, Lit>,
+    pub(super) inputs: Vec<InputBit>,
+    pub(super) used_names: HashSet<String>,
     undriven: BTreeSet<u32>,
 }
 
@@ -36,7 +36,7 @@ impl Resolver {
 }
 
 impl Elab<'_> {
-    fn resolve(&mut self, r: &mut Resolver, root: Lit) -> Lit {
+    pub(super) fn resolve(&mut self, r: &mut Resolver, root: Lit) -> Lit {
         let mut stack = vec![root.node()];
         while let Some(&n) = stack.last() {
             let ni = n as usize;
@@ -75,6 +75,9 @@ impl Elab<'_> {
                         r.memo[ni] = lit.raw();
                         stack.pop();
                     } else if let Some(&p) = r.primary.get(&k) {
+                        r.memo[ni] = p.raw();
+                        stack.pop();
+                    } else if let Some(p) = self.lazy_register(r, k) {
                         r.memo[ni] = p.raw();
                         stack.pop();
                     } else if let Some(d) = self.drivers[k as usize] {
@@ -227,6 +230,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
     }
     r.memo = vec![NONE; e.g.len()];
     r.busy = vec![false; e.g.len()];
+    e.registers_begin(&mut r);
     let mut outputs = Vec::new();
     for n in outs {
         let net = e.nets[n as usize].clone();
@@ -234,7 +238,10 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
         let mut undriven = false;
         for off in 0..net.width {
             let leaf = net.first + off;
-            if e.drivers[leaf as usize].is_none() && !r.primary.contains_key(&leaf) {
+            if e.drivers[leaf as usize].is_none()
+                && !r.primary.contains_key(&leaf)
+                && !e.is_register_leaf(leaf)
+            {
                 undriven = true;
             }
             let root = e.g.input_lit(leaf as usize);
@@ -269,7 +276,10 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
             );
         }
     }
-    let netlist = netlist(e, &r, &outputs_leaves(e, ports, scope));
+    let registers = e.registers_finish(&mut r);
+    let mut netlist = netlist(e, &r, &outputs_leaves(e, ports, scope));
+    // The netlist as written holds no registers: not the whole design.
+    netlist.complete &= registers.is_empty();
     let name = e.name(top).to_string();
     let d = Design {
         name,
@@ -279,7 +289,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
         outputs,
         netlist: Some(netlist),
         warnings: std::mem::take(&mut e.warnings),
-        registers: Vec::new(),
+        registers,
     };
     if e.errors.is_empty() {
         d.debug_check();

@@ -188,7 +188,9 @@ fn several_errors_are_reported_together() {
         "{e}"
     );
     assert!(
-        e.contains("t.v:3:24: error: unsupported: event list mixing clock edges with plain signals"),
+        e.contains(
+            "t.v:3:24: error: unsupported: event list mixing clock edges with plain signals"
+        ),
         "{e}"
     );
     assert!(

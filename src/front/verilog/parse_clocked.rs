@@ -20,7 +20,10 @@ impl Parser<'_, '_> {
             let edges = events.iter().filter(|e| e.edge.is_some()).count();
             if edges > 0 && edges < events.len() {
                 let at = *at;
-                let plain = events.iter().find(|e| e.edge.is_none()).map(|e| e.expr.pos());
+                let plain = events
+                    .iter()
+                    .find(|e| e.edge.is_none())
+                    .map(|e| e.expr.pos());
                 let _ = self.unsupported(
                     plain.unwrap_or(at),
                     "event list mixing clock edges with plain signals (write `posedge`/`negedge` before every event of a clocked block, e.g. `@(posedge clk or negedge rst_n)`)",
@@ -51,5 +54,4 @@ impl Parser<'_, '_> {
         self.expect_p(Punct::Semi, "`;` after the assignment")?;
         Ok(Stmt::NonBlocking(lhs, rhs, p))
     }
-
 }

@@ -52,6 +52,8 @@ struct RegRec {
     reset: Option<ResetRec>,
     /// Assigned with `=`: a register only if something reads it.
     lazy: bool,
+    /// Recorded after an error in its block (no further checks).
+    broken: bool,
     pos: Pos,
 }
 
@@ -129,16 +131,21 @@ impl Elab<'_> {
         }
     }
 
-    /// Elaborate a clocked `always` block in scope `scope` (written at `pos`).
-    pub(super) fn elab_clocked(&mut self, scope: u32, block: &Always, pos: Pos) {
-        let Sensitivity::List(events, at) = &block.sensitivity else {
-            return;
+    /// The clock, its edge and where it is written, and the reset with its branch (`None`
+    /// after an error, which is recorded).
+    #[allow(clippy::type_complexity)]
+    fn clock_and_reset<'b>(
+        &mut self,
+        scope: u32,
+        block: &'b Always,
+        events: &[super::super::ast::Event],
+    ) -> Option<(Lit, Edge, Pos, Option<(Lit, &'b Stmt, bool, Pos)>)> {
+        let Sensitivity::List(_, at) = &block.sensitivity else {
+            return None;
         };
         let mut sigs = Vec::new();
         for ev in events {
-            let Some(l) = self.event_bit(scope, &ev.expr) else {
-                return;
-            };
+            let l = self.event_bit(scope, &ev.expr)?;
             sigs.push((ev.edge.unwrap_or(Edge::Rising), l, ev.expr.pos()));
         }
         if sigs.len() > 2 {
@@ -147,12 +154,14 @@ impl Elab<'_> {
                 format!("unsupported: {} events in a clocked block's event list", sigs.len()),
                 "write one clock and at most one asynchronous reset, e.g. `@(posedge clk or negedge rst_n)`",
             );
-            return;
+            return None;
         }
-        // The reset, if any: the leading `if` tests it.
+        let ctx = EvalContext {
+            scope,
+            env: None,
+            constant: false,
+        };
         let lead = leading_if(&block.body);
-        let mut reset: Option<(Lit, &Stmt, bool, Pos)> = None;
-        let (clock, edge, clock_pos);
         if sigs.len() == 2 {
             let Some((c, t, _, ipos)) = lead else {
                 self.error(
@@ -160,28 +169,19 @@ impl Elab<'_> {
                     "a clocked block with two events must begin with `if` on its reset (`if (rst) ... else ...`)",
                     "write `always @(posedge clk or posedge rst) if (rst) q <= 0; else q <= d;` (or `negedge rst_n` with `if (!rst_n)`)",
                 );
-                return;
+                return None;
             };
-            let cond = self.eval_bool(
-                &EvalContext {
-                    scope,
-                    env: None,
-                    constant: false,
-                },
-                c,
-            );
-            let which = sigs.iter().position(|s| s.1.node() == cond.node());
-            let Some(k) = which else {
+            let cond = self.eval_bool(&ctx, c);
+            let Some(k) = sigs.iter().position(|s| s.1.node() == cond.node()) else {
                 self.error(
                     c.pos(),
                     "the leading `if` of a block with two events must test one of them (the asynchronous reset)",
                     "test the reset named in the event list, e.g. `if (!rst_n)` for `negedge rst_n`",
                 );
-                return;
+                return None;
             };
             let (redge, rlit, _) = sigs[k];
-            let active_high = cond == rlit;
-            if active_high != (redge == Edge::Rising) {
+            if (cond == rlit) != (redge == Edge::Rising) {
                 let (ev, test) = if redge == Edge::Rising {
                     ("posedge", "high")
                 } else {
@@ -189,44 +189,49 @@ impl Elab<'_> {
                 };
                 self.error(
                     c.pos(),
-                    format!("the reset's event is `{ev}` but the `if` does not test it active {test}"),
+                    format!(
+                        "the reset's event is `{ev}` but the `if` does not test it active {test}"
+                    ),
                     "test `if (rst)` for `posedge rst` and `if (!rst_n)` for `negedge rst_n`",
                 );
-                return;
+                return None;
             }
-            reset = Some((cond, t, true, ipos));
-            (edge, clock, clock_pos) = sigs[1 - k];
-        } else {
-            (edge, clock, clock_pos) = sigs[0];
-            if let Some((c, t, _, ipos)) = lead {
-                let cond = self.eval_bool(
-                    &EvalContext {
-                        scope,
-                        env: None,
-                        constant: false,
-                    },
-                    c,
-                );
-                if let Some(k) = self.plain_leaf(cond) {
-                    let name = self.leaf_name(k).to_ascii_lowercase();
-                    let base = name.rsplit('.').next().unwrap_or(&name);
-                    if base.contains("rst") || base.contains("reset") {
-                        reset = Some((cond, t, false, ipos));
-                    }
+            let (edge, clock, clock_pos) = sigs[1 - k];
+            return Some((clock, edge, clock_pos, Some((cond, t, true, ipos))));
+        }
+        let (edge, clock, clock_pos) = sigs[0];
+        let mut reset = None;
+        if let Some((c, t, _, ipos)) = lead {
+            let cond = self.eval_bool(&ctx, c);
+            if let Some(k) = self.plain_leaf(cond) {
+                let name = self.leaf_name(k).to_ascii_lowercase();
+                let base = name.rsplit('.').next().unwrap_or(&name);
+                if base.contains("rst") || base.contains("reset") {
+                    reset = Some((cond, t, false, ipos));
                 }
             }
         }
+        Some((clock, edge, clock_pos, reset))
+    }
+
+    /// Elaborate a clocked `always` block in scope `scope` (written at `pos`).
+    pub(super) fn elab_clocked(&mut self, scope: u32, block: &Always, pos: Pos) {
+        let Sensitivity::List(events, _) = &block.sensitivity else {
+            return;
+        };
+        // After an error in the event list or the reset, the block's registers are still
+        // recorded (holding their value), so that no follow-on "not driven" error appears.
+        let found = self.clock_and_reset(scope, block, events);
+        let broken = found.is_none();
+        let (clock, edge, clock_pos, mut reset) =
+            found.unwrap_or((Lit::FALSE, Edge::Rising, pos, None));
         // The reset branch: constants for the registers it assigns.
         let mut reset_values: BTreeMap<(u32, u32), bool> = BTreeMap::new();
         if let Some((_, t, asynchronous, _)) = reset {
             let mut env = Env::default();
-            let before = self.errors.len();
             self.exec(scope, t, &mut env);
-            if self.errors.len() > before {
-                return;
-            }
             let mut constant = true;
-            for (&key, states) in &env.vars {
+            'vars: for (&key, states) in &env.vars {
                 let n = key & !NON_BLOCKING;
                 for (off, st) in states.iter().enumerate() {
                     match st {
@@ -243,7 +248,7 @@ impl Elab<'_> {
                                     format!("unsupported: the asynchronous reset branch gives `{nm}` a value that is not constant"),
                                     "assign constants in the reset branch (the reset state); load other values on the clock",
                                 );
-                                return;
+                                break 'vars;
                             }
                         }
                     }
@@ -257,11 +262,7 @@ impl Elab<'_> {
         }
         // The whole body: the next values.
         let mut env = Env::default();
-        let before = self.errors.len();
         self.exec(scope, &block.body, &mut env);
-        if self.errors.len() > before {
-            return;
-        }
         let mut rec = BlockRec {
             pos,
             ..BlockRec::default()
@@ -278,7 +279,6 @@ impl Elab<'_> {
                     format!("`{nm}` is assigned with both `=` and `<=` in this clocked block; simulation and synthesis read such a mix differently"),
                     "assign a register with `<=` only, and use `=` only for temporaries that are written before they are read",
                 );
-                continue;
             }
             let (states, lazy) = match (nb, bl) {
                 (Some(s), _) => (s.clone(), false),
@@ -306,15 +306,12 @@ impl Elab<'_> {
                 };
                 rec.roots.push(next);
                 let r = reset.and_then(|(cond, _, asynchronous, ipos)| {
-                    match reset_values.get(&(n, off as u32)) {
-                        Some(&value) => Some(ResetRec {
-                            cond,
-                            asynchronous,
-                            value,
-                            pos: ipos,
-                        }),
-                        None => None,
-                    }
+                    reset_values.get(&(n, off as u32)).map(|&value| ResetRec {
+                        cond,
+                        asynchronous,
+                        value,
+                        pos: ipos,
+                    })
                 });
                 if r.is_none() && reset.is_some_and(|x| x.2) {
                     let nm = self.bit_name(n, off as u32);
@@ -323,7 +320,6 @@ impl Elab<'_> {
                         format!("unsupported: `{nm}` is assigned in a block with an asynchronous reset but not in its reset branch"),
                         "give every register of the block a reset value, or move the registers without one to a block clocked without the reset",
                     );
-                    continue;
                 }
                 self.add_register(
                     RegRec {
@@ -334,6 +330,7 @@ impl Elab<'_> {
                         clock_pos,
                         reset: r,
                         lazy,
+                        broken,
                         pos,
                     },
                     n,
@@ -505,6 +502,16 @@ impl Elab<'_> {
     /// assigned with `<=` (those assigned with `=` get theirs when first read).
     pub(super) fn registers_begin(&mut self, r: &mut Resolver) {
         for i in 0..self.clocked.regs.len() {
+            let (leaf, pos) = (self.clocked.regs[i].leaf, self.clocked.regs[i].pos);
+            if let Some(d) = self.drivers[leaf as usize] {
+                let at = self.spos(pos);
+                let nm = self.leaf_name(leaf);
+                self.error(
+                    d.pos,
+                    format!("multiple drivers: `{nm}` is a register of the clocked block at {at} and is driven here too"),
+                    "drive each net bit from exactly one assignment, gate, port or always block",
+                );
+            }
             if !self.clocked.regs[i].lazy {
                 let k = self.register_input(r, i);
                 self.clocked.eager.push((i, k));
@@ -557,6 +564,9 @@ impl Elab<'_> {
             let (i, input) = todo[at];
             at += 1;
             let rec = self.clocked.regs[i].clone();
+            if rec.broken {
+                continue;
+            }
             let next = self.resolve(r, rec.next);
             let clock = self.resolve(r, rec.clock);
             let Some((cin, cinv)) = port_bit(r, clock) else {
@@ -621,7 +631,8 @@ fn port_bit(r: &Resolver, l: Lit) -> Option<(usize, bool)> {
     let Node::Input(k) = r.f.node(l.node()) else {
         return None;
     };
-    matches!(r.inputs[k as usize].kind, InputKind::Port).then_some((k as usize, l.is_complemented()))
+    matches!(r.inputs[k as usize].kind, InputKind::Port)
+        .then_some((k as usize, l.is_complemented()))
 }
 
 /// Where a statement is written, when it records that.

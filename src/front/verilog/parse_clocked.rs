@@ -3,8 +3,9 @@
 //! block means (registers, resets, enables) is decided by `elaborate/clocked.rs`.
 
 use super::ast::{Expr, Sensitivity, Stmt};
-use super::lexer::{Pos, Punct};
+use super::lexer::Punct;
 use super::parser::{PResult, Parser};
+use super::pos::Pos;
 
 impl Parser<'_, '_> {
     /// Whether an event control names a clock edge (`posedge`/`negedge`).

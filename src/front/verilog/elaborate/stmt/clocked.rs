@@ -15,19 +15,18 @@
 //! with both `=` and `<=`, or written with `=` in one clocked block and read by another
 //! (simulation order decides which value the reader sees), is an error naming it.
 
-use super::super::ast::{Always, Edge, Expr, NetType, Select, Sensitivity, Stmt};
-use super::super::lexer::Pos;
-use super::always::{BitState, Env};
-use super::bits;
-use super::expr::EvalContext;
-use super::resolve::Resolver;
-use super::{Elab, UNKNOWN_BIT};
+use super::super::bits;
+use super::super::context::{BitState, Env, EvalContext};
+use super::super::resolve::Resolver;
+use super::super::{Elaborator, UNKNOWN_BIT};
 use crate::aig::{Lit, Node};
 use crate::design::{ClockEdge, InputBit, InputKind, Register, RegisterReset};
+use crate::front::verilog::ast::{Always, Edge, Expr, NetType, Select, Sensitivity, Stmt};
+use crate::front::verilog::pos::Pos;
 use std::collections::{BTreeMap, BTreeSet};
 
 /// The flag that marks a non-blocking value's key in an [`Env`] (reads never see it).
-pub(super) const NON_BLOCKING: u32 = 1 << 31;
+pub(crate) const NON_BLOCKING: u32 = 1 << 31;
 
 /// A reset of one register bit, before the design is built.
 #[derive(Clone, Copy, Debug)]
@@ -69,7 +68,7 @@ struct BlockRec {
 
 /// The registers found so far and what the build needs of them.
 #[derive(Debug, Default)]
-pub(super) struct Clocked {
+pub(crate) struct Clocked {
     regs: Vec<RegRec>,
     by_leaf: crate::hash::FastMap<u32, usize>,
     blocks: Vec<BlockRec>,
@@ -98,9 +97,9 @@ fn leading_if(body: &Stmt) -> Option<(&Expr, &Stmt, Option<&Stmt>, Pos)> {
     }
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Whether leaf `k` is a register bit.
-    pub(super) fn is_register_leaf(&self, k: u32) -> bool {
+    pub(crate) fn is_register_leaf(&self, k: u32) -> bool {
         self.clocked.by_leaf.contains_key(&k)
     }
 
@@ -125,7 +124,7 @@ impl Elab<'_> {
 
     /// The leaf a literal reads directly (a net bit, possibly inverted).
     fn plain_leaf(&self, l: Lit) -> Option<u32> {
-        match self.g.node(l.node()) {
+        match self.aig.node(l.node()) {
             Node::Input(k) if self.owner[k as usize] & UNKNOWN_BIT == 0 => Some(k),
             _ => None,
         }
@@ -138,7 +137,7 @@ impl Elab<'_> {
         &mut self,
         scope: u32,
         block: &'b Always,
-        events: &[super::super::ast::Event],
+        events: &[crate::front::verilog::ast::Event],
     ) -> Option<(Lit, Edge, Pos, Option<(Lit, &'b Stmt, bool, Pos)>)> {
         let Sensitivity::List(_, at) = &block.sensitivity else {
             return None;
@@ -215,7 +214,7 @@ impl Elab<'_> {
     }
 
     /// Elaborate a clocked `always` block in scope `scope` (written at `pos`).
-    pub(super) fn elab_clocked(&mut self, scope: u32, block: &Always, pos: Pos) {
+    pub(crate) fn elab_clocked(&mut self, scope: u32, block: &Always, pos: Pos) {
         let Sensitivity::List(events, _) = &block.sensitivity else {
             return;
         };
@@ -295,12 +294,12 @@ impl Elab<'_> {
             }
             for (off, st) in states.iter().enumerate() {
                 let leaf = self.nets[n as usize].first + off as u32;
-                let cur = self.g.input_lit(leaf as usize);
+                let cur = self.aig.input_lit(leaf as usize);
                 let next = match *st {
                     BitState::Set(v) => v,
                     BitState::Partial {
                         value, assigned, ..
-                    } => self.g.mux(assigned, value, cur),
+                    } => self.aig.mux(assigned, value, cur),
                     BitState::Unset(Some(_)) => cur,
                     BitState::Unset(None) => continue,
                 };
@@ -343,7 +342,7 @@ impl Elab<'_> {
 
     fn add_register(&mut self, r: RegRec, n: u32, off: u32) {
         if let Some(&other) = self.clocked.by_leaf.get(&r.leaf) {
-            let first = self.spos(self.clocked.regs[other].pos);
+            let first = self.source_pos(self.clocked.regs[other].pos);
             let bn = self.bit_name(n, off);
             self.error(
                 r.pos,
@@ -353,7 +352,7 @@ impl Elab<'_> {
             return;
         }
         if let Some(d) = self.drivers[r.leaf as usize] {
-            let first = self.spos(d.pos);
+            let first = self.source_pos(d.pos);
             let bn = self.bit_name(n, off);
             self.error(
                 r.pos,
@@ -368,7 +367,7 @@ impl Elab<'_> {
 
     /// `lhs <= rhs;`: the value goes to the target's non-blocking slot, which later reads
     /// in the block do not see.
-    pub(super) fn non_blocking(
+    pub(crate) fn non_blocking(
         &mut self,
         scope: u32,
         lhs: &Expr,
@@ -389,7 +388,7 @@ impl Elab<'_> {
                     let Some(n) = self.target_net(scope, *sym, *ipos, true) else {
                         return;
                     };
-                    let t = self.ty(&ctx, rhs);
+                    let t = self.expr_type(&ctx, rhs);
                     let v = self.eval(&ctx, rhs, t.width.max(1), t.signed)[0];
                     let net = self.nets[n as usize].clone();
                     let ww = iv.bits.len() + 66;
@@ -401,12 +400,12 @@ impl Elab<'_> {
                         .unwrap_or_else(|| vec![BitState::Unset(None); net.width as usize]);
                     for (off, slot) in slots.iter_mut().enumerate() {
                         let idx = bits::constant(net.index(off as u32), ww);
-                        let hit = bits::eq(&mut self.g, &ie, &idx);
+                        let hit = bits::eq(&mut self.aig, &ie, &idx);
                         if hit == Lit::FALSE {
                             continue;
                         }
                         *slot = match *slot {
-                            BitState::Set(old) => BitState::Set(self.g.mux(hit, v, old)),
+                            BitState::Set(old) => BitState::Set(self.aig.mux(hit, v, old)),
                             BitState::Unset(_) if hit == Lit::TRUE => BitState::Set(v),
                             BitState::Unset(_) => BitState::Partial {
                                 value: v,
@@ -418,8 +417,8 @@ impl Elab<'_> {
                                 assigned,
                                 gap,
                             } => {
-                                let value = self.g.mux(hit, v, value);
-                                let assigned = self.g.or(hit, assigned);
+                                let value = self.aig.mux(hit, v, value);
+                                let assigned = self.aig.or(hit, assigned);
                                 self.settle(value, assigned, gap)
                             }
                         };
@@ -432,7 +431,7 @@ impl Elab<'_> {
         let Some(targets) = self.targets(&ctx, lhs, true) else {
             return;
         };
-        let t = self.ty(&ctx, rhs);
+        let t = self.expr_type(&ctx, rhs);
         let w = targets.len().max(t.width);
         let v = self.eval(&ctx, rhs, w, t.signed);
         for (k, (n, off)) in targets.iter().enumerate() {
@@ -450,7 +449,7 @@ impl Elab<'_> {
     /// After every module is elaborated: a variable written with `=` in one clocked block
     /// and read directly by another is an error (its value there depends on the order the
     /// simulator runs the blocks in).
-    pub(super) fn check_clocked_blocks(&mut self) {
+    pub(crate) fn check_clocked_blocks(&mut self) {
         let blocks = std::mem::take(&mut self.clocked.blocks);
         let mut writer: BTreeMap<u32, (usize, Pos)> = BTreeMap::new();
         for (b, rec) in blocks.iter().enumerate() {
@@ -464,13 +463,13 @@ impl Elab<'_> {
         let mut marks = crate::aig::Marks::new();
         let mut reported = BTreeSet::new();
         for (b, rec) in blocks.iter().enumerate() {
-            marks.start(self.g.len());
+            marks.start(self.aig.len());
             let mut stack: Vec<u32> = rec.roots.iter().map(|l| l.node()).collect();
             while let Some(x) = stack.pop() {
                 if !marks.mark(x as usize) {
                     continue;
                 }
-                match self.g.node(x) {
+                match self.aig.node(x) {
                     Node::And(a, c) => {
                         stack.push(a.node());
                         stack.push(c.node());
@@ -500,11 +499,11 @@ impl Elab<'_> {
 
     /// Before the outputs are resolved: an input of kind register for each register bit
     /// assigned with `<=` (those assigned with `=` get theirs when first read).
-    pub(super) fn registers_begin(&mut self, r: &mut Resolver) {
+    pub(in crate::front::verilog::elaborate) fn registers_begin(&mut self, r: &mut Resolver) {
         for i in 0..self.clocked.regs.len() {
             let (leaf, pos) = (self.clocked.regs[i].leaf, self.clocked.regs[i].pos);
             if let Some(d) = self.drivers[leaf as usize] {
-                let at = self.spos(pos);
+                let at = self.source_pos(pos);
                 let nm = self.leaf_name(leaf);
                 self.error(
                     d.pos,
@@ -522,13 +521,13 @@ impl Elab<'_> {
     /// The input of register `i`, created now.
     fn register_input(&mut self, r: &mut Resolver, i: usize) -> usize {
         let leaf = self.clocked.regs[i].leaf;
-        let lit = r.f.add_input();
+        let lit = r.design_aig.add_input();
         r.primary.insert(leaf, lit);
         let o = self.owner[leaf as usize];
         let net = &self.nets[o as usize];
         let idx = net.vector.then(|| net.index(leaf - net.first));
         let name = self.net_name(o);
-        let pos = self.spos(self.clocked.regs[i].pos);
+        let pos = self.source_pos(self.clocked.regs[i].pos);
         let mut bit = InputBit::port(&name, idx, Some(pos));
         bit.kind = InputKind::Register;
         r.used_names.insert(bit.name.clone());
@@ -538,7 +537,11 @@ impl Elab<'_> {
 
     /// While resolving: leaf `k` read as a register assigned with `=` (its input, created on
     /// first use).
-    pub(super) fn lazy_register(&mut self, r: &mut Resolver, k: u32) -> Option<Lit> {
+    pub(in crate::front::verilog::elaborate) fn lazy_register(
+        &mut self,
+        r: &mut Resolver,
+        k: u32,
+    ) -> Option<Lit> {
         let &i = self.clocked.by_leaf.get(&k)?;
         if !self.clocked.regs[i].lazy {
             return None;
@@ -549,7 +552,10 @@ impl Elab<'_> {
     }
 
     /// After the outputs: each register's next value, clock and reset in the design's graph.
-    pub(super) fn registers_finish(&mut self, r: &mut Resolver) -> Vec<Register> {
+    pub(in crate::front::verilog::elaborate) fn registers_finish(
+        &mut self,
+        r: &mut Resolver,
+    ) -> Vec<Register> {
         let mut todo: Vec<(usize, usize)> = std::mem::take(&mut self.clocked.eager);
         let mut out = Vec::new();
         let mut at = 0;
@@ -628,7 +634,7 @@ impl Elab<'_> {
 
 /// The port bit a literal of the design's graph is (number, inverted), if it is one.
 fn port_bit(r: &Resolver, l: Lit) -> Option<(usize, bool)> {
-    let Node::Input(k) = r.f.node(l.node()) else {
+    let Node::Input(k) = r.design_aig.node(l.node()) else {
         return None;
     };
     matches!(r.inputs[k as usize].kind, InputKind::Port)

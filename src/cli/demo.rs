@@ -29,6 +29,21 @@ pub fn run(a: &DemoArgs) -> Exit {
             }
             eprintln!("wrote {path}");
         }
+        let at = |name: &str| format!("{}/{name}", dir.trim_end_matches('/'));
+        let files = match crate::demo::trace_files(
+            &at("t7_sensor_reg_spec.v"),
+            &at("t7_sensor_reg_r5.v"),
+        ) {
+            Ok(f) => f,
+            Err(m) => return report_internal(&m),
+        };
+        for (name, text) in files {
+            let path = at(&name);
+            if let Err(e) = write_atomic(&path, text.as_bytes()) {
+                return report_input_error(&e);
+            }
+            eprintln!("wrote {path}");
+        }
         return Exit::Ok;
     }
     match crate::demo::run() {

@@ -11,7 +11,7 @@
 //! matters.
 
 use super::cubes::{cover_root, CoverEnd, CubeLimits};
-use super::notation::{term_text, Term};
+use super::notation::{merge_pairs, term_text, Term};
 use super::trace_run::initial_state;
 use crate::aig::{Aig, Lit};
 use crate::design::{Design, InputKind};
@@ -157,42 +157,38 @@ pub fn trace_cubes(
     let (a, b) = (ro[k][i], co[k][j]);
     let root = aig.xor(a, b);
     let cov = cover_root(aig, root, Some(&first), cl, limits);
+    let names: Vec<String> = at
+        .iter()
+        .map(|&(cy, p)| t.cycles[cy].inputs[p].name.clone())
+        .collect();
     let mut cubes = Vec::new();
-    let mut terms = Vec::new();
     for cube in &cov.cubes {
-        let mut by_cycle: BTreeMap<usize, Vec<(usize, bool)>> = BTreeMap::new();
+        let mut by_cycle: BTreeMap<usize, serde_json::Map<String, serde_json::Value>> =
+            BTreeMap::new();
         for &(u, v) in &cube.lits {
-            let (cy, p) = at[u];
-            by_cycle.entry(cy).or_default().push((p, v));
+            by_cycle
+                .entry(at[u].0)
+                .or_default()
+                .insert(names[u].clone(), serde_json::Value::from(v as u8));
         }
-        let mut parts = Vec::new();
-        let mut list = Vec::new();
-        for (cy, lits) in &by_cycle {
-            let names: Vec<String> = t.cycles[*cy]
-                .inputs
-                .iter()
-                .map(|x| x.name.clone())
-                .collect();
-            let term = Term {
-                fixed: lits.clone(),
-                relation: None,
-            };
-            parts.push(format!("cycle {cy}: {}", term_text(&term, &names)));
-            list.push(CycleInputs {
-                cycle: *cy,
-                inputs: lits
-                    .iter()
-                    .map(|&(p, v)| (names[p].clone(), serde_json::Value::from(v as u8)))
-                    .collect(),
-            });
-        }
-        terms.push(if parts.is_empty() {
-            "always".to_string()
-        } else {
-            parts.join("; ")
-        });
-        cubes.push(list);
+        cubes.push(
+            by_cycle
+                .into_iter()
+                .map(|(cycle, inputs)| CycleInputs { cycle, inputs })
+                .collect(),
+        );
     }
+    // Text: cubes equal but for two flipped inputs of one cycle merge into a relation.
+    // (Names qualified by cycle, so that a bus is one cycle's bits.)
+    let qualified: Vec<String> = at
+        .iter()
+        .zip(&names)
+        .map(|(&(cy, _), n)| format!("c{cy}.{n}"))
+        .collect();
+    let terms = merge_pairs(&cov.cubes, &qualified)
+        .iter()
+        .map(|term| term_line(term, &at, t))
+        .collect();
     Ok(TraceCubes {
         reference: od.reference.clone(),
         candidate: od.candidate.clone(),
@@ -207,6 +203,56 @@ pub fn trace_cubes(
         cubes,
         terms,
     })
+}
+
+/// One line of the text form: per cycle, its fixed inputs (and a relation between two of them).
+fn term_line(term: &Term, at: &[(usize, usize)], t: &Trace) -> String {
+    let mut by_cycle: BTreeMap<usize, Term> = BTreeMap::new();
+    for &(u, v) in &term.fixed {
+        let (cy, p) = at[u];
+        by_cycle
+            .entry(cy)
+            .or_insert(Term {
+                fixed: Vec::new(),
+                relation: None,
+            })
+            .fixed
+            .push((p, v));
+    }
+    let mut extra = None;
+    if let Some((x, y, eq)) = term.relation {
+        let ((cx, px), (cy, py)) = (at[x], at[y]);
+        if cx == cy {
+            by_cycle
+                .entry(cx)
+                .or_insert(Term {
+                    fixed: Vec::new(),
+                    relation: None,
+                })
+                .relation = Some((px, py, eq));
+        } else {
+            let n = |c: usize, p: usize| format!("{} (cycle {c})", t.cycles[c].inputs[p].name);
+            let op = if eq { "==" } else { "!=" };
+            extra = Some(format!("{}{op}{}", n(cx, px), n(cy, py)));
+        }
+    }
+    let mut parts: Vec<String> = by_cycle
+        .iter()
+        .map(|(cy, term)| {
+            let names: Vec<String> = t.cycles[*cy]
+                .inputs
+                .iter()
+                .map(|x| x.name.clone())
+                .collect();
+            format!("cycle {cy}: {}", term_text(term, &names))
+        })
+        .collect();
+    parts.extend(extra);
+    if parts.is_empty() {
+        "always".to_string()
+    } else {
+        parts.join("; ")
+    }
 }
 
 /// The text form: how far the cover goes, then one line per cube.

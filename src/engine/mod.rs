@@ -67,13 +67,14 @@ pub enum EngineKind {
 
 impl EngineKind {
     /// Every engine, in the order of the command line's list.
-    pub const ALL: [EngineKind; 6] = [
+    pub const ALL: [EngineKind; 7] = [
         EngineKind::Portfolio,
         EngineKind::Sweep,
         EngineKind::Plain,
         EngineKind::Pairs,
         EngineKind::Exhaustive,
         EngineKind::Bdd,
+        EngineKind::Algebra,
     ];
 
     /// Name used in reports.

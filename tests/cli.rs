@@ -578,3 +578,37 @@ mod shards {
         assert_eq!(code(&equicone(&["merge", &a, &b])), 0);
     }
 }
+
+/// Issue 15 item 8: the bench `MUX(s, a, b)` gate and the `VDD`/`GND` constants, checked against
+/// the Verilog reader (`s ? a : b` and `1'b1`/`1'b0` per IEEE 1364-2005 clause 5.1.13), a
+/// front-end written separately; the swapped input order is found different.
+mod bench_mux_and_constants {
+    use super::*;
+
+    const BENCH: &str = "\u{feff}# selector with tie cells\nINPUT(s)\nINPUT(a)\nINPUT(b)\nOUTPUT(y)\nOUTPUT(k)\n\
+        hi = VDD\nlo = gnd()\nm = MUX(s, a, b)\ny = AND(m, hi)\nk = OR(lo, s)\n";
+
+    #[test]
+    fn equal_to_the_verilog_reading_and_the_swap_is_different() {
+        let b = tmp("mux_const.bench");
+        std::fs::write(&b, BENCH).unwrap();
+        let v = tmp("mux_const.v");
+        std::fs::write(
+            &v,
+            "module m(input s, a, b, output y, k);\n  assign y = s ? a : b;\n  assign k = s | 1'b0;\nendmodule\n",
+        )
+        .unwrap();
+        let o = equicone(&["prove", b.to_str().unwrap(), v.to_str().unwrap()]);
+        assert_eq!(code(&o), 0, "{}", stdout(&o));
+        let w = tmp("mux_swapped.v");
+        std::fs::write(
+            &w,
+            "module m(input s, a, b, output y, k);\n  assign y = s ? b : a;\n  assign k = s;\nendmodule\n",
+        )
+        .unwrap();
+        let o = equicone(&["prove", b.to_str().unwrap(), w.to_str().unwrap()]);
+        assert_eq!(code(&o), 1, "{}", stdout(&o));
+        let o = equicone(&["stats", b.to_str().unwrap()]);
+        assert_eq!(code(&o), 0, "{}", stdout(&o));
+    }
+}

@@ -585,7 +585,8 @@ mod shards {
 mod bench_mux_and_constants {
     use super::*;
 
-    const BENCH: &str = "\u{feff}# selector with tie cells\nINPUT(s)\nINPUT(a)\nINPUT(b)\nOUTPUT(y)\nOUTPUT(k)\n\
+    const BENCH: &str =
+        "\u{feff}# selector with tie cells\nINPUT(s)\nINPUT(a)\nINPUT(b)\nOUTPUT(y)\nOUTPUT(k)\n\
         hi = VDD\nlo = gnd()\nm = MUX(s, a, b)\ny = AND(m, hi)\nk = OR(lo, s)\n";
 
     #[test]

@@ -570,9 +570,14 @@ mod tests {
     fn mux_arity_and_constant_inputs_are_errors() {
         let e = read("INPUT(s)\nINPUT(a)\nOUTPUT(y)\ny = MUX(s, a)\n").unwrap_err();
         let t = e.to_string();
-        assert!(t.contains("4:5") && t.contains("needs exactly 3 inputs"), "{t}");
+        assert!(
+            t.contains("4:5") && t.contains("needs exactly 3 inputs"),
+            "{t}"
+        );
         assert!(t.contains("`y = MUX(s, a, b)` is `s ? a : b`"), "{t}");
-        let e = read("INPUT(a)\nOUTPUT(y)\ny = VDD(a)\n").unwrap_err().to_string();
+        let e = read("INPUT(a)\nOUTPUT(y)\ny = VDD(a)\n")
+            .unwrap_err()
+            .to_string();
         assert!(e.contains("3:9") && e.contains("it takes no inputs"), "{e}");
     }
 

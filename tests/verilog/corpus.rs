@@ -165,6 +165,27 @@ fn icarus_agrees_on_every_input_value() {
             bug_differs,
             "{name}: Icarus sees no difference of the mutant"
         );
+        // Our counterexample for the mutant: at that input value Icarus shows a defined spec
+        // bit that the mutant does not have (a difference where the reference is defined).
+        let bug = top(&name, &text, "bug");
+        let req = CheckRequest {
+            diagnosis: DiagnosisRequest::Off,
+            ..CheckRequest::new(&spec, &bug)
+        };
+        let rep = check(&req).expect("check").report;
+        let cex = &rep.counterexamples[0];
+        let mut v = 0usize;
+        for (k, &idx) in lsb_order(&spec).iter().enumerate() {
+            let want = &spec.inputs[idx].name;
+            let bit = cex.inputs.iter().find(|i| &i.name == want).expect("input");
+            v |= (bit.value as usize) << k;
+        }
+        let f: Vec<&[u8]> = lines[v].split(' ').map(str::as_bytes).collect();
+        assert!(
+            (0..f[0].len()).any(|j| f[0][j] != b'x' && f[0][j] != f[2][j]),
+            "{name}: our counterexample {v:#x} is no difference in Icarus: {}",
+            lines[v]
+        );
     }
 }
 

@@ -8,6 +8,7 @@ pub mod ast;
 mod elaborate;
 
 pub mod lexer;
+mod parse_clocked;
 mod parse_expr;
 mod parse_gate;
 mod parse_gen;

@@ -108,7 +108,11 @@ impl Parser<'_, '_> {
                     self.expect_p(Punct::Semi, "`;` after the assignment")?;
                     return Ok(Stmt::Assign(lhs, rhs, p));
                 }
-                if self.eat_p(Punct::Le) {
+                if self.peek_p(Punct::Le) {
+                    if self.in_clocked {
+                        return self.non_blocking(lhs, p);
+                    }
+                    self.bump();
                     return Err(self
                         .unsupported(p, "non-blocking assignment `<=` in `always @*` (use `=`)"));
                 }

@@ -31,6 +31,8 @@ pub struct Parser<'s, 'n> {
     depth: usize,
     /// Tokens taken so far (error recovery checks that it moved on).
     taken: u64,
+    /// Inside the body of a clocked `always` block (non-blocking assignments allowed).
+    pub(super) in_clocked: bool,
 }
 
 impl<'s, 'n> Parser<'s, 'n> {
@@ -55,6 +57,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             warnings: Vec::new(),
             depth: 0,
             taken: 0,
+            in_clocked: false,
         }
     }
 
@@ -692,17 +695,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         } else if k == kw::ALWAYS {
             self.bump();
             let sensitivity = self.event_control()?;
-            if let Sensitivity::List(events, at) = &sensitivity {
-                if events.iter().any(|e| e.edge.is_some()) {
-                    // Registers are not read yet: their lowering belongs in
-                    // `elaborate/clocked.rs`, with `<=` parsed for these blocks only.
-                    let at = *at;
-                    self.unsupported(at, "`always` block with a clock edge (`posedge`/`negedge`) in its event list: equicone reads combinational logic (`always @*`, `always @(a or b)`, `always_comb`)");
-                    self.skip_statement();
-                    return Ok(());
-                }
-            }
-            let body = self.stmt()?;
+            let body = self.always_body(&sensitivity)?;
             out.push(Item::Always(Box::new(Always { sensitivity, body }), pos));
         } else if k == kw::GENERATE {
             self.bump();
@@ -746,9 +739,23 @@ impl<'s, 'n> Parser<'s, 'n> {
             let body = self.stmt()?;
             let sensitivity = Sensitivity::Implicit;
             out.push(Item::Always(Box::new(Always { sensitivity, body }), pos));
-        } else if self.names.name(k) == "always_latch" || self.names.name(k) == "always_ff" {
-            let n = self.names.name(k).to_string();
-            self.unsupported(pos, format!("`{n}` (equicone reads combinational logic: `always @*`, `always @(...)` or `always_comb`)"));
+        } else if self.names.name(k) == "always_ff" {
+            // IEEE 1800-2017 clause 9.2.2.4 (from memory): edge-triggered logic only.
+            self.bump();
+            let sensitivity = self.event_control()?;
+            if !Self::has_edge(&sensitivity) {
+                let at = match &sensitivity {
+                    Sensitivity::List(_, at) => *at,
+                    Sensitivity::Implicit => pos,
+                };
+                self.unsupported(at, "`always_ff` without a clock edge: its event list must name `posedge` or `negedge` events (use `always_comb` for combinational logic)");
+                self.skip_statement();
+                return Ok(());
+            }
+            let body = self.always_body(&sensitivity)?;
+            out.push(Item::Always(Box::new(Always { sensitivity, body }), pos));
+        } else if self.names.name(k) == "always_latch" {
+            self.unsupported(pos, "`always_latch` (latches are not read: equicone reads combinational logic and registers clocked by an edge, `always @(posedge clk)`/`always_ff`)");
             self.bump();
             self.skip_statement();
         } else {

@@ -190,7 +190,10 @@ fn verilog_output_reads_back_and_is_proved_equal_to_its_renamed_copy_with_invert
         let rep = seq::check(&r, &c, &SeqOptions::default()).expect("checks");
         let what = spec.command_line(GenFormat::Verilog);
         assert_eq!(rep.verdict, "equivalent", "{what}:\n{rep}");
-        // Half the registers are stored inverted: in Verilog (reset values) the pairing says so.
-        assert!(rep.pairs.iter().any(|p| p.inverted), "{what}:\n{rep}");
+        // Half the registers are stored inverted: in Verilog (reset values) the pairing says so
+        // (a 2-state one-hot machine's two bits are complements, so either pairing is right).
+        if !(spec.kind == Kind::Fsm && spec.n == 2) {
+            assert!(rep.pairs.iter().any(|p| p.inverted), "{what}:\n{rep}");
+        }
     }
 }

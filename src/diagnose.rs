@@ -9,6 +9,7 @@ use crate::engine::{ProveReport, Verdict};
 use crate::routes::{self, Route};
 use crate::sat::Limits;
 use serde::Serialize;
+use std::collections::{BTreeMap, BTreeSet};
 
 /// Route tables of one differing output pair.
 #[derive(Clone, Debug, PartialEq, Serialize)]
@@ -78,10 +79,25 @@ pub fn diagnose(
     // hint to a miswired input (and an assumption may exclude the cases that read them).
     let is_unknown =
         |d: &Design, n: &String| d.input_index(n).is_some_and(|k| d.inputs[k].is_unknown());
+    // Paired bits whose names differ (`--pair-by position`): the candidate's name of each
+    // reference bit, so that supports are compared by paired bits, not by names.
+    let partner: BTreeMap<&str, &str> = rep
+        .counterexamples
+        .first()
+        .map(|cx| {
+            cx.inputs
+                .iter()
+                .filter_map(|i| Some((i.name.as_str(), i.candidate_name.as_deref()?)))
+                .collect()
+        })
+        .unwrap_or_default();
     let supports = differing
         .iter()
         .map(|&(ri, ci)| {
             let mut cmp = crate::cone::compare_supports(r, ri, c, ci, limits);
+            if !partner.is_empty() {
+                by_partner(&mut cmp, &partner);
+            }
             cmp.only_reference.retain(|n| !is_unknown(r, n));
             cmp.only_candidate.retain(|n| !is_unknown(c, n));
             cmp
@@ -113,6 +129,27 @@ pub fn diagnose(
         select: sel.map(|(b, _, _)| b.to_string()),
         routes: routes_out,
     })
+}
+
+/// Recompute the differences of `cmp` with each reference bit standing for its partner's
+/// name in the candidate (bits without a renamed partner keep their own names).
+fn by_partner(cmp: &mut SupportComparison, partner: &BTreeMap<&str, &str>) {
+    let theirs = |n: &String| partner.get(n.as_str()).map_or(n.clone(), |p| p.to_string());
+    let undecided: BTreeSet<String> = cmp.undecided.iter().cloned().collect();
+    let rset: BTreeSet<String> = cmp.reference.iter().map(theirs).collect();
+    let cset: BTreeSet<&String> = cmp.candidate.iter().collect();
+    cmp.only_reference = cmp
+        .reference
+        .iter()
+        .filter(|n| !cset.contains(&theirs(n)) && !undecided.contains(*n))
+        .cloned()
+        .collect();
+    cmp.only_candidate = cmp
+        .candidate
+        .iter()
+        .filter(|n| !rset.contains(*n) && !undecided.contains(*n))
+        .cloned()
+        .collect();
 }
 
 /// The select values whose routes are proved different (both decided, not excluded, not
@@ -148,11 +185,7 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
         } else {
             s += "\nsupports that differ (exact, decided by simulation and SAT)\n";
             for c in differ {
-                let label = if c.reference_output == c.candidate_output {
-                    c.reference_output.clone()
-                } else {
-                    format!("{} ~ {}", c.reference_output, c.candidate_output)
-                };
+                let label = crate::report::pair_label(&c.reference_output, &c.candidate_output);
                 s += &format!("  {label}\n");
                 if !c.only_reference.is_empty() {
                     s += &format!(
@@ -174,11 +207,7 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
         "\nroute tables over `{select}` for the differing outputs (each route proved by SAT)\n"
     );
     for t in &d.routes {
-        let label = if t.reference == t.candidate {
-            t.reference.clone()
-        } else {
-            format!("{} ~ {}", t.reference, t.candidate)
-        };
+        let label = crate::report::pair_label(&t.reference, &t.candidate);
         s += &format!("  {label}\n");
         let rr = routes::render(select, &routes::compress(&t.reference_routes));
         let cr = routes::render(select, &routes::compress(&t.candidate_routes));

@@ -26,14 +26,18 @@ impl MiterCnf {
     }
 }
 
-/// Pair `r` and `c` and build their miter.
+/// Pair `r` and `c` and build their miter, asserting the conjunction of `assumptions` (Verilog
+/// expressions over the input ports, as `--assume` takes them) by a unit clause that the
+/// comments name.
 pub fn miter_cnf(
     r: &Design,
     c: &Design,
     pair_by: PairBy,
     free_extra_inputs: bool,
+    assumptions: &[String],
 ) -> Result<MiterCnf, InputError> {
-    let shared = engine::pair(r, c, pair_by, free_extra_inputs)?;
+    let mut shared = engine::pair(r, c, pair_by, free_extra_inputs)?;
+    crate::assume::apply_to_shared(&mut shared, r, c, assumptions)?;
     let mut f = varisat::CnfFormula::new();
     let mut ts = Tseitin::new();
     let mut xors = Vec::new();
@@ -52,6 +56,11 @@ pub fn miter_cnf(
             dimacs::dimacs_number(v),
             side.only_note()
         ));
+    }
+    if shared.constraint != crate::aig::Lit::TRUE {
+        let a = ts.lit(&shared.aig, &mut f, shared.constraint);
+        f.clause(&[a]);
+        comments.extend(dimacs::assumption_comments(assumptions, a));
     }
     for p in 0..shared.pairs.len() {
         let x = ts.lit(&shared.aig, &mut f, shared.ref_lits[p]);

@@ -236,6 +236,10 @@ pub struct CnfArgs {
     /// Where to write the DIMACS file.
     #[arg(short = 'o', long = "output", value_name = "FILE")]
     output: String,
+    /// Only input vectors where this Verilog expression over the input ports holds (asserted
+    /// by a unit clause, recorded in the comments; repeatable: all must hold).
+    #[arg(long, value_name = "EXPR")]
+    assume: Vec<String>,
 }
 
 /// Run `prove`: read both designs, hand them to the check session, print its outcome.
@@ -399,7 +403,13 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         eprintln!("error: cnf writes the miter of combinational designs, and {} has registers\n  help: use `prove` for clocked designs", if r.is_clocked() { &r.name } else { &c.name });
         return Exit::BadInput;
     }
-    let miter = match check::miter_cnf(&r, &c, a.pair.pair_by.into(), a.pair.free_extra_inputs) {
+    let miter = match check::miter_cnf(
+        &r,
+        &c,
+        a.pair.pair_by.into(),
+        a.pair.free_extra_inputs,
+        &a.assume,
+    ) {
         Ok(m) => m,
         Err(e) => return report_input_error(&e),
     };

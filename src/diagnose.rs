@@ -37,6 +37,11 @@ pub struct Diagnosis {
     pub select: Option<String>,
     /// One entry per differing output pair (at most [`MAX_TABLES`]).
     pub routes: Vec<RouteDiff>,
+    /// A limit (the diagnosis's time share, the run's `--timeout`, the conflict limit) cut it:
+    /// some supports or routes are undecided, which makes no claim either way.
+    pub partial: bool,
+    /// Wall-clock seconds the diagnosis took.
+    pub seconds: f64,
 }
 
 /// Route tables are built for at most this many differing output pairs.
@@ -68,6 +73,7 @@ pub fn diagnose(
     if rep.verdict != Verdict::Different {
         return None;
     }
+    let start = std::time::Instant::now();
     let differing: Vec<(usize, usize)> = rep
         .pairs
         .iter()
@@ -91,7 +97,7 @@ pub fn diagnose(
                 .collect()
         })
         .unwrap_or_default();
-    let supports = differing
+    let supports: Vec<SupportComparison> = differing
         .iter()
         .map(|&(ri, ci)| {
             let mut cmp = crate::cone::compare_supports(r, ri, c, ci, limits);
@@ -124,10 +130,17 @@ pub fn diagnose(
             });
         }
     }
+    let partial = limits.expired()
+        || supports
+            .iter()
+            .any(|c: &SupportComparison| !c.undecided.is_empty())
+        || routes_out.iter().any(|t| !t.undecided_values.is_empty());
     Some(Diagnosis {
         supports,
         select: sel.map(|(b, _, _)| b.to_string()),
         routes: routes_out,
+        partial,
+        seconds: start.elapsed().as_secs_f64(),
     })
 }
 
@@ -174,13 +187,22 @@ fn split_values(r: &[Route], c: &[Route]) -> (Vec<usize>, Vec<usize>) {
 /// select value marked with `!`.
 pub fn diagnosis_text(d: &Diagnosis) -> String {
     let mut s = String::new();
+    if d.partial {
+        s += "\ndiagnosis   partial: a limit cut it (its time share, --diagnosis-time, or the run's --timeout); undecided entries make no claim\n";
+    }
     let differ: Vec<&SupportComparison> = d.supports.iter().filter(|c| c.differs()).collect();
     if !d.supports.is_empty() {
-        if differ.is_empty() {
+        let open: usize = d.supports.iter().map(|c| c.undecided.len()).sum();
+        if differ.is_empty() && open == 0 {
             s += &format!(
                 "\nsupports of the differing outputs: the same inputs on both sides ({} pair{} compared)\n",
                 d.supports.len(),
                 if d.supports.len() == 1 { "" } else { "s" }
+            );
+        } else if differ.is_empty() {
+            s += &format!(
+                "\nsupports of the differing outputs: no difference among the inputs decided; {open} input{} undecided (a limit stopped them; no claim)\n",
+                if open == 1 { "" } else { "s" }
             );
         } else {
             s += "\nsupports that differ (exact, decided by simulation and SAT)\n";
@@ -292,6 +314,8 @@ mod tests {
                 differing_values: vec![1],
                 undecided_values: vec![2, 3],
             }],
+            partial: true,
+            seconds: 0.0,
         };
         let t = &d.routes[0];
         let (differing, undecided) = split_values(&t.reference_routes, &t.candidate_routes);

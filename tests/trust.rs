@@ -4,6 +4,8 @@
 
 #[path = "trust/assume.rs"]
 mod assume;
+#[path = "trust/bounded.rs"]
+mod bounded;
 #[path = "trust/common.rs"]
 mod common;
 #[path = "trust/display.rs"]
@@ -12,6 +14,8 @@ mod display;
 mod ranges;
 #[path = "runner/mod.rs"]
 mod runner;
+#[path = "trust/schema.rs"]
+mod schema;
 #[allow(dead_code)]
 #[path = "verilog/common.rs"]
 mod vcommon;

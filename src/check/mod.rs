@@ -37,6 +37,9 @@ pub enum DiagnosisRequest {
     Select(String),
 }
 
+/// The diagnosis's default time share (`prove --diagnosis-time`).
+pub const DIAGNOSIS_TIME: std::time::Duration = std::time::Duration::from_secs(10);
+
 /// One comparison to run.
 #[derive(Clone, Debug)]
 pub struct CheckRequest<'a> {
@@ -57,6 +60,9 @@ pub struct CheckRequest<'a> {
     pub explain: Option<CubeLimits>,
     /// Keep the paired graph in the outcome, to replay counterexamples (VCD, testbench).
     pub keep_pairing: bool,
+    /// The diagnosis's own time share (it also stops at the session's deadline); `None`:
+    /// the deadline alone.
+    pub diagnosis_time: Option<std::time::Duration>,
 }
 
 impl<'a> CheckRequest<'a> {
@@ -72,6 +78,7 @@ impl<'a> CheckRequest<'a> {
             certificate: None,
             explain: None,
             keep_pairing: false,
+            diagnosis_time: Some(DIAGNOSIS_TIME),
         }
     }
 }
@@ -183,7 +190,11 @@ pub fn check_shard(
     };
     let mut diagnosis = None;
     if report.verdict == Verdict::Different && req.diagnosis != DiagnosisRequest::Off {
-        let limits = Limits::new(deadline.remaining(), opts.conflict_limit);
+        let share = match (deadline.remaining(), req.diagnosis_time) {
+            (Some(a), Some(b)) => Some(a.min(b)),
+            (a, b) => a.or(b),
+        };
+        let limits = Limits::new(share, opts.conflict_limit);
         if let (Ok((r2, rc)), Ok((c2, cc))) = (
             crate::assume::on_design(r, &req.assumptions),
             crate::assume::on_design(c, &req.assumptions),

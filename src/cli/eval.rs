@@ -53,6 +53,7 @@ pub enum TraceSide {
 
 #[derive(Serialize)]
 struct EvalReport {
+    schema: u32,
     design: String,
     inputs: serde_json::Map<String, serde_json::Value>,
     outputs: serde_json::Map<String, serde_json::Value>,
@@ -138,6 +139,7 @@ fn evaluate(d: &Design, a: &EvalArgs) -> Result<String, InputError> {
             om.insert(o.name.clone(), (*v as u8).into());
         }
         return Ok(report::to_json(&EvalReport {
+            schema: 1,
             design: d.name.clone(),
             inputs: im,
             outputs: om,

@@ -221,11 +221,17 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
         s += &crate::diagnose::diagnosis_text(d);
     }
     let st = &r.stats;
-    let _ = writeln!(
+    let _ = write!(
         s,
         "\nfigures     engine {}; AIG {} nodes shared (reference {} ANDs, candidate {} ANDs); {} random patterns; {} SAT calls, {} conflicts; {:.3} s",
         r.engine.name(), st.shared_nodes, st.reference_ands, st.candidate_ands, st.sim_patterns, st.sat.calls, st.sat.conflicts, st.seconds
     );
+    match diagnosis {
+        Some(d) => {
+            let _ = writeln!(s, "; diagnosis {:.3} s", d.seconds);
+        }
+        None => s.push('\n'),
+    }
     for w in &r.warnings {
         let _ = writeln!(s, "{w}");
     }

@@ -2,6 +2,8 @@
 //! VCD files read back by an independent reader, testbenches run by Icarus Verilog, and
 //! difference cubes checked by exhaustive simulation written without equicone's code.
 
+#[path = "explain/clocked.rs"]
+mod clocked;
 #[path = "explain/common.rs"]
 mod common;
 #[path = "explain/cubes.rs"]
@@ -10,6 +12,9 @@ mod cubes;
 mod oracle;
 #[path = "explain/replay.rs"]
 mod replay;
+#[allow(dead_code)]
+#[path = "seq/oracle.rs"]
+mod seq_oracle;
 #[path = "explain/vcd_reader.rs"]
 mod vcd_reader;
 #[allow(dead_code)]

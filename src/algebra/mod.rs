@@ -16,6 +16,7 @@
 //!   patterns are simulated, bits they tell apart are different (the vector re-simulated),
 //!   the rest undecided.
 
+mod carry;
 pub mod coef;
 pub mod poly;
 mod remainder;
@@ -111,7 +112,7 @@ pub fn word_poly(aig: &Aig, word: &[Lit], limits: &Limits) -> Result<Vec<(Vec<u3
         word.len() <= 128,
         "word_poly takes words of at most 128 bits"
     );
-    let units = Units::build(aig, word);
+    let units = Units::build(aig, &[word]);
     let mut stats = Stats::default();
     let p: Poly<u128> = rewrite(&units, word, &[], limits, &mut stats)?;
     Ok(p.terms().map(|(m, c)| (m.to_vec(), *c)).collect())
@@ -135,12 +136,11 @@ impl<'a> Prepared<'a> {
             candidate.len(),
             "word halves of equal width"
         );
-        let roots: Vec<Lit> = reference.iter().chain(candidate).copied().collect();
         Prepared {
             aig,
             reference: reference.to_vec(),
             candidate: candidate.to_vec(),
-            units: Units::build(aig, &roots),
+            units: Units::build(aig, &[reference, candidate]),
         }
     }
 

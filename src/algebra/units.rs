@@ -18,14 +18,17 @@
 
 use crate::aig::{Aig, Lit, Node};
 use crate::hash::FastMap;
+use std::cmp::Reverse;
+use std::collections::BinaryHeap;
 
+use super::carry::{self, FunctionalCut};
 use super::poly::UnitPoly;
 
 /// Cuts kept per node (the fan-in cut is always among them).
 pub const MAX_CUTS: usize = 48;
 
 /// Truth tables of the three leaf projections (leaf j is bit j of the minterm).
-const PROJ: [u8; 3] = [0xAA, 0xCC, 0xF0];
+pub(super) const PROJ: [u8; 3] = [0xAA, 0xCC, 0xF0];
 
 #[derive(Clone, Debug, PartialEq, Eq)]
 struct Cut {
@@ -95,7 +98,7 @@ pub struct Units {
 }
 
 /// Truth table `tt` over `from` re-expressed over `to` (a superset, both increasing).
-fn expand(tt: u8, from: &[u32], to: &[u32]) -> u8 {
+pub(super) fn expand(tt: u8, from: &[u32], to: &[u32]) -> u8 {
     let pos: Vec<usize> = from
         .iter()
         .map(|l| to.iter().position(|x| x == l).expect("leaf in superset"))
@@ -189,8 +192,25 @@ pub fn moebius(tt: u8, ranks: &[u32]) -> UnitPoly {
 }
 
 impl Units {
-    /// Units for the cones of `roots`.
-    pub fn build(aig: &Aig, roots: &[Lit]) -> Units {
+    /// Units for the cones of the output words `words` (each least significant bit first):
+    /// with the functional cuts of their carry chains ([`carry`]) when those leave the units
+    /// acyclic, else with structural cuts only.
+    pub fn build(aig: &Aig, words: &[&[Lit]]) -> Units {
+        let forced: Vec<FunctionalCut> = words
+            .iter()
+            .flat_map(|w| carry::functional_cuts(aig, w))
+            .collect();
+        if !forced.is_empty() {
+            if let Some(u) = Units::build_with(aig, words, &forced) {
+                return u;
+            }
+        }
+        Units::build_with(aig, words, &[]).expect("structural cuts are acyclic")
+    }
+
+    fn build_with(aig: &Aig, words: &[&[Lit]], forced: &[FunctionalCut]) -> Option<Units> {
+        let roots: Vec<Lit> = words.iter().flat_map(|w| w.iter().copied()).collect();
+        let roots = &roots[..];
         let mask = aig.cone_mask(roots);
         let nodes = aig.nodes();
         let mut cuts: Vec<Vec<Cut>> = vec![Vec::new(); nodes.len()];
@@ -211,47 +231,56 @@ impl Units {
             };
         }
         let maj = majority_tables();
+        let is_adder_table =
+            |c: &Cut| c.leaves.len == 3 && (c.tt == 0x96 || c.tt == 0x69 || maj.contains(&c.tt));
+        let mut forced_cut: FastMap<u32, Cut> = FastMap::default();
+        for f in forced {
+            forced_cut.entry(f.node).or_insert(Cut {
+                leaves: Leaves::of(&f.leaves),
+                tt: f.tt,
+            });
+        }
         // Leaf sets over which some node computes XOR3 and some node a majority: full adders.
         let mut kinds: FastMap<Leaves, u8> = FastMap::default();
-        for cs in &cuts {
-            for c in cs.iter().filter(|c| c.leaves.len == 3) {
-                let bit = if c.tt == 0x96 || c.tt == 0x69 {
-                    1
-                } else if maj.contains(&c.tt) {
-                    2
-                } else {
-                    continue;
-                };
-                *kinds.entry(c.leaves).or_default() |= bit;
+        for c in cuts.iter().flatten().chain(forced_cut.values()) {
+            if !is_adder_table(c) {
+                continue;
             }
+            let bit = if c.tt == 0x96 || c.tt == 0x69 { 1 } else { 2 };
+            *kinds.entry(c.leaves).or_default() |= bit;
         }
-        let full_adder = |c: &Cut| {
-            c.leaves.len == 3
-                && (c.tt == 0x96 || c.tt == 0x69 || maj.contains(&c.tt))
-                && kinds.get(&c.leaves) == Some(&3)
-        };
-        // Choose a cut for every needed node, from the outputs back.
-        let mut needed = vec![false; nodes.len()];
+        let full_adder = |c: &Cut| is_adder_table(c) && kinds.get(&c.leaves) == Some(&3);
+        // Choose a cut for every needed node, from the outputs back (largest node first; a
+        // functional cut may need a larger node).
+        let mut queued = vec![false; nodes.len()];
+        let mut heap: BinaryHeap<u32> = BinaryHeap::new();
         for r in roots {
-            needed[r.index()] = true;
+            if !queued[r.index()] {
+                queued[r.index()] = true;
+                heap.push(r.node());
+            }
         }
         let mut chosen: Vec<Option<Cut>> = vec![None; nodes.len()];
         let (mut adder_cells, mut xors) = (0, 0);
-        for i in (0..nodes.len()).rev() {
-            if !needed[i] || !matches!(nodes[i], Node::And(..)) {
+        while let Some(i) = heap.pop() {
+            let i = i as usize;
+            if !matches!(nodes[i], Node::And(..)) {
                 continue;
             }
             let cs = &cuts[i];
-            let pick = cs
-                .iter()
-                .find(|c| full_adder(c))
-                .map(|c| (c, 3))
-                .or_else(|| {
-                    cs.iter()
-                        .find(|c| c.leaves.len == 2 && (c.tt == 0x66 || c.tt == 0x99))
-                        .map(|c| (c, 2))
-                })
-                .or_else(|| cs.get(1).map(|c| (c, 0)));
+            let pick = if let Some(f) = forced_cut.get(&(i as u32)) {
+                Some((f, if full_adder(f) { 3 } else { 0 }))
+            } else {
+                cs.iter()
+                    .find(|c| full_adder(c))
+                    .map(|c| (c, 3))
+                    .or_else(|| {
+                        cs.iter()
+                            .find(|c| c.leaves.len == 2 && (c.tt == 0x66 || c.tt == 0x99))
+                            .map(|c| (c, 2))
+                    })
+                    .or_else(|| cs.get(1).map(|c| (c, 0)))
+            };
             let (cut, kind) = match pick {
                 Some(p) => p,
                 None => continue,
@@ -262,11 +291,15 @@ impl Units {
                 _ => {}
             }
             for &l in cut.leaves.get() {
-                needed[l as usize] = true;
+                if !queued[l as usize] {
+                    queued[l as usize] = true;
+                    heap.push(l);
+                }
             }
             chosen[i] = Some(cut.clone());
         }
-        // Ranks: inputs, then units (same-leaf groups together).
+        // Ranks: inputs, then units in a topological order of their leaves (the node order
+        // where the cuts allow it), units over the same leaves next to each other.
         let num_inputs = aig.num_inputs() as u32;
         let mut rank = vec![u32::MAX; nodes.len()];
         for (k, &n) in aig.inputs().iter().enumerate() {
@@ -281,25 +314,18 @@ impl Units {
                     .push(i as u32);
             }
         }
+        let order = topological_groups(&chosen, &by_leaves)?;
         let mut units = Vec::new();
         let mut next = num_inputs;
-        for i in 0..nodes.len() {
-            let Some(c) = &chosen[i] else { continue };
-            if rank[i] != u32::MAX {
-                continue;
-            }
-            for &j in &by_leaves[c.leaves.get()] {
-                if rank[j as usize] == u32::MAX {
-                    rank[j as usize] = next;
-                    next += 1;
-                    let cj = chosen[j as usize].as_ref().expect("grouped unit chosen");
-                    units.push(Unit {
-                        node: j,
-                        leaves: cj.leaves.get().to_vec(),
-                        tt: cj.tt,
-                    });
-                }
-            }
+        for j in order {
+            rank[j as usize] = next;
+            next += 1;
+            let cj = chosen[j as usize].as_ref().expect("grouped unit chosen");
+            units.push(Unit {
+                node: j,
+                leaves: cj.leaves.get().to_vec(),
+                tt: cj.tt,
+            });
         }
         let polys = units
             .iter()
@@ -309,7 +335,7 @@ impl Units {
             })
             .collect();
         let partners = exclusive_pairs(&units, &by_leaves, &rank, num_inputs, next as usize);
-        Units {
+        Some(Units {
             num_inputs,
             rank,
             polys,
@@ -317,7 +343,7 @@ impl Units {
             partners,
             adder_cells,
             xors,
-        }
+        })
     }
 
     /// The polynomial of unit rank `r` (r >= num_inputs).
@@ -366,6 +392,64 @@ impl Units {
             vec![(vec![r], 1)]
         }
     }
+}
+
+/// The chosen units in an order where every unit comes after the units among its leaves,
+/// smallest node first where free, each group of units over the same leaves together; `None`
+/// when the cuts form a cycle.
+fn topological_groups(
+    chosen: &[Option<Cut>],
+    by_leaves: &FastMap<Vec<u32>, Vec<u32>>,
+) -> Option<Vec<u32>> {
+    // Group of each unit node: its leaf set's first member.
+    let n = chosen.len();
+    let head = |i: usize| -> u32 {
+        let c = chosen[i].as_ref().expect("unit");
+        by_leaves[c.leaves.get()][0]
+    };
+    let mut waiting = vec![0u32; n];
+    let mut users: FastMap<u32, Vec<u32>> = FastMap::default();
+    let mut groups = 0usize;
+    for (i, c) in chosen.iter().enumerate() {
+        let Some(c) = c else { continue };
+        if head(i) != i as u32 {
+            continue;
+        }
+        groups += 1;
+        let mut deps: Vec<u32> = c
+            .leaves
+            .get()
+            .iter()
+            .filter(|&&l| chosen[l as usize].is_some())
+            .map(|&l| head(l as usize))
+            .collect();
+        deps.sort_unstable();
+        deps.dedup();
+        waiting[i] = deps.len() as u32;
+        for d in deps {
+            users.entry(d).or_default().push(i as u32);
+        }
+    }
+    let mut ready: BinaryHeap<Reverse<u32>> = (0..n)
+        .filter(|&i| chosen[i].is_some() && head(i) == i as u32 && waiting[i] == 0)
+        .map(|i| Reverse(i as u32))
+        .collect();
+    let mut order = Vec::new();
+    let mut done = 0usize;
+    while let Some(Reverse(g)) = ready.pop() {
+        done += 1;
+        let c = chosen[g as usize].as_ref().expect("unit");
+        order.extend_from_slice(&by_leaves[c.leaves.get()]);
+        if let Some(us) = users.get(&g) {
+            for &u in us {
+                waiting[u as usize] -= 1;
+                if waiting[u as usize] == 0 {
+                    ready.push(Reverse(u));
+                }
+            }
+        }
+    }
+    (done == groups).then_some(order)
 }
 
 fn and_cuts(i: u32, a: Lit, b: Lit, cuts: &[Vec<Cut>]) -> Vec<Cut> {
@@ -478,7 +562,7 @@ mod tests {
         let gg = g.and(x, y);
         let t = g.and(p, z);
         let c = g.or(gg, t);
-        let u = Units::build(&g, &[s, c]);
+        let u = Units::build(&g, &[&[s, c]]);
         assert_eq!(u.adder_cells, 2);
         assert_eq!(u.units.len(), 2);
         assert_eq!(u.units[0].leaves, u.units[1].leaves);
@@ -491,7 +575,7 @@ mod tests {
         let y = g.add_input();
         let s = g.xor(x, y);
         let c = g.and(x, y);
-        let u = Units::build(&g, &[s, c]);
+        let u = Units::build(&g, &[&[s, c]]);
         // The XOR literal is the complement of an XNOR node n: c implies n, so c * n = c.
         assert!(s.is_complemented());
         let (rn, rc) = (u.rank[s.index()], u.rank[c.index()]);
@@ -500,7 +584,7 @@ mod tests {
         assert_eq!(m, vec![rc]);
         // AND(x, !y) and AND(x, y) exclude each other.
         let d = g.and(x, !y);
-        let u = Units::build(&g, &[c, d]);
+        let u = Units::build(&g, &[&[c, d]]);
         let (rc, rd) = (u.rank[c.index()], u.rank[d.index()]);
         let mut m = vec![rc.max(rd), rc.min(rd)];
         assert!(!u.reduce(&mut m));

@@ -26,7 +26,8 @@ pub struct EvalArgs {
     /// Print the result as JSON.
     #[arg(long)]
     json: bool,
-    /// Also write the vector as a Value Change Dump (IEEE 1364-2005 clause 18) to FILE.
+    /// Also write the vector (with --trace: every cycle of the trace) as a Value Change Dump
+    /// (IEEE 1364-2005 clause 18) to FILE.
     #[arg(long, value_name = "FILE")]
     vcd: Option<String>,
     /// With --vcd: also every internal net of the design's netlist.
@@ -70,7 +71,7 @@ pub fn run(a: &EvalArgs) -> Exit {
             TraceSide::Reference => crate::seq::Side::Reference,
             TraceSide::Candidate => crate::seq::Side::Candidate,
         };
-        return super::eval_trace::run(&d, path, side, a.json);
+        return super::eval_trace::run(&d, path, side, a.json, a.vcd.as_deref());
     }
     match evaluate(&d, a) {
         Ok(text) => {

@@ -51,8 +51,8 @@ fn read_trace(path: &str) -> Result<Trace, InputError> {
     serde_json::from_value(t).map_err(|e| bad(format!("not a trace: {e}")))
 }
 
-/// Run `eval --trace` on `d`, as the trace's `side` design.
-pub fn run(d: &Design, path: &str, side: Side, json: bool) -> Exit {
+/// Run `eval --trace` on `d`, as the trace's `side` design; `vcd`: also dump the run there.
+pub fn run(d: &Design, path: &str, side: Side, json: bool, vcd: Option<&str>) -> Exit {
     let t = match read_trace(path) {
         Ok(t) => t,
         Err(e) => return report_input_error(&e),
@@ -66,6 +66,22 @@ pub fn run(d: &Design, path: &str, side: Side, json: bool) -> Exit {
             ))
         }
     };
+    if let Some(v) = vcd {
+        match crate::explain::trace_vcd::design_trace_vcd(d, side, &t) {
+            Ok(text) => {
+                if let Err(e) = super::common::write_atomic(v, text.as_bytes()) {
+                    return report_input_error(&e);
+                }
+                eprintln!("vcd: {v} ({} cycles from reset)", t.cycles.len());
+            }
+            Err(m) => {
+                return report_input_error(&InputError::plain(
+                    format!("{path}: {m}"),
+                    "use the trace with the design it was found for (--side reference|candidate)",
+                ))
+            }
+        }
+    }
     if json {
         let cycles = rep
             .outputs

@@ -278,9 +278,6 @@ pub fn run(a: &ProveArgs) -> Exit {
                 "leave out --shard for clocked designs",
             ));
         }
-        if a.replay.explain || a.replay.wanted() {
-            eprintln!("note: --explain, --vcd and --testbench cover combinational designs only; nothing of theirs is written for clocked designs");
-        }
         return run_clocked(a, &r, &c, &deadline);
     }
     let req = CheckRequest {
@@ -397,7 +394,16 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
         cycles: a.cycles,
         init_unset: a.init_unset.into(),
     };
-    super::clocked::run(&req, &settings, a.json, a.report.as_deref())
+    let mut rf = vec![a.pair.reference.clone()];
+    rf.extend(a.pair.ref_also.iter().cloned());
+    let mut cf = vec![a.pair.candidate.clone()];
+    cf.extend(a.pair.cand_also.iter().cloned());
+    let replay = super::clocked::ClockedReplay {
+        args: &a.replay,
+        files: (&rf, &cf),
+        seed: a.limits.seed,
+    };
+    super::clocked::run(&req, &settings, a.json, a.report.as_deref(), &replay)
 }
 
 /// Run `cnf`: the miter (OR of the XORs of all output pairs) asserted true, so that the

@@ -73,6 +73,87 @@ fn random_vectors(shared: &Shared, n: usize, seed: u64) -> Vec<Vec<bool>> {
     out
 }
 
+/// The source files of a Verilog design (path, text), for its testbench; none for bench.
+fn source_files(d: &Design, paths: &[String]) -> Result<Vec<(String, String)>, Exit> {
+    if d.format != crate::design::Format::Verilog {
+        return Ok(Vec::new());
+    }
+    paths
+        .iter()
+        .map(|p| {
+            crate::front::read_text(p)
+                .map(|t| (p.clone(), t))
+                .map_err(|e| report_input_error(&e))
+        })
+        .collect()
+}
+
+/// Cycles of the random trace in a testbench of clocked designs without a difference.
+pub const RANDOM_CYCLES: usize = 32;
+
+/// After a check of clocked designs: write the VCD of the trace and the testbench replaying it
+/// (random cycles from reset when there is no trace). `files` are the source paths of each side.
+pub fn write_trace_files(
+    a: &ReplayArgs,
+    r: &Design,
+    c: &Design,
+    files: (&[String], &[String]),
+    rep: &crate::seq::SeqReport,
+    init_unset: crate::seq::InitUnset,
+    seed: u64,
+) -> Result<(), Exit> {
+    if let Some(path) = &a.vcd {
+        match &rep.trace {
+            None => eprintln!("vcd: not written, there is no trace"),
+            Some(t) => match explain::trace_vcd::trace_vcd(r, c, t) {
+                Ok(text) => {
+                    write_atomic(path, text.as_bytes()).map_err(|e| report_input_error(&e))?;
+                    eprintln!("vcd: {path} ({} cycles from reset)", t.cycles.len());
+                }
+                Err(m) => eprintln!("vcd: not written: {m}"),
+            },
+        }
+    }
+    if let Some(path) = &a.testbench {
+        let random;
+        let (t, what) = match &rep.trace {
+            Some(t) => (t, "trace"),
+            None => {
+                random = explain::trace_run::random_trace(
+                    r,
+                    c,
+                    &rep.held,
+                    init_unset,
+                    RANDOM_CYCLES,
+                    seed,
+                );
+                (&random, "random")
+            }
+        };
+        let rt = TbDesign {
+            design: r,
+            files: source_files(r, files.0)?,
+        };
+        let ct = TbDesign {
+            design: c,
+            files: source_files(c, files.1)?,
+        };
+        match explain::trace_bench::trace_testbench(&rt, &ct, t) {
+            Ok(tb) => {
+                write_atomic(path, tb.text.as_bytes()).map_err(|e| report_input_error(&e))?;
+                eprintln!(
+                    "testbench: {path} ({} {what} cycles from reset); run: iverilog -g2005 -o tb.vvp {path}{}{} && vvp tb.vvp",
+                    t.cycles.len(),
+                    if tb.compile_with.is_empty() { "" } else { " " },
+                    tb.compile_with.join(" ")
+                );
+            }
+            Err(m) => eprintln!("testbench: not written: {m}"),
+        }
+    }
+    Ok(())
+}
+
 /// After a check: write the VCD and testbench files the options ask for. `files` are the
 /// source paths of each side (for the testbench).
 pub fn write_files(
@@ -117,26 +198,13 @@ pub fn write_files(
                 "counterexample(s)",
             )
         };
-        let side = |d: &'_ Design, paths: &[String]| -> Result<Vec<(String, String)>, Exit> {
-            if d.format != crate::design::Format::Verilog {
-                return Ok(Vec::new());
-            }
-            paths
-                .iter()
-                .map(|p| {
-                    crate::front::read_text(p)
-                        .map(|t| (p.clone(), t))
-                        .map_err(|e| report_input_error(&e))
-                })
-                .collect()
-        };
         let rt = TbDesign {
             design: r,
-            files: side(r, files.0)?,
+            files: source_files(r, files.0)?,
         };
         let ct = TbDesign {
             design: c,
-            files: side(c, files.1)?,
+            files: source_files(c, files.1)?,
         };
         match explain::testbench::testbench(&rt, &ct, shared, &vectors) {
             Ok(tb) => {

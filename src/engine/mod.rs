@@ -20,6 +20,7 @@ pub mod portfolio;
 mod progress;
 pub mod result;
 mod split;
+mod stage;
 mod sweep;
 pub mod unknowns;
 mod window;

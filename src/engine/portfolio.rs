@@ -13,82 +13,14 @@
 
 use super::bdd;
 use super::exhaustive;
-use super::pairs::PairQuery;
 use super::parallel;
-use super::progress::Progress;
+pub(crate) use super::stage::{Context, StageOutput};
+pub use super::stage::{GroupRecord, Stage};
 use super::sweep::SweepStats;
 use super::{Finding, Method};
 use crate::aig::{Aig, Lit, Node};
-use crate::sat::{Limits, SatStats, StopReason};
-use serde::Serialize;
+use crate::sat::{SatStats, StopReason};
 use std::time::Instant;
-
-/// One method of the portfolio.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
-#[serde(rename_all = "snake_case")]
-pub enum Stage {
-    /// Word polynomials of arithmetic output buses ([`super::words`]).
-    Algebra,
-    /// Exhaustive bit-parallel simulation of small supports.
-    Exhaustive,
-    /// BDDs within a node limit.
-    Bdd,
-    /// SAT sweeping and per-pair queries.
-    Sweep,
-}
-
-impl Stage {
-    /// Word used in reports and the debug log.
-    pub fn word(self) -> &'static str {
-        match self {
-            Stage::Exhaustive => "exhaustive",
-            Stage::Algebra => "algebra",
-            Stage::Bdd => "bdd",
-            Stage::Sweep => "sweep",
-        }
-    }
-}
-
-/// What one method did with one group of output pairs.
-#[derive(Clone, Debug, PartialEq, Serialize)]
-pub struct GroupRecord {
-    /// The method.
-    pub method: Stage,
-    /// Output pair indices of the group (into the report's `pairs`), ascending.
-    pub pairs: Vec<usize>,
-    /// How many of them it decided.
-    pub decided: usize,
-    /// Wall-clock seconds it spent on the group.
-    pub seconds: f64,
-    /// What it measured (support size, BDD nodes, ...) or why it declined.
-    pub note: String,
-}
-
-/// Everything a method needs.
-pub(crate) struct Context<'a> {
-    pub aig: &'a Aig,
-    pub pairs: &'a [PairQuery],
-    pub constraint: Lit,
-    pub seed: u64,
-    pub words: Option<usize>,
-    pub jobs: usize,
-    pub limits: &'a Limits,
-    pub progress: &'a Progress,
-    /// Output pairs grouped into words, least significant bit first ([`super::words`]).
-    pub buses: &'a [Vec<usize>],
-    /// The algebraic method takes only words that look like arithmetic.
-    pub arithmetic_only: bool,
-}
-
-/// What a method returns: findings for the pairs it decided (or, for the last method, for
-/// all), group records, and its solver figures.
-#[derive(Default)]
-pub(crate) struct StageOutput {
-    pub findings: Vec<(usize, Finding)>,
-    pub groups: Vec<GroupRecord>,
-    pub sat: SatStats,
-    pub sweep: Option<SweepStats>,
-}
 
 type Runner = fn(&Context<'_>, &[usize]) -> Result<StageOutput, String>;
 
@@ -375,6 +307,9 @@ fn run_sweep(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::engine::pairs::PairQuery;
+    use crate::engine::progress::Progress;
+    use crate::sat::Limits;
 
     fn cx<'a>(
         aig: &'a Aig,

@@ -11,7 +11,7 @@
 //! afterwards, like every counterexample); the rest stays open for the next method.
 
 use super::pairing::Shared;
-use super::portfolio::{Context, GroupRecord, Stage, StageOutput};
+use super::stage::{Context, GroupRecord, Stage, StageOutput};
 use super::{Finding, Method};
 use crate::aig::{eval, Aig, Lit, Node};
 use crate::algebra::{BitVerdict, Limits, Prepared, Stop};

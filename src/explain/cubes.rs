@@ -100,6 +100,18 @@ pub fn cover_pair(
     Enumerator::new(aig, root, limits).run(pair, first, cl)
 }
 
+/// Enumerate the cubes of `root`, a difference already built in `aig` (over all of its inputs;
+/// the cover's pair index is 0), starting from the vector `first` when it sets the root.
+pub fn cover_root(
+    aig: Aig,
+    root: Lit,
+    first: Option<&[bool]>,
+    cl: &CubeLimits,
+    limits: &Limits,
+) -> PairCover {
+    Enumerator::new(aig, root, limits).run(0, first, cl)
+}
+
 struct Enumerator<'a> {
     aig: Aig,
     root: Lit,

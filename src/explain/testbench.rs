@@ -6,7 +6,9 @@
 //! testbench with their modules renamed (`NAME__candidate`). A bench design becomes a
 //! gate-primitive module written into the testbench.
 
-use super::verilog_out::{defined_modules, design_module, group_ports, ident, rename, PortBits};
+use super::verilog_out::{
+    clocked_module, defined_modules, design_module, group_ports, ident, rename, PortBits,
+};
 use super::waves::scope_names;
 use crate::design::{Design, Format};
 use crate::engine::pairing::SharedInput;
@@ -31,18 +33,22 @@ pub struct Testbench {
 }
 
 /// How one side appears in the testbench.
-struct Side {
-    module: String,
+pub(super) struct Side {
+    /// The module instantiated.
+    pub(super) module: String,
     /// Text written into the testbench (generated or renamed modules).
-    embedded: String,
-    files: Vec<String>,
+    pub(super) embedded: String,
+    /// Files to compile with the testbench.
+    pub(super) files: Vec<String>,
     /// Renaming applied to the side's identifiers.
-    renamed: BTreeSet<String>,
+    pub(super) renamed: BTreeSet<String>,
 }
 
 const SUFFIX: &str = "__candidate";
 
-fn side(t: &TbDesign, scope: &str, clash: &BTreeSet<String>) -> Result<Side, String> {
+/// One side of a testbench: a Verilog design from its files (renamed on a clash of module
+/// names), any other design written as a module (with its registers when it is clocked).
+pub(super) fn side(t: &TbDesign, scope: &str, clash: &BTreeSet<String>) -> Result<Side, String> {
     let d = t.design;
     if d.format == Format::Verilog && !t.files.is_empty() {
         if clash.is_empty() {
@@ -77,7 +83,11 @@ fn side(t: &TbDesign, scope: &str, clash: &BTreeSet<String>) -> Result<Side, Str
     }
     let module = format!("eqc_{scope}");
     let mut embedded = format!("// {} written as a Verilog module by equicone\n", d.name);
-    embedded.push_str(&design_module(d, &module)?);
+    if d.is_clocked() {
+        embedded.push_str(&clocked_module(d, &module)?);
+    } else {
+        embedded.push_str(&design_module(d, &module)?);
+    }
     Ok(Side {
         module,
         embedded,

@@ -18,13 +18,26 @@ pub struct VcdVar {
     pub width: usize,
 }
 
-/// One scope and its variables.
+/// One scope, its variables and the scopes nested in it.
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub struct VcdScope {
     /// Scope name (no white space).
     pub name: String,
     /// Its variables.
     pub vars: Vec<VcdVar>,
+    /// Scopes inside it; their variables come after this scope's own in value order.
+    pub children: Vec<VcdScope>,
+}
+
+impl VcdScope {
+    /// A scope without nested scopes.
+    pub fn flat(name: impl Into<String>, vars: Vec<VcdVar>) -> VcdScope {
+        VcdScope {
+            name: name.into(),
+            vars,
+            children: Vec::new(),
+        }
+    }
 }
 
 /// A value: known bits, or `None` for x; most significant bit first.
@@ -62,8 +75,43 @@ fn value_change(s: &mut String, var: &VcdVar, id: &str, v: &[Option<bool>]) {
 }
 
 /// The dump text. `steps[t]` holds one value per variable, scopes in order, each of the
-/// variable's width; `comment` goes into the `$comment` section (no `$end` inside).
+/// variable's width; `comment` goes into the `$comment` section (no `$end` inside). Step t is
+/// at time t.
 pub fn write_vcd(comment: &str, scopes: &[VcdScope], steps: &[Vec<Bits>]) -> String {
+    let timed: Vec<(u64, &[Bits])> = steps
+        .iter()
+        .enumerate()
+        .map(|(t, s)| (t as u64, &s[..]))
+        .collect();
+    write_vcd_at(comment, scopes, &timed, steps.len() as u64)
+}
+
+/// Declare `sc` and its nested scopes, collecting the variables in value order.
+fn declare<'a>(s: &mut String, sc: &'a VcdScope, vars: &mut Vec<&'a VcdVar>) {
+    let _ = writeln!(s, "$scope module {} $end", sc.name);
+    for v in &sc.vars {
+        let id = code(vars.len());
+        let range = match v.range {
+            Some((m, l)) if m == l && v.width == 1 => format!(" [{m}]"),
+            Some((m, l)) => format!(" [{m}:{l}]"),
+            None => String::new(),
+        };
+        let _ = writeln!(s, "$var wire {} {id} {}{range} $end", v.width, v.name);
+        vars.push(v);
+    }
+    for ch in &sc.children {
+        declare(s, ch, vars);
+    }
+    s.push_str("$upscope $end\n");
+}
+
+/// [`write_vcd`] with a time per step (ascending) and the time `end` that closes the last one.
+pub fn write_vcd_at(
+    comment: &str,
+    scopes: &[VcdScope],
+    steps: &[(u64, &[Bits])],
+    end: u64,
+) -> String {
     let mut s = String::new();
     let _ = writeln!(s, "$comment\n  {}\n$end", comment.replace("$end", "$ end"));
     let _ = writeln!(
@@ -74,25 +122,14 @@ pub fn write_vcd(comment: &str, scopes: &[VcdScope], steps: &[Vec<Bits>]) -> Str
     s.push_str("$timescale\n  1ns\n$end\n");
     let mut vars: Vec<&VcdVar> = Vec::new();
     for sc in scopes {
-        let _ = writeln!(s, "$scope module {} $end", sc.name);
-        for v in &sc.vars {
-            let id = code(vars.len());
-            let range = match v.range {
-                Some((m, l)) if m == l && v.width == 1 => format!(" [{m}]"),
-                Some((m, l)) => format!(" [{m}:{l}]"),
-                None => String::new(),
-            };
-            let _ = writeln!(s, "$var wire {} {id} {}{range} $end", v.width, v.name);
-            vars.push(v);
-        }
-        s.push_str("$upscope $end\n");
+        declare(&mut s, sc, &mut vars);
     }
     s.push_str("$enddefinitions $end\n");
     let mut last: Vec<Option<&Bits>> = vec![None; vars.len()];
-    for (t, step) in steps.iter().enumerate() {
+    for (n, &(t, step)) in steps.iter().enumerate() {
         assert_eq!(step.len(), vars.len(), "one value per variable");
         let _ = writeln!(s, "#{t}");
-        if t == 0 {
+        if n == 0 {
             s.push_str("$dumpvars\n");
         }
         for (i, v) in step.iter().enumerate() {
@@ -102,11 +139,11 @@ pub fn write_vcd(comment: &str, scopes: &[VcdScope], steps: &[Vec<Bits>]) -> Str
                 last[i] = Some(v);
             }
         }
-        if t == 0 {
+        if n == 0 {
             s.push_str("$end\n");
         }
     }
-    let _ = writeln!(s, "#{}", steps.len());
+    let _ = writeln!(s, "#{end}");
     s
 }
 
@@ -128,9 +165,9 @@ mod tests {
 
     #[test]
     fn only_changes_after_the_first_step() {
-        let scopes = vec![VcdScope {
-            name: "top".into(),
-            vars: vec![
+        let scopes = vec![VcdScope::flat(
+            "top",
+            vec![
                 VcdVar {
                     name: "s".into(),
                     range: Some((1, 0)),
@@ -142,7 +179,7 @@ mod tests {
                     width: 1,
                 },
             ],
-        }];
+        )];
         let steps = vec![
             vec![vec![Some(true), Some(false)], vec![Some(false)]],
             vec![vec![Some(true), Some(false)], vec![None]],

@@ -312,6 +312,109 @@ pub fn design_module(d: &Design, module: &str) -> Result<String, String> {
     Ok(s)
 }
 
+/// The clock port of a module that [`clocked_module`] writes.
+pub const CLOCK_PORT: &str = "eqc_clk";
+
+/// The name of register `k` inside a module that [`clocked_module`] writes (its own name, which
+/// may clash with a port or net, is given in a comment).
+pub fn register_net(k: usize) -> String {
+    format!("eqc_r{k}")
+}
+
+/// A clocked design (a bench netlist with `DFF` lines, or any design with registers) as a
+/// Verilog module named `module`, from its AIG: the input ports plus the clock port
+/// [`CLOCK_PORT`], one `wire` per AND node, register `k` as `reg eqc_rK` loaded on the rising
+/// edge with its next value. Registers have no reset here: a testbench sets their initial
+/// values through hierarchical names (`inst.eqc_rK`).
+pub fn clocked_module(d: &Design, module: &str) -> Result<String, String> {
+    if d.inputs.iter().any(|b| b.is_unknown()) {
+        return Err(format!(
+            "{} reads unknown values, which a testbench cannot drive",
+            d.name
+        ));
+    }
+    let ins = group_ports(
+        d.inputs
+            .iter()
+            .enumerate()
+            .filter(|(_, b)| matches!(b.kind, crate::design::InputKind::Port))
+            .map(|(k, b)| (k, b.port.as_str(), b.index)),
+    );
+    let outs = group_ports(
+        d.outputs
+            .iter()
+            .enumerate()
+            .map(|(k, b)| (k, b.port.as_str(), b.index)),
+    );
+    let port_names: BTreeSet<&str> = ins.iter().chain(&outs).map(|p| p.name.as_str()).collect();
+    if port_names.len() != ins.len() + outs.len() || port_names.contains(CLOCK_PORT) {
+        return Err(format!(
+            "{} has a port that is both an input and an output, or a port named {CLOCK_PORT}, which the written module cannot have",
+            d.name
+        ));
+    }
+    let bit = |p: &str, i: Option<i64>| -> String {
+        match i {
+            Some(i) => format!("{}[{i}]", ident(p)),
+            None => ident(p),
+        }
+    };
+    let mut reg_of = vec![usize::MAX; d.inputs.len()];
+    for (k, r) in d.registers.iter().enumerate() {
+        reg_of[r.input] = k;
+    }
+    let lit = |l: crate::aig::Lit| -> String {
+        let base = match d.aig.node(l.node()) {
+            Node::Const => "1'b0".to_string(),
+            Node::Input(k) => {
+                let k = k as usize;
+                if reg_of[k] != usize::MAX {
+                    register_net(reg_of[k])
+                } else {
+                    bit(&d.inputs[k].port, d.inputs[k].index)
+                }
+            }
+            Node::And(..) => format!("eqc_n{}", l.node()),
+        };
+        if l.is_complemented() {
+            format!("~{base}")
+        } else {
+            base
+        }
+    };
+    let mut s = String::new();
+    let mut list: Vec<String> = vec![CLOCK_PORT.to_string()];
+    list.extend(ins.iter().chain(&outs).map(|p| ident(&p.name)));
+    let _ = writeln!(s, "module {} ({});", ident(module), list.join(", "));
+    let _ = writeln!(s, "  input {CLOCK_PORT};");
+    for p in &ins {
+        let _ = writeln!(s, "  input {}{};", p.decl(), ident(&p.name));
+    }
+    for p in &outs {
+        let _ = writeln!(s, "  output {}{};", p.decl(), ident(&p.name));
+    }
+    for (k, r) in d.registers.iter().enumerate() {
+        let _ = writeln!(s, "  reg {}; // register {}", register_net(k), r.name);
+    }
+    for (i, n) in d.aig.nodes().iter().enumerate() {
+        if let Node::And(a, b) = *n {
+            let _ = writeln!(s, "  wire eqc_n{i} = {} & {};", lit(a), lit(b));
+        }
+    }
+    for o in &d.outputs {
+        let _ = writeln!(s, "  assign {} = {};", bit(&o.port, o.index), lit(o.lit));
+    }
+    if !d.registers.is_empty() {
+        let _ = writeln!(s, "  always @(posedge {CLOCK_PORT}) begin");
+        for (k, r) in d.registers.iter().enumerate() {
+            let _ = writeln!(s, "    {} <= {};", register_net(k), lit(r.next));
+        }
+        s.push_str("  end\n");
+    }
+    s.push_str("endmodule\n");
+    Ok(s)
+}
+
 /// Identifier tokens of Verilog text outside comments, strings and escaped identifiers, as
 /// byte ranges.
 fn identifiers(text: &str) -> Vec<(usize, usize)> {

@@ -9,14 +9,14 @@ use crate::design::{split_bit, Design};
 use crate::engine::{Counterexample, Shared};
 
 /// One port as a VCD variable: the design's bit positions, most significant first.
-struct Port {
-    var: VcdVar,
-    bits: Vec<usize>,
+pub(super) struct Port {
+    pub(super) var: VcdVar,
+    pub(super) bits: Vec<usize>,
 }
 
 /// Group named bits (listed least significant bit first within a bus, as the readers list
 /// them) into variables: a bus with consecutive indices becomes one vector.
-fn ports(names: &[&str]) -> Vec<Port> {
+pub(super) fn ports(names: &[&str]) -> Vec<Port> {
     let mut out: Vec<Port> = Vec::new();
     let mut i = 0;
     while i < names.len() {
@@ -144,7 +144,7 @@ impl<'d> Side<'d> {
                 });
             }
         }
-        VcdScope { name, vars }
+        VcdScope::flat(name, vars)
     }
 
     /// The values of one vector (one value per design input), in variable order.
@@ -199,9 +199,9 @@ pub fn counterexample_vcd(
     let scopes = vec![
         rs.scope(rn.clone()),
         cs.scope(cn.clone()),
-        VcdScope {
-            name: "compare".into(),
-            vars: vec![
+        VcdScope::flat(
+            "compare",
+            vec![
                 VcdVar {
                     name: "vector".into(),
                     range: Some((31, 0)),
@@ -213,7 +213,7 @@ pub fn counterexample_vcd(
                     width: 1,
                 },
             ],
-        },
+        ),
     ];
     let mut steps = Vec::new();
     for (t, v) in vectors.iter().enumerate() {

@@ -3,7 +3,8 @@
 //! **Invariant:** left-associative operator chains are flat ([`Expr::Chain`]) and nesting
 //! depth is bounded by the parser, so walking an expression recursively cannot overflow.
 
-use super::lexer::{NumLit, Pos};
+use super::lexer::NumLit;
+use super::pos::Pos;
 use super::symbols::Sym;
 
 /// Unary operators.

@@ -1,19 +1,9 @@
 //! The Verilog lexer: source text to tokens with positions, one token at a time (the parser
 //! keeps a small lookahead), so a million-gate netlist is never held as a token vector.
 
+use super::pos::Pos;
 use super::symbols::{Interner, Sym};
 use super::syntax_error::{SyntaxError, SyntaxKind};
-
-/// A position: file number (index into the reader's source list), 1-based line and column.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Default, PartialOrd, Ord, Hash)]
-pub struct Pos {
-    /// Index of the source file.
-    pub file: u32,
-    /// 1-based line.
-    pub line: u32,
-    /// 1-based column, in characters.
-    pub col: u32,
-}
 
 /// One 4-state bit of a literal.
 pub const B0: u8 = 0;
@@ -119,7 +109,8 @@ pub struct Token {
 /// The lexer over one file.
 pub struct Lexer<'s> {
     src: &'s [u8],
-    i: usize,
+    /// Byte offset of the next character.
+    offset: usize,
     line: u32,
     col: u32,
     file: u32,
@@ -164,7 +155,7 @@ impl<'s> Lexer<'s> {
     pub fn with_marks(src: &'s str, file: u32, marks: &'s [Mark]) -> Lexer<'s> {
         let mut lx = Lexer {
             src: src.as_bytes(),
-            i: 0,
+            offset: 0,
             line: 1,
             col: 1,
             file,
@@ -180,9 +171,9 @@ impl<'s> Lexer<'s> {
 
     /// Take the position of every mark at the current offset.
     fn apply_marks(&mut self) {
-        while self.next_mark <= self.i {
+        while self.next_mark <= self.offset {
             let m = self.marks[self.mark_k];
-            if m.off == self.i {
+            if m.off == self.offset {
                 (self.file, self.line, self.col) = (m.pos.file, m.pos.line, m.pos.col);
             }
             self.mark_k += 1;
@@ -199,19 +190,19 @@ impl<'s> Lexer<'s> {
     }
 
     fn peek(&self, k: usize) -> u8 {
-        self.src.get(self.i + k).copied().unwrap_or(0)
+        self.src.get(self.offset + k).copied().unwrap_or(0)
     }
 
     fn bump(&mut self) {
-        if let Some(&c) = self.src.get(self.i) {
-            self.i += 1;
+        if let Some(&c) = self.src.get(self.offset) {
+            self.offset += 1;
             if c == b'\n' {
                 self.line += 1;
                 self.col = 1;
             } else if c & 0xC0 != 0x80 {
                 self.col += 1;
             }
-            if self.i >= self.next_mark {
+            if self.offset >= self.next_mark {
                 self.apply_marks();
             }
         }
@@ -232,7 +223,7 @@ impl<'s> Lexer<'s> {
             if c == b' ' || c == b'\t' || c == b'\r' || c == b'\n' || c == 0x0C {
                 self.bump();
             } else if c == b'/' && self.peek(1) == b'/' {
-                while self.i < self.src.len() && self.peek(0) != b'\n' {
+                while self.offset < self.src.len() && self.peek(0) != b'\n' {
                     self.bump();
                 }
             } else if c == b'/' && self.peek(1) == b'*' {
@@ -240,7 +231,7 @@ impl<'s> Lexer<'s> {
                 self.bump();
                 self.bump();
                 loop {
-                    if self.i >= self.src.len() {
+                    if self.offset >= self.src.len() {
                         self.err(p, "unterminated block comment");
                         break;
                     }
@@ -257,7 +248,7 @@ impl<'s> Lexer<'s> {
                 self.bump();
                 self.bump();
                 loop {
-                    if self.i >= self.src.len() {
+                    if self.offset >= self.src.len() {
                         self.err(p, "unterminated attribute `(* ... *)`");
                         break;
                     }
@@ -278,7 +269,7 @@ impl<'s> Lexer<'s> {
 
     /// After `(*`: whether the next non-blank character is `)` (the event control `@(*)`).
     fn star_closes_paren(&self) -> bool {
-        let mut k = self.i + 2;
+        let mut k = self.offset + 2;
         while k < self.src.len() && self.src[k].is_ascii_whitespace() {
             k += 1;
         }
@@ -288,16 +279,16 @@ impl<'s> Lexer<'s> {
     fn directive(&mut self, _names: &mut Interner) {
         let p = self.pos();
         self.bump();
-        let start = self.i;
+        let start = self.offset;
         while is_ident_char(self.peek(0)) {
             self.bump();
         }
-        let name = String::from_utf8_lossy(&self.src[start..self.i]).into_owned();
-        let line_start = self.i;
-        while self.i < self.src.len() && self.peek(0) != b'\n' {
+        let name = String::from_utf8_lossy(&self.src[start..self.offset]).into_owned();
+        let line_start = self.offset;
+        while self.offset < self.src.len() && self.peek(0) != b'\n' {
             self.bump();
         }
-        let rest = String::from_utf8_lossy(&self.src[line_start..self.i]);
+        let rest = String::from_utf8_lossy(&self.src[line_start..self.offset]);
         let rest = rest.split("//").next().unwrap_or("").trim().to_string();
         match name.as_str() {
             "timescale" | "celldefine" | "endcelldefine" => {}
@@ -327,23 +318,23 @@ impl<'s> Lexer<'s> {
         self.skip_trivia(names);
         let pos = self.pos();
         let c = self.peek(0);
-        let mut j = self.i;
+        let mut j = self.offset;
         if is_ident_start(c) {
             while j < self.src.len() && is_ident_char(self.src[j]) {
                 j += 1;
             }
-            let s = std::str::from_utf8(&self.src[self.i..j]).unwrap_or("?");
+            let s = std::str::from_utf8(&self.src[self.offset..j]).unwrap_or("?");
             if super::symbols::is_keyword_text(s) {
                 return None;
             }
-        } else if c == b'\\' && self.i < self.src.len() {
+        } else if c == b'\\' && self.offset < self.src.len() {
             while j < self.src.len() && !self.src[j].is_ascii_whitespace() {
                 j += 1;
             }
         } else {
             return None;
         }
-        while self.i < j {
+        while self.offset < j {
             self.bump();
         }
         Some(pos)
@@ -354,15 +345,15 @@ impl<'s> Lexer<'s> {
         self.skip_trivia(names);
         let pos = self.pos();
         let c = self.peek(0);
-        if self.i >= self.src.len() {
+        if self.offset >= self.src.len() {
             return Token { tok: Tok::Eof, pos };
         }
         if is_ident_start(c) {
-            let start = self.i;
+            let start = self.offset;
             while is_ident_char(self.peek(0)) {
                 self.bump();
             }
-            let s = std::str::from_utf8(&self.src[start..self.i]).unwrap_or("?");
+            let s = std::str::from_utf8(&self.src[start..self.offset]).unwrap_or("?");
             return Token {
                 tok: Tok::Ident(names.intern(s)),
                 pos,
@@ -370,11 +361,11 @@ impl<'s> Lexer<'s> {
         }
         if c == b'\\' {
             self.bump();
-            let start = self.i;
-            while self.i < self.src.len() && !self.peek(0).is_ascii_whitespace() {
+            let start = self.offset;
+            while self.offset < self.src.len() && !self.peek(0).is_ascii_whitespace() {
                 self.bump();
             }
-            let s = String::from_utf8_lossy(&self.src[start..self.i]).into_owned();
+            let s = String::from_utf8_lossy(&self.src[start..self.offset]).into_owned();
             let sym = if names.get(&s).is_some_and(super::symbols::is_keyword) {
                 names.intern(&format!("\\{s}"))
             } else {
@@ -386,12 +377,12 @@ impl<'s> Lexer<'s> {
             };
         }
         if c == b'$' {
-            let start = self.i;
+            let start = self.offset;
             self.bump();
             while is_ident_char(self.peek(0)) {
                 self.bump();
             }
-            let s = std::str::from_utf8(&self.src[start..self.i]).unwrap_or("$");
+            let s = std::str::from_utf8(&self.src[start..self.offset]).unwrap_or("$");
             return Token {
                 tok: Tok::Sys(names.intern(s)),
                 pos,
@@ -402,7 +393,7 @@ impl<'s> Lexer<'s> {
         }
         if c == b'"' {
             self.bump();
-            while self.i < self.src.len() && self.peek(0) != b'"' && self.peek(0) != b'\n' {
+            while self.offset < self.src.len() && self.peek(0) != b'"' && self.peek(0) != b'\n' {
                 if self.peek(0) == b'\\' {
                     self.bump();
                 }
@@ -461,13 +452,13 @@ impl<'s> Lexer<'s> {
                     b'<' => (Punct::Lt, 1),
                     b'>' => (Punct::Gt, 1),
                     _ => {
-                        let ch = std::str::from_utf8(&self.src[self.i..])
+                        let ch = std::str::from_utf8(&self.src[self.offset..])
                             .ok()
                             .and_then(|s| s.chars().next())
                             .unwrap_or('?');
                         self.err(pos, format!("unexpected character `{ch}`"));
                         self.bump();
-                        while self.i < self.src.len() && self.src[self.i] & 0xC0 == 0x80 {
+                        while self.offset < self.src.len() && self.src[self.offset] & 0xC0 == 0x80 {
                             self.bump();
                         }
                         return self.next_token(names);
@@ -502,7 +493,7 @@ impl<'s> Lexer<'s> {
     }
 
     fn number(&mut self, pos: Pos) -> Token {
-        let start = self.i;
+        let start = self.offset;
         let mut size: Option<String> = None;
         if self.peek(0).is_ascii_digit() {
             let d = self.digits(|c| c.is_ascii_digit());
@@ -519,12 +510,12 @@ impl<'s> Lexer<'s> {
                     pos,
                 };
             }
-            let save = (self.i, self.line, self.col, self.file, self.mark_k);
+            let save = (self.offset, self.line, self.col, self.file, self.mark_k);
             self.skip_ws();
             if self.peek(0) != b'\'' {
-                (self.i, self.line, self.col, self.file, self.mark_k) = save;
+                (self.offset, self.line, self.col, self.file, self.mark_k) = save;
                 self.next_mark = self.marks.get(self.mark_k).map_or(usize::MAX, |m| m.off);
-                let text = String::from_utf8_lossy(&self.src[start..self.i]).into_owned();
+                let text = String::from_utf8_lossy(&self.src[start..self.offset]).into_owned();
                 let bits = decimal_bits(&d);
                 let width = if bits.len() <= 32 { 32 } else { bits.len() + 1 };
                 return Token {
@@ -588,7 +579,7 @@ impl<'s> Lexer<'s> {
         let ds =
             self.digits(|c| c.is_ascii_hexdigit() || matches!(c, b'x' | b'X' | b'z' | b'Z' | b'?'));
         let text =
-            String::from_utf8_lossy(&self.src[start..self.i]).replace(char::is_whitespace, "");
+            String::from_utf8_lossy(&self.src[start..self.offset]).replace(char::is_whitespace, "");
         if ds.is_empty() {
             self.err(pos, format!("malformed number `{text}`: no digits"));
         }

@@ -13,6 +13,7 @@ mod parse_gate;
 mod parse_gen;
 mod parse_stmt;
 pub mod parser;
+pub mod pos;
 pub mod preprocess;
 pub mod symbols;
 pub mod syntax_error;

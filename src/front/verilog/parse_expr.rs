@@ -183,7 +183,7 @@ impl Parser<'_, '_> {
         }
     }
 
-    fn concat(&mut self, pos: super::lexer::Pos) -> PResult<Expr> {
+    fn concat(&mut self, pos: super::pos::Pos) -> PResult<Expr> {
         let first = self.expr()?;
         if self.peek_p(Punct::LBrace) {
             self.bump();

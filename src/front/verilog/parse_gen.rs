@@ -2,8 +2,9 @@
 //! constructs (`for` loops over a genvar, `if`, `begin : name ... end` blocks).
 
 use super::ast::*;
-use super::lexer::{Pos, Punct, Tok};
+use super::lexer::{Punct, Tok};
 use super::parser::{PResult, Parser};
+use super::pos::Pos;
 use super::symbols::{kw, Sym};
 
 impl Parser<'_, '_> {

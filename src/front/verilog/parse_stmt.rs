@@ -175,7 +175,7 @@ impl Parser<'_, '_> {
         }
     }
 
-    fn case(&mut self, casez: bool, pos: super::lexer::Pos) -> PResult<Stmt> {
+    fn case(&mut self, casez: bool, pos: super::pos::Pos) -> PResult<Stmt> {
         self.expect_p(Punct::LParen, "`(` after `case`")?;
         let expr = self.expr()?;
         self.expect_p(Punct::RParen, "`)`")?;

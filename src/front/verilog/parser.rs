@@ -2,7 +2,8 @@
 //! blocks. Errors are collected; after one, the parser skips to the next `;` or item keyword.
 
 use super::ast::*;
-use super::lexer::{Lexer, Pos, Punct, Tok, Token};
+use super::lexer::{Lexer, Punct, Tok, Token};
+use super::pos::Pos;
 use super::symbols::{is_keyword, kw, Interner, Sym};
 use super::syntax_error::{SyntaxError, SyntaxKind};
 use std::collections::VecDeque;

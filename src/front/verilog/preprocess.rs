@@ -15,7 +15,8 @@
 mod macros;
 mod text;
 
-use super::lexer::{Mark, Pos};
+use super::lexer::Mark;
+use super::pos::Pos;
 use crate::diag::{Diagnostic, SourcePos};
 use macros::Macro;
 use std::borrow::Cow;

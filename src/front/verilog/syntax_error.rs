@@ -1,7 +1,7 @@
 //! Typed errors of the lexer and the parser: each kind carries its own `help:` line, chosen
 //! where the error is made (never by reading the message back).
 
-use super::lexer::Pos;
+use super::pos::Pos;
 
 /// What went wrong while reading the text.
 #[derive(Copy, Clone, Debug, PartialEq, Eq)]

@@ -3,24 +3,23 @@
 //! blocks record each leaf's driver; [`resolve`] then builds the design's AIG from the
 //! outputs back through the drivers (iteratively, finding combinational loops).
 //!
+//! Stages: [`flatten`] walks the instance hierarchy from the top module, declaring nets and
+//! parameters scope by scope; it hands expressions to [`expr`] (typing and evaluation to
+//! literals) and `always` blocks to [`stmt`] (statement lowering), which uses [`expr`] in
+//! turn; what they share is in [`context`] and the state below ([`Elaborator`]).
+//!
 //! **Invariant:** leaf `k` of the intermediate AIG is either a bit of a net (`owner[k]`) or
 //! an unknown-value source; each net bit has at most one driver.
 
-mod always;
 mod bits;
-mod clocked;
-mod coverage;
-mod divide;
+mod context;
 mod expr;
-mod instance;
-mod module;
+mod flatten;
 mod resolve;
-mod select;
-mod sensitivity;
-mod types;
+mod stmt;
 
 use super::ast::{Dir, Module, NetType};
-use super::lexer::Pos;
+use super::pos::Pos;
 use super::symbols::{Interner, Sym};
 use crate::aig::{Aig, Lit};
 use crate::design::{CellKind, Design};
@@ -51,7 +50,7 @@ fn span(m: i64, l: i64) -> Option<usize> {
 
 /// A constant or symbolic value: bits LSB first, and signedness.
 #[derive(Clone, Debug)]
-pub struct Val {
+pub struct Value {
     /// Bits, least significant first.
     pub bits: Vec<Lit>,
     /// Signed?
@@ -98,9 +97,12 @@ impl Net {
 /// What a name means in a scope.
 #[derive(Clone, Debug)]
 enum Symbol {
+    /// A net or variable: its index in `Elaborator::nets`.
     Net(u32),
-    Param(Box<(Val, i64, i64)>),
-    Genvar(Option<Box<Val>>),
+    /// A parameter: its value and declared range (left index, right index).
+    Param(Box<(Value, i64, i64)>),
+    /// A genvar: its value while a generate loop runs, `None` outside one.
+    Genvar(Option<Box<Value>>),
 }
 
 /// A name scope: a module instance or a generate block.
@@ -129,9 +131,9 @@ struct Driver {
 }
 
 /// A gate primitive as written (for the netlist); its inputs are
-/// `Elab::gate_ins[first..first + count]`.
+/// `Elaborator::gate_ins[first..first + count]`.
 #[derive(Clone, Debug)]
-struct GateRec {
+struct GateRecord {
     kind: CellKind,
     count: u32,
     first: u32,
@@ -142,39 +144,39 @@ struct GateRec {
 const UNKNOWN_BIT: u32 = 1 << 31;
 
 /// The elaborator's state.
-pub struct Elab<'a> {
+pub struct Elaborator<'a> {
     names: &'a Interner,
     files: &'a [Arc<str>],
     modules: HashMap<Sym, &'a Module>,
     module_list: Vec<&'a Module>,
-    g: Aig,
+    aig: Aig,
     owner: Vec<u32>,
     unknowns: Vec<Unknown>,
     nets: Vec<Net>,
     drivers: Vec<Option<Driver>>,
     scopes: Vec<Scope>,
-    gates: Vec<GateRec>,
+    gates: Vec<GateRecord>,
     gate_ins: Vec<Lit>,
     errors: Vec<Diagnostic>,
     warnings: Vec<Diagnostic>,
     quiet: u32,
     hier: Vec<Sym>,
     /// Decided coverage conditions of `always` blocks, by literal.
-    coverage_memo: crate::hash::FastMap<u32, coverage::Coverage>,
+    coverage_memo: crate::hash::FastMap<u32, stmt::Coverage>,
 }
 
-impl<'a> Elab<'a> {
+impl<'a> Elaborator<'a> {
     fn new(names: &'a Interner, files: &'a [Arc<str>], mods: &'a [Module]) -> Self {
         let mut modules = HashMap::new();
         for m in mods {
             modules.entry(m.name).or_insert(m);
         }
-        Elab {
+        Elaborator {
             names,
             files,
             modules,
             module_list: mods.iter().collect(),
-            g: Aig::new(),
+            aig: Aig::new(),
             owner: Vec::new(),
             unknowns: Vec::new(),
             nets: Vec::new(),
@@ -192,13 +194,13 @@ impl<'a> Elab<'a> {
 
     /// The same state without the borrowed syntax tree, so that the tree can be freed
     /// before the design is built.
-    fn detach<'n>(self, names: &'n Interner, files: &'n [Arc<str>]) -> Elab<'n> {
-        Elab {
+    fn detach<'n>(self, names: &'n Interner, files: &'n [Arc<str>]) -> Elaborator<'n> {
+        Elaborator {
             names,
             files,
             modules: HashMap::new(),
             module_list: Vec::new(),
-            g: self.g,
+            aig: self.aig,
             owner: self.owner,
             unknowns: self.unknowns,
             nets: self.nets,
@@ -214,7 +216,7 @@ impl<'a> Elab<'a> {
         }
     }
 
-    fn spos(&self, p: Pos) -> SourcePos {
+    fn source_pos(&self, p: Pos) -> SourcePos {
         let f = self
             .files
             .get(p.file as usize)
@@ -226,14 +228,14 @@ impl<'a> Elab<'a> {
     /// Record an error and what to do about it (unless inside a quiet width computation).
     fn error(&mut self, p: Pos, msg: impl Into<String>, help: impl Into<String>) {
         if self.quiet == 0 {
-            let d = Diagnostic::error(Some(self.spos(p)), msg).with_help(help);
+            let d = Diagnostic::error(Some(self.source_pos(p)), msg).with_help(help);
             self.errors.push(d);
         }
     }
 
     fn warn(&mut self, p: Pos, msg: impl Into<String>) {
         if self.quiet == 0 {
-            let d = Diagnostic::warning(Some(self.spos(p)), msg);
+            let d = Diagnostic::warning(Some(self.source_pos(p)), msg);
             self.warnings.push(d);
         }
     }
@@ -317,9 +319,9 @@ impl<'a> Elab<'a> {
     ) -> u32 {
         let width = (msb - lsb).unsigned_abs() as u32 + 1;
         let id = self.nets.len() as u32;
-        let first = self.g.num_inputs() as u32;
+        let first = self.aig.num_inputs() as u32;
         for _ in 0..width {
-            self.g.add_input();
+            self.aig.add_input();
             self.owner.push(id);
             self.drivers.push(None);
         }
@@ -346,7 +348,7 @@ impl<'a> Elab<'a> {
     fn net_bits(&self, n: u32) -> Vec<Lit> {
         let net = &self.nets[n as usize];
         (0..net.width)
-            .map(|k| self.g.input_lit((net.first + k) as usize))
+            .map(|k| self.aig.input_lit((net.first + k) as usize))
             .collect()
     }
 
@@ -354,7 +356,7 @@ impl<'a> Elab<'a> {
     fn unknown_bits(&mut self, n: usize, pos: Pos, what: &str, scope: u32) -> Vec<Lit> {
         (0..n)
             .map(|k| {
-                let l = self.g.add_input();
+                let l = self.aig.add_input();
                 self.owner.push(UNKNOWN_BIT | self.unknowns.len() as u32);
                 self.drivers.push(None);
                 self.unknowns.push(Unknown {
@@ -372,7 +374,7 @@ impl<'a> Elab<'a> {
     fn drive(&mut self, n: u32, off: u32, lit: Lit, pos: Pos) {
         let leaf = (self.nets[n as usize].first + off) as usize;
         if let Some(d) = self.drivers[leaf] {
-            let first = self.spos(d.pos);
+            let first = self.source_pos(d.pos);
             let bn = self.bit_name(n, off);
             self.error(
                 pos,
@@ -393,12 +395,12 @@ pub fn elaborate(
     mods: Vec<Module>,
     top: Option<&str>,
 ) -> Result<Design, InputError> {
-    let mut e = Elab::new(names, files, &mods);
+    let mut e = Elaborator::new(names, files, &mods);
     // Duplicate module names.
     let mut seen: HashMap<Sym, Pos> = HashMap::new();
     for m in &mods {
         if let Some(&p) = seen.get(&m.name) {
-            let sp = e.spos(p);
+            let sp = e.source_pos(p);
             let n = e.name(m.name).to_string();
             e.error(
                 m.pos,
@@ -409,7 +411,7 @@ pub fn elaborate(
             seen.insert(m.name, m.pos);
         }
     }
-    let top_mod = match module::pick_top(&mut e, top) {
+    let top_mod = match flatten::pick_top(&mut e, top) {
         Some(m) => m,
         None => {
             return Err(InputError {
@@ -417,7 +419,7 @@ pub fn elaborate(
             })
         }
     };
-    let scope = module::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
+    let scope = flatten::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
     // The syntax tree is no longer needed: free it before the design is built.
     let (top_name, top_ports, top_pos) = (top_mod.name, top_mod.ports.clone(), top_mod.pos);
     let mut e = e.detach(names, files);

@@ -4,9 +4,9 @@
 //! loops, and derives the gate-level netlist.
 
 use super::super::ast::Dir;
-use super::super::lexer::Pos;
+use super::super::pos::Pos;
 use super::super::symbols::Sym;
-use super::{Elab, Symbol, UNKNOWN_BIT};
+use super::{Elaborator, Symbol, UNKNOWN_BIT};
 use crate::aig::{Aig, Lit, Node};
 use crate::design::{bit_name, Cell, Design, Format, InputBit, InputKind, Netlist, OutputBit};
 use std::collections::{BTreeSet, HashMap, HashSet};
@@ -14,7 +14,8 @@ use std::collections::{BTreeSet, HashMap, HashSet};
 const NONE: u32 = u32::MAX;
 
 struct Resolver {
-    f: Aig,
+    /// The design's AIG being built (the elaborator's leaves mapped to it).
+    design_aig: Aig,
     memo: Vec<u32>,
     busy: Vec<bool>,
     primary: HashMap<u32, Lit>,
@@ -35,7 +36,7 @@ impl Resolver {
     }
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     fn resolve(&mut self, r: &mut Resolver, root: Lit) -> Lit {
         let mut stack = vec![root.node()];
         while let Some(&n) = stack.last() {
@@ -44,7 +45,7 @@ impl Elab<'_> {
                 stack.pop();
                 continue;
             }
-            match self.g.node(n) {
+            match self.aig.node(n) {
                 Node::Const => {
                     r.memo[ni] = Lit::FALSE.raw();
                     stack.pop();
@@ -63,7 +64,7 @@ impl Elab<'_> {
                         }
                     }
                     if !pushed {
-                        let v = r.f.and(r.map(a), r.map(b));
+                        let v = r.design_aig.and(r.map(a), r.map(b));
                         r.memo[ni] = v.raw();
                         stack.pop();
                     }
@@ -110,7 +111,7 @@ impl Elab<'_> {
         let mut names = Vec::new();
         let mut pos = None;
         for &n in &stack[start..] {
-            if let Node::Input(k) = self.g.node(n) {
+            if let Node::Input(k) = self.aig.node(n) {
                 if r.busy[n as usize] && self.owner[k as usize] & UNKNOWN_BIT == 0 {
                     let nm = self.leaf_name(k);
                     if !names.contains(&nm) {
@@ -139,7 +140,7 @@ impl Elab<'_> {
 
     fn new_unknown(&mut self, r: &mut Resolver, u: usize) -> Lit {
         let info = self.unknowns[u].clone();
-        let sp = self.spos(info.pos);
+        let sp = self.source_pos(info.pos);
         let prefix = &self.scopes[info.scope as usize].prefix;
         let mut port = format!("{prefix}x@{}:{}:{}", sp.file, sp.line, sp.col);
         let mut k = 1;
@@ -152,7 +153,7 @@ impl Elab<'_> {
         }
         let name = bit_name(&port, Some(info.bit as i64));
         r.used_names.insert(name.clone());
-        let lit = r.f.add_input();
+        let lit = r.design_aig.add_input();
         r.inputs.push(InputBit {
             name,
             port,
@@ -168,9 +169,9 @@ impl Elab<'_> {
 }
 
 /// Build the design of top module `m` (elaborated in scope `scope`).
-pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design {
+pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design {
     let mut r = Resolver {
-        f: Aig::new(),
+        design_aig: Aig::new(),
         memo: Vec::new(),
         busy: Vec::new(),
         primary: HashMap::new(),
@@ -205,13 +206,13 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
                             "drive an internal wire instead; an input port gets its value from outside"
                         );
                     }
-                    let lit = r.f.add_input();
+                    let lit = r.design_aig.add_input();
                     r.primary.insert(leaf, lit);
                     let idx = net.vector.then(|| net.index(off));
                     let pn = e.net_name(n);
                     r.used_names.insert(bit_name(&pn, idx));
                     r.inputs
-                        .push(InputBit::port(&pn, idx, Some(e.spos(net.pos))));
+                        .push(InputBit::port(&pn, idx, Some(e.source_pos(net.pos))));
                 }
             }
             Some(Dir::Output) => outs.push(n),
@@ -225,8 +226,8 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
             }
         }
     }
-    r.memo = vec![NONE; e.g.len()];
-    r.busy = vec![false; e.g.len()];
+    r.memo = vec![NONE; e.aig.len()];
+    r.busy = vec![false; e.aig.len()];
     let mut outputs = Vec::new();
     for n in outs {
         let net = e.nets[n as usize].clone();
@@ -237,10 +238,10 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
             if e.drivers[leaf as usize].is_none() && !r.primary.contains_key(&leaf) {
                 undriven = true;
             }
-            let root = e.g.input_lit(leaf as usize);
+            let root = e.aig.input_lit(leaf as usize);
             let lit = e.resolve(&mut r, root);
             let idx = net.vector.then(|| net.index(off));
-            outputs.push(OutputBit::new(&pn, idx, lit, Some(e.spos(net.pos))));
+            outputs.push(OutputBit::new(&pn, idx, lit, Some(e.source_pos(net.pos))));
         }
         if undriven {
             e.error(
@@ -274,7 +275,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
     let d = Design {
         name,
         format: Format::Verilog,
-        aig: r.f,
+        aig: r.design_aig,
         inputs: r.inputs,
         outputs,
         netlist: Some(netlist),
@@ -287,7 +288,7 @@ pub fn build(e: &mut Elab, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design
     d
 }
 
-fn outputs_leaves(e: &Elab, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> {
+fn outputs_leaves(e: &Elaborator, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> {
     let mut v = Vec::new();
     for (ps, _) in ports {
         if let Some(Symbol::Net(n)) = e.scopes[scope as usize].syms.get(ps) {
@@ -302,7 +303,7 @@ fn outputs_leaves(e: &Elab, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> {
 
 /// The gate-level netlist: one signal per net bit after merging plain connections
 /// (port connections, `assign a = b;`).
-fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
+fn netlist(e: &Elaborator, r: &Resolver, outs: &[u32]) -> Netlist {
     let nleaves = e.owner.len();
     let mut gate_out = vec![false; nleaves];
     for gr in &e.gates {
@@ -312,7 +313,7 @@ fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
         if l.is_complemented() {
             return None;
         }
-        match e.g.node(l.node()) {
+        match e.aig.node(l.node()) {
             Node::Input(k) if e.owner[k as usize] & UNKNOWN_BIT == 0 => Some(k),
             _ => None,
         }
@@ -375,7 +376,7 @@ fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
                     kind: gr.kind,
                     inputs,
                     output,
-                    pos: Some(e.spos(gr.pos)),
+                    pos: Some(e.source_pos(gr.pos)),
                 });
             }
             None => complete = false,
@@ -383,7 +384,7 @@ fn netlist(e: &Elab, r: &Resolver, outs: &[u32]) -> Netlist {
     }
     // Every reached net bit must be a port input, a gate output or a plain connection.
     for (k, d) in e.drivers.iter().enumerate() {
-        let node = e.g.input_lit(k).index();
+        let node = e.aig.input_lit(k).index();
         if r.memo[node] == NONE || e.owner[k] & UNKNOWN_BIT != 0 {
             continue;
         }

@@ -5,7 +5,7 @@
 
 use super::text::{Cursor, Mapped};
 use super::{Pre, MAX_DEPTH, MAX_EXPANSION};
-use crate::front::verilog::lexer::Pos;
+use crate::front::verilog::pos::Pos;
 
 /// One defined macro.
 #[derive(Clone, Debug)]

@@ -2,7 +2,8 @@
 //! file, line, column), read by a cursor that keeps the position of its current byte, and
 //! written by copying bytes with their positions.
 
-use crate::front::verilog::lexer::{Mark, Pos};
+use crate::front::verilog::lexer::Mark;
+use crate::front::verilog::pos::Pos;
 
 /// Text with the origin of its bytes.
 #[derive(Clone, Debug, Default)]

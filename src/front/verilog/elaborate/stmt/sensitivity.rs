@@ -4,11 +4,11 @@
 //! naming it: a simulator would not wake on that variable, so simulation and synthesis
 //! disagree there (common practice).
 
-use super::super::ast::{Event, Expr, Select, Stmt};
-use super::super::lexer::Pos;
-use super::super::symbols::Sym;
-use super::{Elab, Symbol};
+use super::super::{Elaborator, Symbol};
 use crate::front::verilog::ast::NetType;
+use crate::front::verilog::ast::{Event, Expr, Select, Stmt};
+use crate::front::verilog::pos::Pos;
+use crate::front::verilog::symbols::Sym;
 use std::collections::HashSet;
 
 /// Names read and assigned by a statement, in order of first appearance.
@@ -114,9 +114,9 @@ fn event_name(ev: &Event) -> Option<Sym> {
     }
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Warn when the event list `events` (at `at`) misses a net that `body` reads.
-    pub(super) fn check_event_list(&mut self, scope: u32, events: &[Event], at: Pos, body: &Stmt) {
+    pub(crate) fn check_event_list(&mut self, scope: u32, events: &[Event], at: Pos, body: &Stmt) {
         let listed: HashSet<Sym> = events.iter().filter_map(event_name).collect();
         let mut uses = Uses::default();
         uses.stmt(body);

@@ -4,7 +4,7 @@
 //! the remainder takes the sign of the dividend), and `**` with a constant exponent by
 //! square and multiply.
 
-use super::bits;
+use super::super::bits;
 use crate::aig::{Aig, Lit};
 
 /// Quotient and remainder of unsigned `a` by `b` (equal widths); a zero divisor gives an

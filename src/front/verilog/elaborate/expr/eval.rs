@@ -2,61 +2,30 @@
 //! (context-determined operands extended to the expression's width before the operation)
 //! and the signedness rules of clause 5.5 (signed only when every operand is signed).
 
-use super::super::ast::{BinOp, Expr, UnOp};
-use super::super::lexer::{Pos, B0, B1};
-use super::always::Env;
-use super::bits::{self, extend};
+use super::super::bits::{self, extend};
+use super::super::context::EvalContext;
+use super::super::{Elaborator, Sym, Symbol, Value, MAX_DIV_WIDTH, MAX_MUL_WIDTH, MAX_WIDTH};
 use super::types::ExprType;
-use super::{Elab, Symbol, Val};
 use crate::aig::{Aig, Lit};
-
-/// Evaluation context: the scope, the current values of an always block's variables, and
-/// whether only constants (parameters, genvars) may be read.
-#[derive(Clone, Copy)]
-pub struct EvalContext<'e> {
-    /// Scope for name lookup.
-    pub scope: u32,
-    /// Variables of the enclosing always block.
-    pub env: Option<&'e Env>,
-    /// Constant expression (ranges, parameters, generate conditions).
-    pub constant: bool,
-}
-
-impl<'e> EvalContext<'e> {
-    /// Plain context in scope `scope`.
-    pub fn new(scope: u32) -> EvalContext<'static> {
-        EvalContext {
-            scope,
-            env: None,
-            constant: false,
-        }
-    }
-
-    /// Constant context in scope `scope`.
-    pub fn constant(scope: u32) -> EvalContext<'static> {
-        EvalContext {
-            scope,
-            env: None,
-            constant: true,
-        }
-    }
-}
+use crate::front::verilog::ast::{BinOp, Expr, UnOp};
+use crate::front::verilog::lexer::{B0, B1};
+use crate::front::verilog::pos::Pos;
 
 /// A named operand: its value and declared range.
 pub struct Operand {
     /// Value bits.
-    pub val: Val,
+    pub val: Value,
     /// Declared left index.
     pub msb: i64,
     /// Declared right index.
     pub lsb: i64,
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Evaluate a constant expression; reports and returns `None` when it is not constant.
-    pub(super) fn const_val(&mut self, scope: u32, e: &Expr) -> Option<Val> {
+    pub(crate) fn const_val(&mut self, scope: u32, e: &Expr) -> Option<Value> {
         let ctx = EvalContext::constant(scope);
-        let t = self.ty(&ctx, e);
+        let t = self.expr_type(&ctx, e);
         let before = self.errors.len();
         let bits = self.eval(&ctx, e, t.width, t.signed);
         if self.errors.len() > before {
@@ -70,14 +39,14 @@ impl Elab<'_> {
             );
             return None;
         }
-        Some(Val {
+        Some(Value {
             bits,
             signed: t.signed,
         })
     }
 
     /// Evaluate a constant integer expression.
-    pub(super) fn const_int(&mut self, scope: u32, e: &Expr) -> Option<i64> {
+    pub(crate) fn const_int(&mut self, scope: u32, e: &Expr) -> Option<i64> {
         let v = self.const_val(scope, e)?;
         let r = bits::to_i64(&v.bits, v.signed);
         if r.is_none() {
@@ -91,27 +60,22 @@ impl Elab<'_> {
     }
 
     /// Evaluate `e` self-determined.
-    pub(super) fn eval_self(&mut self, ctx: &EvalContext, e: &Expr) -> Val {
-        let t = self.ty(ctx, e);
-        Val {
+    pub(crate) fn eval_self(&mut self, ctx: &EvalContext, e: &Expr) -> Value {
+        let t = self.expr_type(ctx, e);
+        Value {
             bits: self.eval(ctx, e, t.width, t.signed),
             signed: t.signed,
         }
     }
 
     /// Evaluate `e` as a condition: true when any bit is 1.
-    pub(super) fn eval_bool(&mut self, ctx: &EvalContext, e: &Expr) -> Lit {
+    pub(crate) fn eval_bool(&mut self, ctx: &EvalContext, e: &Expr) -> Lit {
         let v = self.eval_self(ctx, e);
-        self.g.or_all(&v.bits)
+        self.aig.or_all(&v.bits)
     }
 
     /// Value and range of a name.
-    pub(super) fn operand(
-        &mut self,
-        ctx: &EvalContext,
-        s: super::Sym,
-        pos: Pos,
-    ) -> Option<Operand> {
+    pub(crate) fn operand(&mut self, ctx: &EvalContext, s: Sym, pos: Pos) -> Option<Operand> {
         match self.lookup(ctx.scope, s).cloned() {
             Some(Symbol::Net(n)) => {
                 if ctx.constant {
@@ -130,7 +94,7 @@ impl Elab<'_> {
                     env.overlay(n, &mut b);
                 }
                 Some(Operand {
-                    val: Val { bits: b, signed },
+                    val: Value { bits: b, signed },
                     msb,
                     lsb,
                 })
@@ -165,22 +129,29 @@ impl Elab<'_> {
         }
     }
 
-    /// Evaluate `e` in a context of width `w` and signedness `s` (`w` at least its own width).
-    pub(super) fn eval(&mut self, ctx: &EvalContext, e: &Expr, w: usize, s: bool) -> Vec<Lit> {
-        let w = w.min(super::MAX_WIDTH);
-        let v = self.eval_inner(ctx, e, w, s);
+    /// Evaluate `e` in a context of width `width` and signedness `signed` (`width` at least
+    /// its own width).
+    pub(crate) fn eval(
+        &mut self,
+        ctx: &EvalContext,
+        e: &Expr,
+        width: usize,
+        signed: bool,
+    ) -> Vec<Lit> {
+        let width = width.min(MAX_WIDTH);
+        let v = self.eval_inner(ctx, e, width, signed);
         debug_assert!(
-            v.len() == w || self.quiet > 0 || !self.errors.is_empty(),
-            "width {} != {w}",
+            v.len() == width || self.quiet > 0 || !self.errors.is_empty(),
+            "width {} != {width}",
             v.len()
         );
-        extend(v, w, s)
+        extend(v, width, signed)
     }
 
     fn literal(
         &mut self,
         ctx: &EvalContext,
-        n: &super::super::lexer::NumLit,
+        n: &crate::front::verilog::lexer::NumLit,
         pos: Pos,
     ) -> Vec<Lit> {
         let mut out = Vec::with_capacity(n.bits.len());
@@ -238,12 +209,12 @@ impl Elab<'_> {
                 UnOp::Plus => self.eval(ctx, a, w, s),
                 UnOp::Neg => {
                     let v = self.eval(ctx, a, w, s);
-                    bits::neg(&mut self.g, &v)
+                    bits::neg(&mut self.aig, &v)
                 }
                 UnOp::Not => bits::not(&self.eval(ctx, a, w, s)),
                 _ => {
                     let v = self.eval_self(ctx, a);
-                    let g = &mut self.g;
+                    let g = &mut self.aig;
                     let r = match op {
                         UnOp::LogNot => !g.or_all(&v.bits),
                         UnOp::RedAnd => g.and_all(&v.bits),
@@ -269,7 +240,7 @@ impl Elab<'_> {
                 let f = self.eval(ctx, &b[2], w, s);
                 t.iter()
                     .zip(&f)
-                    .map(|(&x, &y)| self.g.mux(c, x, y))
+                    .map(|(&x, &y)| self.aig.mux(c, x, y))
                     .collect()
             }
             Expr::Concat(items, _) => {
@@ -290,7 +261,7 @@ impl Elab<'_> {
                     None => 0,
                 };
                 let inner = self.concat(ctx, items);
-                if count.saturating_mul(inner.len()) > super::MAX_WIDTH {
+                if count.saturating_mul(inner.len()) > MAX_WIDTH {
                     self.error(
                         *pos,
                         "replication wider than 65536 bits",
@@ -331,13 +302,13 @@ impl Elab<'_> {
         for it in items.iter().rev() {
             let b = self.eval_self(ctx, it);
             v.extend_from_slice(&b.bits);
-            if v.len() > super::MAX_WIDTH {
+            if v.len() > MAX_WIDTH {
                 self.error(
                     it.pos(),
                     "concatenation wider than 65536 bits",
                     "equicone reads values of at most 65536 bits; split the concatenation",
                 );
-                v.truncate(super::MAX_WIDTH);
+                v.truncate(MAX_WIDTH);
                 break;
             }
         }
@@ -380,7 +351,7 @@ impl Elab<'_> {
                             },
                         ),
                     };
-                    acc = bits::shift(&mut self.g, &acc, &amt, left, fill);
+                    acc = bits::shift(&mut self.aig, &acc, &amt, left, fill);
                 }
                 acc
             }
@@ -388,8 +359,8 @@ impl Elab<'_> {
                 // Relations: operands sized to each other; result 1 bit, unsigned.
                 let mut r = {
                     let (op, _, e) = &rest[0];
-                    let ta = self.ty(ctx, first);
-                    let tb = self.ty(ctx, e);
+                    let ta = self.expr_type(ctx, first);
+                    let tb = self.expr_type(ctx, e);
                     let t = ExprType {
                         width: ta.width.max(tb.width),
                         signed: ta.signed && tb.signed,
@@ -399,7 +370,7 @@ impl Elab<'_> {
                     self.compare(*op, &a, &b, t.signed)
                 };
                 for (op, _, e) in &rest[1..] {
-                    let tb = self.ty(ctx, e);
+                    let tb = self.expr_type(ctx, e);
                     let cw = tb.width.max(1);
                     let a = extend(vec![r], cw, false);
                     let b = self.eval(ctx, e, cw, false);
@@ -412,9 +383,9 @@ impl Elab<'_> {
                 for (op, _, e) in rest {
                     let b = self.eval_bool(ctx, e);
                     acc = if *op == BinOp::LogAnd {
-                        self.g.and(acc, b)
+                        self.aig.and(acc, b)
                     } else {
-                        self.g.or(acc, b)
+                        self.aig.or(acc, b)
                     };
                 }
                 extend(vec![acc], w, false)
@@ -423,21 +394,21 @@ impl Elab<'_> {
                 let mut acc = self.eval(ctx, first, w, s);
                 for (op, pos, e) in rest {
                     let b = self.eval(ctx, e, w, s);
-                    if *op == BinOp::Mul && acc.len() > super::MAX_MUL_WIDTH {
+                    if *op == BinOp::Mul && acc.len() > MAX_MUL_WIDTH {
                         // An array multiplier of w bits has about w * w / 2 gates.
                         self.error(
                             *pos,
                             format!(
                                 "unsupported: multiplication {} bits wide (at most {} bits)",
                                 acc.len(),
-                                super::MAX_MUL_WIDTH
+                                MAX_MUL_WIDTH
                             ),
                             "narrow the operands or the assignment target",
                         );
                         acc = vec![Lit::FALSE; acc.len()];
                         continue;
                     }
-                    let g = &mut self.g;
+                    let g = &mut self.aig;
                     acc = match op {
                         BinOp::Add => bits::add(g, &acc, &b, Lit::FALSE),
                         BinOp::Sub => bits::sub(g, &acc, &b),
@@ -455,7 +426,7 @@ impl Elab<'_> {
     }
 
     fn compare(&mut self, op: BinOp, a: &[Lit], b: &[Lit], signed: bool) -> Lit {
-        let g = &mut self.g;
+        let g = &mut self.aig;
         let lt = |g: &mut Aig, x: &[Lit], y: &[Lit]| {
             if signed {
                 bits::slt(g, x, y)
@@ -474,7 +445,7 @@ impl Elab<'_> {
     }
 
     /// `/` and `%` (IEEE 1364-2005 clause 5.1.5): constants folded, anything else through
-    /// the array divider of `divide.rs` up to [`super::MAX_DIV_WIDTH`] bits; a divisor of
+    /// the array divider of `divide.rs` up to [`MAX_DIV_WIDTH`] bits; a divisor of
     /// zero gives an unknown value.
     fn divide(
         &mut self,
@@ -502,28 +473,28 @@ impl Elab<'_> {
         if b.iter().all(|&l| l == Lit::FALSE) {
             return self.unknown_bits(w, pos, "division by zero", ctx.scope);
         }
-        if w > super::MAX_DIV_WIDTH {
+        if w > MAX_DIV_WIDTH {
             self.error(
                 pos,
                 format!(
                     "unsupported: `{}` {w} bits wide (at most {} bits)",
                     op.text(),
-                    super::MAX_DIV_WIDTH
+                    MAX_DIV_WIDTH
                 ),
                 "narrow the operands or the assignment target",
             );
             return vec![Lit::FALSE; w];
         }
-        let r = super::divide::divmod(&mut self.g, a, b, s, op == BinOp::Mod);
+        let r = super::divide::divmod(&mut self.aig, a, b, s, op == BinOp::Mod);
         if bits::is_const(b) {
             return r;
         }
         // A divisor that can be zero: x there (clause 5.1.5), an unknown input.
-        let zero = !self.g.or_all(b);
+        let zero = !self.aig.or_all(b);
         let u = self.unknown_bits(w, pos, "division by zero", ctx.scope);
         r.iter()
             .zip(&u)
-            .map(|(&v, &x)| self.g.mux(zero, x, v))
+            .map(|(&v, &x)| self.aig.mux(zero, x, v))
             .collect()
     }
 
@@ -542,18 +513,18 @@ impl Elab<'_> {
             return vec![Lit::FALSE; w];
         };
         if n >= 0 {
-            if w > super::MAX_MUL_WIDTH {
+            if w > MAX_MUL_WIDTH {
                 self.error(
                     pos,
                     format!(
                         "unsupported: `**` {w} bits wide (at most {} bits)",
-                        super::MAX_MUL_WIDTH
+                        MAX_MUL_WIDTH
                     ),
                     "narrow the operands or the assignment target",
                 );
                 return vec![Lit::FALSE; w];
             }
-            return super::divide::pow_const(&mut self.g, a, n as u64);
+            return super::divide::pow_const(&mut self.aig, a, n as u64);
         }
         match bits::to_i64(a, s) {
             Some(0) => self.unknown_bits(w, pos, "zero to a negative power", ctx.scope),

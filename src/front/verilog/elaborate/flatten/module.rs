@@ -2,25 +2,25 @@
 //! declarations, implicit nets, continuous assignments, gate primitives, and generate loops
 //! and conditions. Sub-instances are in `instance.rs`, flattened with hierarchical names.
 
-use super::super::ast::{
-    Conns, Decl, Dir, Expr, GateKind, Instance, Item, Module, NetType, ParamDecl, Range,
-};
-use super::super::lexer::Pos;
-use super::super::symbols::Sym;
-use super::bits::{self, extend};
-use super::expr::EvalContext;
-use super::{Elab, GateRec, Symbol, Val};
+use super::super::bits::{self, extend};
+use super::super::context::EvalContext;
+use super::super::{span, Elaborator, GateRecord, Symbol, Value, MAX_HIER, MAX_LOOP};
 use crate::aig::Lit;
 use crate::design::CellKind;
+use crate::front::verilog::ast::{
+    Conns, Decl, Dir, Expr, GateKind, Instance, Item, Module, NetType, ParamDecl, Range,
+};
+use crate::front::verilog::pos::Pos;
+use crate::front::verilog::symbols::Sym;
 use std::collections::HashSet;
 
-/// Which parameter an override sets.
+/// OverrideTarget parameter an override sets.
 #[derive(Clone, Debug)]
-pub enum Which {
+pub enum OverrideTarget {
     /// By name.
-    Named(Sym),
+    ByName(Sym),
     /// By position among the overridable parameters.
-    Nth(usize),
+    ByPosition(usize),
 }
 
 fn walk_instances<'m>(items: &'m [Item], out: &mut Vec<&'m Instance>) {
@@ -39,7 +39,7 @@ fn walk_instances<'m>(items: &'m [Item], out: &mut Vec<&'m Instance>) {
 }
 
 /// Choose the top module: the one named, or the only one that no module instantiates.
-pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
+pub fn pick_top<'a>(e: &mut Elaborator<'a>, top: Option<&str>) -> Option<&'a Module> {
     let list = e.module_list.clone();
     let names = e.names;
     let nopos = Pos::default();
@@ -109,10 +109,10 @@ pub fn pick_top<'a>(e: &mut Elab<'a>, top: Option<&str>) -> Option<&'a Module> {
 
 /// Elaborate module `m` as an instance with hierarchical `prefix`; returns its scope.
 pub fn elab_instance<'a>(
-    e: &mut Elab<'a>,
+    e: &mut Elaborator<'a>,
     m: &'a Module,
     prefix: String,
-    overrides: Vec<(Which, Val, Pos)>,
+    overrides: Vec<(OverrideTarget, Value, Pos)>,
     pos: Pos,
 ) -> u32 {
     let idx = e
@@ -130,10 +130,10 @@ pub fn elab_instance<'a>(
         );
         return scope;
     }
-    if e.hier.len() >= super::MAX_HIER {
+    if e.hier.len() >= MAX_HIER {
         e.error(
             pos,
-            format!("instance hierarchy deeper than {} levels", super::MAX_HIER),
+            format!("instance hierarchy deeper than {} levels", MAX_HIER),
             "flatten part of the hierarchy; equicone reads at most 64 levels of instances",
         );
         return scope;
@@ -144,11 +144,11 @@ pub fn elab_instance<'a>(
     for (w, _, p) in ov {
         let mn = e.name(m.name);
         let (msg, help) = match w {
-            Which::Named(s) => (
+            OverrideTarget::ByName(s) => (
                 format!("module `{mn}` has no parameter `{}`", e.name(s)),
                 "override only parameters the module declares (not `localparam`); check the spelling",
             ),
-            Which::Nth(k) => (
+            OverrideTarget::ByPosition(k) => (
                 format!("module `{mn}` has fewer than {} parameters", k + 1),
                 "give no more overrides than the module has parameters, or override by name (`#(.N(8))`)",
             ),
@@ -167,7 +167,7 @@ struct Merged<'m> {
     pos: Pos,
 }
 
-impl<'a> Elab<'a> {
+impl<'a> Elaborator<'a> {
     fn range_bounds(&mut self, scope: u32, r: &Range) -> Option<(i64, i64)> {
         let m = self.const_int(scope, &r.msb)?;
         let l = self.const_int(scope, &r.lsb)?;
@@ -181,7 +181,7 @@ impl<'a> Elab<'a> {
                 return None;
             }
         }
-        if super::span(m, l).is_none() {
+        if span(m, l).is_none() {
             self.error(
                 r.msb.pos(),
                 "range wider than 65536 bits",
@@ -196,7 +196,7 @@ impl<'a> Elab<'a> {
         &mut self,
         scope: u32,
         pd: &ParamDecl,
-        overrides: &mut Option<&mut Vec<(Which, Val, Pos)>>,
+        overrides: &mut Option<&mut Vec<(OverrideTarget, Value, Pos)>>,
         nth: &mut usize,
     ) {
         for (name, pos, ex) in &pd.assigns {
@@ -204,8 +204,8 @@ impl<'a> Elab<'a> {
             if !pd.local {
                 if let Some(ov) = overrides.as_deref_mut() {
                     if let Some(k) = ov.iter().position(|(w, _, _)| match w {
-                        Which::Named(s) => s == name,
-                        Which::Nth(k) => *k == *nth,
+                        OverrideTarget::ByName(s) => s == name,
+                        OverrideTarget::ByPosition(k) => *k == *nth,
                     }) {
                         val = Some(ov.remove(k).1);
                     }
@@ -214,14 +214,14 @@ impl<'a> Elab<'a> {
             }
             let v = match val.or_else(|| self.const_val(scope, ex)) {
                 Some(v) => v,
-                None => Val {
+                None => Value {
                     bits: vec![Lit::FALSE; 32],
                     signed: true,
                 },
             };
             let (v, msb, lsb) = if pd.integer {
                 (
-                    Val {
+                    Value {
                         bits: extend(v.bits, 32, v.signed),
                         signed: true,
                     },
@@ -231,9 +231,9 @@ impl<'a> Elab<'a> {
             } else if let Some(r) = &pd.range {
                 match self.range_bounds(scope, r) {
                     Some((m, l)) => {
-                        let w = super::span(m, l).unwrap_or(1);
+                        let w = span(m, l).unwrap_or(1);
                         (
-                            Val {
+                            Value {
                                 bits: extend(v.bits, w, v.signed),
                                 signed: pd.signed,
                             },
@@ -246,7 +246,7 @@ impl<'a> Elab<'a> {
             } else {
                 let w = v.bits.len() as i64;
                 (
-                    Val {
+                    Value {
                         bits: v.bits,
                         signed: v.signed || pd.signed,
                     },
@@ -270,12 +270,12 @@ impl<'a> Elab<'a> {
     }
 
     /// Elaborate the items of a module or generate block in scope `scope`.
-    pub(super) fn elab_items(
+    pub(crate) fn elab_items(
         &mut self,
         scope: u32,
         items: &'a [Item],
         m: &'a Module,
-        mut overrides: Option<&mut Vec<(Which, Val, Pos)>>,
+        mut overrides: Option<&mut Vec<(OverrideTarget, Value, Pos)>>,
         is_module: bool,
     ) {
         // Room for the nets and gates of the items (a flat netlist has a million of each).
@@ -474,13 +474,13 @@ impl<'a> Elab<'a> {
     }
 
     /// `assign lhs = rhs;`
-    pub(super) fn cont_assign(&mut self, scope: u32, lhs: &Expr, rhs: &Expr, pos: Pos) {
+    pub(crate) fn cont_assign(&mut self, scope: u32, lhs: &Expr, rhs: &Expr, pos: Pos) {
         let ctx = EvalContext::new(scope);
         let t = match self.targets(&ctx, lhs, false) {
             Some(t) => t,
             None => return,
         };
-        let ty = self.ty(&ctx, rhs);
+        let ty = self.expr_type(&ctx, rhs);
         let w = t.len().max(ty.width);
         let v = self.eval(&ctx, rhs, w, ty.signed);
         for (k, (n, off)) in t.into_iter().enumerate() {
@@ -512,7 +512,7 @@ impl<'a> Elab<'a> {
                 if let Some(Symbol::Net(n)) = self.lookup(scope, *s) {
                     let net = &self.nets[*n as usize];
                     if net.width == 1 {
-                        lits.push(self.g.input_lit(net.first as usize));
+                        lits.push(self.aig.input_lit(net.first as usize));
                         continue;
                     }
                 }
@@ -530,7 +530,7 @@ impl<'a> Elab<'a> {
             }
             lits.push(v.bits.first().copied().unwrap_or(Lit::FALSE));
         }
-        let g = &mut self.g;
+        let g = &mut self.aig;
         let (cell, out) = match kind {
             GateKind::And => (CellKind::And, g.and_all(&lits)),
             GateKind::Nand => (CellKind::Nand, !g.and_all(&lits)),
@@ -571,7 +571,7 @@ impl<'a> Elab<'a> {
                     shared = Some(self.gate_ins.len() as u32);
                     self.gate_ins.extend_from_slice(&lits);
                 }
-                self.gates.push(GateRec {
+                self.gates.push(GateRecord {
                     kind: cell,
                     count: lits.len() as u32,
                     first: shared.unwrap_or(0),
@@ -585,7 +585,7 @@ impl<'a> Elab<'a> {
     fn gen_for(
         &mut self,
         scope: u32,
-        g: &'a super::super::ast::GenFor,
+        g: &'a crate::front::verilog::ast::GenFor,
         m: &'a Module,
         genblk: usize,
     ) {
@@ -611,7 +611,7 @@ impl<'a> Elab<'a> {
         loop {
             let prefix = format!("{}{blk}[{v}].", self.scopes[scope as usize].prefix);
             let child = self.new_scope(Some(scope), prefix, self.scopes[scope as usize].module);
-            let gv = Val {
+            let gv = Value {
                 bits: bits::constant(v, 32),
                 signed: true,
             };
@@ -626,12 +626,12 @@ impl<'a> Elab<'a> {
                 return;
             }
             count += 1;
-            if count > super::MAX_LOOP {
+            if count > MAX_LOOP {
                 self.error(
                     g.pos,
                     format!(
                         "generate loop runs more than {} iterations",
-                        super::MAX_LOOP
+                        MAX_LOOP
                     ),
                     "check the loop's condition and step; equicone unrolls at most 65536 iterations"
                 );

@@ -1,68 +1,25 @@
 //! Combinational `always` blocks: symbolic execution of blocking assignments, `if`, `case`/`casez` and
 //! constant-bound `for` loops; a variable left unassigned on some path is a latch error.
 
-use super::super::ast::{Always, CaseStmt, Expr, ForStmt, NetType, Select, Sensitivity, Stmt};
-use super::super::lexer::{Pos, B0, B1};
-use super::bits::{self, extend};
+use super::super::bits::{self, extend};
+use super::super::context::{BitState, Env, EvalContext};
+use super::super::{span, Elaborator, Sym, Symbol, MAX_LOOP, MAX_WIDTH};
 use super::coverage::{self, Coverage};
-use super::expr::EvalContext;
-use super::{Elab, Symbol};
 use crate::aig::Lit;
+use crate::front::verilog::ast::{
+    Always, CaseStmt, Expr, ForStmt, NetType, Select, Sensitivity, Stmt,
+};
+use crate::front::verilog::lexer::{B0, B1};
+use crate::front::verilog::pos::Pos;
 use std::collections::BTreeMap;
-
-/// The state of one variable bit during symbolic execution.
-#[derive(Copy, Clone, Debug, PartialEq, Eq)]
-pub enum BitState {
-    /// Assigned on every path so far, with this value.
-    Set(Lit),
-    /// Not assigned on any path so far; the statement that has such a path, if any.
-    Unset(Option<Pos>),
-    /// Assigned, with `value`, on the paths where `assigned` holds; `gap` is the statement
-    /// with a path that does not assign it (a latch unless `assigned` covers every value).
-    Partial {
-        /// The value where assigned.
-        value: Lit,
-        /// Where it is assigned.
-        assigned: Lit,
-        /// The statement with an unassigning path.
-        gap: Pos,
-    },
-}
-
-/// Current values of the variables an always block has assigned.
-#[derive(Clone, Debug, Default)]
-pub struct Env {
-    vars: BTreeMap<u32, Vec<BitState>>,
-}
-
-impl Env {
-    /// The current value of bit `off` of net `n`, if assigned.
-    pub fn bit(&self, n: u32, off: usize) -> Option<Lit> {
-        match self.vars.get(&n)?.get(off)? {
-            BitState::Set(l) => Some(*l),
-            BitState::Unset(_) | BitState::Partial { .. } => None,
-        }
-    }
-
-    /// Replace the bits of net `n` by their current values where assigned.
-    pub fn overlay(&self, n: u32, bits: &mut [Lit]) {
-        if let Some(v) = self.vars.get(&n) {
-            for (b, s) in bits.iter_mut().zip(v) {
-                if let BitState::Set(l) = s {
-                    *b = *l;
-                }
-            }
-        }
-    }
-}
 
 /// One assignment target bit: net and offset (`None` offset: outside the range, dropped).
 pub type Target = (u32, Option<u32>);
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Elaborate one `always` block in scope `scope`: clocked ones go to `clocked.rs`;
     /// combinational ones have their event list checked (`sensitivity.rs`) and run here.
-    pub(super) fn elab_always(&mut self, scope: u32, block: &Always, pos: Pos) {
+    pub(crate) fn elab_always(&mut self, scope: u32, block: &Always, pos: Pos) {
         if let Sensitivity::List(events, at) = &block.sensitivity {
             if let Some(edge) = events.iter().find(|e| e.edge.is_some()) {
                 return self.elab_clocked(scope, block, edge);
@@ -198,7 +155,7 @@ impl Elab<'_> {
             Unset(_) => None,
         };
         match (parts(a), parts(b)) {
-            (Some((x, _, None)), Some((y, _, None))) => Set(self.g.mux(c, x, y)),
+            (Some((x, _, None)), Some((y, _, None))) => Set(self.aig.mux(c, x, y)),
             (None, None) => match (a, b) {
                 (Unset(p), Unset(q)) => Unset(p.or(q)),
                 _ => Unset(None),
@@ -212,10 +169,10 @@ impl Elab<'_> {
                 let gap = gap_of(a).or(gap_of(b)).unwrap_or(pos);
                 let (value, assigned) = match (pa, pb) {
                     (Some((x, ax, _)), Some((y, ay, _))) => {
-                        (self.g.mux(c, x, y), self.g.mux(c, ax, ay))
+                        (self.aig.mux(c, x, y), self.aig.mux(c, ax, ay))
                     }
-                    (Some((x, ax, _)), None) => (x, self.g.and(c, ax)),
-                    (None, Some((y, ay, _))) => (y, self.g.and(!c, ay)),
+                    (Some((x, ax, _)), None) => (x, self.aig.and(c, ax)),
+                    (None, Some((y, ay, _))) => (y, self.aig.and(!c, ay)),
                     (None, None) => (Lit::FALSE, Lit::FALSE),
                 };
                 self.settle(value, assigned, gap)
@@ -258,7 +215,7 @@ impl Elab<'_> {
                             env: Some(env),
                             constant: false,
                         };
-                        let t = self.ty(&ctx, rhs);
+                        let t = self.expr_type(&ctx, rhs);
                         let v = self.eval(&ctx, rhs, t.width.max(1), t.signed)[0];
                         let net = self.nets[n as usize].clone();
                         let w = net.width as usize;
@@ -270,10 +227,10 @@ impl Elab<'_> {
                             .or_insert_with(|| vec![BitState::Unset(None); w]);
                         for (off, slot) in entry.iter_mut().enumerate() {
                             let idx = bits::constant(net.index(off as u32), ww);
-                            let hit = bits::eq(&mut self.g, &ie, &idx);
+                            let hit = bits::eq(&mut self.aig, &ie, &idx);
                             *slot = match *slot {
                                 _ if hit == Lit::FALSE => *slot,
-                                BitState::Set(old) => BitState::Set(self.g.mux(hit, v, old)),
+                                BitState::Set(old) => BitState::Set(self.aig.mux(hit, v, old)),
                                 BitState::Unset(_) if hit == Lit::TRUE => BitState::Set(v),
                                 BitState::Unset(p) => BitState::Unset(Some(p.unwrap_or(pos))),
                                 BitState::Partial {
@@ -281,8 +238,8 @@ impl Elab<'_> {
                                     assigned,
                                     gap,
                                 } => {
-                                    let value = self.g.mux(hit, v, value);
-                                    let assigned = self.g.or(hit, assigned);
+                                    let value = self.aig.mux(hit, v, value);
+                                    let assigned = self.aig.or(hit, assigned);
                                     self.settle(value, assigned, gap)
                                 }
                             };
@@ -301,7 +258,7 @@ impl Elab<'_> {
             Some(t) => t,
             None => return,
         };
-        let t = self.ty(&ctx, rhs);
+        let t = self.expr_type(&ctx, rhs);
         let w = targets.len().max(t.width);
         let v = self.eval(&ctx, rhs, w, t.signed);
         for (k, (n, off)) in targets.iter().enumerate() {
@@ -317,10 +274,10 @@ impl Elab<'_> {
     }
 
     /// The net named `sym`, checked as an assignment target (`procedural`: a `reg`).
-    pub(super) fn target_net(
+    pub(crate) fn target_net(
         &mut self,
         scope: u32,
-        sym: super::Sym,
+        sym: Sym,
         pos: Pos,
         procedural: bool,
     ) -> Option<u32> {
@@ -370,7 +327,7 @@ impl Elab<'_> {
     }
 
     /// Target bits of an assignment, least significant first.
-    pub(super) fn targets(
+    pub(crate) fn targets(
         &mut self,
         ctx: &EvalContext,
         lhs: &Expr,
@@ -418,7 +375,7 @@ impl Elab<'_> {
                             );
                             return None;
                         }
-                        let Some(w) = super::span(m, l) else {
+                        let Some(w) = span(m, l) else {
                             self.error(
                                 *p,
                                 "part-select wider than 65536 bits",
@@ -431,7 +388,7 @@ impl Elab<'_> {
                     }
                     Select::Up(b, w) | Select::Down(b, w) => {
                         let w = self.const_int(ctx.scope, w)?;
-                        if w <= 0 || w as usize > super::MAX_WIDTH {
+                        if w <= 0 || w as usize > MAX_WIDTH {
                             self.error(
                                 *p,
                                 "indexed part-select width must be a positive constant of at most 65536",
@@ -496,10 +453,10 @@ impl Elab<'_> {
             env: Some(env),
             constant: false,
         };
-        let mut t = self.ty(&ctx, &c.expr);
+        let mut t = self.expr_type(&ctx, &c.expr);
         for (labels, _) in &c.items {
             for l in labels {
-                let u = self.ty(&ctx, l);
+                let u = self.expr_type(&ctx, l);
                 t.width = t.width.max(u.width);
                 t.signed = t.signed && u.signed;
             }
@@ -532,7 +489,7 @@ impl Elab<'_> {
                                 match bit {
                                     B0 => eqs.push(!sel[k]),
                                     B1 => eqs.push(sel[k]),
-                                    super::super::lexer::BZ => {}
+                                    crate::front::verilog::lexer::BZ => {}
                                     _ => {
                                         self.error(
                                             *p,
@@ -543,15 +500,15 @@ impl Elab<'_> {
                                     }
                                 }
                             }
-                            self.g.and_all(&eqs)
+                            self.aig.and_all(&eqs)
                         }
                     }
                     _ => {
                         let v = self.eval(&ctx, l, t.width, t.signed);
-                        bits::eq(&mut self.g, &sel, &v)
+                        bits::eq(&mut self.aig, &sel, &v)
                     }
                 };
-                any = self.g.or(any, hit);
+                any = self.aig.or(any, hit);
             }
             conds.push(any);
         }
@@ -592,10 +549,10 @@ impl Elab<'_> {
                 break;
             }
             count += 1;
-            if count > super::MAX_LOOP {
+            if count > MAX_LOOP {
                 self.error(
                     f.pos,
-                    format!("for loop runs more than {} iterations", super::MAX_LOOP),
+                    format!("for loop runs more than {} iterations", MAX_LOOP),
                     "check the loop's condition and step; equicone unrolls at most 65536 iterations"
                 );
                 break;

@@ -2,15 +2,15 @@
 //! its hierarchical prefix, and its port connections (by name or by position; inputs
 //! driven from the connected expression, outputs driving the connected nets).
 
-use super::super::ast::{Conns, Dir, Expr, Instance};
-use super::bits::extend;
-use super::expr::EvalContext;
-use super::module::{elab_instance, Which};
-use super::{Elab, Symbol};
+use super::super::bits::extend;
+use super::super::context::EvalContext;
+use super::super::{Elaborator, Symbol};
+use super::module::{elab_instance, OverrideTarget};
+use crate::front::verilog::ast::{Conns, Dir, Expr, Instance};
 
-impl<'a> Elab<'a> {
+impl<'a> Elaborator<'a> {
     /// Elaborate instance `inst` written in scope `scope`.
-    pub(super) fn instance(&mut self, scope: u32, inst: &'a Instance) {
+    pub(crate) fn instance(&mut self, scope: u32, inst: &'a Instance) {
         let m = match self.modules.get(&inst.module) {
             Some(m) => *m,
             None => {
@@ -31,7 +31,7 @@ impl<'a> Elab<'a> {
                 for (s, p, ex) in v {
                     if let Some(ex) = ex {
                         if let Some(val) = self.const_val(scope, ex) {
-                            overrides.push((Which::Named(*s), val, *p));
+                            overrides.push((OverrideTarget::ByName(*s), val, *p));
                         }
                     }
                 }
@@ -40,7 +40,7 @@ impl<'a> Elab<'a> {
                 for (k, ex) in v.iter().enumerate() {
                     if let Some(ex) = ex {
                         if let Some(val) = self.const_val(scope, ex) {
-                            overrides.push((Which::Nth(k), val, ex.pos()));
+                            overrides.push((OverrideTarget::ByPosition(k), val, ex.pos()));
                         }
                     }
                 }
@@ -119,7 +119,7 @@ impl<'a> Elab<'a> {
             let pw = net.width as usize;
             match net.dir {
                 Some(Dir::Input) => {
-                    let t = self.ty(&ctx, ex);
+                    let t = self.expr_type(&ctx, ex);
                     let v = self.eval(&ctx, ex, pw.max(t.width), t.signed);
                     if t.width != pw {
                         self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected expression is {} bits", t.width));

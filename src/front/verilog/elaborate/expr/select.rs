@@ -1,15 +1,15 @@
 //! Bit selects and part selects, constant and variable. A select that may read outside the
 //! declared range reads an unknown-value input on exactly the out-of-range index values.
 
-use super::super::ast::Select;
-use super::super::lexer::Pos;
-use super::bits::{self, extend};
-use super::expr::EvalContext;
-use super::{Elab, Symbol};
+use super::super::bits::{self, extend};
+use super::super::context::EvalContext;
+use super::super::{span, Elaborator, Sym, Symbol, MAX_WIDTH};
 use crate::aig::Lit;
+use crate::front::verilog::ast::Select;
+use crate::front::verilog::pos::Pos;
 
 /// A named operand of a select whose bits are fetched on demand.
-pub(super) struct LazyOperand {
+pub(crate) struct LazyOperand {
     /// A net (its bits are its leaves, or an always block's current values), or the
     /// value of a parameter or genvar.
     src: Result<u32, Vec<Lit>>,
@@ -21,7 +21,7 @@ pub(super) struct LazyOperand {
     lsb: i64,
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Offsets (0 = least significant bit) of declared index `i` for range `msb:lsb`.
     fn off_of(msb: i64, lsb: i64, i: i64) -> i64 {
         // Saturating: an index this far out stays out of any declared range (at most 65536
@@ -34,17 +34,17 @@ impl Elab<'_> {
     }
 
     /// Evaluate a select of name `sym`: result bits, LSB first, unsigned.
-    pub(super) fn eval_select(
+    pub(crate) fn eval_select(
         &mut self,
         ctx: &EvalContext,
-        sym: super::Sym,
+        sym: Sym,
         pos: Pos,
         sel: &Select,
     ) -> Vec<Lit> {
         let width_hint = self
-            .ty(
+            .expr_type(
                 ctx,
-                &super::super::ast::Expr::Index(sym, pos, Box::new(sel.clone())),
+                &crate::front::verilog::ast::Expr::Index(sym, pos, Box::new(sel.clone())),
             )
             .width;
         // A net's bits are fetched only where the select reads them: a vector driven bit
@@ -71,7 +71,7 @@ impl Elab<'_> {
                     );
                     return vec![Lit::FALSE; width_hint];
                 }
-                let Some(w) = super::span(m, l) else {
+                let Some(w) = span(m, l) else {
                     self.error(
                         pos,
                         format!("part-select `{nm}[{m}:{l}]` is wider than 65536 bits"),
@@ -106,7 +106,7 @@ impl Elab<'_> {
             Select::Up(b, wd) | Select::Down(b, wd) => {
                 let up = matches!(sel, Select::Up(..));
                 let w = match self.const_int(ctx.scope, wd) {
-                    Some(w) if w > 0 && w as usize <= super::MAX_WIDTH => w,
+                    Some(w) if w > 0 && w as usize <= MAX_WIDTH => w,
                     Some(_) => {
                         self.error(
                             wd.pos(),
@@ -167,13 +167,8 @@ impl Elab<'_> {
     }
 
     /// The operand of a select: a net without its bits, anything else as
-    /// [`Elab::operand`] gives it.
-    fn operand_lazy(
-        &mut self,
-        ctx: &EvalContext,
-        sym: super::Sym,
-        pos: Pos,
-    ) -> Option<LazyOperand> {
+    /// [`Elaborator::operand`] gives it.
+    fn operand_lazy(&mut self, ctx: &EvalContext, sym: Sym, pos: Pos) -> Option<LazyOperand> {
         if !ctx.constant {
             if let Some(Symbol::Net(n)) = self.lookup(ctx.scope, sym) {
                 let net = &self.nets[*n as usize];
@@ -203,7 +198,7 @@ impl Elab<'_> {
                     .map(|k| {
                         ctx.env
                             .and_then(|env| env.bit(*n, k))
-                            .unwrap_or_else(|| self.g.input_lit(first + k))
+                            .unwrap_or_else(|| self.aig.input_lit(first + k))
                     })
                     .collect()
             }
@@ -218,9 +213,9 @@ impl Elab<'_> {
         let iv = extend(i.to_vec(), ww, signed);
         let kv = bits::constant(k, ww);
         if desc {
-            bits::add(&mut self.g, &iv, &kv, Lit::FALSE)
+            bits::add(&mut self.aig, &iv, &kv, Lit::FALSE)
         } else {
-            bits::sub(&mut self.g, &kv, &iv)
+            bits::sub(&mut self.aig, &kv, &iv)
         }
     }
 
@@ -286,17 +281,17 @@ impl Elab<'_> {
         let k = (usize::BITS - (n.max(2) - 1).leading_zeros()) as usize;
         let mut out = Vec::with_capacity(w);
         for j in 0..w {
-            let oj = bits::add_const(&mut self.g, off, j as i64);
+            let oj = bits::add_const(&mut self.aig, off, j as i64);
             let neg = *oj.last().expect("offset has bits");
             let nv = bits::constant(n as i64, oj.len());
-            let below = bits::ult(&mut self.g, &oj, &nv);
-            let valid = self.g.and(!neg, below);
-            let v = bits::mux_tree(&mut self.g, data, &oj[..k], Lit::FALSE);
+            let below = bits::ult(&mut self.aig, &oj, &nv);
+            let valid = self.aig.and(!neg, below);
+            let v = bits::mux_tree(&mut self.aig, data, &oj[..k], Lit::FALSE);
             let r = if valid == Lit::TRUE {
                 v
             } else {
                 let u = self.unknown_bits(1, pos, what, ctx.scope)[0];
-                self.g.mux(valid, v, u)
+                self.aig.mux(valid, v, u)
             };
             out.push(r);
         }

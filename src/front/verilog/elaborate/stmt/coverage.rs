@@ -6,7 +6,7 @@
 //! every assignment of the net bits it reads (bit-parallel, at most [`MAX_LEAVES`] of them),
 //! so the answer is exact, never a guess. Wider conditions are not proved and stay latches.
 
-use super::Elab;
+use super::super::Elaborator;
 use crate::aig::{Lit, Node};
 
 /// Most net bits a coverage condition may read to be decided by enumeration.
@@ -25,9 +25,9 @@ pub enum Coverage {
     Undecided,
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Decide whether `cond` is true for every value of the net bits it reads (memoized).
-    pub(super) fn coverage(&mut self, cond: Lit) -> Coverage {
+    pub(crate) fn coverage(&mut self, cond: Lit) -> Coverage {
         if cond == Lit::TRUE {
             return Coverage::Complete;
         }
@@ -53,7 +53,7 @@ impl Elab<'_> {
             if cone.len() > MAX_NODES {
                 return Coverage::Undecided;
             }
-            match self.g.node(n) {
+            match self.aig.node(n) {
                 Node::Const => {}
                 Node::Input(_) => {
                     leaves.push(n);
@@ -97,7 +97,7 @@ impl Elab<'_> {
             }
         };
         for &n in &cone {
-            let row: Vec<u64> = match self.g.node(n) {
+            let row: Vec<u64> = match self.aig.node(n) {
                 Node::Const => vec![0; words],
                 Node::Input(_) => {
                     let j = leaves.binary_search(&n).unwrap_or(0);
@@ -126,7 +126,7 @@ impl Elab<'_> {
                 let assignment = leaves
                     .iter()
                     .enumerate()
-                    .filter_map(|(j, &n)| match self.g.node(n) {
+                    .filter_map(|(j, &n)| match self.aig.node(n) {
                         Node::Input(leaf) => Some((leaf, (m >> j) & 1 == 1)),
                         _ => None,
                     })
@@ -138,7 +138,7 @@ impl Elab<'_> {
     }
 
     /// A gap for messages: `s[1]=1, s[0]=0`, most significant bit of each net first.
-    pub(super) fn gap_text(&self, gap: &[(u32, bool)]) -> String {
+    pub(crate) fn gap_text(&self, gap: &[(u32, bool)]) -> String {
         let mut named: Vec<(String, u32, bool)> = gap
             .iter()
             .map(|&(leaf, v)| (self.leaf_name(leaf), leaf, v))

@@ -3,12 +3,12 @@
 //! the `always` item), so none reaches the elaborator; should one arrive, it is refused
 //! here with the same precise message rather than read as combinational logic.
 
-use super::super::ast::{Always, Event};
-use super::Elab;
+use super::super::Elaborator;
+use crate::front::verilog::ast::{Always, Event};
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// Elaborate an `always` block whose event list names a clock edge (`edge`).
-    pub(super) fn elab_clocked(&mut self, _scope: u32, _block: &Always, edge: &Event) {
+    pub(crate) fn elab_clocked(&mut self, _scope: u32, _block: &Always, edge: &Event) {
         self.error(
             edge.expr.pos(),
             "unsupported: `always` block with a clock edge (`posedge`/`negedge`) in its event list: equicone reads combinational logic",

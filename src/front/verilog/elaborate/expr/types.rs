@@ -1,9 +1,9 @@
 //! Self-determined bit lengths and signedness of expressions (IEEE 1364-2005 clauses
 //! 5.4.1 and 5.5.1), used to size every context-determined operation.
 
-use super::super::ast::{Expr, Select, UnOp};
-use super::expr::EvalContext;
-use super::{Elab, Symbol};
+use super::super::context::EvalContext;
+use super::super::{span, Elaborator, Symbol, MAX_WIDTH};
+use crate::front::verilog::ast::{Expr, Select, UnOp};
 
 /// Bit length and signedness of an expression.
 #[derive(Copy, Clone, Debug, PartialEq, Eq)]
@@ -14,16 +14,16 @@ pub struct ExprType {
     pub signed: bool,
 }
 
-impl Elab<'_> {
+impl Elaborator<'_> {
     /// The self-determined type of `e` (no diagnostics; evaluation reports them).
-    pub(super) fn ty(&mut self, ctx: &EvalContext, e: &Expr) -> ExprType {
+    pub(crate) fn expr_type(&mut self, ctx: &EvalContext, e: &Expr) -> ExprType {
         self.quiet += 1;
-        let t = self.ty_inner(ctx, e);
+        let t = self.expr_type_inner(ctx, e);
         self.quiet -= 1;
         t
     }
 
-    fn ty_inner(&mut self, ctx: &EvalContext, e: &Expr) -> ExprType {
+    fn expr_type_inner(&mut self, ctx: &EvalContext, e: &Expr) -> ExprType {
         match e {
             Expr::Ident(s, _) => match self.lookup(ctx.scope, *s) {
                 Some(Symbol::Net(n)) => {
@@ -55,12 +55,12 @@ impl Elab<'_> {
                     Select::Bit(_) => 1,
                     Select::Part(m, l) => {
                         match (self.const_int(ctx.scope, m), self.const_int(ctx.scope, l)) {
-                            (Some(m), Some(l)) => super::span(m, l).unwrap_or(1),
+                            (Some(m), Some(l)) => span(m, l).unwrap_or(1),
                             _ => 1,
                         }
                     }
                     Select::Up(_, w) | Select::Down(_, w) => match self.const_int(ctx.scope, w) {
-                        Some(w) if w > 0 && (w as usize) <= super::MAX_WIDTH => w as usize,
+                        Some(w) if w > 0 && (w as usize) <= MAX_WIDTH => w as usize,
                         _ => 1,
                     },
                 };
@@ -70,7 +70,7 @@ impl Elab<'_> {
                 }
             }
             Expr::Unary(op, _, a) => match op {
-                UnOp::Plus | UnOp::Neg | UnOp::Not => self.ty_inner(ctx, a),
+                UnOp::Plus | UnOp::Neg | UnOp::Not => self.expr_type_inner(ctx, a),
                 _ => ExprType {
                     width: 1,
                     signed: false,
@@ -80,15 +80,15 @@ impl Elab<'_> {
                 let op = rest[0].0;
                 match op.level() {
                     // Shifts and `**`: the left operand's type (IEEE 1364-2005 Table 5-22).
-                    2 | 10 => self.ty_inner(ctx, first),
+                    2 | 10 => self.expr_type_inner(ctx, first),
                     3 | 4 | 8 | 9 => ExprType {
                         width: 1,
                         signed: false,
                     },
                     _ => {
-                        let mut t = self.ty_inner(ctx, first);
+                        let mut t = self.expr_type_inner(ctx, first);
                         for (_, _, e) in rest {
-                            let u = self.ty_inner(ctx, e);
+                            let u = self.expr_type_inner(ctx, e);
                             t = ExprType {
                                 width: t.width.max(u.width),
                                 signed: t.signed && u.signed,
@@ -99,28 +99,34 @@ impl Elab<'_> {
                 }
             }
             Expr::Cond(b, _) => {
-                let t = self.ty_inner(ctx, &b[1]);
-                let f = self.ty_inner(ctx, &b[2]);
+                let t = self.expr_type_inner(ctx, &b[1]);
+                let f = self.expr_type_inner(ctx, &b[2]);
                 ExprType {
                     width: t.width.max(f.width),
                     signed: t.signed && f.signed,
                 }
             }
             Expr::Concat(items, _) => {
-                let w = items.iter().map(|i| self.ty_inner(ctx, i).width).sum();
+                let w = items
+                    .iter()
+                    .map(|i| self.expr_type_inner(ctx, i).width)
+                    .sum();
                 ExprType {
                     width: w,
                     signed: false,
                 }
             }
             Expr::Repl(n, items, _) => {
-                let inner: usize = items.iter().map(|i| self.ty_inner(ctx, i).width).sum();
+                let inner: usize = items
+                    .iter()
+                    .map(|i| self.expr_type_inner(ctx, i).width)
+                    .sum();
                 let n = self
                     .const_int(ctx.scope, n)
                     .unwrap_or(1)
-                    .clamp(0, super::MAX_WIDTH as i64) as usize;
+                    .clamp(0, MAX_WIDTH as i64) as usize;
                 ExprType {
-                    width: (n * inner).min(super::MAX_WIDTH),
+                    width: (n * inner).min(MAX_WIDTH),
                     signed: false,
                 }
             }
@@ -128,11 +134,11 @@ impl Elab<'_> {
                 let name = self.name(*f);
                 match name {
                     "$signed" => ExprType {
-                        width: self.ty_inner(ctx, &args[0]).width,
+                        width: self.expr_type_inner(ctx, &args[0]).width,
                         signed: true,
                     },
                     "$unsigned" => ExprType {
-                        width: self.ty_inner(ctx, &args[0]).width,
+                        width: self.expr_type_inner(ctx, &args[0]).width,
                         signed: false,
                     },
                     _ => ExprType {

@@ -1,0 +1,15 @@
+//! Statement stage: `always` blocks lowered to net drivers. Combinational blocks are run
+//! symbolically (`always.rs`), their event lists checked against what they read
+//! (`sensitivity.rs`), and a variable left unassigned on some path is a latch error unless
+//! the paths that assign it cover every value (`coverage.rs`); edge-triggered blocks go to
+//! `clocked.rs`.
+//!
+//! State it needs: an [`super::context::Env`] per block (its own), the expression stage to
+//! evaluate right-hand sides and conditions, the nets' drivers it writes, and the decided
+//! coverage conditions it memoizes.
+
+mod always;
+mod clocked;
+mod coverage;
+mod sensitivity;
+pub(super) use coverage::Coverage;

@@ -1,0 +1,486 @@
+//! Traces of clocked designs replayed outside equicone: random bench netlists with flip-flops
+//! and their mutants. Every trace's VCD is read back by the independent reader
+//! (`vcd_reader.rs`, IEEE 1364-2005 clause 18) and must hold, at each cycle, the values that the
+//! independent cycle simulator (`seq/oracle.rs`, no equicone code) computes; every trace's
+//! testbench is run by Icarus Verilog (Debian package iverilog), which must pass every cycle
+//! before the first difference and FAIL in it; equivalent pairs pass random cycles under
+//! Icarus; every per-cycle difference cube is checked by the oracle (every input sequence in
+//! the cube differs in that cycle) and, for small unrollings, complete covers are checked to
+//! count exactly the differing sequences.
+
+use super::common::run_iverilog;
+use super::seq_oracle::{self, SeqNet};
+use super::vcd_reader::{self, Dump};
+use super::vcommon::iverilog_available;
+use equicone::design::Design;
+use equicone::explain::cubes::{CoverEnd, CubeLimits};
+use equicone::explain::testbench::TbDesign;
+use equicone::explain::trace_bench::trace_testbench;
+use equicone::explain::trace_cubes::trace_cubes;
+use equicone::explain::trace_run::random_trace;
+use equicone::explain::trace_vcd::{design_trace_vcd, trace_vcd};
+use equicone::explain::waves::{scope_name, scope_names};
+use equicone::front::bench::read_bench;
+use equicone::sat::Limits;
+use equicone::seq::{self, InitUnset, SeqOptions, Side, Trace};
+use rand::rngs::StdRng;
+use rand::{Rng, SeedableRng};
+use std::collections::BTreeMap;
+use std::sync::Arc;
+
+/// A random bench netlist with flip-flops: inputs `i0..`, registers `q0..` (each loading a
+/// gate), gates of fan-in 1 to 3 over earlier signals, outputs `y0..`; the candidate has one
+/// gate kind changed when `mutate`, and its registers renamed `st_K` when `rename`.
+pub fn random_seq_bench(
+    seed: u64,
+    (n, ffs, gates, outs): (usize, usize, usize, usize),
+    mutate: bool,
+    rename: bool,
+) -> (String, String) {
+    let mut rng = StdRng::seed_from_u64(seed);
+    let mut sig: Vec<String> = (0..n).map(|i| format!("i{i}")).collect();
+    sig.extend((0..ffs).map(|k| format!("q{k}")));
+    let kinds = ["AND", "OR", "NAND", "NOR", "XOR", "XNOR"];
+    let mut lines: Vec<(String, &str, Vec<String>)> = Vec::new();
+    for g in 0..gates {
+        let arity = if rng.gen_bool(0.15) {
+            1
+        } else {
+            rng.gen_range(2..=3)
+        };
+        let args: Vec<String> = (0..arity)
+            .map(|_| sig[rng.gen_range(0..sig.len())].clone())
+            .collect();
+        let kind = if arity == 1 {
+            "NOT"
+        } else {
+            kinds[rng.gen_range(0..kinds.len())]
+        };
+        lines.push((format!("g{g}"), kind, args));
+        sig.push(format!("g{g}"));
+    }
+    let loads: Vec<usize> = (0..ffs).map(|_| rng.gen_range(gates / 3..gates)).collect();
+    let pick: Vec<usize> = (0..outs).map(|k| gates - 1 - k * 3).collect();
+    let mutated = rng.gen_range(gates / 2..gates);
+    let text = |lines: &[(String, &str, Vec<String>)], rename: bool| {
+        let q = |s: &str| -> String {
+            match s.strip_prefix('q') {
+                Some(k) if rename => format!("st_{k}"),
+                _ => s.to_string(),
+            }
+        };
+        let mut s = String::new();
+        for i in 0..n {
+            s += &format!("INPUT(i{i})\n");
+        }
+        for k in 0..outs {
+            s += &format!("OUTPUT(y{k})\n");
+        }
+        for (k, &g) in loads.iter().enumerate() {
+            s += &format!("{} = DFF(g{g})\n", q(&format!("q{k}")));
+        }
+        for (o, kd, a) in lines {
+            let a: Vec<String> = a.iter().map(|x| q(x)).collect();
+            s += &format!("{o} = {kd}({})\n", a.join(", "));
+        }
+        for (k, &p) in pick.iter().enumerate() {
+            s += &format!("y{k} = BUFF(g{p})\n");
+        }
+        s
+    };
+    let reference = text(&lines, false);
+    let mut cand = lines.clone();
+    if mutate {
+        cand[mutated].1 = match cand[mutated].1 {
+            "NOT" => "BUFF",
+            "AND" => "OR",
+            "OR" => "AND",
+            "NAND" => "NOR",
+            "NOR" => "NAND",
+            "XOR" => "XNOR",
+            _ => "XOR",
+        };
+    }
+    (reference, text(&cand, rename))
+}
+
+fn read(name: &str, text: &str) -> Design {
+    read_bench(&Arc::from(name), text).expect("reads")
+}
+
+fn options() -> SeqOptions {
+    SeqOptions {
+        init_unset: InitUnset::Value(false),
+        cycles: 12,
+        ..SeqOptions::default()
+    }
+}
+
+/// The trace's inputs per cycle, by name (every trace input here belongs to both designs).
+fn cycles_of(t: &Trace) -> Vec<BTreeMap<String, bool>> {
+    t.cycles
+        .iter()
+        .map(|c| c.inputs.iter().map(|i| (i.name.clone(), i.value)).collect())
+        .collect()
+}
+
+/// Per cycle, (outputs, state) of the oracle from the all-zero state.
+fn oracle_run(
+    n: &SeqNet,
+    cycles: &[BTreeMap<String, bool>],
+) -> Vec<(Vec<bool>, BTreeMap<String, bool>)> {
+    let mut state: BTreeMap<String, bool> =
+        n.dffs.iter().map(|(q, _)| (q.clone(), false)).collect();
+    let mut out = Vec::new();
+    for ins in cycles {
+        let (o, next) = n.step(ins, &state);
+        out.push((o, state.clone()));
+        state = next;
+    }
+    out
+}
+
+fn one(d: &Dump, scope: &str, name: &str, t: u64) -> Option<bool> {
+    d.value(scope, name, t).map(|v| v == "1")
+}
+
+/// The VCD of `t` read back: inputs, outputs and registers of both designs at each cycle's
+/// time as the oracle computes them, `differs` only in the last cycle.
+fn check_vcd(r: &Design, c: &Design, (rn, cn): (&SeqNet, &SeqNet), t: &Trace) {
+    let text = trace_vcd(r, c, t).expect("a dump");
+    let dump = vcd_reader::parse(&text);
+    let (rs, cs) = scope_names(r, c);
+    let cycles = cycles_of(t);
+    let (ro, co) = (oracle_run(rn, &cycles), oracle_run(cn, &cycles));
+    let last = t.cycles.len() - 1;
+    for (k, ins) in cycles.iter().enumerate() {
+        let at = 10 * (k as u64 + 1);
+        for (scope, net, run) in [(&rs, rn, &ro), (&cs, cn, &co)] {
+            for (name, &v) in ins {
+                assert_eq!(
+                    one(&dump, scope, name, at),
+                    Some(v),
+                    "{scope}.{name} at cycle {k}"
+                );
+            }
+            for (o, &v) in net.outputs.iter().zip(&run[k].0) {
+                assert_eq!(
+                    one(&dump, scope, o, at),
+                    Some(v),
+                    "{scope}.{o} at cycle {k}\n{text}"
+                );
+            }
+            for (q, &v) in &run[k].1 {
+                assert_eq!(
+                    one(&dump, &format!("{scope}.registers"), q, at),
+                    Some(v),
+                    "{scope}.registers.{q} at cycle {k}"
+                );
+            }
+        }
+        assert_eq!(one(&dump, "trace", "differs", at), Some(k == last));
+        assert_eq!(one(&dump, "trace", "clock", at), Some(false));
+        assert_eq!(one(&dump, "trace", "clock", at + 5), Some(true));
+        let n = dump.value("trace", "cycle", at).expect("cycle number");
+        assert_eq!(u64::from_str_radix(&n, 2).ok(), Some(k as u64));
+    }
+    assert_eq!(one(&dump, "trace", "reset", 0), Some(true));
+    // eval --trace --vcd: one design's scope holds the same values.
+    let one_side = design_trace_vcd(c, Side::Candidate, t).expect("a dump");
+    let d1 = vcd_reader::parse(&one_side);
+    for (k, (outs, _)) in co.iter().enumerate() {
+        for (o, &v) in cn.outputs.iter().zip(outs) {
+            assert_eq!(one(&d1, &scope_name(c), o, 10 * (k as u64 + 1)), Some(v));
+        }
+    }
+}
+
+/// Run the testbench of `t` under Icarus; returns its output lines.
+fn icarus(r: &Design, c: &Design, t: &Trace) -> Vec<String> {
+    let tb = trace_testbench(
+        &TbDesign {
+            design: r,
+            files: vec![],
+        },
+        &TbDesign {
+            design: c,
+            files: vec![],
+        },
+        t,
+    )
+    .expect("a testbench");
+    let dir = tempfile::tempdir().expect("temp dir");
+    let p = dir.path().join("tb.v");
+    std::fs::write(&p, &tb.text).expect("write");
+    run_iverilog(&[p.as_path()])
+        .lines()
+        .map(|l| l.trim().to_string())
+        .filter(|l| !l.is_empty())
+        .collect()
+}
+
+/// Every sequence in each cube differs in the trace's last cycle on the explained pair
+/// (oracle); complete covers of at most 14 unrolled inputs count exactly the differing ones.
+fn check_cubes(
+    r: &Design,
+    c: &Design,
+    (rn, cn): (&SeqNet, &SeqNet),
+    t: &Trace,
+    seed: u64,
+) -> usize {
+    let e = trace_cubes(r, c, t, &CubeLimits::default(), &Limits::none()).expect("cubes");
+    let k = e.cycle;
+    assert_eq!(k, t.cycles.len() - 1);
+    let oi = rn
+        .outputs
+        .iter()
+        .position(|o| *o == e.reference)
+        .expect("output");
+    let names: Vec<String> = t.cycles[0].inputs.iter().map(|i| i.name.clone()).collect();
+    let differs = |seq: &[BTreeMap<String, bool>]| {
+        let (a, b) = (oracle_run(rn, seq), oracle_run(cn, seq));
+        a[k].0[oi] != b[k].0[oi]
+    };
+    let mut rng = StdRng::seed_from_u64(seed);
+    for cube in &e.cubes {
+        for _ in 0..64 {
+            let seq: Vec<BTreeMap<String, bool>> = (0..=k)
+                .map(|cy| {
+                    names
+                        .iter()
+                        .map(|nm| {
+                            let fixed = cube
+                                .iter()
+                                .find(|ci| ci.cycle == cy)
+                                .and_then(|ci| ci.inputs.get(nm))
+                                .map(|v| v.as_u64() == Some(1));
+                            (nm.clone(), fixed.unwrap_or_else(|| rng.gen()))
+                        })
+                        .collect()
+                })
+                .collect();
+            assert!(
+                differs(&seq),
+                "a sequence in cube {cube:?} does not differ in cycle {k}"
+            );
+        }
+    }
+    // Cubes are disjoint: two cubes fix some input of some cycle to opposite values.
+    for (a, ca) in e.cubes.iter().enumerate() {
+        for cb in &e.cubes[a + 1..] {
+            let opposite = ca.iter().any(|x| {
+                cb.iter().any(|y| {
+                    y.cycle == x.cycle
+                        && x.inputs
+                            .iter()
+                            .any(|(n, v)| y.inputs.get(n).is_some_and(|w| w != v))
+                })
+            });
+            assert!(opposite, "cubes overlap: {ca:?} {cb:?}");
+        }
+    }
+    let total = names.len() * (k + 1);
+    if e.end == CoverEnd::Complete && total <= 14 {
+        let mut count = 0u64;
+        for m in 0u64..1 << total {
+            let seq: Vec<BTreeMap<String, bool>> = (0..=k)
+                .map(|cy| {
+                    names
+                        .iter()
+                        .enumerate()
+                        .map(|(j, nm)| (nm.clone(), (m >> (cy * names.len() + j)) & 1 == 1))
+                        .collect()
+                })
+                .collect();
+            count += differs(&seq) as u64;
+        }
+        let n = e
+            .differing_sequences
+            .as_ref()
+            .and_then(|v| v.as_u64())
+            .expect("a count");
+        assert_eq!(count, n << (total - e.inputs), "differing sequences");
+    }
+    e.cubes.len()
+}
+
+#[test]
+fn clocked_traces_replay_in_vcds_testbenches_and_cubes() {
+    let ivl = iverilog_available();
+    let (mut traces, mut cubes, mut equal) = (0, 0, 0);
+    for seed in 0..40u64 {
+        let size = if seed % 2 == 0 {
+            (3, 3, 14, 2)
+        } else {
+            (4, 5, 30, 3)
+        };
+        let (rt, ct) = random_seq_bench(seed, size, true, seed % 3 == 0);
+        let (r, c) = (read("ref.bench", &rt), read("cand.bench", &ct));
+        let (rn, cn) = (seq_oracle::parse(&rt), seq_oracle::parse(&ct));
+        let rep = seq::check(&r, &c, &options()).expect("checks");
+        match &rep.trace {
+            Some(t) => {
+                traces += 1;
+                check_vcd(&r, &c, (&rn, &cn), t);
+                cubes += check_cubes(&r, &c, (&rn, &cn), t, seed);
+                if ivl {
+                    let out = icarus(&r, &c, t);
+                    let last = t.cycles.len() - 1;
+                    let mut want: Vec<String> =
+                        (0..last).map(|k| format!("cycle {k}: pass")).collect();
+                    let fd = t.first_difference.as_ref().expect("a difference");
+                    want.push(format!(
+                        "cycle {last}: FAIL, {} of {} output pairs differ",
+                        fd.outputs.len(),
+                        r.outputs.len()
+                    ));
+                    want.push(format!("equicone testbench: 1 of {} cycles FAIL", last + 1));
+                    assert_eq!(out, want, "seed {seed}");
+                }
+            }
+            None if rep.verdict == "equivalent" && ivl => {
+                equal += 1;
+                let t = random_trace(&r, &c, &rep.held, InitUnset::Value(false), 40, seed);
+                let out = icarus(&r, &c, &t);
+                assert_eq!(
+                    out.last().map(String::as_str),
+                    Some("equicone testbench: 0 of 40 cycles FAIL")
+                );
+            }
+            None => {}
+        }
+    }
+    eprintln!("{traces} traces, {cubes} cubes, {equal} equivalent mutants under Icarus");
+    assert!(traces >= 10, "only {traces} mutants gave traces");
+}
+
+#[test]
+fn renamed_copies_are_equivalent_and_pass_random_cycles_under_icarus() {
+    if !iverilog_available() {
+        return;
+    }
+    for seed in 100..106u64 {
+        let (rt, ct) = random_seq_bench(seed, (4, 4, 24, 2), false, true);
+        let (r, c) = (read("ref.bench", &rt), read("cand.bench", &ct));
+        let rep = seq::check(&r, &c, &options()).expect("checks");
+        assert_eq!(rep.verdict, "equivalent", "seed {seed}:\n{rep}");
+        let t = random_trace(&r, &c, &rep.held, InitUnset::Value(false), 64, seed);
+        let out = icarus(&r, &c, &t);
+        assert_eq!(out.len(), 65);
+        assert!(out[..64].iter().all(|l| l.ends_with(": pass")), "{out:?}");
+        assert_eq!(out[64], "equicone testbench: 0 of 64 cycles FAIL");
+    }
+}
+
+/// A 2-bit counter with enable `en` (reference) and a rewrite whose carry into the high bit is
+/// `q0 | en` instead of `q0 & en`; `y = q1 & d`.
+const COUNTER: &str = "INPUT(en)\nINPUT(d)\nOUTPUT(y)\nq0 = DFF(n0)\nq1 = DFF(n1)\nn0 = XOR(q0, en)\nc0 = AND(q0, en)\nn1 = XOR(q1, c0)\ny = AND(q1, d)\n";
+
+#[test]
+fn command_line_writes_trace_files_and_cubes() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let (rp, cp) = (
+        dir.path().join("count.bench"),
+        dir.path().join("count_or.bench"),
+    );
+    std::fs::write(&rp, COUNTER).expect("write");
+    std::fs::write(&cp, COUNTER.replace("c0 = AND", "c0 = OR")).expect("write");
+    let (vcd, tb, json_path) = (
+        dir.path().join("t.vcd"),
+        dir.path().join("tb.v"),
+        dir.path().join("r.json"),
+    );
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
+        .arg("prove")
+        .args([&rp, &cp])
+        .args(["--init-unset", "0", "--explain", "--json", "--vcd"])
+        .arg(&vcd)
+        .arg("--testbench")
+        .arg(&tb)
+        .arg("--report")
+        .arg(&json_path)
+        .output()
+        .expect("run equicone");
+    assert_eq!(
+        out.status.code(),
+        Some(1),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let json: serde_json::Value = serde_json::from_slice(&out.stdout).expect("json");
+    // By hand: from q = 00 the reference's q1 stays 0 in cycle 1; the rewrite's q1 becomes en
+    // of cycle 0; y = q1 & d differs in cycle 1 exactly when en=1 in cycle 0 and d=1 in cycle
+    // 1 (en of cycle 1 and d of cycle 0 do not reach y in cycle 1).
+    let e = &json["explanation"];
+    assert_eq!(e["cycle"], 1);
+    assert_eq!(e["end"], "complete");
+    assert_eq!(e["terms"][0], "cycle 0: en=1; cycle 1: d=1");
+    assert_eq!(e["differing_sequences"], 1);
+    assert_eq!(e["inputs"], 2);
+    let dump = vcd_reader::parse(&std::fs::read_to_string(&vcd).expect("vcd written"));
+    for (k, cyc) in json["trace"]["cycles"]
+        .as_array()
+        .expect("cycles")
+        .iter()
+        .enumerate()
+    {
+        for i in cyc["inputs"].as_array().expect("inputs") {
+            let v = one(
+                &dump,
+                "count",
+                i["name"].as_str().expect("name"),
+                10 * (k as u64 + 1),
+            );
+            assert_eq!(v, i["value"].as_bool());
+        }
+    }
+    assert_eq!(one(&dump, "count_or.registers", "q1", 20), Some(true));
+    assert_eq!(one(&dump, "count.registers", "q1", 20), Some(false));
+    if iverilog_available() {
+        let o = run_iverilog(&[tb.as_path()]);
+        assert_eq!(
+            o.lines().collect::<Vec<_>>(),
+            vec![
+                "cycle 0: pass",
+                "cycle 1: FAIL, 1 of 1 output pairs differ",
+                "equicone testbench: 1 of 2 cycles FAIL"
+            ]
+        );
+    }
+    // eval --trace --vcd on the candidate.
+    let ev = dir.path().join("e.vcd");
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
+        .arg("eval")
+        .arg(&cp)
+        .arg("--trace")
+        .arg(&json_path)
+        .args(["--side", "candidate", "--vcd"])
+        .arg(&ev)
+        .output()
+        .expect("run equicone");
+    assert_eq!(
+        out.status.code(),
+        Some(0),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let d1 = vcd_reader::parse(&std::fs::read_to_string(&ev).expect("vcd written"));
+    assert_eq!(one(&d1, "count_or", "y", 20), Some(true));
+    assert_eq!(one(&d1, "count_or.registers", "q1", 20), Some(true));
+    // Without a difference: random cycles, all pass.
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
+        .arg("prove")
+        .args([&rp, &rp])
+        .args(["--init-unset", "0", "--testbench"])
+        .arg(&tb)
+        .output()
+        .expect("run equicone");
+    assert_eq!(out.status.code(), Some(0));
+    if iverilog_available() {
+        let o = run_iverilog(&[tb.as_path()]);
+        assert!(
+            o.ends_with("equicone testbench: 0 of 32 cycles FAIL\n"),
+            "{o}"
+        );
+    }
+}

@@ -137,7 +137,7 @@ fn hex(bits: &[bool]) -> String {
         .collect();
     let mut s = format!("{n}'h");
     for (i, c) in digits.iter().enumerate() {
-        if i > 0 && (digits.len() - i) % 4 == 0 {
+        if i > 0 && (digits.len() - i).is_multiple_of(4) {
             s.push('_');
         }
         s.push(*c);

@@ -214,7 +214,12 @@ pub struct ProveArgs {
     select: Option<String>,
     /// Seconds the diagnosis of a difference (supports, route tables) may take at most, within
     /// the run's --timeout; 0 turns it off. A diagnosis cut short is reported as partial.
-    #[arg(long, value_name = "SECONDS", default_value_t = 10.0)]
+    #[arg(
+        long,
+        value_name = "SECONDS",
+        default_value_t = 10.0,
+        allow_negative_numbers = true
+    )]
     diagnosis_time: f64,
     #[command(flatten)]
     replay: super::replay::ReplayArgs,

@@ -9,6 +9,8 @@
 mod common;
 #[path = "seq/oracle.rs"]
 mod oracle;
+#[path = "seq/verilog.rs"]
+mod verilog;
 
 use equicone::aig::{Aig, Lit};
 use equicone::design::{Design, InputKind};

@@ -1,6 +1,6 @@
 //! RTL as designers write it: event lists (IEEE 1364-2005 clause 9.7), `case`/`if` chains
 //! that cover every selector value without a `default`, `always_comb` (IEEE 1800-2017
-//! clause 9.2.2.2, from memory), clocked blocks refused, and a top without outputs refused.
+//! clause 9.2.2.2, from memory), clocked blocks read with their mixes and resets checked, latches refused, and a top without outputs refused.
 
 use super::common::{eval_ports, read, read_err};
 use std::collections::HashMap;
@@ -82,11 +82,14 @@ fn a_real_gap_is_still_a_latch_and_names_an_uncovered_value() {
 }
 
 #[test]
-fn clocked_blocks_and_latches_are_refused_precisely() {
-    let e =
-        read_err("module m(input clk, d, output reg q);\nalways @(posedge clk) q <= d;\nendmodule");
+fn mixed_event_lists_and_latches_are_refused_precisely() {
+    let e = read_err(
+        "module m(input clk, d, output reg q);\nalways @(posedge clk or d) q <= d;\nendmodule",
+    );
     assert!(
-        e.starts_with("t.v:2:8: error: unsupported: `always` block with a clock edge"),
+        e.starts_with(
+            "t.v:2:25: error: unsupported: event list mixing clock edges with plain signals"
+        ),
         "{e}"
     );
     assert_eq!(e.matches("error").count(), 1, "{e}");
@@ -125,4 +128,56 @@ fn prove_of_a_top_without_outputs_exits_2() {
     assert_eq!(out.status.code(), Some(2), "{err}");
     assert!(err.contains("nothing to check"), "{err}");
     let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// Clocked blocks: blocking/non-blocking mixes that simulation and synthesis read apart are
+/// errors naming the variable; so are resets the block does not test as declared.
+#[test]
+fn clocked_block_mixes_and_resets_are_refused_naming_the_variable() {
+    let e = read_err("module m(input clk, d, output reg q);\nalways @(posedge clk) begin q = d; q <= ~d; end\nendmodule");
+    assert!(
+        e.starts_with(
+            "t.v:2:1: error: `q` is assigned with both `=` and `<=` in this clocked block"
+        ),
+        "{e}"
+    );
+    assert_eq!(e.matches("error").count(), 1, "{e}");
+    let e = read_err("module m(input clk, d, output reg q);\nreg t;\nalways @(posedge clk) t = d;\nalways @(posedge clk) q <= t;\nendmodule");
+    assert!(
+        e.starts_with("t.v:4:1: error: `t` is assigned with `=` in the clocked block at line 3 and read by this clocked block"),
+        "{e}"
+    );
+    let e = read_err("module m(input clk, rst, d, output reg q);\nalways @(posedge clk or posedge rst) if (!rst) q <= 0; else q <= d;\nendmodule");
+    assert!(
+        e.starts_with("t.v:2:42: error: the reset's event is `posedge` but the `if` does not test it active high"),
+        "{e}"
+    );
+    assert_eq!(e.matches("error").count(), 1, "{e}");
+    let e = read_err("module m(input clk, rst, d, output reg q);\nalways @(posedge clk or posedge rst) if (rst) q <= d; else q <= ~d;\nendmodule");
+    assert!(
+        e.contains("error: unsupported: the asynchronous reset branch gives `q` a value that is not constant"),
+        "{e}"
+    );
+    let e = read_err("module m(input clk, d, output reg q);\nalways_ff @* q <= d;\nendmodule");
+    assert!(
+        e.contains("t.v:2:1: error: unsupported: `always_ff` without a clock edge"),
+        "{e}"
+    );
+    let e = read_err("module m(input clk, d, output reg q);\nwire g = clk & d;\nalways @(posedge g) q <= d;\nendmodule");
+    assert!(
+        e.contains("error: unsupported: the clock of register `q` is not a top-level input port"),
+        "{e}"
+    );
+}
+
+/// Blocking temporaries of a clocked block are not registers; a variable read before it is
+/// written is one.
+#[test]
+fn clocked_blocking_temporaries_are_not_registers() {
+    let d = read("module m(input clk, input [3:0] a, b, output reg [4:0] s, output reg [3:0] c);\nreg [4:0] t;\nalways @(posedge clk) begin t = a + b; s <= t; end\nalways @(posedge clk) c = c + 4'd1;\nendmodule");
+    let names: Vec<&str> = d.registers.iter().map(|r| r.name.as_str()).collect();
+    assert_eq!(
+        names,
+        ["s[0]", "s[1]", "s[2]", "s[3]", "s[4]", "c[0]", "c[1]", "c[2]", "c[3]"]
+    );
 }

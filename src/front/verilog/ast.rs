@@ -259,13 +259,15 @@ pub struct Instance {
     pub pos: Pos,
 }
 
-/// A statement of an `always @*` block.
+/// A statement of an `always` block.
 #[derive(Clone, Debug)]
 pub enum Stmt {
     /// `begin ... end`
     Block(Vec<Stmt>),
     /// `lhs = rhs;`
     Assign(Expr, Expr, Pos),
+    /// `lhs <= rhs;` (non-blocking, in clocked blocks only)
+    NonBlocking(Expr, Expr, Pos),
     /// `if (c) t else e`
     If(Expr, Box<Stmt>, Option<Box<Stmt>>, Pos),
     /// `case`/`casez`

@@ -108,7 +108,11 @@ impl Parser<'_, '_> {
                     self.expect_p(Punct::Semi, "`;` after the assignment")?;
                     return Ok(Stmt::Assign(lhs, rhs, p));
                 }
-                if self.eat_p(Punct::Le) {
+                if self.peek_p(Punct::Le) {
+                    if self.in_clocked {
+                        return self.non_blocking(lhs, p);
+                    }
+                    self.bump();
                     return Err(self
                         .unsupported(p, "non-blocking assignment `<=` in `always @*` (use `=`)"));
                 }
@@ -129,7 +133,7 @@ impl Parser<'_, '_> {
             Tok::Punct(Punct::At) => Err(self.unsupported(pos, "event control `@` inside a block")),
             other => {
                 let d = self.describe(&other);
-                Err(self.error(pos, format!("expected a statement, found {d}")))
+                Err(self.unexpected(pos, "a statement", &d))
             }
         }
     }
@@ -170,7 +174,7 @@ impl Parser<'_, '_> {
             }
             other => {
                 let d = self.describe(&other);
-                Err(self.error(t.pos, format!("expected an assignment target, found {d}")))
+                Err(self.unexpected(t.pos, "an assignment target", &d))
             }
         }
     }

@@ -6,6 +6,7 @@ use super::lexer::{Lexer, Punct, Tok, Token};
 use super::pos::Pos;
 use super::symbols::{is_keyword, kw, Interner, Sym};
 use super::syntax_error::{SyntaxError, SyntaxKind};
+use crate::diag::Stage;
 use std::collections::VecDeque;
 
 /// Parse failure marker: the message is already in [`Parser::errors`].
@@ -31,6 +32,8 @@ pub struct Parser<'s, 'n> {
     depth: usize,
     /// Tokens taken so far (error recovery checks that it moved on).
     taken: u64,
+    /// Inside the body of a clocked `always` block (non-blocking assignments allowed).
+    pub(super) in_clocked: bool,
 }
 
 impl<'s, 'n> Parser<'s, 'n> {
@@ -55,6 +58,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             warnings: Vec::new(),
             depth: 0,
             taken: 0,
+            in_clocked: false,
         }
     }
 
@@ -124,9 +128,24 @@ impl<'s, 'n> Parser<'s, 'n> {
         self.error_of(pos, SyntaxKind::Syntax, msg)
     }
 
+    /// Record `expected {expected}, found {found}` (a grammar error whose last part names
+    /// what the text has there).
+    pub fn unexpected(&mut self, pos: Pos, expected: &str, found: &str) -> Stop {
+        let mut e = SyntaxError::new(
+            Stage::Parse,
+            pos,
+            SyntaxKind::Syntax,
+            format!("expected {expected}, found {found}"),
+        );
+        e.found_at = Some(("expected ".len() + expected.len()) as u32);
+        self.errors.push(e);
+        Stop
+    }
+
     /// Record an error of a given kind.
     pub fn error_of(&mut self, pos: Pos, kind: SyntaxKind, msg: impl Into<String>) -> Stop {
-        self.errors.push(SyntaxError::new(pos, kind, msg));
+        self.errors
+            .push(SyntaxError::new(Stage::Parse, pos, kind, msg));
         Stop
     }
 
@@ -162,7 +181,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
         let t = self.peek().clone();
         let d = self.describe(&t.tok);
-        Err(self.error(t.pos, format!("expected {what}, found {d}")))
+        Err(self.unexpected(t.pos, what, &d))
     }
 
     /// Consume keyword `k` or report.
@@ -173,7 +192,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         let t = self.peek().clone();
         let d = self.describe(&t.tok);
         let want = self.names.name(k).to_string();
-        Err(self.error(t.pos, format!("expected `{want}`, found {d}")))
+        Err(self.unexpected(t.pos, &format!("`{want}`"), &d))
     }
 
     /// An identifier (not a keyword).
@@ -186,7 +205,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
         }
         let d = self.describe(&t.tok);
-        Err(self.error(t.pos, format!("expected {what}, found {d}")))
+        Err(self.unexpected(t.pos, what, &d))
     }
 
     /// Skip a plain name without interning it (see [`Lexer::skip_name`]); only when no
@@ -240,7 +259,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
                 _ => {
                     let d = self.describe(&t.tok);
-                    self.error(t.pos, format!("expected `module`, found {d}"));
+                    self.unexpected(t.pos, "`module`", &d);
                     self.bump();
                     while !matches!(self.peek().tok, Tok::Eof)
                         && !self.peek_kw(kw::MODULE)
@@ -516,8 +535,9 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
         if self.warnings.is_empty() {
             self.warnings.push(SyntaxError::new(
+                Stage::Parse,
                 pos,
-                SyntaxKind::Syntax,
+                SyntaxKind::DelayIgnored,
                 "delays are ignored (this is the first; the logic is read as if every delay were 0)",
             ));
         }
@@ -601,7 +621,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             Tok::Ident(k) => k,
             other => {
                 let d = self.describe(&other);
-                return Err(self.error(pos, format!("expected a module item, found {d}")));
+                return Err(self.unexpected(pos, "a module item", &d));
             }
         };
         if k == kw::INPUT
@@ -692,17 +712,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         } else if k == kw::ALWAYS {
             self.bump();
             let sensitivity = self.event_control()?;
-            if let Sensitivity::List(events, at) = &sensitivity {
-                if events.iter().any(|e| e.edge.is_some()) {
-                    // Registers are not read yet: their lowering belongs in
-                    // `elaborate/clocked.rs`, with `<=` parsed for these blocks only.
-                    let at = *at;
-                    self.unsupported(at, "`always` block with a clock edge (`posedge`/`negedge`) in its event list: equicone reads combinational logic (`always @*`, `always @(a or b)`, `always_comb`)");
-                    self.skip_statement();
-                    return Ok(());
-                }
-            }
-            let body = self.stmt()?;
+            let body = self.always_body(&sensitivity)?;
             out.push(Item::Always(Box::new(Always { sensitivity, body }), pos));
         } else if k == kw::GENERATE {
             self.bump();
@@ -746,9 +756,23 @@ impl<'s, 'n> Parser<'s, 'n> {
             let body = self.stmt()?;
             let sensitivity = Sensitivity::Implicit;
             out.push(Item::Always(Box::new(Always { sensitivity, body }), pos));
-        } else if self.names.name(k) == "always_latch" || self.names.name(k) == "always_ff" {
-            let n = self.names.name(k).to_string();
-            self.unsupported(pos, format!("`{n}` (equicone reads combinational logic: `always @*`, `always @(...)` or `always_comb`)"));
+        } else if self.names.name(k) == "always_ff" {
+            // IEEE 1800-2017 clause 9.2.2.4 (from memory): edge-triggered logic only.
+            self.bump();
+            let sensitivity = self.event_control()?;
+            if !Self::has_edge(&sensitivity) {
+                let at = match &sensitivity {
+                    Sensitivity::List(_, at) => *at,
+                    Sensitivity::Implicit => pos,
+                };
+                self.unsupported(at, "`always_ff` without a clock edge: its event list must name `posedge` or `negedge` events (use `always_comb` for combinational logic)");
+                self.skip_statement();
+                return Ok(());
+            }
+            let body = self.always_body(&sensitivity)?;
+            out.push(Item::Always(Box::new(Always { sensitivity, body }), pos));
+        } else if self.names.name(k) == "always_latch" {
+            self.unsupported(pos, "`always_latch` (latches are not read: equicone reads combinational logic and registers clocked by an edge, `always @(posedge clk)`/`always_ff`)");
             self.bump();
             self.skip_statement();
         } else {

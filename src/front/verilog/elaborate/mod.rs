@@ -163,6 +163,8 @@ pub struct Elaborator<'a> {
     hier: Vec<Sym>,
     /// Decided coverage conditions of `always` blocks, by literal.
     coverage_memo: crate::hash::FastMap<u32, stmt::Coverage>,
+    /// Registers of clocked `always` blocks (`stmt/clocked.rs`).
+    clocked: stmt::Clocked,
 }
 
 impl<'a> Elaborator<'a> {
@@ -189,6 +191,7 @@ impl<'a> Elaborator<'a> {
             quiet: 0,
             hier: Vec::new(),
             coverage_memo: Default::default(),
+            clocked: Default::default(),
         }
     }
 
@@ -213,6 +216,7 @@ impl<'a> Elaborator<'a> {
             quiet: self.quiet,
             hier: self.hier,
             coverage_memo: self.coverage_memo,
+            clocked: self.clocked,
         }
     }
 
@@ -420,6 +424,7 @@ pub fn elaborate(
         }
     };
     let scope = flatten::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
+    e.check_clocked_blocks();
     // The syntax tree is no longer needed: free it before the design is built.
     let (top_name, top_ports, top_pos) = (top_mod.name, top_mod.ports.clone(), top_mod.pos);
     let mut e = e.detach(names, files);

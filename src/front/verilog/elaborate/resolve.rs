@@ -13,14 +13,14 @@ use std::collections::{BTreeSet, HashMap, HashSet};
 
 const NONE: u32 = u32::MAX;
 
-struct Resolver {
+pub(super) struct Resolver {
     /// The design's AIG being built (the elaborator's leaves mapped to it).
-    design_aig: Aig,
+    pub(super) design_aig: Aig,
     memo: Vec<u32>,
     busy: Vec<bool>,
-    primary: HashMap<u32, Lit>,
-    inputs: Vec<InputBit>,
-    used_names: HashSet<String>,
+    pub(super) primary: HashMap<u32, Lit>,
+    pub(super) inputs: Vec<InputBit>,
+    pub(super) used_names: HashSet<String>,
     undriven: BTreeSet<u32>,
 }
 
@@ -37,7 +37,7 @@ impl Resolver {
 }
 
 impl Elaborator<'_> {
-    fn resolve(&mut self, r: &mut Resolver, root: Lit) -> Lit {
+    pub(super) fn resolve(&mut self, r: &mut Resolver, root: Lit) -> Lit {
         let mut stack = vec![root.node()];
         while let Some(&n) = stack.last() {
             let ni = n as usize;
@@ -76,6 +76,9 @@ impl Elaborator<'_> {
                         r.memo[ni] = lit.raw();
                         stack.pop();
                     } else if let Some(&p) = r.primary.get(&k) {
+                        r.memo[ni] = p.raw();
+                        stack.pop();
+                    } else if let Some(p) = self.lazy_register(r, k) {
                         r.memo[ni] = p.raw();
                         stack.pop();
                     } else if let Some(d) = self.drivers[k as usize] {
@@ -228,6 +231,7 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
     }
     r.memo = vec![NONE; e.aig.len()];
     r.busy = vec![false; e.aig.len()];
+    e.registers_begin(&mut r);
     let mut outputs = Vec::new();
     for n in outs {
         let net = e.nets[n as usize].clone();
@@ -235,7 +239,10 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
         let mut undriven = false;
         for off in 0..net.width {
             let leaf = net.first + off;
-            if e.drivers[leaf as usize].is_none() && !r.primary.contains_key(&leaf) {
+            if e.drivers[leaf as usize].is_none()
+                && !r.primary.contains_key(&leaf)
+                && !e.is_register_leaf(leaf)
+            {
                 undriven = true;
             }
             let root = e.aig.input_lit(leaf as usize);
@@ -270,7 +277,10 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
             );
         }
     }
-    let netlist = netlist(e, &r, &outputs_leaves(e, ports, scope));
+    let registers = e.registers_finish(&mut r);
+    let mut netlist = netlist(e, &r, &outputs_leaves(e, ports, scope));
+    // The netlist as written holds no registers: not the whole design.
+    netlist.complete &= registers.is_empty();
     let name = e.name(top).to_string();
     let d = Design {
         name,
@@ -280,7 +290,7 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
         outputs,
         netlist: Some(netlist),
         warnings: std::mem::take(&mut e.warnings),
-        registers: Vec::new(),
+        registers,
     };
     if e.errors.is_empty() {
         d.debug_check();

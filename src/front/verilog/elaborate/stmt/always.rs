@@ -21,8 +21,8 @@ impl Elaborator<'_> {
     /// combinational ones have their event list checked (`sensitivity.rs`) and run here.
     pub(crate) fn elab_always(&mut self, scope: u32, block: &Always, pos: Pos) {
         if let Sensitivity::List(events, at) = &block.sensitivity {
-            if let Some(edge) = events.iter().find(|e| e.edge.is_some()) {
-                return self.elab_clocked(scope, block, edge);
+            if events.iter().any(|e| e.edge.is_some()) {
+                return self.elab_clocked(scope, block, pos);
             }
             self.check_event_list(scope, events, *at, &block.body);
         }
@@ -72,7 +72,7 @@ impl Elaborator<'_> {
         }
     }
 
-    fn exec(&mut self, scope: u32, st: &Stmt, env: &mut Env) {
+    pub(super) fn exec(&mut self, scope: u32, st: &Stmt, env: &mut Env) {
         match st {
             Stmt::Null => {}
             Stmt::Block(v) => {
@@ -81,6 +81,7 @@ impl Elaborator<'_> {
                 }
             }
             Stmt::Assign(lhs, rhs, pos) => self.proc_assign(scope, lhs, rhs, *pos, env),
+            Stmt::NonBlocking(lhs, rhs, pos) => self.non_blocking(scope, lhs, rhs, *pos, env),
             Stmt::If(c, t, e, pos) => {
                 let cb = {
                     let ctx = EvalContext {
@@ -126,7 +127,7 @@ impl Elaborator<'_> {
             if out.vars.contains_key(&n) {
                 continue;
             }
-            let w = self.nets[n as usize].width as usize;
+            let w = self.nets[(n & !super::clocked::NON_BLOCKING) as usize].width as usize;
             let unset = vec![BitState::Unset(None); w];
             let tv = t.vars.get(&n).unwrap_or(&unset);
             let ev = e.vars.get(&n).unwrap_or(&unset);
@@ -181,7 +182,7 @@ impl Elaborator<'_> {
     }
 
     /// A bit assigned where `assigned` holds: fully assigned when that covers every value.
-    fn settle(&mut self, value: Lit, assigned: Lit, gap: Pos) -> BitState {
+    pub(super) fn settle(&mut self, value: Lit, assigned: Lit, gap: Pos) -> BitState {
         if assigned == Lit::FALSE {
             return BitState::Unset(Some(gap));
         }

@@ -12,4 +12,5 @@ mod always;
 mod clocked;
 mod coverage;
 mod sensitivity;
+pub(super) use clocked::Clocked;
 pub(super) use coverage::Coverage;

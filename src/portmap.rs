@@ -173,9 +173,18 @@ mod tests {
         assert_eq!(m.entries[1].reference, "en[0]");
         assert_eq!(m.entries[1].pos.to_string(), "m.map:4:1");
         let e = parse("a\nb c d\ne f\ne g\n").unwrap_err().to_string();
-        assert!(e.contains("m.map:1:1: error: a line of a port map needs two names"), "{e}");
-        assert!(e.contains("m.map:2:5: error: unexpected `d` after the two names"), "{e}");
-        assert!(e.contains("m.map:4:1: error: `e` of the reference is mapped twice (first on line 3)"), "{e}");
+        assert!(
+            e.contains("m.map:1:1: error: a line of a port map needs two names"),
+            "{e}"
+        );
+        assert!(
+            e.contains("m.map:2:5: error: unexpected `d` after the two names"),
+            "{e}"
+        );
+        assert!(
+            e.contains("m.map:4:1: error: `e` of the reference is mapped twice (first on line 3)"),
+            "{e}"
+        );
     }
 
     #[test]
@@ -196,6 +205,9 @@ mod tests {
         assert_eq!(p["x"], "y");
         let m = parse("a y\n").unwrap();
         let e = m.bit_pairs(&rb, &cb).unwrap_err().to_string();
-        assert!(e.contains("`a` is an input of the reference but `y` an output of the candidate"), "{e}");
+        assert!(
+            e.contains("`a` is an input of the reference but `y` an output of the candidate"),
+            "{e}"
+        );
     }
 }

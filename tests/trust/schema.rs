@@ -32,12 +32,13 @@ fn every_method_word_is_in_the_readme() {
     assert!(words.len() >= 8, "{words:?}");
     words.push("none".to_string());
     // The portfolio's stages, wherever in the engine their table is.
-    let engine: String = std::fs::read_dir(Path::new(env!("CARGO_MANIFEST_DIR")).join("src/engine"))
-        .unwrap()
-        .map(|e| e.unwrap().path())
-        .filter(|p| p.extension().is_some_and(|x| x == "rs"))
-        .map(|p| std::fs::read_to_string(p).unwrap())
-        .collect();
+    let engine: String =
+        std::fs::read_dir(Path::new(env!("CARGO_MANIFEST_DIR")).join("src/engine"))
+            .unwrap()
+            .map(|e| e.unwrap().path())
+            .filter(|p| p.extension().is_some_and(|x| x == "rs"))
+            .map(|p| std::fs::read_to_string(p).unwrap())
+            .collect();
     let mut stages = table_words(&engine, "Stage::");
     stages.sort();
     stages.dedup();

@@ -317,7 +317,7 @@ mod tests {
     fn error(expr: &str) -> Diagnostic {
         let d = design();
         let mut aig = Aig::new();
-        let e = constraint(&d, &[expr.to_string()], &mut aig, &|_| None).unwrap_err();
+        let e = constraint(&[&d], &[expr.to_string()], &mut aig, &|_| None).unwrap_err();
         e.diagnostics[0].clone()
     }
 

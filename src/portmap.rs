@@ -30,6 +30,10 @@ pub struct PortMap {
     pub entries: Vec<Entry>,
 }
 
+/// The bits a name stands for on one side, least significant first, with a kind word
+/// (`input`, `output`, ...), or `None` when that side has no such name.
+pub type BitsOf<'a> = &'a dyn Fn(&str) -> Option<(Vec<String>, &'static str)>;
+
 /// Help shown with every error about the file's form.
 const FORM: &str = "a port map has one pair per line, `REFERENCE_NAME CANDIDATE_NAME` (a bus or a bit each, e.g. `data din` or `en[0] enable`); `#` starts a comment";
 
@@ -102,8 +106,8 @@ impl PortMap {
     /// name) and a kind word (`input`, `output`, ...) that must agree on both sides.
     pub fn bit_pairs(
         &self,
-        reference_bits: &dyn Fn(&str) -> Option<(Vec<String>, &'static str)>,
-        candidate_bits: &dyn Fn(&str) -> Option<(Vec<String>, &'static str)>,
+        reference_bits: BitsOf<'_>,
+        candidate_bits: BitsOf<'_>,
     ) -> Result<BTreeMap<String, String>, InputError> {
         let mut out = BTreeMap::new();
         let mut errors = Vec::new();

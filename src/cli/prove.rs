@@ -218,6 +218,11 @@ pub struct ProveArgs {
     /// does not prove every output pair.
     #[arg(long, value_name = "K", default_value_t = 20)]
     cycles: usize,
+    /// Clocked designs: the deepest k-induction step tried on output pairs the register pairing
+    /// leaves open (0: none; default: 8 when both designs have at most 4,096 register bits
+    /// together; at most --cycles, the unrolling being its base case).
+    #[arg(long, value_name = "K")]
+    k_induction: Option<usize>,
     /// Clocked designs: how registers without a reset start (`0` is the usual convention for
     /// the ISCAS-89 circuits).
     #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
@@ -378,6 +383,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
     let settings = check::ClockedSettings {
         cycles: a.cycles,
         init_unset: a.init_unset.into(),
+        k_induction: a.k_induction,
     };
     let mut rf = vec![a.pair.reference.clone()];
     rf.extend(a.pair.ref_also.iter().cloned());

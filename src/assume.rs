@@ -8,7 +8,7 @@
 
 use crate::aig::{Aig, Lit};
 use crate::design::Design;
-use crate::diag::{Diagnostic, InputError, SourcePos};
+use crate::diag::{Diagnostic, InputError, Kind, SourcePos, Stage};
 use crate::front::verilog::read_verilog;
 use crate::sat::{Limits, Sat, SatResult};
 use std::collections::BTreeMap;
@@ -70,7 +70,8 @@ fn one(
                 Some(SourcePos::new(&label, 1, 1)),
                 "an assumption is one Verilog expression on one line",
             )
-            .with_help("for example `--assume 'sel < 12'`"),
+            .with_help("for example `--assume 'sel < 12'`")
+            .in_stage(Stage::Assume),
         ));
     }
     let ports = ports(d);
@@ -88,12 +89,15 @@ fn one(
     );
     let a = read_verilog(&[(label.clone(), text)], Some("equicone_assumption"))
         .map_err(|e| {
+            // The reader's advice for a syntax error or a name that is not declared speaks of
+            // modules; here the ports are what the user can name.
+            let generic: Vec<bool> = e
+                .diagnostics
+                .iter()
+                .map(|d| d.help.is_none() || matches!(d.kind, Kind::Grammar { .. }) || names_a_non_port(d, &label, expr, &names))
+                .collect();
             let mut e = relocate(e, &label, expr.chars().count() as u32);
-            for d in &mut e.diagnostics {
-                // The reader's advice for a syntax error or an unknown name speaks of
-                // modules; here the ports are what the user can name.
-                let generic = d.help.as_deref().is_none_or(|h| h.starts_with("correct the syntax"))
-                    || d.message.starts_with("undeclared name");
+            for (d, generic) in e.diagnostics.iter_mut().zip(generic) {
                 if generic {
                     d.help = Some(format!(
                         "an assumption is a Verilog expression over the input ports ({}), e.g. `--assume 'sel < 12'`",
@@ -114,7 +118,8 @@ fn one(
                 Some(SourcePos::new(&label, 1, col)),
                 "the assumption can read an unknown value (an x or z bit, or a select out of range)",
             )
-            .with_help("write the condition without x/z literals or out-of-range selects"),
+            .with_help("write the condition without x/z literals or out-of-range selects")
+            .in_stage(Stage::Assume),
         ));
     }
     let map: Vec<Lit> = a
@@ -165,8 +170,8 @@ fn relocate(mut e: InputError, label: &Arc<str>, len: u32) -> InputError {
                     p.col = if p.line < EXPR_LINE { 1 } else { len + 1 };
                     if p.line > EXPR_LINE {
                         // What was found there is the wrapper's text, not the user's.
-                        if let Some(i) = d.message.find(", found ") {
-                            d.message.truncate(i);
+                        if let Kind::Grammar { found_at: Some(i) } = d.kind {
+                            d.message.truncate(i as usize);
                             d.message += ", found the end of the assumption";
                         }
                     }
@@ -176,6 +181,23 @@ fn relocate(mut e: InputError, label: &Arc<str>, len: u32) -> InputError {
         }
     }
     e
+}
+
+/// Whether `d` is an elaboration error that points, in the assumption's own text, at an
+/// identifier other than a port name (a name the wrapper module does not declare).
+fn names_a_non_port(d: &Diagnostic, label: &Arc<str>, expr: &str, ports: &[String]) -> bool {
+    let Some(p) = d.pos.as_ref() else {
+        return false;
+    };
+    if d.stage != Stage::Elaborate || p.file != *label || p.line != EXPR_LINE || p.col == 0 {
+        return false;
+    }
+    let word: String = expr
+        .chars()
+        .skip(p.col as usize - 1)
+        .take_while(|c| c.is_ascii_alphanumeric() || *c == '_' || *c == '$')
+        .collect();
+    word.starts_with(|c: char| c.is_ascii_alphabetic() || c == '_') && !ports.contains(&word)
 }
 
 /// Fail when no input vector satisfies `c` (a literal of `aig`).
@@ -194,7 +216,8 @@ pub fn check_satisfiable(aig: &Aig, c: Lit, exprs: &[String]) -> Result<(), Inpu
                 exprs.join(" && ")
             ),
             "an unsatisfiable assumption would make every claim vacuous; correct or drop it",
-        ));
+        )
+        .in_stage(Stage::Assume));
     }
     Ok(())
 }
@@ -238,4 +261,50 @@ pub fn apply_to_shared(
     shared.aig = aig;
     shared.constraint = c?;
     Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn design() -> Design {
+        let src = "module m(input [1:0] s, input d, output y); assign y = d & s[0]; endmodule";
+        crate::front::verilog::read_verilog(&[(Arc::from("m.v"), src.to_string())], None).unwrap()
+    }
+
+    fn error(expr: &str) -> Diagnostic {
+        let d = design();
+        let mut aig = Aig::new();
+        let e = constraint(&d, &[expr.to_string()], &mut aig, &|_| None).unwrap_err();
+        e.diagnostics[0].clone()
+    }
+
+    const PORT_HELP: &str =
+        "an assumption is a Verilog expression over the input ports (s, d), e.g. `--assume 'sel < 12'`";
+
+    #[test]
+    fn a_name_that_is_not_a_port_gets_the_ports_help() {
+        let d = error("s < q");
+        assert_eq!(d.stage, Stage::Elaborate);
+        assert_eq!(d.pos.as_ref().map(|p| p.col), Some(5), "{d}");
+        assert_eq!(d.help.as_deref(), Some(PORT_HELP));
+    }
+
+    #[test]
+    fn a_grammar_error_gets_the_ports_help() {
+        let d = error("s <");
+        assert!(matches!(d.kind, Kind::Grammar { .. }), "{d}");
+        assert_eq!(d.help.as_deref(), Some(PORT_HELP));
+    }
+
+    #[test]
+    fn other_errors_keep_their_own_help() {
+        let d = error("s;");
+        assert_eq!(d.stage, Stage::Assume);
+        assert_eq!(d.help.as_deref(), Some("for example `--assume 'sel < 12'`"));
+        // A port read where a constant is needed: the reader's own advice stays.
+        let d = error("d[s:0]");
+        assert_eq!(d.stage, Stage::Elaborate);
+        assert_ne!(d.help.as_deref(), Some(PORT_HELP), "{d}");
+    }
 }

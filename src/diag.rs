@@ -1,7 +1,9 @@
 //! Diagnostics for bad input: a position (file:line:column), what is wrong and what to do.
 //!
 //! Every user-facing error of the front-ends and the command line is a [`Diagnostic`];
-//! a failed stage returns all of its diagnostics at once as [`InputError`].
+//! a failed stage returns all of its diagnostics at once as [`InputError`]. Each diagnostic
+//! knows the [`Stage`] that made it and, where a caller treats some apart, its [`Kind`]; both
+//! are set where the diagnostic is made, so no caller reads the message's words back.
 
 use serde::Serialize;
 use std::fmt;
@@ -45,6 +47,42 @@ pub enum Severity {
     Warning,
 }
 
+/// The stage of reading the input that made a diagnostic.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Default)]
+pub enum Stage {
+    /// The command line and the files it names other than designs (vectors, expectations,
+    /// cost models, shard results, outputs to write).
+    #[default]
+    CliInput,
+    /// The Verilog preprocessor (`` `define ``, `` `include ``, conditionals).
+    Preprocess,
+    /// The Verilog lexer (tokens and literals).
+    Lex,
+    /// The Verilog parser (the grammar of the subset).
+    Parse,
+    /// The Verilog elaborator (names, widths, drivers, hierarchy).
+    Elaborate,
+    /// The bench reader.
+    Bench,
+    /// An `--assume` expression (the wrapper around it, and what it may read).
+    Assume,
+}
+
+/// What kind of problem a diagnostic reports, for the kinds a caller treats apart.
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Default)]
+pub enum Kind {
+    /// Anything else.
+    #[default]
+    Other,
+    /// Text that does not follow the grammar (the reader's generic syntax error, whose help
+    /// speaks of the subset as a whole). For a message `expected X, found Y`, `found_at` is
+    /// where `, found Y` starts.
+    Grammar {
+        /// Byte offset of `, found` in the message.
+        found_at: Option<u32>,
+    },
+}
+
 /// One message about the user's input.
 #[derive(Clone, Debug, PartialEq, Eq, Serialize)]
 pub struct Diagnostic {
@@ -56,6 +94,12 @@ pub struct Diagnostic {
     pub message: String,
     /// What to do about it.
     pub help: Option<String>,
+    /// The stage that made it (not part of the text or JSON forms).
+    #[serde(skip)]
+    pub stage: Stage,
+    /// What kind of problem (not part of the text or JSON forms).
+    #[serde(skip)]
+    pub kind: Kind,
 }
 
 impl Diagnostic {
@@ -66,6 +110,8 @@ impl Diagnostic {
             pos,
             message: message.into(),
             help: None,
+            stage: Stage::CliInput,
+            kind: Kind::Other,
         }
     }
 
@@ -76,12 +122,26 @@ impl Diagnostic {
             pos,
             message: message.into(),
             help: None,
+            stage: Stage::CliInput,
+            kind: Kind::Other,
         }
     }
 
     /// The same diagnostic with advice on what to do.
     pub fn with_help(mut self, help: impl Into<String>) -> Diagnostic {
         self.help = Some(help.into());
+        self
+    }
+
+    /// The same diagnostic, made by `stage`.
+    pub fn in_stage(mut self, stage: Stage) -> Diagnostic {
+        self.stage = stage;
+        self
+    }
+
+    /// The same diagnostic, of kind `kind`.
+    pub fn of_kind(mut self, kind: Kind) -> Diagnostic {
+        self.kind = kind;
         self
     }
 }
@@ -116,6 +176,15 @@ impl InputError {
         InputError {
             diagnostics: vec![Diagnostic::error(None, message).with_help(help)],
         }
+    }
+
+    /// The same errors, each marked as made by `stage` (for a stage whose diagnostics are
+    /// all made by one reader, marked where the reader returns them).
+    pub fn in_stage(mut self, stage: Stage) -> InputError {
+        for d in &mut self.diagnostics {
+            d.stage = stage;
+        }
+        self
     }
 
     /// A single diagnostic.

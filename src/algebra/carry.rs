@@ -311,14 +311,14 @@ fn cut_of(aig: &Aig, out: Lit, g: Lit, p: Lit, c: Lit, f: fn(u8, u8, u8) -> u8) 
                 *tt
             } else if ls.len() == 1 && ls[0] == l.node() {
                 let proj =
-                    super::units::PROJ[leaves.iter().position(|&x| x == ls[0]).expect("leaf")];
+                    super::truth::PROJ[leaves.iter().position(|&x| x == ls[0]).expect("leaf")];
                 if l.is_complemented() {
                     !proj
                 } else {
                     proj
                 }
             } else {
-                super::units::expand(*tt, ls, &leaves)
+                super::truth::expand(*tt, ls, &leaves)
             }
         })
         .collect();

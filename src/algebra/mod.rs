@@ -20,6 +20,7 @@ mod carry;
 pub mod coef;
 pub mod poly;
 mod remainder;
+mod truth;
 pub mod units;
 
 use crate::aig::{Aig, Lit};

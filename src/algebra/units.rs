@@ -23,12 +23,10 @@ use std::collections::BinaryHeap;
 
 use super::carry::{self, FunctionalCut};
 use super::poly::UnitPoly;
+use super::truth::{expand, PROJ};
 
 /// Cuts kept per node (the fan-in cut is always among them).
 pub const MAX_CUTS: usize = 48;
-
-/// Truth tables of the three leaf projections (leaf j is bit j of the minterm).
-pub(super) const PROJ: [u8; 3] = [0xAA, 0xCC, 0xF0];
 
 #[derive(Clone, Debug, PartialEq, Eq)]
 struct Cut {
@@ -95,27 +93,6 @@ pub struct Units {
     pub adder_cells: usize,
     /// Units taken as a two-leaf XOR.
     pub xors: usize,
-}
-
-/// Truth table `tt` over `from` re-expressed over `to` (a superset, both increasing).
-pub(super) fn expand(tt: u8, from: &[u32], to: &[u32]) -> u8 {
-    let pos: Vec<usize> = from
-        .iter()
-        .map(|l| to.iter().position(|x| x == l).expect("leaf in superset"))
-        .collect();
-    let mut out = 0u8;
-    for m in 0..8u8 {
-        let mut idx = 0u8;
-        for (j, &p) in pos.iter().enumerate() {
-            if (m >> p) & 1 == 1 {
-                idx |= 1 << j;
-            }
-        }
-        if (tt >> idx) & 1 == 1 {
-            out |= 1 << m;
-        }
-    }
-    out
 }
 
 fn merge_leaves(a: &Leaves, b: &Leaves) -> Option<Leaves> {

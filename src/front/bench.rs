@@ -13,7 +13,7 @@ use crate::design::{
     split_bit, Cell, CellKind, ClockEdge, Design, Format, InputBit, InputKind, Netlist, OutputBit,
     Register,
 };
-use crate::diag::{Diagnostic, InputError, SourcePos};
+use crate::diag::{Diagnostic, InputError, SourcePos, Stage};
 use crate::hash::FastMap;
 use line::{col_of, parse_line, Stmt};
 use std::sync::Arc;
@@ -80,8 +80,8 @@ pub fn read_bench_until(
     text: &str,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
-    let compact = parse_to_netlist(file, text, stop)?;
-    elaborate(file, compact, stop)
+    let read = || elaborate(file, parse_to_netlist(file, text, stop)?, stop);
+    in_bench_stage(read())
 }
 
 /// [`read_bench_until`] taking the text, which is dropped as soon as the netlist holds its
@@ -91,9 +91,26 @@ pub fn read_bench_text(
     text: String,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
-    let compact = parse_to_netlist(file, &text, stop)?;
-    drop(text);
-    elaborate(file, compact, stop)
+    let read = move || {
+        let compact = parse_to_netlist(file, &text, stop)?;
+        drop(text);
+        elaborate(file, compact, stop)
+    };
+    in_bench_stage(read())
+}
+
+/// A bench reader's result with its diagnostics marked as made by the bench stage.
+fn in_bench_stage(r: Result<Design, ReadError>) -> Result<Design, ReadError> {
+    match r {
+        Ok(mut d) => {
+            for w in &mut d.warnings {
+                w.stage = Stage::Bench;
+            }
+            Ok(d)
+        }
+        Err(ReadError::Input(e)) => Err(ReadError::Input(e.in_stage(Stage::Bench))),
+        Err(stopped) => Err(stopped),
+    }
 }
 
 /// The parse result without the text: the netlist as written plus the input and output

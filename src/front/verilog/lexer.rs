@@ -4,6 +4,7 @@
 use super::pos::Pos;
 use super::symbols::{Interner, Sym};
 use super::syntax_error::{SyntaxError, SyntaxKind};
+use crate::diag::Stage;
 
 /// One 4-state bit of a literal.
 pub const B0: u8 = 0;
@@ -213,7 +214,8 @@ impl<'s> Lexer<'s> {
     }
 
     fn err_of(&mut self, pos: Pos, kind: SyntaxKind, msg: impl Into<String>) {
-        self.errors.push(SyntaxError::new(pos, kind, msg));
+        self.errors
+            .push(SyntaxError::new(Stage::Lex, pos, kind, msg));
     }
 
     /// Skip white space, comments, attributes and the directives that do not change logic.

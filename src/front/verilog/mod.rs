@@ -20,7 +20,7 @@ pub mod symbols;
 pub mod syntax_error;
 
 use crate::design::Design;
-use crate::diag::{Diagnostic, InputError, SourcePos};
+use crate::diag::{InputError, Stage};
 use std::sync::Arc;
 
 /// Read Verilog sources (file name as the user gave it, and its text) into one design whose
@@ -100,26 +100,62 @@ fn read_inner(
         let mut p = parser::Parser::with_marks(&unit.text, k as u32, &unit.marks, &mut names);
         mods.extend(p.file());
         for w in std::mem::take(&mut p.warnings) {
-            let pos = SourcePos::new(&files[w.pos.file as usize], w.pos.line, w.pos.col);
-            warnings.push(Diagnostic::warning(Some(pos), w.message).with_help(
-                "equicone compares the logic only; delays do not change what is proved",
-            ));
+            warnings.push(w.diagnostic(&files));
         }
         let mut errs = std::mem::take(&mut p.errors);
         errs.sort_by_key(|e| (e.pos.file != k as u32, e.pos.file, e.pos.line, e.pos.col));
-        for e in errs {
-            let file = &files[e.pos.file as usize];
-            let pos = SourcePos::new(file, e.pos.line, e.pos.col);
-            diags.push(Diagnostic::error(Some(pos), e.message).with_help(e.kind.help()));
-        }
+        diags.extend(errs.iter().map(|e| e.diagnostic(&files)));
     }
     if !diags.is_empty() {
         return Err(InputError { diagnostics: diags });
     }
-    let mut d = elaborate::elaborate(&names, &files, mods, top)?;
+    let mut d = elaborate::elaborate(&names, &files, mods, top)
+        .map_err(|e| e.in_stage(Stage::Elaborate))?;
+    for w in &mut d.warnings {
+        w.stage = Stage::Elaborate;
+    }
     if !warnings.is_empty() {
         warnings.append(&mut d.warnings);
         d.warnings = warnings;
     }
     Ok(d)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::diag::{Kind, Severity};
+
+    fn first_error(src: &str) -> crate::diag::Diagnostic {
+        let e = read_verilog(&[(Arc::from("t.v"), src.to_string())], None).unwrap_err();
+        e.diagnostics[0].clone()
+    }
+
+    #[test]
+    fn each_stage_marks_its_errors() {
+        let d = first_error("`endif\nmodule m(output y); assign y = 1; endmodule\n");
+        assert_eq!(d.stage, Stage::Preprocess, "{d}");
+        let d = first_error("module m(output y); assign y = 70000'h0; endmodule\n");
+        assert_eq!((d.stage, d.kind), (Stage::Lex, Kind::Other), "{d}");
+        let d = first_error("module m(output y) assign y = 1; endmodule\n");
+        assert_eq!(d.stage, Stage::Parse, "{d}");
+        assert!(matches!(d.kind, Kind::Grammar { .. }), "{d}");
+        let d = first_error("module m(output y); assign y = q; endmodule\n");
+        assert_eq!((d.stage, d.kind), (Stage::Elaborate, Kind::Other), "{d}");
+        let e = crate::front::bench::read_bench(&Arc::from("t.bench"), "OUTPUT(y)\ny = FOO(a)\n")
+            .unwrap_err();
+        assert_eq!(e.diagnostics[0].stage, Stage::Bench);
+    }
+
+    #[test]
+    fn the_delay_warning_carries_its_help_from_the_parser() {
+        let src = "module m(input a, output y); assign #1 y = a; endmodule\n";
+        let d = read_verilog(&[(Arc::from("t.v"), src.to_string())], None).unwrap();
+        let w = &d.warnings[0];
+        assert_eq!((w.severity, w.stage), (Severity::Warning, Stage::Parse));
+        assert_eq!(
+            w.help.as_deref(),
+            Some("equicone compares the logic only; delays do not change what is proved")
+        );
+    }
 }

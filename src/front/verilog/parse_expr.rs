@@ -178,7 +178,7 @@ impl Parser<'_, '_> {
             Tok::Str => Err(self.unsupported(pos, "string literal")),
             other => {
                 let d = self.describe(&other);
-                Err(self.error(pos, format!("expected an expression, found {d}")))
+                Err(self.unexpected(pos, "an expression", &d))
             }
         }
     }

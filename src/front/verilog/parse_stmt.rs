@@ -133,7 +133,7 @@ impl Parser<'_, '_> {
             Tok::Punct(Punct::At) => Err(self.unsupported(pos, "event control `@` inside a block")),
             other => {
                 let d = self.describe(&other);
-                Err(self.error(pos, format!("expected a statement, found {d}")))
+                Err(self.unexpected(pos, "a statement", &d))
             }
         }
     }
@@ -174,7 +174,7 @@ impl Parser<'_, '_> {
             }
             other => {
                 let d = self.describe(&other);
-                Err(self.error(t.pos, format!("expected an assignment target, found {d}")))
+                Err(self.unexpected(t.pos, "an assignment target", &d))
             }
         }
     }

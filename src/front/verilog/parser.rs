@@ -6,6 +6,7 @@ use super::lexer::{Lexer, Punct, Tok, Token};
 use super::pos::Pos;
 use super::symbols::{is_keyword, kw, Interner, Sym};
 use super::syntax_error::{SyntaxError, SyntaxKind};
+use crate::diag::Stage;
 use std::collections::VecDeque;
 
 /// Parse failure marker: the message is already in [`Parser::errors`].
@@ -127,9 +128,24 @@ impl<'s, 'n> Parser<'s, 'n> {
         self.error_of(pos, SyntaxKind::Syntax, msg)
     }
 
+    /// Record `expected {expected}, found {found}` (a grammar error whose last part names
+    /// what the text has there).
+    pub fn unexpected(&mut self, pos: Pos, expected: &str, found: &str) -> Stop {
+        let mut e = SyntaxError::new(
+            Stage::Parse,
+            pos,
+            SyntaxKind::Syntax,
+            format!("expected {expected}, found {found}"),
+        );
+        e.found_at = Some(("expected ".len() + expected.len()) as u32);
+        self.errors.push(e);
+        Stop
+    }
+
     /// Record an error of a given kind.
     pub fn error_of(&mut self, pos: Pos, kind: SyntaxKind, msg: impl Into<String>) -> Stop {
-        self.errors.push(SyntaxError::new(pos, kind, msg));
+        self.errors
+            .push(SyntaxError::new(Stage::Parse, pos, kind, msg));
         Stop
     }
 
@@ -165,7 +181,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
         let t = self.peek().clone();
         let d = self.describe(&t.tok);
-        Err(self.error(t.pos, format!("expected {what}, found {d}")))
+        Err(self.unexpected(t.pos, what, &d))
     }
 
     /// Consume keyword `k` or report.
@@ -176,7 +192,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         let t = self.peek().clone();
         let d = self.describe(&t.tok);
         let want = self.names.name(k).to_string();
-        Err(self.error(t.pos, format!("expected `{want}`, found {d}")))
+        Err(self.unexpected(t.pos, &format!("`{want}`"), &d))
     }
 
     /// An identifier (not a keyword).
@@ -189,7 +205,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
         }
         let d = self.describe(&t.tok);
-        Err(self.error(t.pos, format!("expected {what}, found {d}")))
+        Err(self.unexpected(t.pos, what, &d))
     }
 
     /// Skip a plain name without interning it (see [`Lexer::skip_name`]); only when no
@@ -243,7 +259,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
                 _ => {
                     let d = self.describe(&t.tok);
-                    self.error(t.pos, format!("expected `module`, found {d}"));
+                    self.unexpected(t.pos, "`module`", &d);
                     self.bump();
                     while !matches!(self.peek().tok, Tok::Eof)
                         && !self.peek_kw(kw::MODULE)
@@ -519,8 +535,9 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
         if self.warnings.is_empty() {
             self.warnings.push(SyntaxError::new(
+                Stage::Parse,
                 pos,
-                SyntaxKind::Syntax,
+                SyntaxKind::DelayIgnored,
                 "delays are ignored (this is the first; the logic is read as if every delay were 0)",
             ));
         }
@@ -604,7 +621,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             Tok::Ident(k) => k,
             other => {
                 let d = self.describe(&other);
-                return Err(self.error(pos, format!("expected a module item, found {d}")));
+                return Err(self.unexpected(pos, "a module item", &d));
             }
         };
         if k == kw::INPUT

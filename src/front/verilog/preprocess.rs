@@ -17,7 +17,7 @@ mod text;
 
 use super::lexer::Mark;
 use super::pos::Pos;
-use crate::diag::{Diagnostic, SourcePos};
+use crate::diag::{Diagnostic, SourcePos, Stage};
 use macros::Macro;
 use std::borrow::Cow;
 use std::collections::BTreeMap;
@@ -164,7 +164,8 @@ impl Pre<'_> {
             .cloned()
             .unwrap_or_else(|| Arc::from("?"));
         let d = Diagnostic::error(Some(SourcePos::new(&f, pos.line, pos.col)), msg);
-        self.errors.push(d.with_help(help));
+        self.errors
+            .push(d.with_help(help).in_stage(Stage::Preprocess));
     }
 
     /// Read `cur` to its end, writing the text that is in force to `out`.

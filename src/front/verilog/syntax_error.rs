@@ -2,6 +2,8 @@
 //! where the error is made (never by reading the message back).
 
 use super::pos::Pos;
+use crate::diag::{Diagnostic, Kind, SourcePos, Stage};
+use std::sync::Arc;
 
 /// What went wrong while reading the text.
 #[derive(Copy, Clone, Debug, PartialEq, Eq)]
@@ -18,6 +20,8 @@ pub enum SyntaxKind {
     MissingEndmodule,
     /// Nesting past the parser's limit.
     TooDeep,
+    /// A delay, read and ignored (a warning).
+    DelayIgnored,
 }
 
 impl SyntaxKind {
@@ -37,6 +41,9 @@ impl SyntaxKind {
                 "close each module with `endmodule` before the next one starts"
             }
             SyntaxKind::TooDeep => "split the expression or statement with intermediate wires",
+            SyntaxKind::DelayIgnored => {
+                "equicone compares the logic only; delays do not change what is proved"
+            }
             SyntaxKind::Syntax => {
                 "correct the syntax here; the Verilog subset read is listed in docs/verilog.md"
             }
@@ -47,21 +54,55 @@ impl SyntaxKind {
 /// One lexer or parser error.
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub struct SyntaxError {
+    /// The lexer or the parser.
+    pub stage: Stage,
     /// Where it is.
     pub pos: Pos,
     /// What kind of error (gives the help line).
     pub kind: SyntaxKind,
     /// The message.
     pub message: String,
+    /// For `expected X, found Y`: where `, found Y` starts in the message.
+    pub found_at: Option<u32>,
 }
 
 impl SyntaxError {
-    /// An error of `kind` at `pos`.
-    pub fn new(pos: Pos, kind: SyntaxKind, message: impl Into<String>) -> SyntaxError {
+    /// An error of `kind` at `pos`, found by `stage` ([`Stage::Lex`] or [`Stage::Parse`]).
+    pub fn new(
+        stage: Stage,
+        pos: Pos,
+        kind: SyntaxKind,
+        message: impl Into<String>,
+    ) -> SyntaxError {
         SyntaxError {
+            stage,
             pos,
             kind,
             message: message.into(),
+            found_at: None,
         }
+    }
+
+    /// The diagnostic for the user: an error (or, for [`SyntaxKind::DelayIgnored`], a
+    /// warning) in `files[pos.file]`, with its kind's help line.
+    pub fn diagnostic(&self, files: &[Arc<str>]) -> Diagnostic {
+        let file = files
+            .get(self.pos.file as usize)
+            .cloned()
+            .unwrap_or_else(|| Arc::from("?"));
+        let pos = Some(SourcePos::new(&file, self.pos.line, self.pos.col));
+        let d = match self.kind {
+            SyntaxKind::DelayIgnored => Diagnostic::warning(pos, self.message.clone()),
+            _ => Diagnostic::error(pos, self.message.clone()),
+        };
+        let kind = match self.kind {
+            SyntaxKind::Syntax => Kind::Grammar {
+                found_at: self.found_at,
+            },
+            _ => Kind::Other,
+        };
+        d.with_help(self.kind.help())
+            .in_stage(self.stage)
+            .of_kind(kind)
     }
 }

@@ -96,6 +96,10 @@ pub struct PairArgs {
     /// Leave input bits that exist on one side only free (the verdict then covers all their values).
     #[arg(long)]
     pub free_extra_inputs: bool,
+    /// Require the candidate to match an `x` of the reference for every value it takes (by
+    /// default, where a reference output is `x` the candidate may do anything).
+    #[arg(long)]
+    pub strict_unknowns: bool,
     /// Include directories and macros for the Verilog preprocessor (both designs).
     #[command(flatten)]
     pub pre: super::common::PreprocArgs,
@@ -287,6 +291,7 @@ pub fn run(a: &ProveArgs) -> Exit {
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: !a.json && std::io::stderr().is_terminal(),
+            strict_unknowns: a.pair.strict_unknowns,
         },
         diagnosis: match &a.select {
             Some(b) => DiagnosisRequest::Select(b.clone()),
@@ -374,6 +379,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: false,
+            strict_unknowns: a.pair.strict_unknowns,
         },
         diagnosis: DiagnosisRequest::Off,
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
@@ -411,7 +417,13 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         eprintln!("error: cnf writes the miter of combinational designs, and {} has registers\n  help: use `prove` for clocked designs", if r.is_clocked() { &r.name } else { &c.name });
         return Exit::BadInput;
     }
-    let miter = match check::miter_cnf(&r, &c, a.pair.pair_by.into(), a.pair.free_extra_inputs) {
+    let miter = match check::miter_cnf(
+        &r,
+        &c,
+        a.pair.pair_by.into(),
+        a.pair.free_extra_inputs,
+        a.pair.strict_unknowns,
+    ) {
         Ok(m) => m,
         Err(e) => return report_input_error(&e),
     };
@@ -488,5 +500,11 @@ fn stamp_run(stamp: &mut crate::shard::ShardStamp, a: &ProveArgs) {
         a.assume,
         p.ref_also.len()
     );
+    // The strict reading changes verdicts; it joins the text only when set, so that the
+    // fingerprints of runs without it stay as they were.
+    let options = match p.strict_unknowns {
+        true => options + "|strict-unknowns",
+        false => options,
+    };
     stamp.options = crate::shard::fingerprint([options.as_bytes()]);
 }

@@ -119,7 +119,14 @@ pub fn diagnose(
         for &(ri, ci) in &differing {
             let rt = routes::route_table(r, ri, bus, rs, constraints.0, limits);
             let ct = routes::route_table(c, ci, bus, cs, constraints.1, limits);
-            let (differing_values, undecided_values) = split_values(&rt.routes, &ct.routes);
+            let (mut differing_values, undecided_values) = split_values(&rt.routes, &ct.routes);
+            // Where the reference follows one of its unknown values and unknowns are
+            // don't-cares, the candidate may do anything: not a difference.
+            if rep.dont_care_pairs > 0 {
+                differing_values.retain(
+                    |&v| !matches!(&rt.routes[v], Route::Input { name, .. } if is_unknown(r, name)),
+                );
+            }
             routes_out.push(RouteDiff {
                 reference: r.outputs[ri].name.clone(),
                 candidate: c.outputs[ci].name.clone(),

@@ -34,9 +34,13 @@ pub fn miter_cnf(
     c: &Design,
     pair_by: PairBy,
     free_extra_inputs: bool,
+    strict_unknowns: bool,
     assumptions: &[String],
 ) -> Result<MiterCnf, InputError> {
     let mut shared = engine::pair(r, c, pair_by, free_extra_inputs)?;
+    if !strict_unknowns {
+        engine::dont_care::apply(&mut shared, r);
+    }
     crate::assume::apply_to_shared(&mut shared, r, c, assumptions)?;
     let mut f = varisat::CnfFormula::new();
     let mut ts = Tseitin::new();
@@ -68,8 +72,12 @@ pub fn miter_cnf(
         let d = f.fresh();
         crate::cnf::xor_iff(&mut f, d, x, y);
         let (ri, ci) = shared.pairs[p];
+        let dc = match shared.dont_care[p] {
+            true => ", only where the reference is defined",
+            false => "",
+        };
         comments.push(format!(
-            "pair {} reference {} candidate {} (differs when true)",
+            "pair {} reference {} candidate {} (differs when true{dc})",
             dimacs::dimacs_number(d),
             r.outputs[ri].name,
             c.outputs[ci].name

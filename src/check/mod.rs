@@ -175,6 +175,9 @@ pub fn check_shard(
     // The session's clock: the engine, the diagnosis and the certificate share the budget.
     let deadline = Limits::new(opts.timeout, None);
     let mut shared = engine::pair(r, c, opts.pair_by, opts.free_extra_inputs)?;
+    if !opts.strict_unknowns {
+        engine::dont_care::apply(&mut shared, r);
+    }
     crate::assume::apply_to_shared(&mut shared, r, c, &req.assumptions)?;
     let stamp = shard.map(|s| crate::shard::restrict(&mut shared, s));
     let kept = (req.certificate.is_some() || req.explain.is_some() || req.keep_pairing)
@@ -369,7 +372,7 @@ mod tests {
     #[test]
     fn the_miter_formula_names_inputs_and_pairs() {
         let (r, c) = selectors();
-        let m = miter_cnf(&r, &c, crate::engine::PairBy::Name, false, &[]).expect("pairs");
+        let m = miter_cnf(&r, &c, crate::engine::PairBy::Name, false, false, &[]).expect("pairs");
         let text = String::from_utf8(m.to_dimacs()).expect("utf-8");
         assert!(text.contains("c input "), "{text}");
         assert_eq!(text.matches("c pair ").count(), 2, "{text}");

@@ -96,6 +96,10 @@ pub struct PairArgs {
     /// Leave input bits that exist on one side only free (the verdict then covers all their values).
     #[arg(long)]
     pub free_extra_inputs: bool,
+    /// Require the candidate to match an `x` of the reference for every value it takes (by
+    /// default, where a reference output is `x` the candidate may do anything).
+    #[arg(long)]
+    pub strict_unknowns: bool,
     /// Include directories and macros for the Verilog preprocessor (both designs).
     #[command(flatten)]
     pub pre: super::common::PreprocArgs,
@@ -227,6 +231,11 @@ pub struct ProveArgs {
     /// does not prove every output pair.
     #[arg(long, value_name = "K", default_value_t = 20)]
     cycles: usize,
+    /// Clocked designs: the deepest k-induction step tried on output pairs the register pairing
+    /// leaves open (0: none; default: 8 when both designs have at most 4,096 register bits
+    /// together; at most --cycles, the unrolling being its base case).
+    #[arg(long, value_name = "K")]
+    k_induction: Option<usize>,
     /// Clocked designs: how registers without a reset start (`0` is the usual convention for
     /// the ISCAS-89 circuits).
     #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
@@ -299,6 +308,7 @@ pub fn run(a: &ProveArgs) -> Exit {
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: !a.json && std::io::stderr().is_terminal(),
+            strict_unknowns: a.pair.strict_unknowns,
         },
         diagnosis: match &a.select {
             _ if a.diagnosis_time == 0.0 => DiagnosisRequest::Off,
@@ -388,6 +398,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: false,
+            strict_unknowns: a.pair.strict_unknowns,
         },
         diagnosis: DiagnosisRequest::Off,
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
@@ -398,6 +409,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
     let settings = check::ClockedSettings {
         cycles: a.cycles,
         init_unset: a.init_unset.into(),
+        k_induction: a.k_induction,
     };
     let mut rf = vec![a.pair.reference.clone()];
     rf.extend(a.pair.ref_also.iter().cloned());
@@ -430,6 +442,7 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         &c,
         a.pair.pair_by.into(),
         a.pair.free_extra_inputs,
+        a.pair.strict_unknowns,
         &a.assume,
     ) {
         Ok(m) => m,
@@ -508,5 +521,11 @@ fn stamp_run(stamp: &mut crate::shard::ShardStamp, a: &ProveArgs) {
         a.assume,
         p.ref_also.len()
     );
+    // The strict reading changes verdicts; it joins the text only when set, so that the
+    // fingerprints of runs without it stay as they were.
+    let options = match p.strict_unknowns {
+        true => options + "|strict-unknowns",
+        false => options,
+    };
     stamp.options = crate::shard::fingerprint([options.as_bytes()]);
 }

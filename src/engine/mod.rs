@@ -10,6 +10,7 @@
 mod bdd;
 mod classes;
 pub mod counterexample;
+pub mod dont_care;
 mod exhaustive;
 mod monolithic;
 pub mod pair_runs;
@@ -68,13 +69,14 @@ pub enum EngineKind {
 
 impl EngineKind {
     /// Every engine, in the order of the command line's list.
-    pub const ALL: [EngineKind; 6] = [
+    pub const ALL: [EngineKind; 7] = [
         EngineKind::Portfolio,
         EngineKind::Sweep,
         EngineKind::Plain,
         EngineKind::Pairs,
         EngineKind::Exhaustive,
         EngineKind::Bdd,
+        EngineKind::Algebra,
     ];
 
     /// Name used in reports.
@@ -124,6 +126,9 @@ pub struct ProveOptions {
     pub jobs: usize,
     /// Show a progress line on standard error.
     pub progress: bool,
+    /// Read an `x` of the reference strictly: the candidate must match it for every value it
+    /// takes (false: where the reference output is `x` it is a don't-care).
+    pub strict_unknowns: bool,
 }
 
 impl Default for ProveOptions {
@@ -138,6 +143,7 @@ impl Default for ProveOptions {
             sim_words: None,
             jobs: 0,
             progress: false,
+            strict_unknowns: false,
         }
     }
 }
@@ -172,13 +178,11 @@ pub fn prove(
     candidate: &Design,
     opts: &ProveOptions,
 ) -> Result<ProveReport, ProveError> {
-    prove_shared(
-        reference,
-        candidate,
-        pair(reference, candidate, opts.pair_by, opts.free_extra_inputs)?,
-        &[],
-        opts,
-    )
+    let mut shared = pair(reference, candidate, opts.pair_by, opts.free_extra_inputs)?;
+    if !opts.strict_unknowns {
+        dont_care::apply(&mut shared, reference);
+    }
+    prove_shared(reference, candidate, shared, &[], opts)
 }
 
 /// Prove with an already built shared AIG (e.g. with assumptions in `shared.constraint`).
@@ -389,6 +393,7 @@ pub fn prove_shared(
         warnings,
         scope: Scope::ZeroDelayLogic,
         unknowns: unknowns::sources(r, c),
+        dont_care_pairs: shared.dont_care.iter().filter(|&&d| d).count(),
     })
 }
 

@@ -311,6 +311,14 @@ pub struct ProveReport {
     pub scope: Scope,
     /// Where either design reads unknown values (`side: file:line:col: what`).
     pub unknowns: Vec<String>,
+    /// Output pairs whose reference output may be `x` and that were compared only where it is
+    /// defined (0 under `--strict-unknowns`; omitted from JSON when 0).
+    #[serde(skip_serializing_if = "is_zero")]
+    pub dont_care_pairs: usize,
+}
+
+fn is_zero(n: &usize) -> bool {
+    *n == 0
 }
 
 /// What a proof of combinational logic covers, for every report.

@@ -59,6 +59,14 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
             let _ = writeln!(s, "            {}", crate::engine::unknowns::ADVICE);
         }
     }
+    if r.dont_care_pairs > 0 {
+        let n = r.dont_care_pairs;
+        let _ = writeln!(
+            s,
+            "don't-care  {n} output pair{} where the reference may be x: compared only where it is defined (the candidate may do anything else; --strict-unknowns requires a match)",
+            plural(n)
+        );
+    }
     let methods = |v: Verdict| {
         let mut parts = Vec::new();
         for m in [

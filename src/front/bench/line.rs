@@ -175,8 +175,17 @@ pub(super) fn parse_line<'t>(
                 true => CellKind::Buf,
                 false => gate_kind(gname).ok_or_else(|| unknown_gate(gname, &gpos))?,
             };
-            cur.expect('(', "after the gate type")?;
             fanin.clear();
+            if let Some(kind) = constant_kind(gname) {
+                // `y = VDD` or `y = VDD()`: a constant, stored as a gate with no inputs.
+                if cur.peek() == Some('(') {
+                    cur.at += 1;
+                    cur.expect(')', "after a constant: it takes no inputs")?;
+                }
+                cur.expect_end()?;
+                return Ok(Stmt::Gate(first, first_at, kind));
+            }
+            cur.expect('(', "after the gate type")?;
             if cur.peek() != Some(')') {
                 loop {
                     let arg = cur.name().ok_or_else(|| {
@@ -238,8 +247,26 @@ fn gate_kind(name: &str) -> Option<CellKind> {
         "XNOR" => CellKind::Xnor,
         "NOT" => CellKind::Not,
         "BUF" | "BUFF" => CellKind::Buf,
+        // `MUX(s, a, b)` is `s ? a : b`: the select first, then the input taken when it is 1,
+        // then the one taken when it is 0 (the order of Verilog's `s ? a : b`).
+        "MUX" => CellKind::Mux2,
+        // Constants: an AND of no inputs is 1, an OR of no inputs is 0 (see `constant_kind`).
+        "VDD" => CellKind::And,
+        "GND" => CellKind::Or,
         _ => return None,
     })
+}
+
+/// The gate a constant keyword stands for: `VDD` (1) is an AND of no inputs, `GND` (0) an OR of
+/// no inputs; every evaluator of the netlist gives those values for an empty fan-in.
+pub(super) fn constant_kind(name: &str) -> Option<CellKind> {
+    if name.eq_ignore_ascii_case("VDD") {
+        Some(CellKind::And)
+    } else if name.eq_ignore_ascii_case("GND") {
+        Some(CellKind::Or)
+    } else {
+        None
+    }
 }
 
 fn unknown_gate(name: &str, pos: &SourcePos) -> Diagnostic {
@@ -252,13 +279,14 @@ fn unknown_gate(name: &str, pos: &SourcePos) -> Diagnostic {
         .with_help("equicone reads edge-triggered flip-flops (`q = DFF(d)`) but not level-sensitive latches; replace the latch with a DFF or cut the design there")
     } else {
         Diagnostic::error(Some(pos.clone()), format!("unknown gate type `{name}`"))
-            .with_help("known gates: AND NAND OR NOR XOR XNOR NOT BUF BUFF (any case)")
+            .with_help("known gates: AND NAND OR NOR XOR XNOR NOT BUF BUFF MUX DFF and the constants VDD GND (any case)")
     }
 }
 
 fn check_arity(kind: CellKind, name: &str, n: usize, pos: &SourcePos) -> Result<(), Diagnostic> {
     let ok = match kind {
         CellKind::Not | CellKind::Buf => n == 1,
+        CellKind::Mux2 => n == 3,
         _ => n >= 1,
     };
     if ok {
@@ -266,6 +294,7 @@ fn check_arity(kind: CellKind, name: &str, n: usize, pos: &SourcePos) -> Result<
     }
     let want = match kind {
         CellKind::Not | CellKind::Buf => "exactly 1 input".to_string(),
+        CellKind::Mux2 => "exactly 3 inputs".to_string(),
         _ => "at least 1 input".to_string(),
     };
     Err(Diagnostic::error(
@@ -276,6 +305,7 @@ fn check_arity(kind: CellKind, name: &str, n: usize, pos: &SourcePos) -> Result<
         CellKind::Not | CellKind::Buf => {
             "an inverter or buffer takes one signal, e.g. `y = NOT(a)`"
         }
+        CellKind::Mux2 => "a 2:1 selector takes the select, then the input for select 1, then the input for select 0: `y = MUX(s, a, b)` is `s ? a : b`",
         _ => "list the gate's inputs, e.g. `y = AND(a, b)`",
     }))
 }

@@ -81,7 +81,7 @@ pub(super) fn run_engine(
                     portfolio::Stage::Sweep,
                 ],
             };
-            let buses = words::output_buses(r, c, &shared);
+            let buses = words::output_buses(r, c, shared);
             let cx = portfolio::Context {
                 aig: &shared.aig,
                 pairs: queries,
@@ -89,8 +89,8 @@ pub(super) fn run_engine(
                 seed: opts.seed,
                 words: opts.sim_words,
                 jobs: opts.jobs,
-                limits: limits,
-                progress: progress,
+                limits,
+                progress,
                 buses: &buses,
                 arithmetic_only: opts.engine != EngineKind::Algebra,
             };
@@ -246,10 +246,7 @@ mod tests {
         let mut outcomes = vec![None, Some(PairVerdict::Undecided(StopReason::Timeout))];
         let mut cexs = Vec::new();
         apply_findings(
-            vec![
-                None,
-                Some(Finding::Differ(Method::Sat, vec![false, true])),
-            ],
+            vec![None, Some(Finding::Differ(Method::Sat, vec![false, true]))],
             &shared,
             &r,
             &c,
@@ -285,7 +282,10 @@ mod tests {
             counterexample: 0,
         });
         assert_eq!(overall_verdict(&[]), Verdict::Equivalent);
-        assert_eq!(overall_verdict(&[eq.clone()]), Verdict::Equivalent);
+        assert_eq!(
+            overall_verdict(std::slice::from_ref(&eq)),
+            Verdict::Equivalent
+        );
         assert_eq!(
             overall_verdict(&[eq.clone(), open.clone()]),
             Verdict::Undecided

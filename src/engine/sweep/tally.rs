@@ -75,7 +75,7 @@ mod tests {
 
     #[test]
     fn slots_are_distinct_and_in_range() {
-        let mut seen = vec![false; SLOTS];
+        let mut seen = [false; SLOTS];
         let mut all: Vec<usize> = [TINY, SMALL, LARGE]
             .iter()
             .flat_map(|&s| [EQUAL, REFUTED, PARTIAL, UNKNOWN].map(|k| slot(s, k)))

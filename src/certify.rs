@@ -45,11 +45,13 @@ pub enum NoCertificate {
     Satisfiable,
 }
 
-/// Build the certificate for the output pairs `pairs` (indices into `shared.pairs`).
+/// Build the certificate for the output pairs `pairs` (indices into `shared.pairs`);
+/// `assumptions` are the texts of the constraint built into `shared`, recorded as comments.
 pub fn certify(
     r: &Design,
     c: &Design,
     shared: &Shared,
+    assumptions: &[String],
     pairs: &[usize],
     format: ProofFormat,
     limits: &Limits,
@@ -88,13 +90,48 @@ pub fn certify(
         }
         let a = ta.lit(&shared.aig, &mut f, shared.constraint);
         f.clause(&[a]);
+        comments.extend(crate::cnf::dimacs::assumption_comments(assumptions, a));
+    }
+    // Pairs with a don't-care region: the reference's three-valued rails (its unknowns at x),
+    // in a graph of their own over the reference's inputs; such a pair differs only where
+    // the reference is defined.
+    let dc: Vec<usize> = pairs
+        .iter()
+        .copied()
+        .filter(|&p| shared.dont_care.get(p) == Some(&true))
+        .collect();
+    let mut rails = crate::aig::Aig::new();
+    let rail_inputs: Vec<Lit> = (0..r.aig.num_inputs()).map(|_| rails.add_input()).collect();
+    let unknown: Vec<bool> = r.inputs.iter().map(|b| b.is_unknown()).collect();
+    let dc_roots: Vec<Lit> = dc
+        .iter()
+        .map(|&p| r.outputs[shared.pairs[p].0].lit)
+        .collect();
+    let dc_lits = crate::engine::dont_care::import_ternary(
+        &mut rails,
+        &r.aig,
+        &rail_inputs,
+        &unknown,
+        &dc_roots,
+    );
+    let mut tt = Tseitin::new();
+    for (i, &k) in shared.ref_input.iter().enumerate() {
+        tt.bind(rails.inputs()[i], vars[k]);
     }
     let mut any = Vec::with_capacity(pairs.len());
     for &p in pairs {
         let (ri, ci) = shared.pairs[p];
-        let x = tr.lit(&r.aig, &mut f, r.outputs[ri].lit);
         let y = tc.lit(&c.aig, &mut f, c.outputs[ci].lit);
         let d = f.fresh();
+        let x = match dc.iter().position(|&q| q == p) {
+            Some(k) => {
+                let (value, defined) = dc_lits[k];
+                let def = tt.lit(&rails, &mut f, defined);
+                f.clause(&[!d, def]);
+                tt.lit(&rails, &mut f, value)
+            }
+            None => tr.lit(&r.aig, &mut f, r.outputs[ri].lit),
+        };
         crate::cnf::xor_if(&mut f, d, x, y);
         comments.push(format!(
             "pair {} reference {} candidate {} (differs when true)",

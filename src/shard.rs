@@ -89,6 +89,7 @@ pub(crate) fn restrict(shared: &mut crate::engine::Shared, shard: Shard) -> Shar
     shared.pairs = keep.iter().map(|&i| shared.pairs[i]).collect();
     shared.ref_lits = keep.iter().map(|&i| shared.ref_lits[i]).collect();
     shared.cand_lits = keep.iter().map(|&i| shared.cand_lits[i]).collect();
+    shared.dont_care = keep.iter().map(|&i| shared.dont_care[i]).collect();
     ShardStamp {
         index: shard.index,
         count: shard.count,

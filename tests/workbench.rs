@@ -58,14 +58,24 @@ fn every_selector_style_equals_the_spec() {
     eprintln!("{proofs} selector proofs");
 }
 
-/// Without the range assumption, a non-power-of-two spec reads x for out-of-range selects, which
-/// a candidate cannot match for every value: the tool says different rather than equivalent.
+/// Without the range assumption, a non-power-of-two spec reads x for out-of-range selects. By
+/// default that x is a don't-care (equal, one pair per output bit counted); under the strict
+/// reading a candidate cannot match it for every value: the tool says different.
 #[test]
-fn out_of_range_selects_need_the_assumption() {
+fn out_of_range_selects_are_dont_cares_unless_strict() {
     let (_, spec) = verilog(&GenSpec::new(Kind::Selector, Style::Spec, 12));
     let (_, cand) = verilog(&GenSpec::new(Kind::Selector, Style::Tree, 12));
     let rep = prove(&spec, &cand, &[]);
+    assert_eq!(rep.verdict, Verdict::Equivalent);
+    assert_eq!(rep.dont_care_pairs, spec.outputs.len());
+    let mut req = CheckRequest {
+        diagnosis: DiagnosisRequest::Off,
+        ..CheckRequest::new(&spec, &cand)
+    };
+    req.options.strict_unknowns = true;
+    let rep = check(&req).unwrap_or_else(|e| panic!("{e}")).report;
     assert_eq!(rep.verdict, Verdict::Different);
+    assert_eq!(rep.dont_care_pairs, 0);
     let s: u32 = rep.counterexamples[0]
         .inputs
         .iter()

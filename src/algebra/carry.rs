@@ -54,6 +54,9 @@ enum Term {
 struct Pos {
     p: Lit,
     g: Lit,
+    /// Whether this position put p (g) into the base values.
+    own_p: bool,
+    own_g: bool,
 }
 
 struct Scan<'a> {
@@ -226,28 +229,100 @@ impl Scan<'_> {
             .map(|v| v.map(|(neg, t)| (neg ^ l.is_complemented(), t)))
     }
 
-    fn define(&mut self, k: u32, p: Lit) {
-        let g = xor_pair(self.aig, p)
+    /// The generate beside propagate `p`: the AND of the operands of its XOR, if the graph
+    /// has it (FALSE otherwise).
+    fn generate_of(&self, p: Lit) -> Lit {
+        xor_pair(self.aig, p)
             .and_then(|(x, y)| {
                 self.aig
                     .find_and(x, y)
                     .or_else(|| self.aig.find_and(!x, !y))
             })
-            .unwrap_or(Lit::FALSE);
+            .unwrap_or(Lit::FALSE)
+    }
+
+    /// A chain start with a carry-in of 1 (a subtractor's a + ~b + 1): the bit is NOT p, and
+    /// the carry out of the position, g | p, is in the graph; it takes the place of g.
+    fn carry_in_start(&self, bit: Lit) -> Option<(Lit, Lit)> {
+        let p = !bit;
+        let (x, y) = xor_pair(self.aig, p)?;
+        [self.aig.find_and(x, y), self.aig.find_and(!x, !y)]
+            .into_iter()
+            .flatten()
+            .find_map(|g| self.aig.find_and(!g, !p).map(|n| !n))
+            .filter(|c| !c.is_const())
+            .map(|c| (p, c))
+    }
+
+    /// Define position k with propagate `p` and generate `g`.
+    fn define(&mut self, k: u32, p: Lit, g: Lit) {
         while self.pos.len() <= k as usize {
             self.pos.push(None);
         }
-        self.pos[k as usize] = Some(Pos { p, g });
-        self.base.entry(p).or_insert(Term::P { hi: k, lo: k });
-        if g != Lit::FALSE && !g.is_const() {
-            let t = self.canon(Term::Pg {
+        let own_p = !self.base.contains_key(&p);
+        if own_p {
+            self.base.insert(p, Term::P { hi: k, lo: k });
+        }
+        let mut own_g = false;
+        if g != Lit::FALSE && !g.is_const() && !self.base.contains_key(&g) {
+            let t = Term::Pg {
                 p: None,
                 gh: k,
                 gl: k,
-            });
-            self.base.entry(g).or_insert(t);
+            };
+            // Canonical with the positions below (set first so that `canon` sees them).
+            self.pos[k as usize] = Some(Pos { p, g, own_p, own_g });
+            let t = self.canon(t);
+            self.base.insert(g, t);
+            own_g = true;
+        }
+        self.pos[k as usize] = Some(Pos { p, g, own_p, own_g });
+    }
+
+    /// Forget position k (its base literals and every value computed since).
+    fn undefine(&mut self, k: u32) {
+        if let Some(Some(pos)) = self.pos.get(k as usize).copied() {
+            if pos.own_p {
+                self.base.remove(&pos.p);
+            }
+            if pos.own_g {
+                self.base.remove(&pos.g);
+            }
+        }
+        if let Some(slot) = self.pos.get_mut(k as usize) {
+            *slot = None;
+        }
+        self.memo.clear();
+    }
+
+    /// Bit k continuing the chain started at `start`: `Sum(carry, p)` when the bit is
+    /// p ^ carry with carry = G(k-1, start), `Out(carry)` when the bit itself is that carry.
+    fn extend(&mut self, k: u32, start: u32, bit: Lit) -> Option<Ext> {
+        let want = self.canon(Term::Pg {
+            p: None,
+            gh: k - 1,
+            gl: start,
+        });
+        if let Some((x, y)) = xor_pair(self.aig, bit) {
+            for (c, p) in [(x, y), (y, x)] {
+                if let Some((neg, t)) = self.eval(c) {
+                    if t == want {
+                        return Some(Ext::Sum(c.xor_complement(neg), p.xor_complement(neg)));
+                    }
+                }
+            }
+        }
+        match self.eval(bit) {
+            Some((neg, t)) if t == want => Some(Ext::Out(bit.xor_complement(neg))),
+            _ => None,
         }
     }
+}
+
+/// How a bit continues a chain.
+enum Ext {
+    Sum(Lit, Lit),
+    Out(Lit),
 }
 
 /// The local function of a literal: its two-leaf XOR or AND over fan-in nodes, or itself.
@@ -344,46 +419,46 @@ pub fn functional_cuts(aig: &Aig, word: &[Lit]) -> Vec<FunctionalCut> {
     for (k, &bit) in word.iter().enumerate() {
         let k = k as u32;
         if let Some((start, prev_carry)) = chain.take() {
-            let want = s.canon(Term::Pg {
-                p: None,
-                gh: k - 1,
-                gl: start,
-            });
-            let prev = s.pos[(k - 1) as usize].expect("chain position defined");
-            let mut extended = None;
-            if let Some((x, y)) = xor_pair(aig, bit) {
-                for (c, p) in [(x, y), (y, x)] {
-                    if let Some((neg, t)) = s.eval(c) {
-                        if t == want {
-                            extended = Some((c.xor_complement(neg), p.xor_complement(neg)));
-                            break;
-                        }
+            let mut ext = s.extend(k, start, bit);
+            if ext.is_none() && k == start + 1 {
+                // Try the chain's first bit with a carry-in of 1.
+                let first = word[start as usize];
+                if let Some((p, g)) = s.carry_in_start(first) {
+                    s.undefine(start);
+                    s.define(start, p, g);
+                    ext = s.extend(k, start, bit);
+                    if ext.is_none() {
+                        s.undefine(start);
+                        let g = s.generate_of(first);
+                        s.define(start, first, g);
                     }
                 }
             }
-            if let Some((carry, p)) = extended {
-                // carry = G(k-1, start); bit = p ^ carry.
-                if let Some(pc) = prev_carry {
-                    out.push(cut_of(aig, carry, prev.g, prev.p, pc, carry_cut));
-                }
-                s.define(k, p);
-                let here = s.pos[k as usize].expect("just defined");
-                out.push(cut_of(aig, bit, here.g, here.p, carry, sum_cut));
-                chain = Some((start, Some(carry)));
-                continue;
-            }
-            if let Some((neg, t)) = s.eval(bit) {
-                if t == want {
+            let prev = s.pos[(k - 1) as usize].expect("chain position defined");
+            match ext {
+                Some(Ext::Sum(carry, p)) => {
+                    // carry = G(k-1, start); bit = p ^ carry.
                     if let Some(pc) = prev_carry {
-                        let carry = bit.xor_complement(neg);
+                        out.push(cut_of(aig, carry, prev.g, prev.p, pc, carry_cut));
+                    }
+                    let g = s.generate_of(p);
+                    s.define(k, p, g);
+                    out.push(cut_of(aig, bit, g, p, carry, sum_cut));
+                    chain = Some((start, Some(carry)));
+                    continue;
+                }
+                Some(Ext::Out(carry)) => {
+                    if let Some(pc) = prev_carry {
                         out.push(cut_of(aig, carry, prev.g, prev.p, pc, carry_cut));
                     }
                     continue;
                 }
+                None => {}
             }
         }
         if !bit.is_const() {
-            s.define(k, bit);
+            let g = s.generate_of(bit);
+            s.define(k, bit, g);
             chain = Some((k, None));
         }
     }

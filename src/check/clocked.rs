@@ -15,6 +15,8 @@ pub struct ClockedSettings {
     pub cycles: usize,
     /// How registers without a reset start.
     pub init_unset: InitUnset,
+    /// Deepest k-induction step (`None`: the default of [`SeqOptions`]).
+    pub k_induction: Option<usize>,
 }
 
 impl Default for ClockedSettings {
@@ -22,6 +24,7 @@ impl Default for ClockedSettings {
         ClockedSettings {
             cycles: SeqOptions::default().cycles,
             init_unset: InitUnset::Free,
+            k_induction: None,
         }
     }
 }
@@ -58,6 +61,7 @@ pub fn check_clocked(
         init_unset: settings.init_unset,
         free_extra_inputs: req.options.free_extra_inputs,
         limits: Limits::new(req.options.timeout, req.options.conflict_limit),
+        k_induction: settings.k_induction,
         ..SeqOptions::default()
     };
     seq::check(req.reference, req.candidate, &o).map_err(|e| match e {

@@ -26,14 +26,22 @@ impl MiterCnf {
     }
 }
 
-/// Pair `r` and `c` and build their miter.
+/// Pair `r` and `c` and build their miter, asserting the conjunction of `assumptions` (Verilog
+/// expressions over the input ports, as `--assume` takes them) by a unit clause that the
+/// comments name.
 pub fn miter_cnf(
     r: &Design,
     c: &Design,
     pair_by: PairBy,
     free_extra_inputs: bool,
+    strict_unknowns: bool,
+    assumptions: &[String],
 ) -> Result<MiterCnf, InputError> {
-    let shared = engine::pair(r, c, pair_by, free_extra_inputs)?;
+    let mut shared = engine::pair(r, c, pair_by, free_extra_inputs)?;
+    if !strict_unknowns {
+        engine::dont_care::apply(&mut shared, r);
+    }
+    crate::assume::apply_to_shared(&mut shared, r, c, assumptions)?;
     let mut f = varisat::CnfFormula::new();
     let mut ts = Tseitin::new();
     let mut xors = Vec::new();
@@ -53,14 +61,23 @@ pub fn miter_cnf(
             side.only_note()
         ));
     }
+    if shared.constraint != crate::aig::Lit::TRUE {
+        let a = ts.lit(&shared.aig, &mut f, shared.constraint);
+        f.clause(&[a]);
+        comments.extend(dimacs::assumption_comments(assumptions, a));
+    }
     for p in 0..shared.pairs.len() {
         let x = ts.lit(&shared.aig, &mut f, shared.ref_lits[p]);
         let y = ts.lit(&shared.aig, &mut f, shared.cand_lits[p]);
         let d = f.fresh();
         crate::cnf::xor_iff(&mut f, d, x, y);
         let (ri, ci) = shared.pairs[p];
+        let dc = match shared.dont_care[p] {
+            true => ", only where the reference is defined",
+            false => "",
+        };
         comments.push(format!(
-            "pair {} reference {} candidate {} (differs when true)",
+            "pair {} reference {} candidate {} (differs when true{dc})",
             dimacs::dimacs_number(d),
             r.outputs[ri].name,
             c.outputs[ci].name

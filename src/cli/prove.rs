@@ -96,6 +96,10 @@ pub struct PairArgs {
     /// Leave input bits that exist on one side only free (the verdict then covers all their values).
     #[arg(long)]
     pub free_extra_inputs: bool,
+    /// Require the candidate to match an `x` of the reference for every value it takes (by
+    /// default, where a reference output is `x` the candidate may do anything).
+    #[arg(long)]
+    pub strict_unknowns: bool,
     /// Include directories and macros for the Verilog preprocessor (both designs).
     #[command(flatten)]
     pub pre: super::common::PreprocArgs,
@@ -212,12 +216,26 @@ pub struct ProveArgs {
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
     select: Option<String>,
+    /// Seconds the diagnosis of a difference (supports, route tables) may take at most, within
+    /// the run's --timeout; 0 turns it off. A diagnosis cut short is reported as partial.
+    #[arg(
+        long,
+        value_name = "SECONDS",
+        default_value_t = 10.0,
+        allow_negative_numbers = true
+    )]
+    diagnosis_time: f64,
     #[command(flatten)]
     replay: super::replay::ReplayArgs,
     /// Clocked designs: cycles from reset searched for a difference when the register pairing
     /// does not prove every output pair.
     #[arg(long, value_name = "K", default_value_t = 20)]
     cycles: usize,
+    /// Clocked designs: the deepest k-induction step tried on output pairs the register pairing
+    /// leaves open (0: none; default: 8 when both designs have at most 4,096 register bits
+    /// together; at most --cycles, the unrolling being its base case).
+    #[arg(long, value_name = "K")]
+    k_induction: Option<usize>,
     /// Clocked designs: how registers without a reset start (`0` is the usual convention for
     /// the ISCAS-89 circuits).
     #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
@@ -236,6 +254,10 @@ pub struct CnfArgs {
     /// Where to write the DIMACS file.
     #[arg(short = 'o', long = "output", value_name = "FILE")]
     output: String,
+    /// Only input vectors where this Verilog expression over the input ports holds (asserted
+    /// by a unit clause, recorded in the comments; repeatable: all must hold).
+    #[arg(long, value_name = "EXPR")]
+    assume: Vec<String>,
 }
 
 /// Run `prove`: read both designs, hand them to the check session, print its outcome.
@@ -246,6 +268,10 @@ pub fn run(a: &ProveArgs) -> Exit {
         Err(e) => return e,
     };
     let deadline = crate::sat::Limits::new(timeout, None);
+    let diagnosis_time = match super::common::seconds_of("--diagnosis-time", a.diagnosis_time) {
+        Ok(t) => t,
+        Err(e) => return e,
+    };
     // Output paths are checked before any work, so that a long run is not lost to a typo.
     let proof_cnf = a.proof.as_ref().map(|p| format!("{p}.cnf"));
     if let Err(e) = check_writable([
@@ -282,14 +308,17 @@ pub fn run(a: &ProveArgs) -> Exit {
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: !a.json && std::io::stderr().is_terminal(),
+            strict_unknowns: a.pair.strict_unknowns,
         },
         diagnosis: match &a.select {
+            _ if a.diagnosis_time == 0.0 => DiagnosisRequest::Off,
             Some(b) => DiagnosisRequest::Select(b.clone()),
             None => DiagnosisRequest::Auto,
         },
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
         explain: a.replay.cube_limits(),
         keep_pairing: a.replay.wanted(),
+        diagnosis_time: Some(diagnosis_time),
     };
     let shard = match a
         .shard
@@ -369,15 +398,18 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: false,
+            strict_unknowns: a.pair.strict_unknowns,
         },
         diagnosis: DiagnosisRequest::Off,
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
         explain: None,
         keep_pairing: false,
+        diagnosis_time: None,
     };
     let settings = check::ClockedSettings {
         cycles: a.cycles,
         init_unset: a.init_unset.into(),
+        k_induction: a.k_induction,
     };
     let mut rf = vec![a.pair.reference.clone()];
     rf.extend(a.pair.ref_also.iter().cloned());
@@ -405,7 +437,14 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         eprintln!("error: cnf writes the miter of combinational designs, and {} has registers\n  help: use `prove` for clocked designs", if r.is_clocked() { &r.name } else { &c.name });
         return Exit::BadInput;
     }
-    let miter = match check::miter_cnf(&r, &c, a.pair.pair_by.into(), a.pair.free_extra_inputs) {
+    let miter = match check::miter_cnf(
+        &r,
+        &c,
+        a.pair.pair_by.into(),
+        a.pair.free_extra_inputs,
+        a.pair.strict_unknowns,
+        &a.assume,
+    ) {
         Ok(m) => m,
         Err(e) => return report_input_error(&e),
     };
@@ -482,5 +521,11 @@ fn stamp_run(stamp: &mut crate::shard::ShardStamp, a: &ProveArgs) {
         a.assume,
         p.ref_also.len()
     );
+    // The strict reading changes verdicts; it joins the text only when set, so that the
+    // fingerprints of runs without it stay as they were.
+    let options = match p.strict_unknowns {
+        true => options + "|strict-unknowns",
+        false => options,
+    };
     stamp.options = crate::shard::fingerprint([options.as_bytes()]);
 }

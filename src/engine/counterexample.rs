@@ -20,15 +20,30 @@ pub fn confirm(
     let cv: Vec<bool> = shared.cand_input.iter().map(|&k| values[k]).collect();
     let ro = r.eval(&rv);
     let co = c.eval(&cv);
+    // A pair with a don't-care region differs only where the reference's output is defined
+    // (0 or 1 by three-valued simulation with its unknowns at x) and the candidate's is not
+    // that value.
+    let dc_roots: Vec<_> = shared
+        .pairs
+        .iter()
+        .zip(&shared.dont_care)
+        .filter(|(_, &dc)| dc)
+        .map(|(&(ri, _), _)| r.outputs[ri].lit)
+        .collect();
+    let mut defined = crate::engine::dont_care::eval_ternary(r, &rv, &dc_roots).into_iter();
     let mut differing = Vec::new();
     let mut hit = false;
     for (p, &(ri, ci)) in shared.pairs.iter().enumerate() {
-        if ro[ri] != co[ci] {
+        let rvalue = match shared.dont_care.get(p) {
+            Some(true) => defined.next().flatten(),
+            _ => Some(ro[ri]),
+        };
+        if let Some(rvalue) = rvalue.filter(|&v| v != co[ci]) {
             hit |= p == must_differ;
             differing.push(OutputDiff {
                 reference: r.outputs[ri].name.clone(),
                 candidate: c.outputs[ci].name.clone(),
-                reference_value: ro[ri],
+                reference_value: rvalue,
                 candidate_value: co[ci],
             });
         }
@@ -45,13 +60,21 @@ pub fn confirm(
         .iter()
         .enumerate()
         .map(|(k, origin)| {
-            let (bit, side) = match *origin {
-                SharedInput::Both { reference, .. } => (&r.inputs[reference], Side::Both),
-                SharedInput::Reference(i) => (&r.inputs[i], Side::Reference),
-                SharedInput::Candidate(i) => (&c.inputs[i], Side::Candidate),
+            let (bit, side, cand) = match *origin {
+                SharedInput::Both {
+                    reference,
+                    candidate,
+                } => (
+                    &r.inputs[reference],
+                    Side::Both,
+                    Some(&c.inputs[candidate].name).filter(|n| **n != r.inputs[reference].name),
+                ),
+                SharedInput::Reference(i) => (&r.inputs[i], Side::Reference, None),
+                SharedInput::Candidate(i) => (&c.inputs[i], Side::Candidate, None),
             };
             InputValue {
                 name: bit.name.clone(),
+                candidate_name: cand.cloned(),
                 side,
                 unknown: bit.is_unknown(),
                 value: values[k],

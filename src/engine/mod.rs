@@ -10,8 +10,10 @@
 mod bdd;
 mod classes;
 pub mod counterexample;
+pub mod dont_care;
 mod exhaustive;
 mod monolithic;
+pub mod pair_runs;
 pub mod pairing;
 mod pairs;
 mod parallel;
@@ -68,13 +70,14 @@ pub enum EngineKind {
 
 impl EngineKind {
     /// Every engine, in the order of the command line's list.
-    pub const ALL: [EngineKind; 6] = [
+    pub const ALL: [EngineKind; 7] = [
         EngineKind::Portfolio,
         EngineKind::Sweep,
         EngineKind::Plain,
         EngineKind::Pairs,
         EngineKind::Exhaustive,
         EngineKind::Bdd,
+        EngineKind::Algebra,
     ];
 
     /// Name used in reports.
@@ -124,6 +127,9 @@ pub struct ProveOptions {
     pub jobs: usize,
     /// Show a progress line on standard error.
     pub progress: bool,
+    /// Read an `x` of the reference strictly: the candidate must match it for every value it
+    /// takes (false: where the reference output is `x` it is a don't-care).
+    pub strict_unknowns: bool,
 }
 
 impl Default for ProveOptions {
@@ -138,6 +144,7 @@ impl Default for ProveOptions {
             sim_words: None,
             jobs: 0,
             progress: false,
+            strict_unknowns: false,
         }
     }
 }
@@ -172,13 +179,11 @@ pub fn prove(
     candidate: &Design,
     opts: &ProveOptions,
 ) -> Result<ProveReport, ProveError> {
-    prove_shared(
-        reference,
-        candidate,
-        pair(reference, candidate, opts.pair_by, opts.free_extra_inputs)?,
-        &[],
-        opts,
-    )
+    let mut shared = pair(reference, candidate, opts.pair_by, opts.free_extra_inputs)?;
+    if !opts.strict_unknowns {
+        dont_care::apply(&mut shared, reference);
+    }
+    prove_shared(reference, candidate, shared, &[], opts)
 }
 
 /// Prove with an already built shared AIG (e.g. with assumptions in `shared.constraint`).
@@ -235,12 +240,19 @@ pub fn prove_shared(
         })
         .collect();
     let verdict = overall_verdict(&pairs);
-    let warnings = r
+    let ascending_ports = result::AscendingPorts {
+        reference: r.ascending_ports(),
+        candidate: c.ascending_ports(),
+    };
+    let mut warnings: Vec<String> = r
         .warnings
         .iter()
         .chain(&c.warnings)
         .map(|w| w.to_string())
         .collect();
+    if opts.pair_by == PairBy::Name {
+        warnings.extend(direction_warnings(r, c, &ascending_ports));
+    }
     Ok(ProveReport {
         schema: 1,
         verdict,
@@ -250,6 +262,12 @@ pub fn prove_shared(
         engine: opts.engine,
         assumptions: assumptions.to_vec(),
         free_inputs: shared.unmatched.clone(),
+        ascending_ports,
+        paired: if opts.pair_by == PairBy::Position {
+            pair_runs::paired_runs(&shared, r, c)
+        } else {
+            Vec::new()
+        },
         pairs,
         counterexamples: cexs,
         stats: Stats {
@@ -268,7 +286,38 @@ pub fn prove_shared(
         warnings,
         scope: Scope::ZeroDelayLogic,
         unknowns: unknowns::sources(r, c),
+        dont_care_pairs: shared.dont_care.iter().filter(|&&d| d).count(),
     })
+}
+
+/// Buses paired by name that are declared `[7:0]` on one side and `[0:7]` on the other: the
+/// bits of the same index are paired, so the same number means other bits on each side.
+fn direction_warnings(r: &Design, c: &Design, asc: &result::AscendingPorts) -> Vec<String> {
+    let wide = |d: &Design, p: &str| {
+        d.inputs
+            .iter()
+            .filter(|b| b.port == p && b.index.is_some())
+            .count()
+            + d.outputs
+                .iter()
+                .filter(|o| o.port == p && o.index.is_some())
+                .count()
+            > 1
+    };
+    asc.reference
+        .symmetric_difference(&asc.candidate)
+        .filter(|p| wide(r, p) && wide(c, p))
+        .map(|p| {
+            let (rd, cd) = if asc.reference.contains(p) {
+                ("ascending [lo:hi]", "descending [hi:lo]")
+            } else {
+                ("descending [hi:lo]", "ascending [lo:hi]")
+            };
+            format!(
+                "warning: `{p}` is declared {rd} in the reference and {cd} in the candidate: pairing by name pairs the bits of the same index ({p}[0] with {p}[0]), so the most significant bit of one side meets the least significant of the other; to pair by significance, declare both alike or use `--pair-by position` (bits in order, least significant first)"
+            )
+        })
+        .collect()
 }
 
 /// Words of random patterns for a graph of `nodes` nodes: more for small graphs (the words

@@ -91,6 +91,9 @@ pub struct Shared {
     pub ands: (usize, usize),
     /// Port inputs left free because they have no partner.
     pub unmatched: Vec<String>,
+    /// Per output pair: the reference output may be `x`, and the pair compares only where it
+    /// is defined (set by `dont_care::apply`; all false under the strict reading).
+    pub dont_care: Vec<bool>,
 }
 
 impl Shared {
@@ -220,12 +223,13 @@ pub fn pair(r: &Design, c: &Design, by: PairBy, free_extra: bool) -> Result<Shar
         inputs,
         ref_input,
         cand_input,
-        pairs,
         ref_lits,
         cand_lits,
         constraint: Lit::TRUE,
         ands: (r.aig.num_ands(), c.aig.num_ands()),
         unmatched,
+        dont_care: vec![false; pairs.len()],
+        pairs,
     })
 }
 

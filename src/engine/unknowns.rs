@@ -18,4 +18,4 @@ pub fn sources(r: &Design, c: &Design) -> Vec<String> {
 }
 
 /// What an unknown means for the verdict, printed once when there are any.
-pub const ADVICE: &str = "an unknown value is a free input of its design: the other design must match it for every value it can take; if the cases that read it cannot occur, exclude them with --assume EXPR";
+pub const ADVICE: &str = "an unknown of the candidate (and, with --strict-unknowns, of the reference) is a free input of its design: the other design must match it for every value it can take; if the cases that read it cannot occur, exclude them with --assume EXPR";

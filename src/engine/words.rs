@@ -6,6 +6,10 @@
 //! [`MAX_CONE`] AND nodes, at least one AND node in [`MIN_XOR_SHARE`] roots an XOR (a cheap
 //! structural count), and its rewriting units are rich in adder cells and XORs
 //! ([`Prepared::looks_arithmetic`]). `--engine algebra` alone tries every word of any width.
+//! Budgets ([`word_budget`]): a word that looks arithmetic may hold [`TERMS_PER_UNIT`] terms
+//! per rewriting unit (plus [`TERMS_BASE`]); with `--engine algebra` alone, a word that does
+//! not gets [`OTHER_TERMS`] terms and [`OTHER_SECONDS`], so random logic is given back
+//! undecided at once.
 //! Equal polynomials decide every open bit of the word; a bit the remainder tells apart is
 //! different under a vector already re-simulated on the graph (and confirmed on both designs
 //! afterwards, like every counterexample); the rest stays open for the next method.
@@ -32,6 +36,34 @@ pub const MAX_TERMS: usize = 200_000;
 pub const MAX_TERMS_ALONE: usize = 2_000_000;
 /// Wall-clock time one word may take in the portfolio (the run's own deadline still applies).
 pub const WORD_SECONDS: u64 = 10;
+/// Live terms per rewriting unit (plus [`TERMS_BASE`]) before a word is given back: the
+/// polynomial of a multiplier or adder stays below one term per unit while it is rewritten
+/// (measured: 4,224 terms for the 20,222 units of a 64x64 Dadda multiplier, 13,955 for the
+/// 24,913 of a 64x64 Booth one, 12,286 for the 16,379 of a 4096-bit prefix adder), random
+/// logic passes this bound within a few steps.
+pub const TERMS_PER_UNIT: usize = 8;
+/// Terms allowed on top of [`TERMS_PER_UNIT`] per unit.
+pub const TERMS_BASE: usize = 20_000;
+/// With `--engine algebra` alone, terms and seconds allowed for a word that does not look
+/// arithmetic ([`Prepared::looks_arithmetic`]): given back undecided quickly.
+pub const OTHER_TERMS: usize = 20_000;
+/// Seconds for such a word.
+pub const OTHER_SECONDS: f64 = 0.5;
+
+/// The term budget and the time cap of one word.
+fn word_budget(prepared: &Prepared<'_>, arithmetic_only: bool) -> (usize, Option<Duration>) {
+    let scaled = TERMS_BASE + TERMS_PER_UNIT * prepared.units();
+    if arithmetic_only {
+        (
+            scaled.min(MAX_TERMS),
+            Some(Duration::from_secs(WORD_SECONDS)),
+        )
+    } else if prepared.looks_arithmetic() {
+        (scaled.min(MAX_TERMS_ALONE), None)
+    } else {
+        (OTHER_TERMS, Some(Duration::from_secs_f64(OTHER_SECONDS)))
+    }
+}
 
 /// The output pairs grouped by the reference side's bus, each least significant bit first;
 /// scalar outputs are words of one bit. In order of each word's first pair.
@@ -112,16 +144,13 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
             continue;
         }
         let mut deadline = cx.limits.remaining().map(|r| Instant::now() + r);
-        if cx.arithmetic_only {
-            let cap = Instant::now() + Duration::from_secs(WORD_SECONDS);
+        let (max_terms, cap) = word_budget(&prepared, cx.arithmetic_only);
+        if let Some(cap) = cap {
+            let cap = Instant::now() + cap;
             deadline = Some(deadline.map_or(cap, |d| d.min(cap)));
         }
         let limits = Limits {
-            max_terms: if cx.arithmetic_only {
-                MAX_TERMS
-            } else {
-                MAX_TERMS_ALONE
-            },
+            max_terms,
             deadline,
         };
         let check = prepared.check(&limits);

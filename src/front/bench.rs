@@ -1,6 +1,7 @@
 //! Reader for the ISCAS bench format: `INPUT(x)`, `OUTPUT(x)`, `y = GATE(a, b, ...)`, `#` comments.
 //!
-//! Gate keywords match in any case (AND NAND OR NOR XOR XNOR NOT BUF BUFF). Signals may be used
+//! Gate keywords match in any case (AND NAND OR NOR XOR XNOR NOT BUF BUFF, `MUX(s, a, b)` for
+//! `s ? a : b`, and the constants `y = VDD` and `y = GND`). Signals may be used
 //! before they are defined; an output may also be an input. Names may contain any character but
 //! white space and `( ) , = #`, so bit names such as `d[3]` are plain names here. All errors of a
 //! file are collected; elaboration into the AIG is iterative, so a deep chain cannot overflow.
@@ -230,7 +231,7 @@ fn parse_to_netlist(
     for (name, id) in ids {
         signals[number[id as usize] as usize] = name.to_string();
     }
-    let cells = gates
+    let cells: Vec<Cell> = gates
         .iter()
         .map(|g| Cell {
             kind: g.kind,
@@ -250,12 +251,16 @@ fn parse_to_netlist(
         .iter()
         .map(|&(id, pos)| (number[id as usize], pos))
         .collect();
+    // A constant (`VDD`, `GND`) is a cell with no inputs, which cost and delay tables and the
+    // Verilog writer do not describe: the netlist is then kept as partial, as the Verilog
+    // reader keeps one whose gates read supply nets.
+    let has_constant = cells.iter().any(|c: &Cell| c.inputs.is_empty());
     let netlist = Netlist {
         signals,
         cells,
         inputs: inputs.iter().map(|&(s, _)| s).collect(),
         outputs: outputs.iter().map(|&(s, _)| s).collect(),
-        complete: true,
+        complete: !has_constant,
     };
     let dffs = dffs
         .iter()
@@ -557,6 +562,40 @@ mod tests {
         let d = read("\u{feff}INPUT(a)\nOUTPUT(y)\ny = NOT(a)\n").unwrap();
         assert_eq!(d.inputs.len(), 1);
         assert_eq!(d.outputs.len(), 1);
+    }
+
+    /// Issue 15 item 8: `MUX(s, a, b)` is `s ? a : b`; `VDD` and `GND` are 1 and 0, with or
+    /// without `()`, in any case; the netlist with constants is kept as partial.
+    #[test]
+    fn mux_and_constants() {
+        let text = "INPUT(s)\nINPUT(a)\nINPUT(b)\nOUTPUT(y)\nOUTPUT(one)\nOUTPUT(zero)\n\
+                    y = MUX(s, a, b)\none = vdd\nzero = GND()\n";
+        let d = read(text).unwrap();
+        let roots: Vec<Lit> = d.outputs.iter().map(|o| o.lit).collect();
+        for v in 0..8u32 {
+            let ins = [v & 1 != 0, v & 2 != 0, v & 4 != 0];
+            let out = crate::aig::eval(&d.aig, &ins, &roots);
+            let want = if ins[0] { ins[1] } else { ins[2] };
+            assert_eq!(out, vec![want, true, false], "s a b = {ins:?}");
+        }
+        assert!(!d.netlist.as_ref().unwrap().complete);
+        let no_const = read("INPUT(s)\nINPUT(a)\nINPUT(b)\nOUTPUT(y)\ny = mux(s, a, b)\n").unwrap();
+        assert!(no_const.netlist.as_ref().unwrap().complete);
+    }
+
+    #[test]
+    fn mux_arity_and_constant_inputs_are_errors() {
+        let e = read("INPUT(s)\nINPUT(a)\nOUTPUT(y)\ny = MUX(s, a)\n").unwrap_err();
+        let t = e.to_string();
+        assert!(
+            t.contains("4:5") && t.contains("needs exactly 3 inputs"),
+            "{t}"
+        );
+        assert!(t.contains("`y = MUX(s, a, b)` is `s ? a : b`"), "{t}");
+        let e = read("INPUT(a)\nOUTPUT(y)\ny = VDD(a)\n")
+            .unwrap_err()
+            .to_string();
+        assert!(e.contains("3:9") && e.contains("it takes no inputs"), "{e}");
     }
 
     /// Issue 13 A5: a duplicate OUTPUT line is an error naming both lines, whichever side.

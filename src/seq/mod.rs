@@ -2,14 +2,18 @@
 //! product machine (`product.rs`), register bits paired by name and by simulated behaviour from
 //! the reset state (`simulate.rs`, `names.rs`), the pairing refined until it is inductive
 //! (`correspond.rs`, signal correspondence), the output pairs proved under it, and otherwise a
-//! bounded unrolling from reset (`bmc.rs`) for a trace that both designs replay (`trace.rs`).
+//! bounded unrolling from reset (`bmc.rs`) for a trace that both designs replay (`trace.rs`),
+//! then k-induction on what is still open (`kinduct.rs`).
 //!
 //! **Invariant:** `equivalent` only when the pairing is inductive from the reset state and every
-//! output pair is equal under it (UNSAT or equal literals); `different` only with a trace that both
+//! output pair is equal under it (UNSAT or equal literals), or, for the pairs it leaves open, the
+//! k-induction step at some depth k is UNSAT (`kinduct.rs`) and the unrolling from reset found no
+//! difference in its first k cycles; `different` only with a trace that both
 //! original designs replay to the reported first difference.
 
 mod bmc;
 mod correspond;
+mod kinduct;
 mod names;
 mod product;
 mod report;
@@ -18,7 +22,9 @@ mod text;
 mod trace;
 
 pub use product::{HeldInput, InitUnset, Side};
-pub use report::{NameMismatch, OutputStatus, RegisterPair, SeqReport, UnpairedRegister};
+pub use report::{
+    KInductionLine, NameMismatch, OutputStatus, RegisterPair, SeqReport, UnpairedRegister,
+};
 pub use trace::{
     first_difference, replay, FirstDifference, InitialValue, OutputDifference, Replay, Trace,
     TraceCycle, TraceInput, TraceReset,
@@ -47,7 +53,15 @@ pub struct SeqOptions {
     pub sim_words: usize,
     /// Time and conflict limits.
     pub limits: Limits,
+    /// Deepest k-induction step tried on the output pairs the pairing leaves open (`0`: none;
+    /// `None`: [`AUTO_K_INDUCTION`] when the product has at most [`AUTO_K_STATE`] state bits).
+    pub k_induction: Option<usize>,
 }
+
+/// The depth k-induction tries by default.
+pub const AUTO_K_INDUCTION: usize = 8;
+/// The most state bits (both designs) for which k-induction runs by default.
+pub const AUTO_K_STATE: usize = 4096;
 
 impl Default for SeqOptions {
     fn default() -> Self {
@@ -58,6 +72,7 @@ impl Default for SeqOptions {
             sim_cycles: 64,
             sim_words: 4,
             limits: Limits::none(),
+            k_induction: None,
         }
     }
 }
@@ -118,6 +133,7 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     let open_under_cut: Vec<usize> = pending.clone();
     let mut trace = None;
     let mut cycles_checked = 0;
+    let mut clean = false;
     if !pending.is_empty() {
         match bmc::unroll(&mut p, &pending, o.cycles, &o.limits) {
             bmc::Bmc::Found(f) => {
@@ -125,7 +141,10 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
                 trace = Some(confirm(r, c, &p, t, f.cycle)?);
                 cycles_checked = f.cycle;
             }
-            bmc::Bmc::Clean => cycles_checked = o.cycles,
+            bmc::Bmc::Clean => {
+                cycles_checked = o.cycles;
+                clean = true;
+            }
             bmc::Bmc::Stopped(reason, k) => {
                 stopped.get_or_insert(reason);
                 cycles_checked = k;
@@ -144,6 +163,33 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
                     trace = Some(confirm(r, c, &p, t, cycle)?);
                 }
             }
+        }
+    }
+    // k-induction on what the pairing left open; the unrolling is its base case.
+    let mut k_induction = None;
+    if clean {
+        let auto = if p.state.len() <= AUTO_K_STATE {
+            AUTO_K_INDUCTION
+        } else {
+            0
+        };
+        let bound = o.k_induction.unwrap_or(auto).min(cycles_checked);
+        if bound > 0 {
+            let r = kinduct::prove(&mut p, &classes, &pending, bound, &o.limits);
+            let proved_at = match r {
+                kinduct::KInduction::Proved(d) => {
+                    for &k in &pending {
+                        status[k] = OutputStatus::Equivalent("k-induction");
+                    }
+                    Some(d)
+                }
+                kinduct::KInduction::NotInductive(_) => None,
+                kinduct::KInduction::Stopped(reason, _) => {
+                    stopped.get_or_insert(reason);
+                    None
+                }
+            };
+            k_induction = Some(KInductionLine { bound, proved_at });
         }
     }
     if let Some(t) = &trace {
@@ -180,6 +226,7 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
         trace,
         cycles_checked,
         cycles_asked: o.cycles,
+        k_induction,
         stopped,
         init_unset: o.init_unset,
         sim_runs: o.sim_words.max(1) * 64,

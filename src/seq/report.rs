@@ -10,7 +10,7 @@ use super::trace::{replay, Trace};
 use crate::design::Design;
 use crate::engine::Verdict;
 use crate::sat::StopReason;
-use serde::Serialize;
+use serde::{Deserialize, Serialize};
 use std::collections::BTreeMap;
 
 /// A reference register bit paired with a candidate register bit.
@@ -112,6 +112,9 @@ pub struct SeqReport {
     pub cycles_checked: usize,
     /// Cycles asked for (`--cycles`).
     pub cycles_asked: usize,
+    /// k-induction on the output pairs left open, when it ran.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub k_induction: Option<KInductionLine>,
     /// Why a limit stopped part of the check.
     pub stopped: Option<StopReason>,
     /// The trace, for `different`.
@@ -122,6 +125,15 @@ pub struct SeqReport {
     pub trace_outputs: Vec<Vec<(bool, bool)>>,
     /// Seconds taken.
     pub seconds: f64,
+}
+
+/// What k-induction on the open output pairs gave.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize, Deserialize)]
+pub struct KInductionLine {
+    /// The deepest step tried (at most the cycles the unrolling checked, its base case).
+    pub bound: usize,
+    /// The depth at which the step held (the pairs are then proved), if one did.
+    pub proved_at: Option<usize>,
 }
 
 /// A name match found before the pairing is proved.
@@ -186,6 +198,7 @@ pub struct Parts<'a> {
     pub trace: Option<Trace>,
     pub cycles_checked: usize,
     pub cycles_asked: usize,
+    pub k_induction: Option<KInductionLine>,
     pub stopped: Option<StopReason>,
     pub init_unset: InitUnset,
     pub sim_runs: usize,
@@ -386,6 +399,7 @@ pub fn build(x: Parts<'_>) -> SeqReport {
             .collect(),
         cycles_checked: x.cycles_checked,
         cycles_asked: x.cycles_asked,
+        k_induction: x.k_induction,
         stopped: x.stopped,
         trace: x.trace,
         trace_outputs,

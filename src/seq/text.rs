@@ -213,6 +213,27 @@ impl fmt::Display for SeqReport {
                 "not proved under the register pairing: {}",
                 self.open_under_cut.join(", ")
             )?;
+            if let Some(k) = &self.k_induction {
+                match k.proved_at {
+                    Some(d) => {
+                        writeln!(
+                            f,
+                            "proved by k-induction at depth {d}: the unrolling from reset found no difference in cycles 0..{}, and on every loop-free run of {} cycles (register pairs holding) outputs that agree in the first {d} agree in the last",
+                            d.saturating_sub(1),
+                            d + 1
+                        )?;
+                        if let Some(r) = self.stopped {
+                            writeln!(f, "stopped: {r}")?;
+                        }
+                        return writeln!(f, "verdict: {}", self.verdict);
+                    }
+                    None => writeln!(
+                        f,
+                        "k-induction up to depth {} did not prove them (--k-induction K to go deeper)",
+                        k.bound
+                    )?,
+                }
+            }
             writeln!(
                 f,
                 "no difference in the first {} cycles from reset (bounded unrolling; --cycles to check more); this is not a proof",

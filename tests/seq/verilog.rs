@@ -424,6 +424,36 @@ const FSM_BUG: &str = "module MOD(input clk, input rst_n, input x, output z);
 endmodule
 ";
 
+/// The same machine in one-hot encoding (a register per state).
+const FSM_ONEHOT: &str = "module MOD(input clk, input rst_n, input x, output z);
+  reg idle, one, onezero, hit;
+  always @(posedge clk or negedge rst_n)
+    if (!rst_n) begin idle <= 1'b1; one <= 1'b0; onezero <= 1'b0; hit <= 1'b0; end
+    else begin
+      idle <= ~x & (idle | onezero);
+      one <= x & (idle | one | hit);
+      onezero <= ~x & (one | hit);
+      hit <= x & onezero;
+    end
+  assign z = hit;
+endmodule
+";
+
+/// A bug: from a hit, a 0 goes back to idle.
+const FSM_ONEHOT_BUG: &str = "module MOD(input clk, input rst_n, input x, output z);
+  reg idle, one, onezero, hit;
+  always @(posedge clk or negedge rst_n)
+    if (!rst_n) begin idle <= 1'b1; one <= 1'b0; onezero <= 1'b0; hit <= 1'b0; end
+    else begin
+      idle <= ~x & (idle | onezero | hit);
+      one <= x & (idle | one | hit);
+      onezero <= ~x & one;
+      hit <= x & onezero;
+    end
+  assign z = hit;
+endmodule
+";
+
 /// Two registers with write enables (a tiny register file, written by index) on the falling
 /// clock edge.
 const ENABLE: &str = "module MOD(input clk, input rst, input we, input wa, input [3:0] wd, input ra, output [3:0] rd);
@@ -488,16 +518,24 @@ fn pairs() -> Vec<Pair> {
             ADDER_BUG,
             different,
         ),
-        // The registers pair, but not inductively: the states 10-15 break it.
+        // The registers do not pair inductively (the states 10-15 break it): k-induction.
         p(
             "counter, >= in unreachable states",
             COUNTER,
             COUNTER_GE,
-            "undecided",
+            equivalent,
         ),
         p("counter, wraps after 8", COUNTER, COUNTER_BUG, different),
         p("state machine, recoded", FSM, FSM_RECODED, equivalent),
         p("state machine, no overlap", FSM, FSM_BUG, different),
+        // Different state encodings: no register pairs; k-induction.
+        p("state machine, one-hot", FSM, FSM_ONEHOT, equivalent),
+        p(
+            "state machine, one-hot, no overlap",
+            FSM,
+            FSM_ONEHOT_BUG,
+            different,
+        ),
         p(
             "enables, vector by index",
             ENABLE,
@@ -518,4 +556,58 @@ fn clocked_rtl_pairs_are_proved_or_different_as_icarus_verilog_runs_them() {
     if icarus {
         eprintln!("Icarus Verilog ran {} clocked pairs", all.len());
     }
+}
+
+/// A 5-bit counter whose rewrite differs first when the count reaches 25 (cycle 25 from
+/// reset): with at most 20 cycles unrolled, k-induction (whose base case is those cycles) must
+/// not prove it; with 30 the trace is found. Off, k-induction leaves the counter pair above
+/// undecided.
+#[test]
+fn k_induction_never_proves_a_difference_deeper_than_its_base_case() {
+    let counter = |bad: u32| {
+        format!(
+            "module MOD(input clk, input reset, output [4:0] q, output hi);
+  reg [4:0] c;
+  assign q = c;
+  assign hi = c == 5'd{bad};
+  always @(posedge clk) if (reset) c <= 0; else c <= c + 5'd1;
+endmodule
+"
+        )
+    };
+    let (r_src, c_src) = (counter(31), counter(25));
+    let r = read(&r_src, "ref_m");
+    let c = read(&c_src, "cand_m");
+    for cycles in [4, 10, 20] {
+        let o = SeqOptions {
+            cycles,
+            k_induction: Some(cycles),
+            ..SeqOptions::default()
+        };
+        let rep = seq::check(&r, &c, &o).unwrap();
+        assert_eq!(rep.verdict, "undecided", "{cycles} cycles: {rep:#?}");
+        assert_eq!(rep.k_induction.as_ref().and_then(|k| k.proved_at), None);
+    }
+    let o = SeqOptions {
+        cycles: 30,
+        ..SeqOptions::default()
+    };
+    let rep = seq::check(&r, &c, &o).unwrap();
+    assert_eq!(rep.verdict, "different");
+    let fd = rep
+        .trace
+        .as_ref()
+        .unwrap()
+        .first_difference
+        .as_ref()
+        .unwrap();
+    assert_eq!(fd.cycle, 25);
+    let (r, c) = (read(COUNTER, "ref_m"), read(COUNTER_GE, "cand_m"));
+    let o = SeqOptions {
+        k_induction: Some(0),
+        ..SeqOptions::default()
+    };
+    let rep = seq::check(&r, &c, &o).unwrap();
+    assert_eq!(rep.verdict, "undecided");
+    assert!(rep.k_induction.is_none());
 }

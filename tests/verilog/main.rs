@@ -1,6 +1,7 @@
 //! Integration tests of the Verilog front-end (one test binary, themed modules).
 
 mod common;
+mod corpus;
 mod engine_checks;
 mod fixtures;
 mod hierarchy;

@@ -6,6 +6,14 @@ use crate::design::CellKind;
 use crate::diag::{Diagnostic, SourcePos};
 use std::sync::Arc;
 
+/// Help for a statement that stops before its end (a file cut off, or a statement split
+/// over lines).
+const TRUNCATED: &str = "the statement stops at the end of the line: write each statement whole on one line (`INPUT(a)`, `y = NAND(a, b)`); if the file was cut off, write it out again";
+
+/// Help for a statement of the wrong shape.
+const SHAPES: &str =
+    "statements are `INPUT(name)`, `OUTPUT(name)` or `name = GATE(a, b, ...)`, one per line";
+
 /// A statement of one line with the byte offset of its name; a gate's fan-in names and their
 /// byte offsets go to a buffer the caller reuses.
 pub(super) enum Stmt<'t> {
@@ -71,11 +79,13 @@ impl<'t> Cursor<'_, 't> {
             Some(x) => Err(Diagnostic::error(
                 Some(self.pos()),
                 format!("expected `{c}` {what}, found `{x}`"),
-            )),
+            )
+            .with_help(SHAPES)),
             None => Err(Diagnostic::error(
                 Some(self.pos()),
                 format!("expected `{c}` {what}, found the end of the line"),
-            )),
+            )
+            .with_help(TRUNCATED)),
         }
     }
     fn expect_end(&mut self) -> Result<(), Diagnostic> {
@@ -134,6 +144,11 @@ pub(super) fn parse_line<'t>(
             cur.expect('(', "after the keyword")?;
             let (name, at) = cur.name().ok_or_else(|| {
                 Diagnostic::error(Some(cur.pos()), format!("{upper} needs a signal name"))
+                    .with_help(if cur.peek().is_none() {
+                        TRUNCATED
+                    } else {
+                        SHAPES
+                    })
             })?;
             cur.expect(')', "to close the declaration")?;
             cur.expect_end()?;
@@ -146,8 +161,13 @@ pub(super) fn parse_line<'t>(
         Some('=') => {
             cur.at += 1;
             let (gname, gat) = cur.name().ok_or_else(|| {
-                Diagnostic::error(Some(cur.pos()), "expected a gate type after `=`")
-                    .with_help("for example `y = NAND(a, b)`")
+                Diagnostic::error(Some(cur.pos()), "expected a gate type after `=`").with_help(
+                    if cur.peek().is_none() {
+                        TRUNCATED
+                    } else {
+                        "for example `y = NAND(a, b)`"
+                    },
+                )
             })?;
             let gpos = cur.pos_at(gat);
             let dff = gname.eq_ignore_ascii_case("DFF");
@@ -155,8 +175,17 @@ pub(super) fn parse_line<'t>(
                 true => CellKind::Buf,
                 false => gate_kind(gname).ok_or_else(|| unknown_gate(gname, &gpos))?,
             };
-            cur.expect('(', "after the gate type")?;
             fanin.clear();
+            if let Some(kind) = constant_kind(gname) {
+                // `y = VDD` or `y = VDD()`: a constant, stored as a gate with no inputs.
+                if cur.peek() == Some('(') {
+                    cur.at += 1;
+                    cur.expect(')', "after a constant: it takes no inputs")?;
+                }
+                cur.expect_end()?;
+                return Ok(Stmt::Gate(first, first_at, kind));
+            }
+            cur.expect('(', "after the gate type")?;
             if cur.peek() != Some(')') {
                 loop {
                     let arg = cur.name().ok_or_else(|| {
@@ -164,6 +193,11 @@ pub(super) fn parse_line<'t>(
                             Some(cur.pos()),
                             "expected a signal name in the gate's input list",
                         )
+                        .with_help(if cur.peek().is_none() {
+                            TRUNCATED
+                        } else {
+                            SHAPES
+                        })
                     })?;
                     fanin.push(arg);
                     match cur.peek() {
@@ -213,8 +247,26 @@ fn gate_kind(name: &str) -> Option<CellKind> {
         "XNOR" => CellKind::Xnor,
         "NOT" => CellKind::Not,
         "BUF" | "BUFF" => CellKind::Buf,
+        // `MUX(s, a, b)` is `s ? a : b`: the select first, then the input taken when it is 1,
+        // then the one taken when it is 0 (the order of Verilog's `s ? a : b`).
+        "MUX" => CellKind::Mux2,
+        // Constants: an AND of no inputs is 1, an OR of no inputs is 0 (see `constant_kind`).
+        "VDD" => CellKind::And,
+        "GND" => CellKind::Or,
         _ => return None,
     })
+}
+
+/// The gate a constant keyword stands for: `VDD` (1) is an AND of no inputs, `GND` (0) an OR of
+/// no inputs; every evaluator of the netlist gives those values for an empty fan-in.
+pub(super) fn constant_kind(name: &str) -> Option<CellKind> {
+    if name.eq_ignore_ascii_case("VDD") {
+        Some(CellKind::And)
+    } else if name.eq_ignore_ascii_case("GND") {
+        Some(CellKind::Or)
+    } else {
+        None
+    }
 }
 
 fn unknown_gate(name: &str, pos: &SourcePos) -> Diagnostic {
@@ -227,13 +279,14 @@ fn unknown_gate(name: &str, pos: &SourcePos) -> Diagnostic {
         .with_help("equicone reads edge-triggered flip-flops (`q = DFF(d)`) but not level-sensitive latches; replace the latch with a DFF or cut the design there")
     } else {
         Diagnostic::error(Some(pos.clone()), format!("unknown gate type `{name}`"))
-            .with_help("known gates: AND NAND OR NOR XOR XNOR NOT BUF BUFF (any case)")
+            .with_help("known gates: AND NAND OR NOR XOR XNOR NOT BUF BUFF MUX DFF and the constants VDD GND (any case)")
     }
 }
 
 fn check_arity(kind: CellKind, name: &str, n: usize, pos: &SourcePos) -> Result<(), Diagnostic> {
     let ok = match kind {
         CellKind::Not | CellKind::Buf => n == 1,
+        CellKind::Mux2 => n == 3,
         _ => n >= 1,
     };
     if ok {
@@ -241,6 +294,7 @@ fn check_arity(kind: CellKind, name: &str, n: usize, pos: &SourcePos) -> Result<
     }
     let want = match kind {
         CellKind::Not | CellKind::Buf => "exactly 1 input".to_string(),
+        CellKind::Mux2 => "exactly 3 inputs".to_string(),
         _ => "at least 1 input".to_string(),
     };
     Err(Diagnostic::error(
@@ -251,6 +305,7 @@ fn check_arity(kind: CellKind, name: &str, n: usize, pos: &SourcePos) -> Result<
         CellKind::Not | CellKind::Buf => {
             "an inverter or buffer takes one signal, e.g. `y = NOT(a)`"
         }
+        CellKind::Mux2 => "a 2:1 selector takes the select, then the input for select 1, then the input for select 0: `y = MUX(s, a, b)` is `s ? a : b`",
         _ => "list the gate's inputs, e.g. `y = AND(a, b)`",
     }))
 }

@@ -331,15 +331,3 @@ impl ProveReport {
         self.pairs.iter().filter(|p| p.status() == v).count()
     }
 }
-
-/// An output pair's label: one name when both sides call it the same, else
-/// `reference <-> candidate` (`<->` reads "paired with"; `~` only ever means inverted). Here,
-/// beside [`PairResult`], so that the diagnosis and the reports share it without depending
-/// on each other.
-pub fn pair_label(reference: &str, candidate: &str) -> String {
-    if reference == candidate {
-        reference.to_string()
-    } else {
-        format!("{reference} <-> {candidate}")
-    }
-}

@@ -8,8 +8,6 @@ pub use prove_text::{check_text, prove_text};
 
 use serde::Serialize;
 
-pub use crate::engine::result::pair_label;
-
 /// The JSON form of any report, pretty-printed, with a final newline.
 pub fn to_json<T: Serialize>(value: &T) -> String {
     let mut s = serde_json::to_string_pretty(value).expect("reports serialize");

@@ -17,27 +17,34 @@ use std::sync::Arc;
 /// Line of the synthetic module on which the expression stands.
 const EXPR_LINE: u32 = 3;
 
-/// Elaborate `exprs` over the input ports of `d` and import their conjunction into `aig`,
-/// whose inputs for `d`'s port bits are given by `input_of(bit name)`.
+/// Elaborate `exprs` over the input ports of `designs` (their union: the reference's and the
+/// candidate's, so that a pin of one side alone can be tied) and import their conjunction
+/// into `aig`, whose inputs for the port bits are given by `input_of(bit name)`. An
+/// expression that reads a bit `input_of` does not know (a port of the other design only) is
+/// an error naming it.
 pub fn constraint(
-    d: &Design,
+    designs: &[&Design],
     exprs: &[String],
     aig: &mut Aig,
     input_of: &dyn Fn(&str) -> Option<Lit>,
 ) -> Result<Lit, InputError> {
     let mut all = Lit::TRUE;
     for (k, e) in exprs.iter().enumerate() {
-        let lit = one(d, k, e, aig, input_of)?;
+        let lit = one(designs, k, e, aig, input_of)?;
         all = aig.and(all, lit);
     }
     Ok(all)
 }
 
-/// Ports of `d` as (name, lowest index, highest index) for vectors, in first-seen order.
-fn ports(d: &Design) -> Vec<(String, Option<(i64, i64)>)> {
+/// Ports of `designs` as (name, lowest index, highest index) for vectors, in first-seen order.
+fn ports(designs: &[&Design]) -> Vec<(String, Option<(i64, i64)>)> {
     let mut order: Vec<String> = Vec::new();
     let mut range: BTreeMap<String, Option<(i64, i64)>> = BTreeMap::new();
-    for b in d.inputs.iter().filter(|b| !b.is_unknown()) {
+    for b in designs
+        .iter()
+        .flat_map(|d| d.inputs.iter())
+        .filter(|b| !b.is_unknown())
+    {
         let e = range.entry(b.port.clone()).or_insert_with(|| {
             order.push(b.port.clone());
             b.index.map(|i| (i, i))
@@ -57,7 +64,7 @@ fn ports(d: &Design) -> Vec<(String, Option<(i64, i64)>)> {
 }
 
 fn one(
-    d: &Design,
+    designs: &[&Design],
     k: usize,
     expr: &str,
     aig: &mut Aig,
@@ -74,10 +81,19 @@ fn one(
             .in_stage(Stage::Assume),
         ));
     }
-    let ports = ports(d);
+    let ports = ports(designs);
+    // A bus declared `[0:7]` is declared so here too, so that `a == 1` means what it means
+    // in the design (the lowest index is the most significant bit).
+    let ascending: std::collections::BTreeSet<String> = designs
+        .first()
+        .map(|d| d.ascending_ports())
+        .unwrap_or_default();
     let decls: Vec<String> = ports
         .iter()
         .map(|(p, r)| match r {
+            Some((lo, hi)) if ascending.contains(p) => {
+                format!("input wire [{lo}:{hi}] {}", verilog_name(p))
+            }
             Some((lo, hi)) => format!("input wire [{hi}:{lo}] {}", verilog_name(p)),
             None => format!("input wire {}", verilog_name(p)),
         })
@@ -122,12 +138,30 @@ fn one(
             .in_stage(Stage::Assume),
         ));
     }
-    let map: Vec<Lit> = a
-        .inputs
-        .iter()
-        .map(|b| input_of(&b.name).unwrap_or(Lit::FALSE))
-        .collect();
     let root = a.outputs[0].lit;
+    let read = a.aig.cone_inputs(&[root]);
+    let mut map = vec![Lit::FALSE; a.inputs.len()];
+    for (i, b) in a.inputs.iter().enumerate() {
+        match input_of(&b.name) {
+            Some(l) => map[i] = l,
+            None if read.contains(&(i as u32)) => {
+                return Err(InputError::one(
+                    Diagnostic::error(
+                        Some(SourcePos::new(&label, 1, 1)),
+                        format!(
+                            "the assumption reads `{}`, which this design does not have",
+                            b.name
+                        ),
+                    )
+                    .with_help(
+                        "an assumption over a pin of one design only applies where that pin exists",
+                    ),
+                ))
+            }
+            // Declared but not read: its value does not matter.
+            None => {}
+        }
+    }
     Ok(aig.import(&a.aig, &map, &[root])[0])
 }
 
@@ -234,29 +268,37 @@ pub fn on_design(d: &Design, exprs: &[String]) -> Result<(Design, Lit), InputErr
         .enumerate()
         .map(|(k, b)| (b.name.clone(), d.aig.input_lit(k)))
         .collect();
-    let c = constraint(d, exprs, &mut out.aig, &|n| names.get(n).copied())?;
+    let c = constraint(&[d], exprs, &mut out.aig, &|n| names.get(n).copied())?;
     check_satisfiable(&out.aig, c, exprs)?;
     Ok((out, c))
 }
 
-/// Build the assumptions into a proof's shared AIG (over the reference's port names) and set
-/// its constraint; fails when they are unsatisfiable.
+/// Build the assumptions into a proof's shared AIG and set its constraint; fails when they
+/// are unsatisfiable. Names are the reference's port bits, then the candidate's that the
+/// reference lacks (an input of the candidate alone, such as a scan pin left free by
+/// `--free-extra-inputs`, can be tied; with `--pair-by position` the candidate's names work
+/// too).
 pub fn apply_to_shared(
     shared: &mut crate::engine::Shared,
     r: &Design,
+    c: &Design,
     exprs: &[String],
 ) -> Result<(), InputError> {
     if exprs.is_empty() {
         return Ok(());
     }
-    let by_name: BTreeMap<String, Lit> = shared
-        .ref_input
-        .iter()
-        .enumerate()
-        .map(|(i, &k)| (r.inputs[i].name.clone(), shared.aig.input_lit(k)))
-        .collect();
+    let mut by_name: BTreeMap<String, Lit> = BTreeMap::new();
+    for (d, map) in [(r, &shared.ref_input), (c, &shared.cand_input)] {
+        for (i, &k) in map.iter().enumerate() {
+            if k != usize::MAX && !d.inputs[i].is_unknown() {
+                by_name
+                    .entry(d.inputs[i].name.clone())
+                    .or_insert_with(|| shared.aig.input_lit(k));
+            }
+        }
+    }
     let mut aig = std::mem::take(&mut shared.aig);
-    let c = constraint(r, exprs, &mut aig, &|n| by_name.get(n).copied())
+    let c = constraint(&[r, c], exprs, &mut aig, &|n| by_name.get(n).copied())
         .and_then(|c| check_satisfiable(&aig, c, exprs).map(|_| c));
     shared.aig = aig;
     shared.constraint = c?;
@@ -275,7 +317,7 @@ mod tests {
     fn error(expr: &str) -> Diagnostic {
         let d = design();
         let mut aig = Aig::new();
-        let e = constraint(&d, &[expr.to_string()], &mut aig, &|_| None).unwrap_err();
+        let e = constraint(&[&d], &[expr.to_string()], &mut aig, &|_| None).unwrap_err();
         e.diagnostics[0].clone()
     }
 

@@ -45,11 +45,13 @@ pub enum NoCertificate {
     Satisfiable,
 }
 
-/// Build the certificate for the output pairs `pairs` (indices into `shared.pairs`).
+/// Build the certificate for the output pairs `pairs` (indices into `shared.pairs`);
+/// `assumptions` are the texts of the constraint built into `shared`, recorded as comments.
 pub fn certify(
     r: &Design,
     c: &Design,
     shared: &Shared,
+    assumptions: &[String],
     pairs: &[usize],
     format: ProofFormat,
     limits: &Limits,
@@ -88,6 +90,7 @@ pub fn certify(
         }
         let a = ta.lit(&shared.aig, &mut f, shared.constraint);
         f.clause(&[a]);
+        comments.extend(crate::cnf::dimacs::assumption_comments(assumptions, a));
     }
     // Pairs with a don't-care region: the reference's three-valued rails (its unknowns at x),
     // in a graph of their own over the reference's inputs; such a pair differs only where

@@ -271,6 +271,40 @@ pub struct Register {
 }
 
 impl Design {
+    /// Ports (inputs and outputs) declared with an ascending range in Verilog (`[0:7]`: the
+    /// lowest index is the most significant bit). The Verilog reader lists the bits of every
+    /// port from the least significant, so these are the ports whose first two bits listed
+    /// have falling indices. Bench names carry no declared range: none.
+    pub fn ascending_ports(&self) -> std::collections::BTreeSet<String> {
+        let mut out = std::collections::BTreeSet::new();
+        if self.format != Format::Verilog {
+            return out;
+        }
+        let mut first: std::collections::BTreeMap<&str, (i64, bool)> = Default::default();
+        let bits = self
+            .inputs
+            .iter()
+            .filter(|b| !b.is_unknown())
+            .map(|b| (b.port.as_str(), b.index))
+            .chain(self.outputs.iter().map(|o| (o.port.as_str(), o.index)));
+        for (port, index) in bits {
+            let Some(i) = index else { continue };
+            match first.get_mut(port) {
+                None => {
+                    first.insert(port, (i, false));
+                }
+                Some((f, seen)) if !*seen => {
+                    *seen = true;
+                    if i < *f {
+                        out.insert(port.to_string());
+                    }
+                }
+                Some(_) => {}
+            }
+        }
+        out
+    }
+
     /// Index of the input bit named `name`.
     pub fn input_index(&self, name: &str) -> Option<usize> {
         self.inputs.iter().position(|b| b.name == name)

@@ -9,6 +9,7 @@ use crate::engine::{ProveReport, Verdict};
 use crate::routes::{self, Route};
 use crate::sat::Limits;
 use serde::Serialize;
+use std::collections::{BTreeMap, BTreeSet};
 
 /// Route tables of one differing output pair.
 #[derive(Clone, Debug, PartialEq, Serialize)]
@@ -36,6 +37,11 @@ pub struct Diagnosis {
     pub select: Option<String>,
     /// One entry per differing output pair (at most [`MAX_TABLES`]).
     pub routes: Vec<RouteDiff>,
+    /// A limit (the diagnosis's time share, the run's `--timeout`, the conflict limit) cut it:
+    /// some supports or routes are undecided, which makes no claim either way.
+    pub partial: bool,
+    /// Wall-clock seconds the diagnosis took.
+    pub seconds: f64,
 }
 
 /// Route tables are built for at most this many differing output pairs.
@@ -67,6 +73,7 @@ pub fn diagnose(
     if rep.verdict != Verdict::Different {
         return None;
     }
+    let start = std::time::Instant::now();
     let differing: Vec<(usize, usize)> = rep
         .pairs
         .iter()
@@ -78,10 +85,25 @@ pub fn diagnose(
     // hint to a miswired input (and an assumption may exclude the cases that read them).
     let is_unknown =
         |d: &Design, n: &String| d.input_index(n).is_some_and(|k| d.inputs[k].is_unknown());
-    let supports = differing
+    // Paired bits whose names differ (`--pair-by position`): the candidate's name of each
+    // reference bit, so that supports are compared by paired bits, not by names.
+    let partner: BTreeMap<&str, &str> = rep
+        .counterexamples
+        .first()
+        .map(|cx| {
+            cx.inputs
+                .iter()
+                .filter_map(|i| Some((i.name.as_str(), i.candidate_name.as_deref()?)))
+                .collect()
+        })
+        .unwrap_or_default();
+    let supports: Vec<SupportComparison> = differing
         .iter()
         .map(|&(ri, ci)| {
             let mut cmp = crate::cone::compare_supports(r, ri, c, ci, limits);
+            if !partner.is_empty() {
+                by_partner(&mut cmp, &partner);
+            }
             cmp.only_reference.retain(|n| !is_unknown(r, n));
             cmp.only_candidate.retain(|n| !is_unknown(c, n));
             cmp
@@ -115,11 +137,39 @@ pub fn diagnose(
             });
         }
     }
+    let partial = limits.expired()
+        || supports
+            .iter()
+            .any(|c: &SupportComparison| !c.undecided.is_empty())
+        || routes_out.iter().any(|t| !t.undecided_values.is_empty());
     Some(Diagnosis {
         supports,
         select: sel.map(|(b, _, _)| b.to_string()),
         routes: routes_out,
+        partial,
+        seconds: start.elapsed().as_secs_f64(),
     })
+}
+
+/// Recompute the differences of `cmp` with each reference bit standing for its partner's
+/// name in the candidate (bits without a renamed partner keep their own names).
+fn by_partner(cmp: &mut SupportComparison, partner: &BTreeMap<&str, &str>) {
+    let theirs = |n: &String| partner.get(n.as_str()).map_or(n.clone(), |p| p.to_string());
+    let undecided: BTreeSet<String> = cmp.undecided.iter().cloned().collect();
+    let rset: BTreeSet<String> = cmp.reference.iter().map(theirs).collect();
+    let cset: BTreeSet<&String> = cmp.candidate.iter().collect();
+    cmp.only_reference = cmp
+        .reference
+        .iter()
+        .filter(|n| !cset.contains(&theirs(n)) && !undecided.contains(*n))
+        .cloned()
+        .collect();
+    cmp.only_candidate = cmp
+        .candidate
+        .iter()
+        .filter(|n| !rset.contains(*n) && !undecided.contains(*n))
+        .cloned()
+        .collect();
 }
 
 /// The select values whose routes are proved different (both decided, not excluded, not
@@ -144,22 +194,27 @@ fn split_values(r: &[Route], c: &[Route]) -> (Vec<usize>, Vec<usize>) {
 /// select value marked with `!`.
 pub fn diagnosis_text(d: &Diagnosis) -> String {
     let mut s = String::new();
+    if d.partial {
+        s += "\ndiagnosis   partial: a limit cut it (its time share, --diagnosis-time, or the run's --timeout); undecided entries make no claim\n";
+    }
     let differ: Vec<&SupportComparison> = d.supports.iter().filter(|c| c.differs()).collect();
     if !d.supports.is_empty() {
-        if differ.is_empty() {
+        let open: usize = d.supports.iter().map(|c| c.undecided.len()).sum();
+        if differ.is_empty() && open == 0 {
             s += &format!(
                 "\nsupports of the differing outputs: the same inputs on both sides ({} pair{} compared)\n",
                 d.supports.len(),
                 if d.supports.len() == 1 { "" } else { "s" }
             );
+        } else if differ.is_empty() {
+            s += &format!(
+                "\nsupports of the differing outputs: no difference among the inputs decided; {open} input{} undecided (a limit stopped them; no claim)\n",
+                if open == 1 { "" } else { "s" }
+            );
         } else {
             s += "\nsupports that differ (exact, decided by simulation and SAT)\n";
             for c in differ {
-                let label = if c.reference_output == c.candidate_output {
-                    c.reference_output.clone()
-                } else {
-                    format!("{} ~ {}", c.reference_output, c.candidate_output)
-                };
+                let label = crate::report::pair_label(&c.reference_output, &c.candidate_output);
                 s += &format!("  {label}\n");
                 if !c.only_reference.is_empty() {
                     s += &format!(
@@ -181,11 +236,7 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
         "\nroute tables over `{select}` for the differing outputs (each route proved by SAT)\n"
     );
     for t in &d.routes {
-        let label = if t.reference == t.candidate {
-            t.reference.clone()
-        } else {
-            format!("{} ~ {}", t.reference, t.candidate)
-        };
+        let label = crate::report::pair_label(&t.reference, &t.candidate);
         s += &format!("  {label}\n");
         let rr = routes::render(select, &routes::compress(&t.reference_routes));
         let cr = routes::render(select, &routes::compress(&t.candidate_routes));
@@ -270,6 +321,8 @@ mod tests {
                 differing_values: vec![1],
                 undecided_values: vec![2, 3],
             }],
+            partial: true,
+            seconds: 0.0,
         };
         let t = &d.routes[0];
         let (differing, undecided) = split_values(&t.reference_routes, &t.candidate_routes);

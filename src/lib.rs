@@ -22,6 +22,7 @@ pub mod explain;
 pub mod front;
 pub mod gen;
 pub(crate) mod hash;
+pub mod portmap;
 pub mod report;
 pub mod rng;
 pub mod routes;

@@ -427,7 +427,7 @@ mod demo {
             "{out}"
         );
         assert!(
-            out.contains("redundant input: y[0] does not depend on test_mode"),
+            out.contains("redundant input: y[0..7] (8 bits) do not depend on test_mode"),
             "{out}"
         );
     }

@@ -26,18 +26,22 @@ impl MiterCnf {
     }
 }
 
-/// Pair `r` and `c` and build their miter.
+/// Pair `r` and `c` and build their miter, asserting the conjunction of `assumptions` (Verilog
+/// expressions over the input ports, as `--assume` takes them) by a unit clause that the
+/// comments name.
 pub fn miter_cnf(
     r: &Design,
     c: &Design,
     pair_by: PairBy,
     free_extra_inputs: bool,
     strict_unknowns: bool,
+    assumptions: &[String],
 ) -> Result<MiterCnf, InputError> {
     let mut shared = engine::pair(r, c, pair_by, free_extra_inputs)?;
     if !strict_unknowns {
         engine::dont_care::apply(&mut shared, r);
     }
+    crate::assume::apply_to_shared(&mut shared, r, c, assumptions)?;
     let mut f = varisat::CnfFormula::new();
     let mut ts = Tseitin::new();
     let mut xors = Vec::new();
@@ -56,6 +60,11 @@ pub fn miter_cnf(
             dimacs::dimacs_number(v),
             side.only_note()
         ));
+    }
+    if shared.constraint != crate::aig::Lit::TRUE {
+        let a = ts.lit(&shared.aig, &mut f, shared.constraint);
+        f.clause(&[a]);
+        comments.extend(dimacs::assumption_comments(assumptions, a));
     }
     for p in 0..shared.pairs.len() {
         let x = ts.lit(&shared.aig, &mut f, shared.ref_lits[p]);

@@ -37,6 +37,9 @@ pub enum DiagnosisRequest {
     Select(String),
 }
 
+/// The diagnosis's default time share (`prove --diagnosis-time`).
+pub const DIAGNOSIS_TIME: std::time::Duration = std::time::Duration::from_secs(10);
+
 /// One comparison to run.
 #[derive(Clone, Debug)]
 pub struct CheckRequest<'a> {
@@ -57,6 +60,9 @@ pub struct CheckRequest<'a> {
     pub explain: Option<CubeLimits>,
     /// Keep the paired graph in the outcome, to replay counterexamples (VCD, testbench).
     pub keep_pairing: bool,
+    /// The diagnosis's own time share (it also stops at the session's deadline); `None`:
+    /// the deadline alone.
+    pub diagnosis_time: Option<std::time::Duration>,
 }
 
 impl<'a> CheckRequest<'a> {
@@ -72,6 +78,7 @@ impl<'a> CheckRequest<'a> {
             certificate: None,
             explain: None,
             keep_pairing: false,
+            diagnosis_time: Some(DIAGNOSIS_TIME),
         }
     }
 }
@@ -171,7 +178,7 @@ pub fn check_shard(
     if !opts.strict_unknowns {
         engine::dont_care::apply(&mut shared, r);
     }
-    crate::assume::apply_to_shared(&mut shared, r, &req.assumptions)?;
+    crate::assume::apply_to_shared(&mut shared, r, c, &req.assumptions)?;
     let stamp = shard.map(|s| crate::shard::restrict(&mut shared, s));
     let kept = (req.certificate.is_some() || req.explain.is_some() || req.keep_pairing)
         .then(|| shared.clone());
@@ -186,7 +193,11 @@ pub fn check_shard(
     };
     let mut diagnosis = None;
     if report.verdict == Verdict::Different && req.diagnosis != DiagnosisRequest::Off {
-        let limits = Limits::new(deadline.remaining(), opts.conflict_limit);
+        let share = match (deadline.remaining(), req.diagnosis_time) {
+            (Some(a), Some(b)) => Some(a.min(b)),
+            (a, b) => a.or(b),
+        };
+        let limits = Limits::new(share, opts.conflict_limit);
         if let (Ok((r2, rc)), Ok((c2, cc))) = (
             crate::assume::on_design(r, &req.assumptions),
             crate::assume::on_design(c, &req.assumptions),
@@ -200,7 +211,7 @@ pub fn check_shard(
                 .filter(|&p| report.pairs[p].status() == Verdict::Equivalent)
                 .collect();
             let limits = Limits::new(deadline.remaining(), None);
-            match certify(r, c, shared, &pairs, format, &limits) {
+            match certify(r, c, shared, &req.assumptions, &pairs, format, &limits) {
                 Err(NoCertificate::Satisfiable) => {
                     return Err(CheckError::Internal(
                         "the separately encoded miter is satisfiable although the engine proved the pairs equal; no claim is made".to_string(),
@@ -361,7 +372,7 @@ mod tests {
     #[test]
     fn the_miter_formula_names_inputs_and_pairs() {
         let (r, c) = selectors();
-        let m = miter_cnf(&r, &c, crate::engine::PairBy::Name, false, false).expect("pairs");
+        let m = miter_cnf(&r, &c, crate::engine::PairBy::Name, false, false, &[]).expect("pairs");
         let text = String::from_utf8(m.to_dimacs()).expect("utf-8");
         assert!(text.contains("c input "), "{text}");
         assert_eq!(text.matches("c pair ").count(), 2, "{text}");

@@ -136,6 +136,17 @@ pub fn timeout_of(t: Option<f64>) -> Result<Option<std::time::Duration>, Exit> {
     }
 }
 
+/// A time share such as `--diagnosis-time` as a duration (0 allowed: the work is skipped);
+/// a value that is not a number of seconds is a usage error.
+pub fn seconds_of(flag: &str, s: f64) -> Result<std::time::Duration, Exit> {
+    if s.is_finite() && s >= 0.0 {
+        Ok(std::time::Duration::from_secs_f64(s.min(TIMEOUT_MAX)))
+    } else {
+        eprintln!("error: {flag} {s} is not a number of seconds\n  help: for example `{flag} 10`, or 0 to skip it");
+        Err(Exit::BadInput)
+    }
+}
+
 /// Read a design, printing its errors on failure.
 pub fn load(
     paths: Vec<String>,

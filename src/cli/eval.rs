@@ -36,9 +36,11 @@ pub struct EvalArgs {
     /// Step a clocked design through a trace from reset (a `prove --json` report or its `trace`).
     #[arg(long, value_name = "FILE", conflicts_with_all = ["set", "vector", "rest"])]
     trace: Option<String>,
-    /// Which design of the trace this is (its own unknown inputs and initial values).
-    #[arg(long, value_enum, default_value_t = TraceSide::Reference)]
-    side: TraceSide,
+    /// Which design of the report's trace or counterexample this is (its own unknown inputs,
+    /// initial values and, for a pairing by position, names). Default for a trace: reference;
+    /// for a --vector report: the side whose names the design has.
+    #[arg(long, value_enum)]
+    side: Option<TraceSide>,
 }
 
 /// `--side` of `eval --trace`.
@@ -52,6 +54,7 @@ pub enum TraceSide {
 
 #[derive(Serialize)]
 struct EvalReport {
+    schema: u32,
     design: String,
     inputs: serde_json::Map<String, serde_json::Value>,
     outputs: serde_json::Map<String, serde_json::Value>,
@@ -64,7 +67,7 @@ pub fn run(a: &EvalArgs) -> Exit {
         Err(e) => return e,
     };
     if let Some(path) = &a.trace {
-        let side = match a.side {
+        let side = match a.side.unwrap_or(TraceSide::Reference) {
             TraceSide::Reference => crate::seq::Side::Reference,
             TraceSide::Candidate => crate::seq::Side::Candidate,
         };
@@ -82,10 +85,8 @@ pub fn run(a: &EvalArgs) -> Exit {
 fn evaluate(d: &Design, a: &EvalArgs) -> Result<String, InputError> {
     let mut vals: Vec<Option<bool>> = vec![None; d.inputs.len()];
     if let Some(path) = &a.vector {
-        for (name, v) in read_vector(path)? {
-            if let Some(k) = d.input_index(&name) {
-                vals[k] = Some(v);
-            }
+        for (k, v) in resolve_vector(d, path, &read_vector(path)?, a.side)? {
+            vals[k] = Some(v);
         }
     }
     for s in &a.set {
@@ -139,29 +140,33 @@ fn evaluate(d: &Design, a: &EvalArgs) -> Result<String, InputError> {
             om.insert(o.name.clone(), (*v as u8).into());
         }
         return Ok(report::to_json(&EvalReport {
+            schema: 1,
             design: d.name.clone(),
             inputs: im,
             outputs: om,
         }));
     }
+    let asc = d.ascending_ports();
     let mut s = format!("design   {}\ninputs\n", d.name);
     s += &values::wrap(
-        &values::group(
+        &values::group_declared(
             d.inputs
                 .iter()
                 .zip(&inputs)
                 .map(|(b, v)| (b.name.as_str(), *v)),
+            &asc,
         ),
         "  ",
         100,
     );
     s += "outputs\n";
     s += &values::wrap(
-        &values::group(
+        &values::group_declared(
             d.outputs
                 .iter()
                 .zip(&outs)
                 .map(|(o, v)| (o.name.as_str(), *v)),
+            &asc,
         ),
         "  ",
         100,
@@ -181,7 +186,7 @@ fn apply_set(d: &Design, s: &str, vals: &mut [Option<bool>]) -> Result<(), Input
     let bad = |why: &str| {
         InputError::plain(
             format!("`--set {s}`: {why}"),
-            "values are 0/1 for a bit, or a number for a port: 5, 0x1f, 0b101, 4'b0101, 8'hff",
+            "values are 0/1 for a bit, or a number for a port: 5, -3 (two's complement), 0x1f, 0b101, 4'b0101, 8'hff",
         )
     };
     if let Some(k) = d.input_index(name) {
@@ -212,12 +217,32 @@ fn apply_set(d: &Design, s: &str, vals: &mut [Option<bool>]) -> Result<(), Input
         ));
     }
     bits.sort();
-    let v = parse_number(value).ok_or_else(|| bad("not a number"))?;
-    if bits.len() < 128 && v >> bits.len() != 0 {
-        return Err(bad(&format!(
-            "the value does not fit in {} bits",
-            bits.len()
-        )));
+    if d.ascending_ports().contains(name) {
+        // Declared `[0:7]`: the lowest index is the most significant bit, as in Verilog.
+        bits.reverse();
+    }
+    let n = bits.len();
+    let v = match value.strip_prefix('-') {
+        // A negative number: its two's complement over the port's width.
+        Some(m) => {
+            let m = parse_number(m).ok_or_else(|| bad("not a number"))?;
+            if n < 128 && m > 1u128 << (n - 1) || n >= 128 && m > 1u128 << 127 {
+                return Err(bad(&format!(
+                    "the value does not fit in {n} bits as a two's complement number (at least -{})",
+                    if n <= 128 { 1u128 << (n - 1) } else { 1u128 << 127 }
+                )));
+            }
+            let v = m.wrapping_neg();
+            if n < 128 {
+                v & ((1u128 << n) - 1)
+            } else {
+                v
+            }
+        }
+        None => parse_number(value).ok_or_else(|| bad("not a number"))?,
+    };
+    if n < 128 && v >> n != 0 {
+        return Err(bad(&format!("the value does not fit in {n} bits")));
     }
     for (j, &(_, k)) in bits.iter().enumerate() {
         vals[k] = Some(j < 128 && (v >> j) & 1 == 1);
@@ -256,8 +281,69 @@ pub fn parse_number(s: &str) -> Option<u128> {
     u128::from_str_radix(&digits, radix).ok()
 }
 
-/// Name/value pairs from a vector file.
-fn read_vector(path: &str) -> Result<Vec<(String, bool)>, InputError> {
+/// One bit of a vector file: its name (the reference's, in a report), the candidate's name
+/// of a paired bit when it differs, which design it belongs to (a report's `side`), its value.
+struct VectorBit {
+    name: String,
+    candidate_name: Option<String>,
+    side: Option<String>,
+    value: bool,
+}
+
+/// The input index and value of each bit of a vector for design `d`. Bits of a report that
+/// belong to the other design alone are skipped; the side is `side`, or else the one whose
+/// names `d` has (the reference first). A name `d` does not have is an error, as in `--set`.
+fn resolve_vector(
+    d: &Design,
+    path: &str,
+    bits: &[VectorBit],
+    side: Option<TraceSide>,
+) -> Result<Vec<(usize, bool)>, InputError> {
+    let on = |side: TraceSide| -> Result<Vec<(usize, bool)>, &str> {
+        let mine = match side {
+            TraceSide::Reference => "reference",
+            TraceSide::Candidate => "candidate",
+        };
+        let mut out = Vec::new();
+        for b in bits {
+            if b.side.as_deref().is_some_and(|s| s != "both" && s != mine) {
+                continue;
+            }
+            let name = match side {
+                TraceSide::Candidate => b.candidate_name.as_deref().unwrap_or(&b.name),
+                TraceSide::Reference => &b.name,
+            };
+            match d.input_index(name) {
+                Some(k) => out.push((k, b.value)),
+                None => return Err(name),
+            }
+        }
+        Ok(out)
+    };
+    let tried = match side {
+        Some(s) => on(s),
+        None => on(TraceSide::Reference).or_else(|e| on(TraceSide::Candidate).map_err(|_| e)),
+    };
+    tried.map_err(|name| {
+        let mut names: Vec<&str> = Vec::new();
+        for b in d.inputs.iter().filter(|b| !b.is_unknown()) {
+            if !names.contains(&b.port.as_str()) && names.len() < 12 {
+                names.push(b.port.as_str());
+            }
+        }
+        InputError::plain(
+            format!("`--vector {path}`: the design has no input `{name}`"),
+            format!(
+                "inputs of {} include: {}; give the design the vector was made for (`--side candidate` for a report's candidate)",
+                d.name,
+                names.join(", ")
+            ),
+        )
+    })
+}
+
+/// The bits of a vector file.
+fn read_vector(path: &str) -> Result<Vec<VectorBit>, InputError> {
     let text = crate::front::read_text(path)?;
     let v: serde_json::Value = serde_json::from_str(&text).map_err(|e| {
         InputError::one(
@@ -287,7 +373,13 @@ fn read_vector(path: &str) -> Result<Vec<(String, bool)>, InputError> {
                 i.get("name").and_then(|n| n.as_str()),
                 i.get("value").and_then(bit),
             ) {
-                out.push((n.to_string(), b));
+                let text = |k: &str| i.get(k).and_then(|x| x.as_str()).map(str::to_string);
+                out.push(VectorBit {
+                    name: n.to_string(),
+                    candidate_name: text("candidate_name"),
+                    side: text("side"),
+                    value: b,
+                });
             }
         }
         return Ok(out);
@@ -306,7 +398,12 @@ fn read_vector(path: &str) -> Result<Vec<(String, bool)>, InputError> {
                     "give one bit per name, e.g. {\"d[3]\": 1}",
                 )
             })?;
-            out.push((n.clone(), b));
+            out.push(VectorBit {
+                name: n.clone(),
+                candidate_name: None,
+                side: None,
+                value: b,
+            });
         }
         return Ok(out);
     }

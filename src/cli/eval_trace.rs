@@ -18,6 +18,7 @@ struct Cycle {
 
 #[derive(Serialize)]
 struct TraceEval {
+    schema: u32,
     design: String,
     side: Side,
     cycles: Vec<Cycle>,
@@ -97,6 +98,7 @@ pub fn run(d: &Design, path: &str, side: Side, json: bool, vcd: Option<&str>) ->
             })
             .collect();
         let r = TraceEval {
+            schema: 1,
             design: d.name.clone(),
             side,
             cycles,

@@ -216,6 +216,15 @@ pub struct ProveArgs {
     /// `addr` when both designs have it).
     #[arg(long, value_name = "BUS")]
     select: Option<String>,
+    /// Seconds the diagnosis of a difference (supports, route tables) may take at most, within
+    /// the run's --timeout; 0 turns it off. A diagnosis cut short is reported as partial.
+    #[arg(
+        long,
+        value_name = "SECONDS",
+        default_value_t = 10.0,
+        allow_negative_numbers = true
+    )]
+    diagnosis_time: f64,
     #[command(flatten)]
     replay: super::replay::ReplayArgs,
     /// Clocked designs: cycles from reset searched for a difference when the register pairing
@@ -245,6 +254,10 @@ pub struct CnfArgs {
     /// Where to write the DIMACS file.
     #[arg(short = 'o', long = "output", value_name = "FILE")]
     output: String,
+    /// Only input vectors where this Verilog expression over the input ports holds (asserted
+    /// by a unit clause, recorded in the comments; repeatable: all must hold).
+    #[arg(long, value_name = "EXPR")]
+    assume: Vec<String>,
 }
 
 /// Run `prove`: read both designs, hand them to the check session, print its outcome.
@@ -255,6 +268,10 @@ pub fn run(a: &ProveArgs) -> Exit {
         Err(e) => return e,
     };
     let deadline = crate::sat::Limits::new(timeout, None);
+    let diagnosis_time = match super::common::seconds_of("--diagnosis-time", a.diagnosis_time) {
+        Ok(t) => t,
+        Err(e) => return e,
+    };
     // Output paths are checked before any work, so that a long run is not lost to a typo.
     let proof_cnf = a.proof.as_ref().map(|p| format!("{p}.cnf"));
     if let Err(e) = check_writable([
@@ -294,12 +311,14 @@ pub fn run(a: &ProveArgs) -> Exit {
             strict_unknowns: a.pair.strict_unknowns,
         },
         diagnosis: match &a.select {
+            _ if a.diagnosis_time == 0.0 => DiagnosisRequest::Off,
             Some(b) => DiagnosisRequest::Select(b.clone()),
             None => DiagnosisRequest::Auto,
         },
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
         explain: a.replay.cube_limits(),
         keep_pairing: a.replay.wanted(),
+        diagnosis_time: Some(diagnosis_time),
     };
     let shard = match a
         .shard
@@ -385,6 +404,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
         explain: None,
         keep_pairing: false,
+        diagnosis_time: None,
     };
     let settings = check::ClockedSettings {
         cycles: a.cycles,
@@ -423,6 +443,7 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         a.pair.pair_by.into(),
         a.pair.free_extra_inputs,
         a.pair.strict_unknowns,
+        &a.assume,
     ) {
         Ok(m) => m,
         Err(e) => return report_input_error(&e),

@@ -26,3 +26,14 @@ pub fn write_dimacs(
 pub fn dimacs_number(l: CLit) -> isize {
     l.to_dimacs()
 }
+
+/// Comment lines recording the assumptions (`--assume`) that the unit clause on `holds`
+/// asserts: `assume EXPR` for each, then which literal stands for their conjunction.
+pub fn assumption_comments(exprs: &[String], holds: CLit) -> Vec<String> {
+    let mut out: Vec<String> = exprs.iter().map(|e| format!("assume {e}")).collect();
+    out.push(format!(
+        "assumptions {} (asserted by a unit clause: the formula covers only the vectors where they hold)",
+        dimacs_number(holds)
+    ));
+    out
+}

@@ -63,38 +63,8 @@ impl fmt::Display for AuditReport {
             writeln!(f, "flags: none")?;
         } else {
             writeln!(f, "flags ({}):", self.flags.len())?;
-            let mut i = 0;
-            while i < self.flags.len() {
-                // Redundant inputs of one output with one proof share a line.
-                if let Flag::RedundantInput { output, by, .. } = &self.flags[i] {
-                    let mut inputs = Vec::new();
-                    while let Some(Flag::RedundantInput {
-                        output: o2,
-                        input,
-                        by: b2,
-                    }) = self.flags.get(i)
-                    {
-                        if o2 != output || b2 != by {
-                            break;
-                        }
-                        inputs.push(input.as_str());
-                        i += 1;
-                    }
-                    let (noun, verb) = if inputs.len() == 1 {
-                        ("input", "is")
-                    } else {
-                        ("inputs", "are")
-                    };
-                    writeln!(
-                        f,
-                        "  redundant {noun}: {output} does not depend on {}, which {verb} wired into its cone ({})",
-                        inputs.join(", "),
-                        proof(*by)
-                    )?;
-                    continue;
-                }
-                writeln!(f, "  {}", flag_text(&self.flags[i]))?;
-                i += 1;
+            for line in flag_lines(&self.flags) {
+                writeln!(f, "  {line}")?;
             }
         }
         let verdict = if self.flagged() {
@@ -269,6 +239,175 @@ fn depends_by(by: DependsBy) -> &'static str {
         DependsBy::ReplayedSimulation => "simulation of a SAT model",
         DependsBy::Sat => "sat: model",
     }
+}
+
+/// One printed flag line before grouping: redundant inputs of one output with one proof, an
+/// unused input, or any other flag.
+enum Line<'a> {
+    Redundant {
+        outputs: Vec<&'a str>,
+        inputs: Vec<&'a str>,
+        by: IndependentBy,
+    },
+    Unused {
+        inputs: Vec<&'a str>,
+        connected: bool,
+    },
+    Other(&'a Flag),
+}
+
+/// Whether `b` is the next bit of the run `run` of one bus (same port, index one past the last
+/// one, in the run's direction).
+fn extends(run: &[&str], b: &str) -> bool {
+    let split = crate::design::split_bit;
+    let (p, i) = split(b);
+    let Some(i) = i else { return false };
+    let (lp, Some(li)) = split(run[run.len() - 1]) else {
+        return false;
+    };
+    if lp != p || (i - li).abs() != 1 {
+        return false;
+    }
+    match run.len() {
+        1 => true,
+        _ => {
+            let (_, Some(pi)) = split(run[run.len() - 2]) else {
+                return false;
+            };
+            i - li == li - pi
+        }
+    }
+}
+
+/// `y[0..7]` for a run of bits of one bus, the name for one bit.
+fn run_name(run: &[&str]) -> String {
+    let (p, first) = crate::design::split_bit(run[0]);
+    let (_, last) = crate::design::split_bit(run[run.len() - 1]);
+    match (first, last) {
+        (Some(a), Some(b)) if run.len() > 1 => format!("{p}[{a}..{b}]"),
+        _ => run[0].to_string(),
+    }
+}
+
+/// The flags as text lines, with repeats grouped: the redundant inputs of one output and one
+/// proof on one line, then the bits of one output bus with the same redundant inputs on one
+/// line (the demo's eight `redundant test_mode` lines become one), and the unused bits of one
+/// input bus on one line.
+fn flag_lines(flags: &[Flag]) -> Vec<String> {
+    let mut lines: Vec<Line> = Vec::new();
+    for fl in flags {
+        match fl {
+            Flag::RedundantInput { output, input, by } => {
+                if let Some(Line::Redundant {
+                    outputs,
+                    inputs,
+                    by: b,
+                }) = lines.last_mut()
+                {
+                    if outputs.len() == 1 && outputs[0] == output && b == by {
+                        inputs.push(input);
+                        continue;
+                    }
+                }
+                lines.push(Line::Redundant {
+                    outputs: vec![output],
+                    inputs: vec![input],
+                    by: *by,
+                });
+            }
+            Flag::UnusedInput { input, connected } => {
+                if let Some(Line::Unused {
+                    inputs,
+                    connected: c,
+                }) = lines.last_mut()
+                {
+                    if c == connected && extends(inputs, input) {
+                        inputs.push(input);
+                        continue;
+                    }
+                }
+                lines.push(Line::Unused {
+                    inputs: vec![input],
+                    connected: *connected,
+                });
+            }
+            other => lines.push(Line::Other(other)),
+        }
+    }
+    // Bits of one output bus with the same redundant inputs and proof.
+    let mut grouped: Vec<Line> = Vec::new();
+    for l in lines {
+        if let (
+            Line::Redundant {
+                outputs,
+                inputs,
+                by,
+            },
+            Some(Line::Redundant {
+                outputs: o2,
+                inputs: i2,
+                by: b2,
+            }),
+        ) = (&l, grouped.last_mut())
+        {
+            if outputs.len() == 1 && *i2 == *inputs && b2 == by && extends(o2, outputs[0]) {
+                o2.push(outputs[0]);
+                continue;
+            }
+        }
+        grouped.push(l);
+    }
+    grouped
+        .into_iter()
+        .map(|l| match l {
+            Line::Redundant {
+                outputs,
+                inputs,
+                by,
+            } => {
+                let (noun, verb) = if inputs.len() == 1 {
+                    ("input", "is")
+                } else {
+                    ("inputs", "are")
+                };
+                let (who, does, its) = if outputs.len() == 1 {
+                    (outputs[0].to_string(), "does", "its cone")
+                } else {
+                    (
+                        format!("{} ({} bits)", run_name(&outputs), outputs.len()),
+                        "do",
+                        "each one's cone",
+                    )
+                };
+                format!(
+                    "redundant {noun}: {who} {does} not depend on {}, which {verb} wired into {its} ({})",
+                    inputs.join(", "),
+                    proof(by)
+                )
+            }
+            Line::Unused { inputs, connected } => {
+                let who = if inputs.len() == 1 {
+                    inputs[0].to_string()
+                } else {
+                    format!("{} ({} bits)", run_name(&inputs), inputs.len())
+                };
+                let (noun, verb) = if inputs.len() == 1 {
+                    ("input", "reaches")
+                } else {
+                    ("inputs", "reach")
+                };
+                let its = if inputs.len() == 1 { "its" } else { "their" };
+                if connected {
+                    format!("unused {noun}: {who} {verb} no output's support ({its} logic is dead or masked)")
+                } else if inputs.len() == 1 {
+                    format!("unused input: {who} is not connected to any output")
+                } else {
+                    format!("unused inputs: {who} are not connected to any output")
+                }
+            }
+            Line::Other(fl) => flag_text(fl),
+        })
+        .collect()
 }
 
 fn flag_text(fl: &Flag) -> String {

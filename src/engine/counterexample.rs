@@ -60,13 +60,21 @@ pub fn confirm(
         .iter()
         .enumerate()
         .map(|(k, origin)| {
-            let (bit, side) = match *origin {
-                SharedInput::Both { reference, .. } => (&r.inputs[reference], Side::Both),
-                SharedInput::Reference(i) => (&r.inputs[i], Side::Reference),
-                SharedInput::Candidate(i) => (&c.inputs[i], Side::Candidate),
+            let (bit, side, cand) = match *origin {
+                SharedInput::Both {
+                    reference,
+                    candidate,
+                } => (
+                    &r.inputs[reference],
+                    Side::Both,
+                    Some(&c.inputs[candidate].name).filter(|n| **n != r.inputs[reference].name),
+                ),
+                SharedInput::Reference(i) => (&r.inputs[i], Side::Reference, None),
+                SharedInput::Candidate(i) => (&c.inputs[i], Side::Candidate, None),
             };
             InputValue {
                 name: bit.name.clone(),
+                candidate_name: cand.cloned(),
                 side,
                 unknown: bit.is_unknown(),
                 value: values[k],

@@ -13,6 +13,7 @@ pub mod counterexample;
 pub mod dont_care;
 mod exhaustive;
 mod monolithic;
+pub mod pair_runs;
 pub mod pairing;
 mod pairs;
 mod parallel;
@@ -346,12 +347,19 @@ pub fn prove_shared(
     } else {
         Verdict::Equivalent
     };
-    let warnings = r
+    let ascending_ports = result::AscendingPorts {
+        reference: r.ascending_ports(),
+        candidate: c.ascending_ports(),
+    };
+    let mut warnings: Vec<String> = r
         .warnings
         .iter()
         .chain(&c.warnings)
         .map(|w| w.to_string())
         .collect();
+    if opts.pair_by == PairBy::Name {
+        warnings.extend(direction_warnings(r, c, &ascending_ports));
+    }
     Ok(ProveReport {
         schema: 1,
         verdict,
@@ -361,6 +369,12 @@ pub fn prove_shared(
         engine: opts.engine,
         assumptions: assumptions.to_vec(),
         free_inputs: shared.unmatched.clone(),
+        ascending_ports,
+        paired: if opts.pair_by == PairBy::Position {
+            pair_runs::paired_runs(&shared, r, c)
+        } else {
+            Vec::new()
+        },
         pairs,
         counterexamples: cexs,
         stats: Stats {
@@ -381,6 +395,36 @@ pub fn prove_shared(
         unknowns: unknowns::sources(r, c),
         dont_care_pairs: shared.dont_care.iter().filter(|&&d| d).count(),
     })
+}
+
+/// Buses paired by name that are declared `[7:0]` on one side and `[0:7]` on the other: the
+/// bits of the same index are paired, so the same number means other bits on each side.
+fn direction_warnings(r: &Design, c: &Design, asc: &result::AscendingPorts) -> Vec<String> {
+    let wide = |d: &Design, p: &str| {
+        d.inputs
+            .iter()
+            .filter(|b| b.port == p && b.index.is_some())
+            .count()
+            + d.outputs
+                .iter()
+                .filter(|o| o.port == p && o.index.is_some())
+                .count()
+            > 1
+    };
+    asc.reference
+        .symmetric_difference(&asc.candidate)
+        .filter(|p| wide(r, p) && wide(c, p))
+        .map(|p| {
+            let (rd, cd) = if asc.reference.contains(p) {
+                ("ascending [lo:hi]", "descending [hi:lo]")
+            } else {
+                ("descending [hi:lo]", "ascending [lo:hi]")
+            };
+            format!(
+                "warning: `{p}` is declared {rd} in the reference and {cd} in the candidate: pairing by name pairs the bits of the same index ({p}[0] with {p}[0]), so the most significant bit of one side meets the least significant of the other; to pair by significance, declare both alike or use `--pair-by position` (bits in order, least significant first)"
+            )
+        })
+        .collect()
 }
 
 /// Words of random patterns for a graph of `nodes` nodes: more for small graphs (the words

@@ -190,11 +190,30 @@ impl Serialize for Scope {
     }
 }
 
+/// Ports declared `[0:7]` (lowest index most significant) in each design.
+#[derive(Clone, Debug, Default, PartialEq, Eq, Serialize)]
+pub struct AscendingPorts {
+    /// The reference's.
+    pub reference: std::collections::BTreeSet<String>,
+    /// The candidate's.
+    pub candidate: std::collections::BTreeSet<String>,
+}
+
+impl AscendingPorts {
+    /// Neither design has any.
+    pub fn is_empty(&self) -> bool {
+        self.reference.is_empty() && self.candidate.is_empty()
+    }
+}
+
 /// One input bit's value in a counterexample.
 #[derive(Clone, Debug, PartialEq, Eq, Serialize)]
 pub struct InputValue {
-    /// Bit name.
+    /// Bit name (the reference's, for a paired bit).
     pub name: String,
+    /// The candidate's name of a paired bit, when it differs from the reference's.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub candidate_name: Option<String>,
     /// A paired port bit of both designs, or a free input of one side.
     pub side: Side,
     /// Whether this bit stands for an unknown (`x`) value in the source.
@@ -274,6 +293,12 @@ pub struct ProveReport {
     pub assumptions: Vec<String>,
     /// Port inputs of one side only, left free.
     pub free_inputs: Vec<String>,
+    /// Ports declared with an ascending range (`[0:7]`) on each side, for printing values.
+    #[serde(skip_serializing_if = "AscendingPorts::is_empty")]
+    pub ascending_ports: AscendingPorts,
+    /// The paired bits as runs by bus, when they are not paired by name.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub paired: Vec<crate::engine::pair_runs::PairedRun>,
     /// Per output pair.
     pub pairs: Vec<PairResult>,
     /// Distinct counterexamples found.

@@ -3,7 +3,8 @@
 use crate::check::CheckOutcome;
 use crate::diagnose::Diagnosis;
 use crate::engine::{Method, ProveReport, Side, Verdict};
-use crate::report::values::{group, wrap};
+use crate::report::pair_label;
+use crate::report::values::{group_declared, wrap};
 use std::fmt::Write;
 
 /// Output pairs listed one by one when there are at most this many; beyond it only the
@@ -33,6 +34,7 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
         crate::engine::PairBy::Position => "by position (bits matched in declaration order)",
     };
     let _ = writeln!(s, "pairing     {by}, {n} output pair{}", plural(n));
+    s += &crate::engine::pair_runs::runs_text(&r.paired);
     for a in &r.assumptions {
         let _ = writeln!(s, "assuming    {a}");
     }
@@ -159,8 +161,31 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
             .filter(|i| i.side == Side::Both)
             .map(|i| (i.name.as_str(), i.value))
             .collect();
-        let _ = writeln!(s, "  inputs");
-        s += &wrap(&group(shared), "    ", 100);
+        let asc = &r.ascending_ports;
+        // Renamed bits, or a bus declared [7:0] on one side and [0:7] on the other: the
+        // candidate's view of the same vector is printed too.
+        let renamed =
+            c.inputs.iter().any(|i| i.candidate_name.is_some()) || asc.reference != asc.candidate;
+        let _ = writeln!(
+            s,
+            "  inputs{}",
+            if renamed {
+                ", by the reference's names"
+            } else {
+                ""
+            }
+        );
+        s += &wrap(&group_declared(shared, &asc.reference), "    ", 100);
+        if renamed {
+            let theirs: Vec<(&str, bool)> = c
+                .inputs
+                .iter()
+                .filter(|i| i.side == Side::Both)
+                .map(|i| (i.candidate_name.as_deref().unwrap_or(&i.name), i.value))
+                .collect();
+            let _ = writeln!(s, "  the same inputs, by the candidate's names");
+            s += &wrap(&group_declared(theirs, &asc.candidate), "    ", 100);
+        }
         for side in [Side::Reference, Side::Candidate] {
             let own: Vec<(&str, bool)> = c
                 .inputs
@@ -174,7 +199,11 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
                     "  free inputs of the {} (unknown values or unpaired ports)",
                     side.word()
                 );
-                s += &wrap(&group(own), "    ", 100);
+                let mine = match side {
+                    Side::Candidate => &asc.candidate,
+                    _ => &asc.reference,
+                };
+                s += &wrap(&group_declared(own, mine), "    ", 100);
             }
         }
         let _ = writeln!(s, "  differing outputs (reference / candidate)");
@@ -200,23 +229,21 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
         s += &crate::diagnose::diagnosis_text(d);
     }
     let st = &r.stats;
-    let _ = writeln!(
+    let _ = write!(
         s,
         "\nfigures     engine {}; AIG {} nodes shared (reference {} ANDs, candidate {} ANDs); {} random patterns; {} SAT calls, {} conflicts; {:.3} s",
         r.engine.name(), st.shared_nodes, st.reference_ands, st.candidate_ands, st.sim_patterns, st.sat.calls, st.sat.conflicts, st.seconds
     );
+    match diagnosis {
+        Some(d) => {
+            let _ = writeln!(s, "; diagnosis {:.3} s", d.seconds);
+        }
+        None => s.push('\n'),
+    }
     for w in &r.warnings {
         let _ = writeln!(s, "{w}");
     }
     s
-}
-
-fn pair_label(a: &str, b: &str) -> String {
-    if a == b {
-        a.to_string()
-    } else {
-        format!("{a} ~ {b}")
-    }
 }
 
 fn plural(n: usize) -> &'static str {

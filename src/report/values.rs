@@ -29,6 +29,16 @@ pub enum Group {
 /// Group bits (in the given order) into buses where consecutive names are bits of one bus
 /// with indices stepping by one in one direction.
 pub fn group<'a>(bits: impl IntoIterator<Item = (&'a str, bool)>) -> Vec<Group> {
+    group_declared(bits, &std::collections::BTreeSet::new())
+}
+
+/// As [`group`], with the buses of `ascending` (declared `[0:7]` in Verilog: the lowest index
+/// is the most significant bit) printed in their declared order, `a[0:7]`, and numbered as
+/// Verilog reads them.
+pub fn group_declared<'a>(
+    bits: impl IntoIterator<Item = (&'a str, bool)>,
+    ascending: &std::collections::BTreeSet<String>,
+) -> Vec<Group> {
     // Runs as (port, first index, step, values in the given order).
     let mut runs: Vec<(String, i64, i64, Vec<bool>)> = Vec::new();
     let mut scalars_at: Vec<Option<(String, bool)>> = Vec::new();
@@ -57,12 +67,16 @@ pub fn group<'a>(bits: impl IntoIterator<Item = (&'a str, bool)>) -> Vec<Group> 
             Some((name, value)) => Group::Scalar { name, value },
             None => {
                 let last = first + step * (vals.len() as i64 - 1);
-                let (hi, lo) = if step > 0 {
+                let (mut hi, mut lo) = if step > 0 {
                     (last, first)
                 } else {
                     (first, last)
                 };
                 if step > 0 {
+                    vals.reverse();
+                }
+                if ascending.contains(&port) {
+                    std::mem::swap(&mut hi, &mut lo);
                     vals.reverse();
                 }
                 Group::Bus {
@@ -92,14 +106,43 @@ impl Group {
                     }
                     s.push(if *b { '1' } else { '0' });
                 }
+                let hex = (bits.len() > 16).then(|| hex(bits));
                 if bits.len() <= 64 {
                     let v = bits.iter().fold(0u64, |acc, &b| (acc << 1) | b as u64);
-                    s += &format!(" ({v})");
+                    match hex {
+                        Some(h) => s += &format!(" ({h} = {v})"),
+                        None => s += &format!(" ({v})"),
+                    }
+                } else if let Some(h) = hex {
+                    s += &format!(" ({h})");
                 }
                 s
             }
         }
     }
+}
+
+/// `N'h...` of bits given most significant first, digits grouped by four with `_`.
+fn hex(bits: &[bool]) -> String {
+    let n = bits.len();
+    let digits: Vec<char> = (0..n.div_ceil(4))
+        .rev()
+        .map(|d| {
+            // Digit d covers bits 4d..4d+3 counted from the least significant end.
+            let v = (0..4)
+                .filter(|&j| 4 * d + j < n && bits[n - 1 - (4 * d + j)])
+                .fold(0u32, |acc, j| acc | 1 << j);
+            char::from_digit(v, 16).expect("a hexadecimal digit")
+        })
+        .collect();
+    let mut s = format!("{n}'h");
+    for (i, c) in digits.iter().enumerate() {
+        if i > 0 && (digits.len() - i).is_multiple_of(4) {
+            s.push('_');
+        }
+        s.push(*c);
+    }
+    s
 }
 
 /// Render groups as lines of at most `width` characters, each starting with `indent`.
@@ -130,6 +173,34 @@ pub fn wrap(groups: &[Group], indent: &str, width: usize) -> String {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn wide_buses_show_hexadecimal_and_ascending_ones_their_declared_order() {
+        let bits: Vec<(String, bool)> = (0..20).map(|i| (format!("w[{i}]"), i % 3 == 0)).collect();
+        let g = group(bits.iter().map(|(n, v)| (n.as_str(), *v)));
+        // Bits 0, 3, ..., 18 set: 0b1001_0010_0100_1001_0010_0100_1001 over 20 bits.
+        let v: u64 = (0..20).filter(|i| i % 3 == 0).map(|i| 1u64 << i).sum();
+        assert_eq!(
+            g[0].render(),
+            format!(
+                "w[19:0]=20'b0100_1001_0010_0100_1001 (20'h{:x}_{:04x} = {v})",
+                v >> 16,
+                v & 0xffff
+            )
+        );
+        // `input [0:3] a` lists a[3] (least significant) first; a = 4'b0001 is a[3]=1.
+        let asc: std::collections::BTreeSet<String> = ["a".to_string()].into();
+        let bits = [
+            ("a[3]", true),
+            ("a[2]", false),
+            ("a[1]", false),
+            ("a[0]", false),
+        ];
+        let g = group_declared(bits.iter().map(|(n, v)| (*n, *v)), &asc);
+        assert_eq!(g[0].render(), "a[0:3]=4'b0001 (1)");
+        let g = group(bits.iter().map(|(n, v)| (*n, *v)));
+        assert_eq!(g[0].render(), "a[3:0]=4'b1000 (8)");
+    }
 
     #[test]
     fn groups_buses_and_scalars() {

@@ -26,7 +26,7 @@ pub fn prove(r: &Design, c: &Design, assume: &[&str]) -> (ProveReport, Shared) {
     let assume: Vec<String> = assume.iter().map(|s| s.to_string()).collect();
     let opts = ProveOptions::default();
     let mut shared = engine::pair(r, c, opts.pair_by, false).expect("pairs");
-    equicone::assume::apply_to_shared(&mut shared, r, &assume).expect("assumption");
+    equicone::assume::apply_to_shared(&mut shared, r, c, &assume).expect("assumption");
     let kept = shared.clone();
     let rep = engine::prove_shared(r, c, shared, &assume, &opts).expect("proves");
     (rep, kept)

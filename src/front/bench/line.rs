@@ -6,6 +6,14 @@ use crate::design::CellKind;
 use crate::diag::{Diagnostic, SourcePos};
 use std::sync::Arc;
 
+/// Help for a statement that stops before its end (a file cut off, or a statement split
+/// over lines).
+const TRUNCATED: &str = "the statement stops at the end of the line: write each statement whole on one line (`INPUT(a)`, `y = NAND(a, b)`); if the file was cut off, write it out again";
+
+/// Help for a statement of the wrong shape.
+const SHAPES: &str =
+    "statements are `INPUT(name)`, `OUTPUT(name)` or `name = GATE(a, b, ...)`, one per line";
+
 /// A statement of one line with the byte offset of its name; a gate's fan-in names and their
 /// byte offsets go to a buffer the caller reuses.
 pub(super) enum Stmt<'t> {
@@ -71,11 +79,13 @@ impl<'t> Cursor<'_, 't> {
             Some(x) => Err(Diagnostic::error(
                 Some(self.pos()),
                 format!("expected `{c}` {what}, found `{x}`"),
-            )),
+            )
+            .with_help(SHAPES)),
             None => Err(Diagnostic::error(
                 Some(self.pos()),
                 format!("expected `{c}` {what}, found the end of the line"),
-            )),
+            )
+            .with_help(TRUNCATED)),
         }
     }
     fn expect_end(&mut self) -> Result<(), Diagnostic> {
@@ -134,6 +144,11 @@ pub(super) fn parse_line<'t>(
             cur.expect('(', "after the keyword")?;
             let (name, at) = cur.name().ok_or_else(|| {
                 Diagnostic::error(Some(cur.pos()), format!("{upper} needs a signal name"))
+                    .with_help(if cur.peek().is_none() {
+                        TRUNCATED
+                    } else {
+                        SHAPES
+                    })
             })?;
             cur.expect(')', "to close the declaration")?;
             cur.expect_end()?;
@@ -146,8 +161,13 @@ pub(super) fn parse_line<'t>(
         Some('=') => {
             cur.at += 1;
             let (gname, gat) = cur.name().ok_or_else(|| {
-                Diagnostic::error(Some(cur.pos()), "expected a gate type after `=`")
-                    .with_help("for example `y = NAND(a, b)`")
+                Diagnostic::error(Some(cur.pos()), "expected a gate type after `=`").with_help(
+                    if cur.peek().is_none() {
+                        TRUNCATED
+                    } else {
+                        "for example `y = NAND(a, b)`"
+                    },
+                )
             })?;
             let gpos = cur.pos_at(gat);
             let dff = gname.eq_ignore_ascii_case("DFF");
@@ -173,6 +193,11 @@ pub(super) fn parse_line<'t>(
                             Some(cur.pos()),
                             "expected a signal name in the gate's input list",
                         )
+                        .with_help(if cur.peek().is_none() {
+                            TRUNCATED
+                        } else {
+                            SHAPES
+                        })
                     })?;
                     fanin.push(arg);
                     match cur.peek() {

@@ -1,0 +1,217 @@
+//! Port map files: which names of the reference and of the candidate stand for the same
+//! thing when the names differ (renamed ports; the same file form can name register pairs).
+//!
+//! The format (our own): one pair per line, `REFERENCE_NAME CANDIDATE_NAME`, each a whole bus
+//! (`data`) or one bit (`data[3]`); `#` starts a comment; blank lines are skipped. A bus pairs
+//! with a bus of the same width bit by bit by significance (least significant with least
+//! significant, whatever the declared ranges); names not listed pair by name as usual.
+//! [`PortMap::bit_pairs`] expands the entries against the bits each side has, so any kind of
+//! named bit (ports today, registers later) can be paired the same way.
+
+use crate::diag::{Diagnostic, InputError, SourcePos};
+use std::collections::BTreeMap;
+use std::sync::Arc;
+
+/// One line of a port map.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct Entry {
+    /// The reference's name (bus or bit).
+    pub reference: String,
+    /// The candidate's name (bus or bit).
+    pub candidate: String,
+    /// Where the line is.
+    pub pos: SourcePos,
+}
+
+/// A parsed port map file.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct PortMap {
+    /// The entries, in file order.
+    pub entries: Vec<Entry>,
+}
+
+/// The bits a name stands for on one side, least significant first, with a kind word
+/// (`input`, `output`, ...), or `None` when that side has no such name.
+pub type BitsOf<'a> = &'a dyn Fn(&str) -> Option<(Vec<String>, &'static str)>;
+
+/// Help shown with every error about the file's form.
+const FORM: &str = "a port map has one pair per line, `REFERENCE_NAME CANDIDATE_NAME` (a bus or a bit each, e.g. `data din` or `en[0] enable`); `#` starts a comment";
+
+impl PortMap {
+    /// Parse the text of a port map file named `file`; every malformed line is reported.
+    pub fn parse(file: &Arc<str>, text: &str) -> Result<PortMap, InputError> {
+        let mut entries = Vec::new();
+        let mut errors = Vec::new();
+        let mut seen: BTreeMap<(u8, String), u32> = BTreeMap::new();
+        for (k, raw) in text.lines().enumerate() {
+            let line = k as u32 + 1;
+            let body = raw.split('#').next().unwrap_or("");
+            let words: Vec<(usize, &str)> = body
+                .split_whitespace()
+                .map(|w| (w.as_ptr() as usize - raw.as_ptr() as usize, w))
+                .collect();
+            let pos = |at: usize| SourcePos::new(file, line, at as u32 + 1);
+            match words.as_slice() {
+                [] => {}
+                [(at, r), (cat, c)] => {
+                    let mut dup = false;
+                    for (side, name, at) in [(0u8, r, at), (1u8, c, cat)] {
+                        if let Some(first) = seen.insert((side, name.to_string()), line) {
+                            errors.push(
+                                Diagnostic::error(
+                                    Some(pos(*at)),
+                                    format!(
+                                        "`{name}` of the {} is mapped twice (first on line {first})",
+                                        if side == 0 { "reference" } else { "candidate" }
+                                    ),
+                                )
+                                .with_help("map each name once"),
+                            );
+                            dup = true;
+                        }
+                    }
+                    if !dup {
+                        entries.push(Entry {
+                            reference: r.to_string(),
+                            candidate: c.to_string(),
+                            pos: pos(*at),
+                        });
+                    }
+                }
+                [(at, _)] => errors.push(
+                    Diagnostic::error(Some(pos(*at)), "a line of a port map needs two names")
+                        .with_help(FORM),
+                ),
+                [_, _, (at, w), ..] => errors.push(
+                    Diagnostic::error(
+                        Some(pos(*at)),
+                        format!("unexpected `{w}` after the two names"),
+                    )
+                    .with_help(FORM),
+                ),
+            }
+        }
+        if errors.is_empty() {
+            Ok(PortMap { entries })
+        } else {
+            Err(InputError {
+                diagnostics: errors,
+            })
+        }
+    }
+
+    /// Expand the entries into bit pairs (reference bit name -> candidate bit name).
+    /// `reference_bits(name)` and `candidate_bits(name)` give the bits a name stands for on
+    /// each side, least significant first (one for a bit, `None` when the side has no such
+    /// name) and a kind word (`input`, `output`, ...) that must agree on both sides.
+    pub fn bit_pairs(
+        &self,
+        reference_bits: BitsOf<'_>,
+        candidate_bits: BitsOf<'_>,
+    ) -> Result<BTreeMap<String, String>, InputError> {
+        let mut out = BTreeMap::new();
+        let mut errors = Vec::new();
+        for e in &self.entries {
+            let err = |m: String, h: &str| {
+                Diagnostic::error(Some(e.pos.clone()), m).with_help(h.to_string())
+            };
+            let (r, c) = (reference_bits(&e.reference), candidate_bits(&e.candidate));
+            match (r, c) {
+                (None, _) => errors.push(err(
+                    format!("the reference has no port or bit `{}`", e.reference),
+                    "the first name of a line is the reference's: check its spelling and side",
+                )),
+                (_, None) => errors.push(err(
+                    format!("the candidate has no port or bit `{}`", e.candidate),
+                    "the second name of a line is the candidate's: check its spelling and side",
+                )),
+                (Some((rb, rk)), Some((cb, ck))) => {
+                    if rk != ck {
+                        errors.push(err(
+                            format!(
+                                "`{}` is an {rk} of the reference but `{}` an {ck} of the candidate",
+                                e.reference, e.candidate
+                            ),
+                            "pair inputs with inputs and outputs with outputs",
+                        ));
+                    } else if rb.len() != cb.len() {
+                        errors.push(err(
+                            format!(
+                                "`{}` has {} bit{} in the reference but `{}` {} in the candidate",
+                                e.reference,
+                                rb.len(),
+                                if rb.len() == 1 { "" } else { "s" },
+                                e.candidate,
+                                cb.len()
+                            ),
+                            "pair names of the same width, or map single bits (`a[3] b[3]`)",
+                        ));
+                    } else {
+                        out.extend(rb.into_iter().zip(cb));
+                    }
+                }
+            }
+        }
+        if errors.is_empty() {
+            Ok(out)
+        } else {
+            Err(InputError {
+                diagnostics: errors,
+            })
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn parse(text: &str) -> Result<PortMap, InputError> {
+        PortMap::parse(&Arc::from("m.map"), text)
+    }
+
+    #[test]
+    fn lines_comments_and_errors() {
+        let m = parse("# renamed ports\ndata din  # the bus\n\nen[0] enable\n").unwrap();
+        assert_eq!(m.entries.len(), 2);
+        assert_eq!(m.entries[1].reference, "en[0]");
+        assert_eq!(m.entries[1].pos.to_string(), "m.map:4:1");
+        let e = parse("a\nb c d\ne f\ne g\n").unwrap_err().to_string();
+        assert!(
+            e.contains("m.map:1:1: error: a line of a port map needs two names"),
+            "{e}"
+        );
+        assert!(
+            e.contains("m.map:2:5: error: unexpected `d` after the two names"),
+            "{e}"
+        );
+        assert!(
+            e.contains("m.map:4:1: error: `e` of the reference is mapped twice (first on line 3)"),
+            "{e}"
+        );
+    }
+
+    #[test]
+    fn buses_pair_by_significance_and_widths_must_agree() {
+        let m = parse("a b\nx y\n").unwrap();
+        let rb = |n: &str| match n {
+            "a" => Some((vec!["a[0]".to_string(), "a[1]".to_string()], "input")),
+            "x" => Some((vec!["x".to_string()], "output")),
+            _ => None,
+        };
+        let cb = |n: &str| match n {
+            "b" => Some((vec!["b[1]".to_string(), "b[0]".to_string()], "input")),
+            "y" => Some((vec!["y".to_string()], "output")),
+            _ => None,
+        };
+        let p = m.bit_pairs(&rb, &cb).unwrap();
+        assert_eq!(p["a[0]"], "b[1]");
+        assert_eq!(p["x"], "y");
+        let m = parse("a y\n").unwrap();
+        let e = m.bit_pairs(&rb, &cb).unwrap_err().to_string();
+        assert!(
+            e.contains("`a` is an input of the reference but `y` an output of the candidate"),
+            "{e}"
+        );
+    }
+}

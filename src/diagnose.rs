@@ -214,7 +214,8 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
         } else {
             s += "\nsupports that differ (exact, decided by simulation and SAT)\n";
             for c in differ {
-                let label = crate::report::pair_label(&c.reference_output, &c.candidate_output);
+                let label =
+                    crate::engine::pair_runs::pair_label(&c.reference_output, &c.candidate_output);
                 s += &format!("  {label}\n");
                 if !c.only_reference.is_empty() {
                     s += &format!(
@@ -236,7 +237,7 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
         "\nroute tables over `{select}` for the differing outputs (each route proved by SAT)\n"
     );
     for t in &d.routes {
-        let label = crate::report::pair_label(&t.reference, &t.candidate);
+        let label = crate::engine::pair_runs::pair_label(&t.reference, &t.candidate);
         s += &format!("  {label}\n");
         let rr = routes::render(select, &routes::compress(&t.reference_routes));
         let cr = routes::render(select, &routes::compress(&t.candidate_routes));

@@ -16,6 +16,16 @@ pub struct PairedRun {
     pub candidate: String,
 }
 
+/// An output pair's label: one name when both sides call it the same, else
+/// `reference <-> candidate` (`<->` reads "paired with"; `~` only ever means inverted).
+pub fn pair_label(reference: &str, candidate: &str) -> String {
+    if reference == candidate {
+        reference.to_string()
+    } else {
+        format!("{reference} <-> {candidate}")
+    }
+}
+
 /// One bit: its port and index.
 type Bit<'a> = (&'a str, Option<i64>);
 

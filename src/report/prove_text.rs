@@ -2,8 +2,8 @@
 
 use crate::check::CheckOutcome;
 use crate::diagnose::Diagnosis;
+use crate::engine::pair_runs::pair_label;
 use crate::engine::{Method, ProveReport, Side, Verdict};
-use crate::report::pair_label;
 use crate::report::values::{group_declared, wrap};
 use std::fmt::Write;
 

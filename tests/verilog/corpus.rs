@@ -223,3 +223,16 @@ fn output_index(d: &Design, k: usize) -> usize {
     }
     unreachable!("bit {k} is outside the outputs")
 }
+
+/// `===`/`!==` whose operands may be x (a literal, an out-of-range select, through nets) are
+/// refused at the operator, each once, and nothing else is reported.
+#[test]
+fn case_equality_on_a_value_that_may_be_x_is_refused() {
+    let e = super::common::read_err(
+        "module m(input [3:0] a, b, input [2:0] s, output y, z);\n  wire [3:0] t = s[2] ? 4'bx : a;\n  wire w = b[s];\n  assign y = a === 4'bx;\n  assign z = (t === b) | (w !== 1'b1);\nendmodule\n",
+    );
+    assert!(e.contains("t.v:4:16: error: unsupported: `===` on a value that may be x or z (it reads x/z literal 4'bx)"), "{e}");
+    assert!(e.contains("t.v:5:17: error: unsupported: `===`"), "{e}");
+    assert!(e.contains("t.v:5:29: error: unsupported: `!==` on a value that may be x or z (it reads out-of-range bit-select"), "{e}");
+    assert_eq!(e.matches("error:").count(), 3, "{e}");
+}

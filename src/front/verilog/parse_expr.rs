@@ -81,12 +81,6 @@ impl Parser<'_, '_> {
         let mut rest = Vec::new();
         while let Some(op) = self.peek_binop(level) {
             let pos = self.bump().pos;
-            if matches!(op, BinOp::CaseEq | BinOp::CaseNe) {
-                self.unsupported(
-                    pos,
-                    format!("case equality operator `{}` (use `==`/`!=`)", op.text()),
-                );
-            }
             let rhs = if level == 0 {
                 self.power()?
             } else {

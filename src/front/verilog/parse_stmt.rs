@@ -82,7 +82,17 @@ impl Parser<'_, '_> {
             Tok::Ident(k) if k == kw::FOR => {
                 self.bump();
                 self.expect_p(Punct::LParen, "`(` after `for`")?;
+                let declares = match self.peek().tok {
+                    Tok::Ident(k) => k == kw::INTEGER || self.is_int(k),
+                    _ => false,
+                };
+                if declares {
+                    self.bump();
+                }
                 let init = self.loop_assign()?;
+                if declares {
+                    self.loop_decls.push((init.0, init.1));
+                }
                 self.expect_p(Punct::Semi, "`;` in the loop header")?;
                 let cond = self.expr()?;
                 self.expect_p(Punct::Semi, "`;` in the loop header")?;

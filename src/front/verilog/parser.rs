@@ -34,6 +34,9 @@ pub struct Parser<'s, 'n> {
     taken: u64,
     /// Inside the body of a clocked `always` block (non-blocking assignments allowed).
     pub(super) in_clocked: bool,
+    /// Loop variables declared in `for` headers (`for (int i = 0; ...)`) of the item being
+    /// read; declared in the module after it (see `item`).
+    pub(super) loop_decls: Vec<(Sym, Pos)>,
 }
 
 impl<'s, 'n> Parser<'s, 'n> {
@@ -59,6 +62,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             depth: 0,
             taken: 0,
             in_clocked: false,
+            loop_decls: Vec::new(),
         }
     }
 
@@ -473,7 +477,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             Tok::Ident(k) if k == kw::WIRE || k == kw::TRI => d.ty = Some(NetType::Wire),
             Tok::Ident(k) if k == kw::SUPPLY0 || k == kw::SUPPLY1 => d.ty = Some(NetType::Wire),
             Tok::Ident(k) if k == kw::REG => d.ty = Some(NetType::Reg),
-            Tok::Ident(k) if k == kw::INTEGER => d.ty = Some(NetType::Integer),
+            Tok::Ident(k) if k == kw::INTEGER || self.is_int(k) => d.ty = Some(NetType::Integer),
             Tok::Ident(k) if self.is_sv_type(k) => d.ty = Some(NetType::Logic),
             _ => unreachable!("decl_head called on a declaration keyword"),
         }
@@ -485,7 +489,10 @@ impl<'s, 'n> Parser<'s, 'n> {
             } else if self.eat_kw(kw::INTEGER) {
                 d.ty = Some(NetType::Integer);
             } else if let Tok::Ident(k) = self.peek().tok {
-                if self.is_sv_type(k) {
+                if self.is_int(k) {
+                    self.bump();
+                    d.ty = Some(NetType::Integer);
+                } else if self.is_sv_type(k) {
                     self.bump();
                     d.ty = Some(NetType::Logic);
                 }
@@ -508,6 +515,12 @@ impl<'s, 'n> Parser<'s, 'n> {
     /// a 1364 design may use them as names, and does not put them before a declaration).
     fn is_sv_type(&self, k: Sym) -> bool {
         matches!(self.names.name(k), "logic" | "bit")
+    }
+
+    /// SystemVerilog `int` (IEEE 1800-2017 clause 6.11, from memory: a 32-bit signed
+    /// two-state integer), read as `integer`: the two agree wherever no x is stored.
+    pub(super) fn is_int(&self, k: Sym) -> bool {
+        self.names.name(k) == "int"
     }
 
     /// At `#`: skip a delay (`#3`, `#1.5`, `#D`, `#(1, 2)`, `#(1:2:3)`), warning once per file
@@ -613,8 +626,32 @@ impl<'s, 'n> Parser<'s, 'n> {
         Ok(pd)
     }
 
-    /// One module item (or generate item), appended to `out`.
+    /// One module item (or generate item), appended to `out`. A loop variable declared in a
+    /// `for` header of the item (IEEE 1800-2017 clause 12.7.1, from memory) becomes an
+    /// `integer` of the module, once per name: the loops are unrolled, so one variable serves
+    /// every loop that names it.
     pub fn item(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+        let r = self.item_inner(out);
+        for (n, p) in std::mem::take(&mut self.loop_decls) {
+            let declared = out.iter().any(|it| match it {
+                Item::Decl(d) => d.names.iter().any(|x| x.0 == n),
+                _ => false,
+            });
+            if !declared {
+                out.push(Item::Decl(Box::new(Decl {
+                    dir: None,
+                    ty: Some(NetType::Integer),
+                    signed: true,
+                    range: None,
+                    names: vec![(n, p, None)],
+                    pos: p,
+                })));
+            }
+        }
+        r
+    }
+
+    fn item_inner(&mut self, out: &mut Vec<Item>) -> PResult<()> {
         let t = self.peek().clone();
         let pos = t.pos;
         let k = match t.tok {
@@ -630,6 +667,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             || k == kw::WIRE
             || k == kw::REG
             || k == kw::INTEGER
+            || self.is_int(k)
             || k == kw::TRI
             || k == kw::SUPPLY0
             || k == kw::SUPPLY1

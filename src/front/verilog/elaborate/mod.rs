@@ -12,6 +12,7 @@
 //! an unknown-value source; each net bit has at most one driver.
 
 mod bits;
+mod case_eq;
 mod context;
 mod expr;
 mod flatten;
@@ -165,6 +166,8 @@ pub struct Elaborator<'a> {
     coverage_memo: crate::hash::FastMap<u32, stmt::Coverage>,
     /// Registers of clocked `always` blocks (`stmt/clocked.rs`).
     clocked: stmt::Clocked,
+    /// Each `===`/`!==`: where, and its operand bits (see `case_eq.rs`).
+    case_eq: Vec<(Pos, &'static str, Vec<Lit>)>,
 }
 
 impl<'a> Elaborator<'a> {
@@ -192,6 +195,7 @@ impl<'a> Elaborator<'a> {
             hier: Vec::new(),
             coverage_memo: Default::default(),
             clocked: Default::default(),
+            case_eq: Vec::new(),
         }
     }
 
@@ -217,6 +221,7 @@ impl<'a> Elaborator<'a> {
             hier: self.hier,
             coverage_memo: self.coverage_memo,
             clocked: self.clocked,
+            case_eq: self.case_eq,
         }
     }
 
@@ -429,6 +434,7 @@ pub fn elaborate(
     let (top_name, top_ports, top_pos) = (top_mod.name, top_mod.ports.clone(), top_mod.pos);
     let mut e = e.detach(names, files);
     drop(mods);
+    e.check_case_eq();
     let design = resolve::build(&mut e, top_name, &top_ports, scope);
     if e.errors.is_empty() && design.outputs.is_empty() {
         let n = e.name(top_name);

@@ -358,7 +358,7 @@ impl Elaborator<'_> {
             3 | 4 => {
                 // Relations: operands sized to each other; result 1 bit, unsigned.
                 let mut r = {
-                    let (op, _, e) = &rest[0];
+                    let (op, op_pos, e) = &rest[0];
                     let ta = self.expr_type(ctx, first);
                     let tb = self.expr_type(ctx, e);
                     let t = ExprType {
@@ -367,13 +367,19 @@ impl Elaborator<'_> {
                     };
                     let a = self.eval(ctx, first, t.width, t.signed);
                     let b = self.eval(ctx, e, t.width, t.signed);
+                    if matches!(op, BinOp::CaseEq | BinOp::CaseNe) {
+                        self.note_case_eq(*op_pos, op.text(), &a, &b);
+                    }
                     self.compare(*op, &a, &b, t.signed)
                 };
-                for (op, _, e) in &rest[1..] {
+                for (op, op_pos, e) in &rest[1..] {
                     let tb = self.expr_type(ctx, e);
                     let cw = tb.width.max(1);
                     let a = extend(vec![r], cw, false);
                     let b = self.eval(ctx, e, cw, false);
+                    if matches!(op, BinOp::CaseEq | BinOp::CaseNe) {
+                        self.note_case_eq(*op_pos, op.text(), &a, &b);
+                    }
                     r = self.compare(*op, &a, &b, false);
                 }
                 extend(vec![r], w, false)

@@ -1,0 +1,97 @@
+//! Case equality `===` / `!==` (IEEE 1364-2005 clause 5.1.8): read as `==` / `!=` where both
+//! operands are free of `x` and `z`, since the two agree on 0/1 values. An operand that may
+//! carry an unknown value (an `x`/`z` literal, an out-of-range select, through any nets) is
+//! refused with `unsupported:` at the operator: there `===` compares the unknown itself, which
+//! our model of an unknown as a free 0/1 value cannot express.
+
+use super::super::pos::Pos;
+use super::{Elaborator, UNKNOWN_BIT};
+use crate::aig::{Lit, Node};
+
+/// Per elaboration node while looking for unknowns: not seen, being walked, free, reads one.
+const UNSEEN: u32 = u32::MAX;
+const WALKING: u32 = u32::MAX - 1;
+const FREE: u32 = u32::MAX - 2;
+
+impl Elaborator<'_> {
+    /// Record the operand bits of a `===`/`!==` at `pos`, to be checked once every net has
+    /// its driver.
+    pub(super) fn note_case_eq(&mut self, pos: Pos, op: &'static str, a: &[Lit], b: &[Lit]) {
+        if self.quiet == 0 {
+            self.case_eq
+                .push((pos, op, a.iter().chain(b).copied().collect()));
+        }
+    }
+
+    /// Every recorded `===`/`!==` whose operands may read an unknown value is an error.
+    pub(super) fn check_case_eq(&mut self) {
+        if self.case_eq.is_empty() {
+            return;
+        }
+        // The unknown each node reads (its index), or FREE; shared by all sites.
+        let mut reads = vec![UNSEEN; self.aig.len()];
+        let sites = std::mem::take(&mut self.case_eq);
+        for (pos, op, lits) in &sites {
+            let found = lits
+                .iter()
+                .find_map(|l| self.unknown_read(l.node(), &mut reads));
+            if let Some(u) = found {
+                let what = self.unknowns[u as usize].what.clone();
+                self.error(
+                    *pos,
+                    format!("unsupported: `{op}` on a value that may be x or z (it reads {what})"),
+                    "equicone reads `===` as `==` only where both sides are free of x and z; compare known values with `==`, or remove the x",
+                );
+            }
+        }
+    }
+
+    /// The unknown that node `root` reads through gates and net drivers, if any (iterative;
+    /// a loop reads nothing here, the resolver reports it).
+    fn unknown_read(&self, root: u32, reads: &mut [u32]) -> Option<u32> {
+        let mut stack = vec![root];
+        while let Some(&n) = stack.last() {
+            let ni = n as usize;
+            if reads[ni] != UNSEEN && reads[ni] != WALKING {
+                stack.pop();
+                continue;
+            }
+            let children: [Option<u32>; 2] = match self.aig.node(n) {
+                Node::Const => [None, None],
+                Node::And(a, b) => [Some(a.node()), Some(b.node())],
+                Node::Input(k) => {
+                    let o = self.owner[k as usize];
+                    if o & UNKNOWN_BIT != 0 {
+                        reads[ni] = o & !UNKNOWN_BIT;
+                        stack.pop();
+                        continue;
+                    }
+                    [self.drivers[k as usize].map(|d| d.lit.node()), None]
+                }
+            };
+            if reads[ni] == UNSEEN {
+                reads[ni] = WALKING;
+                let mut pushed = false;
+                for c in children.into_iter().flatten() {
+                    if reads[c as usize] == UNSEEN {
+                        stack.push(c);
+                        pushed = true;
+                    }
+                }
+                if pushed {
+                    continue;
+                }
+            }
+            // Every child is done (or on the walk: a loop, read as free).
+            let r = children
+                .into_iter()
+                .flatten()
+                .map(|c| reads[c as usize])
+                .find(|&v| v < FREE)
+                .unwrap_or(FREE);
+            reads[ni] = r;
+            stack.pop();
+        }
+        Some(reads[root as usize]).filter(|&v| v < FREE)
+    }
+}

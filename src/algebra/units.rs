@@ -211,7 +211,11 @@ impl Units {
         let is_adder_table =
             |c: &Cut| c.leaves.len == 3 && (c.tt == 0x96 || c.tt == 0x69 || maj.contains(&c.tt));
         let mut forced_cut: FastMap<u32, Cut> = FastMap::default();
-        for f in forced {
+        // A functional cut counts only inside the cone (its leaves get units of their own).
+        for f in forced
+            .iter()
+            .filter(|f| f.leaves.iter().all(|&l| mask[l as usize]))
+        {
             forced_cut.entry(f.node).or_insert(Cut {
                 leaves: Leaves::of(&f.leaves),
                 tt: f.tt,
@@ -303,6 +307,13 @@ impl Units {
                 leaves: cj.leaves.get().to_vec(),
                 tt: cj.tt,
             });
+        }
+        // Every leaf is an input or a unit (else no polynomial is exact: give up the cuts).
+        if units
+            .iter()
+            .any(|u| u.leaves.iter().any(|&l| rank[l as usize] == u32::MAX))
+        {
+            return None;
         }
         let polys = units
             .iter()

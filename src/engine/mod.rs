@@ -22,16 +22,16 @@ mod progress;
 pub mod result;
 mod split;
 mod stage;
+mod steps;
 mod sweep;
 pub mod unknowns;
 mod window;
 mod words;
 
 use crate::aig::{random_words, simulate_into, SimTable};
-use crate::cnf::Tseitin;
 use crate::design::Design;
 use crate::diag::InputError;
-use crate::sat::{Limits, Sat, SatStats, StopReason};
+use crate::sat::{Limits, StopReason};
 pub use pairing::{pair, PairBy, Shared};
 use pairs::PairQuery;
 use progress::Progress;
@@ -39,6 +39,7 @@ pub use result::{
     Counterexample, Method, PairResult, PairVerdict, ProveReport, Scope, Side, Stats, Verdict,
 };
 use std::time::{Duration, Instant};
+use steps::{apply_findings, overall_verdict, run_engine, structural_pairs};
 pub use sweep::SweepStats;
 
 /// Which engine decides the output pairs.
@@ -218,115 +219,13 @@ pub fn prove_shared(
             candidate: shared.cand_lits[p],
         })
         .collect();
-    // Pairs whose two sides hashed to the same literal need no engine at all.
-    for (p, q) in queries.iter().enumerate() {
-        if outcomes[p].is_none() && q.reference == q.candidate {
-            outcomes[p] = Some(PairVerdict::Equivalent(Method::Structure));
-        }
-    }
+    structural_pairs(&queries, &mut outcomes);
     let open: Vec<usize> = (0..shared.pairs.len())
         .filter(|&p| outcomes[p].is_none())
         .collect();
-    let mut sweep_stats = None;
-    let mut portfolio_groups = None;
-    let (findings, sat): (Vec<Option<Finding>>, SatStats) = match opts.engine {
-        _ if open.is_empty() => (vec![None; queries.len()], SatStats::default()),
-        EngineKind::Plain => {
-            let (f, s) = monolithic::monolithic(
-                &shared.aig,
-                &queries,
-                shared.constraint,
-                &limits,
-                &progress,
-            );
-            (f.into_iter().map(Some).collect(), s)
-        }
-        EngineKind::Pairs => {
-            // Only the open pairs are queried; the others keep their outcome.
-            let mut sat = Sat::new(&limits);
-            let mut ts = Tseitin::new();
-            let f = pairs::decide_open_pairs(
-                &shared.aig,
-                &queries,
-                shared.constraint,
-                &open,
-                &mut sat,
-                &mut ts,
-                &limits,
-                &progress,
-            );
-            (f, sat.stats())
-        }
-        EngineKind::Portfolio | EngineKind::Exhaustive | EngineKind::Bdd | EngineKind::Algebra => {
-            let stages: &[portfolio::Stage] = match opts.engine {
-                EngineKind::Exhaustive => &[portfolio::Stage::Exhaustive],
-                EngineKind::Bdd => &[portfolio::Stage::Bdd],
-                EngineKind::Algebra => &[portfolio::Stage::Algebra],
-                _ => &[
-                    portfolio::Stage::Algebra,
-                    portfolio::Stage::Exhaustive,
-                    portfolio::Stage::Bdd,
-                    portfolio::Stage::Sweep,
-                ],
-            };
-            let buses = words::output_buses(r, c, &shared);
-            let cx = portfolio::Context {
-                aig: &shared.aig,
-                pairs: &queries,
-                constraint: shared.constraint,
-                seed: opts.seed,
-                words: opts.sim_words,
-                jobs: opts.jobs,
-                limits: &limits,
-                progress: &progress,
-                buses: &buses,
-                arithmetic_only: opts.engine != EngineKind::Algebra,
-            };
-            let out = portfolio::run(&cx, &open, stages).map_err(ProveError::Internal)?;
-            sweep_stats = out.sweep;
-            portfolio_groups = Some(out.groups);
-            (out.findings, out.sat)
-        }
-        EngineKind::Sweep => {
-            let (f, s, w) = parallel::sweep_groups(
-                &shared.aig,
-                &queries,
-                shared.constraint,
-                &open,
-                opts.seed,
-                opts.sim_words,
-                opts.jobs,
-                &limits,
-                &progress,
-            )
-            .map_err(ProveError::Internal)?;
-            sweep_stats = Some(w);
-            (f, s)
-        }
-    };
+    let run = run_engine(r, c, &shared, &queries, &open, opts, &limits, &progress)?;
     progress.finish();
-    // Findings in output order: confirm each counterexample once; a vector also marks every
-    // other pair it separates.
-    for (p, f) in findings.into_iter().enumerate() {
-        let Some(f) = f else { continue };
-        match f {
-            Finding::Equal(m) => {
-                if outcomes[p].is_none() {
-                    outcomes[p] = Some(PairVerdict::Equivalent(m));
-                }
-            }
-            Finding::Differ(m, values) => {
-                if revisable(&outcomes[p]) {
-                    record(&shared, r, c, &values, p, m, &mut outcomes, &mut cexs)?;
-                }
-            }
-            Finding::Stopped(s) => {
-                if outcomes[p].is_none() {
-                    outcomes[p] = Some(PairVerdict::Undecided(s));
-                }
-            }
-        }
-    }
+    apply_findings(run.findings, &shared, r, c, &mut outcomes, &mut cexs)?;
     log::debug!("peak memory: {}", peak_memory_note(shared.aig.len()));
 
     let pairs: Vec<PairResult> = shared
@@ -340,13 +239,7 @@ pub fn prove_shared(
             verdict: o.unwrap_or(PairVerdict::Undecided(StopReason::Timeout)),
         })
         .collect();
-    let verdict = if pairs.iter().any(|p| p.status() == Verdict::Different) {
-        Verdict::Different
-    } else if pairs.iter().any(|p| p.status() == Verdict::Undecided) {
-        Verdict::Undecided
-    } else {
-        Verdict::Equivalent
-    };
+    let verdict = overall_verdict(&pairs);
     let ascending_ports = result::AscendingPorts {
         reference: r.ascending_ports(),
         candidate: c.ascending_ports(),
@@ -382,9 +275,9 @@ pub fn prove_shared(
             candidate_ands: shared.ands.1,
             shared_nodes: shared.aig.len(),
             sim_patterns: patterns,
-            sat,
-            sweep: sweep_stats,
-            portfolio: portfolio_groups,
+            sat: run.sat,
+            sweep: run.sweep,
+            portfolio: run.portfolio,
             engine_memory_bytes: rss_at_start
                 .zip(status_kib("VmHWM:"))
                 .map(|(a, p)| p.saturating_sub(a) * 1024),

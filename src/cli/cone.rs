@@ -66,7 +66,7 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
     };
     if d.is_clocked() {
         eprintln!(
-            "warning: {} has {} register bits: this covers the logic of one clock cycle, with register outputs read as inputs; register inputs are not outputs here, so an input that reaches an output only through registers shows as unused",
+            "warning: {} has {} register bits: the audit covers the logic of one clock cycle, with register outputs read as inputs; the section `across clock cycles` follows inputs through the registers",
             d.name,
             d.registers.len()
         );
@@ -105,10 +105,25 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
             eprintln!("wrote {path} (cone of {name})");
         }
     }
-    print(&if a.json {
-        rep.to_json() + "\n"
-    } else {
-        rep.to_string()
+    // Clocked designs: the cone across cycles too.
+    let across = d.is_clocked().then(|| crate::seq::cycle_cones(&d));
+    print(&match (a.json, &across) {
+        (true, None) => rep.to_json() + "\n",
+        (true, Some(c)) => {
+            // The audit's object with one more field, its own fields in their order.
+            let audit = rep.to_json();
+            let body = audit
+                .trim_end()
+                .strip_suffix('}')
+                .unwrap_or(&audit)
+                .trim_end();
+            let extra = serde_json::to_string_pretty(c)
+                .unwrap_or_default()
+                .replace('\n', "\n  ");
+            format!("{body},\n  \"across_cycles\": {extra}\n}}\n")
+        }
+        (false, None) => rep.to_string(),
+        (false, Some(c)) => format!("{rep}{c}"),
     });
     if rep.flagged() {
         Exit::Flagged

@@ -16,12 +16,14 @@ mod correspond;
 mod kinduct;
 mod names;
 mod product;
+mod reach;
 mod report;
 mod simulate;
 mod text;
 mod trace;
 
 pub use product::{HeldInput, InitUnset, Side};
+pub use reach::{cycle_cones, CycleCone, CycleCones};
 pub use report::{
     KInductionLine, NameMismatch, OutputStatus, RegisterPair, SeqReport, UnpairedRegister,
 };

@@ -611,3 +611,30 @@ endmodule
     assert_eq!(rep.verdict, "undecided");
     assert!(rep.k_induction.is_none());
 }
+
+/// `cone` on a clocked design: the pipelined adder's inputs reach `sum` after two clock edges,
+/// the reset after one (it clears the second stage), and a register read by nothing is dead.
+#[test]
+fn cone_follows_inputs_through_registers() {
+    let dir = tempfile::tempdir().unwrap();
+    let f = dir.path().join("add.v");
+    let src = ADDER.replace("MOD", "add").replace(
+        "  always @(posedge clk) begin",
+        "  reg spare;\n  always @(posedge clk) spare <= a[0];\n  always @(posedge clk) begin",
+    );
+    std::fs::write(&f, src).unwrap();
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
+        .args(["cone", "--json"])
+        .arg(&f)
+        .output()
+        .unwrap();
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let across = &v["across_cycles"];
+    let sum0 = &across["outputs"][0];
+    assert_eq!(sum0["output"], "sum[0]");
+    assert_eq!(sum0["inputs"]["a[0]"], 2);
+    assert_eq!(sum0["inputs"]["b[0]"], 2);
+    assert_eq!(sum0["inputs"]["rst"], 1);
+    assert!(sum0["inputs"].get("a[1]").is_none(), "{sum0}");
+    assert_eq!(across["dead_registers"], serde_json::json!(["spare"]));
+}

@@ -495,6 +495,37 @@ const ENABLE_BUG: &str = "module MOD(input clk, input rst, input we, input wa, i
 endmodule
 ";
 
+/// A registered sum whose every register has a synchronous reset written as a leading `if`.
+const RESET_IF: &str =
+    "module MOD(input clk, input rst, input [3:0] a, input [3:0] b, output reg [4:0] s);
+  reg [3:0] ra, rb;
+  always @(posedge clk)
+    if (rst) begin ra <= 4'd0; rb <= 4'd0; s <= 5'd0; end
+    else begin ra <= a; rb <= b; s <= ra + rb; end
+endmodule
+";
+
+/// The same, the sum's reset written into the logic (`rst ? 0 : ...`): after a reset edge it
+/// is 0 in a simulator, so it must not start at a free value (it did: a false difference).
+const RESET_TERNARY: &str =
+    "module MOD(input clk, input rst, input [3:0] a, input [3:0] b, output reg [4:0] s);
+  reg [3:0] a_q, b_q;
+  always @(posedge clk)
+    if (rst) begin a_q <= 0; b_q <= 0; end else begin a_q <= a; b_q <= b; end
+  always @(posedge clk) s <= rst ? 5'd0 : {1'b0, a_q} + {1'b0, b_q};
+endmodule
+";
+
+/// A bug: the sum's reset in the logic gives 1, not 0.
+const RESET_TERNARY_BUG: &str =
+    "module MOD(input clk, input rst, input [3:0] a, input [3:0] b, output reg [4:0] s);
+  reg [3:0] a_q, b_q;
+  always @(posedge clk)
+    if (rst) begin a_q <= 0; b_q <= 0; end else begin a_q <= a; b_q <= b; end
+  always @(posedge clk) s <= rst ? 5'd1 : {1'b0, a_q} + {1'b0, b_q};
+endmodule
+";
+
 fn pairs() -> Vec<Pair> {
     let (equivalent, different) = ("equivalent", "different");
     let p = |name, reference, candidate, expect| Pair {
@@ -543,6 +574,18 @@ fn pairs() -> Vec<Pair> {
             equivalent,
         ),
         p("enables, enable ignored", ENABLE, ENABLE_BUG, different),
+        p(
+            "synchronous reset in the logic",
+            RESET_IF,
+            RESET_TERNARY,
+            equivalent,
+        ),
+        p(
+            "synchronous reset in the logic, wrong value",
+            RESET_IF,
+            RESET_TERNARY_BUG,
+            different,
+        ),
     ]
 }
 

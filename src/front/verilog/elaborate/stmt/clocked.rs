@@ -628,6 +628,7 @@ impl Elaborator<'_> {
             });
         }
         out.sort_by_key(|g| g.input);
+        super::sync_reset::infer_sync_resets(r, &mut out);
         out
     }
 }

@@ -12,5 +12,6 @@ mod always;
 mod clocked;
 mod coverage;
 mod sensitivity;
+mod sync_reset;
 pub(super) use clocked::Clocked;
 pub(super) use coverage::Coverage;

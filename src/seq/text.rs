@@ -187,7 +187,15 @@ impl fmt::Display for SeqReport {
             } else {
                 format!("{} / {}", o.reference, o.candidate)
             };
-            writeln!(f, "  {name}: {} ({})", o.status, o.method)?;
+            if o.status == "undecided" {
+                // No method decided it: say what was checked rather than a method of "none".
+                writeln!(
+                    f,
+                    "  {name}: undecided (not proved; no difference in the cycles checked from reset)"
+                )?;
+            } else {
+                writeln!(f, "  {name}: {} ({})", o.status, o.method)?;
+            }
         }
         if let Some(t) = &self.trace {
             let fd = t.first_difference.as_ref().expect("a shown trace differs");

@@ -134,6 +134,8 @@ pub struct ProveOptions {
     /// other open pairs get at most this much more time; those it leaves open are undecided
     /// with [`StopReason::AfterDifference`]. `None`: decide every pair (within `timeout`).
     pub after_difference: Option<Duration>,
+    /// Renamed ports paired by a port map (`--port-map`), before pairing by name.
+    pub port_map: Option<std::sync::Arc<crate::portmap::BitMap>>,
 }
 
 impl Default for ProveOptions {
@@ -150,6 +152,7 @@ impl Default for ProveOptions {
             progress: false,
             strict_unknowns: false,
             after_difference: None,
+            port_map: None,
         }
     }
 }
@@ -184,7 +187,13 @@ pub fn prove(
     candidate: &Design,
     opts: &ProveOptions,
 ) -> Result<ProveReport, ProveError> {
-    let mut shared = pair(reference, candidate, opts.pair_by, opts.free_extra_inputs)?;
+    let mut shared = pairing::pair_mapped(
+        reference,
+        candidate,
+        opts.pair_by,
+        opts.free_extra_inputs,
+        opts.port_map.as_deref(),
+    )?;
     if !opts.strict_unknowns {
         dont_care::apply(&mut shared, reference);
     }
@@ -294,9 +303,15 @@ pub fn prove_shared(
         ascending_ports,
         paired: if opts.pair_by == PairBy::Position {
             pair_runs::paired_runs(&shared, r, c)
+        } else if opts.port_map.is_some() {
+            // Only the renamed bits: the rest pair by name.
+            let mut runs = pair_runs::paired_runs(&shared, r, c);
+            runs.retain(|run| run.reference != run.candidate);
+            runs
         } else {
             Vec::new()
         },
+        port_map: opts.port_map.as_ref().map(|m| m.file.clone()),
         pairs,
         counterexamples: cexs,
         stats: Stats {

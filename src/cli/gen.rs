@@ -111,7 +111,7 @@ pub fn run(a: &GenArgs) -> Exit {
                 "--rename applies to the clocked families, not to {}",
                 a.kind.name()
             ),
-            "use it with reg-selector, pipe-adder, counter, shift-register or fsm",
+            "use it with reg-selector, pipe-adder, counter, shift-register, fsm or reg-random",
         ));
     }
     let spec = GenSpec {

@@ -104,6 +104,9 @@ pub enum Kind {
     ShiftRegister,
     /// Clocked: state machine of n states (styles onehot and binary, same behaviour).
     Fsm,
+    /// Clocked: random circuit of n gates and n/50 registers with a 5-register delay line
+    /// (`--bug invert`: the delay line stores its input inverted, seen first at cycle 5).
+    RegRandom,
 }
 
 impl Kind {
@@ -132,6 +135,7 @@ impl Kind {
             Kind::Counter => "counter",
             Kind::ShiftRegister => "shift-register",
             Kind::Fsm => "fsm",
+            Kind::RegRandom => "reg-random",
         }
     }
 
@@ -157,6 +161,7 @@ impl Kind {
             Kind::Remap => &[Plain],
             Kind::RegSelector | Kind::PipeAdder | Kind::Counter | Kind::ShiftRegister => &[Plain],
             Kind::Fsm => &[Onehot, Binary],
+            Kind::RegRandom => &[Plain],
         }
     }
 }
@@ -562,7 +567,12 @@ fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenE
         Kind::Sqrt => divide::build_sqrt(&mut c, spec.n, spec.style),
         Kind::Arbiter => arbiter::build(&mut c, spec.n, spec.style),
         Kind::Remap => unreachable!("validate refuses remap"),
-        Kind::RegSelector | Kind::PipeAdder | Kind::Counter | Kind::ShiftRegister | Kind::Fsm => {
+        Kind::RegSelector
+        | Kind::PipeAdder
+        | Kind::Counter
+        | Kind::ShiftRegister
+        | Kind::Fsm
+        | Kind::RegRandom => {
             unreachable!("refused above")
         }
     };
@@ -646,6 +656,11 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
         Kind::Counter => (1, 1 << 16, "a counter needs at least 1 bit"),
         Kind::ShiftRegister => (1, 1 << 16, "a shift register needs at least 1 bit"),
         Kind::Fsm => (2, 1 << 12, "a state machine needs 2 to 4096 states"),
+        Kind::RegRandom => (
+            64,
+            4_000_000,
+            "a random clocked circuit needs at least 64 gates",
+        ),
     };
     if spec.n > max {
         return Err(GenError::new(

@@ -222,7 +222,7 @@ pub fn make_inductive(
         let mut group_of = group_index(classes);
         let mut split = false;
         for (r, m, x) in miters {
-            if group_of.get(&r).is_none() || group_of.get(&r) != group_of.get(&m) {
+            if !group_of.contains_key(&r) || group_of.get(&r) != group_of.get(&m) {
                 continue;
             }
             let l = c.ts.lit(&p.aig, &mut c.sat, x);

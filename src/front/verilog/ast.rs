@@ -202,8 +202,6 @@ pub struct Decl {
     /// Declared names, with an optional `= expr` (net declaration assignment).
     /// (Boxed: most names have none, and a netlist declares a million names.)
     pub names: Vec<(Sym, Pos, Option<Box<Expr>>)>,
-    /// Where the declaration starts.
-    pub pos: Pos,
 }
 
 /// A parameter declaration.
@@ -382,7 +380,7 @@ pub enum Item {
     /// Generate loop.
     GenFor(Box<GenFor>),
     /// Generate `if`: condition, then-items, else-items.
-    GenIf(Box<(Expr, Vec<Item>, Vec<Item>)>, Pos),
+    GenIf(Box<(Expr, Vec<Item>, Vec<Item>)>),
 }
 
 /// A module.

@@ -146,7 +146,8 @@ fn is_ident_char(c: u8) -> bool {
 }
 
 impl<'s> Lexer<'s> {
-    /// A lexer over `src`, which is file number `file`.
+    /// A lexer over `src`, which is file number `file` (for the unit tests).
+    #[cfg(test)]
     pub fn new(src: &'s str, file: u32) -> Lexer<'s> {
         Lexer::with_marks(src, file, &[])
     }

@@ -40,11 +40,6 @@ pub struct Parser<'s, 'n> {
 }
 
 impl<'s, 'n> Parser<'s, 'n> {
-    /// A parser over `src` (file number `file`).
-    pub fn new(src: &'s str, file: u32, names: &'n mut Interner) -> Self {
-        Parser::with_marks(src, file, &[], names)
-    }
-
     /// A parser over preprocessed text whose positions follow `marks` (see
     /// [`Lexer::with_marks`]).
     pub fn with_marks(
@@ -186,17 +181,6 @@ impl<'s, 'n> Parser<'s, 'n> {
         let t = self.peek().clone();
         let d = self.describe(&t.tok);
         Err(self.unexpected(t.pos, what, &d))
-    }
-
-    /// Consume keyword `k` or report.
-    pub fn expect_kw(&mut self, k: Sym) -> PResult<()> {
-        if self.eat_kw(k) {
-            return Ok(());
-        }
-        let t = self.peek().clone();
-        let d = self.describe(&t.tok);
-        let want = self.names.name(k).to_string();
-        Err(self.unexpected(t.pos, &format!("`{want}`"), &d))
     }
 
     /// An identifier (not a keyword).
@@ -466,7 +450,6 @@ impl<'s, 'n> Parser<'s, 'n> {
             signed: false,
             range: None,
             names: Vec::new(),
-            pos,
         };
         match t.tok {
             Tok::Ident(k) if k == kw::INPUT => d.dir = Some(Dir::Input),
@@ -644,7 +627,6 @@ impl<'s, 'n> Parser<'s, 'n> {
                     signed: true,
                     range: None,
                     names: vec![(n, p, None)],
-                    pos: p,
                 })));
             }
         }

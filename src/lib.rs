@@ -31,7 +31,7 @@ pub mod explain;
 pub mod front;
 pub mod gen;
 pub(crate) mod hash;
-pub mod memory;
+pub mod host;
 pub mod portmap;
 pub(crate) mod report;
 pub mod rng;

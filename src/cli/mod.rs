@@ -14,7 +14,7 @@ mod eval;
 mod eval_trace;
 mod gen;
 mod gen_enums;
-mod memory;
+mod host;
 mod merge;
 mod prove;
 mod remap;
@@ -78,7 +78,7 @@ pub enum Command {
 
 /// Run a parsed command line and return its exit code.
 pub fn run(cli: Cli) -> Exit {
-    crate::memory::set_probe(memory::proc_status);
+    host::install();
     match cli.command {
         Command::Demo(a) => demo::run(&a),
         Command::Prove(a) => prove::run(&a),

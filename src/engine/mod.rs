@@ -199,10 +199,10 @@ pub fn prove_shared(
     let mut outcomes = vec![None; shared.pairs.len()];
     let mut cexs: Vec<Counterexample> = Vec::new();
 
-    let memory_at_start = crate::memory::measure();
+    let memory_at_start = crate::host::measure();
     log::debug!(
         "memory with the shared AIG built: {}",
-        crate::memory::now_note()
+        crate::host::now_note()
     );
     let progress = Progress::new(opts.progress, shared.pairs.len());
     let patterns = if opts.engine == EngineKind::Plain {
@@ -229,10 +229,7 @@ pub fn prove_shared(
     let run = run_engine(r, c, &shared, &queries, &open, opts, &limits, &progress)?;
     progress.finish();
     apply_findings(run.findings, &shared, r, c, &mut outcomes, &mut cexs)?;
-    log::debug!(
-        "peak memory: {}",
-        crate::memory::peak_note(shared.aig.len())
-    );
+    log::debug!("peak memory: {}", crate::host::peak_note(shared.aig.len()));
 
     let pairs: Vec<PairResult> = shared
         .pairs
@@ -285,7 +282,7 @@ pub fn prove_shared(
             sweep: run.sweep,
             portfolio: run.portfolio,
             engine_memory_bytes: memory_at_start
-                .zip(crate::memory::measure())
+                .zip(crate::host::measure())
                 .map(|(start, end)| end.peak_bytes.saturating_sub(start.resident_bytes)),
             seconds: start.elapsed().as_secs_f64(),
         },

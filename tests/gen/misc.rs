@@ -1,7 +1,6 @@
 //! Request errors, determinism, option spellings, and the project's bench reader accepting the
 //! generated bench text with the same bit names as the Verilog ports.
 
-use super::bench_eval::Bench;
 use super::support::{bench_text, ports, random_vectors};
 use equicone::front::load_texts;
 use equicone::gen::{generate, Bug, GenFormat, GenSpec, Kind, Style};
@@ -97,7 +96,7 @@ fn the_project_readers_read_generated_bench_and_verilog() {
     specs.push(rnd);
     for spec in specs {
         let p = ports(&spec);
-        let ours = Bench::parse(&bench_text(&spec));
+        let ours = super::oracle::parse(&bench_text(&spec)).evaluator();
         let expect_in: Vec<String> = p
             .inputs
             .iter()

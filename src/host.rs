@@ -1,7 +1,10 @@
-//! Memory figures for the debug log. The library reads no operating-system files: the
-//! command line installs a probe ([`set_probe`]) that reports the process's resident memory,
-//! and the engine's debug lines ask it; without one they say the figure is not measured.
+//! What the library asks of the program that hosts it. The library itself touches no
+//! standard stream and reads no operating-system file: the command line installs a memory
+//! probe ([`set_memory_probe`], asked by the engine's debug log and its memory figure) and a
+//! place to draw progress lines ([`set_progress_target`]); without them, as in tests, the
+//! figures are "not measured" and no progress is drawn.
 
+use indicatif::ProgressDrawTarget;
 use std::sync::OnceLock;
 
 /// Resident memory of the process.
@@ -16,11 +19,26 @@ pub struct MemoryUse {
 /// A function reporting the process's memory, where the system tells it.
 pub type MemoryProbe = fn() -> Option<MemoryUse>;
 
-static PROBE: OnceLock<MemoryProbe> = OnceLock::new();
+/// Where progress lines go: a draw target, or `None` for none (e.g. standard error is not a
+/// terminal).
+pub type ProgressTarget = fn() -> Option<ProgressDrawTarget>;
 
-/// Install the probe the debug log asks (the first call wins).
-pub fn set_probe(probe: MemoryProbe) {
+static PROBE: OnceLock<MemoryProbe> = OnceLock::new();
+static PROGRESS: OnceLock<ProgressTarget> = OnceLock::new();
+
+/// Install the memory probe (the first call wins).
+pub fn set_memory_probe(probe: MemoryProbe) {
     let _ = PROBE.set(probe);
+}
+
+/// Install where progress lines are drawn (the first call wins).
+pub fn set_progress_target(target: ProgressTarget) {
+    let _ = PROGRESS.set(target);
+}
+
+/// Where to draw a progress line now, if anywhere.
+pub(crate) fn progress_target() -> Option<ProgressDrawTarget> {
+    PROGRESS.get().and_then(|target| target())
 }
 
 /// The process's memory now, when a probe is installed and the system reports it.

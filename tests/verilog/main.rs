@@ -11,6 +11,7 @@ mod netlists;
 #[path = "../oracle/mod.rs"]
 mod oracle;
 mod preprocess;
+mod primitives;
 mod regress;
 mod rtl_styles;
 mod semantics;

@@ -209,7 +209,7 @@ fn stamp_run(stamp: &mut crate::shard::cone::ConeStamp, a: &ConeArgs) {
         a.expect.is_some(),
         a.limits.seed,
     );
-    let options = match a.limits.conflict_limit {
+    let options = match a.limits.budget.conflict_limit {
         Some(c) => format!("{options}|{c}"),
         None => options,
     };

@@ -202,6 +202,8 @@ pub struct Decl {
     /// Declared names, with an optional `= expr` (net declaration assignment).
     /// (Boxed: most names have none, and a netlist declares a million names.)
     pub names: Vec<(Sym, Pos, Option<Box<Expr>>)>,
+    /// Where the declaration starts.
+    pub pos: Pos,
 }
 
 /// A parameter declaration.

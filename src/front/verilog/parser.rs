@@ -183,6 +183,17 @@ impl<'s, 'n> Parser<'s, 'n> {
         Err(self.unexpected(t.pos, what, &d))
     }
 
+    /// Consume keyword `k` or report.
+    pub fn expect_kw(&mut self, k: Sym) -> PResult<()> {
+        if self.eat_kw(k) {
+            return Ok(());
+        }
+        let t = self.peek().clone();
+        let d = self.describe(&t.tok);
+        let want = self.names.name(k).to_string();
+        Err(self.unexpected(t.pos, &format!("`{want}`"), &d))
+    }
+
     /// An identifier (not a keyword).
     pub fn ident(&mut self, what: &str) -> PResult<(Sym, Pos)> {
         let t = self.peek().clone();
@@ -452,6 +463,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             signed: false,
             range: None,
             names: Vec::new(),
+            pos,
         };
         match t.tok {
             Tok::Ident(k) if k == kw::INPUT => d.dir = Some(Dir::Input),
@@ -633,6 +645,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                     signed: true,
                     range: None,
                     names: vec![(n, p, None)],
+                    pos: p,
                 })));
             }
         }

@@ -58,7 +58,7 @@ pub use emit::{Circuit, Net, Op};
 use std::fmt;
 
 /// What to generate.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub enum Kind {
     /// N:1 selector of W-bit channels.
     Selector,
@@ -167,7 +167,7 @@ impl Kind {
 }
 
 /// How to build it. Each kind accepts the styles of [`Kind::styles`].
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub enum Style {
     /// Behavioural one-liner (Verilog); a documented gate form in bench.
     Spec,
@@ -264,7 +264,7 @@ impl Style {
 }
 
 /// A planted bug.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub enum Bug {
     /// Exchange two wires: the data inputs of a 2:1 cell, or one fan-in each of two gates of
     /// the same type.
@@ -302,7 +302,7 @@ impl Bug {
 }
 
 /// Output format.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash)]
 pub enum GenFormat {
     /// IEEE 1364-2005 Verilog.
     Verilog,

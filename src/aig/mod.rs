@@ -42,6 +42,8 @@ pub struct Aig {
     nodes: Vec<Node>,
     inputs: Vec<u32>,
     strash: FastMap<(Lit, Lit), u32>,
+    /// Keep what the source wrote: `x & !x` and `s ? t : t` stay nodes (see [`Aig::as_written`]).
+    written: bool,
 }
 
 impl Aig {
@@ -51,7 +53,23 @@ impl Aig {
             nodes: vec![Node::Const],
             inputs: Vec::new(),
             strash: FastMap::default(),
+            written: false,
         }
+    }
+
+    /// An empty graph that keeps the structure a source wrote: `x & !x` is a node (not the
+    /// constant 0) and `s ? t : t` reads `s`, so each output's structural cone holds every
+    /// input its expressions read. The function is the same; only the cone audit uses it.
+    pub fn as_written() -> Aig {
+        Aig {
+            written: true,
+            ..Aig::new()
+        }
+    }
+
+    /// Whether this graph keeps the written structure ([`Aig::as_written`]).
+    pub fn is_written(&self) -> bool {
+        self.written
     }
 
     /// Number of nodes, the constant and the inputs included.
@@ -112,7 +130,7 @@ impl Aig {
     /// AND of two literals, with the trivial rules and structural hashing.
     pub fn and(&mut self, a: Lit, b: Lit) -> Lit {
         let (a, b) = if a <= b { (a, b) } else { (b, a) };
-        if a == Lit::FALSE || a == !b {
+        if a == Lit::FALSE || (a == !b && !self.written) {
             return Lit::FALSE;
         }
         if a == Lit::TRUE || a == b {
@@ -165,7 +183,7 @@ impl Aig {
 
     /// Two-way selector: `s ? t : e`.
     pub fn mux(&mut self, s: Lit, t: Lit, e: Lit) -> Lit {
-        if t == e {
+        if t == e && !self.written {
             return t;
         }
         let p = self.and(s, t);

@@ -103,6 +103,7 @@ impl PreprocArgs {
         front::verilog::preprocess::Options {
             include_dirs: self.include_dirs.iter().map(Into::into).collect(),
             defines: self.defines.clone(),
+            keep_written: false,
         }
     }
 }
@@ -113,6 +114,27 @@ impl DesignArgs {
         let mut paths = vec![self.path.clone()];
         paths.extend(self.also.iter().cloned());
         load(paths, self.format, self.top.clone(), &self.pre)
+    }
+
+    /// `d` (read from these options) read again as written, for the cone audit's structural
+    /// cones ([`crate::cone::AuditOptions::structure`]): only for a Verilog design without a
+    /// complete netlist; `None` otherwise or when the second read fails.
+    pub fn load_written(&self, d: &Design) -> Option<Design> {
+        let complete = d.netlist.as_ref().is_some_and(|n| n.complete);
+        if d.format != Format::Verilog || complete {
+            return None;
+        }
+        let mut paths = vec![self.path.clone()];
+        paths.extend(self.also.iter().cloned());
+        let mut preprocess = self.pre.options();
+        preprocess.keep_written = true;
+        let src = Source {
+            paths,
+            format: self.format.map(Format::from),
+            top: self.top.clone(),
+            preprocess,
+        };
+        front::load(&src).ok()
     }
 
     /// Read the design under `limits`: when its deadline passes while reading, the run is

@@ -119,6 +119,7 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
         support: a.limits.support(!a.json),
         text_evidence: a.evidence,
         shard,
+        structure: a.design.load_written(&d).map(std::sync::Arc::new),
     };
     let mut rep = cone::audit(&d, &opts, &limits);
     if let Some(stamp) = &mut rep.shard {

@@ -25,6 +25,37 @@ pub struct AuditOptions {
     /// Audit only this shard's share of the selected outputs (`cone --shard K/N`): a partial
     /// report, without the flags that need every output (the merge adds them).
     pub shard: Option<crate::shard::Shard>,
+    /// The same design read as written ([`crate::aig::Aig::as_written`]), for the structural
+    /// cones of a design without a complete netlist: an input that an expression reads but
+    /// that folds away (`b` in `a & (b | ~b)`) is then in the cone and flagged redundant,
+    /// not unused. Ignored unless its inputs and outputs are the design's.
+    pub structure: Option<std::sync::Arc<Design>>,
+}
+
+/// The structural graph of `design`, from `written` (the same design read as written) when
+/// the design has no complete netlist and `written` has the same inputs and outputs.
+fn structural_graph(design: &Design, written: Option<&Design>) -> StructuralGraph {
+    let graph = StructuralGraph::build(design);
+    let Some(w) = written else { return graph };
+    let same = graph.source == super::structural::GraphSource::Aig
+        && w.inputs.len() == design.inputs.len()
+        && w.outputs.len() == design.outputs.len()
+        && w.inputs
+            .iter()
+            .zip(&design.inputs)
+            .all(|(a, b)| a.name == b.name)
+        && w.outputs
+            .iter()
+            .zip(&design.outputs)
+            .all(|(a, b)| a.name == b.name);
+    if !same {
+        return graph;
+    }
+    let mut g = StructuralGraph::build(w);
+    if g.source == super::structural::GraphSource::Aig {
+        g.source = super::structural::GraphSource::Written;
+    }
+    g
 }
 
 /// Resolve `--output` names (bits, buses, ranges such as `d[0..3]`) to output indices, in
@@ -68,7 +99,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     let shard = opts
         .shard
         .map(|s| crate::shard::cone::restrict_outputs(&mut outputs, s));
-    let graph = StructuralGraph::build(design);
+    let graph = structural_graph(design, opts.structure.as_deref());
     let cones: Vec<_> = outputs.iter().map(|&o| graph.cone(o)).collect();
     let bar = super::progress_bar(opts.support.progress, "cone audit");
     let (results, stats) = run(

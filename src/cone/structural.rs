@@ -17,6 +17,9 @@ pub enum GraphSource {
     Netlist,
     /// The and-inverter graph (the front-end kept no complete netlist).
     Aig,
+    /// The and-inverter graph of the expressions as written, nothing folded away (Verilog
+    /// RTL: see [`crate::aig::Aig::as_written`]).
+    Written,
 }
 
 /// One vertex of the structural graph.

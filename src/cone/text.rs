@@ -11,6 +11,7 @@ impl fmt::Display for AuditReport {
         let graph = match self.graph {
             GraphSource::Netlist => "netlist as written",
             GraphSource::Aig => "and-inverter graph",
+            GraphSource::Written => "expressions as written",
         };
         writeln!(
             f,

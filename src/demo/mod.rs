@@ -93,6 +93,7 @@ pub fn run() -> Result<String, String> {
             support: Default::default(),
             text_evidence: false,
             shard: None,
+            structure: None,
         },
         &limits,
     );

@@ -157,3 +157,73 @@ fn json_dot_and_expect_files() {
         err(&o)
     );
 }
+
+/// Issue 13 A4: a Verilog input that an expression reads but that folds away is in the cone
+/// (from the expressions as written) and redundant, exactly as the same logic written as bench
+/// gates is; `unused ... not connected` is only for inputs nothing reads.
+#[test]
+fn verilog_cones_come_from_the_expressions_as_written() {
+    let d = folder(&[
+        (
+            "a4.v",
+            "module m(input a, b, input [1:0] op, input en, input spare, output y, output tie_lo);\n  assign y = a & (b | ~b);\n  assign tie_lo = op[0] & ~op[0] & en;\nendmodule\n",
+        ),
+        (
+            "a4.bench",
+            "INPUT(a)\nINPUT(b)\nOUTPUT(y)\nnb = NOT(b)\no = OR(b, nb)\ny = AND(a, o)\n",
+        ),
+    ]);
+    let o = equicone(d.path(), &["cone", "a4.v", "--json"]);
+    assert_eq!(o.status.code(), Some(1), "{}", err(&o));
+    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    assert_eq!(v["graph"], "written");
+    let cone = |name: &str| -> Vec<String> {
+        let out = v["outputs"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|x| x["name"] == name)
+            .unwrap();
+        let c: Vec<String> = serde_json::from_value(out["cone"].clone()).unwrap();
+        c
+    };
+    assert_eq!(cone("y"), ["a", "b"]);
+    assert_eq!(cone("tie_lo"), ["op[0]", "en"]);
+    let flags = v["flags"].as_array().unwrap();
+    let redundant = |o: &str, i: &str| {
+        flags
+            .iter()
+            .any(|f| f["flag"] == "redundant_input" && f["output"] == o && f["input"] == i)
+    };
+    assert!(redundant("y", "b") && redundant("tie_lo", "op[0]") && redundant("tie_lo", "en"));
+    let connected: Vec<(String, bool)> = flags
+        .iter()
+        .filter(|f| f["flag"] == "unused_input")
+        .map(|f| {
+            (
+                f["input"].as_str().unwrap().to_string(),
+                f["connected"].as_bool().unwrap(),
+            )
+        })
+        .collect();
+    for (input, wired) in &connected {
+        let read = !matches!(input.as_str(), "op[1]" | "spare");
+        assert_eq!(*wired, read, "{input}: {connected:?}");
+    }
+    // The same logic as bench gates: the same classification of b.
+    let o = equicone(d.path(), &["cone", "a4.bench", "--json"]);
+    let w: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    assert_eq!(w["graph"], "netlist");
+    assert!(w["flags"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .any(|f| f["flag"] == "redundant_input" && f["input"] == "b"));
+    // The text names where the cones come from.
+    let o = equicone(d.path(), &["cone", "a4.v"]);
+    assert!(
+        out(&o).contains("structural cones from the expressions as written"),
+        "{}",
+        out(&o)
+    );
+}

@@ -64,6 +64,7 @@ fn macros_conditionals_and_search_directories() {
     let base = Options {
         include_dirs: vec![dir.path().join("inc")],
         defines: vec![("ZV".into(), "1'b1".into())],
+        keep_written: false,
     };
     for (extra, f) in [
         (
@@ -103,6 +104,7 @@ fn macros_conditionals_and_search_directories() {
     let o = Options {
         include_dirs: base.include_dirs.clone(),
         defines: vec![],
+        keep_written: false,
     };
     let e = read_in(dir.path(), "top.v", &o).unwrap_err();
     assert!(e.contains("top.v:13:14: error: undefined macro `ZV"), "{e}");

@@ -110,7 +110,7 @@ fn read_inner(
     if !diags.is_empty() {
         return Err(InputError { diagnostics: diags });
     }
-    let mut d = elaborate::elaborate(&names, &files, mods, top)
+    let mut d = elaborate::elaborate(&names, &files, mods, top, opts.keep_written)
         .map_err(|e| e.in_stage(Stage::Elaborate))?;
     for w in &mut d.warnings {
         w.stage = Stage::Elaborate;

@@ -30,7 +30,8 @@ pub const MAX_DEPTH: usize = 64;
 /// Macro expansions produce at most this many bytes in all.
 pub const MAX_EXPANSION: usize = 64 << 20;
 
-/// What the command line adds: include directories (`-I DIR`) and macros (`-D NAME=VALUE`).
+/// What the command line adds: include directories (`-I DIR`) and macros (`-D NAME=VALUE`);
+/// and how the reader builds the graph.
 #[derive(Clone, Debug, Default, PartialEq, Eq)]
 pub struct Options {
     /// Searched in order after the directory of the including file.
@@ -38,6 +39,9 @@ pub struct Options {
     /// Macros defined before the first file, in order (`NAME` alone is `NAME=` with an
     /// empty body).
     pub defines: Vec<(String, String)>,
+    /// Build the graph as written ([`crate::aig::Aig::as_written`]): the cone audit's
+    /// structural cones then hold every input an expression reads, `b` in `a & (b | ~b)`.
+    pub keep_written: bool,
 }
 
 impl Options {

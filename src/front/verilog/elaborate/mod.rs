@@ -413,8 +413,12 @@ pub fn elaborate(
     files: &[Arc<str>],
     mods: Vec<Module>,
     top: Option<&str>,
+    keep_written: bool,
 ) -> Result<Design, InputError> {
     let mut e = Elaborator::new(names, files, &mods);
+    if keep_written {
+        e.aig = Aig::as_written();
+    }
     // Duplicate module names.
     let mut seen: HashMap<Sym, Pos> = HashMap::new();
     for m in &mods {

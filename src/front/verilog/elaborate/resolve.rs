@@ -174,7 +174,11 @@ impl Elaborator<'_> {
 /// Build the design of top module `m` (elaborated in scope `scope`).
 pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design {
     let mut r = Resolver {
-        design_aig: Aig::new(),
+        design_aig: if e.aig.is_written() {
+            Aig::as_written()
+        } else {
+            Aig::new()
+        },
         memo: Vec::new(),
         busy: Vec::new(),
         primary: HashMap::new(),

@@ -282,6 +282,12 @@ impl Elaborator<'_> {
                         let v = self.eval_self(ctx, &args[0]);
                         extend(v.bits, w, s)
                     }
+                    "$bits" => {
+                        // IEEE 1800-2017 clause 20.6.2 (from memory): the argument's
+                        // self-determined width, a constant; the argument is not evaluated.
+                        let t = self.expr_type(ctx, &args[0]);
+                        extend(bits::constant(t.width as i64, 32), w, s)
+                    }
                     _ => {
                         // $clog2: constant argument only.
                         let r = match self.const_val(ctx.scope, &args[0]) {

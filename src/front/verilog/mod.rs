@@ -17,6 +17,7 @@ mod parse_package;
 mod parse_recover;
 mod parse_stmt;
 mod parse_types;
+mod parse_udp;
 pub mod parser;
 pub mod pos;
 pub mod preprocess;

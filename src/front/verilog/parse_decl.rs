@@ -124,7 +124,11 @@ impl Parser<'_, '_> {
                 _ => return Err(self.error(pos, "expected a delay value after `#`")),
             }
         }
-        if self.warnings.is_empty() {
+        if !self
+            .warnings
+            .iter()
+            .any(|w| w.kind == SyntaxKind::DelayIgnored)
+        {
             self.warnings.push(SyntaxError::new(
                 Stage::Parse,
                 pos,

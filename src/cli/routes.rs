@@ -147,7 +147,7 @@ pub fn run(a: &RoutesArgs) -> Exit {
         print(&report::to_json(&rep));
     } else {
         let mut s = format!(
-            "design   {}\nselect   {} ({} bit{}, {} values)\nroutes (each proved by SAT for its select value; ~ marks an inverted route)\n",
+            "design   {}\nselect   {} ({} bit{}, {} values)\nroutes (each proved for its select value, by constant folding or SAT; ~ marks an inverted route)\n",
             d.name,
             a.select,
             sel.len(),

@@ -130,6 +130,8 @@ pub struct ProveOptions {
     /// Read an `x` of the reference strictly: the candidate must match it for every value it
     /// takes (false: where the reference output is `x` it is a don't-care).
     pub strict_unknowns: bool,
+    /// Renamed ports paired by a port map (`--port-map`), before pairing by name.
+    pub port_map: Option<std::sync::Arc<crate::portmap::BitMap>>,
 }
 
 impl Default for ProveOptions {
@@ -145,6 +147,7 @@ impl Default for ProveOptions {
             jobs: 0,
             progress: false,
             strict_unknowns: false,
+            port_map: None,
         }
     }
 }
@@ -179,7 +182,13 @@ pub fn prove(
     candidate: &Design,
     opts: &ProveOptions,
 ) -> Result<ProveReport, ProveError> {
-    let mut shared = pair(reference, candidate, opts.pair_by, opts.free_extra_inputs)?;
+    let mut shared = pairing::pair_mapped(
+        reference,
+        candidate,
+        opts.pair_by,
+        opts.free_extra_inputs,
+        opts.port_map.as_deref(),
+    )?;
     if !opts.strict_unknowns {
         dont_care::apply(&mut shared, reference);
     }
@@ -265,9 +274,15 @@ pub fn prove_shared(
         ascending_ports,
         paired: if opts.pair_by == PairBy::Position {
             pair_runs::paired_runs(&shared, r, c)
+        } else if opts.port_map.is_some() {
+            // Only the renamed bits: the rest pair by name.
+            let mut runs = pair_runs::paired_runs(&shared, r, c);
+            runs.retain(|run| run.reference != run.candidate);
+            runs
         } else {
             Vec::new()
         },
+        port_map: opts.port_map.as_ref().map(|m| m.file.clone()),
         pairs,
         counterexamples: cexs,
         stats: Stats {

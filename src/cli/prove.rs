@@ -282,7 +282,7 @@ pub struct CnfArgs {
 /// Run `prove`: read both designs, hand them to the check session, print its outcome.
 pub fn run(a: &ProveArgs) -> Exit {
     // The clock starts before reading: --timeout covers the whole run.
-    let timeout = match timeout_of(a.limits.timeout) {
+    let timeout = match timeout_of(a.limits.budget.timeout) {
         Ok(t) => t,
         Err(e) => return e,
     };
@@ -326,7 +326,7 @@ pub fn run(a: &ProveArgs) -> Exit {
             free_extra_inputs: a.pair.free_extra_inputs,
             engine: a.engine.into(),
             timeout: deadline.remaining(),
-            conflict_limit: a.limits.conflict_limit,
+            conflict_limit: a.limits.budget.conflict_limit,
             seed: a.limits.seed,
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
@@ -417,7 +417,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
             free_extra_inputs: a.pair.free_extra_inputs,
             engine: a.engine.into(),
             timeout: deadline.remaining(),
-            conflict_limit: a.limits.conflict_limit,
+            conflict_limit: a.limits.budget.conflict_limit,
             seed: a.limits.seed,
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
@@ -552,7 +552,7 @@ fn stamp_run(stamp: &mut crate::shard::ShardStamp, a: &ProveArgs) {
         p.free_extra_inputs,
         a.engine,
         a.limits.seed,
-        a.limits.conflict_limit,
+        a.limits.budget.conflict_limit,
         a.assume,
         p.ref_also.len()
     );

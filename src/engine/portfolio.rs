@@ -163,7 +163,9 @@ fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, Strin
         }
     }
     let mut out = StageOutput::default();
-    pre_sweep(cx, &mut groups, &mut out);
+    if cx.sweep_follows {
+        pre_sweep(cx, &mut groups, &mut out);
+    }
     for (members, sup) in groups {
         if cx.limits.expired() {
             break;
@@ -358,6 +360,7 @@ mod tests {
             progress: p,
             buses: &[],
             arithmetic_only: true,
+            sweep_follows: true,
         }
     }
 

@@ -753,6 +753,22 @@ mod unknowns_as_dont_cares {
         let o = equicone(&["prove", s, s, "--json"]);
         let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
         assert_eq!(v["dont_care_pairs"], 1);
+        // Against a candidate free of x, the reference's x is only a don't-care: the advice
+        // about free inputs (for candidate unknowns, or all under --strict-unknowns) is not
+        // printed; under --strict-unknowns it is.
+        let tree = tmp("dc_tree.v");
+        std::fs::write(
+            &tree,
+            "module m(input [1:0] s, input a, b, c, output y);\n  assign y = s[1] ? c : (s[0] ? b : a);\nendmodule\n",
+        )
+        .unwrap();
+        let t = tree.to_str().unwrap();
+        let o = equicone(&["prove", s, t]);
+        assert_eq!(code(&o), 0, "{}", stdout(&o));
+        assert!(!stdout(&o).contains("is a free input"), "{}", stdout(&o));
+        let o = equicone(&["prove", s, t, "--strict-unknowns"]);
+        assert_eq!(code(&o), 1, "{}", stdout(&o));
+        assert!(stdout(&o).contains("is a free input"), "{}", stdout(&o));
         let o = equicone(&["prove", s, s, "--strict-unknowns", "--json"]);
         assert_eq!(code(&o), 1);
         let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();

@@ -33,7 +33,11 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
         crate::engine::PairBy::Name => "by name",
         crate::engine::PairBy::Position => "by position (bits matched in declaration order)",
     };
-    let _ = writeln!(s, "pairing     {by}, {n} output pair{}", plural(n));
+    let map = match &r.port_map {
+        Some(f) => format!(" (renamed bits by the port map {f})"),
+        None => String::new(),
+    };
+    let _ = writeln!(s, "pairing     {by}{map}, {n} output pair{}", plural(n));
     s += &crate::engine::pair_runs::runs_text(&r.paired);
     for a in &r.assumptions {
         let _ = writeln!(s, "assuming    {a}");
@@ -55,7 +59,12 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
                 r.unknowns.len() - 8
             );
         }
-        if r.assumptions.is_empty() {
+        // Reference unknowns read as don't-cares are explained by the `don't-care` line; the
+        // advice is for unknowns that are free inputs (the candidate's, or all under
+        // --strict-unknowns).
+        let only_dont_cares =
+            r.dont_care_pairs > 0 && r.unknowns.iter().all(|u| u.starts_with("reference:"));
+        if r.assumptions.is_empty() && !only_dont_cares {
             let _ = writeln!(s, "            {}", crate::engine::unknowns::ADVICE);
         }
     }

@@ -55,6 +55,7 @@ pub(crate) fn run(
         sweep: None,
     };
     let mut left: Vec<usize> = open.to_vec();
+    let mut deferred: Vec<usize> = Vec::new();
     for &(stage, runner) in TABLE.iter().filter(|(s, _)| stages.contains(s)) {
         if left.is_empty() {
             break;
@@ -79,7 +80,12 @@ pub(crate) fn run(
         if let Some(w) = so.sweep {
             out.sweep.get_or_insert_with(SweepStats::default).add(&w);
         }
-        left.retain(|&p| findings[p].is_none());
+        deferred.extend(so.deferred);
+        left.retain(|&p| findings[p].is_none() && !deferred.contains(&p));
+    }
+    deferred.retain(|&p| findings[p].is_none());
+    if !deferred.is_empty() {
+        super::words::run_deferred(cx, &deferred, stages, &mut findings, &mut out)?;
     }
     let reason = if cx.limits.expired() {
         StopReason::Timeout

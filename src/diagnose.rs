@@ -259,9 +259,29 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
     s += &format!(
         "\nroute tables over `{select}` for the differing outputs (each route proved by SAT)\n"
     );
-    for t in &d.routes {
+    let mut at = 0;
+    while at < d.routes.len() {
+        let t = &d.routes[at];
+        let alike = alike_run(&d.routes[at..]);
+        at += alike;
         let label = crate::engine::pair_runs::pair_label(&t.reference, &t.candidate);
-        s += &format!("  {label}\n");
+        if alike == 1 {
+            s += &format!("  {label}\n");
+        } else {
+            let last = &d.routes[at - 1];
+            let span = |first: &str, last: &str| {
+                let (bus, a) = crate::design::split_bit(first);
+                let b = crate::design::split_bit(last).1;
+                format!("{bus}[{}..{}]", a.unwrap_or(0), b.unwrap_or(0))
+            };
+            let group = crate::engine::pair_runs::pair_label(
+                &span(&t.reference, &last.reference),
+                &span(&t.candidate, &last.candidate),
+            );
+            s += &format!(
+                "  {group} ({alike} bits with the same routes, each input index shifted by the bit's offset; shown for {label})\n"
+            );
+        }
         let rr = routes::render(select, &routes::compress(&t.reference_routes));
         let cr = routes::render(select, &routes::compress(&t.candidate_routes));
         s += &format!("    reference  {}\n", rr.join("; "));
@@ -283,6 +303,54 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
         }
     }
     s
+}
+
+/// How many tables from the first of `tables` on are alike: output bits `y[k]`, `y[k+1]`, ...
+/// (on both sides) whose routes equal the first table's with every input index shifted by the
+/// same offset (`y[0]` routes `ch[8]` where `y[1]` routes `ch[9]`), and the same select values
+/// differ or stay undecided. The text report prints such a run once.
+fn alike_run(tables: &[RouteDiff]) -> usize {
+    use crate::design::split_bit;
+    let Some(first) = tables.first() else {
+        return 0;
+    };
+    let shifted = |a: &str, b: &str, by: i64| {
+        let (pa, ia) = split_bit(a);
+        let (pb, ib) = split_bit(b);
+        pa == pb && matches!((ia, ib), (Some(x), Some(y)) if x + by == y)
+    };
+    let route_shifted = |a: &Route, b: &Route, by: i64| match (a, b) {
+        (
+            Route::Input {
+                name: na,
+                inverted: ia,
+            },
+            Route::Input {
+                name: nb,
+                inverted: ib,
+            },
+        ) => ia == ib && shifted(na, nb, by),
+        _ => a == b,
+    };
+    let mut n = 1;
+    for (j, t) in tables.iter().enumerate().skip(1) {
+        let by = j as i64;
+        let alike = shifted(&first.reference, &t.reference, by)
+            && shifted(&first.candidate, &t.candidate, by)
+            && t.differing_values == first.differing_values
+            && t.undecided_values == first.undecided_values
+            && t.reference_routes.len() == first.reference_routes.len()
+            && t.candidate_routes.len() == first.candidate_routes.len()
+            && (first.reference_routes.iter().zip(&t.reference_routes))
+                .all(|(a, b)| route_shifted(a, b, by))
+            && (first.candidate_routes.iter().zip(&t.candidate_routes))
+                .all(|(a, b)| route_shifted(a, b, by));
+        if !alike {
+            break;
+        }
+        n += 1;
+    }
+    n
 }
 
 /// Sorted values as runs `3, 7..9, 12`, at most `most` runs, then `... (N more)`.
@@ -361,5 +429,52 @@ mod tests {
             "{t}"
         );
         assert_eq!(value_runs(&[1, 2, 3, 5, 9, 10], 2), "1..3, 5, ... (1 more)");
+    }
+
+    /// Output bits whose route tables differ only by a shift of every input index (the bits of
+    /// one selected word) print once, as a run; a bit that breaks the pattern starts its own.
+    #[test]
+    fn alike_route_tables_print_once_as_a_run() {
+        let table = |bit: usize, swap: bool| {
+            let r: Vec<String> = (0..4).map(|v| format!("ch[{}]", 8 * v + bit)).collect();
+            let mut c = r.clone();
+            if swap {
+                c.swap(1, 2);
+            }
+            let as_refs = |v: &[String]| routes(&v.iter().map(|x| x.as_str()).collect::<Vec<_>>());
+            RouteDiff {
+                reference: format!("y[{bit}]"),
+                candidate: format!("y[{bit}]"),
+                reference_routes: as_refs(&r),
+                candidate_routes: as_refs(&c),
+                differing_values: if swap { vec![1, 2] } else { vec![] },
+                undecided_values: vec![],
+            }
+        };
+        let d = Diagnosis {
+            supports: Vec::new(),
+            select: Some("sel".into()),
+            routes: vec![
+                table(0, true),
+                table(1, true),
+                table(2, true),
+                table(3, false),
+            ],
+            partial: false,
+            seconds: 0.0,
+        };
+        assert_eq!(alike_run(&d.routes), 3);
+        assert_eq!(alike_run(&d.routes[3..]), 1);
+        let t = diagnosis_text(&d);
+        assert!(
+            t.contains("  y[0..2] (3 bits with the same routes, each input index shifted by the bit's offset; shown for y[0])"),
+            "{t}"
+        );
+        assert!(
+            t.contains("sel 1: reference ch[8], candidate ch[16]  !"),
+            "{t}"
+        );
+        assert_eq!(t.matches('!').count(), 2, "{t}");
+        assert!(t.contains("\n  y[3]\n"), "{t}");
     }
 }

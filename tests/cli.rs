@@ -575,6 +575,124 @@ mod shards {
         assert!(err(&["prove", spec, tree, "--shard", "3/2"]).contains("K/N"));
         assert_eq!(code(&equicone(&["merge", &a, &b])), 0);
     }
+
+    /// Run `cone ARGS --shard k/n` for every k, merge the parts, and compare with one run:
+    /// every output's cone, support, redundant and undecided inputs, every flag in order, the
+    /// input counts and the claim count. (Evidence vectors may differ: each run simulates
+    /// its own share.)
+    fn cone_merged_equals_one_run(args: &[&str], n: usize, tag: &str) {
+        let mut parts = Vec::new();
+        for k in 1..=n {
+            let part = tmp(&format!("{tag}-{k}.json"));
+            let shard = format!("{k}/{n}");
+            let mut a = args.to_vec();
+            a.extend(["--shard", &shard, "--report", part.to_str().unwrap()]);
+            let o = equicone(&a);
+            assert!([0, 1].contains(&code(&o)), "{tag} {shard}: {}", stdout(&o));
+            parts.push(part);
+        }
+        let whole = tmp(&format!("{tag}-whole.json"));
+        let mut m = vec!["merge", "--report", whole.to_str().unwrap()];
+        m.extend(parts.iter().rev().map(|p| p.to_str().unwrap()));
+        let merged = equicone(&m);
+        let mut a = args.to_vec();
+        a.push("--json");
+        let one = equicone(&a);
+        assert_eq!(code(&merged), code(&one), "{tag}: {}", stdout(&merged));
+        let (w, o) = (
+            json(&whole),
+            serde_json::from_slice::<Value>(&one.stdout).unwrap(),
+        );
+        let (wo, oo) = (
+            w["outputs"].as_array().unwrap(),
+            o["outputs"].as_array().unwrap(),
+        );
+        assert_eq!(wo.len(), oo.len(), "{tag}");
+        for (x, y) in wo.iter().zip(oo) {
+            for f in [
+                "name",
+                "cone",
+                "support",
+                "redundant",
+                "undecided",
+                "constant",
+                "expected",
+            ] {
+                assert_eq!(x.get(f), y.get(f), "{tag}: {f} of {}", y["name"]);
+            }
+        }
+        for f in ["flags", "inputs", "all_outputs", "design", "schema"] {
+            assert_eq!(w[f], o[f], "{tag}: {f}");
+        }
+        for f in ["claims", "undecided"] {
+            assert_eq!(w["stats"][f], o["stats"][f], "{tag}: stats.{f}");
+        }
+        assert!(w.get("shard").is_none());
+        assert_eq!(w["merged_shards"], n);
+    }
+
+    #[test]
+    fn merged_partial_audits_equal_one_audit() {
+        // Redundant, missing, unexpected and unused inputs and nested supports, so that every
+        // kind of flag the merge rebuilds shows up.
+        let d = tmp("cone-shard.bench");
+        std::fs::write(
+            &d,
+            "INPUT(a)\nINPUT(b)\nINPUT(c)\nINPUT(d)\nINPUT(e)\nOUTPUT(y1)\nOUTPUT(y2)\nOUTPUT(y3)\n\
+             OUTPUT(y4)\ny1 = AND(a, b)\ny2 = AND(a, b, c)\nt = AND(a, e)\ny3 = OR(a, t)\n\
+             y4 = XOR(c, b)\n",
+        )
+        .unwrap();
+        let e = tmp("cone-shard.expect");
+        std::fs::write(&e, "y1: a b d\ny2: a, b, c\ny4: c\n").unwrap();
+        let (ds, es) = (d.to_str().unwrap(), e.to_str().unwrap());
+        for n in [2, 3, 5] {
+            cone_merged_equals_one_run(&["cone", ds], n, &format!("cone-small-{n}"));
+            cone_merged_equals_one_run(
+                &["cone", ds, "--expect", es],
+                n,
+                &format!("cone-expect-{n}"),
+            );
+        }
+        cone_merged_equals_one_run(
+            &["cone", ds, "--output", "y3", "--output", "y1"],
+            2,
+            "cone-selected",
+        );
+        // The open ISCAS-85 netlists (shared data): c432 (7 outputs) and c880 (26 outputs).
+        if let Some(dir) = oracle::iscas_dir() {
+            for (name, n) in [("c432", 3), ("c880", 4)] {
+                let f = dir.join(format!("{name}.bench"));
+                cone_merged_equals_one_run(&["cone", f.to_str().unwrap()], n, name);
+            }
+        }
+    }
+
+    #[test]
+    fn cone_merge_refuses_parts_of_other_runs() {
+        let spec = "bench-circuits/examples/mux4_spec.bench";
+        let tree = "bench-circuits/examples/mux4_tree.bench";
+        let part = |file: &str, k: &str, name: &str| {
+            let p = tmp(name);
+            let o = equicone(&["cone", file, "--shard", k, "--report", p.to_str().unwrap()]);
+            assert!([0, 1].contains(&code(&o)), "{}", stdout(&o));
+            p.to_str().unwrap().to_string()
+        };
+        let a = part(spec, "1/2", "cone-refuse-1.json");
+        let b = part(spec, "2/2", "cone-refuse-2.json");
+        let b_tree = part(tree, "2/2", "cone-refuse-2-tree.json");
+        let err = |args: &[&str]| {
+            let o = equicone(args);
+            assert_eq!(code(&o), 2, "{}", stdout(&o));
+            String::from_utf8_lossy(&o.stderr).into_owned()
+        };
+        assert!(err(&["merge", &a]).contains("shards missing: 2/2"));
+        assert!(err(&["merge", &a, &b, &b]).contains("again"));
+        assert!(err(&["merge", &a, &b_tree]).contains("other input files"));
+        assert!(err(&["cone", spec, "--shard", "1/2"]).contains("--report"));
+        assert!(err(&["cone", spec, "--shard", "0/2", "--json"]).contains("K/N"));
+        assert!([0, 1].contains(&code(&equicone(&["merge", &a, &b]))));
+    }
 }
 
 /// Issue 15 item 8: the bench `MUX(s, a, b)` gate and the `VDD`/`GND` constants, checked against
@@ -635,6 +753,22 @@ mod unknowns_as_dont_cares {
         let o = equicone(&["prove", s, s, "--json"]);
         let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
         assert_eq!(v["dont_care_pairs"], 1);
+        // Against a candidate free of x, the reference's x is only a don't-care: the advice
+        // about free inputs (for candidate unknowns, or all under --strict-unknowns) is not
+        // printed; under --strict-unknowns it is.
+        let tree = tmp("dc_tree.v");
+        std::fs::write(
+            &tree,
+            "module m(input [1:0] s, input a, b, c, output y);\n  assign y = s[1] ? c : (s[0] ? b : a);\nendmodule\n",
+        )
+        .unwrap();
+        let t = tree.to_str().unwrap();
+        let o = equicone(&["prove", s, t]);
+        assert_eq!(code(&o), 0, "{}", stdout(&o));
+        assert!(!stdout(&o).contains("is a free input"), "{}", stdout(&o));
+        let o = equicone(&["prove", s, t, "--strict-unknowns"]);
+        assert_eq!(code(&o), 1, "{}", stdout(&o));
+        assert!(stdout(&o).contains("is a free input"), "{}", stdout(&o));
         let o = equicone(&["prove", s, s, "--strict-unknowns", "--json"]);
         assert_eq!(code(&o), 1);
         let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();

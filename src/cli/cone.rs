@@ -7,6 +7,7 @@ use super::common::{
 use super::Exit;
 use crate::cone::{self, AuditOptions, SupportOptions};
 use crate::cost::{self, CostModel};
+use crate::diag::InputError;
 use crate::sat::Limits;
 use clap::Args;
 
@@ -46,6 +47,13 @@ pub struct ConeArgs {
     /// Print the report as JSON (schema in docs/cone.md).
     #[arg(long)]
     json: bool,
+    /// Write the JSON report to this file (atomically).
+    #[arg(long = "report", value_name = "FILE")]
+    report: Option<String>,
+    /// Audit only shard K of N (output bits i of the selection with i mod N = K-1) and write a
+    /// partial report (needs --report or --json); `equicone merge` joins the N parts.
+    #[arg(long, value_name = "K/N")]
+    shard: Option<String>,
     #[command(flatten)]
     limits: LimitArgs,
 }
@@ -57,13 +65,40 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
         Ok(l) => l,
         Err(e) => return e,
     };
-    if let Err(e) = check_writable([a.dot.as_deref()]) {
+    if let Err(e) = check_writable([a.dot.as_deref(), a.report.as_deref()]) {
         return e;
+    }
+    let shard = match a
+        .shard
+        .as_deref()
+        .map(crate::shard::Shard::parse)
+        .transpose()
+    {
+        Ok(s) => s,
+        Err(e) => return report_input_error(&e),
+    };
+    if shard.is_some() && a.report.is_none() && !a.json {
+        return report_input_error(&InputError::plain(
+            "--shard writes a partial JSON report, and neither --report FILE nor --json is given",
+            "add `--report part-K.json` (then `equicone merge part-*.json`)",
+        ));
+    }
+    if shard.is_some() && a.dot.is_some() {
+        return report_input_error(&InputError::plain(
+            "--dot draws one output of a whole audit; it does not go with --shard",
+            "draw the picture in a run without --shard (for example with --output NAME)",
+        ));
     }
     let d = match a.design.load_within(&limits) {
         Ok(d) => d,
         Err(e) => return e,
     };
+    if shard.is_some() && d.is_clocked() {
+        return report_input_error(&InputError::plain(
+            "--shard splits the output bits of combinational designs; this one has registers",
+            "leave out --shard for clocked designs",
+        ));
+    }
     if d.is_clocked() {
         eprintln!(
             "warning: {} has {} register bits: the audit covers the logic of one clock cycle, with register outputs read as inputs; the section `across clock cycles` follows inputs through the registers",
@@ -87,8 +122,12 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
         expect,
         support: a.limits.support(!a.json),
         text_evidence: a.evidence,
+        shard,
     };
-    let rep = cone::audit(&d, &opts, &limits);
+    let mut rep = cone::audit(&d, &opts, &limits);
+    if let Some(stamp) = &mut rep.shard {
+        stamp_run(stamp, a);
+    }
     if let Some(path) = &a.dot {
         let which = match outputs.as_slice() {
             [one] => Some(d.outputs[*one].name.clone()),
@@ -107,9 +146,9 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
     }
     // Clocked designs: the cone across cycles too.
     let across = d.is_clocked().then(|| crate::seq::cycle_cones(&d));
-    print(&match (a.json, &across) {
-        (true, None) => rep.to_json() + "\n",
-        (true, Some(c)) => {
+    let json = match &across {
+        None => rep.to_json() + "\n",
+        Some(c) => {
             // The audit's object with one more field, its own fields in their order.
             let audit = rep.to_json();
             let body = audit
@@ -122,8 +161,27 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
                 .replace('\n', "\n  ");
             format!("{body},\n  \"across_cycles\": {extra}\n}}\n")
         }
-        (false, None) => rep.to_string(),
-        (false, Some(c)) => format!("{rep}{c}"),
+    };
+    if let Some(path) = &a.report {
+        if let Err(e) = write_atomic(path, json.as_bytes()) {
+            return report_input_error(&e);
+        }
+    }
+    print(&match (a.json, &rep.shard, &across) {
+        (true, _, _) => json,
+        (false, Some(s), _) => format!(
+            "shard {}/{}: audited {} of {} output bits ({} claims, {} flags, {} undecided); wrote {}\n",
+            s.index,
+            s.count,
+            s.outputs.len(),
+            s.total_outputs,
+            rep.stats.claims,
+            rep.flags.len(),
+            rep.stats.undecided,
+            a.report.as_deref().unwrap_or("-")
+        ),
+        (false, None, None) => rep.to_string(),
+        (false, None, Some(c)) => format!("{rep}{c}"),
     });
     if rep.flagged() {
         Exit::Flagged
@@ -132,6 +190,34 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
     } else {
         Exit::Ok
     }
+}
+
+/// Fill a partial audit's fingerprints: the input files' contents (designs and the --expect
+/// file), and the options that can change the report (not the time limit).
+fn stamp_run(stamp: &mut crate::shard::cone::ConeStamp, a: &ConeArgs) {
+    let d = &a.design;
+    let contents: Vec<Vec<u8>> = std::iter::once(&d.path)
+        .chain(&d.also)
+        .chain(&a.expect)
+        .map(|f| std::fs::read(f).unwrap_or_default())
+        .collect();
+    stamp.inputs = crate::shard::fingerprint(contents.iter().map(Vec::as_slice));
+    let options = format!(
+        "cone|{:?}|{:?}|{:?}|{:?}|{}|{:?}|{}|{}",
+        d.format,
+        d.top,
+        d.pre.include_dirs,
+        d.pre.defines,
+        d.also.len(),
+        a.outputs,
+        a.expect.is_some(),
+        a.limits.seed,
+    );
+    let options = match a.limits.conflict_limit {
+        Some(c) => format!("{options}|{c}"),
+        None => options,
+    };
+    stamp.options = crate::shard::fingerprint([options.as_bytes()]);
 }
 
 /// Options of `stats`.

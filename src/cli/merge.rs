@@ -1,5 +1,6 @@
-//! `equicone merge PART...`: check that partial reports of `prove --shard K/N` belong to the same
-//! run and cover every output pair once, then write the whole report.
+//! `equicone merge PART...`: check that partial reports of `prove --shard K/N` (or of
+//! `cone --shard K/N`) belong to the same run and cover every output pair (output bit) once, then
+//! write the whole report.
 
 use super::common::{print, report_input_error, write_atomic};
 use super::Exit;
@@ -10,7 +11,8 @@ use clap::Args;
 /// Options of `merge`.
 #[derive(Args, Debug)]
 pub struct MergeArgs {
-    /// The partial reports (JSON files written by `prove --shard K/N --report FILE`), any order.
+    /// The partial reports (JSON files written by `prove --shard K/N --report FILE` or by
+    /// `cone --shard K/N --report FILE`), any order.
     #[arg(value_name = "PART", required = true)]
     parts: Vec<String>,
     /// Write the whole JSON report to this file (atomically).
@@ -34,12 +36,19 @@ pub fn run(a: &MergeArgs) -> Exit {
                 Ok(v) => v,
                 Err(e) => return report_input_error(&InputError::plain(
                     format!("{p}:{}:{}: not JSON: {e}", e.line(), e.column()),
-                    "give the JSON partial reports that `prove --shard K/N --report FILE` wrote",
+                    "give the JSON partial reports that `prove` or `cone --shard K/N --report FILE` wrote",
                 )),
             };
         parts.push((p.clone(), v));
     }
-    let whole = match crate::shard::merge_prove(&parts) {
+    let cone = parts
+        .first()
+        .is_some_and(|(_, v)| crate::shard::cone::is_cone_report(v));
+    let whole = match cone {
+        true => crate::shard::cone::merge_cone(&parts),
+        false => crate::shard::merge_prove(&parts),
+    };
+    let whole = match whole {
         Ok(w) => w,
         Err(e) => return report_input_error(&e),
     };
@@ -48,6 +57,9 @@ pub fn run(a: &MergeArgs) -> Exit {
         if let Err(e) = write_atomic(path, text.as_bytes()) {
             return report_input_error(&e);
         }
+    }
+    if cone {
+        return cone_summary(a, &whole, &text);
     }
     let verdict = whole["verdict"].as_str().unwrap_or("undecided");
     if a.json {
@@ -71,5 +83,30 @@ pub fn run(a: &MergeArgs) -> Exit {
         "equivalent" => Exit::Ok,
         "different" => Exit::Flagged,
         _ => Exit::Undecided,
+    }
+}
+
+/// Print a merged cone audit (JSON, or one summary line) and give its exit code.
+fn cone_summary(a: &MergeArgs, whole: &serde_json::Value, text: &str) -> Exit {
+    let len = |k: &str| whole[k].as_array().map_or(0, Vec::len);
+    let undecided = whole["stats"]["undecided"].as_u64().unwrap_or(0);
+    if a.json {
+        print(text);
+    } else {
+        print(&format!(
+            "cone audit  merged {} shards: {} output bits, {} claims, {} flags, {} undecided claims\n",
+            a.parts.len(),
+            len("outputs"),
+            whole["stats"]["claims"].as_u64().unwrap_or(0),
+            len("flags"),
+            undecided
+        ));
+    }
+    if len("flags") > 0 {
+        Exit::Flagged
+    } else if undecided > 0 {
+        Exit::Undecided
+    } else {
+        Exit::Ok
     }
 }

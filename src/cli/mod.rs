@@ -70,7 +70,7 @@ pub enum Command {
     Cone(cone::ConeArgs),
     /// Gate counts, cost, delay and depth, with the lower bounds each output's support implies.
     Stats(cone::StatsArgs),
-    /// Merge the partial reports of `prove --shard K/N` runs into the whole report.
+    /// Merge the partial reports of `prove --shard K/N` (or `cone --shard K/N`) runs into the whole report.
     Merge(merge::MergeArgs),
 }
 

@@ -22,6 +22,9 @@ pub struct AuditOptions {
     pub support: SupportOptions,
     /// Whether the text report lists every claim with its evidence (JSON always does).
     pub text_evidence: bool,
+    /// Audit only this shard's share of the selected outputs (`cone --shard K/N`): a partial
+    /// report, without the flags that need every output (the merge adds them).
+    pub shard: Option<crate::shard::Shard>,
 }
 
 /// Resolve `--output` names (bits, buses, ranges such as `d[0..3]`) to output indices, in
@@ -57,11 +60,14 @@ pub fn select_outputs(design: &Design, names: &[String]) -> Result<Vec<usize>, I
 /// flags. Limits leave claims undecided (see [`AuditReport::undecided`]), never guessed.
 pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditReport {
     let all_outputs = opts.outputs.is_empty();
-    let outputs: Vec<usize> = if all_outputs {
+    let mut outputs: Vec<usize> = if all_outputs {
         (0..design.outputs.len()).collect()
     } else {
         opts.outputs.clone()
     };
+    let shard = opts
+        .shard
+        .map(|s| crate::shard::cone::restrict_outputs(&mut outputs, s));
     let graph = StructuralGraph::build(design);
     let cones: Vec<_> = outputs.iter().map(|&o| graph.cone(o)).collect();
     let bar = super::progress_bar(opts.support.progress, "cone audit");
@@ -168,10 +174,10 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
             cone_text: compact(&r.cone, &ins),
         });
     }
-    if let Some(exp) = &opts.expect {
+    if let (Some(exp), None) = (&opts.expect, &shard) {
         subset_flags(design, exp, &results, &mut flags);
     }
-    if all_outputs {
+    if all_outputs && shard.is_none() {
         for k in 0..design.inputs.len() {
             if in_supports[k] == 0 && in_undecided[k] == 0 && !design.inputs[k].is_unknown() {
                 flags.push(Flag::UnusedInput {
@@ -213,6 +219,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
         flags,
         stats,
         text_evidence: opts.text_evidence,
+        shard,
     }
 }
 

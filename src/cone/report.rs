@@ -30,6 +30,9 @@ pub struct AuditReport {
     /// Whether the text form lists every claim with its evidence.
     #[serde(skip)]
     pub text_evidence: bool,
+    /// For a partial audit (`cone --shard K/N`): which output bits of the run it covers.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub shard: Option<crate::shard::cone::ConeStamp>,
 }
 
 impl AuditReport {

@@ -92,6 +92,7 @@ pub fn run() -> Result<String, String> {
             expect: None,
             support: Default::default(),
             text_evidence: false,
+            shard: None,
         },
         &limits,
     );

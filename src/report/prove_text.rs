@@ -55,7 +55,12 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
                 r.unknowns.len() - 8
             );
         }
-        if r.assumptions.is_empty() {
+        // Reference unknowns read as don't-cares are explained by the `don't-care` line; the
+        // advice is for unknowns that are free inputs (the candidate's, or all under
+        // --strict-unknowns).
+        let only_dont_cares =
+            r.dont_care_pairs > 0 && r.unknowns.iter().all(|u| u.starts_with("reference:"));
+        if r.assumptions.is_empty() && !only_dont_cares {
             let _ = writeln!(s, "            {}", crate::engine::unknowns::ADVICE);
         }
     }

@@ -9,6 +9,7 @@ mod iverilog_diff;
 mod large;
 mod netlists;
 mod preprocess;
+mod primitives;
 mod regress;
 mod rtl_styles;
 mod semantics;

@@ -13,6 +13,7 @@ mod parse_expr;
 mod parse_gate;
 mod parse_gen;
 mod parse_stmt;
+mod parse_udp;
 pub mod parser;
 pub mod pos;
 pub mod preprocess;

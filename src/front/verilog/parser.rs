@@ -258,8 +258,10 @@ impl<'s, 'n> Parser<'s, 'n> {
                     }
                 }
                 Tok::Ident(k) if k == kw::PRIMITIVE => {
-                    self.unsupported(t.pos, "user-defined primitive");
-                    self.skip_past(kw::ENDPRIMITIVE);
+                    self.bump();
+                    if let Some(m) = self.primitive(t.pos) {
+                        mods.push(m);
+                    }
                 }
                 _ => {
                     let d = self.describe(&t.tok);
@@ -386,7 +388,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         Some(m)
     }
 
-    fn header(&mut self, m: &mut Module) -> PResult<()> {
+    pub(super) fn header(&mut self, m: &mut Module) -> PResult<()> {
         if self.eat_p(Punct::Hash) {
             self.expect_p(Punct::LParen, "`(` of the parameter port list")?;
             loop {
@@ -546,7 +548,11 @@ impl<'s, 'n> Parser<'s, 'n> {
                 _ => return Err(self.error(pos, "expected a delay value after `#`")),
             }
         }
-        if self.warnings.is_empty() {
+        if !self
+            .warnings
+            .iter()
+            .any(|w| w.kind == SyntaxKind::DelayIgnored)
+        {
             self.warnings.push(SyntaxError::new(
                 Stage::Parse,
                 pos,
@@ -766,6 +772,26 @@ impl<'s, 'n> Parser<'s, 'n> {
             self.gen_if(out)?;
         } else if k == kw::ENDGENERATE {
             return Err(self.error(pos, "`endgenerate` without a `generate` before it"));
+        } else if k == kw::SPECIFY || k == kw::SPECPARAM {
+            // Path delays and timing checks (IEEE 1364-2005 clauses 14 and 15): timing only.
+            self.bump();
+            if k == kw::SPECIFY {
+                self.skip_past(kw::ENDSPECIFY);
+            } else {
+                self.skip_statement();
+            }
+            if !self
+                .warnings
+                .iter()
+                .any(|w| w.kind == SyntaxKind::TimingIgnored)
+            {
+                self.warnings.push(SyntaxError::new(
+                    Stage::Parse,
+                    pos,
+                    SyntaxKind::TimingIgnored,
+                    "`specify` blocks and `specparam`s are ignored (this is the first; they give timing, not logic)",
+                ));
+            }
         } else if is_keyword(k) {
             let n = self.names.name(k).to_string();
             let what = match n.as_str() {

@@ -22,6 +22,8 @@ pub enum SyntaxKind {
     TooDeep,
     /// A delay, read and ignored (a warning).
     DelayIgnored,
+    /// A `specify` block or `specparam`, read and ignored (a warning).
+    TimingIgnored,
 }
 
 impl SyntaxKind {
@@ -43,6 +45,9 @@ impl SyntaxKind {
             SyntaxKind::TooDeep => "split the expression or statement with intermediate wires",
             SyntaxKind::DelayIgnored => {
                 "equicone compares the logic only; delays do not change what is proved"
+            }
+            SyntaxKind::TimingIgnored => {
+                "equicone compares the logic only; path delays and timing checks do not change what is proved"
             }
             SyntaxKind::Syntax => {
                 "correct the syntax here; the Verilog subset read is listed in docs/verilog.md"
@@ -83,7 +88,7 @@ impl SyntaxError {
         }
     }
 
-    /// The diagnostic for the user: an error (or, for [`SyntaxKind::DelayIgnored`], a
+    /// The diagnostic for the user: an error (or, for the kinds read and ignored, a
     /// warning) in `files[pos.file]`, with its kind's help line.
     pub fn diagnostic(&self, files: &[Arc<str>]) -> Diagnostic {
         let file = files
@@ -92,7 +97,9 @@ impl SyntaxError {
             .unwrap_or_else(|| Arc::from("?"));
         let pos = Some(SourcePos::new(&file, self.pos.line, self.pos.col));
         let d = match self.kind {
-            SyntaxKind::DelayIgnored => Diagnostic::warning(pos, self.message.clone()),
+            SyntaxKind::DelayIgnored | SyntaxKind::TimingIgnored => {
+                Diagnostic::warning(pos, self.message.clone())
+            }
             _ => Diagnostic::error(pos, self.message.clone()),
         };
         let kind = match self.kind {

@@ -75,11 +75,11 @@ impl Elaborator<'_> {
     }
 
     /// Value and range of a name.
-    pub(crate) fn operand(&mut self, ctx: &EvalContext, s: Sym, pos: Pos) -> Option<Operand> {
-        match self.lookup(ctx.scope, s).cloned() {
+    pub(crate) fn operand(&mut self, ctx: &EvalContext, sym: Sym, pos: Pos) -> Option<Operand> {
+        match self.lookup(ctx.scope, sym).cloned() {
             Some(Symbol::Net(n)) => {
                 if ctx.constant {
-                    let nm = self.name(s);
+                    let nm = self.name(sym);
                     self.error(
                         pos,
                         format!("`{nm}` is not a constant (only parameters and genvars may appear here)"),
@@ -109,7 +109,7 @@ impl Elaborator<'_> {
                 lsb: 0,
             }),
             Some(Symbol::Genvar(None)) => {
-                let nm = self.name(s);
+                let nm = self.name(sym);
                 self.error(
                     pos,
                     format!("genvar `{nm}` used outside its generate loop"),
@@ -118,7 +118,7 @@ impl Elaborator<'_> {
                 None
             }
             None => {
-                let nm = self.name(s);
+                let nm = self.name(sym);
                 self.error(
                     pos,
                     format!("undeclared name `{nm}`"),
@@ -188,30 +188,36 @@ impl Elaborator<'_> {
         out
     }
 
-    fn eval_inner(&mut self, ctx: &EvalContext, e: &Expr, w: usize, s: bool) -> Vec<Lit> {
-        match e {
+    fn eval_inner(
+        &mut self,
+        ctx: &EvalContext,
+        expr: &Expr,
+        width: usize,
+        signed: bool,
+    ) -> Vec<Lit> {
+        match expr {
             Expr::Ident(sym, pos) => match self.operand(ctx, *sym, *pos) {
-                Some(o) => extend(o.val.bits, w, s),
-                None => vec![Lit::FALSE; w],
+                Some(o) => extend(o.val.bits, width, signed),
+                None => vec![Lit::FALSE; width],
             },
             Expr::Num(n, _) if matches!(&*n.text, "'0" | "'1") => {
-                vec![Lit::constant(&*n.text == "'1"); w]
+                vec![Lit::constant(&*n.text == "'1"); width]
             }
             Expr::Num(n, pos) => {
                 let v = self.literal(ctx, n, *pos);
-                extend(v, w, s)
+                extend(v, width, signed)
             }
             Expr::Index(sym, pos, sel) => {
                 let v = self.eval_select(ctx, *sym, *pos, sel);
-                extend(v, w, false)
+                extend(v, width, false)
             }
             Expr::Unary(op, _, a) => match op {
-                UnOp::Plus => self.eval(ctx, a, w, s),
+                UnOp::Plus => self.eval(ctx, a, width, signed),
                 UnOp::Neg => {
-                    let v = self.eval(ctx, a, w, s);
+                    let v = self.eval(ctx, a, width, signed);
                     bits::neg(&mut self.aig, &v)
                 }
-                UnOp::Not => bits::not(&self.eval(ctx, a, w, s)),
+                UnOp::Not => bits::not(&self.eval(ctx, a, width, signed)),
                 _ => {
                     let v = self.eval_self(ctx, a);
                     let g = &mut self.aig;
@@ -224,20 +230,20 @@ impl Elaborator<'_> {
                         UnOp::RedXor => g.xor_all(&v.bits),
                         _ => !g.xor_all(&v.bits),
                     };
-                    extend(vec![r], w, false)
+                    extend(vec![r], width, false)
                 }
             },
-            Expr::Chain(first, rest) => self.eval_chain(ctx, first, rest, w, s),
+            Expr::Chain(first, rest) => self.eval_chain(ctx, first, rest, width, signed),
             Expr::Cond(b, _) => {
                 let c = self.eval_bool(ctx, &b[0]);
                 if c == Lit::TRUE {
-                    return self.eval(ctx, &b[1], w, s);
+                    return self.eval(ctx, &b[1], width, signed);
                 }
                 if c == Lit::FALSE {
-                    return self.eval(ctx, &b[2], w, s);
+                    return self.eval(ctx, &b[2], width, signed);
                 }
-                let t = self.eval(ctx, &b[1], w, s);
-                let f = self.eval(ctx, &b[2], w, s);
+                let t = self.eval(ctx, &b[1], width, signed);
+                let f = self.eval(ctx, &b[2], width, signed);
                 t.iter()
                     .zip(&f)
                     .map(|(&x, &y)| self.aig.mux(c, x, y))
@@ -245,7 +251,7 @@ impl Elaborator<'_> {
             }
             Expr::Concat(items, _) => {
                 let v = self.concat(ctx, items);
-                extend(v, w, false)
+                extend(v, width, false)
             }
             Expr::Repl(n, items, pos) => {
                 let count = match self.const_int(ctx.scope, n) {
@@ -267,20 +273,20 @@ impl Elaborator<'_> {
                         "replication wider than 65536 bits",
                         "equicone reads values of at most 65536 bits; replicate fewer times",
                     );
-                    return vec![Lit::FALSE; w];
+                    return vec![Lit::FALSE; width];
                 }
                 let mut v = Vec::with_capacity(count * inner.len());
                 for _ in 0..count {
                     v.extend_from_slice(&inner);
                 }
-                extend(v, w, false)
+                extend(v, width, false)
             }
             Expr::Call(f, pos, args) => {
                 let name = self.name(*f);
                 match name {
                     "$signed" | "$unsigned" => {
                         let v = self.eval_self(ctx, &args[0]);
-                        extend(v.bits, w, s)
+                        extend(v.bits, width, signed)
                     }
                     _ => {
                         // $clog2: constant argument only.
@@ -289,7 +295,7 @@ impl Elaborator<'_> {
                             None => 0,
                         };
                         let _ = pos;
-                        extend(bits::constant(r, 32), w, s)
+                        extend(bits::constant(r, 32), width, signed)
                     }
                 }
             }
@@ -320,23 +326,23 @@ impl Elaborator<'_> {
         ctx: &EvalContext,
         first: &Expr,
         rest: &[(BinOp, Pos, Expr)],
-        w: usize,
-        s: bool,
+        width: usize,
+        signed: bool,
     ) -> Vec<Lit> {
         let level = rest[0].0.level();
         match level {
             10 => {
                 // `**`: the base takes the context, the exponent is self-determined.
-                let mut acc = self.eval(ctx, first, w, s);
+                let mut acc = self.eval(ctx, first, width, signed);
                 for (_, pos, e) in rest {
-                    acc = self.power(ctx, *pos, &acc, e, s);
+                    acc = self.power(ctx, *pos, &acc, e, signed);
                 }
                 acc
             }
             2 => {
                 // Shifts: the left operand takes the context; amounts are self-determined
                 // and unsigned.
-                let mut acc = self.eval(ctx, first, w, s);
+                let mut acc = self.eval(ctx, first, width, signed);
                 for (op, _, e) in rest {
                     let amt = self.eval_self(ctx, e).bits;
                     let (left, fill) = match op {
@@ -344,7 +350,7 @@ impl Elaborator<'_> {
                         BinOp::Shr => (false, Lit::FALSE),
                         _ => (
                             false,
-                            if s {
+                            if signed {
                                 *acc.last().unwrap_or(&Lit::FALSE)
                             } else {
                                 Lit::FALSE
@@ -382,7 +388,7 @@ impl Elaborator<'_> {
                     }
                     r = self.compare(*op, &a, &b, false);
                 }
-                extend(vec![r], w, false)
+                extend(vec![r], width, false)
             }
             8 | 9 => {
                 let mut acc = self.eval_bool(ctx, first);
@@ -394,12 +400,12 @@ impl Elaborator<'_> {
                         self.aig.or(acc, b)
                     };
                 }
-                extend(vec![acc], w, false)
+                extend(vec![acc], width, false)
             }
             _ => {
-                let mut acc = self.eval(ctx, first, w, s);
+                let mut acc = self.eval(ctx, first, width, signed);
                 for (op, pos, e) in rest {
-                    let b = self.eval(ctx, e, w, s);
+                    let b = self.eval(ctx, e, width, signed);
                     if *op == BinOp::Mul && acc.len() > MAX_MUL_WIDTH {
                         // An array multiplier of w bits has about w * w / 2 gates.
                         self.error(
@@ -423,7 +429,7 @@ impl Elaborator<'_> {
                         BinOp::Or => bits::zip(g, &acc, &b, Aig::or),
                         BinOp::Xor => bits::zip(g, &acc, &b, Aig::xor),
                         BinOp::Xnor => bits::zip(g, &acc, &b, Aig::xnor),
-                        _ => self.divide(ctx, *op, *pos, &acc, &b, s),
+                        _ => self.divide(ctx, *op, *pos, &acc, &b, signed),
                     };
                 }
                 acc
@@ -460,90 +466,97 @@ impl Elaborator<'_> {
         pos: Pos,
         a: &[Lit],
         b: &[Lit],
-        s: bool,
+        signed: bool,
     ) -> Vec<Lit> {
-        let w = a.len();
-        if let (Some(x), Some(y)) = (bits::to_i64(a, s), bits::to_i64(b, s)) {
-            if w <= 63 || s {
+        let width = a.len();
+        if let (Some(x), Some(y)) = (bits::to_i64(a, signed), bits::to_i64(b, signed)) {
+            if width <= 63 || signed {
                 if y == 0 {
-                    return self.unknown_bits(w, pos, "division by zero", ctx.scope);
+                    return self.unknown_bits(width, pos, "division by zero", ctx.scope);
                 }
                 let r = if op == BinOp::Div {
                     x.wrapping_div(y)
                 } else {
                     x.wrapping_rem(y)
                 };
-                return bits::constant(r, w);
+                return bits::constant(r, width);
             }
         }
         if b.iter().all(|&l| l == Lit::FALSE) {
-            return self.unknown_bits(w, pos, "division by zero", ctx.scope);
+            return self.unknown_bits(width, pos, "division by zero", ctx.scope);
         }
-        if w > MAX_DIV_WIDTH {
+        if width > MAX_DIV_WIDTH {
             self.error(
                 pos,
                 format!(
-                    "unsupported: `{}` {w} bits wide (at most {} bits)",
+                    "unsupported: `{}` {width} bits wide (at most {} bits)",
                     op.text(),
                     MAX_DIV_WIDTH
                 ),
                 "narrow the operands or the assignment target",
             );
-            return vec![Lit::FALSE; w];
+            return vec![Lit::FALSE; width];
         }
-        let r = super::divide::divmod(&mut self.aig, a, b, s, op == BinOp::Mod);
+        let r = super::divide::divmod(&mut self.aig, a, b, signed, op == BinOp::Mod);
         if bits::is_const(b) {
             return r;
         }
         // A divisor that can be zero: x there (clause 5.1.5), an unknown input.
         let zero = !self.aig.or_all(b);
-        let u = self.unknown_bits(w, pos, "division by zero", ctx.scope);
+        let u = self.unknown_bits(width, pos, "division by zero", ctx.scope);
         r.iter()
             .zip(&u)
             .map(|(&v, &x)| self.aig.mux(zero, x, v))
             .collect()
     }
 
-    /// `a ** e` (IEEE 1364-2005 clause 5.1.5): the exponent must be constant; a negative
+    /// `base ** exponent` (IEEE 1364-2005 clause 5.1.5): the exponent must be constant; a negative
     /// one follows the clause's table (1 for a base of 1, +-1 for -1, x for 0, else 0) and
     /// then needs a constant base.
-    fn power(&mut self, ctx: &EvalContext, pos: Pos, a: &[Lit], e: &Expr, s: bool) -> Vec<Lit> {
-        let w = a.len();
-        let ev = self.eval_self(ctx, e);
-        let Some(n) = bits::to_i64(&ev.bits, ev.signed) else {
+    fn power(
+        &mut self,
+        ctx: &EvalContext,
+        pos: Pos,
+        base: &[Lit],
+        exponent: &Expr,
+        signed: bool,
+    ) -> Vec<Lit> {
+        let width = base.len();
+        let exp_value = self.eval_self(ctx, exponent);
+        let Some(n) = bits::to_i64(&exp_value.bits, exp_value.signed) else {
             self.error(
                 pos,
                 "unsupported: `**` with an exponent that is not constant",
                 "give the exponent as a constant or parameter, or write the product out",
             );
-            return vec![Lit::FALSE; w];
+            return vec![Lit::FALSE; width];
         };
         if n >= 0 {
-            if w > MAX_MUL_WIDTH {
+            if width > MAX_MUL_WIDTH {
                 self.error(
                     pos,
                     format!(
-                        "unsupported: `**` {w} bits wide (at most {} bits)",
+                        "unsupported: `**` {width} bits wide (at most {} bits)",
                         MAX_MUL_WIDTH
                     ),
                     "narrow the operands or the assignment target",
                 );
-                return vec![Lit::FALSE; w];
+                return vec![Lit::FALSE; width];
             }
-            return super::divide::pow_const(&mut self.aig, a, n as u64);
+            return super::divide::pow_const(&mut self.aig, base, n as u64);
         }
-        match bits::to_i64(a, s) {
-            Some(0) => self.unknown_bits(w, pos, "zero to a negative power", ctx.scope),
-            Some(1) => bits::constant(1, w),
-            Some(-1) if s => bits::constant(if n % 2 == 0 { 1 } else { -1 }, w),
-            Some(_) => bits::constant(0, w),
+        match bits::to_i64(base, signed) {
+            Some(0) => self.unknown_bits(width, pos, "zero to a negative power", ctx.scope),
+            Some(1) => bits::constant(1, width),
+            Some(-1) if signed => bits::constant(if n % 2 == 0 { 1 } else { -1 }, width),
+            Some(_) => bits::constant(0, width),
             None => {
                 self.error(
                     pos,
                     "unsupported: `**` with a negative exponent and a base that is not constant",
                     "give the base as a constant, or write the result out",
                 );
-                vec![Lit::FALSE; w]
+                vec![Lit::FALSE; width]
             }
         }
     }

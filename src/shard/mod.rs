@@ -1,4 +1,4 @@
-//! Runs split across machines: which output pairs shard `K/N` decides (pair i belongs to shard
+//! Runs split across machines: which output pairs shard `K/N` of `prove` decides (pair i belongs to shard
 //! `i mod N + 1`), the stamp a partial report carries (a fingerprint of the input files and one
 //! of the options that can change a verdict), and the merge of N partial reports into the whole
 //! report with the same verdict rules as one run (any pair different: `different`; else any
@@ -8,6 +8,8 @@
 //! machines merge without rerunning anything. **Invariant:** a merge refuses parts whose
 //! fingerprints, shard counts or pair totals differ, a shard given twice or missing, and any
 //! output pair that is not covered exactly once.
+
+pub mod cone;
 
 use crate::diag::InputError;
 use serde::Serialize;
@@ -104,8 +106,42 @@ fn err(file: &str, what: impl Into<String>, help: &str) -> InputError {
     InputError::plain(format!("{file}: {}", what.into()), help)
 }
 
-fn stamp_of(file: &str, v: &Value) -> Result<ShardStamp, InputError> {
-    let help = "give the partial reports that `prove --shard K/N --report FILE` wrote";
+/// A partial report's stamp as read back: which shard of how many, the whole run's item count
+/// (output pairs for `prove`, output bits for `cone`) and the whole run's indices of its items.
+pub(crate) struct PartStamp {
+    pub(crate) index: usize,
+    pub(crate) count: usize,
+    pub(crate) total: usize,
+    pub(crate) items: Vec<usize>,
+    inputs: String,
+    options: String,
+}
+
+/// The field names and the command of one kind of partial report.
+pub(crate) struct PartKind {
+    /// The command that writes the parts (`prove` or `cone`).
+    pub(crate) command: &'static str,
+    /// The stamp field holding the whole run's item count.
+    pub(crate) total_key: &'static str,
+    /// The stamp field listing the part's items.
+    pub(crate) items_key: &'static str,
+    /// What an item is, for messages (`pairs`, `outputs`).
+    pub(crate) items: &'static str,
+}
+
+const PROVE: PartKind = PartKind {
+    command: "prove",
+    total_key: "total_pairs",
+    items_key: "pairs",
+    items: "pairs",
+};
+
+fn stamp_of(file: &str, v: &Value, kind: &PartKind) -> Result<PartStamp, InputError> {
+    let help = format!(
+        "give the partial reports that `{} --shard K/N --report FILE` wrote",
+        kind.command
+    );
+    let help = help.as_str();
     let s = v
         .get("shard")
         .and_then(Value::as_object)
@@ -128,36 +164,43 @@ fn stamp_of(file: &str, v: &Value) -> Result<ShardStamp, InputError> {
             .map(str::to_string)
             .ok_or_else(|| err(file, format!("shard field `{k}` is missing"), help))
     };
-    let pairs = s
-        .get("pairs")
+    let key = kind.items_key;
+    let items = s
+        .get(key)
         .and_then(Value::as_array)
-        .ok_or_else(|| err(file, "shard field `pairs` is missing", help))?
+        .ok_or_else(|| err(file, format!("shard field `{key}` is missing"), help))?
         .iter()
         .map(|x| x.as_u64().map(|x| x as usize))
         .collect::<Option<Vec<usize>>>()
-        .ok_or_else(|| err(file, "shard field `pairs` holds a non-number", help))?;
-    Ok(ShardStamp {
+        .ok_or_else(|| {
+            err(
+                file,
+                format!("shard field `{key}` holds a non-number"),
+                help,
+            )
+        })?;
+    Ok(PartStamp {
         index: num("index")?,
         count: num("count")?,
-        total_pairs: num("total_pairs")?,
-        pairs,
+        total: num(kind.total_key)?,
+        items,
         inputs: text("inputs")?,
         options: text("options")?,
     })
 }
 
-/// Stats fields that add up over shards (the others are the first part's: they describe the
-/// designs, which every part shares).
-const SUMMED: &[&str] = &["seconds", "sim_patterns"];
-
-/// Merge partial prove reports `(file name, JSON)` into the whole report.
-pub fn merge_prove(parts: &[(String, Value)]) -> Result<Value, InputError> {
+/// Read the stamps of `parts` and check that they make one run: same input files, options,
+/// split and schema, every shard once. Returns the stamps and the parts' order by shard.
+pub(crate) fn check_parts(
+    parts: &[(String, Value)],
+    kind: &PartKind,
+) -> Result<(Vec<PartStamp>, Vec<usize>), InputError> {
     let first = parts.first().ok_or_else(|| {
         InputError::plain("no partial report given", "name the N partial report files")
     })?;
     let mut stamps = Vec::with_capacity(parts.len());
     for (f, v) in parts {
-        stamps.push(stamp_of(f, v)?);
+        stamps.push(stamp_of(f, v, kind)?);
     }
     let s0 = &stamps[0];
     let same = "all parts must come from the same designs and options: rerun the odd shard";
@@ -176,12 +219,12 @@ pub fn merge_prove(parts: &[(String, Value)]) -> Result<Value, InputError> {
                 same,
             ));
         }
-        if s.count != s0.count || s.total_pairs != s0.total_pairs {
+        if s.count != s0.count || s.total != s0.total {
             return Err(err(
                 f,
                 format!(
-                    "belongs to a split into {} shards of {} pairs, {} into {} of {}",
-                    s.count, s.total_pairs, first.0, s0.count, s0.total_pairs
+                    "belongs to a split into {} shards of {} {}, {} into {} of {}",
+                    s.count, s.total, kind.items, first.0, s0.count, s0.total
                 ),
                 same,
             ));
@@ -215,12 +258,26 @@ pub fn merge_prove(parts: &[(String, Value)]) -> Result<Value, InputError> {
     if !missing.is_empty() {
         return Err(InputError::plain(
             format!("shards missing: {}", missing.join(", ")),
-            "run them with `prove --shard K/N` and give every part",
+            format!(
+                "run them with `{} --shard K/N` and give every part",
+                kind.command
+            ),
         ));
     }
     let mut order: Vec<usize> = (0..parts.len()).collect();
     order.sort_by_key(|&i| stamps[i].index);
-    let mut pairs: Vec<Option<Value>> = vec![None; s0.total_pairs];
+    Ok((stamps, order))
+}
+
+/// Stats fields that add up over shards (the others are the first part's: they describe the
+/// designs, which every part shares).
+const SUMMED: &[&str] = &["seconds", "sim_patterns"];
+
+/// Merge partial prove reports `(file name, JSON)` into the whole report.
+pub fn merge_prove(parts: &[(String, Value)]) -> Result<Value, InputError> {
+    let (stamps, order) = check_parts(parts, &PROVE)?;
+    let (first, s0) = (&parts[0], &stamps[0]);
+    let mut pairs: Vec<Option<Value>> = vec![None; s0.total];
     let mut cexs: Vec<Value> = Vec::new();
     let mut warnings: Vec<Value> = Vec::new();
     let mut portfolio: Vec<Value> = Vec::new();
@@ -245,20 +302,20 @@ pub fn merge_prove(parts: &[(String, Value)]) -> Result<Value, InputError> {
             .and_then(Value::as_array)
             .cloned()
             .unwrap_or_default();
-        if list.len() != s.pairs.len() {
+        if list.len() != s.items.len() {
             return Err(err(
                 f,
                 format!(
                     "lists {} pairs but its stamp names {}",
                     list.len(),
-                    s.pairs.len()
+                    s.items.len()
                 ),
                 "give the files as written",
             ));
         }
         let offset = cexs.len();
-        for (mut p, &g) in list.into_iter().zip(&s.pairs) {
-            if g >= s0.total_pairs || pairs[g].is_some() {
+        for (mut p, &g) in list.into_iter().zip(&s.items) {
+            if g >= s0.total || pairs[g].is_some() {
                 return Err(err(
                     f,
                     format!("pair {g} is out of range or covered twice"),
@@ -312,7 +369,7 @@ pub fn merge_prove(parts: &[(String, Value)]) -> Result<Value, InputError> {
                     let mapped: Vec<Value> = ps
                         .iter()
                         .filter_map(Value::as_u64)
-                        .filter_map(|j| s.pairs.get(j as usize).map(|&x| Value::from(x)))
+                        .filter_map(|j| s.items.get(j as usize).map(|&x| Value::from(x)))
                         .collect();
                     g["pairs"] = Value::from(mapped);
                 }

@@ -20,7 +20,6 @@ use super::{Finding, Method};
 use crate::aig::{eval, Aig, Lit, Node};
 use crate::algebra::{BitVerdict, Limits, Prepared, Stop};
 use crate::design::Design;
-use crate::sat::StopReason;
 use std::collections::BTreeMap;
 use std::time::{Duration, Instant};
 
@@ -223,57 +222,4 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
         });
     }
     Ok(out)
-}
-
-/// The later methods of `stages` on the `deferred` pairs (bits above a difference found),
-/// within [`DEFERRED_SECONDS`] and the run's own deadline; their findings and records go into
-/// `findings` and `out`. A pair the share leaves open is stopped by the engine limit (by the
-/// timeout when the run's own deadline has passed; a conflict limit stays one).
-pub(crate) fn run_deferred(
-    cx: &Context<'_>,
-    deferred: &[usize],
-    stages: &[Stage],
-    findings: &mut [Option<Finding>],
-    out: &mut super::portfolio::PortfolioOutput,
-) -> Result<(), String> {
-    let later: Vec<Stage> = stages
-        .iter()
-        .copied()
-        .filter(|&s| s != Stage::Algebra)
-        .collect();
-    let share = Duration::from_secs_f64(DEFERRED_SECONDS);
-    let share = cx.limits.remaining().map_or(share, |r| r.min(share));
-    let limits = crate::sat::Limits::new(Some(share), cx.limits.conflicts_per_query);
-    let sub_cx = Context {
-        limits: &limits,
-        ..*cx
-    };
-    let sub = super::portfolio::run(&sub_cx, deferred, &later)?;
-    let reason = if cx.limits.expired() {
-        StopReason::Timeout
-    } else {
-        StopReason::EngineLimit
-    };
-    for &p in deferred {
-        findings[p] = match sub.findings[p].clone() {
-            None | Some(Finding::Stopped(StopReason::Timeout | StopReason::EngineLimit)) => {
-                Some(Finding::Stopped(reason))
-            }
-            f => f,
-        };
-    }
-    out.groups.extend(sub.groups.into_iter().map(|mut g| {
-        g.note = format!(
-            "bits above a found difference, within {DEFERRED_SECONDS} s: {}",
-            g.note
-        );
-        g
-    }));
-    out.sat.add(&sub.sat);
-    if let Some(w) = sub.sweep {
-        out.sweep
-            .get_or_insert_with(super::sweep::SweepStats::default)
-            .add(&w);
-    }
-    Ok(())
 }

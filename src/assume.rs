@@ -110,7 +110,7 @@ fn one(
             let generic: Vec<bool> = e
                 .diagnostics
                 .iter()
-                .map(|d| d.help.is_none() || matches!(d.kind, Kind::Grammar { .. }) || names_a_non_port(d, &label, expr, &names))
+                .map(|d| d.help.is_none() || matches!(d.kind, Kind::Grammar { .. } | Kind::UndeclaredName))
                 .collect();
             let mut e = relocate(e, &label, expr.chars().count() as u32);
             for (d, generic) in e.diagnostics.iter_mut().zip(generic) {
@@ -215,23 +215,6 @@ fn relocate(mut e: InputError, label: &Arc<str>, len: u32) -> InputError {
         }
     }
     e
-}
-
-/// Whether `d` is an elaboration error that points, in the assumption's own text, at an
-/// identifier other than a port name (a name the wrapper module does not declare).
-fn names_a_non_port(d: &Diagnostic, label: &Arc<str>, expr: &str, ports: &[String]) -> bool {
-    let Some(p) = d.pos.as_ref() else {
-        return false;
-    };
-    if d.stage != Stage::Elaborate || p.file != *label || p.line != EXPR_LINE || p.col == 0 {
-        return false;
-    }
-    let word: String = expr
-        .chars()
-        .skip(p.col as usize - 1)
-        .take_while(|c| c.is_ascii_alphanumeric() || *c == '_' || *c == '$')
-        .collect();
-    word.starts_with(|c: char| c.is_ascii_alphabetic() || c == '_') && !ports.contains(&word)
 }
 
 /// Fail when no input vector satisfies `c` (a literal of `aig`).

@@ -81,6 +81,9 @@ pub enum Kind {
         /// Byte offset of `, found` in the message.
         found_at: Option<u32>,
     },
+    /// A name used but not declared (the elaborator's; an assumption's reader gives its own
+    /// help for it, naming the ports).
+    UndeclaredName,
 }
 
 /// One message about the user's input.

@@ -257,7 +257,7 @@ pub fn diagnosis_text(d: &Diagnosis) -> String {
     }
     let Some(select) = &d.select else { return s };
     s += &format!(
-        "\nroute tables over `{select}` for the differing outputs (each route proved by SAT)\n"
+        "\nroute tables over `{select}` for the differing outputs (each route proved by constant folding or SAT)\n"
     );
     let mut at = 0;
     while at < d.routes.len() {

@@ -1,35 +1,55 @@
 //! equicone: combinational equivalence checking and cone audits for hand-optimized logic.
 //!
 //! The pipeline: netlist text ([`front`]) -> [`design::Design`] with an and-inverter graph
-//! ([`aig`]) -> random simulation and Tseitin CNF ([`cnf`]) solved by varisat ([`sat`]) in the
-//! proof engine ([`engine`]) -> reports ([`report`]).
+//! ([`aig`]) -> random simulation and Tseitin CNF solved by varisat in the proof engine
+//! ([`engine`]) -> reports (text and JSON).
+//!
+//! The library's front door is the list of re-exports below: read a design
+//! ([`load_texts`], [`read_bench`], [`read_verilog`]), compare two with one check session
+//! ([`check()`]), audit the cones of one ([`audit`]), generate circuits ([`generate`]). The
+//! public modules stay reachable for tests, examples and benchmarks that look inside one step;
+//! the Verilog lexer, parser and syntax tree, the CNF encoder, the report printers, the
+//! certificate checker and the diagnosis are internal. `cli` is the command line of the
+//! `equicone` binary, public only so that the binary can call it.
 
 pub mod aig;
 pub mod algebra;
 pub mod assume;
-pub mod certify;
+pub(crate) mod certify;
 pub mod check;
+#[doc(hidden)]
 pub mod cli;
-pub mod cnf;
+pub(crate) mod cnf;
 pub mod cone;
 pub mod cost;
 pub mod demo;
 pub mod design;
 pub mod diag;
-pub mod diagnose;
+pub(crate) mod diagnose;
 pub mod engine;
 pub mod explain;
 pub mod front;
 pub mod gen;
 pub(crate) mod hash;
+pub mod host;
 pub mod portmap;
-pub mod report;
+pub(crate) mod report;
 pub mod rng;
 pub mod routes;
 pub mod sat;
 pub mod seq;
-pub mod shard;
+pub(crate) mod shard;
 
 pub use aig::{Aig, Lit};
+pub use check::{check, miter_cnf, CheckError, CheckOutcome, CheckRequest, DiagnosisRequest};
+pub use cone::{audit, AuditOptions, AuditReport};
 pub use design::{Design, Format, InputBit, OutputBit};
 pub use diag::{Diagnostic, InputError, SourcePos};
+pub use engine::{
+    prove, EngineKind, PairBy, PairVerdict, ProveOptions, ProveReport, Side, Verdict,
+};
+pub use front::bench::read_bench;
+pub use front::load_texts;
+pub use front::verilog::read_verilog;
+pub use gen::{generate, GenFormat, GenSpec, Kind, Style};
+pub use sat::Limits;

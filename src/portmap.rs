@@ -8,9 +8,32 @@
 //! [`PortMap::bit_pairs`] expands the entries against the bits each side has, so any kind of
 //! named bit (ports today, registers later) can be paired the same way.
 
+use crate::design::{Design, Format, InputKind};
 use crate::diag::{Diagnostic, InputError, SourcePos};
 use std::collections::BTreeMap;
 use std::sync::Arc;
+
+/// A port map resolved against two designs: reference bit name -> candidate bit name, for
+/// inputs and outputs alike, with the file it came from (for reports).
+#[derive(Clone, Debug, PartialEq, Eq, Default)]
+pub struct BitMap {
+    /// The port map file, as given.
+    pub file: String,
+    /// Reference bit -> candidate bit.
+    pub pairs: BTreeMap<String, String>,
+}
+
+impl BitMap {
+    /// The candidate bit a reference bit pairs with: its mapped partner, else the bit of the
+    /// same name unless that name is mapped to another reference bit.
+    pub fn partner<'a>(&'a self, reference: &'a str) -> Option<&'a str> {
+        match self.pairs.get(reference) {
+            Some(c) => Some(c),
+            None if self.pairs.values().any(|c| c == reference) => None,
+            None => Some(reference),
+        }
+    }
+}
 
 /// One line of a port map.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -100,6 +123,22 @@ impl PortMap {
         }
     }
 
+    /// Read and parse the port map file at `path`.
+    pub fn read(path: &str) -> Result<PortMap, InputError> {
+        let text = crate::front::read_text(path)?;
+        PortMap::parse(&Arc::from(path), &text)
+    }
+
+    /// Expand the entries against the port bits of two designs (a bus name stands for its
+    /// bits from the least significant; a bit name for itself).
+    pub fn resolve(&self, file: &str, r: &Design, c: &Design) -> Result<BitMap, InputError> {
+        let pairs = self.bit_pairs(&|n| port_bits(r, n), &|n| port_bits(c, n))?;
+        Ok(BitMap {
+            file: file.to_string(),
+            pairs,
+        })
+    }
+
     /// Expand the entries into bit pairs (reference bit name -> candidate bit name).
     /// `reference_bits(name)` and `candidate_bits(name)` give the bits a name stands for on
     /// each side, least significant first (one for a bit, `None` when the side has no such
@@ -160,6 +199,40 @@ impl PortMap {
             })
         }
     }
+}
+
+/// The port bits `name` stands for in `d` (least significant first) and whether they are
+/// inputs or outputs.
+fn port_bits(d: &Design, name: &str) -> Option<(Vec<String>, &'static str)> {
+    let inputs = d
+        .inputs
+        .iter()
+        .filter(|b| b.kind == InputKind::Port)
+        .map(|b| (b.name.as_str(), b.port.as_str(), b.index));
+    let outputs = d
+        .outputs
+        .iter()
+        .map(|o| (o.name.as_str(), o.port.as_str(), o.index));
+    let find = |bits: Vec<(&str, &str, Option<i64>)>| {
+        if let Some(b) = bits.iter().find(|b| b.0 == name) {
+            return Some(vec![b.0.to_string()]);
+        }
+        let mut bus: Vec<(&str, Option<i64>)> = bits
+            .iter()
+            .filter(|b| b.1 == name)
+            .map(|b| (b.0, b.2))
+            .collect();
+        // The Verilog reader lists a bus from its least significant bit; a bench bus has no
+        // declared range, and bit j is the one with the j-th smallest index.
+        if d.format != Format::Verilog {
+            bus.sort_by_key(|b| b.1);
+        }
+        (!bus.is_empty()).then(|| bus.into_iter().map(|b| b.0.to_string()).collect())
+    };
+    if let Some(b) = find(inputs.collect()) {
+        return Some((b, "input"));
+    }
+    find(outputs.collect()).map(|b| (b, "output"))
 }
 
 #[cfg(test)]

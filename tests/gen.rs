@@ -2,8 +2,6 @@
 //! u128 arithmetic for adders and multipliers, a bench evaluator written here independently of
 //! the generator's IR, and Icarus Verilog for the Verilog text.
 
-#[path = "gen/bench_eval.rs"]
-mod bench_eval;
 #[path = "gen/iverilog.rs"]
 mod iverilog;
 #[path = "gen/support.rs"]

@@ -10,6 +10,8 @@ mod bounded;
 mod common;
 #[path = "trust/display.rs"]
 mod display;
+#[path = "trust/portmap.rs"]
+mod portmap;
 #[path = "trust/ranges.rs"]
 mod ranges;
 #[path = "runner/mod.rs"]

@@ -56,6 +56,9 @@ pub fn check_clocked(
     if req.options.pair_by != PairBy::Name {
         return Err(refuse("--pair-by position"));
     }
+    if req.options.port_map.is_some() {
+        return Err(refuse("--port-map"));
+    }
     let o = SeqOptions {
         cycles: settings.cycles,
         init_unset: settings.init_unset,

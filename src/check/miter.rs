@@ -37,7 +37,28 @@ pub fn miter_cnf(
     strict_unknowns: bool,
     assumptions: &[String],
 ) -> Result<MiterCnf, InputError> {
-    let mut shared = engine::pair(r, c, pair_by, free_extra_inputs)?;
+    miter_cnf_mapped(
+        r,
+        c,
+        pair_by,
+        free_extra_inputs,
+        strict_unknowns,
+        assumptions,
+        None,
+    )
+}
+
+/// [`miter_cnf`] with a port map that pairs renamed bits first (`cnf --port-map`).
+pub fn miter_cnf_mapped(
+    r: &Design,
+    c: &Design,
+    pair_by: PairBy,
+    free_extra_inputs: bool,
+    strict_unknowns: bool,
+    assumptions: &[String],
+    port_map: Option<&crate::portmap::BitMap>,
+) -> Result<MiterCnf, InputError> {
+    let mut shared = engine::pairing::pair_mapped(r, c, pair_by, free_extra_inputs, port_map)?;
     if !strict_unknowns {
         engine::dont_care::apply(&mut shared, r);
     }

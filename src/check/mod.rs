@@ -12,7 +12,7 @@ mod clocked;
 mod miter;
 
 pub use clocked::{check_clocked, is_clocked, ClockedSettings};
-pub use miter::{miter_cnf, MiterCnf};
+pub use miter::{miter_cnf, miter_cnf_mapped, MiterCnf};
 
 use crate::certify::{certify, Certificate, NoCertificate, ProofFormat};
 use crate::design::Design;
@@ -174,7 +174,13 @@ pub fn check_shard(
     let opts = &req.options;
     // The session's clock: the engine, the diagnosis and the certificate share the budget.
     let deadline = Limits::new(opts.timeout, None);
-    let mut shared = engine::pair(r, c, opts.pair_by, opts.free_extra_inputs)?;
+    let mut shared = engine::pairing::pair_mapped(
+        r,
+        c,
+        opts.pair_by,
+        opts.free_extra_inputs,
+        opts.port_map.as_deref(),
+    )?;
     if !opts.strict_unknowns {
         engine::dont_care::apply(&mut shared, r);
     }

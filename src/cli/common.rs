@@ -27,17 +27,36 @@ impl From<FormatArg> for Format {
     }
 }
 
-/// The limits and the simulation seed of `prove`, `cone` and `stats`.
+/// The run's budget (`--timeout`, `--conflict-limit`), shared by `prove`, `cone`, `stats` and
+/// `routes`.
 #[derive(Args, Debug, Clone)]
-pub struct LimitArgs {
+pub struct BudgetArgs {
     /// Stop after this many seconds, reading the designs included; what is still open (output
-    /// pairs, claims) is then undecided.
+    /// pairs, claims, select values) is then undecided.
     #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
     pub timeout: Option<f64>,
-    /// Conflicts allowed per SAT query; a query that needs more leaves its output pair or
-    /// claim undecided.
+    /// Conflicts allowed per SAT query; a query that needs more leaves its output pair, claim
+    /// or route undecided.
     #[arg(long, value_name = "N")]
     pub conflict_limit: Option<u64>,
+}
+
+impl BudgetArgs {
+    /// The solver limits; the clock starts now.
+    pub fn limits(&self) -> Result<crate::sat::Limits, Exit> {
+        Ok(crate::sat::Limits::new(
+            timeout_of(self.timeout)?,
+            self.conflict_limit,
+        ))
+    }
+}
+
+/// The budget and the simulation seed of `prove`, `cone` and `stats`.
+#[derive(Args, Debug, Clone)]
+pub struct LimitArgs {
+    /// `--timeout` and `--conflict-limit`.
+    #[command(flatten)]
+    pub budget: BudgetArgs,
     /// Seed of the random simulation patterns.
     #[arg(long, default_value_t = 1)]
     pub seed: u64,

@@ -2,7 +2,7 @@
 //! `equicone stats` (gate counts, cost, delay, bounds).
 
 use super::common::{
-    check_writable, print, report_input_error, timeout_of, write_atomic, DesignArgs, LimitArgs,
+    check_writable, print, report_input_error, write_atomic, DesignArgs, LimitArgs,
 };
 use super::Exit;
 use crate::cone::{self, AuditOptions, SupportOptions};
@@ -12,10 +12,6 @@ use crate::sat::Limits;
 use clap::Args;
 
 impl LimitArgs {
-    fn limits(&self) -> Result<Limits, Exit> {
-        Ok(Limits::new(timeout_of(self.timeout)?, self.conflict_limit))
-    }
-
     fn support(&self, progress: bool) -> SupportOptions {
         SupportOptions {
             seed: self.seed,
@@ -61,7 +57,7 @@ pub struct ConeArgs {
 /// Run `cone`.
 pub fn run_cone(a: &ConeArgs) -> Exit {
     // The clock starts before reading: --timeout covers the whole run.
-    let limits = match a.limits.limits() {
+    let limits = match a.limits.budget.limits() {
         Ok(l) => l,
         Err(e) => return e,
     };
@@ -213,7 +209,7 @@ fn stamp_run(stamp: &mut crate::shard::cone::ConeStamp, a: &ConeArgs) {
         a.expect.is_some(),
         a.limits.seed,
     );
-    let options = match a.limits.conflict_limit {
+    let options = match a.limits.budget.conflict_limit {
         Some(c) => format!("{options}|{c}"),
         None => options,
     };
@@ -246,7 +242,7 @@ const STATS_SUPPORT_SECONDS: f64 = 2.0;
 /// Run `stats`.
 pub fn run_stats(a: &StatsArgs) -> Exit {
     // The clock starts before reading: --timeout covers the whole run.
-    let limits = match a.limits.limits() {
+    let limits = match a.limits.budget.limits() {
         Ok(l) => l,
         Err(e) => return e,
     };

@@ -1,8 +1,9 @@
 //! `equicone gen`: write a generated reference or implementation circuit (or a mutant).
 
 use super::common::{print, report_input_error, write_atomic};
+use super::gen_enums::{BugArg, FormatArg, KindArg, StyleArg};
 use super::Exit;
-use crate::gen::{self, Bug, GenFormat, GenSpec, Kind, Style};
+use crate::gen::{self, GenFormat, GenSpec, Kind};
 use clap::Args;
 
 /// Options of `gen`.
@@ -10,7 +11,7 @@ use clap::Args;
 pub struct GenArgs {
     /// What to generate.
     #[arg(value_enum)]
-    kind: Kind,
+    kind: KindArg,
     /// `remap` only: the design file to rewrite (bench or Verilog).
     #[arg(value_name = "DESIGN")]
     design: Option<String>,
@@ -28,7 +29,7 @@ pub struct GenArgs {
     pre: super::common::PreprocArgs,
     /// How to build it (default: the kind's first style, the one-line spec where there is one).
     #[arg(long, value_enum)]
-    style: Option<Style>,
+    style: Option<StyleArg>,
     /// Selector channel width.
     #[arg(long, default_value_t = 1)]
     width: usize,
@@ -40,7 +41,7 @@ pub struct GenArgs {
     seed: u64,
     /// Plant a bug (described in a comment at the top of the file).
     #[arg(long, value_enum)]
-    bug: Option<Bug>,
+    bug: Option<BugArg>,
     /// Where to plant the bug: a net name as printed (default: chosen by the seed).
     #[arg(long, value_name = "NET")]
     at: Option<String>,
@@ -53,7 +54,7 @@ pub struct GenArgs {
     /// Multipliers, mac and squarers of style wallace, dadda or booth: the final adder
     /// (ripple, cla, kogge-stone, brent-kung; default ripple).
     #[arg(long, value_enum, value_name = "STYLE")]
-    final_adder: Option<Style>,
+    final_adder: Option<StyleArg>,
     /// Pipelined adder: register stages.
     #[arg(long, default_value_t = 2)]
     stages: usize,
@@ -67,7 +68,7 @@ pub struct GenArgs {
     invert: f64,
     /// Output format (default: bench when the output file ends in `.bench`, else Verilog).
     #[arg(long, value_enum)]
-    format: Option<GenFormat>,
+    format: Option<FormatArg>,
     /// Write to this file (atomically) instead of standard output.
     #[arg(short = 'o', long = "output", value_name = "FILE")]
     output: Option<String>,
@@ -75,11 +76,12 @@ pub struct GenArgs {
 
 /// Run `gen`.
 pub fn run(a: &GenArgs) -> Exit {
-    let format = a.format.unwrap_or(match &a.output {
+    let kind = Kind::from(a.kind);
+    let format = a.format.map(GenFormat::from).unwrap_or(match &a.output {
         Some(path) if path.ends_with(".bench") => GenFormat::Bench,
         _ => GenFormat::Verilog,
     });
-    if a.kind == Kind::Remap {
+    if kind == Kind::Remap {
         return super::remap::run(
             a.design.as_deref(),
             a.k,
@@ -89,13 +91,13 @@ pub fn run(a: &GenArgs) -> Exit {
     }
     let Some(n) = a.n else {
         return report_input_error(&crate::diag::InputError::plain(
-            format!("gen {} needs a size", a.kind.name()),
+            format!("gen {} needs a size", kind.name()),
             "give --n (see `equicone gen --help` for what it counts)",
         ));
     };
     if a.design.is_some() {
         return report_input_error(&crate::diag::InputError::plain(
-            format!("gen {} takes no design file", a.kind.name()),
+            format!("gen {} takes no design file", kind.name()),
             "only `gen remap DESIGN` reads a design; leave the file name out",
         ));
     }
@@ -105,27 +107,27 @@ pub fn run(a: &GenArgs) -> Exit {
             "give --invert 0.1 for a tenth of the registers",
         ));
     }
-    if a.rename && !gen::clocked::is_clocked(a.kind) {
+    if a.rename && !gen::clocked::is_clocked(kind) {
         return report_input_error(&crate::diag::InputError::plain(
             format!(
                 "--rename applies to the clocked families, not to {}",
-                a.kind.name()
+                kind.name()
             ),
-            "use it with reg-selector, pipe-adder, counter, shift-register or fsm",
+            "use it with reg-selector, pipe-adder, counter, shift-register, fsm or reg-random",
         ));
     }
     let spec = GenSpec {
-        kind: a.kind,
-        style: a.style.unwrap_or(a.kind.styles()[0]),
+        kind,
+        style: a.style.map_or(kind.styles()[0], Into::into),
         n,
         width: a.width,
         inputs: a.inputs,
         seed: a.seed,
-        bug: a.bug,
+        bug: a.bug.map(Into::into),
         at: a.at.clone(),
         module: a.module.clone(),
         signed: a.signed,
-        final_adder: a.final_adder,
+        final_adder: a.final_adder.map(Into::into),
         stages: a.stages,
         rename: a.rename.then_some((a.invert * 1000.0).round() as u32),
     };

@@ -13,6 +13,8 @@ mod demo;
 mod eval;
 mod eval_trace;
 mod gen;
+mod gen_enums;
+mod host;
 mod merge;
 mod prove;
 mod remap;
@@ -76,6 +78,7 @@ pub enum Command {
 
 /// Run a parsed command line and return its exit code.
 pub fn run(cli: Cli) -> Exit {
+    host::install();
     match cli.command {
         Command::Demo(a) => demo::run(&a),
         Command::Prove(a) => prove::run(&a),

@@ -93,6 +93,10 @@ pub struct PairArgs {
     /// How to match input and output bits.
     #[arg(long, value_enum, default_value_t = PairByArg::Name)]
     pub pair_by: PairByArg,
+    /// A port map file pairing renamed ports or bits (`REFERENCE_NAME CANDIDATE_NAME` per
+    /// line, see the README); the bits it does not name pair by name.
+    #[arg(long, value_name = "FILE")]
+    pub port_map: Option<String>,
     /// Leave input bits that exist on one side only free (the verdict then covers all their values).
     #[arg(long)]
     pub free_extra_inputs: bool,
@@ -176,6 +180,21 @@ impl PairArgs {
             (Ok(r), Ok(c)) => Ok((r, c)),
             _ => unreachable!("every failure is handled above"),
         }
+    }
+
+    /// The port map (`--port-map`) resolved against both designs, if one was given.
+    fn port_map(
+        &self,
+        r: &Design,
+        c: &Design,
+    ) -> Result<Option<std::sync::Arc<crate::portmap::BitMap>>, Exit> {
+        let Some(path) = &self.port_map else {
+            return Ok(None);
+        };
+        crate::portmap::PortMap::read(path)
+            .and_then(|m| m.resolve(path, r, c))
+            .map(|m| Some(std::sync::Arc::new(m)))
+            .map_err(|e| report_input_error(&e))
     }
 }
 
@@ -263,7 +282,7 @@ pub struct CnfArgs {
 /// Run `prove`: read both designs, hand them to the check session, print its outcome.
 pub fn run(a: &ProveArgs) -> Exit {
     // The clock starts before reading: --timeout covers the whole run.
-    let timeout = match timeout_of(a.limits.timeout) {
+    let timeout = match timeout_of(a.limits.budget.timeout) {
         Ok(t) => t,
         Err(e) => return e,
     };
@@ -294,6 +313,10 @@ pub fn run(a: &ProveArgs) -> Exit {
         }
         return run_clocked(a, &r, &c, &deadline);
     }
+    let port_map = match a.pair.port_map(&r, &c) {
+        Ok(m) => m,
+        Err(e) => return e,
+    };
     let req = CheckRequest {
         reference: &r,
         candidate: &c,
@@ -303,12 +326,13 @@ pub fn run(a: &ProveArgs) -> Exit {
             free_extra_inputs: a.pair.free_extra_inputs,
             engine: a.engine.into(),
             timeout: deadline.remaining(),
-            conflict_limit: a.limits.conflict_limit,
+            conflict_limit: a.limits.budget.conflict_limit,
             seed: a.limits.seed,
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: !a.json && std::io::stderr().is_terminal(),
             strict_unknowns: a.pair.strict_unknowns,
+            port_map,
         },
         diagnosis: match &a.select {
             _ if a.diagnosis_time == 0.0 => DiagnosisRequest::Off,
@@ -393,12 +417,18 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
             free_extra_inputs: a.pair.free_extra_inputs,
             engine: a.engine.into(),
             timeout: deadline.remaining(),
-            conflict_limit: a.limits.conflict_limit,
+            conflict_limit: a.limits.budget.conflict_limit,
             seed: a.limits.seed,
             sim_words: None,
             jobs: a.jobs.unwrap_or(0),
             progress: false,
             strict_unknowns: a.pair.strict_unknowns,
+            port_map: a.pair.port_map.as_ref().map(|f| {
+                std::sync::Arc::new(crate::portmap::BitMap {
+                    file: f.clone(),
+                    ..Default::default()
+                })
+            }),
         },
         diagnosis: DiagnosisRequest::Off,
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),
@@ -437,13 +467,18 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         eprintln!("error: cnf writes the miter of combinational designs, and {} has registers\n  help: use `prove` for clocked designs", if r.is_clocked() { &r.name } else { &c.name });
         return Exit::BadInput;
     }
-    let miter = match check::miter_cnf(
+    let port_map = match a.pair.port_map(&r, &c) {
+        Ok(m) => m,
+        Err(e) => return e,
+    };
+    let miter = match check::miter_cnf_mapped(
         &r,
         &c,
         a.pair.pair_by.into(),
         a.pair.free_extra_inputs,
         a.pair.strict_unknowns,
         &a.assume,
+        port_map.as_deref(),
     ) {
         Ok(m) => m,
         Err(e) => return report_input_error(&e),
@@ -517,7 +552,7 @@ fn stamp_run(stamp: &mut crate::shard::ShardStamp, a: &ProveArgs) {
         p.free_extra_inputs,
         a.engine,
         a.limits.seed,
-        a.limits.conflict_limit,
+        a.limits.budget.conflict_limit,
         a.assume,
         p.ref_also.len()
     );
@@ -526,6 +561,14 @@ fn stamp_run(stamp: &mut crate::shard::ShardStamp, a: &ProveArgs) {
     let options = match p.strict_unknowns {
         true => options + "|strict-unknowns",
         false => options,
+    };
+    // Likewise the port map's contents, when one is given.
+    let options = match &p.port_map {
+        Some(f) => {
+            let text = std::fs::read(f).unwrap_or_default();
+            options + "|port-map:" + &crate::shard::fingerprint([text.as_slice()])
+        }
+        None => options,
     };
     stamp.options = crate::shard::fingerprint([options.as_bytes()]);
 }

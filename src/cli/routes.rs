@@ -1,10 +1,9 @@
 //! `equicone routes`: for each value of a select bus, which data input each output follows.
 
-use super::common::{print, report_input_error, timeout_of, DesignArgs};
+use super::common::{print, report_input_error, BudgetArgs, DesignArgs};
 use super::Exit;
 use crate::report;
 use crate::routes::{self, Route, RouteTable};
-use crate::sat::Limits;
 use clap::Args;
 use serde::Serialize;
 
@@ -23,13 +22,9 @@ pub struct RoutesArgs {
     /// (repeatable: all must hold).
     #[arg(long, value_name = "EXPR")]
     assume: Vec<String>,
-    /// Stop after this many seconds, reading the design included; the select values left
-    /// are undecided.
-    #[arg(long, value_name = "SECONDS", allow_negative_numbers = true)]
-    timeout: Option<f64>,
-    /// Conflicts allowed per SAT query; a route that needs more is undecided.
-    #[arg(long, value_name = "N")]
-    conflict_limit: Option<u64>,
+    /// `--timeout` and `--conflict-limit`.
+    #[command(flatten)]
+    budget: BudgetArgs,
     /// Print the result as JSON.
     #[arg(long)]
     json: bool,
@@ -98,8 +93,8 @@ pub fn table_text(t: &RouteTable) -> String {
 /// Run `routes`.
 pub fn run(a: &RoutesArgs) -> Exit {
     // The clock starts before reading: --timeout covers the whole run.
-    let limits = match timeout_of(a.timeout) {
-        Ok(t) => Limits::new(t, a.conflict_limit),
+    let limits = match a.budget.limits() {
+        Ok(l) => l,
         Err(e) => return e,
     };
     let d = match a.design.load_within(&limits) {
@@ -147,7 +142,7 @@ pub fn run(a: &RoutesArgs) -> Exit {
         print(&report::to_json(&rep));
     } else {
         let mut s = format!(
-            "design   {}\nselect   {} ({} bit{}, {} values)\nroutes (each proved by SAT for its select value; ~ marks an inverted route)\n",
+            "design   {}\nselect   {} ({} bit{}, {} values)\nroutes (each proved for its select value, by constant folding or SAT; ~ marks an inverted route)\n",
             d.name,
             a.select,
             sel.len(),

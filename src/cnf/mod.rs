@@ -102,11 +102,6 @@ impl Tseitin {
         out
     }
 
-    /// Number of encoded nodes.
-    pub fn encoded(&self) -> usize {
-        self.map.iter().filter(|m| m.is_some()).count()
-    }
-
     fn encode_cone<S: ClauseSink>(&mut self, aig: &Aig, sink: &mut S, root: u32) {
         // Collect the unencoded part of the cone with an explicit stack, then encode it in
         // ascending (topological) order.

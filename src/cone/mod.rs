@@ -31,17 +31,15 @@ pub use support::{
     SupportStats,
 };
 
-use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
-use std::io::IsTerminal;
+use indicatif::{ProgressBar, ProgressStyle};
 
-/// A progress bar on standard error when `enabled` and standard error is a terminal; a
-/// hidden one otherwise.
+/// A progress bar where the host draws progress (`crate::host`) when `enabled`; a hidden one
+/// otherwise.
 pub(crate) fn progress_bar(enabled: bool, what: &str) -> ProgressBar {
-    if !enabled || !std::io::stderr().is_terminal() {
+    let Some(target) = enabled.then(crate::host::progress_target).flatten() else {
         return ProgressBar::hidden();
-    }
-    let mut bar = ProgressBar::with_draw_target(Some(0), ProgressDrawTarget::stderr())
-        .with_message(what.to_string());
+    };
+    let mut bar = ProgressBar::with_draw_target(Some(0), target).with_message(what.to_string());
     if let Ok(style) =
         ProgressStyle::with_template("{msg} [{bar:40}] {pos}/{len} claims ({eta} left)")
     {

@@ -130,6 +130,8 @@ pub struct ProveOptions {
     /// Read an `x` of the reference strictly: the candidate must match it for every value it
     /// takes (false: where the reference output is `x` it is a don't-care).
     pub strict_unknowns: bool,
+    /// Renamed ports paired by a port map (`--port-map`), before pairing by name.
+    pub port_map: Option<std::sync::Arc<crate::portmap::BitMap>>,
 }
 
 impl Default for ProveOptions {
@@ -145,6 +147,7 @@ impl Default for ProveOptions {
             jobs: 0,
             progress: false,
             strict_unknowns: false,
+            port_map: None,
         }
     }
 }
@@ -179,7 +182,13 @@ pub fn prove(
     candidate: &Design,
     opts: &ProveOptions,
 ) -> Result<ProveReport, ProveError> {
-    let mut shared = pair(reference, candidate, opts.pair_by, opts.free_extra_inputs)?;
+    let mut shared = pairing::pair_mapped(
+        reference,
+        candidate,
+        opts.pair_by,
+        opts.free_extra_inputs,
+        opts.port_map.as_deref(),
+    )?;
     if !opts.strict_unknowns {
         dont_care::apply(&mut shared, reference);
     }
@@ -199,8 +208,11 @@ pub fn prove_shared(
     let mut outcomes = vec![None; shared.pairs.len()];
     let mut cexs: Vec<Counterexample> = Vec::new();
 
-    let rss_at_start = status_kib("VmRSS:");
-    log::debug!("memory with the shared AIG built: {}", memory_now());
+    let memory_at_start = crate::host::measure();
+    log::debug!(
+        "memory with the shared AIG built: {}",
+        crate::host::now_note()
+    );
     let progress = Progress::new(opts.progress, shared.pairs.len());
     let patterns = if opts.engine == EngineKind::Plain {
         0
@@ -226,7 +238,7 @@ pub fn prove_shared(
     let run = run_engine(r, c, &shared, &queries, &open, opts, &limits, &progress)?;
     progress.finish();
     apply_findings(run.findings, &shared, r, c, &mut outcomes, &mut cexs)?;
-    log::debug!("peak memory: {}", peak_memory_note(shared.aig.len()));
+    log::debug!("peak memory: {}", crate::host::peak_note(shared.aig.len()));
 
     let pairs: Vec<PairResult> = shared
         .pairs
@@ -265,9 +277,15 @@ pub fn prove_shared(
         ascending_ports,
         paired: if opts.pair_by == PairBy::Position {
             pair_runs::paired_runs(&shared, r, c)
+        } else if opts.port_map.is_some() {
+            // Only the renamed bits: the rest pair by name.
+            let mut runs = pair_runs::paired_runs(&shared, r, c);
+            runs.retain(|run| run.reference != run.candidate);
+            runs
         } else {
             Vec::new()
         },
+        port_map: opts.port_map.as_ref().map(|m| m.file.clone()),
         pairs,
         counterexamples: cexs,
         stats: Stats {
@@ -278,9 +296,9 @@ pub fn prove_shared(
             sat: run.sat,
             sweep: run.sweep,
             portfolio: run.portfolio,
-            engine_memory_bytes: rss_at_start
-                .zip(status_kib("VmHWM:"))
-                .map(|(a, p)| p.saturating_sub(a) * 1024),
+            engine_memory_bytes: memory_at_start
+                .zip(crate::host::measure())
+                .map(|(start, end)| end.peak_bytes.saturating_sub(start.resident_bytes)),
             seconds: start.elapsed().as_secs_f64(),
         },
         warnings,
@@ -409,38 +427,4 @@ fn record(
     }
     cexs.push(cex);
     Ok(())
-}
-
-/// Peak resident memory of this process (VmHWM on Linux) and per node of the shared graph,
-/// for the debug log and the benchmark.
-fn peak_memory_note(nodes: usize) -> String {
-    match peak_rss_bytes() {
-        Some(b) => format!(
-            "{:.1} MiB, {:.1} bytes per shared AIG node ({} nodes)",
-            b as f64 / (1u64 << 20) as f64,
-            b as f64 / nodes.max(1) as f64,
-            nodes
-        ),
-        None => "not available on this system".to_string(),
-    }
-}
-
-/// Peak resident set size of this process in bytes, where the system reports it.
-pub fn peak_rss_bytes() -> Option<u64> {
-    status_kib("VmHWM:").map(|kb| kb * 1024)
-}
-
-/// Current and peak resident memory in MiB, for the debug log of each phase.
-pub(crate) fn memory_now() -> String {
-    match (status_kib("VmRSS:"), status_kib("VmHWM:")) {
-        (Some(now), Some(peak)) => format!("{} MiB resident, {} MiB peak", now >> 10, peak >> 10),
-        _ => "not available on this system".to_string(),
-    }
-}
-
-/// A field of /proc/self/status in KiB.
-fn status_kib(field: &str) -> Option<u64> {
-    let s = std::fs::read_to_string("/proc/self/status").ok()?;
-    let line = s.lines().find(|l| l.starts_with(field))?;
-    line.split_whitespace().nth(1)?.parse().ok()
 }

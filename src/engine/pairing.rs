@@ -7,6 +7,7 @@
 use crate::aig::{Aig, Lit};
 use crate::design::{Design, InputKind};
 use crate::diag::InputError;
+use crate::portmap::BitMap;
 use serde::Serialize;
 
 /// Which design an input bit belongs to.
@@ -110,6 +111,30 @@ impl Shared {
 /// Pair the designs and build the shared AIG. `free_extra` leaves unmatched port inputs free
 /// instead of failing.
 pub fn pair(r: &Design, c: &Design, by: PairBy, free_extra: bool) -> Result<Shared, InputError> {
+    pair_mapped(r, c, by, free_extra, None)
+}
+
+/// [`pair`], with a port map (`--port-map`) that pairs renamed bits by name first; bits it
+/// does not name pair by name as usual. Only with pairing by name.
+pub fn pair_mapped(
+    r: &Design,
+    c: &Design,
+    by: PairBy,
+    free_extra: bool,
+    map: Option<&BitMap>,
+) -> Result<Shared, InputError> {
+    if map.is_some() && by == PairBy::Position {
+        return Err(InputError::plain(
+            "a port map pairs bits by name; it cannot be used with `--pair-by position`",
+            "leave out `--pair-by position` (bits the map does not name pair by name), or leave out `--port-map`",
+        ));
+    }
+    let partner = |n: &'_ str| -> Option<String> {
+        match map {
+            Some(m) => m.partner(n).map(str::to_string),
+            None => Some(n.to_string()),
+        }
+    };
     let r_ports: Vec<usize> = port_inputs(r);
     let c_ports: Vec<usize> = port_inputs(c);
     let mut inputs = Vec::new();
@@ -143,7 +168,10 @@ pub fn pair(r: &Design, c: &Design, by: PairBy, free_extra: bool) -> Result<Shar
                 .map(|&ci| (c.inputs[ci].name.as_str(), ci))
                 .collect();
             for &ri in &r_ports {
-                match by_name.get(r.inputs[ri].name.as_str()).copied() {
+                let found = partner(&r.inputs[ri].name)
+                    .and_then(|n| by_name.get(n.as_str()).copied())
+                    .filter(|&ci| cand_input[ci] == usize::MAX);
+                match found {
                     Some(ci) => {
                         ref_input[ri] = inputs.len();
                         cand_input[ci] = inputs.len();
@@ -163,7 +191,12 @@ pub fn pair(r: &Design, c: &Design, by: PairBy, free_extra: bool) -> Result<Shar
             );
         }
     }
-    let pairs = pair_outputs(r, c, by)?;
+    let pairs = pair_outputs(r, c, by, &partner).map_err(|mut e| {
+        if let (Some(m), Some(d)) = (map, e.diagnostics.first_mut()) {
+            d.help = Some(map_help(m));
+        }
+        e
+    })?;
     if !free_extra && (!unmatched_r.is_empty() || !unmatched_c.is_empty()) {
         let list = |d: &Design, v: &[usize]| {
             v.iter()
@@ -180,10 +213,12 @@ pub fn pair(r: &Design, c: &Design, by: PairBy, free_extra: bool) -> Result<Shar
             msg += &format!(" only in the candidate: {};", list(c, &unmatched_c));
         }
         msg.pop();
-        let help = if r_ports.len() == c_ports.len() && r.outputs.len() == c.outputs.len() {
-            "the bit counts agree: if the ports are in the same order, try `--pair-by position`; to leave the extra inputs free (the proof then covers all their values), use `--free-extra-inputs`"
+        let help = if let Some(m) = map {
+            map_help(m)
+        } else if r_ports.len() == c_ports.len() && r.outputs.len() == c.outputs.len() {
+            "the bit counts agree: if the ports are in the same order, try `--pair-by position`; to leave the extra inputs free (the proof then covers all their values), use `--free-extra-inputs`".to_string()
         } else {
-            "rename the ports to agree, or use `--free-extra-inputs` to leave the extra inputs free (the proof then covers all their values)"
+            "rename the ports to agree, or use `--free-extra-inputs` to leave the extra inputs free (the proof then covers all their values)".to_string()
         };
         return Err(InputError::plain(msg, help));
     }
@@ -233,6 +268,14 @@ pub fn pair(r: &Design, c: &Design, by: PairBy, free_extra: bool) -> Result<Shar
     })
 }
 
+/// Help for bits left without a partner when a port map is in use.
+fn map_help(m: &BitMap) -> String {
+    format!(
+        "add a line `REFERENCE_NAME CANDIDATE_NAME` to the port map {} for each renamed port or bit",
+        m.file
+    )
+}
+
 fn port_inputs(d: &Design) -> Vec<usize> {
     d.inputs
         .iter()
@@ -242,7 +285,12 @@ fn port_inputs(d: &Design) -> Vec<usize> {
         .collect()
 }
 
-fn pair_outputs(r: &Design, c: &Design, by: PairBy) -> Result<Vec<(usize, usize)>, InputError> {
+fn pair_outputs(
+    r: &Design,
+    c: &Design,
+    by: PairBy,
+    partner: &dyn Fn(&str) -> Option<String>,
+) -> Result<Vec<(usize, usize)>, InputError> {
     if by == PairBy::Position {
         return Ok((0..r.outputs.len()).map(|i| (i, i)).collect());
     }
@@ -257,7 +305,7 @@ fn pair_outputs(r: &Design, c: &Design, by: PairBy) -> Result<Vec<(usize, usize)
         .map(|(k, o)| (o.name.as_str(), k))
         .collect();
     for (ri, o) in r.outputs.iter().enumerate() {
-        match by_name.get(o.name.as_str()).copied() {
+        match partner(&o.name).and_then(|n| by_name.get(n.as_str()).copied()) {
             Some(ci) => {
                 used[ci] = true;
                 pairs.push((ri, ci));

@@ -276,8 +276,8 @@ fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, Strin
 }
 
 /// BDD node limit for a graph of `nodes` AND nodes: BDDs a few times the size of the graph
-/// (so that a blow-up costs about as much as building the graph a few times), at most about
-/// 50 MiB.
+/// (so that a blow-up costs about as much as building the graph a few times), with a floor
+/// for small graphs and a ceiling that bounds the manager's memory.
 fn bdd_limit(nodes: usize) -> usize {
     (nodes.saturating_mul(16)).clamp(50_000, 1_000_000)
 }

@@ -1,8 +1,8 @@
 //! The progress line of a proof run (candidate classes left, node pairs proved, output pairs
-//! done), drawn on standard error with `indicatif` only when the caller asks for it; counters
-//! are atomic so that every worker thread can update them.
+//! done), drawn with `indicatif` where the host says (`crate::host`) and only when the caller
+//! asks for it; counters are atomic so that every worker thread can update them.
 
-use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
+use indicatif::{ProgressBar, ProgressStyle};
 use std::sync::atomic::{AtomicI64, AtomicUsize, Ordering};
 use std::time::Duration;
 
@@ -16,10 +16,11 @@ pub(crate) struct Progress {
 }
 
 impl Progress {
-    /// Counters for `total` output pairs; a line on standard error when `show`.
+    /// Counters for `total` output pairs; a line where the host draws progress when `show`.
     pub(crate) fn new(show: bool, total: usize) -> Progress {
-        let bar = show.then(|| {
-            let b = ProgressBar::with_draw_target(None, ProgressDrawTarget::stderr_with_hz(5));
+        let target = show.then(crate::host::progress_target).flatten();
+        let bar = target.map(|target| {
+            let b = ProgressBar::with_draw_target(None, target);
             b.set_style(
                 ProgressStyle::with_template("{spinner} {elapsed} {msg}")
                     .unwrap_or_else(|_| ProgressStyle::default_spinner()),

@@ -299,6 +299,9 @@ pub struct ProveReport {
     /// The paired bits as runs by bus, when they are not paired by name.
     #[serde(skip_serializing_if = "Vec::is_empty")]
     pub paired: Vec<crate::engine::pair_runs::PairedRun>,
+    /// The port map file that paired renamed bits (`--port-map`), when one was given.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub port_map: Option<String>,
     /// Per output pair.
     pub pairs: Vec<PairResult>,
     /// Distinct counterexamples found.

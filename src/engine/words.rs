@@ -38,9 +38,8 @@ pub const MAX_TERMS_ALONE: usize = 2_000_000;
 pub const WORD_SECONDS: u64 = 10;
 /// Live terms per rewriting unit (plus [`TERMS_BASE`]) before a word is given back: the
 /// polynomial of a multiplier or adder stays below one term per unit while it is rewritten
-/// (measured: 4,224 terms for the 20,222 units of a 64x64 Dadda multiplier, 13,955 for the
-/// 24,913 of a 64x64 Booth one, 12,286 for the 16,379 of a 4096-bit prefix adder), random
-/// logic passes this bound within a few steps.
+/// (the figures are in docs/engine.md, "Word polynomials"), random logic passes this bound
+/// within a few steps.
 pub const TERMS_PER_UNIT: usize = 8;
 /// Terms allowed on top of [`TERMS_PER_UNIT`] per unit.
 pub const TERMS_BASE: usize = 20_000;

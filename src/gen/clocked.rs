@@ -545,11 +545,120 @@ fn fsm(c: &mut SeqNet, n: usize, style: Style) -> String {
     )
 }
 
+/// Registers per gate of `reg-random` (1,000,000 gates: 20,000 registers).
+pub const RANDOM_GATES_PER_REGISTER: usize = 50;
+/// Length of the delay line of `reg-random`.
+const DELAY_LINE: usize = 5;
+
+/// Random clocked circuit: `n` gates (AND, OR, XOR, some reading a complemented fan-in) in
+/// layers over the inputs `x` and the register outputs, `n / 50` register bits loaded from
+/// gates of the last layers, outputs `y` from the last layer, and a delay line of 5 registers
+/// (`dl[0]` loads a gate, `dl[i]` loads `dl[i-1]`, output `z` is `dl[4]`). `--bug invert`
+/// stores the complement of the delay line's input: the outputs differ first at cycle 5. The
+/// circuit depends on `n` and `inputs` only (as every clocked family, `--seed` picks what
+/// `--rename` inverts), so a renamed copy has the same logic.
+fn reg_random(c: &mut SeqNet, n: usize, inputs: usize, bug: bool) -> String {
+    let mut rng = SplitMix64::new(0x5E0, 0x5E_0A4D);
+    let x = c.input("x", inputs.max(1));
+    let nregs = (n / RANDOM_GATES_PER_REGISTER).max(1);
+    let plain = nregs.saturating_sub(DELAY_LINE).max(1);
+    let regs: Vec<usize> = (0..plain)
+        .map(|i| {
+            let init = rng.chance(1, 4);
+            c.reg("r", Some(i), init)
+        })
+        .collect();
+    let line: Vec<usize> = if nregs > DELAY_LINE {
+        (0..DELAY_LINE)
+            .map(|i| c.reg("dl", Some(i), false))
+            .collect()
+    } else {
+        Vec::new()
+    };
+    // Layers of `width` gates; fan-ins from the previous layer, now and then from anywhere.
+    let width = ((n as f64).sqrt() as usize * 4).clamp(64, n.max(64));
+    let mut all: Vec<usize> = x.iter().chain(&regs).copied().collect();
+    let mut prev = all.clone();
+    let mut made = 0;
+    while made < n {
+        let this = width.min(n - made);
+        let mut layer = Vec::with_capacity(this);
+        for _ in 0..this {
+            let pick = |rng: &mut SplitMix64| {
+                if rng.chance(1, 8) {
+                    all[rng.below(all.len())]
+                } else {
+                    prev[rng.below(prev.len())]
+                }
+            };
+            let a = pick(&mut rng);
+            let mut b = pick(&mut rng);
+            if b == a {
+                b = all[rng.below(all.len())];
+            }
+            let g = match rng.below(3) {
+                0 => G::And,
+                1 => G::Or,
+                _ => G::Xor,
+            };
+            // Keep AND and OR from drifting to constants: complement one fan-in half the time.
+            let b = if g != G::Xor && rng.chance(1, 2) && made + layer.len() + 1 < n {
+                layer.push(c.not(b));
+                *layer.last().expect("just pushed")
+            } else {
+                b
+            };
+            layer.push(c.gate(g, vec![a, b]));
+            if made + layer.len() >= n {
+                break;
+            }
+        }
+        made += layer.len();
+        all.extend(&layer);
+        prev = layer;
+    }
+    // Registers load gates of the last layers; outputs read the last layer.
+    let tail = &all[all.len().saturating_sub(width * 4).max(inputs)..];
+    for &q in &regs {
+        let d = tail[rng.below(tail.len())];
+        c.load(q, d);
+    }
+    let outs = prev.len().min(64);
+    let y: Vec<usize> = prev[..outs].to_vec();
+    c.output("y", y);
+    let mut what = format!(
+        "random clocked circuit: {n} gates in layers of {width}, {} register bits, {} inputs",
+        regs.len() + line.len(),
+        x.len()
+    );
+    if !line.is_empty() {
+        let head = tail[rng.below(tail.len())];
+        let head = if bug { c.not(head) } else { head };
+        c.load(line[0], head);
+        for i in 1..line.len() {
+            c.load(line[i], line[i - 1]);
+        }
+        c.output_scalar("z", line[DELAY_LINE - 1]);
+        what.push_str(", a delay line of 5 registers to output z");
+        if bug {
+            what.push_str(
+                "; bug: the delay line stores its input inverted (first seen at cycle 5)",
+            );
+        }
+    }
+    what
+}
+
 /// Whether `kind` is one of the clocked families.
 pub fn is_clocked(kind: Kind) -> bool {
     matches!(
         kind,
-        Kind::RegSelector | Kind::PipeAdder | Kind::Counter | Kind::ShiftRegister | Kind::Fsm
+        Kind::RegSelector
+            | Kind::PipeAdder
+            | Kind::Counter
+            | Kind::ShiftRegister
+            | Kind::Fsm
+            | Kind::RegRandom
     )
 }
 
@@ -560,11 +669,17 @@ pub fn build(spec: &GenSpec) -> Result<SeqNet, GenError> {
         Kind::PipeAdder => (1, "a pipelined adder needs at least 1 bit"),
         Kind::Counter => (1, "a counter needs at least 1 bit"),
         Kind::ShiftRegister => (1, "a shift register needs at least 1 bit"),
+        Kind::RegRandom => (64, "a random clocked circuit needs at least 64 gates"),
         _ => (2, "a state machine needs at least 2 states"),
     };
-    if spec.n < min || spec.n > 1 << 16 {
+    let max = if spec.kind == Kind::RegRandom {
+        4_000_000
+    } else {
+        1 << 16
+    };
+    if spec.n < min || spec.n > max {
         return Err(GenError::new(
-            format!("--n {}: {what} (and at most 65536)", spec.n),
+            format!("--n {}: {what} (and at most {max})", spec.n),
             "choose another --n",
         ));
     }
@@ -577,9 +692,10 @@ pub fn build(spec: &GenSpec) -> Result<SeqNet, GenError> {
             "choose --stages between 1 and --n",
         ));
     }
-    if spec.bug.is_some() {
+    let invert_bug = spec.kind == Kind::RegRandom && spec.bug == Some(super::Bug::Invert);
+    if spec.bug.is_some() && !invert_bug {
         return Err(GenError::new(
-            "--bug does not apply to the clocked families",
+            "--bug applies to the clocked families only as `reg-random --bug invert`",
             "leave --bug out",
         ));
     }
@@ -590,6 +706,7 @@ pub fn build(spec: &GenSpec) -> Result<SeqNet, GenError> {
         Kind::PipeAdder => pipe_adder(&mut c, spec.n, spec.stages),
         Kind::Counter => counter(&mut c, spec.n),
         Kind::ShiftRegister => shift_register(&mut c, spec.n),
+        Kind::RegRandom => reg_random(&mut c, spec.n, spec.inputs, invert_bug),
         _ => fsm(&mut c, spec.n, spec.style),
     };
     c.notes.push(what);

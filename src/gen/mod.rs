@@ -58,7 +58,7 @@ pub use emit::{Circuit, Net, Op};
 use std::fmt;
 
 /// What to generate.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub enum Kind {
     /// N:1 selector of W-bit channels.
     Selector,
@@ -104,6 +104,9 @@ pub enum Kind {
     ShiftRegister,
     /// Clocked: state machine of n states (styles onehot and binary, same behaviour).
     Fsm,
+    /// Clocked: random circuit of n gates and n/50 registers with a 5-register delay line
+    /// (`--bug invert`: the delay line stores its input inverted, seen first at cycle 5).
+    RegRandom,
 }
 
 impl Kind {
@@ -132,6 +135,7 @@ impl Kind {
             Kind::Counter => "counter",
             Kind::ShiftRegister => "shift-register",
             Kind::Fsm => "fsm",
+            Kind::RegRandom => "reg-random",
         }
     }
 
@@ -157,12 +161,13 @@ impl Kind {
             Kind::Remap => &[Plain],
             Kind::RegSelector | Kind::PipeAdder | Kind::Counter | Kind::ShiftRegister => &[Plain],
             Kind::Fsm => &[Onehot, Binary],
+            Kind::RegRandom => &[Plain],
         }
     }
 }
 
 /// How to build it. Each kind accepts the styles of [`Kind::styles`].
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub enum Style {
     /// Behavioural one-liner (Verilog); a documented gate form in bench.
     Spec,
@@ -259,7 +264,7 @@ impl Style {
 }
 
 /// A planted bug.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub enum Bug {
     /// Exchange two wires: the data inputs of a 2:1 cell, or one fan-in each of two gates of
     /// the same type.
@@ -297,7 +302,7 @@ impl Bug {
 }
 
 /// Output format.
-#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash, clap::ValueEnum)]
+#[derive(Copy, Clone, Debug, PartialEq, Eq, Hash)]
 pub enum GenFormat {
     /// IEEE 1364-2005 Verilog.
     Verilog,
@@ -562,7 +567,12 @@ fn build_with_mutation(spec: &GenSpec) -> Result<(Circuit, Option<String>), GenE
         Kind::Sqrt => divide::build_sqrt(&mut c, spec.n, spec.style),
         Kind::Arbiter => arbiter::build(&mut c, spec.n, spec.style),
         Kind::Remap => unreachable!("validate refuses remap"),
-        Kind::RegSelector | Kind::PipeAdder | Kind::Counter | Kind::ShiftRegister | Kind::Fsm => {
+        Kind::RegSelector
+        | Kind::PipeAdder
+        | Kind::Counter
+        | Kind::ShiftRegister
+        | Kind::Fsm
+        | Kind::RegRandom => {
             unreachable!("refused above")
         }
     };
@@ -646,6 +656,11 @@ fn validate(spec: &GenSpec) -> Result<(), GenError> {
         Kind::Counter => (1, 1 << 16, "a counter needs at least 1 bit"),
         Kind::ShiftRegister => (1, 1 << 16, "a shift register needs at least 1 bit"),
         Kind::Fsm => (2, 1 << 12, "a state machine needs 2 to 4096 states"),
+        Kind::RegRandom => (
+            64,
+            4_000_000,
+            "a random clocked circuit needs at least 64 gates",
+        ),
     };
     if spec.n > max {
         return Err(GenError::new(

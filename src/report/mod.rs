@@ -4,7 +4,7 @@
 mod prove_text;
 pub mod values;
 
-pub use prove_text::{check_text, prove_text};
+pub use prove_text::check_text;
 
 use serde::Serialize;
 

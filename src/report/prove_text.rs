@@ -33,7 +33,11 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
         crate::engine::PairBy::Name => "by name",
         crate::engine::PairBy::Position => "by position (bits matched in declaration order)",
     };
-    let _ = writeln!(s, "pairing     {by}, {n} output pair{}", plural(n));
+    let map = match &r.port_map {
+        Some(f) => format!(" (renamed bits by the port map {f})"),
+        None => String::new(),
+    };
+    let _ = writeln!(s, "pairing     {by}{map}, {n} output pair{}", plural(n));
     s += &crate::engine::pair_runs::runs_text(&r.paired);
     for a in &r.assumptions {
         let _ = writeln!(s, "assuming    {a}");

@@ -4,9 +4,14 @@
 //! grouping inductive: assuming every group holds now, each must hold after the clock edge. Every
 //! SAT counterexample to that step splits the groups by the next-state values it gives, until
 //! the grouping is inductive (it holds in every state reachable from reset).
+//!
+//! The step is checked on the speculatively reduced logic ([`reduce`]): every group member's
+//! current value replaced by its representative's, so that logic the two designs share up to
+//! register names and inversions folds into one cone by structural hashing and most step miters
+//! are constant before the solver sees them. Sound because the step assumes the groups hold.
 
 use super::product::{Init, Product};
-use crate::aig::{eval, Lit};
+use crate::aig::{eval, Lit, Node};
 use crate::cnf::Tseitin;
 use crate::sat::{Limits, Sat, SatResult, StopReason};
 use std::collections::BTreeMap;
@@ -135,6 +140,51 @@ impl Constrained<'_> {
     }
 }
 
+/// The literals of `roots` with every group member's current value replaced by its
+/// representative (in the member's phase): equal to `roots` in every state where the groups
+/// hold. New nodes go into `p.aig`; nodes outside the members' fan-out map to themselves.
+pub fn reduce(p: &mut Product, classes: &Classes, roots: &[Lit]) -> Vec<Lit> {
+    let mut subst: BTreeMap<u32, Lit> = BTreeMap::new();
+    for g in &classes.groups {
+        for &m in &g[1..] {
+            if !m.is_const() {
+                subst.insert(m.node(), g[0].xor_complement(m.is_complemented()));
+            }
+        }
+    }
+    if subst.is_empty() {
+        return roots.to_vec();
+    }
+    let cone = p.aig.cone_mask(roots);
+    let len = p.aig.len();
+    let mut map: Vec<Lit> = (0..len as u32).map(|i| Lit::from_node(i, false)).collect();
+    for i in 0..len {
+        if !cone[i] {
+            continue;
+        }
+        map[i] = match p.aig.node(i as u32) {
+            Node::Const => Lit::FALSE,
+            Node::Input(_) => subst
+                .get(&(i as u32))
+                .copied()
+                .unwrap_or(Lit::from_node(i as u32, false)),
+            Node::And(a, b) => {
+                let fa = map[a.index()].xor_complement(a.is_complemented());
+                let fb = map[b.index()].xor_complement(b.is_complemented());
+                if fa == a && fb == b {
+                    Lit::from_node(i as u32, false)
+                } else {
+                    p.aig.and(fa, fb)
+                }
+            }
+        };
+    }
+    roots
+        .iter()
+        .map(|r| map[r.index()].xor_complement(r.is_complemented()))
+        .collect()
+}
+
 /// Refine `classes` until they are inductive; returns the number of refinements.
 pub fn make_inductive(
     p: &mut Product,
@@ -143,24 +193,38 @@ pub fn make_inductive(
 ) -> Result<usize, StopReason> {
     let at = state_index(p);
     let mut refinements = 0;
-    'outer: loop {
-        // The step miters, built before the solver borrows the graph.
+    loop {
+        // The step miters on the reduced logic, built before the solver borrows the graph.
+        let members: Vec<Lit> = classes.groups.iter().flatten().copied().collect();
+        let nexts: Vec<Lit> = members.iter().map(|&m| next_of(p, &at, m)).collect();
+        let reduced = reduce(p, classes, &nexts);
         let mut miters = Vec::new();
+        let mut at_member = 0;
         for g in &classes.groups {
-            let r = next_of(p, &at, g[0]);
-            for &m in &g[1..] {
-                let n = next_of(p, &at, m);
+            let r = reduced[at_member];
+            for k in 1..g.len() {
+                let n = reduced[at_member + k];
                 let x = p.aig.xor(r, n);
                 if x != Lit::FALSE {
-                    miters.push(x);
+                    miters.push((g[0], g[k], x));
                 }
             }
+            at_member += g.len();
         }
         if miters.is_empty() {
             return Ok(refinements);
         }
+        // One round: every miter against the groups of the round's start. A counterexample is a
+        // state where those groups hold, hence also the finer groups after a split, so the round
+        // goes on splitting with each one and skips pairs already split apart; the next round
+        // starts from the finer groups.
         let mut c = Constrained::new(p, classes, limits);
-        for x in miters {
+        let mut group_of = group_index(classes);
+        let mut split = false;
+        for (r, m, x) in miters {
+            if !group_of.contains_key(&r) || group_of.get(&r) != group_of.get(&m) {
+                continue;
+            }
             let l = c.ts.lit(&p.aig, &mut c.sat, x);
             match c.sat.solve(&[l]) {
                 SatResult::Unsat => continue,
@@ -172,11 +236,24 @@ pub fn make_inductive(
                     let vals = eval(&p.aig, &ins, &nexts);
                     let value: BTreeMap<Lit, bool> = members.into_iter().zip(vals).collect();
                     classes.split_by(|m| value[&m]);
+                    group_of = group_index(classes);
                     refinements += 1;
-                    continue 'outer;
+                    split = true;
                 }
             }
         }
-        return Ok(refinements);
+        if !split {
+            return Ok(refinements);
+        }
     }
+}
+
+/// Member -> number of its group.
+fn group_index(classes: &Classes) -> BTreeMap<Lit, usize> {
+    classes
+        .groups
+        .iter()
+        .enumerate()
+        .flat_map(|(k, g)| g.iter().map(move |&m| (m, k)))
+        .collect()
 }

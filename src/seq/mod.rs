@@ -92,7 +92,14 @@ pub enum SeqError {
 pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqError> {
     let start = std::time::Instant::now();
     let mut p = Product::build(r, c, o.init_unset, o.free_extra_inputs).map_err(SeqError::Input)?;
+    log::debug!(
+        "clocked: product of {} nodes, {} state bits built in {:.2?}",
+        p.aig.len(),
+        p.state.len(),
+        start.elapsed()
+    );
     let sim = simulate::simulate(&p, o.sim_cycles.max(1), o.sim_words.max(1), 0x5E9_0001);
+    log::debug!("clocked: simulated by {:.2?}", start.elapsed());
     let mut classes = Classes::from_signatures(&p, &sim.signatures);
     classes.split_by_init(&p);
     let name_checks = report::name_matches(r, c, &p, &classes, &sim);
@@ -109,16 +116,28 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     // Output pairs under the pairing.
     let mut status = vec![OutputStatus::Undecided; p.outputs.len()];
     let mut pending = Vec::new();
+    // On the reduced logic (each paired register read through its group's representative).
+    let roots: Vec<_> = p
+        .outputs
+        .iter()
+        .flat_map(|op| [op.lit_r, op.lit_c])
+        .collect();
+    let reduced = correspond::reduce(&mut p, &classes, &roots);
     let xors: Vec<_> = p
         .outputs
         .iter()
-        .map(|op| (op.lit_r == op.lit_c, p.aig.xor(op.lit_r, op.lit_c)))
+        .zip(reduced.chunks(2))
+        .map(|(op, red)| (op.lit_r == op.lit_c, p.aig.xor(red[0], red[1])))
         .collect();
     {
         let mut cs = Constrained::new(&p, &classes, &o.limits);
         for (k, &(same, x)) in xors.iter().enumerate() {
-            if same || x == crate::aig::Lit::FALSE {
+            if same {
                 status[k] = OutputStatus::Equivalent("structure");
+                continue;
+            }
+            if x == crate::aig::Lit::FALSE {
+                status[k] = OutputStatus::Equivalent("induction");
                 continue;
             }
             let l = cs.ts.lit(&p.aig, &mut cs.sat, x);
@@ -132,12 +151,16 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
             }
         }
     }
+    log::debug!(
+        "clocked: pairing inductive after {refinements} refinement(s), output pairs under it, by {:.2?}",
+        start.elapsed()
+    );
     let open_under_cut: Vec<usize> = pending.clone();
     let mut trace = None;
     let mut cycles_checked = 0;
     let mut clean = false;
     if !pending.is_empty() {
-        match bmc::unroll(&mut p, &pending, o.cycles, &o.limits) {
+        match bmc::unroll(&mut p, &classes, &pending, o.cycles, &o.limits) {
             bmc::Bmc::Found(f) => {
                 let t = build_trace(r, c, &p, &f.free, &f.init, o.init_unset);
                 trace = Some(confirm(r, c, &p, t, f.cycle)?);
@@ -167,6 +190,7 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
             }
         }
     }
+    log::debug!("clocked: unrolling done by {:.2?}", start.elapsed());
     // k-induction on what the pairing left open; the unrolling is its base case.
     let mut k_induction = None;
     if clean {

@@ -1,6 +1,6 @@
 //! The text form of a clocked check's report; a trace prints as a table, one row per cycle from
-//! reset, one column per input bus (its value as a number; bit j of the number is the bus bit with
-//! the j-th smallest index) and the differing outputs as `reference/candidate` values.
+//! reset, one column per input bus (its value as a number, bit j of the number being the bus bit with
+//! the j-th smallest index; buses over 16 bits in hexadecimal, `N'h...`) and the differing outputs as `reference/candidate` values.
 
 use super::product::Side;
 use super::report::SeqReport;
@@ -36,6 +36,10 @@ fn columns(t: &Trace) -> Vec<Bits> {
     cols
 }
 
+/// Buses wider than this print in hexadecimal (`N'h...`, as in combinational counterexamples),
+/// narrower ones as decimal numbers.
+const WIDE: usize = 16;
+
 /// Write `t` as a table; `outputs` holds per cycle the (reference, candidate) values of the
 /// outputs that differ at the first difference.
 pub fn trace_table(t: &Trace, outputs: &[Vec<(bool, bool)>]) -> String {
@@ -65,26 +69,18 @@ pub fn trace_table(t: &Trace, outputs: &[Vec<(bool, bool)>]) -> String {
         for (_, bits) in &cols {
             if bits.len() == 1 && bits[0].0.is_none() {
                 row.push((c.inputs[bits[0].1].value as u8).to_string());
+            } else if bits.len() > WIDE {
+                // Wide buses as the combinational counterexamples print them: `N'h...`.
+                let msb_first: Vec<bool> =
+                    bits.iter().rev().map(|&(_, k)| c.inputs[k].value).collect();
+                row.push(crate::report::values::hex(&msb_first));
             } else {
-                let mut v: u128 = 0;
-                let mut wide = false;
-                for (j, &(_, k)) in bits.iter().enumerate() {
-                    if c.inputs[k].value {
-                        if j >= 128 {
-                            wide = true;
-                        } else {
-                            v |= 1 << j;
-                        }
-                    }
-                }
-                row.push(if wide {
-                    bits.iter()
-                        .rev()
-                        .map(|&(_, k)| if c.inputs[k].value { '1' } else { '0' })
-                        .collect()
-                } else {
-                    v.to_string()
-                });
+                let v = bits
+                    .iter()
+                    .enumerate()
+                    .filter(|&(_, &(_, k))| c.inputs[k].value)
+                    .fold(0u32, |acc, (j, _)| acc | 1 << j);
+                row.push(v.to_string());
             }
         }
         if let Some(o) = outputs.get(ci) {

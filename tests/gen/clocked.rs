@@ -28,6 +28,9 @@ fn families() -> Vec<GenSpec> {
             s.stages = stages;
             v.push(s);
         }
+        let mut s = GenSpec::new(Kind::RegRandom, Style::Plain, 200 * n);
+        s.inputs = 8;
+        v.push(s);
     }
     v
 }
@@ -196,4 +199,22 @@ fn verilog_output_reads_back_and_is_proved_equal_to_its_renamed_copy_with_invert
             assert!(rep.pairs.iter().any(|p| p.inverted), "{what}:\n{rep}");
         }
     }
+}
+
+/// `reg-random --bug invert`: the delay line stores its input inverted, so the designs first
+/// differ in cycle 5 after reset, at output `z`, whatever the inputs; the trace replays.
+#[test]
+fn random_clocked_bug_first_shows_five_cycles_after_reset() {
+    let mut spec = GenSpec::new(Kind::RegRandom, Style::Plain, 3000);
+    spec.inputs = 16;
+    let r = read_bench(&Arc::from("ref.bench"), &text(&spec, GenFormat::Bench)).expect("reads");
+    let mut bug = renamed(&spec, 100, 4);
+    bug.bug = Some(gen::Bug::Invert);
+    let c = read_bench(&Arc::from("bug.bench"), &text(&bug, GenFormat::Bench)).expect("reads");
+    let rep = seq::check(&r, &c, &options()).expect("checks");
+    assert_eq!(rep.verdict, "different", "{rep}");
+    let t = rep.trace.as_ref().expect("a trace");
+    let d = t.first_difference.as_ref().expect("replayed");
+    assert_eq!(d.cycle, 5, "{rep}");
+    assert!(d.outputs.iter().all(|o| o.reference == "z"), "{rep}");
 }

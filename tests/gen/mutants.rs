@@ -75,7 +75,7 @@ fn every_mutant_differs_from_its_clean_circuit() {
                     g.text.contains(&format!("# mutation: {what}")),
                     "header names the mutation"
                 );
-                let got = eval(&super::bench_eval::Bench::parse(&g.text), &p, &vs);
+                let got = eval(&super::oracle::parse(&g.text).evaluator(), &p, &vs);
                 assert!(
                     got != clean,
                     "{} ({what}) agrees with the clean circuit on {} vectors",

@@ -1,7 +1,7 @@
 //! Random circuits: the rewritten copy computes the same outputs (exhaustively for few inputs,
 //! else on random vectors), differs in structure, and every gate feeds some output.
 
-use super::bench_eval::Bench;
+use super::oracle::parse;
 use super::support::{bench_text, eval, ports, random_vectors};
 use equicone::gen::{GenSpec, Kind, Style};
 use std::collections::HashSet;
@@ -26,7 +26,7 @@ fn rewritten_copy_is_equivalent_but_different() {
             random_vectors(&p, 64 * 32, seed)
         };
         let (ta, tb) = (bench_text(&plain), bench_text(&rewritten));
-        let (a, b) = (Bench::parse(&ta), Bench::parse(&tb));
+        let (a, b) = (parse(&ta).evaluator(), parse(&tb).evaluator());
         assert_eq!(a.outputs, b.outputs, "same output names");
         assert!(
             b.gates() > a.gates(),

@@ -1,7 +1,7 @@
 //! Shared helpers: generate a spec's bench text, draw random port vectors (inside a selector's
 //! select range), and evaluate vectors on bench text with the test's own evaluator.
 
-use super::bench_eval::{split_bit, Bench};
+use super::oracle::{parse, sim::Evaluator};
 use equicone::gen::{build, generate, GenFormat, GenSpec};
 use rand::rngs::StdRng;
 use rand::{Rng, SeedableRng};
@@ -39,8 +39,8 @@ pub fn bench_text(spec: &GenSpec) -> String {
         .text
 }
 
-pub fn bench(spec: &GenSpec) -> Bench {
-    Bench::parse(&bench_text(spec))
+pub fn bench(spec: &GenSpec) -> Evaluator {
+    parse(&bench_text(spec)).evaluator()
 }
 
 pub fn random_vectors(p: &Ports, count: usize, seed: u64) -> Vec<Vector> {
@@ -63,7 +63,7 @@ pub fn random_vectors(p: &Ports, count: usize, seed: u64) -> Vec<Vector> {
 }
 
 /// Evaluate `vectors` on `b`; per vector, per output port (in `p.outputs` order), its bits.
-pub fn eval(b: &Bench, p: &Ports, vectors: &[Vector]) -> Vec<Vec<Vec<bool>>> {
+pub fn eval(b: &Evaluator, p: &Ports, vectors: &[Vector]) -> Vec<Vec<Vec<bool>>> {
     let in_port: HashMap<&str, usize> = p
         .inputs
         .iter()
@@ -111,4 +111,15 @@ pub fn value(bits: &[bool]) -> u128 {
 /// A number as `w` bits, bit 0 first.
 pub fn bits(v: u128, w: usize) -> Vec<bool> {
     (0..w).map(|b| (v >> b) & 1 == 1).collect()
+}
+
+/// `d[3]` -> (`d`, 3); `v` -> (`v`, 0).
+pub fn split_bit(name: &str) -> (&str, u32) {
+    match name.find('[') {
+        Some(i) => (
+            &name[..i],
+            name[i + 1..name.len() - 1].parse().expect("bit index"),
+        ),
+        None => (name, 0),
+    }
 }

@@ -1,6 +1,8 @@
-//! Independent oracles for the tests: a bench-text evaluator and a miter solved by a second SAT
-//! solver (the `batsat` crate from crates.io, a MiniSat reimplementation), written directly from
-//! the gate lines without any of equicone's code, plus the location of the shared benchmark data.
+//! Independent oracles for the tests: the one bench-text reader and evaluator of the tests (one
+//! vector by name here, 64 patterns per word through [`sim::Evaluator`]) and a miter solved by a
+//! second SAT solver (the `batsat` crate from crates.io, a MiniSat reimplementation), written directly
+//! from the gate lines without any of equicone's code, plus the location of the shared
+//! benchmark data.
 
 #![allow(dead_code)]
 

@@ -2,6 +2,7 @@
 //! [`super::Net`] form) without any of equicone's code: every one of the 2^n input vectors,
 //! 64 per `u64` word, for up to 20 inputs. Vector `v` gives input `i` (in the first net's
 //! order) the value of bit `i` of `v`; the second net's inputs pair with the first's by name.
+//! [`Evaluator`] runs one net on given words (the generator tests' evaluator).
 
 use super::Net;
 use std::collections::HashMap;
@@ -80,6 +81,50 @@ impl Compiled {
                 Kind::Buf => vals[args[0]],
             };
         }
+    }
+}
+
+/// One net compiled for word-parallel evaluation: 64 patterns per word, inputs and outputs in
+/// file order.
+pub struct Evaluator {
+    compiled: Compiled,
+    /// Input names, in file order.
+    pub inputs: Vec<String>,
+    /// Output names, in file order.
+    pub outputs: Vec<String>,
+}
+
+impl Net {
+    /// The word-parallel evaluator of this net; every name must be defined once.
+    pub fn evaluator(&self) -> Evaluator {
+        let mut seen = std::collections::HashSet::new();
+        for name in self.inputs.iter().chain(self.gates.iter().map(|g| &g.0)) {
+            assert!(seen.insert(name), "`{name}` defined twice");
+        }
+        let n = self.inputs.len();
+        let slots: Vec<usize> = (0..n).collect();
+        Evaluator {
+            compiled: Compiled::new(self, &slots, n),
+            inputs: self.inputs.clone(),
+            outputs: self.outputs.clone(),
+        }
+    }
+}
+
+impl Evaluator {
+    /// Number of gate lines.
+    pub fn gates(&self) -> usize {
+        self.compiled.gates.len()
+    }
+
+    /// Evaluate: one word per input (file order) -> one word per output (file order).
+    pub fn eval(&self, inputs: &[u64]) -> Vec<u64> {
+        let n = self.inputs.len();
+        assert_eq!(inputs.len(), n);
+        let mut vals = vec![0u64; self.compiled.signals];
+        vals[..n].copy_from_slice(inputs);
+        self.compiled.run(&mut vals, n);
+        self.compiled.outputs.iter().map(|&s| vals[s]).collect()
     }
 }
 

@@ -29,32 +29,23 @@ struct Bench {
     gates: Vec<Gate>,
 }
 
+/// The bench text through the tests' one bench reader (`tests/oracle`), gate names in lower
+/// case as Verilog writes its primitives.
 fn parse(text: &str) -> Bench {
-    let mut b = Bench {
-        inputs: Vec::new(),
-        outputs: Vec::new(),
-        gates: Vec::new(),
-    };
-    for line in text.lines() {
-        let l = line.split('#').next().unwrap_or("").trim();
-        if let Some(r) = l.strip_prefix("INPUT(") {
-            b.inputs.push(r.trim_end_matches(')').trim().to_string());
-        } else if let Some(r) = l.strip_prefix("OUTPUT(") {
-            b.outputs.push(r.trim_end_matches(')').trim().to_string());
-        } else if let Some((lhs, rhs)) = l.split_once('=') {
-            let (f, args) = rhs.trim().split_once('(').expect("gate(");
-            b.gates.push(Gate {
-                out: lhs.trim().to_string(),
-                f: f.trim().to_ascii_lowercase(),
-                ins: args
-                    .trim_end_matches(')')
-                    .split(',')
-                    .map(|a| a.trim().to_string())
-                    .collect(),
-            });
-        }
+    let net = super::oracle::parse(text);
+    Bench {
+        inputs: net.inputs,
+        outputs: net.outputs,
+        gates: net
+            .gates
+            .into_iter()
+            .map(|(out, f, ins)| Gate {
+                out,
+                f: f.to_ascii_lowercase(),
+                ins,
+            })
+            .collect(),
     }
-    b
 }
 
 /// Gates in an order where each reads only inputs and earlier gates.

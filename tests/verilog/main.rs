@@ -8,6 +8,8 @@ mod hierarchy;
 mod iverilog_diff;
 mod large;
 mod netlists;
+#[path = "../oracle/mod.rs"]
+mod oracle;
 mod preprocess;
 mod primitives;
 mod regress;

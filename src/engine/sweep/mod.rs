@@ -103,7 +103,7 @@ pub(crate) fn sweep(
         words,
         st.classes,
         st.candidates,
-        super::memory_now()
+        crate::host::now_note()
     );
     progress.add_classes(st.classes as i64);
     let mut sw = Sweeper::new(g, limits, cone.seed, ins);
@@ -213,7 +213,7 @@ pub(crate) fn sweep(
         st.patterns_fed_back,
         st.ands_before,
         st.ands_after,
-        super::memory_now()
+        crate::host::now_note()
     );
     // Decide the output pairs on the merged graph.
     let mapped: Vec<PairQuery> = cone

@@ -382,7 +382,7 @@ pub enum Item {
     /// Generate loop.
     GenFor(Box<GenFor>),
     /// Generate `if`: condition, then-items, else-items.
-    GenIf(Box<(Expr, Vec<Item>, Vec<Item>)>, Pos),
+    GenIf(Box<(Expr, Vec<Item>, Vec<Item>)>),
 }
 
 /// A module.

@@ -146,7 +146,8 @@ fn is_ident_char(c: u8) -> bool {
 }
 
 impl<'s> Lexer<'s> {
-    /// A lexer over `src`, which is file number `file`.
+    /// A lexer over `src`, which is file number `file` (for the unit tests).
+    #[cfg(test)]
     pub fn new(src: &'s str, file: u32) -> Lexer<'s> {
         Lexer::with_marks(src, file, &[])
     }
@@ -623,7 +624,7 @@ impl<'s> Lexer<'s> {
                 }
                 // IEEE 1364-2005 clause 3.5.1 lets a tool limit the size of an integer constant
                 // to no less than 65,536 bits (from memory); wider literals cost memory out of
-                // all proportion to their text (an 18-byte literal once took 400 MiB).
+                // all proportion to their text (docs/robustness.md lists the cases found).
                 Ok(w) if w > (1 << 16) => {
                     self.err_of(
                         pos,

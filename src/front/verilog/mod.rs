@@ -4,17 +4,17 @@
 //! Entry point: [`read_verilog`]. The rules for widths, signedness and unknown values are
 //! documented in `docs/verilog.md`.
 
-pub mod ast;
+pub(crate) mod ast;
 mod elaborate;
 
-pub mod lexer;
+pub(crate) mod lexer;
 mod parse_clocked;
 mod parse_expr;
 mod parse_gate;
 mod parse_gen;
 mod parse_stmt;
 mod parse_udp;
-pub mod parser;
+pub(crate) mod parser;
 pub mod pos;
 pub mod preprocess;
 pub mod symbols;
@@ -142,6 +142,12 @@ mod tests {
         assert_eq!(d.stage, Stage::Parse, "{d}");
         assert!(matches!(d.kind, Kind::Grammar { .. }), "{d}");
         let d = first_error("module m(output y); assign y = q; endmodule\n");
+        assert_eq!(
+            (d.stage, d.kind),
+            (Stage::Elaborate, Kind::UndeclaredName),
+            "{d}"
+        );
+        let d = first_error("module m(output y); assign y = 1; assign y = 2; endmodule\n");
         assert_eq!((d.stage, d.kind), (Stage::Elaborate, Kind::Other), "{d}");
         let e = crate::front::bench::read_bench(&Arc::from("t.bench"), "OUTPUT(y)\ny = FOO(a)\n")
             .unwrap_err();

@@ -174,7 +174,7 @@ impl Parser<'_, '_> {
         } else {
             Vec::new()
         };
-        out.push(Item::GenIf(Box::new((cond, then, els)), pos));
+        out.push(Item::GenIf(Box::new((cond, then, els))));
         Ok(())
     }
 

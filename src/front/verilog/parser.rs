@@ -40,11 +40,6 @@ pub struct Parser<'s, 'n> {
 }
 
 impl<'s, 'n> Parser<'s, 'n> {
-    /// A parser over `src` (file number `file`).
-    pub fn new(src: &'s str, file: u32, names: &'n mut Interner) -> Self {
-        Parser::with_marks(src, file, &[], names)
-    }
-
     /// A parser over preprocessed text whose positions follow `marks` (see
     /// [`Lexer::with_marks`]).
     pub fn with_marks(

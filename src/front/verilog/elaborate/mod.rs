@@ -242,6 +242,16 @@ impl<'a> Elaborator<'a> {
         }
     }
 
+    /// The error for a use of `name`, which no scope up to the module declares.
+    fn error_undeclared(&mut self, p: Pos, name: &str) {
+        if self.quiet == 0 {
+            let d = Diagnostic::error(Some(self.source_pos(p)), format!("undeclared name `{name}`"))
+                .with_help("declare it (`wire`, `reg`, `input`, `output`, `parameter`) before this use, or check the spelling")
+                .of_kind(crate::diag::Kind::UndeclaredName);
+            self.errors.push(d);
+        }
+    }
+
     fn warn(&mut self, p: Pos, msg: impl Into<String>) {
         if self.quiet == 0 {
             let d = Diagnostic::warning(Some(self.source_pos(p)), msg);

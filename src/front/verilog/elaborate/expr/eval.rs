@@ -119,11 +119,7 @@ impl Elaborator<'_> {
             }
             None => {
                 let nm = self.name(sym);
-                self.error(
-                    pos,
-                    format!("undeclared name `{nm}`"),
-                    "declare it (`wire`, `reg`, `input`, `output`, `parameter`) before this use, or check the spelling",
-                );
+                self.error_undeclared(pos, nm);
                 None
             }
         }

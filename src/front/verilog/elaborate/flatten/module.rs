@@ -29,7 +29,7 @@ fn walk_instances<'m>(items: &'m [Item], out: &mut Vec<&'m Instance>) {
         match it {
             Item::Inst(i) => out.push(i),
             Item::GenFor(g) => walk_instances(&g.items, out),
-            Item::GenIf(g, _) => {
+            Item::GenIf(g) => {
                 walk_instances(&g.1, out);
                 walk_instances(&g.2, out);
             }
@@ -387,7 +387,7 @@ impl<'a> Elaborator<'a> {
                     genblk += 1;
                     self.gen_for(scope, g, m, genblk);
                 }
-                Item::GenIf(g, _) => {
+                Item::GenIf(g) => {
                     let (c, a, b) = &**g;
                     genblk += 1;
                     let cv = self

@@ -203,9 +203,7 @@ impl Elaborator<'_> {
         if let Some((c, t, _, ipos)) = lead {
             let cond = self.eval_bool(&ctx, c);
             if let Some(k) = self.plain_leaf(cond) {
-                let name = self.leaf_name(k).to_ascii_lowercase();
-                let base = name.rsplit('.').next().unwrap_or(&name);
-                if base.contains("rst") || base.contains("reset") {
+                if super::sync_reset::is_reset_name(&self.leaf_name(k)) {
                     reset = Some((cond, t, false, ipos));
                 }
             }

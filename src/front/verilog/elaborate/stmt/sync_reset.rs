@@ -15,6 +15,15 @@ use super::super::resolve::Resolver;
 use crate::aig::{Aig, Lit};
 use crate::design::{InputKind, Register, RegisterReset};
 
+/// Whether a signal's name reads as a reset (`rst`, `reset`, any case, anywhere in the last
+/// component of a hierarchical name): the one naming rule for resets, used here and for a
+/// clocked block's leading `if` (`clocked.rs`).
+pub(super) fn is_reset_name(name: &str) -> bool {
+    let name = name.to_ascii_lowercase();
+    let base = name.rsplit('.').next().unwrap_or(&name);
+    base.contains("rst") || base.contains("reset")
+}
+
 /// The reset ports to try: (port input, active value), in input order, without repeats.
 fn reset_ports(r: &Resolver, regs: &[Register]) -> Vec<(usize, bool)> {
     let mut ports: Vec<(usize, bool)> = Vec::new();
@@ -29,11 +38,10 @@ fn reset_ports(r: &Resolver, regs: &[Register]) -> Vec<(usize, bool)> {
         if !matches!(bit.kind, InputKind::Port) || bit.index.is_some() {
             continue;
         }
-        let name = bit.name.to_ascii_lowercase();
-        if !(name.contains("rst") || name.contains("reset")) || ports.iter().any(|p| p.0 == k) {
+        if !is_reset_name(&bit.name) || ports.iter().any(|p| p.0 == k) {
             continue;
         }
-        let active_low = name.ends_with('n');
+        let active_low = bit.name.to_ascii_lowercase().ends_with('n');
         ports.push((k, !active_low));
     }
     ports.sort_unstable();

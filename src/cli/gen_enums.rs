@@ -51,6 +51,9 @@ cli_enum! {
         ShiftRegister,
         /// Clocked: state machine of n states (styles onehot and binary, same behaviour).
         Fsm,
+        /// Clocked: random circuit of n gates and n/50 registers with a 5-register delay line
+        /// (`--bug invert`: the delay line stores its input inverted, seen first at cycle 5).
+        RegRandom,
     }
 }
 

@@ -19,6 +19,9 @@ pub enum StopReason {
     Timeout,
     /// The engine's own size limit (support, BDD nodes) was reached.
     EngineLimit,
+    /// Another output pair was proved different, which settles the verdict, and the time
+    /// allowed after that (`--after-difference`) ran out.
+    AfterDifference,
 }
 
 impl std::fmt::Display for StopReason {
@@ -27,6 +30,9 @@ impl std::fmt::Display for StopReason {
             StopReason::ConflictLimit => "conflict limit reached",
             StopReason::Timeout => "time limit reached",
             StopReason::EngineLimit => "engine size limit reached",
+            StopReason::AfterDifference => {
+                "left open once a difference settled the verdict (--decide-all)"
+            }
         })
     }
 }

@@ -788,3 +788,65 @@ mod unknowns_as_dont_cares {
         );
     }
 }
+
+/// A difference found by simulation settles the verdict: the open pairs then get at most
+/// `--after-difference` seconds (0 here: none), and those left open say why; `--decide-all`
+/// decides them all.
+mod after_a_difference {
+    use super::*;
+
+    #[test]
+    fn open_pairs_are_left_open_and_decide_all_decides_them() {
+        let r = tmp("ad_ref.v");
+        std::fs::write(
+            &r,
+            "module m(input [7:0] a, b, output [8:0] s, output y);\n  assign s = a + b;\n  assign y = a[0] & b[0];\nendmodule\n",
+        )
+        .unwrap();
+        let c = tmp("ad_cand.v");
+        std::fs::write(
+            &c,
+            "module m(input [7:0] a, b, output [8:0] s, output y);\n  assign s = {1'b0, a ^ b} + {a & b, 1'b0};\n  assign y = a[0] | b[0];\nendmodule\n",
+        )
+        .unwrap();
+        let (r, c) = (r.to_str().unwrap(), c.to_str().unwrap());
+        let base = ["prove", r, c, "--engine", "sweep", "--json"];
+        let o = equicone(&[&base[..], &["--after-difference", "0"]].concat());
+        assert_eq!(code(&o), 1, "{}", stdout(&o));
+        let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+        let pairs = v["pairs"].as_array().unwrap();
+        let left: Vec<&serde_json::Value> = pairs
+            .iter()
+            .filter(|p| p["stopped"] == "after_difference")
+            .collect();
+        assert!(!left.is_empty(), "{}", stdout(&o));
+        assert!(left.iter().all(|p| p["status"] == "undecided"));
+        assert_eq!(v["verdict"], "different");
+        let o = equicone(&[&base[..], &["--decide-all"]].concat());
+        assert_eq!(code(&o), 1, "{}", stdout(&o));
+        let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+        let statuses: Vec<&str> = v["pairs"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .map(|p| p["status"].as_str().unwrap())
+            .collect();
+        assert_eq!(statuses.iter().filter(|s| **s == "equivalent").count(), 9);
+        assert_eq!(statuses.iter().filter(|s| **s == "different").count(), 1);
+        // The text report says why a pair is open.
+        let o = equicone(&[
+            "prove",
+            r,
+            c,
+            "--engine",
+            "sweep",
+            "--after-difference",
+            "0",
+        ]);
+        assert!(
+            stdout(&o).contains("left open once a difference settled the verdict"),
+            "{}",
+            stdout(&o)
+        );
+    }
+}

@@ -244,6 +244,20 @@ pub struct ProveArgs {
         allow_negative_numbers = true
     )]
     diagnosis_time: f64,
+    /// Once simulation proves an output pair different (the verdict is then settled), the other
+    /// open output pairs get at most this many more seconds; those still open are listed as
+    /// undecided. 0 stops at once.
+    #[arg(
+        long,
+        value_name = "SECONDS",
+        default_value_t = 10.0,
+        allow_negative_numbers = true
+    )]
+    after_difference: f64,
+    /// Decide every output pair after a difference too, however long it takes (within
+    /// --timeout).
+    #[arg(long, conflicts_with = "after_difference")]
+    decide_all: bool,
     #[command(flatten)]
     replay: super::replay::ReplayArgs,
     /// Clocked designs: cycles from reset searched for a difference when the register pairing
@@ -291,6 +305,12 @@ pub fn run(a: &ProveArgs) -> Exit {
         Ok(t) => t,
         Err(e) => return e,
     };
+    let after_difference = match super::common::seconds_of("--after-difference", a.after_difference)
+    {
+        Ok(_) if a.decide_all => None,
+        Ok(t) => Some(t),
+        Err(e) => return e,
+    };
     // Output paths are checked before any work, so that a long run is not lost to a typo.
     let proof_cnf = a.proof.as_ref().map(|p| format!("{p}.cnf"));
     if let Err(e) = check_writable([
@@ -332,6 +352,7 @@ pub fn run(a: &ProveArgs) -> Exit {
             jobs: a.jobs.unwrap_or(0),
             progress: !a.json && std::io::stderr().is_terminal(),
             strict_unknowns: a.pair.strict_unknowns,
+            after_difference,
             port_map,
         },
         diagnosis: match &a.select {
@@ -423,6 +444,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
             jobs: a.jobs.unwrap_or(0),
             progress: false,
             strict_unknowns: a.pair.strict_unknowns,
+            after_difference: None,
             port_map: a.pair.port_map.as_ref().map(|f| {
                 std::sync::Arc::new(crate::portmap::BitMap {
                     file: f.clone(),

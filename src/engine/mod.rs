@@ -130,6 +130,10 @@ pub struct ProveOptions {
     /// Read an `x` of the reference strictly: the candidate must match it for every value it
     /// takes (false: where the reference output is `x` it is a don't-care).
     pub strict_unknowns: bool,
+    /// Once simulation has proved an output pair different (which settles the verdict), the
+    /// other open pairs get at most this much more time; those it leaves open are undecided
+    /// with [`StopReason::AfterDifference`]. `None`: decide every pair (within `timeout`).
+    pub after_difference: Option<Duration>,
     /// Renamed ports paired by a port map (`--port-map`), before pairing by name.
     pub port_map: Option<std::sync::Arc<crate::portmap::BitMap>>,
 }
@@ -147,6 +151,7 @@ impl Default for ProveOptions {
             jobs: 0,
             progress: false,
             strict_unknowns: false,
+            after_difference: None,
             port_map: None,
         }
     }
@@ -204,7 +209,7 @@ pub fn prove_shared(
     opts: &ProveOptions,
 ) -> Result<ProveReport, ProveError> {
     let start = Instant::now();
-    let limits = Limits::new(opts.timeout, opts.conflict_limit);
+    let run_limits = Limits::new(opts.timeout, opts.conflict_limit);
     let mut outcomes = vec![None; shared.pairs.len()];
     let mut cexs: Vec<Counterexample> = Vec::new();
 
@@ -235,9 +240,33 @@ pub fn prove_shared(
     let open: Vec<usize> = (0..shared.pairs.len())
         .filter(|&p| outcomes[p].is_none())
         .collect();
-    let run = run_engine(r, c, &shared, &queries, &open, opts, &limits, &progress)?;
+    // A difference settles the verdict: the open pairs then get a bounded time at most.
+    let settled = match opts.after_difference {
+        Some(grace) if !cexs.is_empty() && !open.is_empty() => {
+            let left = run_limits.remaining().map_or(grace, |r| r.min(grace));
+            log::debug!(
+                "a difference settles the verdict: {} open pairs get {:.1} s more",
+                open.len(),
+                left.as_secs_f64()
+            );
+            Some(Limits::new(Some(left), opts.conflict_limit))
+        }
+        _ => None,
+    };
+    let limits = settled.as_ref().unwrap_or(&run_limits);
+    let run = run_engine(r, c, &shared, &queries, &open, opts, limits, &progress)?;
     progress.finish();
     apply_findings(run.findings, &shared, r, c, &mut outcomes, &mut cexs)?;
+    // Pairs the shortened time left open say why, unless the run's own limit ran out as well.
+    let cut_short = settled.is_some() && !run_limits.expired();
+    for o in outcomes.iter_mut() {
+        match o {
+            None | Some(PairVerdict::Undecided(StopReason::Timeout)) if cut_short => {
+                *o = Some(PairVerdict::Undecided(StopReason::AfterDifference));
+            }
+            _ => {}
+        }
+    }
     log::debug!("peak memory: {}", crate::host::peak_note(shared.aig.len()));
 
     let pairs: Vec<PairResult> = shared

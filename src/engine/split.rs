@@ -241,7 +241,9 @@ fn step(item: Item, n: usize, limits: &Limits) -> Step {
             }
             Step::Differ(values)
         }
-        SatResult::Stopped(StopReason::Timeout | StopReason::EngineLimit) => Step::TimedOut,
+        SatResult::Stopped(
+            StopReason::Timeout | StopReason::EngineLimit | StopReason::AfterDifference,
+        ) => Step::TimedOut,
         SatResult::Stopped(StopReason::ConflictLimit) => {
             if fixed.len() >= MAX_DEPTH {
                 return Step::BudgetSpent;

@@ -163,6 +163,9 @@ fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, Strin
         }
     }
     let mut out = StageOutput::default();
+    if cx.sweep_follows {
+        pre_sweep(cx, &mut groups, &mut out);
+    }
     for (members, sup) in groups {
         if cx.limits.expired() {
             break;
@@ -215,6 +218,35 @@ fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, Strin
         });
     }
     Ok(out)
+}
+
+/// Groups whose enumeration would be costly get a time-boxed sweep first ([`super::pre_sweep`]);
+/// the pairs it decides leave their groups.
+fn pre_sweep(cx: &Context<'_>, groups: &mut Vec<(Vec<usize>, Vec<u32>)>, out: &mut StageOutput) {
+    use super::pre_sweep::{try_first, work, MIN_INPUTS, MIN_WORK};
+    let (mut costly, mut total) = (Vec::new(), 0u64);
+    for (members, sup) in groups.iter() {
+        if sup.len() >= MIN_INPUTS {
+            let w = work(cx, members, sup.len());
+            if (MIN_WORK..=exhaustive::MAX_WORK).contains(&w) {
+                costly.extend_from_slice(members);
+                total += w;
+            }
+        }
+    }
+    if costly.is_empty() {
+        return;
+    }
+    costly.sort_unstable();
+    try_first(cx, &costly, total, out);
+    let mut done = vec![false; cx.pairs.len()];
+    for &(p, _) in &out.findings {
+        done[p] = true;
+    }
+    for (members, _) in groups.iter_mut() {
+        members.retain(|&p| !done[p]);
+    }
+    groups.retain(|(m, _)| !m.is_empty());
 }
 
 /// BDD node limit for a graph of `nodes` AND nodes: BDDs a few times the size of the graph
@@ -328,6 +360,7 @@ mod tests {
             progress: p,
             buses: &[],
             arithmetic_only: true,
+            sweep_follows: true,
         }
     }
 

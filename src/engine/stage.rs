@@ -65,6 +65,9 @@ pub(crate) struct Context<'a> {
     pub buses: &'a [Vec<usize>],
     /// The algebraic method takes only words that look like arithmetic.
     pub arithmetic_only: bool,
+    /// The sweep is among the methods run (so that costly enumerations may try it first; not
+    /// with `--engine exhaustive`, which runs the enumeration alone).
+    pub sweep_follows: bool,
 }
 
 /// What a method returns: findings for the pairs it decided (or, for the last method, for

@@ -78,4 +78,8 @@ pub(crate) struct StageOutput {
     pub groups: Vec<GroupRecord>,
     pub sat: SatStats,
     pub sweep: Option<SweepStats>,
+    /// Open pairs the method found hard for the ones after it (bits of an arithmetic word
+    /// above a difference already found): those get the later methods only within
+    /// [`super::words::DEFERRED_SECONDS`], after the other pairs.
+    pub deferred: Vec<usize>,
 }

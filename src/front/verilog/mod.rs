@@ -21,6 +21,7 @@ mod parse_udp;
 pub(crate) mod parser;
 pub mod pos;
 pub mod preprocess;
+mod sv_types;
 pub mod symbols;
 pub mod syntax_error;
 
@@ -101,7 +102,7 @@ fn read_inner(
     let mut mods = Vec::new();
     let mut diags = Vec::new();
     let mut warnings = Vec::new();
-    let mut sv = parse_types::SvScope::default();
+    let mut sv = sv_types::SvScope::default();
     for (k, unit) in pre.units.iter().enumerate() {
         let mut p = parser::Parser::with_marks(&unit.text, k as u32, &unit.marks, &mut names);
         p.sv = sv;

@@ -13,57 +13,9 @@ use super::ast::*;
 use super::lexer::{NumLit, Punct, Tok, B0, B1};
 use super::parser::{PResult, Parser};
 use super::pos::Pos;
+pub use super::sv_types::{Field, Package, TypeDef};
 use super::symbols::Sym;
-use std::collections::BTreeMap;
 use std::rc::Rc;
-
-/// A packed type: what a declaration of it becomes.
-#[derive(Clone, Debug)]
-pub struct TypeDef {
-    /// Signed?
-    pub signed: bool,
-    /// `int`/`integer` (32 bits, signed, no range).
-    pub integer: bool,
-    /// Packed range; `None` for one bit (or `integer`).
-    pub range: Option<Range>,
-    /// Members of a packed struct, first (most significant) first.
-    pub fields: Option<Rc<Vec<Field>>>,
-}
-
-/// One member of a packed struct.
-#[derive(Clone, Debug)]
-pub struct Field {
-    /// Its name.
-    pub name: Sym,
-    /// Its type.
-    pub ty: TypeDef,
-    /// Offset of its least significant bit in the struct.
-    pub off: Expr,
-}
-
-/// A package: its parameters (all local, clause 26.2) and types.
-#[derive(Clone, Debug, Default)]
-pub struct Package {
-    pub(super) params: Vec<ParamDecl>,
-    pub(super) types: BTreeMap<Sym, TypeDef>,
-}
-
-/// The names of types and packages in force.
-#[derive(Default)]
-pub struct SvScope {
-    pub(super) unit_types: BTreeMap<Sym, TypeDef>,
-    pub(super) unit_params: Vec<ParamDecl>,
-    pub(super) unit_imports: Vec<Sym>,
-    pub(super) packages: BTreeMap<Sym, Package>,
-    pub(super) mod_types: BTreeMap<Sym, TypeDef>,
-    pub(super) imports: Vec<Sym>,
-    pub(super) used: Vec<Sym>,
-    pub(super) structs: BTreeMap<Sym, TypeDef>,
-    /// Enum members declared by the type just read, to be placed by the caller.
-    pub(super) pending: Vec<ParamDecl>,
-    /// The struct type of the declaration being read, if any.
-    pub(super) decl_struct: Option<TypeDef>,
-}
 
 /// A 32-bit signed literal.
 pub fn num(v: i64, p: Pos) -> Expr {

@@ -38,7 +38,7 @@ pub struct Parser<'s, 'n> {
     /// read; declared in the module after it (see `item`).
     pub(super) loop_decls: Vec<(Sym, Pos)>,
     /// Types and packages in force (kept across the files of a design).
-    pub sv: super::parse_types::SvScope,
+    pub sv: super::sv_types::SvScope,
 }
 
 impl<'s, 'n> Parser<'s, 'n> {

@@ -3,7 +3,7 @@
 //! route tables over the select bus, with the select values whose routes differ.
 
 use crate::aig::Lit;
-use crate::cone::SupportComparison;
+use crate::cone::{SupportComparison, SupportOptions};
 use crate::design::Design;
 use crate::engine::{ProveReport, Verdict};
 use crate::routes::{self, Route};
@@ -46,6 +46,18 @@ pub struct Diagnosis {
 
 /// Route tables are built for at most this many differing output pairs.
 pub const MAX_TABLES: usize = 16;
+
+/// SAT queries the supports make on each design, over all differing outputs; an output whose
+/// claims left open by simulation do not fit in what is left keeps them undecided (the high
+/// bits of a wide multiplier: hundreds of claims, each query as hard as the multiplier).
+pub const MAX_SAT_QUERIES: usize = 64;
+
+/// Rounds of random flip simulation of the supports (each round flips every input over up
+/// to 4,096 patterns on each design; a round that decides nothing new ends them earlier).
+pub const SIMULATION_ROUNDS: usize = 2;
+
+/// Conflicts each of those queries may take (or the run's `--conflict-limit`, if lower).
+pub const SAT_CONFLICTS: u64 = 1_000;
 
 /// Bus names tried when no select bus is named.
 const USUAL_SELECTS: [&str; 4] = ["sel", "s", "select", "addr"];
@@ -97,18 +109,29 @@ pub fn diagnose(
                 .collect()
         })
         .unwrap_or_default();
-    let supports: Vec<SupportComparison> = differing
-        .iter()
-        .map(|&(ri, ci)| {
-            let mut cmp = crate::cone::compare_supports(r, ri, c, ci, limits);
-            if !partner.is_empty() {
-                by_partner(&mut cmp, &partner);
-            }
-            cmp.only_reference.retain(|n| !is_unknown(r, n));
-            cmp.only_candidate.retain(|n| !is_unknown(c, n));
-            cmp
-        })
-        .collect();
+    let opts = SupportOptions {
+        max_sat_queries: Some(MAX_SAT_QUERIES),
+        max_rounds: SIMULATION_ROUNDS,
+        ..SupportOptions::default()
+    };
+    let mut support_limits = limits.clone();
+    support_limits.conflicts_per_query = Some(
+        limits
+            .conflicts_per_query
+            .map_or(SAT_CONFLICTS, |k| k.min(SAT_CONFLICTS)),
+    );
+    let supports: Vec<SupportComparison> =
+        crate::cone::compare_supports_many(r, c, &differing, &opts, &support_limits)
+            .into_iter()
+            .map(|mut cmp| {
+                if !partner.is_empty() {
+                    by_partner(&mut cmp, &partner);
+                }
+                cmp.only_reference.retain(|n| !is_unknown(r, n));
+                cmp.only_candidate.retain(|n| !is_unknown(c, n));
+                cmp
+            })
+            .collect();
     let mut routes_out = Vec::new();
     let sel = select.and_then(|bus| {
         let rs = routes::select_bits(r, bus).ok()?;

@@ -369,6 +369,51 @@ mod engine {
     }
 
     #[test]
+    fn bits_above_a_found_difference_get_a_bounded_share_after_the_rest() {
+        // A wrong partial-product bit: the remainder proves the bits below the difference
+        // equal and the difference itself; the bits above it differ only through long carry
+        // chains (rare under random patterns, a multiplier's worth of SAT). They are deferred:
+        // the later methods see them in groups of their own, after every other pair, within a
+        // fixed time share; none of them is left to the unbounded sweep of the other pairs.
+        let (r, _) = two(Kind::Multiplier, Style::Spec, 12, false);
+        let c = design(
+            &GenSpec::new(Kind::Multiplier, Style::Array, 12)
+                .seed(1)
+                .bug(Bug::PpBit),
+        );
+        let rep = run(&r, &c, EngineKind::Portfolio, false);
+        assert_eq!(rep.verdict, Verdict::Different);
+        let groups = rep.stats.portfolio.as_ref().expect("portfolio figures");
+        let alg = groups
+            .iter()
+            .find(|g| g.method.word() == "algebra")
+            .expect("an algebra group");
+        assert!(
+            alg.note.contains("left to the other methods"),
+            "{}",
+            alg.note
+        );
+        // With simulation off, every pair the algebra left open is above the difference:
+        // each later group is a deferred one.
+        let later: Vec<_> = groups
+            .iter()
+            .filter(|g| g.method.word() != "algebra")
+            .collect();
+        assert!(
+            !later.is_empty(),
+            "the deferred bits reach a later method: {groups:?}"
+        );
+        for g in later {
+            assert!(g.note.starts_with("bits above a found difference"), "{g:?}");
+        }
+        for p in &rep.pairs {
+            if let Some(stop) = p.verdict.stopped() {
+                assert_eq!(stop, equicone::sat::StopReason::EngineLimit, "{p:?}");
+            }
+        }
+    }
+
+    #[test]
     fn prefix_final_adders_are_proved_by_algebra() {
         // Carry-lookahead and prefix final adders: their carries are recognised, the
         // product is proved by algebra alone.

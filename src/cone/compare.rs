@@ -2,7 +2,7 @@
 //! the reference does not, and the reverse. Prove shows this when an output pair differs; it
 //! is the quickest hint to a miswired input. Inputs are matched by name.
 
-use super::support::{support, SupportResult};
+use super::support::{support, supports, SupportOptions, SupportResult};
 use crate::design::Design;
 use crate::sat::Limits;
 use serde::Serialize;
@@ -47,6 +47,29 @@ pub fn compare_supports(
     let r = support(reference, ref_output, limits);
     let c = support(candidate, cand_output, limits);
     compare_results(reference, &r, candidate, &c)
+}
+
+/// Both supports of several output pairs (`(reference output, candidate output)`), each
+/// design's outputs in one run that shares its simulation, compared by input name.
+pub fn compare_supports_many(
+    reference: &Design,
+    candidate: &Design,
+    pairs: &[(usize, usize)],
+    opts: &SupportOptions,
+    limits: &Limits,
+) -> Vec<SupportComparison> {
+    let ro: Vec<usize> = pairs.iter().map(|p| p.0).collect();
+    let co: Vec<usize> = pairs.iter().map(|p| p.1).collect();
+    let (rr, rs) = supports(reference, &ro, opts, limits);
+    let (cr, cs) = supports(candidate, &co, opts, limits);
+    log::debug!(
+        "supports of {} differing pair(s): reference {rs:?}; candidate {cs:?}",
+        pairs.len()
+    );
+    rr.iter()
+        .zip(&cr)
+        .map(|(r, c)| compare_results(reference, r, candidate, c))
+        .collect()
 }
 
 /// Compare two support results already computed.

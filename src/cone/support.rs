@@ -32,6 +32,12 @@ pub struct SupportOptions {
     pub max_rounds: usize,
     /// Show a progress bar on standard error (only when it is a terminal).
     pub progress: bool,
+    /// SAT queries allowed over all outputs; an output whose claims left open by simulation
+    /// do not fit in what is left gets none: they stay undecided (engine limit). `None`:
+    /// every open claim is queried. Prove's diagnosis sets it: the high bits of a multiplier
+    /// depend on the low inputs through carry chains no random pattern sensitizes, and each
+    /// such query is as hard as the multiplier.
+    pub max_sat_queries: Option<usize>,
 }
 
 impl Default for SupportOptions {
@@ -40,6 +46,7 @@ impl Default for SupportOptions {
             seed: 1,
             max_rounds: 64,
             progress: false,
+            max_sat_queries: None,
         }
     }
 }
@@ -225,7 +232,7 @@ pub(crate) fn run(
 ) -> (Vec<SupportResult>, SupportStats) {
     let mut e = Engine::new(design, outputs, cones, limits, bar);
     e.simulate_rounds(opts);
-    e.solve_rest();
+    e.solve_rest(opts.max_sat_queries);
     e.finish()
 }
 
@@ -369,8 +376,11 @@ impl<'a> Engine<'a> {
         decided
     }
 
-    /// SAT on the cofactor miter for every claim still open, output by output.
-    fn solve_rest(&mut self) {
+    /// SAT on the cofactor miter for every claim still open, output by output, within
+    /// `max_queries` queries in all: an output whose open claims do not fit in what is left
+    /// gets none (they stay undecided).
+    fn solve_rest(&mut self, max_queries: Option<usize>) {
+        let mut budget = max_queries.unwrap_or(usize::MAX);
         let design = self.design;
         let aig = &design.aig;
         let mut work = aig.clone();
@@ -384,6 +394,15 @@ impl<'a> Engine<'a> {
             if todo.is_empty() {
                 continue;
             }
+            if todo.len() > budget {
+                for ci in todo {
+                    self.claims[pos][ci] = Some(Membership::Undecided(StopReason::EngineLimit));
+                    self.stats.undecided += 1;
+                    self.bar.inc(1);
+                }
+                continue;
+            }
+            budget -= todo.len();
             let root = self.roots[pos];
             let mask = aig.cone_mask(&[root]);
             let mut sat = Sat::new(self.limits);
@@ -535,5 +554,33 @@ mod tests {
         assert!(st.depends_by_sat >= 1, "{st:?}");
         assert_eq!(st.claims, 21);
         assert_eq!(st.by_simulation() + st.by_sat(), 21);
+    }
+
+    #[test]
+    fn the_sat_query_budget_leaves_claims_undecided_past_it() {
+        // y = AND(b0..b20): random patterns almost never sensitize an input (one in 2^21), so
+        // the claims wait for SAT; a budget of 0 queries leaves all 21 undecided, one of 21
+        // decides them all. The bound is a count, so prove's diagnosis cannot spend an
+        // unbounded time on a wide multiplier's carry-chain claims.
+        let ins: Vec<String> = (0..21).map(|i| format!("b{i}")).collect();
+        let mut t: String = ins.iter().map(|b| format!("INPUT({b})\n")).collect();
+        t.push_str(&format!("OUTPUT(y)\ny = AND({})\n", ins.join(", ")));
+        let d = design(&t);
+        let with = |k: usize| SupportOptions {
+            max_rounds: 1,
+            max_sat_queries: Some(k),
+            ..SupportOptions::default()
+        };
+        let (r, st) = supports(&d, &[0], &with(0), &Limits::none());
+        assert_eq!(st.sat.calls, 0, "{st:?}");
+        assert_eq!(st.undecided + st.by_simulation(), 21, "{st:?}");
+        assert!(r[0]
+            .claims
+            .iter()
+            .all(|m| m.depends() || *m == Membership::Undecided(StopReason::EngineLimit)));
+        let (r, st) = supports(&d, &[0], &with(21), &Limits::none());
+        assert!(st.sat.calls <= 21, "{st:?}");
+        assert_eq!(st.undecided, 0, "{st:?}");
+        assert_eq!(r[0].support().len(), 21);
     }
 }

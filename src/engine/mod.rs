@@ -18,6 +18,7 @@ pub mod pairing;
 mod pairs;
 mod parallel;
 pub mod portfolio;
+mod pre_sweep;
 mod progress;
 pub mod result;
 mod split;

@@ -17,10 +17,11 @@ use super::parallel;
 pub(crate) use super::stage::{Context, StageOutput};
 pub use super::stage::{GroupRecord, Stage};
 use super::sweep::SweepStats;
+use super::words::DEFERRED_SECONDS;
 use super::{Finding, Method};
 use crate::aig::{Aig, Lit, Node};
 use crate::sat::{SatStats, StopReason};
-use std::time::Instant;
+use std::time::{Duration, Instant};
 
 type Runner = fn(&Context<'_>, &[usize]) -> Result<StageOutput, String>;
 
@@ -55,6 +56,7 @@ pub(crate) fn run(
         sweep: None,
     };
     let mut left: Vec<usize> = open.to_vec();
+    let mut deferred: Vec<usize> = Vec::new();
     for &(stage, runner) in TABLE.iter().filter(|(s, _)| stages.contains(s)) {
         if left.is_empty() {
             break;
@@ -79,7 +81,12 @@ pub(crate) fn run(
         if let Some(w) = so.sweep {
             out.sweep.get_or_insert_with(SweepStats::default).add(&w);
         }
-        left.retain(|&p| findings[p].is_none());
+        deferred.extend(so.deferred);
+        left.retain(|&p| findings[p].is_none() && !deferred.contains(&p));
+    }
+    deferred.retain(|&p| findings[p].is_none());
+    if !deferred.is_empty() {
+        run_deferred(cx, &deferred, stages, &mut findings, &mut out)?;
     }
     let reason = if cx.limits.expired() {
         StopReason::Timeout
@@ -91,6 +98,57 @@ pub(crate) fn run(
     }
     out.findings = findings;
     Ok(out)
+}
+
+/// The later methods of `stages` on the `deferred` pairs (bits above a difference found),
+/// within [`super::words::DEFERRED_SECONDS`] and the run's own deadline; their findings and records go into
+/// `findings` and `out`. A pair the share leaves open is stopped by the engine limit (by the
+/// timeout when the run's own deadline has passed; a conflict limit stays one).
+fn run_deferred(
+    cx: &Context<'_>,
+    deferred: &[usize],
+    stages: &[Stage],
+    findings: &mut [Option<Finding>],
+    out: &mut PortfolioOutput,
+) -> Result<(), String> {
+    let later: Vec<Stage> = stages
+        .iter()
+        .copied()
+        .filter(|&s| s != Stage::Algebra)
+        .collect();
+    let share = Duration::from_secs_f64(DEFERRED_SECONDS);
+    let share = cx.limits.remaining().map_or(share, |r| r.min(share));
+    let limits = crate::sat::Limits::new(Some(share), cx.limits.conflicts_per_query);
+    let sub_cx = Context {
+        limits: &limits,
+        ..*cx
+    };
+    let sub = run(&sub_cx, deferred, &later)?;
+    let reason = if cx.limits.expired() {
+        StopReason::Timeout
+    } else {
+        StopReason::EngineLimit
+    };
+    for &p in deferred {
+        findings[p] = match sub.findings[p].clone() {
+            None | Some(Finding::Stopped(StopReason::Timeout | StopReason::EngineLimit)) => {
+                Some(Finding::Stopped(reason))
+            }
+            f => f,
+        };
+    }
+    out.groups.extend(sub.groups.into_iter().map(|mut g| {
+        g.note = format!(
+            "bits above a found difference, within {DEFERRED_SECONDS} s: {}",
+            g.note
+        );
+        g
+    }));
+    out.sat.add(&sub.sat);
+    if let Some(w) = sub.sweep {
+        out.sweep.get_or_insert_with(SweepStats::default).add(&w);
+    }
+    Ok(())
 }
 
 /// Up to `cap + 1` input positions of the structural cone of `roots` (stops once past `cap`).
@@ -163,6 +221,9 @@ fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, Strin
         }
     }
     let mut out = StageOutput::default();
+    if cx.sweep_follows {
+        pre_sweep(cx, &mut groups, &mut out);
+    }
     for (members, sup) in groups {
         if cx.limits.expired() {
             break;
@@ -215,6 +276,35 @@ fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, Strin
         });
     }
     Ok(out)
+}
+
+/// Groups whose enumeration would be costly get a time-boxed sweep first ([`super::pre_sweep`]);
+/// the pairs it decides leave their groups.
+fn pre_sweep(cx: &Context<'_>, groups: &mut Vec<(Vec<usize>, Vec<u32>)>, out: &mut StageOutput) {
+    use super::pre_sweep::{try_first, work, MIN_INPUTS, MIN_WORK};
+    let (mut costly, mut total) = (Vec::new(), 0u64);
+    for (members, sup) in groups.iter() {
+        if sup.len() >= MIN_INPUTS {
+            let w = work(cx, members, sup.len());
+            if (MIN_WORK..=exhaustive::MAX_WORK).contains(&w) {
+                costly.extend_from_slice(members);
+                total += w;
+            }
+        }
+    }
+    if costly.is_empty() {
+        return;
+    }
+    costly.sort_unstable();
+    try_first(cx, &costly, total, out);
+    let mut done = vec![false; cx.pairs.len()];
+    for &(p, _) in &out.findings {
+        done[p] = true;
+    }
+    for (members, _) in groups.iter_mut() {
+        members.retain(|&p| !done[p]);
+    }
+    groups.retain(|(m, _)| !m.is_empty());
 }
 
 /// BDD node limit for a graph of `nodes` AND nodes: BDDs a few times the size of the graph
@@ -328,6 +418,7 @@ mod tests {
             progress: p,
             buses: &[],
             arithmetic_only: true,
+            sweep_follows: true,
         }
     }
 

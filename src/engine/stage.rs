@@ -65,6 +65,9 @@ pub(crate) struct Context<'a> {
     pub buses: &'a [Vec<usize>],
     /// The algebraic method takes only words that look like arithmetic.
     pub arithmetic_only: bool,
+    /// The sweep is among the methods run (so that costly enumerations may try it first; not
+    /// with `--engine exhaustive`, which runs the enumeration alone).
+    pub sweep_follows: bool,
 }
 
 /// What a method returns: findings for the pairs it decided (or, for the last method, for
@@ -75,4 +78,8 @@ pub(crate) struct StageOutput {
     pub groups: Vec<GroupRecord>,
     pub sat: SatStats,
     pub sweep: Option<SweepStats>,
+    /// Open pairs the method found hard for the ones after it (bits of an arithmetic word
+    /// above a difference already found): those get the later methods only within
+    /// [`super::words::DEFERRED_SECONDS`], after the other pairs.
+    pub deferred: Vec<usize>,
 }

@@ -93,6 +93,7 @@ pub(super) fn run_engine(
                 progress,
                 buses: &buses,
                 arithmetic_only: opts.engine != EngineKind::Algebra,
+                sweep_follows: stages.contains(&portfolio::Stage::Sweep),
             };
             let out = portfolio::run(&cx, open, stages).map_err(ProveError::Internal)?;
             sweep_stats = out.sweep;

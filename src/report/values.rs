@@ -123,7 +123,7 @@ impl Group {
 }
 
 /// `N'h...` of bits given most significant first, digits grouped by four with `_`.
-pub fn hex(bits: &[bool]) -> String {
+fn hex(bits: &[bool]) -> String {
     let n = bits.len();
     let digits: Vec<char> = (0..n.div_ceil(4))
         .rev()

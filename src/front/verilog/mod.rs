@@ -9,10 +9,14 @@ mod elaborate;
 
 pub(crate) mod lexer;
 mod parse_clocked;
+mod parse_decl;
 mod parse_expr;
 mod parse_gate;
 mod parse_gen;
+mod parse_package;
+mod parse_recover;
 mod parse_stmt;
+mod parse_types;
 mod parse_udp;
 pub(crate) mod parser;
 pub mod pos;
@@ -97,9 +101,12 @@ fn read_inner(
     let mut mods = Vec::new();
     let mut diags = Vec::new();
     let mut warnings = Vec::new();
+    let mut sv = parse_types::SvScope::default();
     for (k, unit) in pre.units.iter().enumerate() {
         let mut p = parser::Parser::with_marks(&unit.text, k as u32, &unit.marks, &mut names);
+        p.sv = sv;
         mods.extend(p.file());
+        sv = std::mem::take(&mut p.sv);
         for w in std::mem::take(&mut p.warnings) {
             warnings.push(w.diagnostic(&files));
         }

@@ -138,6 +138,12 @@ impl Parser<'_, '_> {
                     let n = self.names.name(s).to_string();
                     return Err(self.unsupported(pos, format!("function call `{n}(...)`")));
                 }
+                if let Some(e) = self.struct_member(s, pos)? {
+                    return Ok(e);
+                }
+                if self.peek_p(Punct::Colon) && self.peek2().tok == Tok::Punct(Punct::Colon) {
+                    return self.scoped_name(s, pos);
+                }
                 if self.peek_p(Punct::Dot) {
                     let n = self.names.name(s).to_string();
                     return Err(self.unsupported(pos, format!("hierarchical name `{n}.`...")));
@@ -154,10 +160,18 @@ impl Parser<'_, '_> {
             }
             Tok::Sys(s) => {
                 let n = self.names.name(s).to_string();
-                if !matches!(n.as_str(), "$signed" | "$unsigned" | "$clog2") {
+                if !matches!(n.as_str(), "$signed" | "$unsigned" | "$clog2" | "$bits") {
                     return Err(self.unsupported(pos, format!("system function `{n}`")));
                 }
                 self.expect_p(Punct::LParen, "`(` after a system function")?;
+                if n == "$bits" {
+                    // IEEE 1800-2017 clause 20.6.2 (from memory): the bits of a type or
+                    // of an expression (the latter sized by the elaborator).
+                    if let Some(w) = self.bits_of_type()? {
+                        self.expect_p(Punct::RParen, "`)`")?;
+                        return Ok(w);
+                    }
+                }
                 let a = self.expr()?;
                 self.expect_p(Punct::RParen, "`)`")?;
                 Ok(Expr::Call(s, pos, vec![a]))

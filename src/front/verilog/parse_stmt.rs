@@ -168,6 +168,9 @@ impl Parser<'_, '_> {
         let t = self.bump();
         match t.tok {
             Tok::Ident(s) if !super::symbols::is_keyword(s) => {
+                if let Some(e) = self.struct_member(s, t.pos)? {
+                    return Ok(e);
+                }
                 if self.peek_p(Punct::LBrack) {
                     let sel = self.select()?;
                     return Ok(Expr::Index(s, t.pos, Box::new(sel)));

@@ -31,12 +31,14 @@ pub struct Parser<'s, 'n> {
     pub warnings: Vec<SyntaxError>,
     depth: usize,
     /// Tokens taken so far (error recovery checks that it moved on).
-    taken: u64,
+    pub(super) taken: u64,
     /// Inside the body of a clocked `always` block (non-blocking assignments allowed).
     pub(super) in_clocked: bool,
     /// Loop variables declared in `for` headers (`for (int i = 0; ...)`) of the item being
     /// read; declared in the module after it (see `item`).
     pub(super) loop_decls: Vec<(Sym, Pos)>,
+    /// Types and packages in force (kept across the files of a design).
+    pub sv: super::parse_types::SvScope,
 }
 
 impl<'s, 'n> Parser<'s, 'n> {
@@ -58,6 +60,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             taken: 0,
             in_clocked: false,
             loop_decls: Vec::new(),
+            sv: Default::default(),
         }
     }
 
@@ -110,6 +113,12 @@ impl<'s, 'n> Parser<'s, 'n> {
         } else {
             false
         }
+    }
+
+    /// Consume the next token; true.
+    pub(super) fn eat_p_any(&mut self) -> bool {
+        self.bump();
+        true
     }
 
     /// Consume keyword `k` if next.
@@ -258,6 +267,35 @@ impl<'s, 'n> Parser<'s, 'n> {
                         mods.push(m);
                     }
                 }
+                Tok::Ident(k) if self.names.name(k) == "package" => self.package(),
+                Tok::Ident(k)
+                    if matches!(self.names.name(k), "typedef" | "import")
+                        || k == kw::LOCALPARAM
+                        || k == kw::PARAMETER =>
+                {
+                    self.unit_item(k)
+                }
+                Tok::Ident(k)
+                    if matches!(
+                        self.names.name(k),
+                        "interface"
+                            | "class"
+                            | "program"
+                            | "checker"
+                            | "config"
+                            | "function"
+                            | "task"
+                    ) =>
+                {
+                    let n = self.names.name(k).to_string();
+                    self.unsupported(
+                        t.pos,
+                        format!(
+                            "`{n}` (only modules, packages, `typedef`s and parameters are read)"
+                        ),
+                    );
+                    self.skip_construct(k);
+                }
                 _ => {
                     let d = self.describe(&t.tok);
                     self.unexpected(t.pos, "`module`", &d);
@@ -276,61 +314,6 @@ impl<'s, 'n> Parser<'s, 'n> {
         mods
     }
 
-    fn skip_past(&mut self, k: Sym) {
-        loop {
-            match self.bump().tok {
-                Tok::Eof => return,
-                Tok::Ident(s) if s == k => return,
-                _ => {}
-            }
-        }
-    }
-
-    /// Parse one module or generate item into `out`; after an error, skip to a place to go on
-    /// from, always past at least one token, so that a stray keyword (`endgenerate` outside a
-    /// generate region, say) cannot stall the item loop.
-    pub fn item_or_skip(&mut self, out: &mut Vec<Item>) {
-        let before = self.taken;
-        if self.item(out).is_err() {
-            self.recover();
-            if self.taken == before {
-                self.bump();
-            }
-        }
-    }
-
-    /// Skip to just after the next `;`, or to an item keyword or `endmodule`.
-    pub fn recover(&mut self) {
-        loop {
-            match &self.peek().tok {
-                Tok::Eof => return,
-                Tok::Punct(Punct::Semi) => {
-                    self.bump();
-                    return;
-                }
-                Tok::Ident(k)
-                    if [
-                        kw::ENDMODULE,
-                        kw::MODULE,
-                        kw::ASSIGN,
-                        kw::ALWAYS,
-                        kw::ENDGENERATE,
-                        kw::WIRE,
-                        kw::REG,
-                        kw::INPUT,
-                        kw::OUTPUT,
-                    ]
-                    .contains(k) =>
-                {
-                    return
-                }
-                _ => {
-                    self.bump();
-                }
-            }
-        }
-    }
-
     fn module(&mut self, pos: Pos) -> Option<Module> {
         let name = match self.ident("a module name") {
             Ok((n, _)) => n,
@@ -346,6 +329,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             pos,
             nettype_none: false,
         };
+        self.types_enter_module();
         if self.header(&mut m).is_err() {
             // Skip the rest of the header.
             while !self.peek_p(Punct::Semi)
@@ -380,10 +364,15 @@ impl<'s, 'n> Parser<'s, 'n> {
                 _ => self.item_or_skip(&mut m.items),
             }
         }
+        self.types_leave_module(&mut m.items);
         Some(m)
     }
 
     pub(super) fn header(&mut self, m: &mut Module) -> PResult<()> {
+        // `module m import p::*; #(...) (...)` (IEEE 1800-2017 clause 26.4, from memory).
+        while self.peek_import() {
+            self.import(false)?;
+        }
         if self.eat_p(Punct::Hash) {
             self.expect_p(Punct::LParen, "`(` of the parameter port list")?;
             loop {
@@ -433,6 +422,9 @@ impl<'s, 'n> Parser<'s, 'n> {
                     m.items.push(Item::Decl(Box::new(d)));
                 }
                 cur = Some(self.decl_head()?);
+                for pd in self.take_pending() {
+                    m.items.push(Item::Param(Box::new(pd)));
+                }
             }
             let (n, p) = self.ident("a port name")?;
             let d = match cur.as_mut() {
@@ -442,6 +434,10 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
             };
             d.names.push((n, p, None));
+            if let Some(t) = self.sv.decl_struct.clone() {
+                self.sv.decl_struct = Some(t);
+                self.note_struct_names(&[(n, p, None)]);
+            }
             m.ports.push((n, p));
             if !self.eat_p(Punct::Comma) {
                 break;
@@ -449,111 +445,6 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
         if let Some(d) = cur {
             m.items.push(Item::Decl(Box::new(d)));
-        }
-        Ok(())
-    }
-
-    /// Direction, type, `signed` and range of a declaration (names not yet read).
-    fn decl_head(&mut self) -> PResult<Decl> {
-        let t = self.bump();
-        let pos = t.pos;
-        let mut d = Decl {
-            dir: None,
-            ty: None,
-            signed: false,
-            range: None,
-            names: Vec::new(),
-            pos,
-        };
-        match t.tok {
-            Tok::Ident(k) if k == kw::INPUT => d.dir = Some(Dir::Input),
-            Tok::Ident(k) if k == kw::OUTPUT => d.dir = Some(Dir::Output),
-            Tok::Ident(k) if k == kw::INOUT => {
-                return Err(self.unsupported(pos, "`inout` port (only `input` and `output` ports are supported; split the port into an input and an output)"));
-            }
-            Tok::Ident(k) if k == kw::WIRE || k == kw::TRI => d.ty = Some(NetType::Wire),
-            Tok::Ident(k) if k == kw::SUPPLY0 || k == kw::SUPPLY1 => d.ty = Some(NetType::Wire),
-            Tok::Ident(k) if k == kw::REG => d.ty = Some(NetType::Reg),
-            Tok::Ident(k) if k == kw::INTEGER || self.is_int(k) => d.ty = Some(NetType::Integer),
-            Tok::Ident(k) if self.is_sv_type(k) => d.ty = Some(NetType::Logic),
-            _ => unreachable!("decl_head called on a declaration keyword"),
-        }
-        if d.dir.is_some() {
-            if self.eat_kw(kw::WIRE) || self.eat_kw(kw::TRI) {
-                d.ty = Some(NetType::Wire);
-            } else if self.eat_kw(kw::REG) {
-                d.ty = Some(NetType::Reg);
-            } else if self.eat_kw(kw::INTEGER) {
-                d.ty = Some(NetType::Integer);
-            } else if let Tok::Ident(k) = self.peek().tok {
-                if self.is_int(k) {
-                    self.bump();
-                    d.ty = Some(NetType::Integer);
-                } else if self.is_sv_type(k) {
-                    self.bump();
-                    d.ty = Some(NetType::Logic);
-                }
-            }
-        }
-        if d.ty == Some(NetType::Integer) {
-            d.signed = true;
-        } else {
-            if self.eat_kw(kw::SIGNED) {
-                d.signed = true;
-            }
-            if self.peek_p(Punct::LBrack) {
-                d.range = Some(self.range()?);
-            }
-        }
-        Ok(d)
-    }
-
-    /// SystemVerilog's `logic` and `bit` (not keywords of IEEE 1364, so looked up by name:
-    /// a 1364 design may use them as names, and does not put them before a declaration).
-    fn is_sv_type(&self, k: Sym) -> bool {
-        matches!(self.names.name(k), "logic" | "bit")
-    }
-
-    /// SystemVerilog `int` (IEEE 1800-2017 clause 6.11, from memory: a 32-bit signed
-    /// two-state integer), read as `integer`: the two agree wherever no x is stored.
-    pub(super) fn is_int(&self, k: Sym) -> bool {
-        self.names.name(k) == "int"
-    }
-
-    /// At `#`: skip a delay (`#3`, `#1.5`, `#D`, `#(1, 2)`, `#(1:2:3)`), warning once per file
-    /// that delays are ignored (equivalence is about the logic at rest; IEEE 1364-2005
-    /// clause 7.14 gives gate delays, clause 6.1.3 assignment delays).
-    pub(super) fn skip_delay(&mut self) -> PResult<()> {
-        let pos = self.bump().pos;
-        if self.eat_p(Punct::LParen) {
-            let mut nest = 1usize;
-            while nest > 0 {
-                match self.bump().tok {
-                    Tok::Punct(Punct::LParen) => nest += 1,
-                    Tok::Punct(Punct::RParen) => nest -= 1,
-                    Tok::Eof => return Err(self.error(pos, "unclosed delay `#(`")),
-                    _ => {}
-                }
-            }
-        } else {
-            match self.peek().tok {
-                Tok::Num(_) | Tok::Real | Tok::Ident(_) => {
-                    self.bump();
-                }
-                _ => return Err(self.error(pos, "expected a delay value after `#`")),
-            }
-        }
-        if !self
-            .warnings
-            .iter()
-            .any(|w| w.kind == SyntaxKind::DelayIgnored)
-        {
-            self.warnings.push(SyntaxError::new(
-                Stage::Parse,
-                pos,
-                SyntaxKind::DelayIgnored,
-                "delays are ignored (this is the first; the logic is read as if every delay were 0)",
-            ));
         }
         Ok(())
     }
@@ -595,44 +486,15 @@ impl<'s, 'n> Parser<'s, 'n> {
         Ok(Sensitivity::List(events, at))
     }
 
-    /// `[msb:lsb]`
-    pub fn range(&mut self) -> PResult<Range> {
-        self.expect_p(Punct::LBrack, "`[`")?;
-        let msb = self.expr()?;
-        self.expect_p(Punct::Colon, "`:` in a range")?;
-        let lsb = self.expr()?;
-        self.expect_p(Punct::RBrack, "`]`")?;
-        Ok(Range { msb, lsb })
-    }
-
-    fn param_head(&mut self, local: bool) -> PResult<ParamDecl> {
-        let mut pd = ParamDecl {
-            local,
-            signed: false,
-            integer: false,
-            range: None,
-            assigns: Vec::new(),
-        };
-        if self.eat_kw(kw::INTEGER) {
-            pd.integer = true;
-            pd.signed = true;
-        } else {
-            if self.eat_kw(kw::SIGNED) {
-                pd.signed = true;
-            }
-            if self.peek_p(Punct::LBrack) {
-                pd.range = Some(self.range()?);
-            }
-        }
-        Ok(pd)
-    }
-
     /// One module item (or generate item), appended to `out`. A loop variable declared in a
     /// `for` header of the item (IEEE 1800-2017 clause 12.7.1, from memory) becomes an
     /// `integer` of the module, once per name: the loops are unrolled, so one variable serves
     /// every loop that names it.
     pub fn item(&mut self, out: &mut Vec<Item>) -> PResult<()> {
         let r = self.item_inner(out);
+        for pd in self.take_pending() {
+            out.push(Item::Param(Box::new(pd)));
+        }
         for (n, p) in std::mem::take(&mut self.loop_decls) {
             let declared = out.iter().any(|it| match it {
                 Item::Decl(d) => d.names.iter().any(|x| x.0 == n),
@@ -673,6 +535,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             || k == kw::SUPPLY0
             || k == kw::SUPPLY1
             || self.is_sv_type(k)
+            || self.starts_type()
         {
             // IEEE 1364-2005 clause 4.6: `tri` is `wire` by another name; `supply0` and
             // `supply1` nets are driven by the constants 0 and 1 (clause 4.6.7).
@@ -705,8 +568,13 @@ impl<'s, 'n> Parser<'s, 'n> {
                     break;
                 }
             }
+            self.note_struct_names(&d.names);
             self.expect_p(Punct::Semi, "`;` after the declaration")?;
             out.push(Item::Decl(Box::new(d)));
+        } else if self.peek_typedef() {
+            self.module_typedef(out)?;
+        } else if self.peek_import() {
+            self.import(false)?;
         } else if k == kw::PARAMETER || k == kw::LOCALPARAM {
             self.bump();
             let mut pd = self.param_head(k == kw::LOCALPARAM)?;
@@ -808,6 +676,14 @@ impl<'s, 'n> Parser<'s, 'n> {
                 self.skip_past(e);
                 return Ok(());
             }
+            if n == "initial" || n == "begin" {
+                // The whole block, so that its statements give no follow-on errors.
+                if n == "initial" {
+                    self.bump();
+                }
+                self.skip_statement();
+                return Ok(());
+            }
             return Err(Stop);
         } else if self.names.name(k) == "always_comb" {
             // IEEE 1800-2017 clause 9.2.2.2 (from memory): combinational, every variable read.
@@ -834,6 +710,28 @@ impl<'s, 'n> Parser<'s, 'n> {
             self.unsupported(pos, "`always_latch` (latches are not read: equicone reads combinational logic and registers clocked by an edge, `always @(posedge clk)`/`always_ff`)");
             self.bump();
             self.skip_statement();
+        } else if matches!(
+            self.names.name(k),
+            "final"
+                | "assert"
+                | "assume"
+                | "cover"
+                | "property"
+                | "sequence"
+                | "covergroup"
+                | "clocking"
+                | "class"
+                | "modport"
+                | "interface"
+                | "program"
+                | "checker"
+                | "let"
+                | "union"
+        ) {
+            // SystemVerilog constructs outside the subset: one error, the construct skipped.
+            let n = self.names.name(k).to_string();
+            self.unsupported(pos, format!("`{n}`"));
+            self.skip_construct(k);
         } else {
             self.instance(out)?;
         }
@@ -841,56 +739,7 @@ impl<'s, 'n> Parser<'s, 'n> {
     }
 }
 
-impl Parser<'_, '_> {
-    /// Skip one statement (after an error on its head): a `begin ... end` block with its
-    /// nested blocks, or up to the next `;`.
-    pub(super) fn skip_statement(&mut self) {
-        // An event control first.
-        if self.eat_p(Punct::At) && !self.eat_p(Punct::Star) && self.peek_p(Punct::LParen) {
-            let mut depth = 0usize;
-            loop {
-                match self.bump().tok {
-                    Tok::Punct(Punct::LParen) => depth += 1,
-                    Tok::Punct(Punct::RParen) => {
-                        depth = depth.saturating_sub(1);
-                        if depth == 0 {
-                            break;
-                        }
-                    }
-                    Tok::Eof => return,
-                    _ => {}
-                }
-            }
-        }
-        let mut depth = 0usize;
-        loop {
-            match &self.peek().tok {
-                Tok::Eof => return,
-                Tok::Ident(k) if *k == kw::ENDMODULE => return,
-                Tok::Ident(k) if *k == kw::BEGIN || *k == kw::CASE || *k == kw::CASEZ => {
-                    depth += 1;
-                }
-                Tok::Ident(k) if *k == kw::END || *k == kw::ENDCASE => {
-                    self.bump();
-                    depth = depth.saturating_sub(1);
-                    if depth == 0 && !self.peek_kw(kw::ELSE) {
-                        return;
-                    }
-                    continue;
-                }
-                Tok::Punct(Punct::Semi) if depth == 0 => {
-                    self.bump();
-                    if !self.peek_kw(kw::ELSE) {
-                        return;
-                    }
-                    continue;
-                }
-                _ => {}
-            }
-            self.bump();
-        }
-    }
-}
+impl Parser<'_, '_> {}
 
 fn punct_text(p: Punct) -> &'static str {
     match p {

@@ -284,6 +284,22 @@ impl Elaborator<'_> {
                         let v = self.eval_self(ctx, &args[0]);
                         extend(v.bits, width, signed)
                     }
+                    "$bits" => {
+                        // IEEE 1800-2017 clause 20.6.2 (from memory): the argument's
+                        // self-determined width, a constant; the argument is not evaluated.
+                        if let Expr::Ident(n, p) = &args[0] {
+                            if self.lookup(ctx.scope, *n).is_none() {
+                                let nm = self.name(*n);
+                                self.error(
+                                    *p,
+                                    format!("undeclared name `{nm}` in `$bits`"),
+                                    "declare it before this use, or name a type declared with `typedef`",
+                                );
+                            }
+                        }
+                        let t = self.expr_type(ctx, &args[0]);
+                        extend(bits::constant(t.width as i64, 32), width, signed)
+                    }
                     _ => {
                         // $clog2: constant argument only.
                         let r = match self.const_val(ctx.scope, &args[0]) {

@@ -10,6 +10,9 @@ mod bounded;
 mod common;
 #[path = "trust/display.rs"]
 mod display;
+#[cfg(unix)]
+#[path = "trust/filenames.rs"]
+mod filenames;
 #[path = "trust/portmap.rs"]
 mod portmap;
 #[path = "trust/ranges.rs"]

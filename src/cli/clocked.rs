@@ -8,6 +8,7 @@ use crate::check::{self, CheckError, CheckRequest, ClockedSettings};
 use crate::explain::trace_cubes::{trace_cubes, trace_cubes_text};
 use crate::sat::Limits;
 use crate::seq::InitUnset;
+use std::path::{Path, PathBuf};
 
 /// How registers without a reset start, on the command line.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, clap::ValueEnum)]
@@ -37,7 +38,7 @@ pub struct ClockedReplay<'a> {
     /// `--explain`, `--vcd`, `--testbench`.
     pub args: &'a ReplayArgs,
     /// Source paths of the reference and the candidate.
-    pub files: (&'a [String], &'a [String]),
+    pub files: (&'a [PathBuf], &'a [PathBuf]),
     /// The seed of random cycles.
     pub seed: u64,
 }
@@ -47,7 +48,7 @@ pub fn run(
     req: &CheckRequest<'_>,
     settings: &ClockedSettings,
     json: bool,
-    report: Option<&str>,
+    report: Option<&Path>,
     replay: &ClockedReplay<'_>,
 ) -> Exit {
     let rep = match check::check_clocked(req, settings) {

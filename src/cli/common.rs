@@ -7,7 +7,7 @@ use crate::front::{self, ReadError, Source};
 use crate::sat::Limits;
 use clap::Args;
 use std::io::Write;
-use std::path::Path;
+use std::path::{Path, PathBuf};
 
 /// The format names on the command line.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, clap::ValueEnum)]
@@ -67,10 +67,10 @@ pub struct LimitArgs {
 pub struct DesignArgs {
     /// The design's netlist file.
     #[arg(value_name = "DESIGN")]
-    pub path: String,
+    pub path: PathBuf,
     /// More Verilog files of the same design.
     #[arg(long = "also", value_name = "FILE")]
-    pub also: Vec<String>,
+    pub also: Vec<PathBuf>,
     /// The input format (default: from the file name, `.bench` or `.v`).
     #[arg(long, value_enum)]
     pub format: Option<FormatArg>,
@@ -87,7 +87,7 @@ pub struct DesignArgs {
 pub struct PreprocArgs {
     /// A directory searched for `include files, after the including file's own (repeatable).
     #[arg(short = 'I', long = "include-dir", value_name = "DIR")]
-    pub include_dirs: Vec<String>,
+    pub include_dirs: Vec<PathBuf>,
     /// A macro defined before the first file: NAME or NAME=VALUE (repeatable).
     #[arg(short = 'D', long = "define", value_name = "NAME=VALUE", value_parser = parse_define)]
     pub defines: Vec<(String, String)>,
@@ -101,7 +101,7 @@ impl PreprocArgs {
     /// The options of the reader.
     pub fn options(&self) -> front::verilog::preprocess::Options {
         front::verilog::preprocess::Options {
-            include_dirs: self.include_dirs.iter().map(Into::into).collect(),
+            include_dirs: self.include_dirs.clone(),
             defines: self.defines.clone(),
             keep_written: false,
         }
@@ -190,7 +190,7 @@ pub fn seconds_of(flag: &str, s: f64) -> Result<std::time::Duration, Exit> {
 
 /// Read a design, printing its errors on failure.
 pub fn load(
-    paths: Vec<String>,
+    paths: Vec<PathBuf>,
     format: Option<FormatArg>,
     top: Option<String>,
     pre: &PreprocArgs,
@@ -207,7 +207,7 @@ pub fn load(
 /// Read a design under `limits`, printing its errors on failure; when the deadline passes
 /// while reading, prints the undecided message and returns [`Exit::Undecided`].
 pub fn load_within(
-    paths: Vec<String>,
+    paths: Vec<PathBuf>,
     format: Option<FormatArg>,
     top: Option<String>,
     pre: &PreprocArgs,
@@ -247,10 +247,10 @@ pub fn report_internal(msg: &str) -> Exit {
 }
 
 /// Write `contents` to `path` atomically: a temporary file in the same folder, then a rename.
-pub fn write_atomic(path: &str, contents: &[u8]) -> Result<(), InputError> {
-    let p = Path::new(path);
+pub fn write_atomic(path: impl AsRef<Path>, contents: &[u8]) -> Result<(), InputError> {
+    let p = path.as_ref();
     let dir = folder_of(p);
-    let fail = |e: std::io::Error| write_failure(path, dir, e);
+    let fail = |e: std::io::Error| write_failure(p, dir, e);
     let mut tmp = tempfile::NamedTempFile::new_in(dir).map_err(fail)?;
     tmp.write_all(contents).map_err(fail)?;
     #[cfg(unix)]
@@ -269,9 +269,8 @@ pub fn write_atomic(path: &str, contents: &[u8]) -> Result<(), InputError> {
 /// Check, before any work, that [`write_atomic`] can write `path`: it is not a folder and a
 /// temporary file can be made beside it (the probe is removed at once). Each path that is
 /// `Some` is checked; the first failure is printed and gives [`Exit::BadInput`].
-pub fn check_writable<'a>(paths: impl IntoIterator<Item = Option<&'a str>>) -> Result<(), Exit> {
-    for path in paths.into_iter().flatten() {
-        let p = Path::new(path);
+pub fn check_writable<'a>(paths: impl IntoIterator<Item = Option<&'a Path>>) -> Result<(), Exit> {
+    for p in paths.into_iter().flatten() {
         let dir = folder_of(p);
         let probe = if p.is_dir() {
             Err(std::io::Error::from(std::io::ErrorKind::IsADirectory))
@@ -279,7 +278,7 @@ pub fn check_writable<'a>(paths: impl IntoIterator<Item = Option<&'a str>>) -> R
             tempfile::NamedTempFile::new_in(dir).map(drop)
         };
         if let Err(e) = probe {
-            return Err(report_input_error(&write_failure(path, dir, e)));
+            return Err(report_input_error(&write_failure(p, dir, e)));
         }
     }
     Ok(())
@@ -294,7 +293,7 @@ fn folder_of(p: &Path) -> &Path {
 }
 
 /// The message for a failed write of `path` in `dir`.
-fn write_failure(path: &str, dir: &Path, e: std::io::Error) -> InputError {
+fn write_failure(path: &Path, dir: &Path, e: std::io::Error) -> InputError {
     {
         let what = match e.kind() {
             std::io::ErrorKind::NotFound => {
@@ -313,7 +312,7 @@ fn write_failure(path: &str, dir: &Path, e: std::io::Error) -> InputError {
             }
         };
         InputError::plain(
-            format!("cannot write `{path}`: {what}"),
+            format!("cannot write `{}`: {what}", path.display()),
             "check that the folder exists and is writable; nothing was written",
         )
     }

@@ -10,6 +10,7 @@ use crate::cost::{self, CostModel};
 use crate::diag::InputError;
 use crate::sat::Limits;
 use clap::Args;
+use std::path::PathBuf;
 
 impl LimitArgs {
     fn support(&self, progress: bool) -> SupportOptions {
@@ -32,11 +33,11 @@ pub struct ConeArgs {
     /// The inputs each output must depend on (text `y: a, b[0..3]` lines or JSON); missing
     /// and unexpected inputs are flagged.
     #[arg(long, value_name = "FILE")]
-    expect: Option<String>,
+    expect: Option<PathBuf>,
     /// Write a Graphviz picture of one output's cone (the one named with --output, else the
     /// first with a redundant input).
     #[arg(long, value_name = "FILE")]
-    dot: Option<String>,
+    dot: Option<PathBuf>,
     /// List every claim with its evidence in the text report (JSON always has it).
     #[arg(long)]
     evidence: bool,
@@ -45,7 +46,7 @@ pub struct ConeArgs {
     json: bool,
     /// Write the JSON report to this file (atomically).
     #[arg(long = "report", value_name = "FILE")]
-    report: Option<String>,
+    report: Option<PathBuf>,
     /// Audit only shard K of N (output bits i of the selection with i mod N = K-1) and write a
     /// partial report (needs --report or --json); `equicone merge` joins the N parts.
     #[arg(long, value_name = "K/N")]
@@ -138,7 +139,7 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
             if let Err(e) = write_atomic(path, text.as_bytes()) {
                 return report_input_error(&e);
             }
-            eprintln!("wrote {path} (cone of {name})");
+            eprintln!("wrote {} (cone of {name})", path.display());
         }
     }
     // Clocked designs: the cone across cycles too.
@@ -175,7 +176,9 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
             rep.stats.claims,
             rep.flags.len(),
             rep.stats.undecided,
-            a.report.as_deref().unwrap_or("-")
+            a.report
+                .as_deref()
+                .map_or("-".into(), |p| p.display().to_string())
         ),
         (false, None, None) => rep.to_string(),
         (false, None, Some(c)) => format!("{rep}{c}"),
@@ -224,7 +227,7 @@ pub struct StatsArgs {
     design: DesignArgs,
     /// Cost and delay per gate type and fan-in (JSON; default: unit cost and delay).
     #[arg(long, value_name = "FILE")]
-    cost_model: Option<String>,
+    cost_model: Option<PathBuf>,
     /// Print the report as JSON (schema in docs/cone.md).
     #[arg(long)]
     json: bool,

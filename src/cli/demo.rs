@@ -3,13 +3,14 @@
 use super::common::{print, report_input_error, report_internal, write_atomic};
 use super::Exit;
 use clap::Args;
+use std::path::PathBuf;
 
 /// Options of `demo`.
 #[derive(Args, Debug)]
 pub struct DemoArgs {
     /// Write the demo's netlists into this folder instead of running it.
     #[arg(long, value_name = "DIR")]
-    write: Option<String>,
+    write: Option<PathBuf>,
 }
 
 /// Run `demo`.
@@ -18,21 +19,22 @@ pub fn run(a: &DemoArgs) -> Exit {
         // The folder is created when missing (with its parents), like `mkdir -p`.
         if let Err(e) = std::fs::create_dir_all(dir) {
             return report_input_error(&crate::InputError::plain(
-                format!("cannot create the folder `{dir}`: {e}"),
+                format!("cannot create the folder `{}`: {e}", dir.display()),
                 "give a folder path that can be created or already exists",
             ));
         }
         for (name, text) in crate::demo::FILES {
-            let path = format!("{}/{name}", dir.trim_end_matches('/'));
+            let path = dir.join(name);
             if let Err(e) = write_atomic(&path, text.as_bytes()) {
                 return report_input_error(&e);
             }
-            eprintln!("wrote {path}");
+            eprintln!("wrote {}", path.display());
         }
-        let at = |name: &str| format!("{}/{name}", dir.trim_end_matches('/'));
+        let at = |name: &str| dir.join(name);
+        // The testbench names the netlists it includes (lossily when not UTF-8).
         let files = match crate::demo::trace_files(
-            &at("t7_sensor_reg_spec.v"),
-            &at("t7_sensor_reg_r5.v"),
+            &at("t7_sensor_reg_spec.v").display().to_string(),
+            &at("t7_sensor_reg_r5.v").display().to_string(),
         ) {
             Ok(f) => f,
             Err(m) => return report_internal(&m),
@@ -42,7 +44,7 @@ pub fn run(a: &DemoArgs) -> Exit {
             if let Err(e) = write_atomic(&path, text.as_bytes()) {
                 return report_input_error(&e);
             }
-            eprintln!("wrote {path}");
+            eprintln!("wrote {}", path.display());
         }
         return Exit::Ok;
     }

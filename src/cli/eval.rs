@@ -8,6 +8,7 @@ use crate::diag::InputError;
 use crate::report::{self, values};
 use clap::Args;
 use serde::Serialize;
+use std::path::PathBuf;
 
 /// Options of `eval`.
 #[derive(Args, Debug)]
@@ -19,7 +20,7 @@ pub struct EvalArgs {
     set: Vec<String>,
     /// Read input values from a JSON file (a `prove --json` report: its first counterexample; or {"name": value}).
     #[arg(long, value_name = "FILE")]
-    vector: Option<String>,
+    vector: Option<PathBuf>,
     /// Value of every input not set otherwise (default: all inputs must be set).
     #[arg(long, value_name = "0|1")]
     rest: Option<u8>,
@@ -29,13 +30,13 @@ pub struct EvalArgs {
     /// Also write the vector (with --trace: every cycle of the trace) as a Value Change Dump
     /// (IEEE 1364-2005 clause 18) to FILE.
     #[arg(long, value_name = "FILE")]
-    vcd: Option<String>,
+    vcd: Option<PathBuf>,
     /// With --vcd: also every internal net of the design's netlist.
     #[arg(long)]
     vcd_nets: bool,
     /// Step a clocked design through a trace from reset (a `prove --json` report or its `trace`).
     #[arg(long, value_name = "FILE", conflicts_with_all = ["set", "vector", "rest"])]
-    trace: Option<String>,
+    trace: Option<PathBuf>,
     /// Which design of the report's trace or counterexample this is (its own unknown inputs,
     /// initial values and, for a pairing by position, names). Default for a trace: reference;
     /// for a --vector report: the side whose names the design has.
@@ -85,7 +86,8 @@ pub fn run(a: &EvalArgs) -> Exit {
 fn evaluate(d: &Design, a: &EvalArgs) -> Result<String, InputError> {
     let mut vals: Vec<Option<bool>> = vec![None; d.inputs.len()];
     if let Some(path) = &a.vector {
-        for (k, v) in resolve_vector(d, path, &read_vector(path)?, a.side)? {
+        let bits = read_vector(path)?;
+        for (k, v) in resolve_vector(d, &path.display().to_string(), &bits, a.side)? {
             vals[k] = Some(v);
         }
     }
@@ -128,7 +130,7 @@ fn evaluate(d: &Design, a: &EvalArgs) -> Result<String, InputError> {
     if let Some(path) = &a.vcd {
         let text = crate::explain::waves::design_vcd(d, &inputs, a.vcd_nets);
         super::common::write_atomic(path, text.as_bytes())?;
-        eprintln!("vcd: {path}");
+        eprintln!("vcd: {}", path.display());
     }
     if a.json {
         let mut im = serde_json::Map::new();
@@ -343,8 +345,11 @@ fn resolve_vector(
 }
 
 /// The bits of a vector file.
-fn read_vector(path: &str) -> Result<Vec<VectorBit>, InputError> {
+fn read_vector(path: &std::path::Path) -> Result<Vec<VectorBit>, InputError> {
     let text = crate::front::read_text(path)?;
+    // The file's name in messages (lossy when it is not UTF-8).
+    let path = path.display().to_string();
+    let path = path.as_str();
     let v: serde_json::Value = serde_json::from_str(&text).map_err(|e| {
         InputError::one(
             crate::diag::Diagnostic::error(

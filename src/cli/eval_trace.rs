@@ -9,6 +9,7 @@ use crate::diag::InputError;
 use crate::report::values;
 use crate::seq::{self, Side, Trace};
 use serde::Serialize;
+use std::path::Path;
 
 #[derive(Serialize)]
 struct Cycle {
@@ -24,8 +25,10 @@ struct TraceEval {
     cycles: Vec<Cycle>,
 }
 
-fn read_trace(path: &str) -> Result<Trace, InputError> {
-    let text = std::fs::read_to_string(path).map_err(|e| {
+fn read_trace(file: &Path) -> Result<Trace, InputError> {
+    // The file's name in messages (lossy when it is not UTF-8).
+    let path = file.display();
+    let text = std::fs::read_to_string(file).map_err(|e| {
         InputError::plain(
             format!("{path}: cannot read the trace: {e}"),
             "give the JSON report of `prove --json` on clocked designs, or its `trace` object",
@@ -52,11 +55,13 @@ fn read_trace(path: &str) -> Result<Trace, InputError> {
 }
 
 /// Run `eval --trace` on `d`, as the trace's `side` design; `vcd`: also dump the run there.
-pub fn run(d: &Design, path: &str, side: Side, json: bool, vcd: Option<&str>) -> Exit {
-    let t = match read_trace(path) {
+pub fn run(d: &Design, file: &Path, side: Side, json: bool, vcd: Option<&Path>) -> Exit {
+    let t = match read_trace(file) {
         Ok(t) => t,
         Err(e) => return report_input_error(&e),
     };
+    // The file's name in messages (lossy when it is not UTF-8).
+    let path = file.display();
     let rep = match seq::replay(d, side, &t) {
         Ok(r) => r,
         Err(m) => {
@@ -72,7 +77,11 @@ pub fn run(d: &Design, path: &str, side: Side, json: bool, vcd: Option<&str>) ->
                 if let Err(e) = super::common::write_atomic(v, text.as_bytes()) {
                     return report_input_error(&e);
                 }
-                eprintln!("vcd: {v} ({} cycles from reset)", t.cycles.len());
+                eprintln!(
+                    "vcd: {} ({} cycles from reset)",
+                    v.display(),
+                    t.cycles.len()
+                );
             }
             Err(m) => {
                 return report_input_error(&InputError::plain(

@@ -5,6 +5,7 @@ use super::gen_enums::{BugArg, FormatArg, KindArg, StyleArg};
 use super::Exit;
 use crate::gen::{self, GenFormat, GenSpec, Kind};
 use clap::Args;
+use std::path::PathBuf;
 
 /// Options of `gen`.
 #[derive(Args, Debug)]
@@ -14,7 +15,7 @@ pub struct GenArgs {
     kind: KindArg,
     /// `remap` only: the design file to rewrite (bench or Verilog).
     #[arg(value_name = "DESIGN")]
-    design: Option<String>,
+    design: Option<PathBuf>,
     /// Size: channels of a selector, select bits of a decoder, requests of a priority encoder,
     /// bits of a shifter, adder or multiplier operand, gates of a random circuit, inputs of a
     /// popcount or majority, operand bits of a comparator or divider, root bits of a square
@@ -71,14 +72,14 @@ pub struct GenArgs {
     format: Option<FormatArg>,
     /// Write to this file (atomically) instead of standard output.
     #[arg(short = 'o', long = "output", value_name = "FILE")]
-    output: Option<String>,
+    output: Option<PathBuf>,
 }
 
 /// Run `gen`.
 pub fn run(a: &GenArgs) -> Exit {
     let kind = Kind::from(a.kind);
     let format = a.format.map(GenFormat::from).unwrap_or(match &a.output {
-        Some(path) if path.ends_with(".bench") => GenFormat::Bench,
+        Some(path) if path.as_os_str().as_encoded_bytes().ends_with(b".bench") => GenFormat::Bench,
         _ => GenFormat::Verilog,
     });
     if kind == Kind::Remap {
@@ -141,7 +142,12 @@ pub fn run(a: &GenArgs) -> Exit {
             if let Err(e) = write_atomic(path, g.text.as_bytes()) {
                 return report_input_error(&e);
             }
-            eprintln!("wrote {path}: {} ({} gates)", g.description, g.gates);
+            eprintln!(
+                "wrote {}: {} ({} gates)",
+                path.display(),
+                g.description,
+                g.gates
+            );
             if let Some(m) = &g.mutation {
                 eprintln!("planted bug: {m}");
             }

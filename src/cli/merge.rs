@@ -7,6 +7,7 @@ use super::Exit;
 use crate::diag::InputError;
 use crate::front::read_text;
 use clap::Args;
+use std::path::PathBuf;
 
 /// Options of `merge`.
 #[derive(Args, Debug)]
@@ -14,10 +15,10 @@ pub struct MergeArgs {
     /// The partial reports (JSON files written by `prove --shard K/N --report FILE` or by
     /// `cone --shard K/N --report FILE`), any order.
     #[arg(value_name = "PART", required = true)]
-    parts: Vec<String>,
+    parts: Vec<PathBuf>,
     /// Write the whole JSON report to this file (atomically).
     #[arg(long = "report", value_name = "FILE")]
-    report: Option<String>,
+    report: Option<PathBuf>,
     /// Print the whole JSON report on standard output.
     #[arg(long)]
     json: bool,
@@ -35,11 +36,11 @@ pub fn run(a: &MergeArgs) -> Exit {
             match serde_json::from_str(&text) {
                 Ok(v) => v,
                 Err(e) => return report_input_error(&InputError::plain(
-                    format!("{p}:{}:{}: not JSON: {e}", e.line(), e.column()),
+                    format!("{}:{}:{}: not JSON: {e}", p.display(), e.line(), e.column()),
                     "give the JSON partial reports that `prove` or `cone --shard K/N --report FILE` wrote",
                 )),
             };
-        parts.push((p.clone(), v));
+        parts.push((p.display().to_string(), v));
     }
     let cone = parts
         .first()

@@ -15,6 +15,7 @@ use crate::front::{self, ReadError, Source};
 use crate::report;
 use clap::Args;
 use std::io::IsTerminal;
+use std::path::{Path, PathBuf};
 
 cli_enum! {
     /// How to match input and output bits (`--pair-by`).
@@ -65,16 +66,16 @@ cli_enum! {
 pub struct PairArgs {
     /// The reference (trusted) netlist.
     #[arg(value_name = "REF")]
-    pub reference: String,
+    pub reference: PathBuf,
     /// The candidate (rewritten) netlist.
     #[arg(value_name = "CAND")]
-    pub candidate: String,
+    pub candidate: PathBuf,
     /// More Verilog files of the reference.
     #[arg(long = "ref-also", value_name = "FILE")]
-    pub ref_also: Vec<String>,
+    pub ref_also: Vec<PathBuf>,
     /// More Verilog files of the candidate.
     #[arg(long = "cand-also", value_name = "FILE")]
-    pub cand_also: Vec<String>,
+    pub cand_also: Vec<PathBuf>,
     /// Input format of both files (default: from each file name).
     #[arg(long, value_enum)]
     pub format: Option<FormatArg>,
@@ -96,7 +97,7 @@ pub struct PairArgs {
     /// A port map file pairing renamed ports or bits (`REFERENCE_NAME CANDIDATE_NAME` per
     /// line, see the README); the bits it does not name pair by name.
     #[arg(long, value_name = "FILE")]
-    pub port_map: Option<String>,
+    pub port_map: Option<PathBuf>,
     /// Leave input bits that exist on one side only free (the verdict then covers all their values).
     #[arg(long)]
     pub free_extra_inputs: bool,
@@ -119,7 +120,7 @@ impl PairArgs {
         rp.extend(self.ref_also.iter().cloned());
         let mut cp = vec![self.candidate.clone()];
         cp.extend(self.cand_also.iter().cloned());
-        let source = |paths: Vec<String>, format: Option<FormatArg>, top: Option<String>| Source {
+        let source = |paths: Vec<PathBuf>, format: Option<FormatArg>, top: Option<String>| Source {
             paths,
             format: format.map(Format::from),
             top,
@@ -192,7 +193,7 @@ impl PairArgs {
             return Ok(None);
         };
         crate::portmap::PortMap::read(path)
-            .and_then(|m| m.resolve(path, r, c))
+            .and_then(|m| m.resolve(&path.display().to_string(), r, c))
             .map(|m| Some(std::sync::Arc::new(m)))
             .map_err(|e| report_input_error(&e))
     }
@@ -219,7 +220,7 @@ pub struct ProveArgs {
     json: bool,
     /// Also write the JSON report to this file (written atomically).
     #[arg(long, value_name = "FILE")]
-    report: Option<String>,
+    report: Option<PathBuf>,
     /// Ask only for input vectors where this Verilog expression over the input ports holds,
     /// e.g. `sel < 12` (repeatable: all must hold).
     #[arg(long, value_name = "EXPR")]
@@ -227,7 +228,7 @@ pub struct ProveArgs {
     /// Write a proof of the equivalent output pairs: a DRAT refutation (FILE) of a miter that
     /// encodes both designs separately (FILE.cnf), checkable by any DRAT checker.
     #[arg(long, value_name = "FILE")]
-    proof: Option<String>,
+    proof: Option<PathBuf>,
     /// Format of the --proof file.
     #[arg(long, value_enum, default_value_t = ProofFormatArg::Drat)]
     proof_format: ProofFormatArg,
@@ -286,7 +287,7 @@ pub struct CnfArgs {
     pair: PairArgs,
     /// Where to write the DIMACS file.
     #[arg(short = 'o', long = "output", value_name = "FILE")]
-    output: String,
+    output: PathBuf,
     /// Only input vectors where this Verilog expression over the input ports holds (asserted
     /// by a unit clause, recorded in the comments; repeatable: all must hold).
     #[arg(long, value_name = "EXPR")]
@@ -312,7 +313,7 @@ pub fn run(a: &ProveArgs) -> Exit {
         Err(e) => return e,
     };
     // Output paths are checked before any work, so that a long run is not lost to a typo.
-    let proof_cnf = a.proof.as_ref().map(|p| format!("{p}.cnf"));
+    let proof_cnf = a.proof.as_deref().map(cnf_path_of);
     if let Err(e) = check_writable([
         a.report.as_deref(),
         a.proof.as_deref(),
@@ -447,7 +448,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
             after_difference: None,
             port_map: a.pair.port_map.as_ref().map(|f| {
                 std::sync::Arc::new(crate::portmap::BitMap {
-                    file: f.clone(),
+                    file: f.display().to_string(),
                     ..Default::default()
                 })
             }),
@@ -478,7 +479,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
 /// Run `cnf`: the miter (OR of the XORs of all output pairs) asserted true, so that the
 /// formula is unsatisfiable exactly when the designs are equivalent.
 pub fn run_cnf(a: &CnfArgs) -> Exit {
-    if let Err(e) = check_writable([Some(a.output.as_str())]) {
+    if let Err(e) = check_writable([Some(a.output.as_path())]) {
         return e;
     }
     let (r, c) = match a.pair.load() {
@@ -509,7 +510,7 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
         Ok(()) => {
             eprintln!(
                 "wrote {} ({} variables, {} clauses)",
-                a.output,
+                a.output.display(),
                 miter.formula.var_count(),
                 miter.formula.len()
             );
@@ -520,15 +521,24 @@ pub fn run_cnf(a: &CnfArgs) -> Exit {
 }
 
 /// Write the certificate of the equivalent output pairs and its formula, or say why there is none.
-fn write_proof(cert: &Result<Certificate, NoCertificate>, path: &str) -> Result<(), Exit> {
+/// The file beside the proof `path` that holds its formula: the name with `.cnf` appended.
+fn cnf_path_of(path: &Path) -> PathBuf {
+    let mut name = path.as_os_str().to_os_string();
+    name.push(".cnf");
+    PathBuf::from(name)
+}
+
+fn write_proof(cert: &Result<Certificate, NoCertificate>, path: &Path) -> Result<(), Exit> {
     match cert {
         Ok(cert) => {
-            let cnf_path = format!("{path}.cnf");
+            let cnf_path = cnf_path_of(path);
             if let Err(e) = write_atomic(&cnf_path, &cert.cnf).and_then(|_| write_atomic(path, &cert.proof)) {
                 return Err(report_input_error(&e));
             }
             eprintln!(
-                "proof: {path} refutes {cnf_path}: the {} equivalent output pair{} (both designs encoded separately)",
+                "proof: {} refutes {}: the {} equivalent output pair{} (both designs encoded separately)",
+                path.display(),
+                cnf_path.display(),
                 cert.pairs,
                 if cert.pairs == 1 { "" } else { "s" }
             );
@@ -552,7 +562,7 @@ fn write_proof(cert: &Result<Certificate, NoCertificate>, path: &str) -> Result<
 /// change a verdict (not the time limit or the thread count).
 fn stamp_run(stamp: &mut crate::shard::ShardStamp, a: &ProveArgs) {
     let p = &a.pair;
-    let files: Vec<String> = std::iter::once(&p.reference)
+    let files: Vec<PathBuf> = std::iter::once(&p.reference)
         .chain(&p.ref_also)
         .chain(std::iter::once(&p.candidate))
         .chain(&p.cand_also)

@@ -4,13 +4,14 @@ use super::common::{load, print, report_input_error, write_atomic, PreprocArgs};
 use super::Exit;
 use crate::diag::InputError;
 use crate::gen::{remap, GenFormat};
+use std::path::Path;
 
 /// Run `gen remap`.
 pub fn run(
-    design: Option<&str>,
+    design: Option<&Path>,
     k: usize,
     pre: &PreprocArgs,
-    (module, format, output): (Option<&str>, GenFormat, Option<&str>),
+    (module, format, output): (Option<&str>, GenFormat, Option<&Path>),
 ) -> Exit {
     let Some(path) = design else {
         return report_input_error(&InputError::plain(
@@ -18,7 +19,7 @@ pub fn run(
             "run `equicone gen remap DESIGN --k 6` with a bench or Verilog file",
         ));
     };
-    let d = match load(vec![path.to_string()], None, None, pre) {
+    let d = match load(vec![path.to_path_buf()], None, None, pre) {
         Ok(d) => d,
         Err(e) => return e,
     };
@@ -33,7 +34,7 @@ pub fn run(
         Ok(x) => x,
         Err(e) => return report_input_error(&e.into()),
     };
-    let mut cmd = format!("equicone gen remap {path} --k {k}");
+    let mut cmd = format!("equicone gen remap {} --k {k}", path.display());
     if format == GenFormat::Bench {
         cmd += " --format bench";
     }
@@ -54,8 +55,10 @@ pub fn run(
                 return report_input_error(&e);
             }
             eprintln!(
-                "wrote {out}: {} lookup functions of at most {k} inputs, {} product terms",
-                stats.luts, stats.cubes
+                "wrote {}: {} lookup functions of at most {k} inputs, {} product terms",
+                out.display(),
+                stats.luts,
+                stats.cubes
             );
         }
     }

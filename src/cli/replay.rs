@@ -10,6 +10,7 @@ use crate::design::Design;
 use crate::engine::Shared;
 use crate::explain::{self, cubes::CubeLimits, testbench::TbDesign};
 use clap::Args;
+use std::path::PathBuf;
 
 /// Explaining and replaying a result.
 #[derive(Args, Debug, Clone, Default)]
@@ -25,14 +26,14 @@ pub struct ReplayArgs {
     /// Write the counterexamples as a Value Change Dump (IEEE 1364-2005 clause 18) to FILE:
     /// both designs' inputs and outputs, one time step per vector.
     #[arg(long, value_name = "FILE")]
-    pub vcd: Option<String>,
+    pub vcd: Option<PathBuf>,
     /// With --vcd: also the internal nets of the cones of the differing outputs.
     #[arg(long)]
     pub vcd_nets: bool,
     /// Write a self-checking Verilog testbench to FILE that applies each counterexample (or
     /// random vectors when there is none) to both designs and prints pass/FAIL per vector.
     #[arg(long, value_name = "FILE")]
-    pub testbench: Option<String>,
+    pub testbench: Option<PathBuf>,
 }
 
 impl ReplayArgs {
@@ -74,7 +75,7 @@ fn random_vectors(shared: &Shared, n: usize, seed: u64) -> Vec<Vec<bool>> {
 }
 
 /// The source files of a Verilog design (path, text), for its testbench; none for bench.
-fn source_files(d: &Design, paths: &[String]) -> Result<Vec<(String, String)>, Exit> {
+fn source_files(d: &Design, paths: &[PathBuf]) -> Result<Vec<(String, String)>, Exit> {
     if d.format != crate::design::Format::Verilog {
         return Ok(Vec::new());
     }
@@ -82,7 +83,7 @@ fn source_files(d: &Design, paths: &[String]) -> Result<Vec<(String, String)>, E
         .iter()
         .map(|p| {
             crate::front::read_text(p)
-                .map(|t| (p.clone(), t))
+                .map(|t| (p.display().to_string(), t))
                 .map_err(|e| report_input_error(&e))
         })
         .collect()
@@ -97,7 +98,7 @@ pub fn write_trace_files(
     a: &ReplayArgs,
     r: &Design,
     c: &Design,
-    files: (&[String], &[String]),
+    files: (&[PathBuf], &[PathBuf]),
     rep: &crate::seq::SeqReport,
     init_unset: crate::seq::InitUnset,
     seed: u64,
@@ -108,7 +109,11 @@ pub fn write_trace_files(
             Some(t) => match explain::trace_vcd::trace_vcd(r, c, t) {
                 Ok(text) => {
                     write_atomic(path, text.as_bytes()).map_err(|e| report_input_error(&e))?;
-                    eprintln!("vcd: {path} ({} cycles from reset)", t.cycles.len());
+                    eprintln!(
+                        "vcd: {} ({} cycles from reset)",
+                        path.display(),
+                        t.cycles.len()
+                    );
                 }
                 Err(m) => eprintln!("vcd: not written: {m}"),
             },
@@ -145,7 +150,8 @@ pub fn write_trace_files(
                     "testbench: {path} ({} {what} cycles from reset); run: iverilog -g2005 -o tb.vvp {path}{}{} && vvp tb.vvp",
                     t.cycles.len(),
                     if tb.compile_with.is_empty() { "" } else { " " },
-                    tb.compile_with.join(" ")
+                    tb.compile_with.join(" "),
+                    path = path.display(),
                 );
             }
             Err(m) => eprintln!("testbench: not written: {m}"),
@@ -160,7 +166,7 @@ pub fn write_files(
     a: &ReplayArgs,
     r: &Design,
     c: &Design,
-    files: (&[String], &[String]),
+    files: (&[PathBuf], &[PathBuf]),
     out: &CheckOutcome,
     seed: u64,
 ) -> Result<(), Exit> {
@@ -176,7 +182,8 @@ pub fn write_files(
                 explain::waves::counterexample_vcd(r, c, shared, &rep.counterexamples, a.vcd_nets);
             write_atomic(path, text.as_bytes()).map_err(|e| report_input_error(&e))?;
             eprintln!(
-                "vcd: {path} ({} vector{})",
+                "vcd: {} ({} vector{})",
+                path.display(),
                 rep.counterexamples.len(),
                 if rep.counterexamples.len() == 1 {
                     ""
@@ -213,7 +220,8 @@ pub fn write_files(
                     "testbench: {path} ({} {what}); run: iverilog -g2005 -o tb.vvp {path}{}{} && vvp tb.vvp",
                     vectors.len(),
                     if tb.compile_with.is_empty() { "" } else { " " },
-                    tb.compile_with.join(" ")
+                    tb.compile_with.join(" "),
+                    path = path.display(),
                 );
             }
             Err(m) => eprintln!("testbench: not written: {m}"),

@@ -82,9 +82,10 @@ impl CostModel {
     }
 
     /// Read a cost model file.
-    pub fn read(path: &str) -> Result<CostModel, InputError> {
+    pub fn read(path: impl AsRef<std::path::Path>) -> Result<CostModel, InputError> {
+        let path = path.as_ref();
         let text = crate::front::read_text(path)?;
-        CostModel::parse(&Arc::from(path), &text)
+        CostModel::parse(&Arc::from(path.display().to_string()), &text)
     }
 
     /// Parse a cost model from JSON text; `file` names it in messages. All errors are

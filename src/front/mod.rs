@@ -7,7 +7,7 @@ pub mod verilog;
 
 use crate::design::{Design, Format};
 use crate::diag::{Diagnostic, InputError, SourcePos};
-use std::path::Path;
+use std::path::{Path, PathBuf};
 use std::sync::Arc;
 
 /// Why reading gave no design.
@@ -26,8 +26,8 @@ impl From<InputError> for ReadError {
 }
 
 /// Guess the format from a file name: `.bench` is bench, `.v`/`.vh`/`.sv` is Verilog.
-pub fn format_from_name(path: &str) -> Option<Format> {
-    let ext = Path::new(path).extension()?.to_str()?.to_ascii_lowercase();
+pub fn format_from_name(path: impl AsRef<Path>) -> Option<Format> {
+    let ext = path.as_ref().extension()?.to_str()?.to_ascii_lowercase();
     match ext.as_str() {
         "bench" | "bch" => Some(Format::Bench),
         "v" | "vh" | "verilog" | "sv" | "svh" => Some(Format::Verilog),
@@ -38,7 +38,7 @@ pub fn format_from_name(path: &str) -> Option<Format> {
 /// Read a file as text, with clear errors for missing, unreadable and binary files, folders,
 /// and endless sources: a pipe or device is read in pieces and given up at its first NUL
 /// byte, so `/dev/zero` is an error at once rather than a full memory.
-pub fn read_text(path: &str) -> Result<String, InputError> {
+pub fn read_text(path: impl AsRef<Path>) -> Result<String, InputError> {
     read_text_until(path, &|| false).map_err(|e| match e {
         ReadError::Input(e) => e,
         ReadError::Stopped(_) => unreachable!("no stop condition"),
@@ -46,10 +46,16 @@ pub fn read_text(path: &str) -> Result<String, InputError> {
 }
 
 /// [`read_text`], looking at `stop` after every mebibyte.
-pub fn read_text_until(path: &str, stop: &dyn Fn() -> bool) -> Result<String, ReadError> {
+pub fn read_text_until(
+    path: impl AsRef<Path>,
+    stop: &dyn Fn() -> bool,
+) -> Result<String, ReadError> {
     use std::io::Read;
+    let path = path.as_ref();
+    // The name as shown in messages and diagnostics (lossy when it is not UTF-8).
+    let name = path.display().to_string();
     let fail =
-        |what: String, help: &str| InputError::plain(format!("cannot read `{path}`: {what}"), help);
+        |what: String, help: &str| InputError::plain(format!("cannot read `{name}`: {what}"), help);
     let io_fail = |e: std::io::Error| {
         let what = match e.kind() {
             std::io::ErrorKind::NotFound => "no such file".to_string(),
@@ -90,10 +96,10 @@ pub fn read_text_until(path: &str, stop: &dyn Fn() -> bool) -> Result<String, Re
             break;
         }
         if stop() {
-            return Err(ReadError::Stopped(path.to_string()));
+            return Err(ReadError::Stopped(name));
         }
     }
-    Ok(decode_text(path, bytes)?)
+    Ok(decode_text(&name, bytes)?)
 }
 
 /// Check that `bytes` are text (UTF-8 without NUL bytes) and return them as a string.
@@ -135,8 +141,9 @@ fn line_col(prefix: &[u8]) -> (u32, u32) {
 /// Which files make one design and how to read them.
 #[derive(Clone, Debug, Default)]
 pub struct Source {
-    /// The files, in order (several Verilog files may form one design).
-    pub paths: Vec<String>,
+    /// The files, in order (several Verilog files may form one design); their names need
+    /// not be UTF-8 (messages show them lossily).
+    pub paths: Vec<PathBuf>,
     /// The format; `None` guesses from the first file's name.
     pub format: Option<Format>,
     /// The top module (Verilog only).
@@ -165,7 +172,10 @@ pub fn load_until(src: &Source, stop: &dyn Fn() -> bool) -> Result<Design, ReadE
         match src.format.or_else(|| format_from_name(first)) {
             Some(f) => f,
             None => return Err(InputError::plain(
-                format!("cannot tell the format of `{first}` from its name"),
+                format!(
+                    "cannot tell the format of `{}` from its name",
+                    first.display()
+                ),
                 "use a `.bench` or `.v` file name, or say `--format bench` or `--format verilog`",
             )
             .into()),
@@ -174,20 +184,23 @@ pub fn load_until(src: &Source, stop: &dyn Fn() -> bool) -> Result<Design, ReadE
         // One bench file: the reader takes the text and drops it early.
         let text = read_text_until(first, stop)?;
         if stop() {
-            return Err(ReadError::Stopped(first.clone()));
+            return Err(ReadError::Stopped(first.display().to_string()));
         }
-        return bench::read_bench_text(&Arc::from(first.as_str()), text, stop);
+        return bench::read_bench_text(&Arc::from(first.display().to_string()), text, stop);
     }
     let mut texts = Vec::with_capacity(src.paths.len());
     for p in &src.paths {
-        texts.push((Arc::<str>::from(p.as_str()), read_text_until(p, stop)?));
+        texts.push((
+            Arc::<str>::from(p.display().to_string()),
+            read_text_until(p, stop)?,
+        ));
     }
     if stop() {
-        return Err(ReadError::Stopped(first.clone()));
+        return Err(ReadError::Stopped(first.display().to_string()));
     }
     let d = load_texts_until(format, &texts, src.top.as_deref(), &src.preprocess, stop)?;
     if stop() {
-        return Err(ReadError::Stopped(first.clone()));
+        return Err(ReadError::Stopped(first.display().to_string()));
     }
     Ok(d)
 }

@@ -22,3 +22,12 @@ pub fn equicone_in(dir: &Path, args: &[&str]) -> Output {
 pub fn code(o: &Output) -> i32 {
     o.status.code().expect("exit code")
 }
+
+/// Run the executable with arguments that need not be UTF-8 (file names) in `dir`.
+pub fn equicone_os<S: AsRef<std::ffi::OsStr>>(dir: &Path, args: &[S]) -> Output {
+    Command::new(env!("CARGO_BIN_EXE_equicone"))
+        .args(args)
+        .current_dir(dir)
+        .output()
+        .expect("the binary runs")
+}

@@ -7,6 +7,7 @@ use super::common::{
 use super::Exit;
 use crate::cone::{self, AuditOptions, SupportOptions};
 use crate::cost::{self, CostModel};
+use crate::design::Design;
 use crate::diag::InputError;
 use crate::sat::Limits;
 use clap::Args;
@@ -98,7 +99,7 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
     }
     if d.is_clocked() {
         eprintln!(
-            "warning: {} has {} register bits: the audit covers the logic of one clock cycle, with register outputs read as inputs; the section `across clock cycles` follows inputs through the registers",
+            "warning: {} has {} register bits: the audit covers the logic of one clock cycle, with register outputs read as inputs; the section `across clock cycles` follows inputs through the registers (an input that reaches an output only that way, a clock or a reset, is not flagged unused)",
             d.name,
             d.registers.len()
         );
@@ -126,6 +127,11 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
     if let Some(stamp) = &mut rep.shard {
         stamp_run(stamp, a);
     }
+    // Clocked designs: the cone across cycles too.
+    let across = d.is_clocked().then(|| crate::seq::cycle_cones(&d));
+    if let Some(c) = &across {
+        keep_used_across_cycles(&mut rep, &d, c);
+    }
     if let Some(path) = &a.dot {
         let which = match outputs.as_slice() {
             [one] => Some(d.outputs[*one].name.clone()),
@@ -142,8 +148,6 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
             eprintln!("wrote {} (cone of {name})", path.display());
         }
     }
-    // Clocked designs: the cone across cycles too.
-    let across = d.is_clocked().then(|| crate::seq::cycle_cones(&d));
     let json = match &across {
         None => rep.to_json() + "\n",
         Some(c) => {
@@ -190,6 +194,28 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
     } else {
         Exit::Ok
     }
+}
+
+/// A clocked design's one-cycle audit reads register outputs as inputs, so an input or a
+/// register that reaches an output only through registers, and the clocks and resets, look
+/// unused there: drop those `unused input` flags (the section across clock cycles lists them
+/// with their latency; registers that reach no output are listed as dead). An input that
+/// reaches no output through any number of cycles stays flagged.
+fn keep_used_across_cycles(rep: &mut cone::AuditReport, d: &Design, c: &crate::seq::CycleCones) {
+    use std::collections::BTreeSet;
+    let mut used: BTreeSet<String> = c
+        .outputs
+        .iter()
+        .flat_map(|o| o.inputs.keys().chain(o.registers.keys()).cloned())
+        .collect();
+    for r in &d.registers {
+        used.extend(r.clock.clone());
+        if let Some(x) = &r.reset {
+            used.insert(d.inputs[x.input].name.clone());
+        }
+    }
+    rep.flags
+        .retain(|f| !matches!(f, cone::Flag::UnusedInput { input, .. } if used.contains(input)));
 }
 
 /// Fill a partial audit's fingerprints: the input files' contents (designs and the --expect

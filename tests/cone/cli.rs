@@ -227,3 +227,26 @@ fn verilog_cones_come_from_the_expressions_as_written() {
         out(&o)
     );
 }
+
+/// A clocked design's audit covers one cycle with register outputs read as inputs; an input
+/// that reaches the output only through registers, the clock, the reset and a register on the
+/// way are not `unused`; a pin that reaches nothing through any number of cycles is.
+#[test]
+fn clocked_inputs_used_through_registers_are_not_flagged_unused() {
+    let d = folder(&[(
+        "shift.v",
+        "module det(input clk, input rst_n, input din, input spare, output reg hit);\n  reg [1:0] st;\n  always @(posedge clk or negedge rst_n)\n    if (!rst_n) st <= 0; else st <= {st[0], din};\n  always @(*) hit = st[1];\nendmodule\n",
+    )]);
+    let o = equicone(d.path(), &["cone", "shift.v", "--json"]);
+    assert_eq!(o.status.code(), Some(1), "{}", err(&o));
+    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    let unused: Vec<&str> = v["flags"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .filter(|f| f["flag"] == "unused_input")
+        .map(|f| f["input"].as_str().unwrap())
+        .collect();
+    assert_eq!(unused, ["spare"], "{}", out(&o));
+    assert_eq!(v["across_cycles"]["outputs"][0]["inputs"]["din"], 2);
+}

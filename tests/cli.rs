@@ -769,6 +769,34 @@ mod unknowns_as_dont_cares {
         let o = equicone(&["prove", s, t, "--strict-unknowns"]);
         assert_eq!(code(&o), 1, "{}", stdout(&o));
         assert!(stdout(&o).contains("is a free input"), "{}", stdout(&o));
+        // A wrong candidate: its counterexample does not print the reference's unknown,
+        // which decides none of the differing outputs (each is compared where the reference
+        // is defined); the JSON keeps it for replay.
+        let bad = tmp("dc_bad.v");
+        std::fs::write(
+            &bad,
+            "module m(input [1:0] s, input a, b, c, output y);\n  assign y = s[1] ? c : (s[0] ? a : b);\nendmodule\n",
+        )
+        .unwrap();
+        let b = bad.to_str().unwrap();
+        let o = equicone(&["prove", s, b]);
+        assert_eq!(code(&o), 1, "{}", stdout(&o));
+        assert!(stdout(&o).contains("counterexample 1"), "{}", stdout(&o));
+        let text = stdout(&o);
+        let cex = text
+            .split("counterexample 1")
+            .nth(1)
+            .and_then(|t| t.split("differing outputs").next())
+            .unwrap();
+        assert!(!cex.contains("x@"), "{text}");
+        let o = equicone(&["prove", s, b, "--json"]);
+        let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+        let unknown_kept = v["counterexamples"][0]["inputs"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .any(|i| i["unknown"] == true);
+        assert!(unknown_kept, "{v}");
         let o = equicone(&["prove", s, s, "--strict-unknowns", "--json"]);
         assert_eq!(code(&o), 1);
         let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();

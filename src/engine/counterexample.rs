@@ -33,6 +33,9 @@ pub fn confirm(
     let mut defined = crate::engine::dont_care::eval_ternary(r, &rv, &dc_roots).into_iter();
     let mut differing = Vec::new();
     let mut hit = false;
+    // Whether every differing pair is read where the reference is defined (its unknowns then
+    // decide none of them).
+    let mut all_dont_care = true;
     for (p, &(ri, ci)) in shared.pairs.iter().enumerate() {
         let rvalue = match shared.dont_care.get(p) {
             Some(true) => defined.next().flatten(),
@@ -40,6 +43,7 @@ pub fn confirm(
         };
         if let Some(rvalue) = rvalue.filter(|&v| v != co[ci]) {
             hit |= p == must_differ;
+            all_dont_care &= shared.dont_care.get(p) == Some(&true);
             differing.push(OutputDiff {
                 reference: r.outputs[ri].name.clone(),
                 candidate: c.outputs[ci].name.clone(),
@@ -78,6 +82,7 @@ pub fn confirm(
                 side,
                 unknown: bit.is_unknown(),
                 value: values[k],
+                moot: all_dont_care && bit.is_unknown() && side == Side::Reference,
             }
         })
         .collect();

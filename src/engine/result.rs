@@ -220,6 +220,11 @@ pub struct InputValue {
     pub unknown: bool,
     /// The value.
     pub value: bool,
+    /// An unknown of the reference that decides none of the differing outputs (each one is
+    /// compared only where the reference is defined, which does not read the unknowns): kept
+    /// in the JSON for replay, left out of the text.
+    #[serde(skip)]
+    pub moot: bool,
 }
 
 /// One output pair's values under a counterexample.

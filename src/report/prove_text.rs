@@ -199,7 +199,7 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
             let own: Vec<(&str, bool)> = c
                 .inputs
                 .iter()
-                .filter(|i| i.side == side)
+                .filter(|i| i.side == side && !i.moot)
                 .map(|i| (i.name.as_str(), i.value))
                 .collect();
             if !own.is_empty() {

@@ -878,3 +878,35 @@ mod after_a_difference {
         );
     }
 }
+
+/// Registers without a reset start at free values: renamed ones (no shared name) may start
+/// apart, which gives a trace that differs in cycle 0; the report says why and what to do.
+mod free_initial_values {
+    use super::*;
+
+    #[test]
+    fn a_trace_from_differing_power_up_values_says_so() {
+        let r = tmp("sr_ref.v");
+        std::fs::write(
+            &r,
+            "module sr(input clk, input d, output q);\n  reg [3:0] r;\n  always @(posedge clk) r <= {r[2:0], d};\n  assign q = r[3];\nendmodule\n",
+        )
+        .unwrap();
+        let c = tmp("sr_cand.v");
+        std::fs::write(
+            &c,
+            "module sr(input clk, input d, output q);\n  reg a, b, e, g;\n  always @(posedge clk) begin a <= d; b <= a; e <= b; g <= e; end\n  assign q = g;\nendmodule\n",
+        )
+        .unwrap();
+        let o = equicone(&["prove", r.to_str().unwrap(), c.to_str().unwrap()]);
+        assert_eq!(code(&o), 1, "{}", stdout(&o));
+        assert!(
+            stdout(&o).contains("only same-named registers share one value"),
+            "{}",
+            stdout(&o)
+        );
+        // The same design against itself: the same names share their free values.
+        let o = equicone(&["prove", r.to_str().unwrap(), r.to_str().unwrap()]);
+        assert_eq!(code(&o), 0, "{}", stdout(&o));
+    }
+}

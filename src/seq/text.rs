@@ -209,6 +209,14 @@ impl fmt::Display for SeqReport {
                     .map(|i| format!("{} {}={}", i.side.word(), i.register, i.value as u8))
                     .collect();
                 writeln!(f, "  initial values: {}", v.join(", "))?;
+                let sides: std::collections::BTreeSet<&str> =
+                    t.reset.initial.iter().map(|i| i.side.word()).collect();
+                if sides.len() > 1 {
+                    writeln!(
+                        f,
+                        "  (registers without a reset start at free values, so the two designs may power up differently, as here; only same-named registers share one value: if both always power up alike, give their registers the same names)"
+                    )?;
+                }
             }
             f.write_str(&trace_table(t, &self.trace_outputs))?;
         } else if !self.open_under_cut.is_empty() {

@@ -95,6 +95,30 @@ pub fn bit_name(port: &str, index: Option<i64>) -> String {
     }
 }
 
+/// `N'h...` of bits given most significant first, digits grouped by four with `_` (the form
+/// counterexamples and trace tables print beside wide buses).
+pub fn hex_text(bits: &[bool]) -> String {
+    let n = bits.len();
+    let digits: Vec<char> = (0..n.div_ceil(4))
+        .rev()
+        .map(|d| {
+            // Digit d covers bits 4d..4d+3 counted from the least significant end.
+            let v = (0..4)
+                .filter(|&j| 4 * d + j < n && bits[n - 1 - (4 * d + j)])
+                .fold(0u32, |acc, j| acc | 1 << j);
+            char::from_digit(v, 16).expect("a hexadecimal digit")
+        })
+        .collect();
+    let mut s = format!("{n}'h");
+    for (i, c) in digits.iter().enumerate() {
+        if i > 0 && (digits.len() - i).is_multiple_of(4) {
+            s.push('_');
+        }
+        s.push(*c);
+    }
+    s
+}
+
 /// Split a bit name `d[12]` into (`d`, 12); anything else is a scalar.
 pub fn split_bit(name: &str) -> (&str, Option<i64>) {
     if let Some(open) = name.rfind('[') {

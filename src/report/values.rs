@@ -106,7 +106,7 @@ impl Group {
                     }
                     s.push(if *b { '1' } else { '0' });
                 }
-                let hex = (bits.len() > 16).then(|| hex(bits));
+                let hex = (bits.len() > 16).then(|| crate::design::hex_text(bits));
                 if bits.len() <= 64 {
                     let v = bits.iter().fold(0u64, |acc, &b| (acc << 1) | b as u64);
                     match hex {
@@ -120,29 +120,6 @@ impl Group {
             }
         }
     }
-}
-
-/// `N'h...` of bits given most significant first, digits grouped by four with `_`.
-fn hex(bits: &[bool]) -> String {
-    let n = bits.len();
-    let digits: Vec<char> = (0..n.div_ceil(4))
-        .rev()
-        .map(|d| {
-            // Digit d covers bits 4d..4d+3 counted from the least significant end.
-            let v = (0..4)
-                .filter(|&j| 4 * d + j < n && bits[n - 1 - (4 * d + j)])
-                .fold(0u32, |acc, j| acc | 1 << j);
-            char::from_digit(v, 16).expect("a hexadecimal digit")
-        })
-        .collect();
-    let mut s = format!("{n}'h");
-    for (i, c) in digits.iter().enumerate() {
-        if i > 0 && (digits.len() - i).is_multiple_of(4) {
-            s.push('_');
-        }
-        s.push(*c);
-    }
-    s
 }
 
 /// Render groups as lines of at most `width` characters, each starting with `indent`.

@@ -73,7 +73,7 @@ pub fn trace_table(t: &Trace, outputs: &[Vec<(bool, bool)>]) -> String {
                 // Wide buses as the combinational counterexamples print them: `N'h...`.
                 let msb_first: Vec<bool> =
                     bits.iter().rev().map(|&(_, k)| c.inputs[k].value).collect();
-                row.push(hex(&msb_first));
+                row.push(crate::design::hex_text(&msb_first));
             } else {
                 let v = bits
                     .iter()
@@ -257,27 +257,4 @@ impl fmt::Display for SeqReport {
         }
         writeln!(f, "verdict: {}", self.verdict)
     }
-}
-
-/// `N'h...` of bits given most significant first, digits grouped by four with `_` (the form of
-/// `report::values`, which reads this module's types and so cannot be imported here).
-fn hex(bits: &[bool]) -> String {
-    let n = bits.len();
-    let digits: Vec<char> = (0..n.div_ceil(4))
-        .rev()
-        .map(|d| {
-            let v = (0..4)
-                .filter(|&j| 4 * d + j < n && bits[n - 1 - (4 * d + j)])
-                .fold(0u32, |acc, j| acc | 1 << j);
-            char::from_digit(v, 16).unwrap_or('0')
-        })
-        .collect();
-    let mut s = format!("{n}'h");
-    for (i, c) in digits.iter().enumerate() {
-        if i > 0 && (digits.len() - i).is_multiple_of(4) {
-            s.push('_');
-        }
-        s.push(*c);
-    }
-    s
 }

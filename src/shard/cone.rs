@@ -112,22 +112,7 @@ pub fn merge_cone(parts: &[(String, Value)]) -> Result<Value, InputError> {
     for &i in &order {
         let (f, v) = &parts[i];
         let s = &stamps[i];
-        let list = v
-            .get("outputs")
-            .and_then(Value::as_array)
-            .cloned()
-            .unwrap_or_default();
-        if list.len() != s.items.len() {
-            return Err(err(
-                f,
-                format!(
-                    "lists {} outputs but its stamp names {}",
-                    list.len(),
-                    s.items.len()
-                ),
-                "give the files as written",
-            ));
-        }
+        let list = super::part_items(f, v, "outputs", s)?;
         let mut position: BTreeMap<String, usize> = BTreeMap::new();
         for (o, &g) in list.into_iter().zip(&s.items) {
             if g >= s0.total || outputs[g].is_some() {

@@ -106,6 +106,33 @@ fn err(file: &str, what: impl Into<String>, help: &str) -> InputError {
     InputError::plain(format!("{file}: {}", what.into()), help)
 }
 
+/// The list `key` (`pairs`, `outputs`) of partial report `v` from file `f`, which must hold as
+/// many entries as its stamp names items.
+pub(crate) fn part_items(
+    f: &str,
+    v: &Value,
+    key: &str,
+    stamp: &PartStamp,
+) -> Result<Vec<Value>, InputError> {
+    let list = v
+        .get(key)
+        .and_then(Value::as_array)
+        .cloned()
+        .unwrap_or_default();
+    if list.len() != stamp.items.len() {
+        return Err(err(
+            f,
+            format!(
+                "lists {} {key} but its stamp names {}",
+                list.len(),
+                stamp.items.len()
+            ),
+            "give the files as written",
+        ));
+    }
+    Ok(list)
+}
+
 /// A partial report's stamp as read back: which shard of how many, the whole run's item count
 /// (output pairs for `prove`, output bits for `cone`) and the whole run's indices of its items.
 pub(crate) struct PartStamp {
@@ -297,22 +324,7 @@ pub fn merge_prove(parts: &[(String, Value)]) -> Result<Value, InputError> {
     for &i in &order {
         let (f, v) = &parts[i];
         let s = &stamps[i];
-        let list = v
-            .get("pairs")
-            .and_then(Value::as_array)
-            .cloned()
-            .unwrap_or_default();
-        if list.len() != s.items.len() {
-            return Err(err(
-                f,
-                format!(
-                    "lists {} pairs but its stamp names {}",
-                    list.len(),
-                    s.items.len()
-                ),
-                "give the files as written",
-            ));
-        }
+        let list = part_items(f, v, "pairs", s)?;
         let offset = cexs.len();
         for (mut p, &g) in list.into_iter().zip(&s.items) {
             if g >= s0.total || pairs[g].is_some() {

@@ -9,6 +9,9 @@ use equicone::gen::{generate, Bug, GenFormat, GenSpec, Kind, Style};
 use equicone::{Design, Format, Lit};
 use std::sync::Arc;
 
+#[path = "algebra/squarer.rs"]
+mod squarer;
+
 fn design(spec: &GenSpec) -> Design {
     let text = generate(spec, GenFormat::Verilog).expect("generates").text;
     load_texts(Format::Verilog, &[(Arc::from("gen.v"), text)], None).expect("reads")

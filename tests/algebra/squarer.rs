@@ -66,7 +66,7 @@ fn wallace_squarers_with_a_prefix_final_adder_are_proved_by_algebra() {
         // The candidate squares (u128 arithmetic, outside the engine).
         let mask = (1u128 << (2 * n)) - 1;
         for a in operands(n) {
-            assert_eq!(square_of(&c, n, a), a * a & mask, "{n}x{n}: a = {a}");
+            assert_eq!(square_of(&c, n, a), (a * a) & mask, "{n}x{n}: a = {a}");
         }
         let rep = prove(&r, &c, &options(EngineKind::Algebra)).expect("prove runs");
         assert_eq!(
@@ -113,7 +113,7 @@ fn planted_bugs_in_wallace_squarers_are_found_and_resimulated() {
                 .value;
             v | (bit as u128) << i
         });
-        let want = a * a & ((1u128 << (2 * n)) - 1);
+        let want = (a * a) & ((1u128 << (2 * n)) - 1);
         assert_eq!(
             square_of(&r, n, a),
             want,

@@ -130,3 +130,70 @@ pub fn shared_dir() -> Option<PathBuf> {
     eprintln!("SKIPPED: {} not found", p.display());
     None
 }
+
+/// Check `src` (top module `top`, the last in the text) on every input value against Icarus
+/// Verilog (`generation`, e.g. `-g2012`): each output, as a number, must equal ours. `ins`
+/// and `outs` are the ports with their widths. Returns the number of vectors compared (0
+/// when iverilog is absent and not required).
+#[allow(dead_code)]
+pub fn exhaustive_against_icarus(
+    src: &str,
+    ins: &[(&str, u32)],
+    outs: &[(&str, u32)],
+    generation: &str,
+) -> usize {
+    let d = read(src);
+    if !iverilog_available() {
+        return 0;
+    }
+    let total: u32 = ins.iter().map(|p| p.1).sum();
+    let last = &src[src.rfind("module ").expect("a module")..];
+    let name = last.split(['(', ' ', ';']).nth(1).expect("a module name");
+    let mut tb = format!("module tb; reg [{}:0] vin_;\n", total - 1);
+    let mut conns = Vec::new();
+    let mut off = 0;
+    for (p, w) in ins {
+        conns.push(format!(".{p}(vin_[{}:{off}])", off + w - 1));
+        off += w;
+    }
+    for (p, w) in outs {
+        tb += &format!("wire [{}:0] {p};\n", w - 1);
+        conns.push(format!(".{p}({p})"));
+    }
+    tb += &format!(
+        "{name} u({});\ninitial begin vin_ = 0; repeat ({}) begin #1 $display(\"%0d{}\", vin_{}); vin_ = vin_ + 1; end end\nendmodule\n",
+        conns.join(", "),
+        1u64 << total,
+        " %0d".repeat(outs.len()),
+        outs.iter().map(|(s, _)| format!(", {s}")).collect::<String>()
+    );
+    let sim = run_iverilog_as(&format!("{src}\n{tb}"), "tb", generation);
+    let mut n = 0;
+    for line in sim.lines() {
+        let f: Vec<u128> = line
+            .split(' ')
+            .map(|x| {
+                x.parse()
+                    .unwrap_or_else(|_| panic!("{name}: Icarus gave `{line}`"))
+            })
+            .collect();
+        let mut ports = HashMap::new();
+        let mut off = 0;
+        for (p, w) in ins {
+            ports.insert(p.to_string(), (f[0] >> off) & ((1 << w) - 1));
+            off += w;
+        }
+        let bits = eval_ports(&d, &ports, &mut |_| false);
+        for (k, (p, w)) in outs.iter().enumerate() {
+            let ours = if *w == 1 && bits.contains_key(*p) {
+                u128::from(bits[*p])
+            } else {
+                (0..*w).fold(0, |v, j| v | u128::from(bits[&format!("{p}[{j}]")]) << j)
+            };
+            assert_eq!(ours, f[k + 1], "{name}: {p} for inputs {line}");
+        }
+        n += 1;
+    }
+    assert_eq!(n, 1usize << total, "{name}: vectors simulated");
+    n
+}

@@ -4,6 +4,7 @@ mod common;
 mod corpus;
 mod engine_checks;
 mod fixtures;
+mod functions;
 mod hierarchy;
 mod iverilog_diff;
 mod large;

@@ -264,7 +264,6 @@ endmodule
         "t.v:2:1: error: unsupported: `class`",
         "t.v:4:3: error: unsupported: `initial` block",
         "t.v:5:3: error: unsupported: task declaration",
-        "t.v:6:3: error: unsupported: function declaration",
         "t.v:7:3: error: unsupported: `always_latch`",
         "t.v:8:11: error: unsupported: `union`",
         "t.v:10:3: error: unsupported: `final`",

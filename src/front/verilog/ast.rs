@@ -140,7 +140,8 @@ pub enum Expr {
     Concat(Vec<Expr>, Pos),
     /// `{n{a, b}}`
     Repl(Box<Expr>, Vec<Expr>, Pos),
-    /// `$signed(e)` / `$unsigned(e)` / `$clog2(e)`.
+    /// `$signed(e)` / `$unsigned(e)` / `$clog2(e)` / `$bits(e)`, or a call of a function
+    /// declared in the design (a name without `$`).
     Call(Sym, Pos, Vec<Expr>),
 }
 
@@ -274,6 +275,9 @@ pub enum Stmt {
     Case(Box<CaseStmt>),
     /// `for (init; cond; step) body`
     For(Box<ForStmt>),
+    /// `return expr;` in a function (rewritten into an assignment to the function's name
+    /// when the function is parsed, see `parse_func.rs`).
+    Return(Expr, Pos),
     /// `;`
     Null,
 }
@@ -383,6 +387,25 @@ pub enum Item {
     GenFor(Box<GenFor>),
     /// Generate `if`: condition, then-items, else-items.
     GenIf(Box<(Expr, Vec<Item>, Vec<Item>)>),
+    /// `function ... endfunction`.
+    Function(Box<Function>),
+}
+
+/// A function declaration (IEEE 1364-2005 clause 10.4; the ANSI header and `return` of
+/// IEEE 1800-2017 clause 13.4, from memory).
+#[derive(Clone, Debug)]
+pub struct Function {
+    /// Its name (also the variable that holds the result).
+    pub name: Sym,
+    /// The result's type: `ty`, `signed` and `range` (no names).
+    pub ret: Decl,
+    /// Input and local variable declarations in order (inputs have `dir` set; their
+    /// order is the order of the arguments).
+    pub decls: Vec<Decl>,
+    /// The body, `return`s already rewritten into assignments to the name.
+    pub body: Stmt,
+    /// Where it is written.
+    pub pos: Pos,
 }
 
 /// A module.

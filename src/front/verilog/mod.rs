@@ -11,6 +11,7 @@ pub(crate) mod lexer;
 mod parse_clocked;
 mod parse_decl;
 mod parse_expr;
+mod parse_func;
 mod parse_gate;
 mod parse_gen;
 mod parse_package;

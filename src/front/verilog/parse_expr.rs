@@ -135,8 +135,19 @@ impl Parser<'_, '_> {
             Tok::Num(n) => Ok(Expr::Num(n, pos)),
             Tok::Ident(s) if !super::symbols::is_keyword(s) => {
                 if self.peek_p(Punct::LParen) {
-                    let n = self.names.name(s).to_string();
-                    return Err(self.unsupported(pos, format!("function call `{n}(...)`")));
+                    // A function call (IEEE 1364-2005 clause 10.4.2).
+                    self.bump();
+                    let mut args = Vec::new();
+                    if !self.eat_p(Punct::RParen) {
+                        loop {
+                            args.push(self.expr()?);
+                            if !self.eat_p(Punct::Comma) {
+                                break;
+                            }
+                        }
+                        self.expect_p(Punct::RParen, "`)` closing the function's arguments")?;
+                    }
+                    return Ok(Expr::Call(s, pos, args));
                 }
                 if let Some(e) = self.struct_member(s, pos)? {
                     return Ok(e);

@@ -29,6 +29,16 @@ impl Parser<'_, '_> {
         }
         let t = self.peek().clone();
         let pos = t.pos;
+        if let Tok::Ident(k) = t.tok {
+            if self.names.name(k) == "return" {
+                return self.return_stmt(pos);
+            }
+            if !super::symbols::is_keyword(k) && self.peek2().tok == Tok::Punct(Punct::LParen) {
+                // A task call `t(a, b);` (tasks are not read): the whole statement.
+                let n = self.names.name(k).to_string();
+                return Err(self.unsupported(pos, format!("task call `{n}(...)` (tasks are not read; write the logic as a function or in the block)")));
+            }
+        }
         match t.tok {
             Tok::Punct(Punct::Semi) => {
                 self.bump();
@@ -55,7 +65,19 @@ impl Parser<'_, '_> {
                             "declaration inside a block (declare it in the module)",
                         ));
                     }
-                    v.push(self.stmt()?);
+                    // After an error in one statement, skip that statement and go on
+                    // with the next (its error is recorded; no follow-on errors).
+                    let before = self.taken;
+                    match self.stmt() {
+                        Ok(s) => v.push(s),
+                        Err(_) if self.peek_kw(kw::END) && self.taken > before => {}
+                        Err(_) => {
+                            self.skip_statement();
+                            if self.taken == before {
+                                self.bump();
+                            }
+                        }
+                    }
                 }
                 Ok(Stmt::Block(v))
             }
@@ -146,6 +168,20 @@ impl Parser<'_, '_> {
                 Err(self.unexpected(pos, "a statement", &d))
             }
         }
+    }
+
+    /// `return expr;` (IEEE 1800-2017 clause 13.4.1, from memory), in a function only.
+    fn return_stmt(&mut self, pos: super::pos::Pos) -> PResult<Stmt> {
+        self.bump();
+        if !self.in_function {
+            return Err(self.unsupported(pos, "`return` outside a function"));
+        }
+        if self.peek_p(Punct::Semi) {
+            return Err(self.unsupported(pos, "`return` without a value"));
+        }
+        let e = self.expr()?;
+        self.expect_p(Punct::Semi, "`;` after the returned value")?;
+        Ok(Stmt::Return(e, pos))
     }
 
     /// An assignment target: a name, a select of a name, or a concatenation of targets.

@@ -34,6 +34,8 @@ pub struct Parser<'s, 'n> {
     pub(super) taken: u64,
     /// Inside the body of a clocked `always` block (non-blocking assignments allowed).
     pub(super) in_clocked: bool,
+    /// Inside the body of a function (`return` allowed).
+    pub(super) in_function: bool,
     /// Loop variables declared in `for` headers (`for (int i = 0; ...)`) of the item being
     /// read; declared in the module after it (see `item`).
     pub(super) loop_decls: Vec<(Sym, Pos)>,
@@ -59,6 +61,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             depth: 0,
             taken: 0,
             in_clocked: false,
+            in_function: false,
             loop_decls: Vec::new(),
             sv: Default::default(),
         }
@@ -621,6 +624,8 @@ impl<'s, 'n> Parser<'s, 'n> {
             let sensitivity = self.event_control()?;
             let body = self.always_body(&sensitivity)?;
             out.push(Item::Always(Box::new(Always { sensitivity, body }), pos));
+        } else if k == kw::FUNCTION {
+            self.function(out);
         } else if k == kw::GENERATE {
             self.bump();
             while !self.eat_kw(kw::ENDGENERATE) {
@@ -659,14 +664,12 @@ impl<'s, 'n> Parser<'s, 'n> {
             let n = self.names.name(k).to_string();
             let what = match n.as_str() {
                 "initial" => "`initial` block".to_string(),
-                "function" => "function declaration".to_string(),
                 "task" => "task declaration".to_string(),
                 "begin" => "`begin` block outside a generate loop or condition".to_string(),
                 _ => format!("`{n}`"),
             };
             self.unsupported(pos, what);
             let end = match n.as_str() {
-                "function" => Some(kw::ENDFUNCTION),
                 "task" => Some(kw::ENDTASK),
                 "specify" => Some(kw::ENDSPECIFY),
                 "case" | "casez" | "casex" => Some(kw::ENDCASE),

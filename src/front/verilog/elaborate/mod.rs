@@ -104,6 +104,8 @@ enum Symbol {
     Param(Box<(Value, i64, i64)>),
     /// A genvar: its value while a generate loop runs, `None` outside one.
     Genvar(Option<Box<Value>>),
+    /// A function: its index in `Elaborator::funcs`.
+    Func(u32),
 }
 
 /// A name scope: a module instance or a generate block.
@@ -168,6 +170,10 @@ pub struct Elaborator<'a> {
     clocked: stmt::Clocked,
     /// Each `===`/`!==`: where, and its operand bits (see `case_eq.rs`).
     case_eq: Vec<(Pos, &'static str, Vec<Lit>)>,
+    /// Functions declared, with the scope they are declared in (`expr/call.rs`).
+    funcs: Vec<(&'a super::ast::Function, u32)>,
+    /// The functions being called, innermost last (recursion is refused).
+    calls: Vec<u32>,
 }
 
 impl<'a> Elaborator<'a> {
@@ -196,6 +202,8 @@ impl<'a> Elaborator<'a> {
             coverage_memo: Default::default(),
             clocked: Default::default(),
             case_eq: Vec::new(),
+            funcs: Vec::new(),
+            calls: Vec::new(),
         }
     }
 
@@ -222,6 +230,8 @@ impl<'a> Elaborator<'a> {
             coverage_memo: self.coverage_memo,
             clocked: self.clocked,
             case_eq: self.case_eq,
+            funcs: Vec::new(),
+            calls: Vec::new(),
         }
     }
 

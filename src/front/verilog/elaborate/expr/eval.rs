@@ -108,6 +108,15 @@ impl Elaborator<'_> {
                 msb: 31,
                 lsb: 0,
             }),
+            Some(Symbol::Func(_)) => {
+                let nm = self.name(sym);
+                self.error(
+                    pos,
+                    format!("function `{nm}` is used without its arguments"),
+                    "call it with its arguments, e.g. `f(a, b)`",
+                );
+                None
+            }
             Some(Symbol::Genvar(None)) => {
                 let nm = self.name(sym);
                 self.error(
@@ -280,6 +289,10 @@ impl Elaborator<'_> {
             Expr::Call(f, pos, args) => {
                 let name = self.name(*f);
                 match name {
+                    _ if !name.starts_with('$') => match self.call_function(ctx, *f, *pos, args) {
+                        Some(v) => extend(v.bits, width, signed),
+                        None => vec![Lit::FALSE; width],
+                    },
                     "$signed" | "$unsigned" => {
                         let v = self.eval_self(ctx, &args[0]);
                         extend(v.bits, width, signed)

@@ -11,3 +11,4 @@ mod divide;
 mod eval;
 mod select;
 mod types;
+pub(super) use types::ExprType;

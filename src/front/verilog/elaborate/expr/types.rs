@@ -41,6 +41,10 @@ impl Elaborator<'_> {
                     width: 32,
                     signed: true,
                 },
+                Some(Symbol::Func(_)) => ExprType {
+                    width: 1,
+                    signed: false,
+                },
                 None => ExprType {
                     width: 1,
                     signed: false,
@@ -133,6 +137,7 @@ impl Elaborator<'_> {
             Expr::Call(f, _, args) => {
                 let name = self.name(*f);
                 match name {
+                    _ if !name.starts_with('$') => self.call_type(ctx.scope, *f),
                     "$signed" => ExprType {
                         width: self.expr_type_inner(ctx, &args[0]).width,
                         signed: true,

@@ -168,7 +168,7 @@ struct Merged<'m> {
 }
 
 impl<'a> Elaborator<'a> {
-    fn range_bounds(&mut self, scope: u32, r: &Range) -> Option<(i64, i64)> {
+    pub(crate) fn range_bounds(&mut self, scope: u32, r: &Range) -> Option<(i64, i64)> {
         let m = self.const_int(scope, &r.msb)?;
         let l = self.const_int(scope, &r.lsb)?;
         for (v, e) in [(m, &r.msb), (l, &r.lsb)] {
@@ -288,6 +288,7 @@ impl<'a> Elaborator<'a> {
             }
         }
         self.reserve(scope, nnets, ngates);
+        self.declare_functions(scope, items);
         // A: parameters and genvars, in order.
         let mut nth = 0;
         for it in items {

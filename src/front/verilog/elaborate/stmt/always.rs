@@ -72,7 +72,7 @@ impl Elaborator<'_> {
         }
     }
 
-    pub(super) fn exec(&mut self, scope: u32, st: &Stmt, env: &mut Env) {
+    pub(crate) fn exec(&mut self, scope: u32, st: &Stmt, env: &mut Env) {
         match st {
             Stmt::Null => {}
             Stmt::Block(v) => {
@@ -110,6 +110,7 @@ impl Elaborator<'_> {
             }
             Stmt::Case(c) => self.exec_case(scope, c, env),
             Stmt::For(f) => self.exec_for(scope, f, env),
+            Stmt::Return(..) => unreachable!("`return` is rewritten when a function is parsed"),
         }
     }
 

@@ -647,6 +647,7 @@ fn t_pos(s: &Stmt) -> Option<Pos> {
         Stmt::Block(v) => v.iter().find_map(t_pos),
         Stmt::Case(c) => Some(c.pos),
         Stmt::For(f) => Some(f.pos),
+        Stmt::Return(_, p) => Some(*p),
         Stmt::Null => None,
     }
 }

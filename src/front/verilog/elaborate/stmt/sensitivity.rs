@@ -72,6 +72,7 @@ impl Uses {
     fn stmt(&mut self, st: &Stmt) {
         match st {
             Stmt::Null => {}
+            Stmt::Return(e, _) => self.expr(e),
             Stmt::Block(v) => v.iter().for_each(|s| self.stmt(s)),
             Stmt::Assign(lhs, rhs, _) | Stmt::NonBlocking(lhs, rhs, _) => {
                 self.expr(rhs);

@@ -35,8 +35,8 @@ const OLD_STYLE: &str = "module f_old(input [3:0] a, input [3:0] b, input s, out
 endmodule";
 
 /// ANSI headers, `automatic`, `logic`, `for` loops over an `integer`, `case`, `return`
-/// (also early returns), signed results, and functions calling functions.
-const ANSI: &str = "module f_ansi(input logic [3:0] a, input logic [3:0] b, output logic [2:0] n, output logic [1:0] e, output logic [7:0] p, output logic signed [5:0] d, output logic q);
+/// (also early returns, and in a `unique case`), signed results, and functions calling functions.
+const ANSI: &str = "module f_ansi(input logic [3:0] a, input logic [3:0] b, output logic [2:0] n, output logic [1:0] e, output logic [7:0] p, output logic signed [5:0] d, output logic q, output logic [1:0] g);
   function automatic logic [2:0] ones(input logic [3:0] v);
     integer i;
     ones = 0;
@@ -59,6 +59,15 @@ const ANSI: &str = "module f_ansi(input logic [3:0] a, input logic [3:0] b, outp
   function bit par(input logic [3:0] v);
     return ^v;
   endfunction
+  function automatic logic [1:0] sel2(input logic [1:0] s, input logic [3:0] v);
+    unique case (s)
+      2'd0: return v[1:0];
+      2'd1: return v[3:2];
+      2'd2: return v[2:1];
+      2'd3: return ~v[1:0];
+    endcase
+  endfunction
+  assign g = sel2(a[1:0], b);
   assign n = ones(a);
   assign e = enc(a | b);
   assign p = mul(a, b);
@@ -79,7 +88,7 @@ fn functions_match_icarus_verilog_on_every_input() {
     exhaustive_against_icarus(
         ANSI,
         &[("a", 4), ("b", 4)],
-        &[("n", 3), ("e", 2), ("p", 8), ("d", 6), ("q", 1)],
+        &[("n", 3), ("e", 2), ("p", 8), ("d", 6), ("q", 1), ("g", 2)],
         "-g2012",
     );
 }

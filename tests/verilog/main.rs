@@ -8,6 +8,7 @@ mod functions;
 mod hierarchy;
 mod iverilog_diff;
 mod large;
+mod late_constructs;
 mod netlists;
 #[path = "../oracle/mod.rs"]
 mod oracle;

@@ -279,9 +279,15 @@ fn then(s: Stmt, rest: Vec<Stmt>, name: Sym, pos: Pos) -> Result<Stmt, Pos> {
             for (labels, st) in items {
                 c.items.push((labels, then(st, rest.clone(), name, pos)?));
             }
-            let d = c.default.take().unwrap_or(Stmt::Null);
-            c.default = Some(then(d, rest, name, pos)?);
+            c.default = match c.default.take() {
+                Some(d) => Some(then(d, rest, name, pos)?),
+                None if rest.is_empty() => None,
+                None => Some(seq(rest, name, pos)?),
+            };
             Stmt::Case(c)
+        }
+        Stmt::Qualified(q, p, inner) => {
+            Stmt::Qualified(q, p, Box::new(then(*inner, rest, name, pos)?))
         }
         Stmt::For(f) => return Err(first_return(&f.body).unwrap_or(f.pos)),
         other => other,
@@ -304,6 +310,7 @@ fn first_return(s: &Stmt) -> Option<Pos> {
             .find_map(|(_, s)| first_return(s))
             .or_else(|| c.default.as_ref().and_then(first_return)),
         Stmt::For(f) => first_return(&f.body),
+        Stmt::Qualified(_, _, inner) => first_return(inner),
         _ => None,
     }
 }

@@ -174,6 +174,8 @@ pub struct Elaborator<'a> {
     funcs: Vec<(&'a super::ast::Function, u32)>,
     /// The functions being called, innermost last (recursion is refused).
     calls: Vec<u32>,
+    /// `defparam`s waiting for the instance they name (`flatten/defparam.rs`).
+    defparams: Vec<flatten::PendingDefparam>,
 }
 
 impl<'a> Elaborator<'a> {
@@ -204,6 +206,7 @@ impl<'a> Elaborator<'a> {
             case_eq: Vec::new(),
             funcs: Vec::new(),
             calls: Vec::new(),
+            defparams: Vec::new(),
         }
     }
 
@@ -232,6 +235,7 @@ impl<'a> Elaborator<'a> {
             case_eq: self.case_eq,
             funcs: Vec::new(),
             calls: Vec::new(),
+            defparams: self.defparams,
         }
     }
 

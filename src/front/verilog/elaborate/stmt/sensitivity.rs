@@ -74,6 +74,7 @@ impl Uses {
             Stmt::Null => {}
             Stmt::Return(e, _) => self.expr(e),
             Stmt::Block(v) => v.iter().for_each(|s| self.stmt(s)),
+            Stmt::Qualified(_, _, inner) => self.stmt(inner),
             Stmt::Assign(lhs, rhs, _) | Stmt::NonBlocking(lhs, rhs, _) => {
                 self.expr(rhs);
                 self.target(lhs);

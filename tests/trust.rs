@@ -8,6 +8,8 @@ mod assume;
 mod bounded;
 #[path = "trust/common.rs"]
 mod common;
+#[path = "trust/costs.rs"]
+mod costs;
 #[path = "trust/display.rs"]
 mod display;
 #[cfg(unix)]

@@ -13,6 +13,7 @@ pub mod counterexample;
 pub mod dont_care;
 mod exhaustive;
 mod monolithic;
+pub mod pair_cost;
 pub mod pair_runs;
 pub mod pairing;
 mod pairs;
@@ -33,6 +34,7 @@ use crate::aig::{random_words, simulate_into, SimTable};
 use crate::design::Design;
 use crate::diag::InputError;
 use crate::sat::{Limits, StopReason};
+pub use pair_cost::PairCost;
 pub use pairing::{pair, PairBy, Shared};
 use pairs::PairQuery;
 use progress::Progress;
@@ -220,11 +222,13 @@ pub fn prove_shared(
         crate::host::now_note()
     );
     let progress = Progress::new(opts.progress, shared.pairs.len());
+    let sim_start = Instant::now();
     let patterns = if opts.engine == EngineKind::Plain {
         0
     } else {
         simulate_phase(&shared, r, c, opts, &mut outcomes, &mut cexs)?
     };
+    let sim_seconds = sim_start.elapsed().as_secs_f64();
     log::debug!(
         "simulation: {} patterns, {} pairs differ",
         patterns,
@@ -255,8 +259,11 @@ pub fn prove_shared(
         _ => None,
     };
     let limits = settled.as_ref().unwrap_or(&run_limits);
-    let run = run_engine(r, c, &shared, &queries, &open, opts, limits, &progress)?;
+    let mut run = run_engine(r, c, &shared, &queries, &open, opts, limits, &progress)?;
     progress.finish();
+    // Every pair was simulated: the simulation is work they all shared.
+    let everyone: Vec<usize> = (0..shared.pairs.len()).collect();
+    pair_cost::share(&mut run.costs, &everyone, sim_seconds, 0);
     apply_findings(run.findings, &shared, r, c, &mut outcomes, &mut cexs)?;
     // Pairs the shortened time left open say why, unless the run's own limit ran out as well.
     let cut_short = settled.is_some() && !run_limits.expired();
@@ -274,11 +281,13 @@ pub fn prove_shared(
         .pairs
         .iter()
         .zip(&outcomes)
-        .map(|(&(ri, ci), o)| PairResult {
+        .zip(&run.costs)
+        .map(|((&(ri, ci), o), &cost)| PairResult {
             reference: r.outputs[ri].name.clone(),
             candidate: c.outputs[ci].name.clone(),
             // A pair no engine reached was stopped by the clock.
             verdict: o.unwrap_or(PairVerdict::Undecided(StopReason::Timeout)),
+            cost,
         })
         .collect();
     let verdict = overall_verdict(&pairs);

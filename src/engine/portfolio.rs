@@ -13,6 +13,7 @@
 
 use super::bdd;
 use super::exhaustive;
+use super::pair_cost::PairCost;
 use super::parallel;
 pub(crate) use super::stage::{Context, StageOutput};
 pub use super::stage::{GroupRecord, Stage};
@@ -39,6 +40,8 @@ pub(crate) struct PortfolioOutput {
     pub groups: Vec<GroupRecord>,
     pub sat: SatStats,
     pub sweep: Option<SweepStats>,
+    /// What each pair cost, over every method that worked on it.
+    pub costs: Vec<PairCost>,
 }
 
 /// Run the methods of `stages` (entries of [`TABLE`], in table order) on the `open` pairs. Pairs
@@ -54,6 +57,7 @@ pub(crate) fn run(
         groups: Vec::new(),
         sat: SatStats::default(),
         sweep: None,
+        costs: vec![PairCost::default(); cx.pairs.len()],
     };
     let mut left: Vec<usize> = open.to_vec();
     let mut deferred: Vec<usize> = Vec::new();
@@ -75,6 +79,9 @@ pub(crate) fn run(
         }
         for (p, f) in so.findings {
             findings[p] = Some(f);
+        }
+        for (p, c) in so.costs {
+            out.costs[p].add(c);
         }
         out.groups.extend(so.groups);
         out.sat.add(&so.sat);
@@ -147,6 +154,9 @@ fn run_deferred(
     out.sat.add(&sub.sat);
     if let Some(w) = sub.sweep {
         out.sweep.get_or_insert_with(SweepStats::default).add(&w);
+    }
+    for (c, s) in out.costs.iter_mut().zip(&sub.costs) {
+        c.add(*s);
     }
     Ok(())
 }
@@ -267,11 +277,13 @@ fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, Strin
             ),
             Err(exhaustive::Declined::Timeout) => (0, "time limit".to_string()),
         };
+        let seconds = t.elapsed().as_secs_f64();
+        out.share_seconds(&members, seconds);
         out.groups.push(GroupRecord {
             method: Stage::Exhaustive,
             pairs: members,
             decided,
-            seconds: t.elapsed().as_secs_f64(),
+            seconds,
             note,
         });
     }
@@ -338,11 +350,13 @@ fn run_bdd(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
         ));
     }
     cx.progress.outputs_done(decided);
+    let seconds = t.elapsed().as_secs_f64();
+    out.share_seconds(open, seconds);
     out.groups.push(GroupRecord {
         method: Stage::Bdd,
         pairs: open.to_vec(),
         decided,
-        seconds: t.elapsed().as_secs_f64(),
+        seconds,
         note: format!(
             "{} BDD nodes{}",
             fig.nodes,
@@ -359,7 +373,7 @@ fn run_bdd(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
 /// SAT sweeping ([`parallel::sweep_groups`]) on every open pair; it decides or stops each.
 fn run_sweep(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
     let t = Instant::now();
-    let (f, sat, w) = parallel::sweep_groups(
+    let swept = parallel::sweep_groups(
         cx.aig,
         cx.pairs,
         cx.constraint,
@@ -371,12 +385,13 @@ fn run_sweep(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
         cx.progress,
     )?;
     let mut out = StageOutput {
-        sat,
-        sweep: Some(w),
+        sat: swept.sat,
+        sweep: Some(swept.sweep),
+        costs: open.iter().map(|&p| (p, swept.costs[p])).collect(),
         ..StageOutput::default()
     };
     let mut decided = 0;
-    for (p, f) in f.into_iter().enumerate() {
+    for (p, f) in swept.findings.into_iter().enumerate() {
         if let Some(f) = f {
             if !matches!(f, Finding::Stopped(_)) {
                 decided += 1;

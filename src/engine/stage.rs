@@ -2,6 +2,7 @@
 //! method is given ([`Context`]) and what it returns ([`StageOutput`], [`GroupRecord`]). Kept
 //! apart from the portfolio's table so that a method's file depends on this interface only.
 
+use super::pair_cost::PairCost;
 use super::pairs::PairQuery;
 use super::progress::Progress;
 use super::sweep::SweepStats;
@@ -82,4 +83,22 @@ pub(crate) struct StageOutput {
     /// above a difference already found): those get the later methods only within
     /// [`super::words::DEFERRED_SECONDS`], after the other pairs.
     pub deferred: Vec<usize>,
+    /// What the method spent on each pair it worked on (entries of one pair add up).
+    pub costs: Vec<(usize, PairCost)>,
+}
+
+impl StageOutput {
+    /// Share `seconds` of work on the group `members` evenly among them (no SAT conflicts).
+    pub fn share_seconds(&mut self, members: &[usize], seconds: f64) {
+        let each = seconds.max(0.0) / members.len().max(1) as f64;
+        self.costs.extend(members.iter().map(|&p| {
+            (
+                p,
+                PairCost {
+                    seconds: each,
+                    conflicts: 0,
+                },
+            )
+        }));
+    }
 }

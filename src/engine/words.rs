@@ -208,6 +208,8 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
             Some(Stop::Inconsistent) => note += "; a vector did not re-simulate, nothing claimed",
             None => {}
         }
+        let seconds = t.elapsed().as_secs_f64();
+        out.share_seconds(word, seconds);
         out.groups.push(GroupRecord {
             method: Stage::Algebra,
             pairs: {
@@ -216,7 +218,7 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
                 ps
             },
             decided,
-            seconds: t.elapsed().as_secs_f64(),
+            seconds,
             note,
         });
     }

@@ -109,11 +109,23 @@ impl PreprocArgs {
 }
 
 impl DesignArgs {
-    /// Read the design these options name, printing its errors on failure.
-    pub fn load(&self) -> Result<Design, Exit> {
+    /// Read the design these options name, shown as the phase `reading FILE` of `bar` (a
+    /// spinner from `crate::host::spinner`, hidden when no progress is drawn), which is
+    /// cleared before an error is printed.
+    pub fn load_showing(&self, bar: &indicatif::ProgressBar) -> Result<Design, Exit> {
+        bar.set_message(format!("reading {}", self.path.display()));
         let mut paths = vec![self.path.clone()];
         paths.extend(self.also.iter().cloned());
-        load(paths, self.format, self.top.clone(), &self.pre)
+        let src = Source {
+            paths,
+            format: self.format.map(Format::from),
+            top: self.top.clone(),
+            preprocess: self.pre.options(),
+        };
+        front::load(&src).map_err(|e| {
+            bar.finish_and_clear();
+            report_input_error(&e)
+        })
     }
 
     /// `d` (read from these options) read again as written, for the cone audit's structural

@@ -138,7 +138,9 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
             _ => rep.dot_default_output().map(str::to_string),
         };
         if let Some(name) = which {
-            let text = match cone::dot::dot(&d, &rep, &name) {
+            // The picture shows the cone the audit used: for RTL, the expressions as written.
+            let drawn = opts.structure.as_deref().unwrap_or(&d);
+            let text = match cone::dot::dot(drawn, &rep, &name) {
                 Ok(t) => t,
                 Err(e) => return report_input_error(&e),
             };

@@ -102,6 +102,7 @@ pub fn from_cells(
         netlist: Some(netlist),
         warnings: Vec::new(),
         registers: Vec::new(),
+        net_names: Default::default(),
     };
     d.debug_check();
     d

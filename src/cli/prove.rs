@@ -318,6 +318,8 @@ pub fn run(a: &ProveArgs) -> Exit {
         a.report.as_deref(),
         a.proof.as_deref(),
         proof_cnf.as_deref(),
+        a.replay.vcd.as_deref(),
+        a.replay.testbench.as_deref(),
     ]) {
         return e;
     }
@@ -402,10 +404,11 @@ pub fn run(a: &ProveArgs) -> Exit {
     rf.extend(a.pair.ref_also.iter().cloned());
     let mut cf = vec![a.pair.candidate.clone()];
     cf.extend(a.pair.cand_also.iter().cloned());
+    // A write that fails now still lets the verdict be printed (then its exit code 2).
     if let Err(code) =
         super::replay::write_files(&a.replay, &r, &c, (&rf, &cf), &out, a.limits.seed)
     {
-        return code;
+        failed = Some(code);
     }
     let json = report::to_json(&out);
     if let Some(path) = &a.report {

@@ -123,13 +123,6 @@ impl PortMap {
         }
     }
 
-    /// Read and parse the port map file at `path`.
-    pub fn read(path: impl AsRef<std::path::Path>) -> Result<PortMap, InputError> {
-        let path = path.as_ref();
-        let text = crate::front::read_text(path)?;
-        PortMap::parse(&Arc::from(path.display().to_string()), &text)
-    }
-
     /// Expand the entries against the port bits of two designs (a bus name stands for its
     /// bits from the least significant; a bit name for itself).
     pub fn resolve(&self, file: &str, r: &Design, c: &Design) -> Result<BitMap, InputError> {

@@ -4,6 +4,7 @@ use super::common::{
     check_writable, print, report_input_error, report_internal, report_stopped_reading, timeout_of,
     write_atomic, FormatArg, LimitArgs,
 };
+use super::files::FileSystem;
 use super::Exit;
 use crate::certify::{Certificate, NoCertificate, ProofFormat};
 use crate::check::{self, CheckError, CheckRequest, DiagnosisRequest};
@@ -129,8 +130,8 @@ impl PairArgs {
         let rs = source(rp, self.ref_format.or(self.format), self.ref_top.clone());
         let cs = source(cp, self.cand_format.or(self.format), self.cand_top.clone());
         let (r, c) = std::thread::scope(|s| {
-            let h = s.spawn(|| front::load_until(&rs, stop));
-            let c = front::load_until(&cs, stop);
+            let h = s.spawn(|| front::load_until(&rs, &FileSystem, stop));
+            let c = front::load_until(&cs, &FileSystem, stop);
             (h.join(), c)
         });
         let r = r.unwrap_or_else(|_| {
@@ -192,8 +193,10 @@ impl PairArgs {
         let Some(path) = &self.port_map else {
             return Ok(None);
         };
-        crate::portmap::PortMap::read(path)
-            .and_then(|m| m.resolve(&path.display().to_string(), r, c))
+        let name = path.display().to_string();
+        super::files::read_text(path)
+            .and_then(|text| crate::portmap::PortMap::parse(&name.as_str().into(), &text))
+            .and_then(|m| m.resolve(&name, r, c))
             .map(|m| Some(std::sync::Arc::new(m)))
             .map_err(|e| report_input_error(&e))
     }

@@ -1,0 +1,88 @@
+//! The tests' one random-circuit generator: gates of fan-in one to three over earlier
+//! signals, drawn from a seeded `StdRng` (the `rand` crate), kept as signal indices so that
+//! each test names, edits and prints them its own way. Signals `0..sources` are the
+//! circuit's sources (inputs, then registers for clocked circuits); gate `g` is signal
+//! `sources + g`.
+
+use rand::rngs::StdRng;
+use rand::Rng;
+
+/// The gate kinds drawn, with the bench file's names (NOT and BUFF read one signal).
+pub const KINDS: [&str; 8] = ["AND", "OR", "NAND", "NOR", "XOR", "XNOR", "NOT", "BUFF"];
+
+/// A random gate list over `sources` source signals.
+#[derive(Clone, Debug)]
+pub struct Gates {
+    /// Source signals (indices `0..sources`).
+    pub sources: usize,
+    /// (kind, fan-in signals) per gate; gate `g` reads only signals below `sources + g`.
+    pub gates: Vec<(&'static str, Vec<usize>)>,
+}
+
+impl Gates {
+    /// `count` gates, each of a kind drawn uniformly from [`KINDS`] (NOT and BUFF read one
+    /// signal, the others two or three), each fan-in drawn uniformly from the signals
+    /// before the gate.
+    pub fn random(rng: &mut StdRng, sources: usize, count: usize) -> Gates {
+        let mut gates = Vec::with_capacity(count);
+        for g in 0..count {
+            let kind = KINDS[rng.gen_range(0..KINDS.len())];
+            let arity = if is_unary(kind) {
+                1
+            } else {
+                rng.gen_range(2..=3)
+            };
+            let fanin = (0..arity).map(|_| rng.gen_range(0..sources + g)).collect();
+            gates.push((kind, fanin));
+        }
+        Gates { sources, gates }
+    }
+
+    /// Signals in all.
+    pub fn signals(&self) -> usize {
+        self.sources + self.gates.len()
+    }
+
+    /// Per signal, whether one of `roots` reads it through any path (the roots included).
+    pub fn live(&self, roots: &[usize]) -> Vec<bool> {
+        let mut live = vec![false; self.signals()];
+        for &r in roots {
+            live[r] = true;
+        }
+        for s in (self.sources..self.signals()).rev() {
+            if live[s] {
+                for &f in &self.gates[s - self.sources].1 {
+                    live[f] = true;
+                }
+            }
+        }
+        live
+    }
+
+    /// The bench line of gate `g` (`NAME = KIND(a, b)`), each signal named by `name`.
+    pub fn line(&self, g: usize, kind: &str, name: &dyn Fn(usize) -> String) -> String {
+        let args: Vec<String> = self.gates[g].1.iter().map(|&s| name(s)).collect();
+        format!("{} = {kind}({})", name(self.sources + g), args.join(", "))
+    }
+}
+
+/// Whether a kind reads one signal.
+pub fn is_unary(kind: &str) -> bool {
+    matches!(kind, "NOT" | "BUFF")
+}
+
+/// Another kind of the same arity whose function differs on some input (a planted bug):
+/// AND and NAND, OR and NOR, XOR and XNOR trade places with a neighbour, NOT and BUFF swap.
+pub fn mutated_kind(kind: &str) -> &'static str {
+    match kind {
+        "AND" => "OR",
+        "OR" => "AND",
+        "NAND" => "NOR",
+        "NOR" => "NAND",
+        "XOR" => "XNOR",
+        "XNOR" => "XOR",
+        "NOT" => "BUFF",
+        "BUFF" => "NOT",
+        k => panic!("no mutation for gate kind {k}"),
+    }
+}

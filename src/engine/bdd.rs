@@ -430,13 +430,8 @@ mod oracle {
     fn random_aig(seed: u64, inputs: usize, ands: usize) -> Aig {
         let mut g = Aig::new();
         let mut lits: Vec<Lit> = (0..inputs).map(|_| g.add_input()).collect();
-        let mut x = seed.wrapping_mul(0x9E37_79B9_7F4A_7C15) | 1;
-        let mut next = move || {
-            x ^= x << 13;
-            x ^= x >> 7;
-            x ^= x << 17;
-            x
-        };
+        let mut rng = crate::rng::SplitMix64::new(seed, 0);
+        let mut next = move || rng.next_u64();
         for _ in 0..ands {
             let a = lits[next() as usize % lits.len()].xor_complement(next() & 1 == 1);
             let b = lits[next() as usize % lits.len()].xor_complement(next() & 1 == 1);

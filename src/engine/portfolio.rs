@@ -19,7 +19,7 @@ pub use super::stage::{GroupRecord, Stage};
 use super::sweep::SweepStats;
 use super::words::DEFERRED_SECONDS;
 use super::{Finding, Method};
-use crate::aig::{Aig, Lit, Node};
+use crate::aig::{Aig, Lit, Marks, Node};
 use crate::sat::{SatStats, StopReason};
 use std::time::{Duration, Instant};
 
@@ -152,23 +152,14 @@ fn run_deferred(
 }
 
 /// Up to `cap + 1` input positions of the structural cone of `roots` (stops once past `cap`).
-fn small_support(
-    aig: &Aig,
-    roots: &[Lit],
-    cap: usize,
-    mark: &mut Vec<u32>,
-    stamp: u32,
-) -> Vec<u32> {
-    if mark.len() < aig.len() {
-        mark.resize(aig.len(), 0);
-    }
+fn small_support(aig: &Aig, roots: &[Lit], cap: usize, marks: &mut Marks) -> Vec<u32> {
+    marks.start(aig.len());
     let mut found = Vec::new();
     let mut stack: Vec<u32> = roots.iter().map(|r| r.node()).collect();
     while let Some(n) = stack.pop() {
-        if mark[n as usize] == stamp {
+        if !marks.mark(n as usize) {
             continue;
         }
-        mark[n as usize] = stamp;
         match aig.node(n) {
             Node::Const => {}
             Node::Input(k) => {
@@ -198,12 +189,8 @@ fn union(a: &[u32], b: &[u32]) -> Vec<u32> {
 /// constraint's) has at most [`exhaustive::MAX_INPUTS`] inputs.
 fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
     let cap = exhaustive::MAX_INPUTS;
-    let mut mark = Vec::new();
-    let mut stamp = 0u32;
-    let mut support = |roots: &[Lit]| {
-        stamp += 1;
-        small_support(cx.aig, roots, cap, &mut mark, stamp)
-    };
+    let mut marks = Marks::new();
+    let mut support = |roots: &[Lit]| small_support(cx.aig, roots, cap, &mut marks);
     let base = support(&[cx.constraint]);
     let mut groups: Vec<(Vec<usize>, Vec<u32>)> = Vec::new();
     for &p in open {
@@ -483,8 +470,8 @@ mod tests {
         let mut g = Aig::new();
         let ins: Vec<Lit> = (0..50).map(|_| g.add_input()).collect();
         let a = g.and_all(&ins);
-        let mut mark = Vec::new();
-        assert_eq!(small_support(&g, &[a], 10, &mut mark, 1).len(), 11);
-        assert_eq!(small_support(&g, &[a], 60, &mut mark, 2).len(), 50);
+        let mut marks = Marks::new();
+        assert_eq!(small_support(&g, &[a], 10, &mut marks).len(), 11);
+        assert_eq!(small_support(&g, &[a], 60, &mut marks).len(), 50);
     }
 }

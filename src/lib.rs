@@ -50,7 +50,7 @@ pub use engine::{
     prove, EngineKind, PairBy, PairVerdict, ProveOptions, ProveReport, Side, Verdict,
 };
 pub use front::bench::read_bench;
-pub use front::{load, load_texts, Files, MemoryFiles, Source};
 pub use front::verilog::read_verilog;
+pub use front::{load, load_texts, Files, MemoryFiles, Source};
 pub use gen::{generate, GenFormat, GenSpec, Kind, Style};
 pub use sat::Limits;

@@ -9,7 +9,7 @@
 //! count exactly the differing sequences.
 
 use super::common::run_iverilog;
-use super::oracle::random::{mutated_kind, Gates};
+use super::oracle::random::Gates;
 use super::seq_oracle::{self, SeqNet};
 use super::vcd_reader::{self, Dump};
 use super::vcommon::iverilog_available;
@@ -68,15 +68,7 @@ pub fn random_seq_bench(
         for (k, &g) in loads.iter().enumerate() {
             s += &format!("{} = DFF(g{g})\n", name(n + k));
         }
-        for (g, (kind, _)) in c.gates.iter().enumerate() {
-            let kind = if mutated == Some(g) {
-                mutated_kind(kind)
-            } else {
-                kind
-            };
-            s += &c.line(g, kind, &name);
-            s.push('\n');
-        }
+        s += &c.lines(mutated, &name);
         for (k, &p) in pick.iter().enumerate() {
             s += &format!("y{k} = BUFF(g{p})\n");
         }

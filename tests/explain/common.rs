@@ -1,7 +1,7 @@
 //! Helpers of the explain tests: proving a pair in-process with the shared graph kept, random
 //! bench pairs, and running Icarus Verilog on several files.
 
-use super::oracle::random::{mutated_kind, Gates};
+use super::oracle::random::Gates;
 use equicone::design::{Design, Format};
 use equicone::engine::{self, ProveOptions, ProveReport, Shared};
 use equicone::front;
@@ -76,15 +76,7 @@ pub fn random_bench(
         for k in 0..pick.len() {
             s += &format!("OUTPUT(y{k})\n");
         }
-        for (g, (kind, _)) in c.gates.iter().enumerate() {
-            let kind = if mutated == Some(g) {
-                mutated_kind(kind)
-            } else {
-                kind
-            };
-            s += &c.line(g, kind, &name);
-            s.push('\n');
-        }
+        s += &c.lines(mutated, &name);
         for (k, &p) in pick.iter().enumerate() {
             s += &format!("y{k} = BUF({})\n", name(p));
         }

@@ -59,10 +59,20 @@ impl Gates {
         live
     }
 
-    /// The bench line of gate `g` (`NAME = KIND(a, b)`), each signal named by `name`.
-    pub fn line(&self, g: usize, kind: &str, name: &dyn Fn(usize) -> String) -> String {
-        let args: Vec<String> = self.gates[g].1.iter().map(|&s| name(s)).collect();
-        format!("{} = {kind}({})", name(self.sources + g), args.join(", "))
+    /// The bench lines of the gates (`NAME = KIND(a, b)`, each signal named by `name`), gate
+    /// `mutated` (when given) with its kind changed by [`mutated_kind`].
+    pub fn lines(&self, mutated: Option<usize>, name: &dyn Fn(usize) -> String) -> String {
+        let mut s = String::new();
+        for (g, (kind, fanin)) in self.gates.iter().enumerate() {
+            let kind = if mutated == Some(g) {
+                mutated_kind(kind)
+            } else {
+                kind
+            };
+            let args: Vec<String> = fanin.iter().map(|&f| name(f)).collect();
+            s += &format!("{} = {kind}({})\n", name(self.sources + g), args.join(", "));
+        }
+        s
     }
 }
 

@@ -9,6 +9,8 @@
 mod common;
 #[path = "oracle/mod.rs"]
 mod oracle;
+#[path = "seq/portmap.rs"]
+mod portmap;
 #[path = "seq/oracle.rs"]
 mod seq_oracle;
 #[path = "seq/verilog.rs"]

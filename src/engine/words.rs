@@ -166,8 +166,7 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
             }
             let roots: Vec<Lit> = rl.iter().chain(&cl).copied().collect();
             let (ands, xors, paired) = xor_count(cx.aig, &roots);
-            if ands > MAX_CONE || xors * MIN_XOR_SHARE < ands || paired * MIN_PAIRED_SHARE < xors
-            {
+            if ands > MAX_CONE || xors * MIN_XOR_SHARE < ands || paired * MIN_PAIRED_SHARE < xors {
                 log::debug!(
                     "algebra: {}-bit word (first pair {}) skipped: {ands} AND nodes, {xors} XORs, {paired} with a carry partner",
                     word.len(),

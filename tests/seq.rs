@@ -464,6 +464,18 @@ fn cli_prove_gives_a_trace_that_eval_replays() {
     let text = String::from_utf8_lossy(&text.stdout);
     assert!(text.contains("<- first difference"), "{text}");
     assert!(text.contains("verdict: different"), "{text}");
+    // Every report says what its verdict covers (project rule: a proof covers the netlist as
+    // modeled, one clock cycle per step, not timing).
+    assert!(
+        text.lines().nth(1).is_some_and(
+            |l| l.starts_with("scope: ") && l.contains("one step per clock cycle from reset")
+        ),
+        "{text}"
+    );
+    assert!(
+        v["scope"].as_str().is_some_and(|s| s.contains("timing")),
+        "{v}"
+    );
     // eval steps each design through the trace: they part in cycle 9.
     let run = |design: &PathBuf, side: &str| {
         let o = std::process::Command::new(bin)

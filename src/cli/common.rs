@@ -14,7 +14,7 @@ use std::path::{Path, PathBuf};
 pub enum FormatArg {
     /// ISCAS bench format.
     Bench,
-    /// IEEE 1364 Verilog subset.
+    /// IEEE 1364 Verilog and the synthesizable SystemVerilog subset (docs/verilog.md).
     Verilog,
 }
 

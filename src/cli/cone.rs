@@ -7,7 +7,6 @@ use super::common::{
 use super::Exit;
 use crate::cone::{self, AuditOptions, SupportOptions};
 use crate::cost::{self, CostModel};
-use crate::design::Design;
 use crate::diag::InputError;
 use crate::sat::Limits;
 use clap::Args;
@@ -127,11 +126,6 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
     if let Some(stamp) = &mut rep.shard {
         stamp_run(stamp, a);
     }
-    // Clocked designs: the cone across cycles too.
-    let across = d.is_clocked().then(|| crate::seq::cycle_cones(&d));
-    if let Some(c) = &across {
-        keep_used_across_cycles(&mut rep, &d, c);
-    }
     if let Some(path) = &a.dot {
         let which = match outputs.as_slice() {
             [one] => Some(d.outputs[*one].name.clone()),
@@ -148,30 +142,15 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
             eprintln!("wrote {} (cone of {name})", path.display());
         }
     }
-    let json = match &across {
-        None => rep.to_json() + "\n",
-        Some(c) => {
-            // The audit's object with one more field, its own fields in their order.
-            let audit = rep.to_json();
-            let body = audit
-                .trim_end()
-                .strip_suffix('}')
-                .unwrap_or(&audit)
-                .trim_end();
-            let extra = serde_json::to_string_pretty(c)
-                .unwrap_or_default()
-                .replace('\n', "\n  ");
-            format!("{body},\n  \"across_cycles\": {extra}\n}}\n")
-        }
-    };
+    let json = rep.to_json() + "\n";
     if let Some(path) = &a.report {
         if let Err(e) = write_atomic(path, json.as_bytes()) {
             return report_input_error(&e);
         }
     }
-    print(&match (a.json, &rep.shard, &across) {
-        (true, _, _) => json,
-        (false, Some(s), _) => format!(
+    print(&match (a.json, &rep.shard) {
+        (true, _) => json,
+        (false, Some(s)) => format!(
             "shard {}/{}: audited {} of {} output bits ({} claims, {} flags, {} undecided); wrote {}\n",
             s.index,
             s.count,
@@ -184,8 +163,7 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
                 .as_deref()
                 .map_or("-".into(), |p| p.display().to_string())
         ),
-        (false, None, None) => rep.to_string(),
-        (false, None, Some(c)) => format!("{rep}{c}"),
+        (false, None) => rep.to_string(),
     });
     if rep.flagged() {
         Exit::Flagged
@@ -194,28 +172,6 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
     } else {
         Exit::Ok
     }
-}
-
-/// A clocked design's one-cycle audit reads register outputs as inputs, so an input or a
-/// register that reaches an output only through registers, and the clocks and resets, look
-/// unused there: drop those `unused input` flags (the section across clock cycles lists them
-/// with their latency; registers that reach no output are listed as dead). An input that
-/// reaches no output through any number of cycles stays flagged.
-fn keep_used_across_cycles(rep: &mut cone::AuditReport, d: &Design, c: &crate::seq::CycleCones) {
-    use std::collections::BTreeSet;
-    let mut used: BTreeSet<String> = c
-        .outputs
-        .iter()
-        .flat_map(|o| o.inputs.keys().chain(o.registers.keys()).cloned())
-        .collect();
-    for r in &d.registers {
-        used.extend(r.clock.clone());
-        if let Some(x) = &r.reset {
-            used.insert(d.inputs[x.input].name.clone());
-        }
-    }
-    rep.flags
-        .retain(|f| !matches!(f, cone::Flag::UnusedInput { input, .. } if used.contains(input)));
 }
 
 /// Fill a partial audit's fingerprints: the input files' contents (designs and the --expect

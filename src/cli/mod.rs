@@ -61,7 +61,7 @@ pub enum Command {
     Eval(eval::EvalArgs),
     /// Write the miter of REF and CAND as DIMACS CNF for an external solver.
     Cnf(prove::CnfArgs),
-    /// For each value of a select bus, show which data input each output follows (proved by SAT).
+    /// For each value of a select bus, show which data input each output follows (by constant folding or SAT).
     Routes(routes::RoutesArgs),
     /// Write a generated circuit (selectors, decoders, priority encoders, shifters, adders,
     /// multipliers, popcounts, majorities, comparators, dividers, square roots, arbiters, random

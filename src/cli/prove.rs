@@ -208,9 +208,8 @@ impl PairArgs {
 pub struct ProveArgs {
     #[command(flatten)]
     pair: PairArgs,
-    /// The proof engine: `sweep` (default) merges proved internal node pairs before the output
-    /// queries; `plain` is the single-call miter (baseline and fallback); `pairs` is
-    /// simulation plus one query per output pair.
+    /// The proof engine: `portfolio` (the default) chooses a method per output group; the
+    /// others run one method alone (baselines, and a second opinion).
     #[arg(long, value_enum, default_value_t = EngineArg::Portfolio)]
     engine: EngineArg,
     /// Worker threads for independent output cones (default: one per core). The verdicts do

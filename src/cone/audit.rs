@@ -89,6 +89,10 @@ pub fn select_outputs(design: &Design, names: &[String]) -> Result<Vec<usize>, I
 
 /// Audit the selected outputs of `design`: structural cone, exact support with evidence,
 /// flags. Limits leave claims undecided (see [`AuditReport::undecided`]), never guessed.
+/// On a clocked design (registers cut: their outputs read as inputs) the report also holds
+/// the structural cones across clock cycles of every output
+/// ([`AuditReport::across_cycles`]), and an input, register, clock or reset that reaches an
+/// output only through registers is not flagged unused.
 pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditReport {
     let all_outputs = opts.outputs.is_empty();
     let mut outputs: Vec<usize> = if all_outputs {
@@ -218,6 +222,12 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
             }
         }
     }
+    // A clocked design: the cones across cycles, which clear inputs used only through registers.
+    let across_cycles = (design.is_clocked() && shard.is_none()).then(|| {
+        let c = crate::seq::cycle_cones(design);
+        keep_used_across_cycles(&mut flags, design, &c);
+        c
+    });
     let inputs = design
         .inputs
         .iter()
@@ -251,7 +261,31 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
         stats,
         text_evidence: opts.text_evidence,
         shard,
+        across_cycles,
     }
+}
+
+/// A clocked design's one-cycle audit reads register outputs as inputs, so an input or a
+/// register that reaches an output only through registers, and the clocks and resets, look
+/// unused there: drop those `unused input` flags (the cones across cycles list them with their
+/// latency; registers that reach no output are listed as dead). An input that reaches no
+/// output through any number of cycles stays flagged.
+fn keep_used_across_cycles(flags: &mut Vec<Flag>, d: &Design, c: &crate::seq::CycleCones) {
+    use std::collections::BTreeSet;
+    let mut used: BTreeSet<&str> = c
+        .outputs
+        .iter()
+        .flat_map(|o| o.inputs.keys().chain(o.registers.keys()))
+        .map(String::as_str)
+        .collect();
+    for r in &d.registers {
+        used.extend(r.clock.as_deref());
+        if let Some(x) = &r.reset {
+            used.insert(d.inputs[x.input].name.as_str());
+        }
+    }
+    flags
+        .retain(|f| !matches!(f, Flag::UnusedInput { input, .. } if used.contains(input.as_str())));
 }
 
 /// Report order of the proofs of redundancy: SAT answers first, then structural ones.

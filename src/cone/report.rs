@@ -33,6 +33,10 @@ pub struct AuditReport {
     /// For a partial audit (`cone --shard K/N`): which output bits of the run it covers.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub shard: Option<crate::shard::cone::ConeStamp>,
+    /// For a clocked design (not a shard): the structural cones across clock cycles, which
+    /// also decide the `unused input` flags (see [`super::audit`]).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub across_cycles: Option<crate::seq::CycleCones>,
 }
 
 impl AuditReport {

@@ -75,7 +75,11 @@ impl fmt::Display for AuditReport {
         } else {
             "nothing flagged".to_string()
         };
-        writeln!(f, "result: {verdict}")
+        writeln!(f, "result: {verdict}")?;
+        match &self.across_cycles {
+            Some(c) => write!(f, "{c}"),
+            None => Ok(()),
+        }
     }
 }
 

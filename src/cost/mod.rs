@@ -47,7 +47,7 @@ pub fn stats_with(
             Some(written_stats(n, model, &mut notes))
         }
         Some(_) => {
-            notes.push("the front-end kept only part of the netlist, so gate counts, cost and delay as written are not shown (columns marked -); the AIG columns (ands, levels) are given instead".to_string());
+            notes.push("the design is written partly as expressions rather than gates, so gate counts, cost and delay as written are not shown (columns marked -); the AIG columns (ands, levels) are given instead".to_string());
             None
         }
         None => {

@@ -167,6 +167,8 @@ pub enum Scope {
     /// Zero-delay Boolean logic of the netlists as modeled.
     #[default]
     ZeroDelayLogic,
+    /// Zero-delay Boolean logic with one step per clock cycle, from reset.
+    ClockedFromReset,
 }
 
 impl Scope {
@@ -174,6 +176,7 @@ impl Scope {
     pub fn text(self) -> &'static str {
         match self {
             Scope::ZeroDelayLogic => SCOPE,
+            Scope::ClockedFromReset => CLOCKED_SCOPE,
         }
     }
 }
@@ -332,6 +335,9 @@ fn is_zero(n: &usize) -> bool {
 /// What a proof of combinational logic covers, for every report.
 const SCOPE: &str =
     "zero-delay Boolean logic of the netlists as modeled; timing, power and layout are not covered";
+
+/// What a proof of clocked logic covers.
+const CLOCKED_SCOPE: &str = "zero-delay Boolean logic of the netlists as modeled, one step per clock cycle from reset; timing, power and layout are not covered";
 
 impl ProveReport {
     /// Count of pairs with the given status.

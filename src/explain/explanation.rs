@@ -107,8 +107,14 @@ pub fn explain(
 
 /// The text form: per pair, how far the cover goes, then one line per term.
 pub fn explanation_text(e: &Explanation) -> String {
-    let mut s = String::from(
-        "difference cubes (input values under which the pair differs; inputs not shown are free)\n",
+    let any_joined = e.pairs.iter().any(|p| p.terms.len() < p.cubes.len());
+    let mut s = format!(
+        "difference cubes (input values under which the pair differs; inputs not shown are free{})\n",
+        if any_joined {
+            "; `x!=y` or `x==y` on a line stands for two cubes"
+        } else {
+            ""
+        }
     );
     for p in &e.pairs {
         let name = if p.reference == p.candidate {
@@ -131,9 +137,15 @@ pub fn explanation_text(e: &Explanation) -> String {
             (CoverEnd::Stopped(r), _) => format!("incomplete: {r}"),
         };
         let n = p.cubes.len();
+        // `x!=y` (or `x==y`) on one line stands for two cubes; say so when lines were joined.
+        let joined = if p.terms.len() < n {
+            format!(" in {} lines", p.terms.len())
+        } else {
+            String::new()
+        };
         let _ = writeln!(
             s,
-            "  {name}: {n} cube{}, {how}",
+            "  {name}: {n} cube{}{joined}, {how}",
             if n == 1 { "" } else { "s" }
         );
         for t in &p.terms {

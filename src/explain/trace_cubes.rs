@@ -257,9 +257,15 @@ fn term_line(term: &Term, at: &[(usize, usize)], t: &Trace) -> String {
 
 /// The text form: how far the cover goes, then one line per cube.
 pub fn trace_cubes_text(e: &TraceCubes) -> String {
+    let joined = e.terms.len() < e.cubes.len();
     let mut s = format!(
-        "difference cubes of the trace (inputs from reset under which the pair differs in cycle {}; inputs and cycles not shown are free; registers without a reset start as in the trace)\n",
-        e.cycle
+        "difference cubes of the trace (inputs from reset under which the pair differs in cycle {}; inputs and cycles not shown are free; registers without a reset start as in the trace{})\n",
+        e.cycle,
+        if joined {
+            "; `x!=y` or `x==y` on a line stands for two cubes"
+        } else {
+            ""
+        }
     );
     let name = if e.reference == e.candidate {
         e.reference.clone()
@@ -281,9 +287,14 @@ pub fn trace_cubes_text(e: &TraceCubes) -> String {
         (CoverEnd::Stopped(r), _) => format!("incomplete: {r}"),
     };
     let n = e.cubes.len();
+    let lines = if joined {
+        format!(" in {} lines", e.terms.len())
+    } else {
+        String::new()
+    };
     let _ = writeln!(
         s,
-        "  {name} in cycle {}: {n} cube{}, {how}",
+        "  {name} in cycle {}: {n} cube{}{lines}, {how}",
         e.cycle,
         if n == 1 { "" } else { "s" }
     );

@@ -106,6 +106,8 @@ pub struct SeqReport {
     pub refinements: usize,
     /// The output pairs.
     pub outputs: Vec<OutputLine>,
+    /// What the verdict covers.
+    pub scope: crate::engine::Scope,
     /// Output pairs not proved under the pairing (before the unrolling).
     pub open_under_cut: Vec<String>,
     /// Cycles from reset checked without a difference by the unrolling.
@@ -392,6 +394,7 @@ pub fn build(x: Parts<'_>) -> SeqReport {
         ),
         refinements: x.refinements,
         outputs,
+        scope: crate::engine::Scope::ClockedFromReset,
         open_under_cut: x
             .open_under_cut
             .iter()

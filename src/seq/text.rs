@@ -121,6 +121,7 @@ impl fmt::Display for SeqReport {
             "clocked check: reference {} ({} register bits), candidate {} ({} register bits)",
             self.reference, self.registers[0], self.candidate, self.registers[1]
         )?;
+        writeln!(f, "scope: {}", self.scope)?;
         if !self.held.is_empty() {
             let h: Vec<String> = self
                 .held

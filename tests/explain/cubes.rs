@@ -191,4 +191,26 @@ fn demo_bug_shows_the_swapped_channels_at_select_9_and_10() {
         demo.contains("sel=9, ch[72]!=ch[80]") && demo.contains("sel=10, ch[72]!=ch[80]"),
         "{demo}"
     );
+    // The printed cube count agrees with the lines shown: each `x!=y` line is two cubes
+    // (0 or 1 for the two inputs), and the header says so.
+    assert!(
+        demo.contains("`x!=y` or `x==y` on a line stands for two cubes"),
+        "{demo}"
+    );
+    let text = equicone::explain::explanation_text(&e);
+    for p in &e.pairs {
+        let two = p
+            .terms
+            .iter()
+            .filter(|t| t.contains("!=") || t.contains("=="))
+            .count();
+        assert_eq!(p.cubes.len(), p.terms.len() + two);
+        let head = format!(
+            "  {}: {} cubes in {} lines, complete",
+            p.reference,
+            p.cubes.len(),
+            p.terms.len()
+        );
+        assert!(text.contains(&head), "{head}\n{text}");
+    }
 }

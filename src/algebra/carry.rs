@@ -295,6 +295,26 @@ impl Scan<'_> {
         self.memo.clear();
     }
 
+    /// Bit k continuing the chain after all, with position k - 1 taken as a column of one bit
+    /// (generate FALSE): its propagate may be an XOR whose operands' AND is in the graph without
+    /// being the column's generate (a tree's half- or full-adder sum left alone in its column,
+    /// as in the final rows of a Wallace squarer). Position k - 1 is restored when that does
+    /// not help either.
+    fn retry_without_generate(&mut self, k: u32, start: u32, bit: Lit) -> Option<Ext> {
+        let prev = self.pos[(k - 1) as usize]?;
+        if prev.g == Lit::FALSE {
+            return None;
+        }
+        self.undefine(k - 1);
+        self.define(k - 1, prev.p, Lit::FALSE);
+        let ext = self.extend(k, start, bit);
+        if ext.is_none() {
+            self.undefine(k - 1);
+            self.define(k - 1, prev.p, prev.g);
+        }
+        ext
+    }
+
     /// Bit k continuing the chain started at `start`: `Sum(carry, p)` when the bit is
     /// p ^ carry with carry = G(k-1, start), `Out(carry)` when the bit itself is that carry.
     fn extend(&mut self, k: u32, start: u32, bit: Lit) -> Option<Ext> {
@@ -433,6 +453,9 @@ pub fn functional_cuts(aig: &Aig, word: &[Lit]) -> Vec<FunctionalCut> {
                         s.define(start, first, g);
                     }
                 }
+            }
+            if ext.is_none() && k > start {
+                ext = s.retry_without_generate(k, start, bit);
             }
             let prev = s.pos[(k - 1) as usize].expect("chain position defined");
             match ext {

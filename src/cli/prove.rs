@@ -248,13 +248,14 @@ pub struct ProveArgs {
         allow_negative_numbers = true
     )]
     diagnosis_time: f64,
-    /// Once simulation proves an output pair different (the verdict is then settled), the other
-    /// open output pairs get at most this many more seconds; those still open are listed as
-    /// undecided. 0 stops at once.
+    /// Once an output pair is proved different (by simulation, or by a word polynomial's
+    /// remainder; the verdict is then settled), the output pairs still open get at most this
+    /// many more seconds, all together; those still open are listed as undecided. 0 stops at
+    /// once.
     #[arg(
         long,
         value_name = "SECONDS",
-        default_value_t = 10.0,
+        default_value_t = 2.0,
         allow_negative_numbers = true
     )]
     after_difference: f64,

@@ -147,8 +147,9 @@ pub fn write_trace_files(
             Ok(tb) => {
                 write_atomic(path, tb.text.as_bytes()).map_err(|e| report_input_error(&e))?;
                 eprintln!(
-                    "testbench: {path} ({} {what} cycles from reset); run: iverilog -g2005 -o tb.vvp {path}{}{} && vvp tb.vvp",
+                    "testbench: {path} ({} {what} cycles from reset); run: iverilog {} -o tb.vvp {path}{}{} && vvp tb.vvp",
                     t.cycles.len(),
+                    tb.generation,
                     if tb.compile_with.is_empty() { "" } else { " " },
                     tb.compile_with.join(" "),
                     path = path.display(),
@@ -217,8 +218,9 @@ pub fn write_files(
             Ok(tb) => {
                 write_atomic(path, tb.text.as_bytes()).map_err(|e| report_input_error(&e))?;
                 eprintln!(
-                    "testbench: {path} ({} {what}); run: iverilog -g2005 -o tb.vvp {path}{}{} && vvp tb.vvp",
+                    "testbench: {path} ({} {what}); run: iverilog {} -o tb.vvp {path}{}{} && vvp tb.vvp",
                     vectors.len(),
+                    tb.generation,
                     if tb.compile_with.is_empty() { "" } else { " " },
                     tb.compile_with.join(" "),
                     path = path.display(),

@@ -139,9 +139,11 @@ pub struct ProveOptions {
     /// Read an `x` of the reference strictly: the candidate must match it for every value it
     /// takes (false: where the reference output is `x` it is a don't-care).
     pub strict_unknowns: bool,
-    /// Once simulation has proved an output pair different (which settles the verdict), the
-    /// other open pairs get at most this much more time; those it leaves open are undecided
-    /// with [`StopReason::AfterDifference`]. `None`: decide every pair (within `timeout`).
+    /// Once a difference is found (by simulation before the engine, or by a method of the
+    /// portfolio, such as a word polynomial's remainder), which settles the verdict, the pairs
+    /// still open get at most this much more time, all together; those it leaves open are
+    /// undecided with [`StopReason::AfterDifference`]. `None`: decide every pair (within
+    /// `timeout`).
     pub after_difference: Option<Duration>,
     /// Renamed ports paired by a port map (`--port-map`), before pairing by name.
     pub port_map: Option<std::sync::Arc<crate::portmap::BitMap>>,
@@ -263,7 +265,23 @@ pub fn prove_shared(
         _ => None,
     };
     let limits = settled.as_ref().unwrap_or(&run_limits);
-    let run = run_engine(r, c, &shared, &queries, &open, opts, limits, &progress)?;
+    // Otherwise a difference the portfolio finds settles it (one rule: `--after-difference`).
+    let after_difference = if settled.is_some() {
+        None
+    } else {
+        opts.after_difference
+    };
+    let run = run_engine(
+        r,
+        c,
+        &shared,
+        &queries,
+        &open,
+        opts,
+        limits,
+        after_difference,
+        &progress,
+    )?;
     progress.finish();
     apply_findings(run.findings, &shared, r, c, &mut outcomes, &mut cexs)?;
     // Pairs the shortened time left open say why, unless the run's own limit ran out as well.

@@ -18,11 +18,10 @@ use super::parallel;
 pub(crate) use super::stage::{Context, Reduced, StageOutput};
 pub use super::stage::{GroupRecord, Stage};
 use super::sweep::SweepStats;
-use super::words::DEFERRED_SECONDS;
 use super::{Finding, Method};
 use crate::aig::{Aig, Lit, Node};
-use crate::sat::{SatStats, StopReason};
-use std::time::{Duration, Instant};
+use crate::sat::{Limits, SatStats, StopReason};
+use std::time::Instant;
 
 type Runner = fn(&Context<'_>, &[usize]) -> Result<StageOutput, String>;
 
@@ -44,7 +43,10 @@ pub(crate) struct PortfolioOutput {
 }
 
 /// Run the methods of `stages` (entries of [`TABLE`], in table order) on the `open` pairs. Pairs
-/// no method decided are stopped with `StopReason::EngineLimit` (or the timeout).
+/// no method decided are stopped with `StopReason::EngineLimit` (or the timeout). Once a method
+/// finds a difference, the methods after it (and the deferred pairs) run within
+/// [`Context::after_difference`]; pairs that time leaves open are stopped with
+/// `StopReason::AfterDifference`.
 pub(crate) fn run(
     cx: &Context<'_>,
     open: &[usize],
@@ -59,6 +61,8 @@ pub(crate) fn run(
     };
     let mut left: Vec<usize> = open.to_vec();
     let mut deferred: Vec<usize> = Vec::new();
+    // The shortened limits once a difference has settled the verdict.
+    let mut settled: Option<Limits> = None;
     let table: Vec<(Stage, Runner)> = TABLE
         .iter()
         .copied()
@@ -68,7 +72,11 @@ pub(crate) fn run(
         if left.is_empty() {
             break;
         }
-        let so = runner(cx, &left)?;
+        let stage_cx = Context {
+            limits: settled.as_ref().unwrap_or(cx.limits),
+            ..*cx
+        };
+        let so = runner(&stage_cx, &left)?;
         for g in &so.groups {
             log::debug!(
                 "portfolio: {} on {} output pair(s) (first {}): {} decided in {:.3} s; {}",
@@ -79,6 +87,22 @@ pub(crate) fn run(
                 g.seconds,
                 g.note
             );
+        }
+        if settled.is_none()
+            && so
+                .findings
+                .iter()
+                .any(|(_, f)| matches!(f, Finding::Differ(..)))
+        {
+            settled = cx.after_difference.map(|grace| {
+                let left = cx.limits.remaining().map_or(grace, |r| r.min(grace));
+                log::debug!(
+                    "portfolio: {} found a difference, which settles the verdict: the open pairs get {:.1} s more",
+                    stage.word(),
+                    left.as_secs_f64()
+                );
+                Limits::new(Some(left), cx.limits.conflicts_per_query)
+            });
         }
         for (p, f) in so.findings {
             findings[p] = Some(f);
@@ -98,6 +122,9 @@ pub(crate) fn run(
                 aig: &red.aig,
                 pairs: &red.pairs,
                 constraint: red.constraint,
+                limits: settled.as_ref().unwrap_or(cx.limits),
+                // Once settled, the limits are the shortened ones already.
+                after_difference: cx.after_difference.filter(|_| settled.is_none()),
                 ..*cx
             };
             let sub = run(&sub_cx, &left, &later)?;
@@ -113,11 +140,13 @@ pub(crate) fn run(
             break;
         }
     }
+    let limits = settled.as_ref().unwrap_or(cx.limits);
     deferred.retain(|&p| findings[p].is_none());
     if !deferred.is_empty() {
-        run_deferred(cx, &deferred, stages, &mut findings, &mut out)?;
+        let later_cx = Context { limits, ..*cx };
+        run_deferred(&later_cx, &deferred, stages, &mut findings, &mut out)?;
     }
-    let reason = if cx.limits.expired() {
+    let reason = if limits.expired() {
         StopReason::Timeout
     } else {
         StopReason::EngineLimit
@@ -125,14 +154,22 @@ pub(crate) fn run(
     for p in left {
         findings[p] = Some(Finding::Stopped(reason));
     }
+    // What the shortened time left open says so, unless the run's own deadline passed as well.
+    if settled.is_some() && !cx.limits.expired() {
+        for &p in open {
+            if findings[p] == Some(Finding::Stopped(StopReason::Timeout)) {
+                findings[p] = Some(Finding::Stopped(StopReason::AfterDifference));
+            }
+        }
+    }
     out.findings = findings;
     Ok(out)
 }
 
-/// The later methods of `stages` on the `deferred` pairs (bits above a difference found),
-/// within [`super::words::DEFERRED_SECONDS`] and the run's own deadline; their findings and records go into
-/// `findings` and `out`. A pair the share leaves open is stopped by the engine limit (by the
-/// timeout when the run's own deadline has passed; a conflict limit stays one).
+/// The later methods of `stages` on the `deferred` pairs (bits above a difference found), after
+/// every other pair, within `cx.limits` (the time a difference leaves, unless `--decide-all`);
+/// their findings and records go into `findings` and `out`. A pair left open is stopped by the
+/// engine limit (by the timeout when the deadline has passed; a conflict limit stays one).
 fn run_deferred(
     cx: &Context<'_>,
     deferred: &[usize],
@@ -145,11 +182,9 @@ fn run_deferred(
         .copied()
         .filter(|&s| s != Stage::Algebra)
         .collect();
-    let share = Duration::from_secs_f64(DEFERRED_SECONDS);
-    let share = cx.limits.remaining().map_or(share, |r| r.min(share));
-    let limits = crate::sat::Limits::new(Some(share), cx.limits.conflicts_per_query);
+    // The verdict is settled already: no second after-difference bound.
     let sub_cx = Context {
-        limits: &limits,
+        after_difference: None,
         ..*cx
     };
     let sub = run(&sub_cx, deferred, &later)?;
@@ -167,10 +202,7 @@ fn run_deferred(
         };
     }
     out.groups.extend(sub.groups.into_iter().map(|mut g| {
-        g.note = format!(
-            "bits above a found difference, within {DEFERRED_SECONDS} s: {}",
-            g.note
-        );
+        g.note = format!("bits above a found difference, tried last: {}", g.note);
         g
     }));
     out.sat.add(&sub.sat);
@@ -502,7 +534,6 @@ mod tests {
     use super::*;
     use crate::engine::pairs::PairQuery;
     use crate::engine::progress::Progress;
-    use crate::sat::Limits;
 
     fn cx<'a>(
         aig: &'a Aig,
@@ -522,6 +553,7 @@ mod tests {
             buses: &[],
             arithmetic_only: true,
             sweep_follows: true,
+            after_difference: None,
         }
     }
 

@@ -71,6 +71,11 @@ pub(crate) struct Context<'a> {
     /// The sweep is among the methods run (so that costly enumerations may try it first; not
     /// with `--engine exhaustive`, which runs the enumeration alone).
     pub sweep_follows: bool,
+    /// Once a method finds a difference (which settles the verdict), what is left of the run
+    /// gets at most this much more time (`--after-difference`). `None`: no such bound (with
+    /// `--decide-all`, or when simulation already settled the verdict and `limits` are the
+    /// shortened ones).
+    pub after_difference: Option<std::time::Duration>,
 }
 
 /// What a method returns: findings for the pairs it decided (or, for the last method, for
@@ -85,8 +90,8 @@ pub(crate) struct StageOutput {
     /// mapped into it): the later methods run on it instead.
     pub reduced: Option<Reduced>,
     /// Open pairs the method found hard for the ones after it (bits of an arithmetic word
-    /// above a difference already found): those get the later methods only within
-    /// [`super::words::DEFERRED_SECONDS`], after the other pairs.
+    /// above a difference already found): the later methods take them last, after the other
+    /// pairs, within the time a difference leaves ([`Context::after_difference`]).
     pub deferred: Vec<usize>,
 }
 

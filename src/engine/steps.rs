@@ -32,7 +32,9 @@ pub(super) struct EngineRun {
     pub portfolio: Option<Vec<GroupRecord>>,
 }
 
-/// Run the engine of `opts` on the `open` pairs of `queries`.
+/// Run the engine of `opts` on the `open` pairs of `queries`. `after_difference`: the time
+/// left to the run once the portfolio finds a difference (`None` when simulation already
+/// settled the verdict, so `limits` are the shortened ones, or with `--decide-all`).
 #[allow(clippy::too_many_arguments)]
 pub(super) fn run_engine(
     r: &Design,
@@ -42,6 +44,7 @@ pub(super) fn run_engine(
     open: &[usize],
     opts: &ProveOptions,
     limits: &Limits,
+    after_difference: Option<std::time::Duration>,
     progress: &Progress,
 ) -> Result<EngineRun, ProveError> {
     let mut sweep_stats = None;
@@ -100,6 +103,7 @@ pub(super) fn run_engine(
                 buses: &buses,
                 arithmetic_only: opts.engine != EngineKind::Algebra,
                 sweep_follows: stages.contains(&portfolio::Stage::Sweep),
+                after_difference,
             };
             let out = portfolio::run(&cx, open, stages).map_err(ProveError::Internal)?;
             sweep_stats = out.sweep;

@@ -53,12 +53,6 @@ pub const TERMS_BASE: usize = 20_000;
 pub const OTHER_TERMS: usize = 20_000;
 /// Seconds for such a word.
 pub const OTHER_SECONDS: f64 = 0.5;
-/// Seconds the methods after this one get, all together, for the bits of a word above a
-/// difference its remainder found (a carry chain away from it: rare under random patterns,
-/// as hard for SAT as the multiplier itself); they run after every other pair. Bits still
-/// open then are undecided (engine limit); the verdict is already `different`.
-pub const DEFERRED_SECONDS: f64 = 2.0;
-
 /// The term budget and the time cap of one word.
 fn word_budget(prepared: &Prepared<'_>, arithmetic_only: bool) -> (usize, Option<Duration>) {
     let scaled = TERMS_BASE + TERMS_PER_UNIT * prepared.units();
@@ -234,7 +228,7 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
             Some(Stop::Timeout) => note += "; stopped by the time limit",
             Some(Stop::AboveDifference(t)) => {
                 note += &format!(
-                    "; bits above the first difference (bit {t}) left to the other methods for {DEFERRED_SECONDS} s"
+                    "; bits above the first difference (bit {t}) left to the other methods, last"
                 )
             }
             Some(Stop::Inconsistent) => note += "; a vector did not re-simulate, nothing claimed",

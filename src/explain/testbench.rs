@@ -30,6 +30,23 @@ pub struct Testbench {
     pub text: String,
     /// The files to compile with it, besides the testbench itself.
     pub compile_with: Vec<String>,
+    /// The language flag for Icarus Verilog: `-g2012` when a design was read from a
+    /// SystemVerilog file (`.sv`, `.svh`), else `-g2005`.
+    pub generation: &'static str,
+}
+
+/// The Icarus Verilog language flag for designs read from these files (path, text).
+pub(super) fn generation(files: &[&(String, String)]) -> &'static str {
+    let sv = files.iter().any(|(p, _)| {
+        std::path::Path::new(p)
+            .extension()
+            .is_some_and(|e| e.eq_ignore_ascii_case("sv") || e.eq_ignore_ascii_case("svh"))
+    });
+    if sv {
+        "-g2012"
+    } else {
+        "-g2005"
+    }
 }
 
 /// How one side appears in the testbench.
@@ -151,6 +168,7 @@ pub fn testbench(
     }
     let mut s = String::new();
     let run: Vec<String> = rs.files.iter().chain(&cs.files).cloned().collect();
+    let gen = generation(&r.files.iter().chain(&c.files).collect::<Vec<_>>());
     let _ = writeln!(
         s,
         "// Self-checking testbench written by equicone: reference {} against candidate {}.",
@@ -158,7 +176,7 @@ pub fn testbench(
     );
     let _ = writeln!(
         s,
-        "// Run: iverilog -g2005 -o tb.vvp THIS_FILE{}{} && vvp tb.vvp",
+        "// Run: iverilog {gen} -o tb.vvp THIS_FILE{}{} && vvp tb.vvp",
         if run.is_empty() { "" } else { " " },
         run.join(" ")
     );
@@ -296,5 +314,23 @@ pub fn testbench(
     Ok(Testbench {
         text: s,
         compile_with: run,
+        generation: gen,
     })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::generation;
+
+    #[test]
+    fn systemverilog_files_ask_icarus_for_ieee_1800() {
+        // Icarus Verilog reads `typedef enum`, `always_ff` and `logic` only with -g2012 (its
+        // manual page lists the -g generations; common practice).
+        let f = |p: &str| (p.to_string(), String::new());
+        let (v, sv, svh) = (f("a/ref.v"), f("cand.SV"), f("defs.svh"));
+        assert_eq!(generation(&[&v]), "-g2005");
+        assert_eq!(generation(&[&v, &sv]), "-g2012");
+        assert_eq!(generation(&[&svh]), "-g2012");
+        assert_eq!(generation(&[]), "-g2005");
+    }
 }

@@ -6,7 +6,7 @@
 //! every output pair with `!==` before the clock edge (`cycle K: pass` or `cycle K: FAIL, N of
 //! P output pairs differ`), the clock edge; a summary line closes the run.
 
-use super::testbench::{side, TbDesign, Testbench};
+use super::testbench::{generation, side, TbDesign, Testbench};
 use super::verilog_out::{group_ports, ident, register_net, PortBits, CLOCK_PORT};
 use super::waves::scope_names;
 use crate::design::{Design, Format, InputKind};
@@ -133,6 +133,7 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
     }
     let mut s = String::new();
     let run: Vec<String> = rs.files.iter().chain(&cs.files).cloned().collect();
+    let gen = generation(&r.files.iter().chain(&c.files).collect::<Vec<_>>());
     let _ = writeln!(
         s,
         "// Self-checking testbench written by equicone: reference {} against candidate {}, a trace of {} clock cycles.",
@@ -142,7 +143,7 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
     );
     let _ = writeln!(
         s,
-        "// Run: iverilog -g2005 -o tb.vvp THIS_FILE{}{} && vvp tb.vvp",
+        "// Run: iverilog {gen} -o tb.vvp THIS_FILE{}{} && vvp tb.vvp",
         if run.is_empty() { "" } else { " " },
         run.join(" ")
     );
@@ -351,5 +352,6 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
     Ok(Testbench {
         text: s,
         compile_with: run,
+        generation: gen,
     })
 }

@@ -371,7 +371,7 @@ fn check_pair(seed: u64, engines: &[EngineKind], t: &mut Tally) {
 /// The differential campaign: `EQUICONE_CAMPAIGN_PAIRS` random pairs (default 10,000) of up to
 /// 16 inputs, half equivalent rewrites and half single-edit mutants, every pair proved by the
 /// `sweep`, `plain` and `portfolio` engines, every second by `exhaustive` and the others by
-/// `bdd` (and every fourth also by `pairs`), checked against exhaustive
+/// `bdd` or `bdd-sweep` (and every fourth also by `pairs`), checked against exhaustive
 /// simulation and batsat (`tests/oracle/`). Spread over the cores; the counts go to standard
 /// error (written directly, so the test harness does not hide them).
 #[test]
@@ -395,10 +395,10 @@ fn engines_agree_with_exhaustive_simulation_and_batsat() {
                         }
                         let mut engines =
                             vec![EngineKind::Sweep, EngineKind::Plain, EngineKind::Portfolio];
-                        engines.push(if seed.is_multiple_of(2) {
-                            EngineKind::Exhaustive
-                        } else {
-                            EngineKind::Bdd
+                        engines.push(match seed % 4 {
+                            0 | 2 => EngineKind::Exhaustive,
+                            1 => EngineKind::Bdd,
+                            _ => EngineKind::BddSweep,
                         });
                         if seed % 4 == 3 {
                             engines.push(EngineKind::Pairs);

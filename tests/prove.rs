@@ -23,7 +23,7 @@ fn engines() -> Vec<EngineKind> {
 fn partial(e: EngineKind) -> bool {
     matches!(
         e,
-        EngineKind::Exhaustive | EngineKind::Bdd | EngineKind::Algebra
+        EngineKind::Exhaustive | EngineKind::Bdd | EngineKind::BddSweep | EngineKind::Algebra
     )
 }
 

@@ -32,7 +32,8 @@ cli_enum! {
     /// The proof engine (`--engine`).
     EngineArg => EngineKind {
         /// The portfolio: exhaustive simulation for output groups with small supports, BDDs within
-        /// a node limit, then SAT sweeping for the rest (the method of each pair is reported).
+        /// a node limit, BDD sweeping with cut points, then SAT sweeping for the rest on the
+        /// merged graph (the method of each pair is reported).
         Portfolio,
         /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair
         /// the same literal or an XOR query; independent output cones on several threads.
@@ -46,6 +47,9 @@ cli_enum! {
         Exhaustive,
         /// BDDs alone (pairs past the node limit stay undecided).
         Bdd,
+        /// BDD sweeping alone: internal nodes with equal BDDs merged, cut points where a BDD
+        /// grows too large (pairs it cannot settle stay undecided).
+        BddSweep,
         /// Word polynomials alone, on output buses of at least 4 bits (other pairs, and bits past
         /// the term budget, stay undecided).
         Algebra,

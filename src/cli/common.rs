@@ -123,7 +123,7 @@ impl DesignArgs {
             top: self.top.clone(),
             preprocess: self.pre.options(),
         };
-        front::load(&src).map_err(|e| {
+        front::load(&src, &FileSystem).map_err(|e| {
             bar.finish_and_clear();
             report_input_error(&e)
         })

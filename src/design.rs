@@ -244,6 +244,11 @@ pub struct Design {
     pub warnings: Vec<Diagnostic>,
     /// Register bits (empty for combinational designs); see [`Register`].
     pub registers: Vec<Register>,
+    /// AND nodes of `aig` (by node index) named after the nets that carry them, in declaration
+    /// order, `~w` for a node that is net `w` inverted: kept by the Verilog reader when there
+    /// is no complete netlist as written (RTL), for pictures of the logic (`cone --dot`);
+    /// empty otherwise. The AIG itself holds no names.
+    pub net_names: std::collections::BTreeMap<u32, Vec<String>>,
 }
 
 /// The clock edge a register samples on.

@@ -4,8 +4,9 @@
 //! place to draw progress lines ([`set_progress_target`]); without them, as in tests, the
 //! figures are "not measured" and no progress is drawn.
 
-use indicatif::ProgressDrawTarget;
+use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
 use std::sync::OnceLock;
+use std::time::Duration;
 
 /// Resident memory of the process.
 #[derive(Copy, Clone, Debug, PartialEq, Eq)]
@@ -39,6 +40,35 @@ pub fn set_progress_target(target: ProgressTarget) {
 /// Where to draw a progress line now, if anywhere.
 pub(crate) fn progress_target() -> Option<ProgressDrawTarget> {
     PROGRESS.get().and_then(|target| target())
+}
+
+/// A bar of `len` steps counted in `unit` (`{msg} [====>   ] 12/40 unit`), drawn where the
+/// host draws progress when `enabled`; a hidden bar otherwise (its calls then cost nothing).
+pub(crate) fn counted_bar(enabled: bool, what: &str, unit: &str, len: u64) -> ProgressBar {
+    let Some(target) = enabled.then(progress_target).flatten() else {
+        return ProgressBar::hidden();
+    };
+    let bar = ProgressBar::with_draw_target(Some(len), target).with_message(what.to_string());
+    let template = format!("{{msg}} [{{bar:40}}] {{pos}}/{{len}} {unit} ({{eta}} left)");
+    match ProgressStyle::with_template(&template) {
+        Ok(style) => bar.with_style(style.progress_chars("=> ")),
+        Err(_) => bar,
+    }
+}
+
+/// A spinner with the time so far and `what` (a phase: `reading ...`, `writing ...`), drawn
+/// where the host draws progress when `enabled`; change the phase with `set_message` and
+/// remove it with `finish_and_clear`.
+pub(crate) fn spinner(enabled: bool, what: &str) -> ProgressBar {
+    let Some(target) = enabled.then(progress_target).flatten() else {
+        return ProgressBar::hidden();
+    };
+    let bar = ProgressBar::with_draw_target(None, target).with_message(what.to_string());
+    if let Ok(style) = ProgressStyle::with_template("{spinner} {elapsed} {msg}") {
+        bar.set_style(style);
+    }
+    bar.enable_steady_tick(Duration::from_millis(200));
+    bar
 }
 
 /// The process's memory now, when a probe is installed and the system reports it.

@@ -334,7 +334,7 @@ mod reports {
         ]);
         let strip = |s: String| {
             s.lines()
-                .filter(|l| !l.starts_with("figures"))
+                .filter(|l| !l.starts_with("figures") && !l.starts_with("slowest"))
                 .collect::<Vec<_>>()
                 .join("\n")
         };

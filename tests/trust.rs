@@ -8,11 +8,15 @@ mod assume;
 mod bounded;
 #[path = "trust/common.rs"]
 mod common;
+#[path = "trust/costs.rs"]
+mod costs;
 #[path = "trust/display.rs"]
 mod display;
 #[cfg(unix)]
 #[path = "trust/filenames.rs"]
 mod filenames;
+#[path = "oracle/mod.rs"]
+mod oracle;
 #[path = "trust/portmap.rs"]
 mod portmap;
 #[path = "trust/ranges.rs"]

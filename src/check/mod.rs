@@ -363,6 +363,7 @@ mod tests {
             reference: "y".into(),
             candidate: "y".into(),
             verdict: PairVerdict::Undecided(crate::sat::StopReason::Timeout),
+            cost: Default::default(),
         };
         let j = serde_json::to_value(&p).expect("json");
         assert_eq!(j["status"], "undecided");

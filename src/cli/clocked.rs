@@ -57,6 +57,7 @@ pub fn run(
         Err(CheckError::Internal(m)) => return report_internal(&m),
     };
     let mut cubes = None;
+    let mut failed = None;
     if let (Some(cl), Some(t)) = (replay.args.cube_limits(), &rep.trace) {
         let limits = Limits::new(req.options.timeout, req.options.conflict_limit);
         match trace_cubes(req.reference, req.candidate, t, &cl, &limits) {
@@ -73,7 +74,7 @@ pub fn run(
         settings.init_unset,
         replay.seed,
     ) {
-        return code;
+        failed = Some(code);
     }
     let text = match &cubes {
         None => serde_json::to_string_pretty(&rep).expect("report serializes") + "\n",
@@ -90,7 +91,7 @@ pub fn run(
     };
     if let Some(path) = report {
         if let Err(e) = write_atomic(path, text.as_bytes()) {
-            return report_input_error(&e);
+            failed = Some(report_input_error(&e));
         }
     }
     print(&if json {
@@ -101,6 +102,9 @@ pub fn run(
             Some(e) => rep.to_string() + &trace_cubes_text(e),
         }
     });
+    if let Some(code) = failed {
+        return code;
+    }
     match rep.verdict {
         "equivalent" => Exit::Ok,
         "different" => Exit::Flagged,

@@ -1,5 +1,6 @@
 //! Pieces shared by the commands: reading designs, printing errors, writing files atomically.
 
+use super::files::FileSystem;
 use super::Exit;
 use crate::design::{Design, Format};
 use crate::diag::InputError;
@@ -109,11 +110,23 @@ impl PreprocArgs {
 }
 
 impl DesignArgs {
-    /// Read the design these options name, printing its errors on failure.
-    pub fn load(&self) -> Result<Design, Exit> {
+    /// Read the design these options name, shown as the phase `reading FILE` of `bar` (a
+    /// spinner from `crate::host::spinner`, hidden when no progress is drawn), which is
+    /// cleared before an error is printed.
+    pub fn load_showing(&self, bar: &indicatif::ProgressBar) -> Result<Design, Exit> {
+        bar.set_message(format!("reading {}", self.path.display()));
         let mut paths = vec![self.path.clone()];
         paths.extend(self.also.iter().cloned());
-        load(paths, self.format, self.top.clone(), &self.pre)
+        let src = Source {
+            paths,
+            format: self.format.map(Format::from),
+            top: self.top.clone(),
+            preprocess: self.pre.options(),
+        };
+        front::load(&src, &FileSystem).map_err(|e| {
+            bar.finish_and_clear();
+            report_input_error(&e)
+        })
     }
 
     /// `d` (read from these options) read again as written, for the cone audit's structural
@@ -134,7 +147,7 @@ impl DesignArgs {
             top: self.top.clone(),
             preprocess,
         };
-        front::load(&src).ok()
+        front::load(&src, &FileSystem).ok()
     }
 
     /// Read the design under `limits`: when its deadline passes while reading, the run is
@@ -201,7 +214,7 @@ pub fn load(
         top,
         preprocess: pre.options(),
     };
-    front::load(&src).map_err(|e| report_input_error(&e))
+    front::load(&src, &FileSystem).map_err(|e| report_input_error(&e))
 }
 
 /// Read a design under `limits`, printing its errors on failure; when the deadline passes
@@ -219,7 +232,7 @@ pub fn load_within(
         top,
         preprocess: pre.options(),
     };
-    match front::load_until(&src, &|| limits.expired()) {
+    match front::load_until(&src, &FileSystem, &|| limits.expired()) {
         Ok(d) => Ok(d),
         Err(ReadError::Input(e)) => Err(report_input_error(&e)),
         Err(ReadError::Stopped(file)) => Err(report_stopped_reading(&file)),

@@ -63,10 +63,13 @@ struct EvalReport {
 
 /// Run `eval`.
 pub fn run(a: &EvalArgs) -> Exit {
-    let d = match a.design.load() {
+    // A phase line on a terminal (not with --json): reading can take a while on large designs.
+    let bar = crate::host::spinner(!a.json, "");
+    let d = match a.design.load_showing(&bar) {
         Ok(d) => d,
         Err(e) => return e,
     };
+    bar.finish_and_clear();
     if let Some(path) = &a.trace {
         let side = match a.side.unwrap_or(TraceSide::Reference) {
             TraceSide::Reference => crate::seq::Side::Reference,
@@ -346,7 +349,7 @@ fn resolve_vector(
 
 /// The bits of a vector file.
 fn read_vector(path: &std::path::Path) -> Result<Vec<VectorBit>, InputError> {
-    let text = crate::front::read_text(path)?;
+    let text = super::files::read_text(path)?;
     // The file's name in messages (lossy when it is not UTF-8).
     let path = path.display().to_string();
     let path = path.as_str();

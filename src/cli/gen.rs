@@ -132,14 +132,26 @@ pub fn run(a: &GenArgs) -> Exit {
         stages: a.stages,
         rename: a.rename.then_some((a.invert * 1000.0).round() as u32),
     };
-    let g = match gen::generate(&spec, format) {
+    // A phase line on a terminal: large circuits take a while to build and write.
+    let bar = crate::host::spinner(true, &format!("generating {}", kind.name()));
+    let g = gen::generate(&spec, format);
+    let g = match g {
         Ok(g) => g,
-        Err(e) => return report_input_error(&e.into()),
+        Err(e) => {
+            bar.finish_and_clear();
+            return report_input_error(&e.into());
+        }
     };
     match &a.output {
-        None => print(&g.text),
+        None => {
+            bar.finish_and_clear();
+            print(&g.text)
+        }
         Some(path) => {
-            if let Err(e) = write_atomic(path, g.text.as_bytes()) {
+            bar.set_message(format!("writing {}", path.display()));
+            let written = write_atomic(path, g.text.as_bytes());
+            bar.finish_and_clear();
+            if let Err(e) = written {
                 return report_input_error(&e);
             }
             eprintln!(

@@ -3,9 +3,9 @@
 //! write the whole report.
 
 use super::common::{print, report_input_error, write_atomic};
+use super::files::read_text;
 use super::Exit;
 use crate::diag::InputError;
-use crate::front::read_text;
 use clap::Args;
 use std::path::PathBuf;
 
@@ -26,22 +26,45 @@ pub struct MergeArgs {
 
 /// Run `merge`.
 pub fn run(a: &MergeArgs) -> Exit {
+    // A bar on a terminal (not with --json) while the parts are read; cleared before anything
+    // is printed.
+    let bar = crate::host::counted_bar(
+        !a.json,
+        "reading partial reports",
+        "files",
+        a.parts.len() as u64,
+    );
+    let parts = read_parts(a, &bar);
+    bar.finish_and_clear();
+    let parts = match parts {
+        Ok(p) => p,
+        Err(e) => return report_input_error(&e),
+    };
+    merge_parts(a, parts)
+}
+
+/// Read and parse every part, in the order given.
+fn read_parts(
+    a: &MergeArgs,
+    bar: &indicatif::ProgressBar,
+) -> Result<Vec<(String, serde_json::Value)>, InputError> {
     let mut parts = Vec::with_capacity(a.parts.len());
     for p in &a.parts {
-        let text = match read_text(p) {
-            Ok(t) => t,
-            Err(e) => return report_input_error(&e),
-        };
-        let v: serde_json::Value =
-            match serde_json::from_str(&text) {
-                Ok(v) => v,
-                Err(e) => return report_input_error(&InputError::plain(
-                    format!("{}:{}:{}: not JSON: {e}", p.display(), e.line(), e.column()),
-                    "give the JSON partial reports that `prove` or `cone --shard K/N --report FILE` wrote",
-                )),
-            };
+        let text = read_text(p)?;
+        let v: serde_json::Value = serde_json::from_str(&text).map_err(|e| {
+            InputError::plain(
+                format!("{}:{}:{}: not JSON: {e}", p.display(), e.line(), e.column()),
+                "give the JSON partial reports that `prove` or `cone --shard K/N --report FILE` wrote",
+            )
+        })?;
         parts.push((p.display().to_string(), v));
+        bar.inc(1);
     }
+    Ok(parts)
+}
+
+/// Merge the parts read, write and print the whole report.
+fn merge_parts(a: &MergeArgs, parts: Vec<(String, serde_json::Value)>) -> Exit {
     let cone = parts
         .first()
         .is_some_and(|(_, v)| crate::shard::cone::is_cone_report(v));

@@ -126,10 +126,8 @@ pub fn run(a: &RoutesArgs) -> Exit {
         Ok(o) => o,
         Err(e) => return report_input_error(&e),
     };
-    let tables: Vec<RouteTable> = outs
-        .iter()
-        .map(|&k| routes::route_table(&d, k, &select, &sel, constraint, &limits))
-        .collect();
+    let tables: Vec<RouteTable> =
+        routes::route_tables(&d, &outs, &select, &sel, constraint, &limits, !a.json);
     let undecided = tables
         .iter()
         .flat_map(|t| &t.routes)

@@ -63,7 +63,10 @@ pub fn dot(design: &Design, report: &AuditReport, output: &str) -> Result<String
                 "ellipse",
             ),
             Vertex::Undriven(n) => (format!("{} (undriven)", esc(n)), "plaintext"),
-            Vertex::And(n) => (format!("and n{n}"), "ellipse"),
+            Vertex::And(n) => match design.net_names.get(n) {
+                Some(names) => (format!("{}\\nand n{n}", esc(&names.join(", "))), "ellipse"),
+                None => (format!("and n{n}"), "ellipse"),
+            },
             Vertex::Const => ("0".to_string(), "plaintext"),
         };
         let style = if only_redundant {

@@ -23,7 +23,7 @@ mod text;
 pub use audit::{audit, select_outputs, AuditOptions};
 pub use bits::Bits;
 pub use compare::{compare_supports, compare_supports_many, SupportComparison};
-pub use expect::{parse_expect, read_expect, ExpectEntry, Expectation};
+pub use expect::{parse_expect, ExpectEntry, Expectation};
 pub use report::{AuditReport, ClaimReport, ClaimVerdict, Flag, InputSummary, OutputAudit};
 pub use structural::{Cone, GraphSource, StructuralGraph};
 pub use support::{
@@ -31,19 +31,10 @@ pub use support::{
     SupportStats,
 };
 
-use indicatif::{ProgressBar, ProgressStyle};
+use indicatif::ProgressBar;
 
-/// A progress bar where the host draws progress (`crate::host`) when `enabled`; a hidden one
-/// otherwise.
+/// A progress bar of claims where the host draws progress (`crate::host`) when `enabled`; a
+/// hidden one otherwise.
 pub(crate) fn progress_bar(enabled: bool, what: &str) -> ProgressBar {
-    let Some(target) = enabled.then(crate::host::progress_target).flatten() else {
-        return ProgressBar::hidden();
-    };
-    let mut bar = ProgressBar::with_draw_target(Some(0), target).with_message(what.to_string());
-    if let Ok(style) =
-        ProgressStyle::with_template("{msg} [{bar:40}] {pos}/{len} claims ({eta} left)")
-    {
-        bar = bar.with_style(style.progress_chars("=> "));
-    }
-    bar
+    crate::host::counted_bar(enabled, what, "claims", 0)
 }

@@ -8,11 +8,13 @@
 //! returns one [`Finding`] per output pair; this module owns everything after that.
 
 mod bdd;
+mod bdd_sweep;
 mod classes;
 pub mod counterexample;
 pub mod dont_care;
 mod exhaustive;
 mod monolithic;
+pub mod pair_cost;
 pub mod pair_runs;
 pub mod pairing;
 mod pairs;
@@ -33,6 +35,7 @@ use crate::aig::{random_words, simulate_into, SimTable};
 use crate::design::Design;
 use crate::diag::InputError;
 use crate::sat::{Limits, StopReason};
+pub use pair_cost::PairCost;
 pub use pairing::{pair, PairBy, Shared};
 use pairs::PairQuery;
 use progress::Progress;
@@ -48,8 +51,9 @@ pub use sweep::SweepStats;
 #[serde(rename_all = "lowercase")]
 pub enum EngineKind {
     /// The portfolio: word polynomials for output buses that look arithmetic, exhaustive
-    /// simulation for output groups with small supports, BDDs within a node limit, then SAT
-    /// sweeping for the rest (the method of each pair is reported).
+    /// simulation for output groups with small supports, BDDs within a node limit, BDD
+    /// sweeping with cut points, then SAT sweeping for the rest on the merged graph (the method
+    /// of each pair is reported).
     #[default]
     Portfolio,
     /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair
@@ -64,6 +68,10 @@ pub enum EngineKind {
     Exhaustive,
     /// BDDs alone (pairs past the node limit stay undecided).
     Bdd,
+    /// BDD sweeping alone: internal nodes with equal BDDs merged, cut points where a BDD grows
+    /// too large (pairs it cannot settle stay undecided).
+    #[serde(rename = "bdd-sweep")]
+    BddSweep,
     /// Word polynomials alone, on output buses of at least 4 bits (other pairs, and bits past
     /// the term budget, stay undecided).
     Algebra,
@@ -71,13 +79,14 @@ pub enum EngineKind {
 
 impl EngineKind {
     /// Every engine, in the order of the command line's list.
-    pub const ALL: [EngineKind; 7] = [
+    pub const ALL: [EngineKind; 8] = [
         EngineKind::Portfolio,
         EngineKind::Sweep,
         EngineKind::Plain,
         EngineKind::Pairs,
         EngineKind::Exhaustive,
         EngineKind::Bdd,
+        EngineKind::BddSweep,
         EngineKind::Algebra,
     ];
 
@@ -90,6 +99,7 @@ impl EngineKind {
             EngineKind::Portfolio => "portfolio",
             EngineKind::Exhaustive => "exhaustive",
             EngineKind::Bdd => "bdd",
+            EngineKind::BddSweep => "bdd-sweep",
             EngineKind::Algebra => "algebra",
         }
     }
@@ -222,11 +232,13 @@ pub fn prove_shared(
         crate::host::now_note()
     );
     let progress = Progress::new(opts.progress, shared.pairs.len());
+    let sim_start = Instant::now();
     let patterns = if opts.engine == EngineKind::Plain {
         0
     } else {
         simulate_phase(&shared, r, c, opts, &mut outcomes, &mut cexs)?
     };
+    let sim_seconds = sim_start.elapsed().as_secs_f64();
     log::debug!(
         "simulation: {} patterns, {} pairs differ",
         patterns,
@@ -263,7 +275,7 @@ pub fn prove_shared(
     } else {
         opts.after_difference
     };
-    let run = run_engine(
+    let mut run = run_engine(
         r,
         c,
         &shared,
@@ -275,6 +287,9 @@ pub fn prove_shared(
         &progress,
     )?;
     progress.finish();
+    // Every pair was simulated: the simulation is work they all shared.
+    let everyone: Vec<usize> = (0..shared.pairs.len()).collect();
+    pair_cost::share(&mut run.costs, &everyone, sim_seconds, 0);
     apply_findings(run.findings, &shared, r, c, &mut outcomes, &mut cexs)?;
     // Pairs the shortened time left open say why, unless the run's own limit ran out as well.
     let cut_short = settled.is_some() && !run_limits.expired();
@@ -292,11 +307,13 @@ pub fn prove_shared(
         .pairs
         .iter()
         .zip(&outcomes)
-        .map(|(&(ri, ci), o)| PairResult {
+        .zip(&run.costs)
+        .map(|((&(ri, ci), o), &cost)| PairResult {
             reference: r.outputs[ri].name.clone(),
             candidate: c.outputs[ci].name.clone(),
             // A pair no engine reached was stopped by the clock.
             verdict: o.unwrap_or(PairVerdict::Undecided(StopReason::Timeout)),
+            cost,
         })
         .collect();
     let verdict = overall_verdict(&pairs);

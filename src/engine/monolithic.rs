@@ -4,6 +4,7 @@
 //! until it is UNSAT or stopped. No simulation and no sweeping: the baseline the benchmark
 //! compares against, and a fallback.
 
+use super::pair_cost::{share, share_rest, PairCost};
 use super::pairs::{mark_separated, PairQuery};
 use super::progress::Progress;
 use super::{Finding, Method};
@@ -11,14 +12,18 @@ use crate::aig::{Aig, Lit};
 use crate::cnf::Tseitin;
 use crate::sat::{ClauseSink, Limits, Sat, SatResult, SatStats};
 
-/// Decide `pairs` of `aig` under `constraint` with monolithic miter queries.
+/// Decide `pairs` of `aig` under `constraint` with monolithic miter queries. Each call's time
+/// and conflicts are shared among the pairs it was asked about, the encoding among all that
+/// entered the miter.
 pub(crate) fn monolithic(
     aig: &Aig,
     pairs: &[PairQuery],
     constraint: Lit,
     limits: &Limits,
     progress: &Progress,
-) -> (Vec<Finding>, SatStats) {
+) -> (Vec<Finding>, SatStats, Vec<PairCost>) {
+    let started = std::time::Instant::now();
+    let mut costs = vec![PairCost::default(); pairs.len()];
     let mut findings: Vec<Option<Finding>> = pairs
         .iter()
         .map(|p| (p.reference == p.candidate).then_some(Finding::Equal(Method::Structure)))
@@ -54,7 +59,11 @@ pub(crate) fn monolithic(
         let mut big = vec![!act];
         big.extend(open.iter().filter_map(|&p| diff[p]));
         sat.clause(&big);
-        match sat.solve(&[act]) {
+        let (t, before) = (std::time::Instant::now(), sat.stats().conflicts);
+        let answer = sat.solve(&[act]);
+        let spent = sat.stats().conflicts - before;
+        share(&mut costs, &open, t.elapsed().as_secs_f64(), spent);
+        match answer {
             SatResult::Unsat => {
                 for &p in &open {
                     findings[p] = Some(Finding::Equal(Method::Sat));
@@ -83,8 +92,16 @@ pub(crate) fn monolithic(
         sat.clause(&[!act]);
     }
     let stats = sat.stats();
+    let entered: Vec<usize> = (0..pairs.len()).filter(|&p| diff[p].is_some()).collect();
+    share_rest(
+        &mut costs,
+        &entered,
+        started.elapsed().as_secs_f64(),
+        stats.conflicts,
+    );
     (
         findings.into_iter().map(|f| f.expect("decided")).collect(),
         stats,
+        costs,
     )
 }

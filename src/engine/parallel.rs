@@ -6,6 +6,7 @@
 //! **Invariant:** the groups, their seeds and every decision inside a group depend only on the
 //! designs and the options other than `--jobs`, so the results are identical for any `--jobs`.
 
+use super::pair_cost::{share_rest, PairCost};
 use super::pairs::PairQuery;
 use super::progress::Progress;
 use super::sweep::{sweep, Cone, SweepStats};
@@ -59,6 +60,15 @@ fn useful_threads(jobs: usize, groups: usize, cores: usize) -> usize {
     }
 }
 
+/// What [`sweep_groups`] found: findings and costs indexed like the pairs (`None` and zero
+/// for pairs not in `open`), the solvers' and the sweep's figures.
+pub(crate) struct Swept {
+    pub findings: Vec<Option<Finding>>,
+    pub sat: SatStats,
+    pub sweep: SweepStats,
+    pub costs: Vec<PairCost>,
+}
+
 /// Sweep every group on a pool of `jobs` threads (0: one per core). Findings are indexed like
 /// `pairs` (`None` for pairs not in `open`).
 #[allow(clippy::too_many_arguments)]
@@ -72,7 +82,7 @@ pub(crate) fn sweep_groups(
     jobs: usize,
     limits: &Limits,
     progress: &Progress,
-) -> Result<(Vec<Option<Finding>>, SatStats, SweepStats), String> {
+) -> Result<Swept, String> {
     let groups = groups(aig, pairs, open);
     log::debug!(
         "sweep: {} open output pairs in {} group(s)",
@@ -80,7 +90,7 @@ pub(crate) fn sweep_groups(
         groups.len()
     );
     let single = groups.len() == 1;
-    let run = |gi: usize, members: &Vec<usize>| {
+    let run_group = |gi: usize, members: &Vec<usize>| {
         let seed = seed ^ (gi as u64).wrapping_mul(0xD1B5_4A32_D192_ED03);
         let qs: Vec<PairQuery> = members.iter().map(|&p| pairs[p]).collect();
         if single {
@@ -114,6 +124,14 @@ pub(crate) fn sweep_groups(
         };
         sweep(&cone, limits, progress)
     };
+    let run = |gi: usize, members: &Vec<usize>| {
+        let t = std::time::Instant::now();
+        let (f, s, w, mut c) = run_group(gi, members);
+        // Copying the group's cone is the group's shared work too.
+        let all: Vec<usize> = (0..c.len()).collect();
+        share_rest(&mut c, &all, t.elapsed().as_secs_f64(), s.conflicts);
+        (f, s, w, c)
+    };
     let cores = std::thread::available_parallelism().map_or(1, |n| n.get());
     let threads = useful_threads(jobs, groups.len(), cores);
     if limits.expired() {
@@ -124,7 +142,12 @@ pub(crate) fn sweep_groups(
                     .then_some(Finding::Stopped(crate::sat::StopReason::Timeout))
             })
             .collect();
-        return Ok((f, SatStats::default(), SweepStats::default()));
+        return Ok(Swept {
+            findings: f,
+            sat: SatStats::default(),
+            sweep: SweepStats::default(),
+            costs: vec![PairCost::default(); pairs.len()],
+        });
     }
     let pool = rayon::ThreadPoolBuilder::new()
         .num_threads(threads)
@@ -140,14 +163,21 @@ pub(crate) fn sweep_groups(
     let mut findings: Vec<Option<Finding>> = (0..pairs.len()).map(|_| None).collect();
     let mut sat = SatStats::default();
     let mut st = SweepStats::default();
-    for (members, (fs, s, w)) in groups.iter().zip(results) {
-        for (&p, f) in members.iter().zip(fs) {
+    let mut costs = vec![PairCost::default(); pairs.len()];
+    for (members, (fs, s, w, c)) in groups.iter().zip(results) {
+        for ((&p, f), c) in members.iter().zip(fs).zip(c) {
             findings[p] = Some(f);
+            costs[p].add(c);
         }
         sat.add(&s);
         st.add(&w);
     }
-    Ok((findings, sat, st))
+    Ok(Swept {
+        findings,
+        sat,
+        sweep: st,
+        costs,
+    })
 }
 
 #[cfg(test)]

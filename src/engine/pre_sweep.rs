@@ -43,7 +43,7 @@ pub(crate) fn try_first(cx: &Context<'_>, pairs: &[usize], work: u64, out: &mut 
     let budget = Duration::from_secs_f64(work as f64 * SECONDS_PER_WORK);
     let budget = cx.limits.remaining().map_or(budget, |r| r.min(budget));
     let limits = Limits::new(Some(budget), cx.limits.conflicts_per_query);
-    let Ok((found, sat, w)) = parallel::sweep_groups(
+    let Ok(swept) = parallel::sweep_groups(
         cx.aig,
         cx.pairs,
         cx.constraint,
@@ -56,15 +56,19 @@ pub(crate) fn try_first(cx: &Context<'_>, pairs: &[usize], work: u64, out: &mut 
     ) else {
         return;
     };
+    let sat = swept.sat;
     let mut decided = 0;
-    for (p, f) in found.into_iter().enumerate() {
+    for &p in pairs {
+        out.costs.push((p, swept.costs[p]));
+    }
+    for (p, f) in swept.findings.into_iter().enumerate() {
         if let Some(f) = f.filter(|f| !matches!(f, Finding::Stopped(_))) {
             decided += 1;
             out.findings.push((p, f));
         }
     }
     out.sat.add(&sat);
-    out.sweep = Some(w);
+    out.sweep = Some(swept.sweep);
     out.groups.push(GroupRecord {
         method: Stage::Sweep,
         pairs: pairs.to_vec(),

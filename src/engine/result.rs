@@ -120,7 +120,7 @@ impl PairVerdict {
 }
 
 /// The result for one output pair. Its JSON form keeps the flat fields `status`, `method`
-/// (`none` when undecided), `stopped` and `counterexample`.
+/// (`none` when undecided), `stopped` and `counterexample`, then `seconds` and `conflicts`.
 #[derive(Clone, Debug, PartialEq)]
 pub struct PairResult {
     /// Reference output bit name.
@@ -129,6 +129,8 @@ pub struct PairResult {
     pub candidate: String,
     /// The verdict for this pair and its evidence.
     pub verdict: PairVerdict,
+    /// What deciding it cost ([`crate::engine::pair_cost`]).
+    pub cost: crate::engine::PairCost,
 }
 
 impl PairResult {
@@ -143,7 +145,7 @@ impl Serialize for PairResult {
         use serde::ser::SerializeStruct;
         let v = self.verdict;
         let extra = usize::from(v.stopped().is_some()) + usize::from(v.counterexample().is_some());
-        let mut st = s.serialize_struct("PairResult", 4 + extra)?;
+        let mut st = s.serialize_struct("PairResult", 6 + extra)?;
         st.serialize_field("reference", &self.reference)?;
         st.serialize_field("candidate", &self.candidate)?;
         st.serialize_field("status", &v.verdict())?;
@@ -157,6 +159,8 @@ impl Serialize for PairResult {
         if let Some(k) = v.counterexample() {
             st.serialize_field("counterexample", &k)?;
         }
+        st.serialize_field("seconds", &self.cost.seconds)?;
+        st.serialize_field("conflicts", &self.cost.conflicts)?;
         st.end()
     }
 }

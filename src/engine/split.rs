@@ -9,7 +9,7 @@
 
 use crate::aig::{Aig, Lit, Node};
 use crate::cnf::Tseitin;
-use crate::sat::{ClauseSink, Limits, Sat, SatResult, StopReason};
+use crate::sat::{ClauseSink, Limits, Sat, SatResult, SatStats, StopReason};
 use std::sync::Arc;
 
 /// Conflicts allowed per cofactor query before it is split further.
@@ -89,7 +89,14 @@ struct Budget {
 /// the first split are examined in parallel (`rayon::join`, on the caller's pool), each with
 /// half the budget: the answer depends only on the graph, never on the number of threads (when
 /// both halves find a counterexample, the one of the half examined first alone is returned).
-pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits) -> SplitResult {
+/// Also returns the figures of the cofactor queries' solvers.
+pub(crate) fn decide(
+    aig: &Aig,
+    a: Lit,
+    b: Lit,
+    constraint: Lit,
+    limits: &Limits,
+) -> (SplitResult, SatStats) {
     let n = aig.num_inputs();
     let budget = Budget {
         leaves: MAX_LEAVES,
@@ -103,9 +110,10 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
         fix: None,
     };
     if limits.expired() {
-        return SplitResult::TimedOut;
+        return (SplitResult::TimedOut, SatStats::default());
     }
-    let (result, leaves) = match step(root, n, limits) {
+    let mut stats = SatStats::default();
+    let (result, leaves) = match step(root, n, limits, &mut stats) {
         Step::Equal => (SplitResult::Equal, 1),
         Step::Differ(v) => (SplitResult::Differ(v), 1),
         Step::TimedOut => (SplitResult::TimedOut, 1),
@@ -115,10 +123,12 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
                 leaves: budget.leaves / 2,
                 work: budget.work / 2,
             };
-            let ((rf, lf), (rl, ll)) = rayon::join(
+            let ((rf, lf, sf), (rl, ll, sl)) = rayon::join(
                 || run(vec![first], n, limits, half),
                 || run(vec![later], n, limits, half),
             );
+            stats.add(&sf);
+            stats.add(&sl);
             let result = match (rf, rl) {
                 (d @ SplitResult::Differ(_), _) | (_, d @ SplitResult::Differ(_)) => d,
                 (s @ (SplitResult::TimedOut | SplitResult::BudgetSpent), _)
@@ -133,39 +143,46 @@ pub(crate) fn decide(aig: &Aig, a: Lit, b: Lit, constraint: Lit, limits: &Limits
         SplitResult::BudgetSpent => log::debug!("split: cofactor budget spent after {leaves}"),
         _ => {}
     }
-    result
+    (result, stats)
 }
 
 /// Examine cofactors depth first from `stack` until one differs, the budget or the time runs
-/// out, or all are equal; also returns the number examined.
-fn run(mut stack: Vec<Item>, n: usize, limits: &Limits, budget: Budget) -> (SplitResult, usize) {
+/// out, or all are equal; also returns the number examined and the solvers' figures.
+fn run(
+    mut stack: Vec<Item>,
+    n: usize,
+    limits: &Limits,
+    budget: Budget,
+) -> (SplitResult, usize, SatStats) {
     let mut leaves = 0usize;
     let mut work = 0usize;
+    let mut stats = SatStats::default();
     while let Some(item) = stack.pop() {
         if limits.expired() {
-            return (SplitResult::TimedOut, leaves);
+            return (SplitResult::TimedOut, leaves, stats);
         }
         leaves += 1;
         work += item.parent.len();
         if leaves > budget.leaves || work > budget.work {
-            return (SplitResult::BudgetSpent, leaves);
+            return (SplitResult::BudgetSpent, leaves, stats);
         }
-        match step(item, n, limits) {
+        match step(item, n, limits, &mut stats) {
             Step::Equal => {}
-            Step::Differ(v) => return (SplitResult::Differ(v), leaves),
-            Step::TimedOut => return (SplitResult::TimedOut, leaves),
-            Step::BudgetSpent => return (SplitResult::BudgetSpent, leaves),
+            Step::Differ(v) => return (SplitResult::Differ(v), leaves, stats),
+            Step::TimedOut => return (SplitResult::TimedOut, leaves, stats),
+            Step::BudgetSpent => return (SplitResult::BudgetSpent, leaves, stats),
             Step::Split(later, first) => {
                 stack.push(later);
                 stack.push(first);
             }
         }
     }
-    (SplitResult::Equal, leaves)
+    (SplitResult::Equal, leaves, stats)
 }
 
-/// Build one cofactor from its parent and decide it, or split it.
-fn step(item: Item, n: usize, limits: &Limits) -> Step {
+/// Build one cofactor from its parent and decide it, or split it; its solver's figures go
+/// into `stats`.
+fn step(item: Item, n: usize, limits: &Limits, stats: &mut SatStats) -> Step {
     let Item {
         parent,
         orig: porig,
@@ -229,7 +246,9 @@ fn step(item: Item, n: usize, limits: &Limits) -> Step {
     let cc = ts.lit(&g, &mut sat, c);
     sat.clause(&[cc]);
     crate::cnf::xor_true(&mut sat, cx, cy);
-    match sat.solve_within(&[], Some(LEAF_BUDGET)) {
+    let answer = sat.solve_within(&[], Some(LEAF_BUDGET));
+    stats.add(&sat.stats());
+    match answer {
         SatResult::Unsat => Step::Equal,
         SatResult::Sat => {
             let mut values = vec![false; n];
@@ -343,13 +362,13 @@ mod tests {
         let t = tree(&mut g, &d);
         let o = decoder_selector(&mut g, &s, &d);
         assert_eq!(
-            decide(&g, t, o, Lit::TRUE, &Limits::none()),
+            decide(&g, t, o, Lit::TRUE, &Limits::none()).0,
             SplitResult::Equal
         );
         let mut crossed = d.clone();
         crossed.swap(5, 9);
         let t2 = tree(&mut g, &crossed);
-        match decide(&g, t2, o, Lit::TRUE, &Limits::none()) {
+        match decide(&g, t2, o, Lit::TRUE, &Limits::none()).0 {
             SplitResult::Differ(values) => {
                 let r = crate::aig::eval(&g, &values, &[t2, o]);
                 assert_ne!(r[0], r[1]);
@@ -384,7 +403,7 @@ mod tests {
                     .num_threads(threads)
                     .build()
                     .expect("a pool");
-                pool.install(|| decide(&g, t, o, Lit::TRUE, &Limits::none()))
+                pool.install(|| decide(&g, t, o, Lit::TRUE, &Limits::none()).0)
             })
             .collect();
         match &answers[0] {

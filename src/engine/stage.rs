@@ -2,6 +2,7 @@
 //! method is given ([`Context`]) and what it returns ([`StageOutput`], [`GroupRecord`]). Kept
 //! apart from the portfolio's table so that a method's file depends on this interface only.
 
+use super::pair_cost::PairCost;
 use super::pairs::PairQuery;
 use super::progress::Progress;
 use super::sweep::SweepStats;
@@ -20,6 +21,8 @@ pub enum Stage {
     Exhaustive,
     /// BDDs within a node limit.
     Bdd,
+    /// BDD sweeping of internal nodes with cut points ([`super::bdd_sweep`]).
+    BddSweep,
     /// SAT sweeping and per-pair queries.
     Sweep,
 }
@@ -31,6 +34,7 @@ impl Stage {
             Stage::Exhaustive => "exhaustive",
             Stage::Algebra => "algebra",
             Stage::Bdd => "bdd",
+            Stage::BddSweep => "bdd-sweep",
             Stage::Sweep => "sweep",
         }
     }
@@ -83,8 +87,36 @@ pub(crate) struct StageOutput {
     pub groups: Vec<GroupRecord>,
     pub sat: SatStats,
     pub sweep: Option<SweepStats>,
+    /// The graph with the method's merges applied (same inputs, every pair and the constraint
+    /// mapped into it): the later methods run on it instead.
+    pub reduced: Option<Reduced>,
     /// Open pairs the method found hard for the ones after it (bits of an arithmetic word
     /// above a difference already found): the later methods take them last, after the other
     /// pairs, within the time a difference leaves ([`Context::after_difference`]).
     pub deferred: Vec<usize>,
+    /// What the method spent on each pair it worked on (entries of one pair add up).
+    pub costs: Vec<(usize, PairCost)>,
+}
+
+impl StageOutput {
+    /// Share `seconds` of work on the group `members` evenly among them (no SAT conflicts).
+    pub fn share_seconds(&mut self, members: &[usize], seconds: f64) {
+        let each = seconds.max(0.0) / members.len().max(1) as f64;
+        self.costs.extend(members.iter().map(|&p| {
+            (
+                p,
+                PairCost {
+                    seconds: each,
+                    conflicts: 0,
+                },
+            )
+        }));
+    }
+}
+
+/// A graph a method reduced by proved merges, with the pairs and the constraint mapped into it.
+pub(crate) struct Reduced {
+    pub aig: Aig,
+    pub pairs: Vec<PairQuery>,
+    pub constraint: Lit,
 }

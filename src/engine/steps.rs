@@ -2,6 +2,7 @@
 //! structure, the chosen engine on the open pairs, its findings turned into verdicts (each
 //! counterexample confirmed on both designs), and the overall verdict.
 
+use super::pair_cost::PairCost;
 use super::pairs::{self, PairQuery};
 use super::portfolio::{self, GroupRecord};
 use super::progress::Progress;
@@ -27,6 +28,8 @@ pub(super) fn structural_pairs(queries: &[PairQuery], outcomes: &mut [Outcome]) 
 /// solver figures, and the sweep's and the portfolio's records when they ran.
 pub(super) struct EngineRun {
     pub findings: Vec<Option<Finding>>,
+    /// What each pair cost the engine (indexed like the queries).
+    pub costs: Vec<PairCost>,
     pub sat: SatStats,
     pub sweep: Option<SweepStats>,
     pub portfolio: Option<Vec<GroupRecord>>,
@@ -49,18 +52,20 @@ pub(super) fn run_engine(
 ) -> Result<EngineRun, ProveError> {
     let mut sweep_stats = None;
     let mut portfolio_groups = None;
+    let mut costs = vec![PairCost::default(); queries.len()];
     let (findings, sat): (Vec<Option<Finding>>, SatStats) = match opts.engine {
         _ if open.is_empty() => (vec![None; queries.len()], SatStats::default()),
         EngineKind::Plain => {
-            let (f, s) =
+            let (f, s, c) =
                 monolithic::monolithic(&shared.aig, queries, shared.constraint, limits, progress);
+            costs = c;
             (f.into_iter().map(Some).collect(), s)
         }
         EngineKind::Pairs => {
             // Only the open pairs are queried; the others keep their outcome.
             let mut sat = Sat::new(limits);
             let mut ts = Tseitin::new();
-            let f = pairs::decide_open_pairs(
+            let (f, split) = pairs::decide_open_pairs(
                 &shared.aig,
                 queries,
                 shared.constraint,
@@ -69,18 +74,27 @@ pub(super) fn run_engine(
                 &mut ts,
                 limits,
                 progress,
+                &mut costs,
             );
-            (f, sat.stats())
+            let mut s = sat.stats();
+            s.add(&split);
+            (f, s)
         }
-        EngineKind::Portfolio | EngineKind::Exhaustive | EngineKind::Bdd | EngineKind::Algebra => {
+        EngineKind::Portfolio
+        | EngineKind::Exhaustive
+        | EngineKind::Bdd
+        | EngineKind::BddSweep
+        | EngineKind::Algebra => {
             let stages: &[portfolio::Stage] = match opts.engine {
                 EngineKind::Exhaustive => &[portfolio::Stage::Exhaustive],
                 EngineKind::Bdd => &[portfolio::Stage::Bdd],
+                EngineKind::BddSweep => &[portfolio::Stage::BddSweep],
                 EngineKind::Algebra => &[portfolio::Stage::Algebra],
                 _ => &[
                     portfolio::Stage::Algebra,
                     portfolio::Stage::Exhaustive,
                     portfolio::Stage::Bdd,
+                    portfolio::Stage::BddSweep,
                     portfolio::Stage::Sweep,
                 ],
             };
@@ -102,10 +116,11 @@ pub(super) fn run_engine(
             let out = portfolio::run(&cx, open, stages).map_err(ProveError::Internal)?;
             sweep_stats = out.sweep;
             portfolio_groups = Some(out.groups);
+            costs = out.costs;
             (out.findings, out.sat)
         }
         EngineKind::Sweep => {
-            let (f, s, w) = parallel::sweep_groups(
+            let swept = parallel::sweep_groups(
                 &shared.aig,
                 queries,
                 shared.constraint,
@@ -117,12 +132,14 @@ pub(super) fn run_engine(
                 progress,
             )
             .map_err(ProveError::Internal)?;
-            sweep_stats = Some(w);
-            (f, s)
+            sweep_stats = Some(swept.sweep);
+            costs = swept.costs;
+            (swept.findings, swept.sat)
         }
     };
     Ok(EngineRun {
         findings,
+        costs,
         sat,
         sweep: sweep_stats,
         portfolio: portfolio_groups,
@@ -279,6 +296,7 @@ mod tests {
             reference: "y".into(),
             candidate: "y".into(),
             verdict,
+            cost: Default::default(),
         };
         let eq = p(PairVerdict::Equivalent(Method::Sweep));
         let open = p(PairVerdict::Undecided(StopReason::Timeout));

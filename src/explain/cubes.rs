@@ -327,6 +327,7 @@ mod tests {
             netlist: None,
             warnings: vec![],
             registers: vec![],
+            net_names: Default::default(),
         }
     }
 

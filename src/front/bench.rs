@@ -468,6 +468,7 @@ fn elaborate(
         netlist: Some(netlist),
         warnings: Vec::new(),
         registers,
+        net_names: Default::default(),
     };
     design.debug_check();
     Ok(design)

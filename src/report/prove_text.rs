@@ -249,10 +249,55 @@ pub fn prove_text(r: &ProveReport, diagnosis: Option<&Diagnosis>) -> String {
         }
         None => s.push('\n'),
     }
+    if st.seconds >= SLOWEST_AFTER_SECONDS {
+        s += &slowest_line(r);
+    }
     for w in &r.warnings {
         let _ = writeln!(s, "{w}");
     }
     s
+}
+
+/// Runs at least this long (seconds) print their slowest output pairs.
+const SLOWEST_AFTER_SECONDS: f64 = 1.0;
+
+/// Output pairs named on the `slowest` line.
+const SLOWEST_SHOWN: usize = 3;
+
+/// `slowest     y[3] 1.204 s, 5120 conflicts; ...`: the pairs that cost the most time (ties
+/// in pair order), or nothing when no pair took measurable time.
+fn slowest_line(r: &ProveReport) -> String {
+    let mut order: Vec<usize> = (0..r.pairs.len())
+        .filter(|&k| r.pairs[k].cost.seconds > 0.0)
+        .collect();
+    order.sort_by(|&a, &b| {
+        r.pairs[b]
+            .cost
+            .seconds
+            .total_cmp(&r.pairs[a].cost.seconds)
+            .then(a.cmp(&b))
+    });
+    if order.is_empty() {
+        return String::new();
+    }
+    let parts: Vec<String> = order
+        .iter()
+        .take(SLOWEST_SHOWN)
+        .map(|&k| {
+            let p = &r.pairs[k];
+            format!(
+                "{} {:.3} s, {} conflict{}",
+                pair_label(&p.reference, &p.candidate),
+                p.cost.seconds,
+                p.cost.conflicts,
+                if p.cost.conflicts == 1 { "" } else { "s" }
+            )
+        })
+        .collect();
+    format!(
+        "slowest     {} (per output pair; shared work split evenly)\n",
+        parts.join("; ")
+    )
 }
 
 fn plural(n: usize) -> &'static str {
@@ -260,5 +305,42 @@ fn plural(n: usize) -> &'static str {
         ""
     } else {
         "s"
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use std::sync::Arc;
+
+    fn report() -> ProveReport {
+        let read = |t: &str| crate::front::bench::read_bench(&Arc::from("t.bench"), t).unwrap();
+        let r = read("INPUT(a)\nINPUT(b)\nOUTPUT(x)\nOUTPUT(y)\nOUTPUT(z)\nx = AND(a, b)\ny = OR(a, b)\nz = XOR(a, b)\n");
+        let c = read("INPUT(a)\nINPUT(b)\nOUTPUT(x)\nOUTPUT(y)\nOUTPUT(z)\nx = AND(b, a)\ny = OR(b, a)\nz = XOR(b, a)\n");
+        crate::engine::prove(&r, &c, &Default::default()).unwrap()
+    }
+
+    /// Issue 13 B5: a run of a second or more names its slowest pairs, by seconds then pair
+    /// order; a quick run does not.
+    #[test]
+    fn long_runs_name_their_slowest_pairs() {
+        let mut r = report();
+        assert!(!prove_text(&r, None).contains("\nslowest"));
+        r.stats.seconds = 2.5;
+        for (k, s) in [0.5, 1.25, 0.5].into_iter().enumerate() {
+            r.pairs[k].cost.seconds = s;
+            r.pairs[k].cost.conflicts = k as u64;
+        }
+        let text = prove_text(&r, None);
+        let line = text.lines().find(|l| l.starts_with("slowest")).unwrap();
+        assert_eq!(
+            line,
+            "slowest     y 1.250 s, 1 conflict; x 0.500 s, 0 conflicts; z 0.500 s, 2 conflicts (per output pair; shared work split evenly)"
+        );
+        // No pair took measurable time: no line.
+        for p in &mut r.pairs {
+            p.cost = Default::default();
+        }
+        assert!(!prove_text(&r, None).contains("\nslowest"));
     }
 }

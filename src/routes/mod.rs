@@ -121,11 +121,42 @@ pub fn route_table(
     constraint: Lit,
     limits: &Limits,
 ) -> RouteTable {
-    table(d, out, bus, sel, constraint, limits, true)
+    table(d, out, bus, sel, constraint, limits, true, &|_| {})
+}
+
+/// [`route_table`] for each output in `outs`, with a progress bar of the select values
+/// decided over all of them where the host draws progress (`crate::host`) when `progress`.
+pub fn route_tables(
+    d: &Design,
+    outs: &[usize],
+    bus: &str,
+    sel: &[usize],
+    constraint: Lit,
+    limits: &Limits,
+    progress: bool,
+) -> Vec<RouteTable> {
+    let values = 1u64 << sel.len();
+    let bar = crate::host::counted_bar(
+        progress,
+        "route tables",
+        "select values",
+        values * outs.len() as u64,
+    );
+    let tables = outs
+        .iter()
+        .map(|&k| {
+            table(d, k, bus, sel, constraint, limits, true, &|n| {
+                bar.inc(n as u64)
+            })
+        })
+        .collect();
+    bar.finish_and_clear();
+    tables
 }
 
 /// [`route_table`], with or without the structural shortcut (`fold`; without it every route
-/// is asked of the solver, as the tests compare).
+/// is asked of the solver, as the tests compare); `done(n)` after each chunk of `n` values.
+#[allow(clippy::too_many_arguments)]
 fn table(
     d: &Design,
     out: usize,
@@ -134,6 +165,7 @@ fn table(
     constraint: Lit,
     limits: &Limits,
     fold: bool,
+    done: &dyn Fn(usize),
 ) -> RouteTable {
     let values = 1usize << sel.len();
     let o = d.outputs[out].lit;
@@ -174,6 +206,7 @@ fn table(
         if quick.iter().all(Option::is_some) {
             routes.extend(quick.into_iter().flatten());
             v0 += n;
+            done(n);
             continue;
         }
         let mut ins = random_words(d.inputs.len(), n, 0x5e1ec7 ^ v0 as u64);
@@ -211,6 +244,7 @@ fn table(
             ));
         }
         v0 += n;
+        done(n);
     }
     RouteTable {
         output: d.outputs[out].name.clone(),
@@ -377,8 +411,8 @@ mod tests {
             for constraint in [Lit::TRUE, lt12] {
                 for out in 0..d.outputs.len() {
                     let limits = Limits::none();
-                    let a = table(&d, out, "sel", &sel, constraint, &limits, true);
-                    let b = table(&d, out, "sel", &sel, constraint, &limits, false);
+                    let a = table(&d, out, "sel", &sel, constraint, &limits, true, &|_| {});
+                    let b = table(&d, out, "sel", &sel, constraint, &limits, false, &|_| {});
                     assert_eq!(a, b, "{name} output {out}");
                     let mut f = fold::Folder::new(&d.aig, &[d.outputs[out].lit, constraint], &sel);
                     folded_any += (0..16)

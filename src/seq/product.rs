@@ -137,37 +137,57 @@ fn held_inputs(d: &Design) -> BTreeMap<usize, (bool, &'static str)> {
     held
 }
 
-fn error(design: &Design, msg: String, help: &str) -> InputError {
-    InputError::one(
-        Diagnostic::error(None, format!("{}: {msg}", design.name)).with_help(help.to_string()),
-    )
-}
-
-/// Every register of a design must sample on the same clock and edge (one clock domain).
+/// Every register of a design must sample on the same clock and edge (one clock domain). The
+/// error points at the first register of the second domain and lists every domain with its
+/// register count and first register.
 fn check_one_clock(d: &Design) -> Result<(), InputError> {
-    let mut seen: BTreeSet<(Option<&str>, &str)> = BTreeSet::new();
-    for r in &d.registers {
+    // (clock, edge) -> (register count, first register)
+    let mut seen: BTreeMap<(Option<&str>, &str), (usize, usize)> = BTreeMap::new();
+    let mut order: Vec<(Option<&str>, &str)> = Vec::new();
+    for (k, r) in d.registers.iter().enumerate() {
         let edge = match r.edge {
             crate::design::ClockEdge::Rising => "posedge",
             crate::design::ClockEdge::Falling => "negedge",
         };
-        seen.insert((r.clock.as_deref(), edge));
+        let key = (r.clock.as_deref(), edge);
+        let e = seen.entry(key).or_insert_with(|| {
+            order.push(key);
+            (0, k)
+        });
+        e.0 += 1;
     }
-    if seen.len() > 1 {
-        let list: Vec<String> = seen
-            .iter()
-            .map(|(c, e)| format!("{e} {}", c.unwrap_or("(implicit)")))
-            .collect();
-        return Err(error(
-            d,
+    if order.len() <= 1 {
+        return Ok(());
+    }
+    let list: Vec<String> = order
+        .iter()
+        .map(|key| {
+            let (n, first) = seen[key];
             format!(
-                "unsupported: registers on more than one clock or edge ({}); equicone checks one clock domain",
-                list.join(", ")
+                "{} {}: {n} register bit{} ({}{})",
+                key.1,
+                key.0.unwrap_or("(implicit)"),
+                if n == 1 { "" } else { "s" },
+                d.registers[first].name,
+                if n > 1 { ", ..." } else { "" }
+            )
+        })
+        .collect();
+    let second = &d.registers[seen[&order[1]].1];
+    Err(InputError::one(
+        Diagnostic::error(
+            second.pos.clone(),
+            format!(
+                "{}: unsupported: registers on {} clocks or edges ({}); equicone compares designs with one clock domain",
+                d.name,
+                order.len(),
+                list.join("; ")
             ),
-            "check each clock domain as its own module",
-        ));
-    }
-    Ok(())
+        )
+        .with_help(
+            "check each clock domain as its own module (its registers, the other domains' signals as inputs); if the clocks are one clock under two names, clock every register from one port and edge",
+        ),
+    ))
 }
 
 impl Product {

@@ -681,3 +681,31 @@ fn cone_follows_inputs_through_registers() {
     assert!(sum0["inputs"].get("a[1]").is_none(), "{sum0}");
     assert_eq!(across["dead_registers"], serde_json::json!(["spare"]));
 }
+
+/// Several clocks are refused with the clocks named, where the second domain's first register
+/// is declared, and what to do (exit code 2 from the command line).
+#[test]
+fn registers_on_two_clocks_are_refused_with_the_clocks_named() {
+    let dir = tempfile::tempdir().unwrap();
+    std::fs::write(
+        dir.path().join("two.v"),
+        "module two(input clka, input clkb, input d, output y);\n  reg a, b, c;\n  always @(posedge clka) begin a <= d; c <= a; end\n  always @(negedge clkb) b <= c;\n  assign y = b;\nendmodule\n",
+    )
+    .unwrap();
+    let o = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
+        .current_dir(dir.path())
+        .args(["prove", "two.v", "two.v"])
+        .output()
+        .unwrap();
+    let err = String::from_utf8_lossy(&o.stderr);
+    assert_eq!(o.status.code(), Some(2), "{err}");
+    assert!(
+        err.contains("two.v:4:3: error")
+            && err.contains("error: two: unsupported: registers on 2 clocks or edges (posedge clka: 2 register bits (a, ...); negedge clkb: 1 register bit (b)); equicone compares designs with one clock domain"),
+        "{err}"
+    );
+    assert!(
+        err.contains("help: check each clock domain as its own module"),
+        "{err}"
+    );
+}

@@ -106,3 +106,30 @@ fn wide_values_show_hexadecimal_and_negative_numbers_set_twos_complement() {
     assert!(stderr(&e)
         .contains("does not fit in 20 bits as a two's complement number (at least -524288)"));
 }
+
+/// Issue 13 D: `cone --dot` of Verilog RTL labels the gates with the nets written in the source
+/// (a node that is a net inverted as `~net`), the same picture every run.
+#[test]
+fn dot_of_verilog_names_the_nets_as_written() {
+    let d = scratch("dot-names");
+    let v = write(
+        &d,
+        "w.v",
+        "module w(input a, input b, input c, input [1:0] k, output y);\n  wire t1;\n  wire [1:0] t2;\n  reg r;\n  assign t1 = a & b;\n  assign t2 = {~(t1 | c), k[0] & k[1]};\n  always @* r = t2[1] ^ t2[0];\n  assign y = r ^ a;\nendmodule\n",
+    );
+    let dot = d.join("w.dot");
+    let dot = dot.to_str().unwrap();
+    let o = equicone(&["cone", &v, "--dot", dot]);
+    assert_eq!(code(&o), 0, "{}", stderr(&o));
+    let first = std::fs::read_to_string(dot).unwrap();
+    for name in ["t1\\n", "t2[1]\\n", "t2[0]\\n", "r\\n", "y\\n"] {
+        assert!(
+            first.contains(&format!("label=\"{name}"))
+                || first.contains(&format!("label=\"~{name}")),
+            "{name} missing:\n{first}"
+        );
+    }
+    let o = equicone(&["cone", &v, "--dot", dot]);
+    assert_eq!(code(&o), 0);
+    assert_eq!(std::fs::read_to_string(dot).unwrap(), first);
+}

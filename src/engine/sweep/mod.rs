@@ -14,7 +14,8 @@ mod merge;
 mod refine;
 mod tally;
 
-use super::pairs::{decide_pairs, PairQuery};
+use super::pair_cost::{share_rest, PairCost};
+use super::pairs::{decide_pairs, PairQuery, Queries};
 use super::progress::Progress;
 use super::split;
 use super::window::Window;
@@ -50,13 +51,17 @@ pub(crate) fn sweep_words(nodes: usize) -> usize {
     by_size.clamp(4, 32)
 }
 
-/// Sweep `cone` and decide its pairs; findings are in the order of `cone.pairs`.
+/// Sweep `cone` and decide its pairs; findings and costs are in the order of `cone.pairs`
+/// (each pair's own query, and an even share of the sweep and of the solver figures no pair
+/// owns).
 pub(crate) fn sweep(
     cone: &Cone<'_>,
     limits: &Limits,
     progress: &Progress,
-) -> (Vec<Finding>, SatStats, SweepStats) {
+) -> (Vec<Finding>, SatStats, SweepStats, Vec<PairCost>) {
     let started = std::time::Instant::now();
+    let all: Vec<usize> = (0..cone.pairs.len()).collect();
+    let mut costs = vec![PairCost::default(); cone.pairs.len()];
     let g = cone.aig;
     let mut st = SweepStats {
         groups: 1,
@@ -76,22 +81,28 @@ pub(crate) fn sweep(
         let mut findings = vec![None; cone.pairs.len()];
         let mut sat = Sat::new(limits);
         let mut ts = Tseitin::new();
-        decide_pairs(
-            g,
-            &cone.pairs,
-            cone.constraint,
-            &mut sat,
-            &mut ts,
-            &mut findings,
+        let q = Queries {
+            aig: g,
+            pairs: &cone.pairs,
+            constraint: cone.constraint,
             limits,
             progress,
-        );
+        };
+        let split = decide_pairs(&q, &mut sat, &mut ts, &mut findings, &mut costs);
         let findings = findings
             .into_iter()
             .map(|f| f.unwrap_or(Finding::Stopped(StopReason::Timeout)))
             .collect();
         st.ands_after = st.ands_before;
-        return (findings, sat.stats(), st);
+        let mut stats = sat.stats();
+        stats.add(&split);
+        share_rest(
+            &mut costs,
+            &all,
+            started.elapsed().as_secs_f64(),
+            stats.conflicts,
+        );
+        return (findings, stats, st, costs);
     }
     let words = cone.words.unwrap_or_else(|| sweep_words(g.len()));
     let (mut classes, ins) = candidates::initial_classes(g, words, cone.seed);
@@ -231,23 +242,28 @@ pub(crate) fn sweep(
         .map(|p| (p.reference == p.candidate).then_some(Finding::Equal(super::Method::Sweep)))
         .collect();
     progress.outputs_done(findings.iter().flatten().count());
-    decide_pairs(
-        &sw.f,
-        &mapped,
+    let q = Queries {
+        aig: &sw.f,
+        pairs: &mapped,
         constraint,
-        &mut sw.global,
-        &mut sw.gts,
-        &mut findings,
         limits,
         progress,
-    );
+    };
+    let split = decide_pairs(&q, &mut sw.global, &mut sw.gts, &mut findings, &mut costs);
     let mut sat = sw.global.stats();
     sat.add(&sw.window.stats());
+    sat.add(&split);
     let findings = findings
         .into_iter()
         .map(|f| f.unwrap_or(Finding::Stopped(StopReason::Timeout)))
         .collect();
-    (findings, sat, st)
+    share_rest(
+        &mut costs,
+        &all,
+        started.elapsed().as_secs_f64(),
+        sat.conflicts,
+    );
+    (findings, sat, st, costs)
 }
 
 /// The answer of [`Sweeper::prove_equal`] and of one of its stages.

@@ -9,7 +9,7 @@ use super::super::symbols::Sym;
 use super::{Elaborator, Symbol, UNKNOWN_BIT};
 use crate::aig::{Aig, Lit, Node};
 use crate::design::{bit_name, Cell, Design, Format, InputBit, InputKind, Netlist, OutputBit};
-use std::collections::{BTreeSet, HashMap, HashSet};
+use std::collections::{BTreeMap, BTreeSet, HashMap, HashSet};
 
 const NONE: u32 = u32::MAX;
 
@@ -285,6 +285,12 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
     let mut netlist = netlist(e, &r, &outputs_leaves(e, ports, scope));
     // The netlist as written holds no registers: not the whole design.
     netlist.complete &= registers.is_empty();
+    // A complete netlist names its own gates; RTL keeps the names of the nets instead.
+    let net_names = if netlist.complete {
+        Default::default()
+    } else {
+        net_names(e, &r)
+    };
     let name = e.name(top).to_string();
     let d = Design {
         name,
@@ -295,12 +301,55 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
         netlist: Some(netlist),
         warnings: std::mem::take(&mut e.warnings),
         registers,
+        net_names,
     };
     if e.errors.is_empty() {
         d.debug_check();
     }
     d
 }
+
+/// Net names per AND node of the design's AIG (see [`Design::net_names`]): every bit of every
+/// net the resolver reached, in declaration order, those carrying the node itself before those
+/// carrying its complement (`~w`); at most [`NAMES_PER_NODE`] per node.
+fn net_names(e: &Elaborator, r: &Resolver) -> BTreeMap<u32, Vec<String>> {
+    let mut plain: BTreeMap<u32, Vec<String>> = BTreeMap::new();
+    let mut inverted: BTreeMap<u32, Vec<String>> = BTreeMap::new();
+    for (n, net) in e.nets.iter().enumerate() {
+        for off in 0..net.width {
+            let leaf = (net.first + off) as usize;
+            let m = r.memo.get(e.aig.input_lit(leaf).index()).copied();
+            let Some(m) = m.filter(|&m| m != NONE) else {
+                continue;
+            };
+            let lit = Lit::from_raw(m);
+            if !matches!(r.design_aig.node(lit.node()), Node::And(..)) {
+                continue;
+            }
+            let to = if lit.is_complemented() {
+                &mut inverted
+            } else {
+                &mut plain
+            };
+            let names = to.entry(lit.node()).or_default();
+            if names.len() < NAMES_PER_NODE {
+                names.push(e.bit_name(n as u32, off));
+            }
+        }
+    }
+    for (node, names) in inverted {
+        let all = plain.entry(node).or_default();
+        for nm in names {
+            if all.len() < NAMES_PER_NODE {
+                all.push(format!("~{nm}"));
+            }
+        }
+    }
+    plain
+}
+
+/// Net names kept per AIG node at most.
+const NAMES_PER_NODE: usize = 3;
 
 fn outputs_leaves(e: &Elaborator, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> {
     let mut v = Vec::new();

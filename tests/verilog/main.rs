@@ -1,5 +1,6 @@
 //! Integration tests of the Verilog front-end (one test binary, themed modules).
 
+mod arrays;
 mod common;
 mod corpus;
 mod engine_checks;

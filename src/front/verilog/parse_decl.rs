@@ -67,9 +67,23 @@ impl Parser<'_, '_> {
             }
             if self.peek_p(Punct::LBrack) {
                 d.range = Some(self.range()?);
+                self.refuse_packed_dims()?;
             }
         }
         Ok(d)
+    }
+
+    /// After a packed range: a second one (`logic [7:0][3:0] d`, IEEE 1800-2017 clause
+    /// 7.4.1, from memory) is `unsupported:`.
+    pub(super) fn refuse_packed_dims(&mut self) -> PResult<()> {
+        if self.peek_p(Punct::LBrack) {
+            let p = self.peek_pos();
+            return Err(self.unsupported(
+                p,
+                "packed multidimensional array (`[7:0][3:0]`; declare one flat vector, e.g. `[31:0]`, and select its parts with `[k*4 +: 4]`)",
+            ));
+        }
+        Ok(())
     }
 
     /// A declaration of a SystemVerilog data type (a typedef name, `enum`, `struct packed`,

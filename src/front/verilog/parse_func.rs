@@ -126,6 +126,7 @@ impl Parser<'_, '_> {
         }
         if self.peek_p(Punct::LBrack) {
             d.range = Some(self.range()?);
+            self.refuse_packed_dims()?;
         }
         Ok(d)
     }

@@ -6,11 +6,12 @@
 //! with a bus of the same width bit by bit by significance (least significant with least
 //! significant, whatever the declared ranges); names not listed pair by name as usual.
 //! [`PortMap::bit_pairs`] expands the entries against the bits each side has, so any kind of
-//! named bit (ports today, registers later) can be paired the same way.
+//! named bit can be paired the same way: ports, and in clocked checks registers (a register
+//! name of the candidate written `~q` pairs with the reference's register stored inverted).
 
 use crate::design::{Design, Format, InputKind};
 use crate::diag::{Diagnostic, InputError, SourcePos};
-use std::collections::BTreeMap;
+use std::collections::{BTreeMap, BTreeSet};
 use std::sync::Arc;
 
 /// A port map resolved against two designs: reference bit name -> candidate bit name, for
@@ -21,6 +22,10 @@ pub struct BitMap {
     pub file: String,
     /// Reference bit -> candidate bit.
     pub pairs: BTreeMap<String, String>,
+    /// Candidate register bits paired with their reference register stored inverted (`~q`).
+    pub inverted: BTreeSet<String>,
+    /// The reference register bits the map pairs (the rest of `pairs` are ports).
+    pub registers: BTreeSet<String>,
 }
 
 impl BitMap {
@@ -132,18 +137,35 @@ impl PortMap {
 
     /// Expand the entries against the port bits of two designs (a bus name stands for its
     /// bits from the least significant; a bit name for itself).
+    /// Register names (the [`crate::design::Register`] bits and their vectors) are found too,
+    /// as kind `register`.
     pub fn resolve(&self, file: &str, r: &Design, c: &Design) -> Result<BitMap, InputError> {
         let pairs = self.bit_pairs(&|n| port_bits(r, n), &|n| port_bits(c, n))?;
-        Ok(BitMap {
+        let mut map = BitMap {
             file: file.to_string(),
-            pairs,
-        })
+            ..Default::default()
+        };
+        for (rn, cn) in pairs {
+            let cn = match cn.strip_prefix('~') {
+                Some(bit) => {
+                    map.inverted.insert(bit.to_string());
+                    bit.to_string()
+                }
+                None => cn,
+            };
+            if r.registers.iter().any(|g| g.name == rn) {
+                map.registers.insert(rn.clone());
+            }
+            map.pairs.insert(rn, cn);
+        }
+        Ok(map)
     }
 
     /// Expand the entries into bit pairs (reference bit name -> candidate bit name).
     /// `reference_bits(name)` and `candidate_bits(name)` give the bits a name stands for on
     /// each side, least significant first (one for a bit, `None` when the side has no such
-    /// name) and a kind word (`input`, `output`, ...) that must agree on both sides.
+    /// name) and a kind word (`input`, `output`, `register`) that must agree on both sides. A
+    /// candidate name written `~name` (registers only) gives candidate bits written `~bit`.
     pub fn bit_pairs(
         &self,
         reference_bits: BitsOf<'_>,
@@ -155,24 +177,33 @@ impl PortMap {
             let err = |m: String, h: &str| {
                 Diagnostic::error(Some(e.pos.clone()), m).with_help(h.to_string())
             };
-            let (r, c) = (reference_bits(&e.reference), candidate_bits(&e.candidate));
+            let (cand, inverted) = match e.candidate.strip_prefix('~') {
+                Some(n) => (n, true),
+                None => (e.candidate.as_str(), false),
+            };
+            let (r, c) = (reference_bits(&e.reference), candidate_bits(cand));
             match (r, c) {
                 (None, _) => errors.push(err(
                     format!("the reference has no port or bit `{}`", e.reference),
                     "the first name of a line is the reference's: check its spelling and side",
                 )),
                 (_, None) => errors.push(err(
-                    format!("the candidate has no port or bit `{}`", e.candidate),
+                    format!("the candidate has no port or bit `{cand}`"),
                     "the second name of a line is the candidate's: check its spelling and side",
                 )),
                 (Some((rb, rk)), Some((cb, ck))) => {
-                    if rk != ck {
+                    if inverted && ck != "register" {
+                        errors.push(err(
+                            format!("`~{cand}`: only a register can be paired inverted, and `{cand}` is {} {ck} of the candidate", a(ck)),
+                            "write `~` only before a register's name (the candidate stores that register inverted)",
+                        ));
+                    } else if rk != ck {
                         errors.push(err(
                             format!(
-                                "`{}` is an {rk} of the reference but `{}` an {ck} of the candidate",
-                                e.reference, e.candidate
+                                "`{}` is {} {rk} of the reference but `{}` {} {ck} of the candidate",
+                                e.reference, a(rk), e.candidate, a(ck)
                             ),
-                            "pair inputs with inputs and outputs with outputs",
+                            "pair inputs with inputs, outputs with outputs and registers with registers",
                         ));
                     } else if rb.len() != cb.len() {
                         errors.push(err(
@@ -186,6 +217,8 @@ impl PortMap {
                             ),
                             "pair names of the same width, or map single bits (`a[3] b[3]`)",
                         ));
+                    } else if inverted {
+                        out.extend(rb.into_iter().zip(cb.into_iter().map(|b| format!("~{b}"))));
                     } else {
                         out.extend(rb.into_iter().zip(cb));
                     }
@@ -202,8 +235,18 @@ impl PortMap {
     }
 }
 
+/// The article before a kind word.
+fn a(kind: &str) -> &'static str {
+    if kind.starts_with(['a', 'e', 'i', 'o', 'u']) {
+        "an"
+    } else {
+        "a"
+    }
+}
+
 /// The port bits `name` stands for in `d` (least significant first) and whether they are
-/// inputs or outputs.
+/// inputs or outputs; else the register bits it names (bit j of a register vector is the one
+/// with the j-th smallest index).
 fn port_bits(d: &Design, name: &str) -> Option<(Vec<String>, &'static str)> {
     let inputs = d
         .inputs
@@ -233,7 +276,25 @@ fn port_bits(d: &Design, name: &str) -> Option<(Vec<String>, &'static str)> {
     if let Some(b) = find(inputs.collect()) {
         return Some((b, "input"));
     }
-    find(outputs.collect()).map(|b| (b, "output"))
+    if let Some(b) = find(outputs.collect()) {
+        return Some((b, "output"));
+    }
+    if let Some(g) = d.registers.iter().find(|g| g.name == name) {
+        return Some((vec![g.name.clone()], "register"));
+    }
+    let mut bus: Vec<(Option<i64>, &str)> = d
+        .registers
+        .iter()
+        .filter(|g| g.port == name)
+        .map(|g| (g.index, g.name.as_str()))
+        .collect();
+    bus.sort();
+    (!bus.is_empty()).then(|| {
+        (
+            bus.into_iter().map(|b| b.1.to_string()).collect(),
+            "register",
+        )
+    })
 }
 
 #[cfg(test)]

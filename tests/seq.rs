@@ -9,6 +9,8 @@
 mod common;
 #[path = "seq/oracle.rs"]
 mod oracle;
+#[path = "seq/portmap.rs"]
+mod portmap;
 #[path = "seq/verilog.rs"]
 mod verilog;
 

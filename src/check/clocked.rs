@@ -56,8 +56,23 @@ pub fn check_clocked(
     if req.options.pair_by != PairBy::Name {
         return Err(refuse("--pair-by position"));
     }
-    if req.options.port_map.is_some() {
-        return Err(refuse("--port-map"));
+    if let Some(m) = &req.options.port_map {
+        let renamed: Vec<String> = m
+            .pairs
+            .iter()
+            .filter(|(r, c)| !m.registers.contains(*r) && r != c)
+            .map(|(r, c)| format!("{r} -> {c}"))
+            .collect();
+        if !renamed.is_empty() {
+            return Err(CheckError::Input(InputError::plain(
+                format!(
+                    "{}: in clocked designs a port map pairs registers; it renames ports here ({})",
+                    m.file,
+                    renamed.join(", ")
+                ),
+                "give the ports the same names in both designs, and keep only register lines (`REF_REG CAND_REG`, `~CAND_REG` for one stored inverted) in the map",
+            )));
+        }
     }
     let o = SeqOptions {
         cycles: settings.cycles,
@@ -65,6 +80,7 @@ pub fn check_clocked(
         free_extra_inputs: req.options.free_extra_inputs,
         limits: Limits::new(req.options.timeout, req.options.conflict_limit),
         k_induction: settings.k_induction,
+        port_map: req.options.port_map.clone(),
         ..SeqOptions::default()
     };
     seq::check(req.reference, req.candidate, &o).map_err(|e| match e {

@@ -430,6 +430,10 @@ pub fn run(a: &ProveArgs) -> Exit {
 
 /// `prove` on designs with registers: the same request, the clocked session.
 fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Limits) -> Exit {
+    let port_map = match a.pair.port_map(r, c) {
+        Ok(m) => m,
+        Err(e) => return e,
+    };
     let req = CheckRequest {
         reference: r,
         candidate: c,
@@ -446,12 +450,7 @@ fn run_clocked(a: &ProveArgs, r: &Design, c: &Design, deadline: &crate::sat::Lim
             progress: false,
             strict_unknowns: a.pair.strict_unknowns,
             after_difference: None,
-            port_map: a.pair.port_map.as_ref().map(|f| {
-                std::sync::Arc::new(crate::portmap::BitMap {
-                    file: f.display().to_string(),
-                    ..Default::default()
-                })
-            }),
+            port_map,
         },
         diagnosis: DiagnosisRequest::Off,
         certificate: a.proof.as_ref().map(|_| a.proof_format.into()),

@@ -12,9 +12,10 @@ use serde::Serialize;
 pub struct RoutesArgs {
     #[command(flatten)]
     design: DesignArgs,
-    /// The select bus (an input port name).
+    /// The select bus (an input port name; default: `sel`, `s`, `select` or `addr`, the first the
+    /// design has).
     #[arg(long, value_name = "BUS")]
-    select: String,
+    select: Option<String>,
     /// Only these output bits or buses (repeatable; default: all outputs).
     #[arg(long = "output", value_name = "NAME")]
     outputs: Vec<String>,
@@ -105,7 +106,19 @@ pub fn run(a: &RoutesArgs) -> Exit {
         Ok(x) => x,
         Err(e) => return report_input_error(&e),
     };
-    let sel = match routes::select_bits(&d, &a.select) {
+    let select = match a.select.clone() {
+        Some(s) => s,
+        None => match crate::diagnose::pick_select(&d, &d, None) {
+            Some(s) => s,
+            None => {
+                return report_input_error(&crate::diag::InputError::plain(
+                    "no select bus: the design has none of the usual names `sel`, `s`, `select`, `addr`",
+                    "name the select bus with `--select BUS`",
+                ))
+            }
+        },
+    };
+    let sel = match routes::select_bits(&d, &select) {
         Ok(s) => s,
         Err(e) => return report_input_error(&e),
     };
@@ -115,7 +128,7 @@ pub fn run(a: &RoutesArgs) -> Exit {
     };
     let tables: Vec<RouteTable> = outs
         .iter()
-        .map(|&k| routes::route_table(&d, k, &a.select, &sel, constraint, &limits))
+        .map(|&k| routes::route_table(&d, k, &select, &sel, constraint, &limits))
         .collect();
     let undecided = tables
         .iter()
@@ -126,7 +139,7 @@ pub fn run(a: &RoutesArgs) -> Exit {
         let rep = RoutesReport {
             schema: ROUTES_SCHEMA,
             design: d.name.clone(),
-            select: a.select.clone(),
+            select: select.clone(),
             select_bits: sel.len(),
             assumptions: a.assume.clone(),
             tables: tables
@@ -144,7 +157,7 @@ pub fn run(a: &RoutesArgs) -> Exit {
         let mut s = format!(
             "design   {}\nselect   {} ({} bit{}, {} values)\nroutes (each proved for its select value, by constant folding or SAT; ~ marks an inverted route)\n",
             d.name,
-            a.select,
+            select,
             sel.len(),
             if sel.len() == 1 { "" } else { "s" },
             1usize << sel.len()

@@ -103,7 +103,14 @@ pub fn unroll(
                                 !t
                             }
                         }
-                        Init::Free(n) => *init.entry(n).or_insert_with(|| sat.fresh()),
+                        Init::Free(n, inv) => {
+                            let v = *init.entry(n).or_insert_with(|| sat.fresh());
+                            if inv {
+                                !v
+                            } else {
+                                v
+                            }
+                        }
                     }
                 } else {
                     frames[j - 1].0.lit(&p.aig, &mut sat, nexts[k])

@@ -90,7 +90,7 @@ impl Classes {
             match p.state[at[&m.node()]].init {
                 Init::Const(v) => Init::Const(v ^ m.is_complemented()),
                 // A free value only equals itself, in its own phase.
-                Init::Free(k) => Init::Free(k * 2 + m.is_complemented() as u32),
+                Init::Free(k, inv) => Init::Free(k * 2 + (m.is_complemented() ^ inv) as u32, false),
             }
         });
     }

@@ -22,7 +22,7 @@ mod simulate;
 mod text;
 mod trace;
 
-pub use product::{HeldInput, InitUnset, Side};
+pub use product::{HeldInput, InitUnset, Side, StartEqual};
 pub use reach::{cycle_cones, CycleCone, CycleCones};
 pub use report::{
     KInductionLine, NameMismatch, OutputStatus, RegisterPair, SeqReport, UnpairedRegister,
@@ -58,6 +58,10 @@ pub struct SeqOptions {
     /// Deepest k-induction step tried on the output pairs the pairing leaves open (`0`: none;
     /// `None`: [`AUTO_K_INDUCTION`] when the product has at most [`AUTO_K_STATE`] state bits).
     pub k_induction: Option<usize>,
+    /// A port map whose register lines pair registers (`--port-map`; its other lines must name
+    /// the same port on both sides). Its pairs without a reset start equal (an assumption,
+    /// reported); every pair is still proved inductive like any other.
+    pub port_map: Option<std::sync::Arc<crate::portmap::BitMap>>,
 }
 
 /// The depth k-induction tries by default.
@@ -75,6 +79,7 @@ impl Default for SeqOptions {
             sim_words: 4,
             limits: Limits::none(),
             k_induction: None,
+            port_map: None,
         }
     }
 }
@@ -91,7 +96,14 @@ pub enum SeqError {
 /// Check two clocked designs (either may have no registers).
 pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqError> {
     let start = std::time::Instant::now();
-    let mut p = Product::build(r, c, o.init_unset, o.free_extra_inputs).map_err(SeqError::Input)?;
+    let mut p = Product::build(
+        r,
+        c,
+        o.init_unset,
+        o.free_extra_inputs,
+        o.port_map.as_deref(),
+    )
+    .map_err(SeqError::Input)?;
     log::debug!(
         "clocked: product of {} nodes, {} state bits built in {:.2?}",
         p.aig.len(),
@@ -102,7 +114,7 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     log::debug!("clocked: simulated by {:.2?}", start.elapsed());
     let mut classes = Classes::from_signatures(&p, &sim.signatures);
     classes.split_by_init(&p);
-    let name_checks = report::name_matches(r, c, &p, &classes, &sim);
+    let name_checks = report::name_matches(&p, &sim, o.port_map.as_deref());
     let mut stopped = None;
     let refinements = match correspond::make_inductive(&mut p, &mut classes, &o.limits) {
         Ok(n) => n,
@@ -255,6 +267,7 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
         k_induction,
         stopped,
         init_unset: o.init_unset,
+        port_map: o.port_map.as_deref(),
         sim_runs: o.sim_words.max(1) * 64,
         sim_cycles: o.sim_cycles.max(1),
         seconds: start.elapsed().as_secs_f64(),
@@ -278,7 +291,7 @@ fn build_trace(
         }
         let value = match s.init {
             Init::Const(v) => v,
-            Init::Free(k) => init.get(&k).copied().unwrap_or(false),
+            Init::Free(k, inv) => init.get(&k).copied().unwrap_or(false) ^ inv,
         };
         initial.push(InitialValue {
             side: s.side,

@@ -9,6 +9,7 @@ use crate::aig::{Aig, Lit};
 use crate::design::{Design, InputKind};
 use crate::diag::{Diagnostic, InputError};
 pub use crate::engine::Side;
+use crate::portmap::BitMap;
 use serde::{Deserialize, Serialize};
 use std::collections::{BTreeMap, BTreeSet};
 
@@ -26,8 +27,10 @@ pub struct FreeInput {
 pub enum Init {
     /// Set by reset (or `--init-unset 0|1`).
     Const(bool),
-    /// A free initial value; the number identifies it (each register without a reset has its own).
-    Free(u32),
+    /// A free initial value; the number identifies it (each register without a reset has its own,
+    /// except that a register and its same-named or port-map partner share one), and `true`
+    /// starts the register at its complement (a port-map pair written `~q`).
+    Free(u32, bool),
 }
 
 /// One state bit: a register of one design.
@@ -96,6 +99,21 @@ pub struct Product {
     pub outputs: Vec<OutPair>,
     /// Inputs held constant.
     pub held: Vec<HeldInput>,
+    /// Register pairs of the port map without a reset that start equal (or, inverted,
+    /// complementary): an assumption of the check, reported.
+    pub start_equal: Vec<StartEqual>,
+}
+
+/// A reference register and its port-map partner in the candidate, both without a reset,
+/// assumed to start at the same value (the candidate at its complement when `inverted`).
+#[derive(Clone, Debug, PartialEq, Eq, PartialOrd, Ord, Serialize, Deserialize)]
+pub struct StartEqual {
+    /// The reference register bit.
+    pub reference: String,
+    /// The candidate register bit.
+    pub candidate: String,
+    /// The candidate starts at the complement.
+    pub inverted: bool,
 }
 
 /// The role of each AIG input of one design in a run: held at a value, or free.
@@ -154,12 +172,14 @@ fn check_one_clock(d: &Design) -> Result<(), InputError> {
 
 impl Product {
     /// Build the product of `r` and `c`; port bits pair by name. `free_extra` leaves port bits
-    /// that only one design has free instead of refusing them.
+    /// that only one design has free instead of refusing them. The register pairs of `map`
+    /// (a port map) without a reset start at one shared free value.
     pub fn build(
         r: &Design,
         c: &Design,
         init_unset: InitUnset,
         free_extra: bool,
+        map: Option<&BitMap>,
     ) -> Result<Product, InputError> {
         check_one_clock(r)?;
         check_one_clock(c)?;
@@ -282,31 +302,65 @@ impl Product {
         // State bits: reference registers, then candidate registers.
         let mut state = Vec::new();
         let mut next_free = 0u32;
-        // Same-named registers without a reset share one free initial value.
+        // Same-named registers without a reset share one free initial value, and so do the
+        // register pairs of the port map (which then do not share by name).
         let mut free_of: BTreeMap<String, u32> = BTreeMap::new();
-        for (side, d, map) in [
+        let mapped: BTreeMap<&str, &str> = map
+            .map(|m| {
+                m.registers
+                    .iter()
+                    .filter_map(|rn| m.pairs.get(rn).map(|cn| (rn.as_str(), cn.as_str())))
+                    .collect()
+            })
+            .unwrap_or_default();
+        let mapped_c: BTreeSet<&str> = mapped.values().copied().collect();
+        // Candidate register -> (the shared value, its reference partner).
+        let mut free_of_map: BTreeMap<&str, (u32, &str)> = BTreeMap::new();
+        let mut start_equal = Vec::new();
+        for (side, d, imap) in [
             (Side::Reference, r, &mut map_r),
             (Side::Candidate, c, &mut map_c),
         ] {
             for (i, reg) in d.registers.iter().enumerate() {
                 let cur = aig.add_input();
-                map[reg.input] = cur;
+                imap[reg.input] = cur;
                 let init = match (reg.init, init_unset) {
                     (Some(v), _) => Init::Const(v),
                     (None, InitUnset::Value(v)) => Init::Const(v),
+                    (None, InitUnset::Free) if side == Side::Candidate => {
+                        let inverted = map.is_some_and(|m| m.inverted.contains(&reg.name));
+                        if let Some((k, rn)) = free_of_map.remove(reg.name.as_str()) {
+                            start_equal.push(StartEqual {
+                                reference: rn.to_string(),
+                                candidate: reg.name.clone(),
+                                inverted,
+                            });
+                            Init::Free(k, inverted)
+                        } else {
+                            let key = super::names::normalize(&reg.name);
+                            let shared = (!mapped_c.contains(reg.name.as_str()))
+                                .then(|| free_of.remove(&key))
+                                .flatten();
+                            Init::Free(
+                                shared.unwrap_or_else(|| {
+                                    next_free += 1;
+                                    next_free - 1
+                                }),
+                                false,
+                            )
+                        }
+                    }
                     (None, InitUnset::Free) => {
-                        let key = super::names::normalize(&reg.name);
-                        let shared = match side {
-                            Side::Candidate => free_of.remove(&key),
-                            _ => None,
-                        };
-                        Init::Free(shared.unwrap_or_else(|| {
-                            next_free += 1;
-                            if side == Side::Reference {
-                                free_of.insert(key, next_free - 1);
+                        next_free += 1;
+                        match mapped.get(reg.name.as_str()) {
+                            Some(cn) => {
+                                free_of_map.insert(cn, (next_free - 1, reg.name.as_str()));
                             }
-                            next_free - 1
-                        }))
+                            None => {
+                                free_of.insert(super::names::normalize(&reg.name), next_free - 1);
+                            }
+                        }
+                        Init::Free(next_free - 1, false)
                     }
                 };
                 state.push(StateBit {
@@ -374,12 +428,14 @@ impl Product {
             .collect();
         held.sort();
         held.dedup();
+        start_equal.sort();
         Ok(Product {
             aig,
             free,
             state,
             outputs,
             held,
+            start_equal,
         })
     }
 }

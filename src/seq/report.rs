@@ -9,6 +9,7 @@ use super::simulate::SimRun;
 use super::trace::{replay, Trace};
 use crate::design::Design;
 use crate::engine::Verdict;
+use crate::portmap::BitMap;
 use crate::sat::StopReason;
 use serde::{Deserialize, Serialize};
 use std::collections::BTreeMap;
@@ -22,7 +23,8 @@ pub struct RegisterPair {
     pub candidate: String,
     /// The candidate holds the complement.
     pub inverted: bool,
-    /// `name` (the names agree up to synthesis renamings) or `behaviour`.
+    /// `port map` (a register line of `--port-map`), `name` (the names agree up to synthesis
+    /// renamings) or `behaviour`.
     pub found_by: &'static str,
 }
 
@@ -100,6 +102,17 @@ pub struct SeqReport {
     pub unpaired: Vec<UnpairedRegister>,
     /// Name matches that did not become pairs.
     pub name_mismatches: Vec<NameMismatch>,
+    /// The port map file (`--port-map`), when one was given.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub port_map: Option<String>,
+    /// Register pairs of the port map that did not become pairs (or not with the inversion
+    /// the map states), with the evidence.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub map_mismatches: Vec<NameMismatch>,
+    /// The assumption a port map adds: its register pairs without a reset start equal (the
+    /// candidate at the complement for `~`), so the verdict holds for runs that start so.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub assumed_start_equal: Vec<super::product::StartEqual>,
     /// How the pairing was found and proved.
     pub pairing_evidence: String,
     /// Induction counterexamples that refined the pairing.
@@ -143,43 +156,88 @@ pub struct NameMatch {
     r: usize,
     c: usize,
     sim: Option<String>,
+    /// From a register line of the port map, with the inversion it states.
+    by_map: Option<bool>,
 }
 
-/// Register bits of the two designs whose names agree after `normalize`, with the simulation's
-/// evidence when their sequences differ.
-pub fn name_matches(
-    _r: &Design,
-    _c: &Design,
-    p: &Product,
-    _classes: &Classes,
-    sim: &SimRun,
-) -> Vec<NameMatch> {
+/// Register bits of the two designs whose names agree after `normalize`, and the register pairs
+/// of the port map `map` (whose registers do not match by name), with the simulation's evidence
+/// when their sequences differ.
+pub fn name_matches(p: &Product, sim: &SimRun, map: Option<&BitMap>) -> Vec<NameMatch> {
     let mut by_name: BTreeMap<String, usize> = BTreeMap::new();
+    let mut ref_at: BTreeMap<&str, usize> = BTreeMap::new();
+    let in_map = |side: Side, name: &str| {
+        map.is_some_and(|m| match side {
+            Side::Candidate => m
+                .registers
+                .iter()
+                .any(|r| m.pairs.get(r).is_some_and(|c| c == name)),
+            _ => m.registers.contains(name),
+        })
+    };
     for (k, s) in p.state.iter().enumerate() {
         if s.side == Side::Reference {
-            by_name.entry(normalize(&s.name)).or_insert(k);
+            ref_at.insert(&s.name, k);
+            if !in_map(s.side, &s.name) {
+                by_name.entry(normalize(&s.name)).or_insert(k);
+            }
         }
     }
+    let evidence = |j: usize, k: usize, inverted: Option<bool>| {
+        let (a, b) = (&sim.signatures[j], &sim.signatures[k]);
+        let differ = |inv: u64| a.iter().zip(b).position(|(x, y)| x ^ y ^ inv != 0);
+        let w = match inverted {
+            None => differ(0).zip(differ(!0)).map(|(w, _)| w),
+            Some(inv) => differ(if inv { !0 } else { 0 }),
+        };
+        w.map(|w| {
+            format!(
+                "their values {}differ in simulated cycle {} from reset",
+                if inverted == Some(true) {
+                    "(one inverted) "
+                } else {
+                    ""
+                },
+                w / sim.words
+            )
+        })
+    };
     let mut out = Vec::new();
     for (k, s) in p.state.iter().enumerate() {
         if s.side != Side::Candidate {
             continue;
         }
+        if in_map(s.side, &s.name) {
+            continue;
+        }
         if let Some(&j) = by_name.get(&normalize(&s.name)) {
-            let (a, b) = (&sim.signatures[j], &sim.signatures[k]);
-            let differ = |inv: u64| a.iter().zip(b).position(|(x, y)| x ^ y ^ inv != 0);
-            let ev = match (differ(0), differ(!0)) {
-                (Some(w), Some(_)) => Some(format!(
-                    "their values differ in simulated cycle {} from reset",
-                    w / sim.words
-                )),
-                _ => None,
-            };
             out.push(NameMatch {
                 r: j,
                 c: k,
-                sim: ev,
+                sim: evidence(j, k, None),
+                by_map: None,
             });
+        }
+    }
+    if let Some(m) = map {
+        let cand_at: BTreeMap<&str, usize> = p
+            .state
+            .iter()
+            .enumerate()
+            .filter(|(_, s)| s.side == Side::Candidate)
+            .map(|(k, s)| (s.name.as_str(), k))
+            .collect();
+        for rn in &m.registers {
+            let Some(cn) = m.pairs.get(rn) else { continue };
+            if let (Some(&j), Some(&k)) = (ref_at.get(rn.as_str()), cand_at.get(cn.as_str())) {
+                let inv = m.inverted.contains(cn);
+                out.push(NameMatch {
+                    r: j,
+                    c: k,
+                    sim: evidence(j, k, Some(inv)),
+                    by_map: Some(inv),
+                });
+            }
         }
     }
     out
@@ -203,6 +261,7 @@ pub struct Parts<'a> {
     pub k_induction: Option<KInductionLine>,
     pub stopped: Option<StopReason>,
     pub init_unset: InitUnset,
+    pub port_map: Option<&'a BitMap>,
     pub sim_runs: usize,
     pub sim_cycles: usize,
     pub seconds: f64,
@@ -218,6 +277,7 @@ pub fn build(x: Parts<'_>) -> SeqReport {
         .map(|(k, s)| (s.current.node(), k))
         .collect();
     let mut group_of: BTreeMap<usize, usize> = BTreeMap::new();
+    let mut phase_of: BTreeMap<usize, bool> = BTreeMap::new();
     let mut pairs = Vec::new();
     let mut note: BTreeMap<usize, String> = BTreeMap::new();
     for (gi, g) in x.classes.groups.iter().enumerate() {
@@ -226,8 +286,9 @@ pub fn build(x: Parts<'_>) -> SeqReport {
             .filter(|m| !m.is_const())
             .map(|m| (at[&m.node()], m.is_complemented()))
             .collect();
-        for &(k, _) in &refs {
+        for &(k, inv) in &refs {
             group_of.insert(k, gi);
+            phase_of.insert(k, inv);
         }
         if g[0].is_const() {
             for &(k, inv) in &refs {
@@ -246,11 +307,18 @@ pub fn build(x: Parts<'_>) -> SeqReport {
             match (s.side, first_r, first_c) {
                 (Side::Candidate, Some(&(j, jinv)), _) => {
                     let rn = &p.state[j].name;
+                    let by_map = x.port_map.is_some_and(|m| {
+                        m.registers.contains(rn)
+                            && m.pairs.get(rn) == Some(&s.name)
+                            && m.inverted.contains(&s.name) == (inv != jinv)
+                    });
                     pairs.push(RegisterPair {
                         reference: rn.clone(),
                         candidate: s.name.clone(),
                         inverted: inv != jinv,
-                        found_by: if normalize(rn) == normalize(&s.name) {
+                        found_by: if by_map {
+                            "port map"
+                        } else if normalize(rn) == normalize(&s.name) {
                             "name"
                         } else {
                             "behaviour"
@@ -303,24 +371,44 @@ pub fn build(x: Parts<'_>) -> SeqReport {
                 .unwrap_or_else(|| "no partner".to_string()),
         })
         .collect();
+    let apart = |m: &&NameMatch| {
+        !group_of.contains_key(&m.r)
+            || group_of.get(&m.r) != group_of.get(&m.c)
+            || m.by_map.is_some_and(|inv| {
+                phase_of.get(&m.r).copied().unwrap_or(false)
+                    ^ phase_of.get(&m.c).copied().unwrap_or(false)
+                    != inv
+            })
+    };
+    let mismatch = |m: &NameMatch| NameMismatch {
+        reference: p.state[m.r].name.clone(),
+        candidate: p.state[m.c].name.clone(),
+        evidence: m.sim.clone().unwrap_or_else(|| {
+            let (a, b) = (p.state[m.r].init, p.state[m.c].init);
+            let shared = match (a, b) {
+                (Init::Free(i, _), Init::Free(j, _)) => i == j,
+                _ => false,
+            };
+            if !shared && (a != b || matches!(a, Init::Free(..))) {
+                "their initial values may differ".to_string()
+            } else {
+                "equal in simulation, but an induction counterexample separated them".to_string()
+            }
+        }),
+    };
     let name_mismatches = x
         .name_checks
         .iter()
-        .filter(|m| !group_of.contains_key(&m.r) || group_of.get(&m.r) != group_of.get(&m.c))
-        .map(|m| NameMismatch {
-            reference: p.state[m.r].name.clone(),
-            candidate: p.state[m.c].name.clone(),
-            evidence: m.sim.clone().unwrap_or_else(|| {
-                if p.state[m.r].init != p.state[m.c].init
-                    || matches!(p.state[m.r].init, Init::Free(_))
-                {
-                    "their initial values may differ".to_string()
-                } else {
-                    "equal in simulation, but an induction counterexample separated them"
-                        .to_string()
-                }
-            }),
-        })
+        .filter(|m| m.by_map.is_none())
+        .filter(apart)
+        .map(mismatch)
+        .collect();
+    let map_mismatches = x
+        .name_checks
+        .iter()
+        .filter(|m| m.by_map.is_some())
+        .filter(apart)
+        .map(mismatch)
         .collect();
     let without_reset: Vec<String> = p
         .state
@@ -387,6 +475,9 @@ pub fn build(x: Parts<'_>) -> SeqReport {
         pairs,
         unpaired,
         name_mismatches,
+        port_map: x.port_map.map(|m| m.file.clone()),
+        map_mismatches,
+        assumed_start_equal: p.start_equal.clone(),
         pairing_evidence: format!(
             "grouped by equal or complementary values in {} simulated runs of {} cycles from reset, kept where the initial values agree, then proved inductive by SAT after {} refinement(s)",
             x.sim_runs, x.sim_cycles,

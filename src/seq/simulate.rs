@@ -33,7 +33,7 @@ pub fn simulate(p: &Product, cycles: usize, words: usize, seed: u64) -> SimRun {
         .state
         .iter()
         .filter_map(|s| match s.init {
-            Init::Free(k) => Some(k as usize + 1),
+            Init::Free(k, _) => Some(k as usize + 1),
             Init::Const(_) => None,
         })
         .max()
@@ -44,7 +44,10 @@ pub fn simulate(p: &Product, cycles: usize, words: usize, seed: u64) -> SimRun {
         .iter()
         .map(|s| match s.init {
             Init::Const(v) => vec![if v { !0 } else { 0 }; words],
-            Init::Free(k) => init[k as usize].clone(),
+            Init::Free(k, inv) => init[k as usize]
+                .iter()
+                .map(|&w| if inv { !w } else { w })
+                .collect(),
         })
         .collect();
     let mut signatures = vec![Vec::with_capacity(cycles * words); p.state.len()];

@@ -132,6 +132,8 @@ impl fmt::Display for SeqReport {
         }
         if !self.without_reset.is_empty() {
             let how = match self.init_unset.as_str() {
+                "free" if self.port_map.is_some() => "start at free values (a register and its same-named or port-map partner share one)"
+                    .to_string(),
                 "free" => "start at free values (a register and its same-named partner share one)"
                     .to_string(),
                 v => format!("start at {v} (--init-unset {v})"),
@@ -164,6 +166,22 @@ impl fmt::Display for SeqReport {
             writeln!(f, "  {:<w$} = {inv}{}   {how}", p.reference, p.candidate)?;
         }
         writeln!(f, "  evidence: {}", self.pairing_evidence)?;
+        if !self.assumed_start_equal.is_empty() {
+            let v: Vec<String> = self
+                .assumed_start_equal
+                .iter()
+                .map(|s| {
+                    let inv = if s.inverted { "!" } else { "" };
+                    format!("{} = {inv}{}", s.reference, s.candidate)
+                })
+                .collect();
+            writeln!(
+                f,
+                "assumption (port map {}): these registers without a reset start equal, so the verdict covers only runs that power up so: {}",
+                self.port_map.as_deref().unwrap_or("-"),
+                v.join(", ")
+            )?;
+        }
         if !self.unpaired.is_empty() {
             writeln!(f, "unpaired registers ({}):", self.unpaired.len())?;
             for u in &self.unpaired {
@@ -174,6 +192,13 @@ impl fmt::Display for SeqReport {
             writeln!(
                 f,
                 "names match but not paired: reference {} / candidate {}: {}",
+                m.reference, m.candidate, m.evidence
+            )?;
+        }
+        for m in &self.map_mismatches {
+            writeln!(
+                f,
+                "in the port map but not paired: reference {} / candidate {}: {}",
                 m.reference, m.candidate, m.evidence
             )?;
         }
@@ -215,7 +240,7 @@ impl fmt::Display for SeqReport {
                 if sides.len() > 1 {
                     writeln!(
                         f,
-                        "  (registers without a reset start at free values, so the two designs may power up differently, as here; only same-named registers share one value: if both always power up alike, give their registers the same names)"
+                        "  (registers without a reset start at free values, so the two designs may power up differently, as here; only same-named registers share one value: if both always power up alike, give their registers the same names or pair them in a port map, --port-map)"
                     )?;
                 }
             }

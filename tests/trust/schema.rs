@@ -109,4 +109,20 @@ fn eval_and_routes_json_carry_a_schema() {
     assert_eq!(code(&e), 0, "{}", stderr(&e));
     let v: serde_json::Value = serde_json::from_str(&stdout(&e)).unwrap();
     assert_eq!(v["schema"], 1);
+    // Without --select, routes takes the usual select name the design has, as prove's
+    // diagnosis does; a design with none is a usage error naming the option.
+    let d = equicone(&[
+        "routes",
+        "bench-circuits/examples/mux4_spec.bench",
+        "--json",
+    ]);
+    assert_eq!(code(&d), 0, "{}", stderr(&d));
+    let w: serde_json::Value = serde_json::from_str(&stdout(&d)).unwrap();
+    assert_eq!(
+        (w["select"].clone(), w["tables"].clone()),
+        (v["select"].clone(), v["tables"].clone())
+    );
+    let n = equicone(&["routes", "bench-circuits/decoder/dec3_flat.bench"]);
+    assert_eq!(code(&n), 2, "{}", stderr(&n));
+    assert!(stderr(&n).contains("--select BUS"), "{}", stderr(&n));
 }

@@ -7,6 +7,7 @@ mod fixtures;
 mod hierarchy;
 mod iverilog_diff;
 mod large;
+mod late_constructs;
 mod netlists;
 #[path = "../oracle/mod.rs"]
 mod oracle;

@@ -257,6 +257,20 @@ pub struct Instance {
     pub conns: Conns,
     /// Where the instance is written.
     pub pos: Pos,
+    /// The range of an array of instances (`cell u[3:0] (...)`, IEEE 1364-2005 clause 12.1.2).
+    pub array: Option<Range>,
+}
+
+/// `defparam a.b.P = expr;`: the instance path, the parameter, the value (IEEE 1364-2005
+/// clause 12.2.1).
+#[derive(Clone, Debug)]
+pub struct Defparam {
+    /// Instance names from this module down, then the parameter name.
+    pub path: Vec<(Sym, Pos)>,
+    /// The value, a constant expression of the module where the `defparam` is written.
+    pub value: Expr,
+    /// Where the `defparam` is written.
+    pub pos: Pos,
 }
 
 /// A statement of an `always` block.
@@ -276,6 +290,31 @@ pub enum Stmt {
     For(Box<ForStmt>),
     /// `;`
     Null,
+    /// `unique`, `unique0` or `priority` before a `case` or an `if` (IEEE 1800-2017 clauses
+    /// 12.4.2 and 12.5.3, from memory): where the keyword is written and the statement.
+    Qualified(Qualifier, Pos, Box<Stmt>),
+}
+
+/// The checks a `case` or `if` qualifier asks for.
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub enum Qualifier {
+    /// `unique`: at most one item matches, and some item matches (unless `default`/`else`).
+    Unique,
+    /// `unique0`: at most one item matches.
+    Unique0,
+    /// `priority`: some item matches (unless `default`/`else`).
+    Priority,
+}
+
+impl Qualifier {
+    /// The keyword.
+    pub fn text(self) -> &'static str {
+        match self {
+            Qualifier::Unique => "unique",
+            Qualifier::Unique0 => "unique0",
+            Qualifier::Priority => "priority",
+        }
+    }
 }
 
 /// A clock edge in an event list.
@@ -377,6 +416,8 @@ pub enum Item {
     Gate(GateKind, Box<[Expr]>, Pos),
     /// Module instance.
     Inst(Box<Instance>),
+    /// `defparam u1.P = 8;`
+    Defparam(Box<Defparam>),
     /// `always @*`, `always @(a or b)`, `always_comb`, ...
     Always(Box<Always>, Pos),
     /// Generate loop.

@@ -20,9 +20,16 @@ impl Parser<'_, '_> {
         };
         loop {
             let (name, pos) = self.ident("an instance name")?;
-            if self.peek_p(Punct::LBrack) {
-                return Err(self.unsupported_here("arrays of instances"));
-            }
+            // An array of instances (IEEE 1364-2005 clause 12.1.2): `u[3:0]`.
+            let array = if self.eat_p(Punct::LBrack) {
+                let msb = self.expr()?;
+                self.expect_p(Punct::Colon, "`:` in the range of an array of instances")?;
+                let lsb = self.expr()?;
+                self.expect_p(Punct::RBrack, "`]` closing the range")?;
+                Some(Range { msb, lsb })
+            } else {
+                None
+            };
             self.expect_p(Punct::LParen, "`(` of the port connections")?;
             let conns = self.conns()?;
             self.expect_p(Punct::RParen, "`)` closing the port connections")?;
@@ -32,12 +39,43 @@ impl Parser<'_, '_> {
                 name,
                 conns,
                 pos,
+                array,
             })));
             if !self.eat_p(Punct::Comma) {
                 break;
             }
         }
         self.expect_p(Punct::Semi, "`;` after the instance")
+    }
+
+    /// `defparam a.P = e, b.c.Q = f;` (IEEE 1364-2005 clause 12.2.1), the keyword next.
+    pub(super) fn defparam(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+        self.bump();
+        loop {
+            let pos = self.peek_pos();
+            let mut path = vec![self.ident("an instance name")?];
+            while self.eat_p(Punct::Dot) {
+                path.push(self.ident("an instance or parameter name")?);
+            }
+            if self.peek_p(Punct::LBrack) {
+                return Err(self.unsupported_here(
+                    "a `defparam` path through an array of instances or a generate block (name instances of the module and their instances only)",
+                ));
+            }
+            if path.len() < 2 {
+                return Err(self.error(
+                    pos,
+                    "a `defparam` names an instance and its parameter, e.g. `defparam u1.W = 8;`",
+                ));
+            }
+            self.expect_p(Punct::Assign, "`=` in a `defparam`")?;
+            let value = self.expr()?;
+            out.push(Item::Defparam(Box::new(Defparam { path, value, pos })));
+            if !self.eat_p(Punct::Comma) {
+                break;
+            }
+        }
+        self.expect_p(Punct::Semi, "`;` after the `defparam`")
     }
 
     fn conns(&mut self) -> PResult<Conns> {

@@ -19,12 +19,22 @@ impl Parser<'_, '_> {
     fn stmt_inner(&mut self) -> PResult<Stmt> {
         // SystemVerilog `unique`, `unique0` and `priority` before `case` or `if` (IEEE
         // 1800-2017 clauses 12.4.2 and 12.5.3, from memory): read as the plain statement;
-        // the checks they ask of a simulator are not made.
+        // the checks they imply are made by the elaborator (`stmt/qualified.rs`) and reported
+        // as warnings.
         if let Tok::Ident(k) = self.peek().tok {
-            if matches!(self.names.name(k), "unique" | "unique0" | "priority")
-                && matches!(self.peek2().tok, Tok::Ident(c) if c == kw::CASE || c == kw::CASEZ || c == kw::IF)
-            {
-                self.bump();
+            let q = match self.names.name(k) {
+                "unique" => Some(super::ast::Qualifier::Unique),
+                "unique0" => Some(super::ast::Qualifier::Unique0),
+                "priority" => Some(super::ast::Qualifier::Priority),
+                _ => None,
+            };
+            if let Some(q) = q {
+                if matches!(self.peek2().tok, Tok::Ident(c) if c == kw::CASE || c == kw::CASEZ || c == kw::IF)
+                {
+                    let at = self.bump().pos;
+                    let inner = self.stmt_inner()?;
+                    return Ok(Stmt::Qualified(q, at, Box::new(inner)));
+                }
             }
         }
         let t = self.peek().clone();

@@ -588,6 +588,8 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
             self.expect_p(Punct::Semi, "`;` after the parameter declaration")?;
             out.push(Item::Param(Box::new(pd)));
+        } else if k == kw::DEFPARAM {
+            self.defparam(out)?;
         } else if k == kw::GENVAR {
             self.bump();
             let mut v = vec![self.ident("a genvar name")?];

@@ -168,6 +168,8 @@ pub struct Elaborator<'a> {
     clocked: stmt::Clocked,
     /// Each `===`/`!==`: where, and its operand bits (see `case_eq.rs`).
     case_eq: Vec<(Pos, &'static str, Vec<Lit>)>,
+    /// `defparam`s waiting for the instance they name (`flatten/defparam.rs`).
+    defparams: Vec<flatten::PendingDefparam>,
 }
 
 impl<'a> Elaborator<'a> {
@@ -196,6 +198,7 @@ impl<'a> Elaborator<'a> {
             coverage_memo: Default::default(),
             clocked: Default::default(),
             case_eq: Vec::new(),
+            defparams: Vec::new(),
         }
     }
 
@@ -222,6 +225,7 @@ impl<'a> Elaborator<'a> {
             coverage_memo: self.coverage_memo,
             clocked: self.clocked,
             case_eq: self.case_eq,
+            defparams: self.defparams,
         }
     }
 

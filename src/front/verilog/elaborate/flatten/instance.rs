@@ -1,12 +1,22 @@
-//! Module instances inside a module: parameter overrides, the sub-module elaborated with
-//! its hierarchical prefix, and its port connections (by name or by position; inputs
-//! driven from the connected expression, outputs driving the connected nets).
+//! Module instances inside a module: parameter overrides (with the `defparam`s that name
+//! the instance), the sub-module elaborated with its hierarchical prefix, and its port
+//! connections (by name or by position; inputs driven from the connected expression,
+//! outputs driving the connected nets). An array of instances `u[3:0]` (IEEE 1364-2005
+//! clause 12.1.2) is one instance per index, named `u[3]` ... `u[0]`; a connection as wide
+//! as the port goes to every instance, one as wide as all their ports together is split,
+//! the instance of the right-hand index of the range taking the least significant bits.
 
 use super::super::bits::extend;
 use super::super::context::EvalContext;
-use super::super::{Elaborator, Symbol};
+use super::super::{span, Elaborator, Symbol};
 use super::module::{elab_instance, OverrideTarget};
-use crate::front::verilog::ast::{Conns, Dir, Expr, Instance};
+use crate::aig::Lit;
+use crate::front::verilog::ast::{Conns, Dir, Expr, Instance, Module};
+
+/// The connections of an array of instances, evaluated once for all of them (by port):
+/// `None` before the first instance, `Some(None)` after an error.
+type ArrayConns = Vec<Option<Option<Vec<Lit>>>>;
+type ArrayTargets = Vec<Option<Option<Vec<(u32, Option<u32>)>>>>;
 
 impl<'a> Elaborator<'a> {
     /// Elaborate instance `inst` written in scope `scope`.
@@ -23,7 +33,6 @@ impl<'a> Elaborator<'a> {
                 return;
             }
         };
-        let mname = self.name(m.name);
         let iname = self.name(inst.name);
         let mut overrides = Vec::new();
         match &inst.params {
@@ -47,7 +56,55 @@ impl<'a> Elaborator<'a> {
             }
             None => {}
         }
+        let Some(r) = &inst.array else {
+            return self.instance_one(scope, inst, m, iname.to_string(), overrides, None);
+        };
+        let Some((a, b)) = self.range_bounds(scope, r) else {
+            return;
+        };
+        let count = span(a, b).unwrap_or(1);
+        let mut ins: ArrayConns = vec![None; m.ports.len()];
+        let mut outs: ArrayTargets = vec![None; m.ports.len()];
+        let step = if a >= b { -1 } else { 1 };
+        for k in 0..count as i64 {
+            let i = a + k * step;
+            // Position from the right-hand index: its slice of a split connection.
+            let slot = (i - b).unsigned_abs() as usize;
+            let arr = ArrayCtx {
+                slot,
+                count,
+                ins: &mut ins,
+                outs: &mut outs,
+            };
+            self.instance_one(
+                scope,
+                inst,
+                m,
+                format!("{iname}[{i}]"),
+                overrides.clone(),
+                Some(arr),
+            );
+        }
+    }
+
+    /// One instance (of an array: `arr` says which) named `iname` in scope `scope`.
+    fn instance_one(
+        &mut self,
+        scope: u32,
+        inst: &'a Instance,
+        m: &'a Module,
+        iname: String,
+        mut overrides: Vec<(
+            super::module::OverrideTarget,
+            super::super::Value,
+            crate::front::verilog::pos::Pos,
+        )>,
+        mut arr: Option<ArrayCtx>,
+    ) {
+        let mname = self.name(m.name);
+        let iname = iname.as_str();
         let prefix = format!("{}{}.", self.scopes[scope as usize].prefix, iname);
+        overrides.extend(self.take_defparams(&prefix));
         let child = elab_instance(self, m, prefix, overrides, inst.pos);
         // Connections by port index.
         let mut conn: Vec<Option<&Expr>> = vec![None; m.ports.len()];
@@ -118,6 +175,53 @@ impl<'a> Elaborator<'a> {
             };
             let pw = net.width as usize;
             match net.dir {
+                Some(Dir::Input) if arr.is_some() => {
+                    let a = arr.as_mut().expect("checked");
+                    if a.ins[k].is_none() {
+                        let t = self.expr_type(&ctx, ex);
+                        let ok = self.array_width(inst, m, k, t.width, pw, a.count);
+                        a.ins[k] = Some(ok.then(|| self.eval(&ctx, ex, pw.max(t.width), t.signed)));
+                    }
+                    let v = match &a.ins[k] {
+                        Some(Some(v)) => {
+                            let first = if v.len() >= pw * a.count && a.count > 1 {
+                                a.slot * pw
+                            } else {
+                                0
+                            };
+                            v[first..first + pw].to_vec()
+                        }
+                        // Reported once; a placeholder avoids "not connected" follow-ons.
+                        _ => vec![Lit::FALSE; pw],
+                    };
+                    for (off, &l) in v.iter().enumerate() {
+                        self.drive(n, off as u32, l, ex.pos());
+                    }
+                }
+                Some(Dir::Output) if arr.is_some() => {
+                    let a = arr.as_mut().expect("checked");
+                    if a.outs[k].is_none() {
+                        let t = self.targets(&ctx, ex, false);
+                        let ok = t
+                            .as_ref()
+                            .is_some_and(|t| self.array_width(inst, m, k, t.len(), pw, a.count));
+                        a.outs[k] = Some(if ok { t } else { None });
+                    }
+                    if let Some(Some(t)) = &a.outs[k] {
+                        let first = if t.len() >= pw * a.count && a.count > 1 {
+                            a.slot * pw
+                        } else {
+                            0
+                        };
+                        let t = t[first..first + pw].to_vec();
+                        let v = self.net_bits(n);
+                        for (j, (tn, off)) in t.into_iter().enumerate() {
+                            if let Some(off) = off {
+                                self.drive(tn, off, v[j], ex.pos());
+                            }
+                        }
+                    }
+                }
                 Some(Dir::Input) => {
                     let t = self.expr_type(&ctx, ex);
                     let v = self.eval(&ctx, ex, pw.max(t.width), t.signed);
@@ -152,5 +256,39 @@ impl<'a> Elaborator<'a> {
                 ),
             }
         }
+    }
+}
+
+/// Which instance of an array is elaborated, and the connections shared by all of them.
+struct ArrayCtx<'c> {
+    slot: usize,
+    count: usize,
+    ins: &'c mut ArrayConns,
+    outs: &'c mut ArrayTargets,
+}
+
+impl Elaborator<'_> {
+    /// Whether a connection of `width` bits fits port `k` (`pw` bits) of an array of `count`
+    /// instances: `pw` (every instance) or `pw * count` (split); an error otherwise.
+    fn array_width(
+        &mut self,
+        inst: &Instance,
+        m: &Module,
+        k: usize,
+        width: usize,
+        pw: usize,
+        count: usize,
+    ) -> bool {
+        if width == pw || width == pw * count {
+            return true;
+        }
+        let pn = self.name(m.ports[k].0);
+        let iname = self.name(inst.name);
+        self.error(
+            inst.pos,
+            format!("port `{pn}` of the array of instances `{iname}` ({count} instances) is connected to {width} bits; the port is {pw} bits"),
+            format!("connect {pw} bits (the same to every instance) or {} bits (split, the instance of the range's right-hand index taking the least significant bits; IEEE 1364-2005 clause 12.1.2)", pw * count),
+        );
+        false
     }
 }

@@ -21,6 +21,8 @@ pub enum OverrideTarget {
     ByName(Sym),
     /// By position among the overridable parameters.
     ByPosition(usize),
+    /// By name, from a `defparam` (wins over the other two).
+    Defparam(Sym),
 }
 
 fn walk_instances<'m>(items: &'m [Item], out: &mut Vec<&'m Instance>) {
@@ -148,6 +150,10 @@ pub fn elab_instance<'a>(
                 format!("module `{mn}` has no parameter `{}`", e.name(s)),
                 "override only parameters the module declares (not `localparam`); check the spelling",
             ),
+            OverrideTarget::Defparam(s) => (
+                format!("`defparam`: module `{mn}` has no parameter `{}`", e.name(s)),
+                "set only parameters the module declares (not `localparam`); check the spelling",
+            ),
             OverrideTarget::ByPosition(k) => (
                 format!("module `{mn}` has fewer than {} parameters", k + 1),
                 "give no more overrides than the module has parameters, or override by name (`#(.N(8))`)",
@@ -168,7 +174,7 @@ struct Merged<'m> {
 }
 
 impl<'a> Elaborator<'a> {
-    fn range_bounds(&mut self, scope: u32, r: &Range) -> Option<(i64, i64)> {
+    pub(super) fn range_bounds(&mut self, scope: u32, r: &Range) -> Option<(i64, i64)> {
         let m = self.const_int(scope, &r.msb)?;
         let l = self.const_int(scope, &r.lsb)?;
         for (v, e) in [(m, &r.msb), (l, &r.lsb)] {
@@ -203,9 +209,21 @@ impl<'a> Elaborator<'a> {
             let mut val = None;
             if !pd.local {
                 if let Some(ov) = overrides.as_deref_mut() {
-                    if let Some(k) = ov.iter().position(|(w, _, _)| match w {
+                    let by_defparam = ov.iter().position(
+                        |(w, _, _)| matches!(w, OverrideTarget::Defparam(s) if s == name),
+                    );
+                    if let Some(k) = by_defparam {
+                        // A `defparam` wins over the instance's own values (IEEE 1364-2005
+                        // clause 12.2.1, from memory); those are dropped.
+                        val = Some(ov.remove(k).1);
+                        ov.retain(|(w, _, _)| match w {
+                            OverrideTarget::ByName(s) | OverrideTarget::Defparam(s) => s != name,
+                            OverrideTarget::ByPosition(k) => *k != *nth,
+                        });
+                    } else if let Some(k) = ov.iter().position(|(w, _, _)| match w {
                         OverrideTarget::ByName(s) => s == name,
                         OverrideTarget::ByPosition(k) => *k == *nth,
+                        OverrideTarget::Defparam(_) => false,
                     }) {
                         val = Some(ov.remove(k).1);
                     }
@@ -372,7 +390,8 @@ impl<'a> Elaborator<'a> {
                 }
             }
         }
-        // D: logic.
+        // D: logic; first the `defparam`s, which wait for the instances they name.
+        self.collect_defparams(scope, items);
         for (s, p, ex) in inits {
             self.cont_assign(scope, &Expr::Ident(s, p), ex, p);
         }
@@ -404,6 +423,7 @@ impl<'a> Elaborator<'a> {
                 _ => {}
             }
         }
+        self.unresolved_defparams(scope);
     }
 
     fn merge_decl<'m>(

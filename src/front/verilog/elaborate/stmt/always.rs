@@ -7,7 +7,7 @@ use super::super::{span, Elaborator, Sym, Symbol, MAX_LOOP, MAX_WIDTH};
 use super::coverage::{self, Coverage};
 use crate::aig::Lit;
 use crate::front::verilog::ast::{
-    Always, CaseStmt, Expr, ForStmt, NetType, Select, Sensitivity, Stmt,
+    Always, CaseStmt, Expr, ForStmt, NetType, Qualifier, Select, Sensitivity, Stmt,
 };
 use crate::front::verilog::lexer::{B0, B1};
 use crate::front::verilog::pos::Pos;
@@ -108,8 +108,16 @@ impl Elaborator<'_> {
                 }
                 *env = self.merge(cb, te, ee, *pos);
             }
-            Stmt::Case(c) => self.exec_case(scope, c, env),
+            Stmt::Case(c) => self.exec_case(scope, c, env, None),
             Stmt::For(f) => self.exec_for(scope, f, env),
+            Stmt::Qualified(q, at, inner) => match &**inner {
+                Stmt::Case(c) => self.exec_case(scope, c, env, Some((*q, *at))),
+                Stmt::If(..) => {
+                    self.check_if_chain(scope, *q, *at, inner, env);
+                    self.exec(scope, inner, env);
+                }
+                other => self.exec(scope, other, env),
+            },
         }
     }
 
@@ -444,13 +452,20 @@ impl Elaborator<'_> {
         }
     }
 
-    fn exec_case(&mut self, scope: u32, c: &CaseStmt, env: &mut Env) {
+    fn exec_case(
+        &mut self,
+        scope: u32,
+        c: &CaseStmt,
+        env: &mut Env,
+        qualifier: Option<(Qualifier, Pos)>,
+    ) {
         let ctx = EvalContext {
             scope,
             env: Some(env),
             constant: false,
         };
         let mut t = self.expr_type(&ctx, &c.expr);
+        let own_width = t.width;
         for (labels, _) in &c.items {
             for l in labels {
                 let u = self.expr_type(&ctx, l);
@@ -508,6 +523,16 @@ impl Elaborator<'_> {
                 any = self.aig.or(any, hit);
             }
             conds.push(any);
+        }
+        if let Some((q, at)) = qualifier {
+            let items: Vec<(Lit, Pos)> = conds
+                .iter()
+                .zip(&c.items)
+                .map(|(&l, (labels, _))| (l, labels.first().map_or(c.pos, |e| e.pos())))
+                .collect();
+            let shown = &sel[..own_width.min(sel.len())];
+            let stmt = if c.casez { "casez" } else { "case" };
+            self.check_qualified(q, at, stmt, &items, c.default.is_some(), Some(shown));
         }
         let mut acc = env.clone();
         if let Some(d) = &c.default {

@@ -92,6 +92,7 @@ fn leading_if(body: &Stmt) -> Option<(&Expr, &Stmt, Option<&Stmt>, Pos)> {
                 s = first;
             }
             Stmt::If(c, t, e, p) => return Some((c, t, e.as_deref(), *p)),
+            Stmt::Qualified(_, _, inner) => s = inner,
             _ => return None,
         }
     }
@@ -647,6 +648,7 @@ fn t_pos(s: &Stmt) -> Option<Pos> {
         Stmt::Block(v) => v.iter().find_map(t_pos),
         Stmt::Case(c) => Some(c.pos),
         Stmt::For(f) => Some(f.pos),
+        Stmt::Qualified(_, p, _) => Some(*p),
         Stmt::Null => None,
     }
 }

@@ -2,7 +2,7 @@
 //! symbolically (`always.rs`), their event lists checked against what they read
 //! (`sensitivity.rs`), and a variable left unassigned on some path is a latch error unless
 //! the paths that assign it cover every value (`coverage.rs`); edge-triggered blocks go to
-//! `clocked.rs`.
+//! `clocked.rs`. The checks of `unique`/`unique0`/`priority` are in `qualified.rs`.
 //!
 //! State it needs: an [`super::context::Env`] per block (its own), the expression stage to
 //! evaluate right-hand sides and conditions, the nets' drivers it writes, and the decided
@@ -11,6 +11,7 @@
 mod always;
 mod clocked;
 mod coverage;
+mod qualified;
 mod sensitivity;
 mod sync_reset;
 pub(super) use clocked::Clocked;

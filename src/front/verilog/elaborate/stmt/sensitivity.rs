@@ -73,6 +73,7 @@ impl Uses {
         match st {
             Stmt::Null => {}
             Stmt::Block(v) => v.iter().for_each(|s| self.stmt(s)),
+            Stmt::Qualified(_, _, inner) => self.stmt(inner),
             Stmt::Assign(lhs, rhs, _) | Stmt::NonBlocking(lhs, rhs, _) => {
                 self.expr(rhs);
                 self.target(lhs);

@@ -20,13 +20,8 @@ fn gen(n: usize, path: &str) {
         let names: Vec<String> = chunk.iter().map(|k| format!("n{k}")).collect();
         let _ = writeln!(s, "  wire {};", names.join(", "));
     }
-    let mut state: u64 = 0x2545_F491_4F6C_DD1D;
-    let mut rnd = move |m: usize| {
-        state ^= state << 13;
-        state ^= state >> 7;
-        state ^= state << 17;
-        (state % m as u64) as usize
-    };
+    let mut rng = equicone::rng::SplitMix64::new(0x2545_F491_4F6C_DD1D, 0);
+    let mut rnd = move |m: usize| rng.below(m);
     let kinds = ["and", "nand", "or", "nor", "xor", "xnor", "not", "buf"];
     for k in 0..n {
         let src = |r: &mut dyn FnMut(usize) -> usize| {

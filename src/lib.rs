@@ -5,7 +5,8 @@
 //! ([`engine`]) -> reports (text and JSON).
 //!
 //! The library's front door is the list of re-exports below: read a design
-//! ([`load_texts`], [`read_bench`], [`read_verilog`]), compare two with one check session
+//! ([`load_texts`], [`read_bench`], [`read_verilog`], or [`load`] from a [`Files`] store such
+//! as [`MemoryFiles`]: the library opens no file itself), compare two with one check session
 //! ([`check()`]), audit the cones of one ([`audit`]), generate circuits ([`generate`]). The
 //! public modules stay reachable for tests, examples and benchmarks that look inside one step;
 //! the Verilog lexer, parser and syntax tree, the CNF encoder, the report printers, the
@@ -49,7 +50,7 @@ pub use engine::{
     prove, EngineKind, PairBy, PairVerdict, ProveOptions, ProveReport, Side, Verdict,
 };
 pub use front::bench::read_bench;
-pub use front::load_texts;
 pub use front::verilog::read_verilog;
+pub use front::{load, load_texts, Files, MemoryFiles, Source};
 pub use gen::{generate, GenFormat, GenSpec, Kind, Style};
 pub use sat::Limits;

@@ -128,13 +128,6 @@ impl PortMap {
         }
     }
 
-    /// Read and parse the port map file at `path`.
-    pub fn read(path: impl AsRef<std::path::Path>) -> Result<PortMap, InputError> {
-        let path = path.as_ref();
-        let text = crate::front::read_text(path)?;
-        PortMap::parse(&Arc::from(path.display().to_string()), &text)
-    }
-
     /// Expand the entries against the port bits of two designs (a bus name stands for its
     /// bits from the least significant; a bit name for itself).
     /// Register names (the [`crate::design::Register`] bits and their vectors) are found too,

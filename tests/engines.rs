@@ -17,31 +17,22 @@ use std::time::Instant;
 
 mod oracle;
 
+use oracle::random::{is_unary, Gates, KINDS};
+
 /// Replaces gate `g` (kind, fan-in names) by bench lines, or keeps it (`None`).
 type Rewrite<'a> = dyn FnMut(usize, &str, &[String]) -> Option<Vec<String>> + 'a;
 
-const KINDS: [&str; 8] = ["AND", "OR", "NAND", "NOR", "XOR", "XNOR", "NOT", "BUFF"];
-
-/// A random gate-level circuit: (kind, fan-ins) per gate over signals `x0..` then `g0..`.
+/// A random gate-level circuit (the tests' one generator, `tests/oracle/random.rs`) over
+/// signals `x0..` then `g0..`, with outputs.
 struct Circuit {
     inputs: usize,
-    gates: Vec<(&'static str, Vec<usize>)>,
+    gates: Gates,
     outputs: Vec<usize>,
 }
 
 impl Circuit {
     fn random(rng: &mut StdRng, inputs: usize, gates: usize, outputs: usize) -> Circuit {
-        let mut gs = Vec::new();
-        for g in 0..gates {
-            let kind = KINDS[rng.gen_range(0..KINDS.len())];
-            let arity = if matches!(kind, "NOT" | "BUFF") {
-                1
-            } else {
-                rng.gen_range(2..=3)
-            };
-            let fanin = (0..arity).map(|_| rng.gen_range(0..inputs + g)).collect();
-            gs.push((kind, fanin));
-        }
+        let gs = Gates::random(rng, inputs, gates);
         let total = inputs + gates;
         let outs = (0..outputs)
             .map(|k| {
@@ -75,7 +66,7 @@ impl Circuit {
         for k in 0..self.outputs.len() {
             t += &format!("OUTPUT(y{k})\n");
         }
-        for (g, (kind, fanin)) in self.gates.iter().enumerate() {
+        for (g, (kind, fanin)) in self.gates.gates.iter().enumerate() {
             let args: Vec<String> = fanin.iter().map(|&s| name(s)).collect();
             match rewrite(g, kind, &args) {
                 Some(lines) => {
@@ -213,17 +204,7 @@ fn random_pair(seed: u64) -> (usize, String, String, Option<Edit>) {
         return (n, reference, cand, None);
     }
     // The edited gate is one that some output reads (through any path).
-    let mut live = vec![false; n + gates];
-    for &o in &c.outputs {
-        live[o] = true;
-    }
-    for s in (n..n + gates).rev() {
-        if live[s] {
-            for &f in &c.gates[s - n].1 {
-                live[f] = true;
-            }
-        }
-    }
+    let live = c.gates.live(&c.outputs);
     let cone: Vec<usize> = (0..gates).filter(|&g| live[n + g]).collect();
     let g = if cone.is_empty() {
         rng.gen_range(0..gates)
@@ -231,21 +212,21 @@ fn random_pair(seed: u64) -> (usize, String, String, Option<Edit>) {
         cone[rng.gen_range(0..cone.len())]
     };
     let edit = [Edit::Kind, Edit::Rewire, Edit::Invert, Edit::Output][rng.gen_range(0..4)];
-    let arity = c.gates[g].1.len();
-    let mut new_kind = c.gates[g].0;
+    let arity = c.gates.gates[g].1.len();
+    let mut new_kind = c.gates.gates[g].0;
     let (mut pin, mut new_src) = (0, 0);
     match edit {
         Edit::Kind => {
             let choices: Vec<&str> = KINDS
                 .iter()
                 .copied()
-                .filter(|k| (matches!(*k, "NOT" | "BUFF") == (arity == 1)) && *k != new_kind)
+                .filter(|k| is_unary(k) == (arity == 1) && *k != new_kind)
                 .collect();
             new_kind = choices[rng.gen_range(0..choices.len())];
         }
         Edit::Rewire | Edit::Invert => {
             pin = rng.gen_range(0..arity);
-            let old = c.gates[g].1[pin];
+            let old = c.gates.gates[g].1[pin];
             // Another signal defined before gate g (or the same one when there is no other).
             new_src = rng.gen_range(0..n + g);
             if new_src == old && n + g > 1 {
@@ -390,7 +371,7 @@ fn check_pair(seed: u64, engines: &[EngineKind], t: &mut Tally) {
 /// The differential campaign: `EQUICONE_CAMPAIGN_PAIRS` random pairs (default 10,000) of up to
 /// 16 inputs, half equivalent rewrites and half single-edit mutants, every pair proved by the
 /// `sweep`, `plain` and `portfolio` engines, every second by `exhaustive` and the others by
-/// `bdd` (and every fourth also by `pairs`), checked against exhaustive
+/// `bdd` or `bdd-sweep` (and every fourth also by `pairs`), checked against exhaustive
 /// simulation and batsat (`tests/oracle/`). Spread over the cores; the counts go to standard
 /// error (written directly, so the test harness does not hide them).
 #[test]
@@ -414,10 +395,10 @@ fn engines_agree_with_exhaustive_simulation_and_batsat() {
                         }
                         let mut engines =
                             vec![EngineKind::Sweep, EngineKind::Plain, EngineKind::Portfolio];
-                        engines.push(if seed.is_multiple_of(2) {
-                            EngineKind::Exhaustive
-                        } else {
-                            EngineKind::Bdd
+                        engines.push(match seed % 4 {
+                            0 | 2 => EngineKind::Exhaustive,
+                            1 => EngineKind::Bdd,
+                            _ => EngineKind::BddSweep,
                         });
                         if seed % 4 == 3 {
                             engines.push(EngineKind::Pairs);

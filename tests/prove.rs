@@ -23,7 +23,7 @@ fn engines() -> Vec<EngineKind> {
 fn partial(e: EngineKind) -> bool {
     matches!(
         e,
-        EngineKind::Exhaustive | EngineKind::Bdd | EngineKind::Algebra
+        EngineKind::Exhaustive | EngineKind::Bdd | EngineKind::BddSweep | EngineKind::Algebra
     )
 }
 
@@ -118,13 +118,10 @@ mod iscas {
                 .lines()
                 .filter(|l| !l.trim().is_empty())
                 .partition(|l| !l.contains('='));
-            // A fixed pseudo-random shuffle (xorshift) of the gate lines.
-            let mut x = 0x2545_F491_4F6C_DD1Du64;
+            // A fixed pseudo-random shuffle of the gate lines.
+            let mut rng = equicone::rng::SplitMix64::new(0x2545_F491_4F6C_DD1D, 0);
             for i in (1..gates.len()).rev() {
-                x ^= x << 13;
-                x ^= x >> 7;
-                x ^= x << 17;
-                gates.swap(i, (x % (i as u64 + 1)) as usize);
+                gates.swap(i, rng.below(i + 1));
             }
             let mut shuffled: Vec<&str> = gates.clone();
             shuffled.extend(decls);
@@ -154,11 +151,9 @@ mod iscas {
         };
         let d = design("c6288.bench", &read(&dir, "c6288"));
         assert_eq!((d.inputs.len(), d.outputs.len()), (32, 32));
-        let mut x = 12345u64;
+        let mut rng = equicone::rng::SplitMix64::new(12345, 0);
         for _ in 0..300 {
-            x = x
-                .wrapping_mul(6364136223846793005)
-                .wrapping_add(1442695040888963407);
+            let x = rng.next_u64();
             let (a, b) = ((x >> 20) & 0xFFFF, (x >> 40) & 0xFFFF);
             let ins: Vec<bool> = (0..32)
                 .map(|i| {

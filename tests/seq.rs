@@ -7,10 +7,12 @@
 #[path = "verilog/common.rs"]
 #[allow(dead_code)]
 mod common;
-#[path = "seq/oracle.rs"]
+#[path = "oracle/mod.rs"]
 mod oracle;
 #[path = "seq/portmap.rs"]
 mod portmap;
+#[path = "seq/oracle.rs"]
+mod seq_oracle;
 #[path = "seq/verilog.rs"]
 mod verilog;
 
@@ -22,26 +24,9 @@ use std::collections::BTreeMap;
 use std::path::PathBuf;
 use std::sync::Arc;
 
-/// The ISCAS-89 folder of the shared data: `None` with a SKIPPED note when absent, a failure
-/// with EQUICONE_REQUIRE_SHARED=1 (the convention of `common::shared_dir`).
-/// `EQUICONE_SHARED_DIR` overrides where the shared folder is.
+/// The ISCAS-89 folder of the shared data (`oracle::shared_data`).
 fn iscas89() -> Option<PathBuf> {
-    // EQUICONE_SHARED_DIR names the shared folder where it is not beside the checkout.
-    let shared = std::env::var_os("EQUICONE_SHARED_DIR")
-        .map(PathBuf::from)
-        .unwrap_or_else(|| PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("../shared"));
-    let p = shared.join("bench-data/iscas89");
-    if p.join("s27.bench").is_file() {
-        return Some(p);
-    }
-    if std::env::var("EQUICONE_REQUIRE_SHARED").as_deref() == Ok("1") {
-        panic!(
-            "{} is required (EQUICONE_REQUIRE_SHARED=1) but missing",
-            p.display()
-        );
-    }
-    eprintln!("SKIPPED: {} not found", p.display());
-    None
+    oracle::shared_data("iscas89", "s27.bench")
 }
 
 fn read(name: &str, text: &str) -> Design {
@@ -161,13 +146,13 @@ fn iscas89_mutants_differ_with_traces_the_oracle_replays() {
     for name in ["s27", "s298"] {
         let text = std::fs::read_to_string(dir.join(format!("{name}.bench"))).unwrap();
         let d = read(name, &text);
-        let reference = oracle::parse(&text);
+        let reference = seq_oracle::parse(&text);
         let (mut different, mut total) = (0, 0);
         for m in mutants(&text) {
             total += 1;
             let c = read("mutant", &m);
             let rep = seq::check(&d, &c, &options()).unwrap();
-            let mutant = oracle::parse(&m);
+            let mutant = seq_oracle::parse(&m);
             match rep.verdict {
                 "different" => {
                     different += 1;
@@ -204,19 +189,14 @@ fn iscas89_mutants_differ_with_traces_the_oracle_replays() {
                     if rep.verdict == "undecided" {
                         assert_eq!(rep.cycles_checked, rep.cycles_asked, "{name}: {rep}");
                     }
-                    let mut x = 0x1234_5678u64;
+                    let mut rng = equicone::rng::SplitMix64::new(0x1234_5678, 0);
                     for _ in 0..64 {
                         let ins: Vec<BTreeMap<String, bool>> = (0..len)
                             .map(|_| {
                                 reference
                                     .inputs
                                     .iter()
-                                    .map(|i| {
-                                        x ^= x << 13;
-                                        x ^= x >> 7;
-                                        x ^= x << 17;
-                                        (i.clone(), x & 1 == 1)
-                                    })
+                                    .map(|i| (i.clone(), rng.next_u64() & 1 == 1))
                                     .collect()
                             })
                             .collect();
@@ -248,7 +228,7 @@ fn icarus_replays_every_trace_to_the_same_first_difference() {
     for name in ["s27", "s298"] {
         let text = std::fs::read_to_string(dir.join(format!("{name}.bench"))).unwrap();
         let d = read(name, &text);
-        let reference = oracle::parse(&text);
+        let reference = seq_oracle::parse(&text);
         for m in mutants(&text) {
             let c = read("mutant", &m);
             let rep = seq::check(&d, &c, &options()).unwrap();
@@ -256,7 +236,7 @@ fn icarus_replays_every_trace_to_the_same_first_difference() {
                 continue;
             };
             let fd = t.first_difference.as_ref().unwrap();
-            let mutant = oracle::parse(&m);
+            let mutant = seq_oracle::parse(&m);
             // A testbench: both designs from reset (registers at 0), the trace's inputs applied each
             // cycle, outputs compared before the clock edge; it prints the first differing cycle and
             // the differing outputs.
@@ -404,8 +384,8 @@ fn counter_mod_10_differing_only_in_unreachable_states_is_never_different() {
     assert_eq!(rep.verdict, "different", "{rep}");
     let t = rep.trace.unwrap();
     assert_eq!(t.first_difference.as_ref().unwrap().cycle, 9);
-    let by_oracle = oracle::parse(&counter(false, 9)).run(&cycles_of(&t));
-    let by_oracle_bug = oracle::parse(&counter(false, 8)).run(&cycles_of(&t));
+    let by_oracle = seq_oracle::parse(&counter(false, 9)).run(&cycles_of(&t));
+    let by_oracle_bug = seq_oracle::parse(&counter(false, 8)).run(&cycles_of(&t));
     assert_eq!((0..10).find(|&k| by_oracle[k] != by_oracle_bug[k]), Some(9));
 }
 

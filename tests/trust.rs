@@ -13,6 +13,8 @@ mod display;
 #[cfg(unix)]
 #[path = "trust/filenames.rs"]
 mod filenames;
+#[path = "oracle/mod.rs"]
+mod oracle;
 #[path = "trust/portmap.rs"]
 mod portmap;
 #[path = "trust/ranges.rs"]

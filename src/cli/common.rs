@@ -1,5 +1,6 @@
 //! Pieces shared by the commands: reading designs, printing errors, writing files atomically.
 
+use super::files::FileSystem;
 use super::Exit;
 use crate::design::{Design, Format};
 use crate::diag::InputError;
@@ -134,7 +135,7 @@ impl DesignArgs {
             top: self.top.clone(),
             preprocess,
         };
-        front::load(&src).ok()
+        front::load(&src, &FileSystem).ok()
     }
 
     /// Read the design under `limits`: when its deadline passes while reading, the run is
@@ -201,7 +202,7 @@ pub fn load(
         top,
         preprocess: pre.options(),
     };
-    front::load(&src).map_err(|e| report_input_error(&e))
+    front::load(&src, &FileSystem).map_err(|e| report_input_error(&e))
 }
 
 /// Read a design under `limits`, printing its errors on failure; when the deadline passes
@@ -219,7 +220,7 @@ pub fn load_within(
         top,
         preprocess: pre.options(),
     };
-    match front::load_until(&src, &|| limits.expired()) {
+    match front::load_until(&src, &FileSystem, &|| limits.expired()) {
         Ok(d) => Ok(d),
         Err(ReadError::Input(e)) => Err(report_input_error(&e)),
         Err(ReadError::Stopped(file)) => Err(report_stopped_reading(&file)),

@@ -108,7 +108,9 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
         Err(e) => return report_input_error(&e),
     };
     let expect = match &a.expect {
-        Some(p) => match cone::read_expect(p, &d) {
+        Some(p) => match super::files::read_text(p)
+            .and_then(|t| cone::parse_expect(&p.display().to_string().into(), &t, &d))
+        {
             Ok(e) => Some(e),
             Err(e) => return report_input_error(&e),
         },
@@ -244,7 +246,9 @@ pub fn run_stats(a: &StatsArgs) -> Exit {
         );
     }
     let model = match &a.cost_model {
-        Some(p) => match CostModel::read(p) {
+        Some(p) => match super::files::read_text(p)
+            .and_then(|t| CostModel::parse(&p.display().to_string().into(), &t))
+        {
             Ok(m) => m,
             Err(e) => return report_input_error(&e),
         },

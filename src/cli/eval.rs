@@ -346,7 +346,7 @@ fn resolve_vector(
 
 /// The bits of a vector file.
 fn read_vector(path: &std::path::Path) -> Result<Vec<VectorBit>, InputError> {
-    let text = crate::front::read_text(path)?;
+    let text = super::files::read_text(path)?;
     // The file's name in messages (lossy when it is not UTF-8).
     let path = path.display().to_string();
     let path = path.as_str();

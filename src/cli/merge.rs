@@ -3,9 +3,9 @@
 //! write the whole report.
 
 use super::common::{print, report_input_error, write_atomic};
+use super::files::read_text;
 use super::Exit;
 use crate::diag::InputError;
-use crate::front::read_text;
 use clap::Args;
 use std::path::PathBuf;
 

@@ -12,6 +12,7 @@ mod cone;
 mod demo;
 mod eval;
 mod eval_trace;
+mod files;
 mod gen;
 mod gen_enums;
 mod host;

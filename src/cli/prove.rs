@@ -4,6 +4,7 @@ use super::common::{
     check_writable, print, report_input_error, report_internal, report_stopped_reading, timeout_of,
     write_atomic, FormatArg, LimitArgs,
 };
+use super::files::FileSystem;
 use super::Exit;
 use crate::certify::{Certificate, NoCertificate, ProofFormat};
 use crate::check::{self, CheckError, CheckRequest, DiagnosisRequest};
@@ -31,7 +32,8 @@ cli_enum! {
     /// The proof engine (`--engine`).
     EngineArg => EngineKind {
         /// The portfolio: exhaustive simulation for output groups with small supports, BDDs within
-        /// a node limit, then SAT sweeping for the rest (the method of each pair is reported).
+        /// a node limit, BDD sweeping with cut points, then SAT sweeping for the rest on the
+        /// merged graph (the method of each pair is reported).
         Portfolio,
         /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair
         /// the same literal or an XOR query; independent output cones on several threads.
@@ -45,6 +47,9 @@ cli_enum! {
         Exhaustive,
         /// BDDs alone (pairs past the node limit stay undecided).
         Bdd,
+        /// BDD sweeping alone: internal nodes with equal BDDs merged, cut points where a BDD
+        /// grows too large (pairs it cannot settle stay undecided).
+        BddSweep,
         /// Word polynomials alone, on output buses of at least 4 bits (other pairs, and bits past
         /// the term budget, stay undecided).
         Algebra,
@@ -129,8 +134,8 @@ impl PairArgs {
         let rs = source(rp, self.ref_format.or(self.format), self.ref_top.clone());
         let cs = source(cp, self.cand_format.or(self.format), self.cand_top.clone());
         let (r, c) = std::thread::scope(|s| {
-            let h = s.spawn(|| front::load_until(&rs, stop));
-            let c = front::load_until(&cs, stop);
+            let h = s.spawn(|| front::load_until(&rs, &FileSystem, stop));
+            let c = front::load_until(&cs, &FileSystem, stop);
             (h.join(), c)
         });
         let r = r.unwrap_or_else(|_| {
@@ -192,8 +197,10 @@ impl PairArgs {
         let Some(path) = &self.port_map else {
             return Ok(None);
         };
-        crate::portmap::PortMap::read(path)
-            .and_then(|m| m.resolve(&path.display().to_string(), r, c))
+        let name = path.display().to_string();
+        super::files::read_text(path)
+            .and_then(|text| crate::portmap::PortMap::parse(&name.as_str().into(), &text))
+            .and_then(|m| m.resolve(&name, r, c))
             .map(|m| Some(std::sync::Arc::new(m)))
             .map_err(|e| report_input_error(&e))
     }

@@ -82,7 +82,7 @@ fn source_files(d: &Design, paths: &[PathBuf]) -> Result<Vec<(String, String)>, 
     paths
         .iter()
         .map(|p| {
-            crate::front::read_text(p)
+            super::files::read_text(p)
                 .map(|t| (p.display().to_string(), t))
                 .map_err(|e| report_input_error(&e))
         })

@@ -24,16 +24,6 @@ pub struct ExpectEntry {
     pub pos: SourcePos,
 }
 
-/// Read an expectation file from disk.
-pub fn read_expect(
-    path: impl AsRef<std::path::Path>,
-    design: &Design,
-) -> Result<Expectation, InputError> {
-    let path = path.as_ref();
-    let text = crate::front::read_text(path)?;
-    parse_expect(&Arc::from(path.display().to_string()), &text, design)
-}
-
 /// Parse an expectation (text or JSON, told apart by a leading `{`) against `design`.
 pub fn parse_expect(
     file: &Arc<str>,

@@ -23,7 +23,7 @@ mod text;
 pub use audit::{audit, select_outputs, AuditOptions};
 pub use bits::Bits;
 pub use compare::{compare_supports, compare_supports_many, SupportComparison};
-pub use expect::{parse_expect, read_expect, ExpectEntry, Expectation};
+pub use expect::{parse_expect, ExpectEntry, Expectation};
 pub use report::{AuditReport, ClaimReport, ClaimVerdict, Flag, InputSummary, OutputAudit};
 pub use structural::{Cone, GraphSource, StructuralGraph};
 pub use support::{

@@ -81,13 +81,6 @@ impl CostModel {
         }
     }
 
-    /// Read a cost model file.
-    pub fn read(path: impl AsRef<std::path::Path>) -> Result<CostModel, InputError> {
-        let path = path.as_ref();
-        let text = crate::front::read_text(path)?;
-        CostModel::parse(&Arc::from(path.display().to_string()), &text)
-    }
-
     /// Parse a cost model from JSON text; `file` names it in messages. All errors are
     /// collected.
     pub fn parse(file: &Arc<str>, text: &str) -> Result<CostModel, InputError> {

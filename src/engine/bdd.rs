@@ -38,6 +38,8 @@ pub(crate) struct Manager<'l> {
     limit: usize,
     limits: &'l Limits,
     ops: u64,
+    /// Steps after which [`Manager::and`] gives up (set by [`Manager::and_bounded`]).
+    op_ceiling: u64,
 }
 
 impl<'l> Manager<'l> {
@@ -50,7 +52,25 @@ impl<'l> Manager<'l> {
             limit,
             limits,
             ops: 0,
+            op_ceiling: u64::MAX,
         }
+    }
+
+    /// Like [`Manager::and`], but gives up (with `Exceeded`) once this one operation has
+    /// created `nodes` nodes or taken 16 steps per such node; the nodes it made stay (unused).
+    pub(crate) fn and_bounded(&mut self, f: Edge, g: Edge, nodes: usize) -> Result<Edge, Exceeded> {
+        let (limit, ceiling) = (self.limit, self.op_ceiling);
+        self.limit = limit.min(self.nodes.len().saturating_add(nodes));
+        self.op_ceiling = self.ops.saturating_add(16 * nodes as u64);
+        let r = self.and(f, g);
+        self.limit = limit;
+        self.op_ceiling = ceiling;
+        r
+    }
+
+    /// Whether the node limit is reached or the time has run out (every operation fails).
+    pub(crate) fn is_spent(&self) -> bool {
+        self.nodes.len() >= self.limit || self.limits.expired()
     }
 
     /// Nodes held (the terminal included).
@@ -116,7 +136,7 @@ impl<'l> Manager<'l> {
             return Ok(cr);
         }
         self.ops += 1;
-        if self.ops & 0xFFFF == 0 && self.limits.expired() {
+        if self.ops > self.op_ceiling || (self.ops & 0xFFFF == 0 && self.limits.expired()) {
             return Err(Exceeded);
         }
         let top = self.level(f).min(self.level(g));
@@ -137,24 +157,35 @@ impl<'l> Manager<'l> {
     }
 
     /// One assignment (by level) under which `e` is true, unset levels false; `None` for `ZERO`.
-    pub(crate) fn witness(&self, mut e: Edge, levels: usize) -> Option<Vec<bool>> {
+    pub(crate) fn witness(&self, e: Edge, levels: usize) -> Option<Vec<bool>> {
+        let mut v = vec![false; levels];
+        for (level, b) in self.path(e)? {
+            v[level as usize] = b;
+        }
+        Some(v)
+    }
+
+    /// One path from `e` to `ONE`: the levels it tests with their values (`e` is true for every
+    /// value of the levels it does not test); `None` for `ZERO`.
+    pub(crate) fn path(&self, mut e: Edge) -> Option<Vec<(u32, bool)>> {
         if e == ZERO {
             return None;
         }
-        let mut v = vec![false; levels];
+        let mut p = Vec::new();
         while e >> 1 != 0 {
             let (level, lo, hi) = self.nodes[(e >> 1) as usize];
             let c = e & 1;
             // Every edge other than ZERO reaches ONE: take the low branch unless it is ZERO.
             if lo ^ c != ZERO {
+                p.push((level, false));
                 e = lo ^ c;
             } else {
-                v[level as usize] = true;
+                p.push((level, true));
                 e = hi ^ c;
             }
         }
         debug_assert_eq!(e, ONE);
-        Some(v)
+        Some(p)
     }
 }
 
@@ -310,12 +341,12 @@ fn build_and_compare(
 }
 
 #[cfg(test)]
-mod tests {
+pub(crate) mod tests {
     use super::*;
     use crate::aig::eval;
 
     /// Majority of `ins` as a sum of its inputs (a ripple of half adders) compared to a threshold.
-    pub(super) fn majority_by_count(g: &mut Aig, ins: &[Lit]) -> Lit {
+    pub(crate) fn majority_by_count(g: &mut Aig, ins: &[Lit]) -> Lit {
         // Counter bits, least significant first.
         let mut count: Vec<Lit> = Vec::new();
         for &x in ins {
@@ -347,7 +378,7 @@ mod tests {
     }
 
     /// Majority by the recursive "at least k of the rest" expansion (a different structure).
-    pub(super) fn majority_by_threshold(g: &mut Aig, ins: &[Lit]) -> Lit {
+    pub(crate) fn majority_by_threshold(g: &mut Aig, ins: &[Lit]) -> Lit {
         let n = ins.len();
         let need = n / 2 + 1;
         // at[k]: at least k of the inputs seen so far (k = 0..=need).
@@ -430,13 +461,8 @@ mod oracle {
     fn random_aig(seed: u64, inputs: usize, ands: usize) -> Aig {
         let mut g = Aig::new();
         let mut lits: Vec<Lit> = (0..inputs).map(|_| g.add_input()).collect();
-        let mut x = seed.wrapping_mul(0x9E37_79B9_7F4A_7C15) | 1;
-        let mut next = move || {
-            x ^= x << 13;
-            x ^= x >> 7;
-            x ^= x << 17;
-            x
-        };
+        let mut rng = crate::rng::SplitMix64::new(seed, 0);
+        let mut next = move || rng.next_u64();
         for _ in 0..ands {
             let a = lits[next() as usize % lits.len()].xor_complement(next() & 1 == 1);
             let b = lits[next() as usize % lits.len()].xor_complement(next() & 1 == 1);

@@ -8,6 +8,7 @@
 //! returns one [`Finding`] per output pair; this module owns everything after that.
 
 mod bdd;
+mod bdd_sweep;
 mod classes;
 pub mod counterexample;
 pub mod dont_care;
@@ -48,8 +49,9 @@ pub use sweep::SweepStats;
 #[serde(rename_all = "lowercase")]
 pub enum EngineKind {
     /// The portfolio: word polynomials for output buses that look arithmetic, exhaustive
-    /// simulation for output groups with small supports, BDDs within a node limit, then SAT
-    /// sweeping for the rest (the method of each pair is reported).
+    /// simulation for output groups with small supports, BDDs within a node limit, BDD
+    /// sweeping with cut points, then SAT sweeping for the rest on the merged graph (the method
+    /// of each pair is reported).
     #[default]
     Portfolio,
     /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair
@@ -64,6 +66,10 @@ pub enum EngineKind {
     Exhaustive,
     /// BDDs alone (pairs past the node limit stay undecided).
     Bdd,
+    /// BDD sweeping alone: internal nodes with equal BDDs merged, cut points where a BDD grows
+    /// too large (pairs it cannot settle stay undecided).
+    #[serde(rename = "bdd-sweep")]
+    BddSweep,
     /// Word polynomials alone, on output buses of at least 4 bits (other pairs, and bits past
     /// the term budget, stay undecided).
     Algebra,
@@ -71,13 +77,14 @@ pub enum EngineKind {
 
 impl EngineKind {
     /// Every engine, in the order of the command line's list.
-    pub const ALL: [EngineKind; 7] = [
+    pub const ALL: [EngineKind; 8] = [
         EngineKind::Portfolio,
         EngineKind::Sweep,
         EngineKind::Plain,
         EngineKind::Pairs,
         EngineKind::Exhaustive,
         EngineKind::Bdd,
+        EngineKind::BddSweep,
         EngineKind::Algebra,
     ];
 
@@ -90,6 +97,7 @@ impl EngineKind {
             EngineKind::Portfolio => "portfolio",
             EngineKind::Exhaustive => "exhaustive",
             EngineKind::Bdd => "bdd",
+            EngineKind::BddSweep => "bdd-sweep",
             EngineKind::Algebra => "algebra",
         }
     }

@@ -12,13 +12,14 @@
 //! decided ones and the group records), one variant of [`Stage`].
 
 use super::bdd;
+use super::bdd_sweep;
 use super::exhaustive;
 use super::parallel;
-pub(crate) use super::stage::{Context, StageOutput};
+pub(crate) use super::stage::{Context, Reduced, StageOutput};
 pub use super::stage::{GroupRecord, Stage};
 use super::sweep::SweepStats;
 use super::{Finding, Method};
-use crate::aig::{Aig, Lit, Node};
+use crate::aig::{Aig, Lit, Marks, Node};
 use crate::sat::{Limits, SatStats, StopReason};
 use std::time::Instant;
 
@@ -29,6 +30,7 @@ pub(crate) const TABLE: &[(Stage, Runner)] = &[
     (Stage::Algebra, super::words::run_algebra),
     (Stage::Exhaustive, run_exhaustive),
     (Stage::Bdd, run_bdd),
+    (Stage::BddSweep, run_bdd_sweep),
     (Stage::Sweep, run_sweep),
 ];
 
@@ -61,7 +63,12 @@ pub(crate) fn run(
     let mut deferred: Vec<usize> = Vec::new();
     // The shortened limits once a difference has settled the verdict.
     let mut settled: Option<Limits> = None;
-    for &(stage, runner) in TABLE.iter().filter(|(s, _)| stages.contains(s)) {
+    let table: Vec<(Stage, Runner)> = TABLE
+        .iter()
+        .copied()
+        .filter(|(s, _)| stages.contains(s))
+        .collect();
+    for (k, &(stage, runner)) in table.iter().enumerate() {
         if left.is_empty() {
             break;
         }
@@ -107,6 +114,31 @@ pub(crate) fn run(
         }
         deferred.extend(so.deferred);
         left.retain(|&p| findings[p].is_none() && !deferred.contains(&p));
+        let later: Vec<Stage> = table[k + 1..].iter().map(|&(s, _)| s).collect();
+        if let (Some(red), false, false) = (so.reduced, left.is_empty(), later.is_empty()) {
+            // The later methods run on the reduced graph (same inputs, so their vectors
+            // and verdicts carry over unchanged).
+            let sub_cx = Context {
+                aig: &red.aig,
+                pairs: &red.pairs,
+                constraint: red.constraint,
+                limits: settled.as_ref().unwrap_or(cx.limits),
+                // Once settled, the limits are the shortened ones already.
+                after_difference: cx.after_difference.filter(|_| settled.is_none()),
+                ..*cx
+            };
+            let sub = run(&sub_cx, &left, &later)?;
+            for &p in &left {
+                findings[p] = sub.findings[p].clone();
+            }
+            out.groups.extend(sub.groups);
+            out.sat.add(&sub.sat);
+            if let Some(w) = sub.sweep {
+                out.sweep.get_or_insert_with(SweepStats::default).add(&w);
+            }
+            left.clear();
+            break;
+        }
     }
     let limits = settled.as_ref().unwrap_or(cx.limits);
     deferred.retain(|&p| findings[p].is_none());
@@ -181,23 +213,14 @@ fn run_deferred(
 }
 
 /// Up to `cap + 1` input positions of the structural cone of `roots` (stops once past `cap`).
-fn small_support(
-    aig: &Aig,
-    roots: &[Lit],
-    cap: usize,
-    mark: &mut Vec<u32>,
-    stamp: u32,
-) -> Vec<u32> {
-    if mark.len() < aig.len() {
-        mark.resize(aig.len(), 0);
-    }
+fn small_support(aig: &Aig, roots: &[Lit], cap: usize, marks: &mut Marks) -> Vec<u32> {
+    marks.start(aig.len());
     let mut found = Vec::new();
     let mut stack: Vec<u32> = roots.iter().map(|r| r.node()).collect();
     while let Some(n) = stack.pop() {
-        if mark[n as usize] == stamp {
+        if !marks.mark(n as usize) {
             continue;
         }
-        mark[n as usize] = stamp;
         match aig.node(n) {
             Node::Const => {}
             Node::Input(k) => {
@@ -227,12 +250,8 @@ fn union(a: &[u32], b: &[u32]) -> Vec<u32> {
 /// constraint's) has at most [`exhaustive::MAX_INPUTS`] inputs.
 fn run_exhaustive(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
     let cap = exhaustive::MAX_INPUTS;
-    let mut mark = Vec::new();
-    let mut stamp = 0u32;
-    let mut support = |roots: &[Lit]| {
-        stamp += 1;
-        small_support(cx.aig, roots, cap, &mut mark, stamp)
-    };
+    let mut marks = Marks::new();
+    let mut support = |roots: &[Lit]| small_support(cx.aig, roots, cap, &mut marks);
     let base = support(&[cx.constraint]);
     let mut groups: Vec<(Vec<usize>, Vec<u32>)> = Vec::new();
     for &p in open {
@@ -385,6 +404,80 @@ fn run_bdd(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
     Ok(out)
 }
 
+/// BDD sweeping ([`bdd_sweep::sweep`]) of the open pairs' cones: the pairs it decides, and,
+/// when it merged at least one AND node in [`REDUCE_SHARE`] and a later method follows, the
+/// graph with its merges applied for the later methods.
+fn run_bdd_sweep(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
+    let t = Instant::now();
+    let qs: Vec<(Lit, Lit)> = open
+        .iter()
+        .map(|&p| (cx.pairs[p].reference, cx.pairs[p].candidate))
+        .collect();
+    let limit = bdd_sweep::limit(cx.aig.num_ands());
+    let s = bdd_sweep::sweep(
+        cx.aig,
+        &qs,
+        cx.constraint,
+        limit,
+        bdd_sweep::NODES_PER_AND,
+        cx.limits,
+    );
+    let mut out = StageOutput::default();
+    let mut decided = 0;
+    for (&p, d) in open.iter().zip(&s.decisions) {
+        let Some(d) = d else { continue };
+        decided += 1;
+        out.findings.push((
+            p,
+            match d {
+                bdd::Decision::Equal => Finding::Equal(Method::Bdd),
+                bdd::Decision::Differ(v) => Finding::Differ(Method::Bdd, v.clone()),
+            },
+        ));
+    }
+    cx.progress.outputs_done(decided);
+    let mut note = format!(
+        "{} BDD nodes, {} AND nodes merged, {} cut points",
+        s.nodes, s.merged, s.cuts
+    );
+    if !s.complete {
+        note += &format!(" (stopped by the node limit {limit} or the time limit)");
+    }
+    if decided < open.len() && s.merged * REDUCE_SHARE >= cx.aig.num_ands().max(1) {
+        let (aig, map) = bdd_sweep::reduce(cx.aig, &s.image);
+        let at = |l: Lit| map[l.index()].xor_complement(l.is_complemented());
+        note += &format!(
+            "; the later methods get the merged graph ({} -> {} AND nodes)",
+            cx.aig.num_ands(),
+            aig.num_ands()
+        );
+        out.reduced = Some(Reduced {
+            pairs: cx
+                .pairs
+                .iter()
+                .map(|q| super::pairs::PairQuery {
+                    reference: at(q.reference),
+                    candidate: at(q.candidate),
+                })
+                .collect(),
+            constraint: at(cx.constraint),
+            aig,
+        });
+    }
+    out.groups.push(GroupRecord {
+        method: Stage::BddSweep,
+        pairs: open.to_vec(),
+        decided,
+        seconds: t.elapsed().as_secs_f64(),
+        note,
+    });
+    Ok(out)
+}
+
+/// The BDD sweep hands a merged graph to the later methods when it merged at least one AND
+/// node in this many (below that, rebuilding the graph costs more than it saves).
+const REDUCE_SHARE: usize = 64;
+
 /// SAT sweeping ([`parallel::sweep_groups`]) on every open pair; it decides or stops each.
 fn run_sweep(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
     let t = Instant::now();
@@ -507,13 +600,103 @@ mod tests {
         );
     }
 
+    /// `x + y` over `x.len()` bits (carry out dropped), a ripple of full adders.
+    fn add(g: &mut Aig, x: &[Lit], y: &[Lit]) -> Vec<Lit> {
+        let mut c = Lit::FALSE;
+        let mut out = Vec::new();
+        for (&a, &b) in x.iter().zip(y) {
+            let p = g.xor(a, b);
+            out.push(g.xor(p, c));
+            let gen = g.and(a, b);
+            let pc = g.and(p, c);
+            c = g.or(gen, pc);
+        }
+        out
+    }
+
+    /// The 2n-bit product of `a` and `b`, partial products accumulated in the order of `rows`.
+    fn multiply(g: &mut Aig, a: &[Lit], b: &[Lit], rows: &[usize]) -> Vec<Lit> {
+        let n = a.len();
+        let mut acc = vec![Lit::FALSE; 2 * n];
+        for &j in rows {
+            let mut pp = vec![Lit::FALSE; 2 * n];
+            for (i, &x) in a.iter().enumerate() {
+                pp[i + j] = g.and(x, b[j]);
+            }
+            acc = add(g, &pp, &acc);
+        }
+        acc
+    }
+
+    #[test]
+    fn bdd_sweep_decides_what_it_can_and_the_sweep_takes_the_merged_graph() {
+        // Two 7x7 multipliers accumulating their rows in opposite orders, and one wrong
+        // product bit; only the BDD sweep and the SAT sweep are run.
+        let mut g = Aig::new();
+        let a: Vec<Lit> = (0..7).map(|_| g.add_input()).collect();
+        let b: Vec<Lit> = (0..7).map(|_| g.add_input()).collect();
+        let up: Vec<usize> = (0..7).collect();
+        let down: Vec<usize> = (0..7).rev().collect();
+        let r = multiply(&mut g, &a, &b, &up);
+        let mut c = multiply(&mut g, &a, &b, &down);
+        c[9] = g.xor(c[9], a[0]);
+        // And two 24-bit adders of other inputs with carries as majorities written as sums of
+        // products: merged carry by carry, so the sweep gets a smaller graph.
+        let x: Vec<Lit> = (0..24).map(|_| g.add_input()).collect();
+        let y: Vec<Lit> = (0..24).map(|_| g.add_input()).collect();
+        let (mut r, mut c) = (r, c);
+        r.extend(add(&mut g, &x, &y));
+        let mut carry = Lit::FALSE;
+        for (&u, &v) in x.iter().zip(&y) {
+            let q = g.xnor(v, u);
+            c.push(g.xnor(q, carry));
+            let (uc, vc, uv) = (g.and(u, carry), g.and(carry, v), g.and(v, u));
+            let t = g.or(uc, vc);
+            carry = g.or(t, uv);
+        }
+        let pairs: Vec<PairQuery> = r
+            .iter()
+            .zip(&c)
+            .map(|(&reference, &candidate)| PairQuery {
+                reference,
+                candidate,
+            })
+            .collect();
+        let limits = Limits::none();
+        let progress = Progress::new(false, pairs.len());
+        let cxt = cx(&g, &pairs, &limits, &progress);
+        let open: Vec<usize> = (0..pairs.len()).collect();
+        let out = run(&cxt, &open, &[Stage::BddSweep, Stage::Sweep]).unwrap();
+        for (p, f) in out.findings.iter().enumerate() {
+            match f {
+                Some(Finding::Equal(_)) => assert_ne!(p, 9),
+                Some(Finding::Differ(_, v)) => {
+                    assert_eq!(p, 9);
+                    let e = crate::aig::eval(&g, v, &[r[p], c[p]]);
+                    assert_ne!(e[0], e[1]);
+                }
+                f => panic!("pair {p}: {f:?}"),
+            }
+        }
+        assert_eq!(out.groups[0].method, Stage::BddSweep);
+        assert!(out.groups[0].decided >= 24, "{:?}", out.groups[0]);
+        assert!(
+            out.groups[0]
+                .note
+                .contains("the later methods get the merged graph"),
+            "{:?}",
+            out.groups[0]
+        );
+        assert_eq!(out.groups[1].method, Stage::Sweep);
+    }
+
     #[test]
     fn support_walk_stops_past_the_cap() {
         let mut g = Aig::new();
         let ins: Vec<Lit> = (0..50).map(|_| g.add_input()).collect();
         let a = g.and_all(&ins);
-        let mut mark = Vec::new();
-        assert_eq!(small_support(&g, &[a], 10, &mut mark, 1).len(), 11);
-        assert_eq!(small_support(&g, &[a], 60, &mut mark, 2).len(), 50);
+        let mut marks = Marks::new();
+        assert_eq!(small_support(&g, &[a], 10, &mut marks).len(), 11);
+        assert_eq!(small_support(&g, &[a], 60, &mut marks).len(), 50);
     }
 }

@@ -20,6 +20,8 @@ pub enum Stage {
     Exhaustive,
     /// BDDs within a node limit.
     Bdd,
+    /// BDD sweeping of internal nodes with cut points ([`super::bdd_sweep`]).
+    BddSweep,
     /// SAT sweeping and per-pair queries.
     Sweep,
 }
@@ -31,6 +33,7 @@ impl Stage {
             Stage::Exhaustive => "exhaustive",
             Stage::Algebra => "algebra",
             Stage::Bdd => "bdd",
+            Stage::BddSweep => "bdd-sweep",
             Stage::Sweep => "sweep",
         }
     }
@@ -83,8 +86,18 @@ pub(crate) struct StageOutput {
     pub groups: Vec<GroupRecord>,
     pub sat: SatStats,
     pub sweep: Option<SweepStats>,
+    /// The graph with the method's merges applied (same inputs, every pair and the constraint
+    /// mapped into it): the later methods run on it instead.
+    pub reduced: Option<Reduced>,
     /// Open pairs the method found hard for the ones after it (bits of an arithmetic word
     /// above a difference already found): the later methods take them last, after the other
     /// pairs, within the time a difference leaves ([`Context::after_difference`]).
     pub deferred: Vec<usize>,
+}
+
+/// A graph a method reduced by proved merges, with the pairs and the constraint mapped into it.
+pub(crate) struct Reduced {
+    pub aig: Aig,
+    pub pairs: Vec<PairQuery>,
+    pub constraint: Lit,
 }

@@ -72,15 +72,21 @@ pub(super) fn run_engine(
             );
             (f, sat.stats())
         }
-        EngineKind::Portfolio | EngineKind::Exhaustive | EngineKind::Bdd | EngineKind::Algebra => {
+        EngineKind::Portfolio
+        | EngineKind::Exhaustive
+        | EngineKind::Bdd
+        | EngineKind::BddSweep
+        | EngineKind::Algebra => {
             let stages: &[portfolio::Stage] = match opts.engine {
                 EngineKind::Exhaustive => &[portfolio::Stage::Exhaustive],
                 EngineKind::Bdd => &[portfolio::Stage::Bdd],
+                EngineKind::BddSweep => &[portfolio::Stage::BddSweep],
                 EngineKind::Algebra => &[portfolio::Stage::Algebra],
                 _ => &[
                     portfolio::Stage::Algebra,
                     portfolio::Stage::Exhaustive,
                     portfolio::Stage::Bdd,
+                    portfolio::Stage::BddSweep,
                     portfolio::Stage::Sweep,
                 ],
             };

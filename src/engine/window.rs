@@ -18,7 +18,7 @@
 //! guarded by an activation literal, in a separate small solver: it proves most local rewrites
 //! at a cost bounded by the window, however large the graph.
 
-use crate::aig::{Aig, Lit, Node};
+use crate::aig::{Aig, Lit, Marks, Node};
 use crate::sat::{CLit, ClauseSink, Limits, Sat, SatResult, SatStats};
 
 /// Variables the small solver of [`Window::query_fresh`] may accumulate before it is replaced
@@ -80,9 +80,8 @@ pub(crate) struct Window {
     /// Each graph node's slot in the current solver: 0 when not yet seen, else its variable's
     /// index plus one, shifted left, with the low bit set once its gate clauses are in.
     var: Vec<u32>,
-    /// Visit stamps of the current query.
-    stamp: Vec<u32>,
-    epoch: u32,
+    /// The nodes visited by the current query.
+    marks: Marks,
     order: Vec<u32>,
     queue: Vec<u32>,
     scope: Vec<CLit>,
@@ -106,8 +105,7 @@ impl Window {
             limits: limits.clone(),
             retired: SatStats::default(),
             var: Vec::new(),
-            stamp: Vec::new(),
-            epoch: 0,
+            marks: Marks::new(),
             order: Vec::new(),
             queue: Vec::new(),
             scope: Vec::new(),
@@ -261,13 +259,8 @@ impl Window {
         }
         if self.var.len() < f.len() {
             self.var.resize(f.len(), 0);
-            self.stamp.resize(f.len(), 0);
         }
-        self.epoch = self.epoch.wrapping_add(1);
-        if self.epoch == 0 {
-            self.stamp.iter_mut().for_each(|s| *s = 0);
-            self.epoch = 1;
-        }
+        self.marks.start(f.len());
         // Collect the window breadth first, so that it holds the nodes nearest the two
         // literals; AND nodes are expanded while the budget lasts.
         self.order.clear();
@@ -281,10 +274,9 @@ impl Window {
         while head < self.queue.len() {
             let n = self.queue[head];
             head += 1;
-            if self.stamp[n as usize] == self.epoch {
+            if !self.marks.mark(n as usize) {
                 continue;
             }
-            self.stamp[n as usize] = self.epoch;
             let v = self.var_of(f, n);
             self.scope.push(v);
             if let Node::And(x, y) = f.node(n) {
@@ -325,7 +317,7 @@ impl Window {
                 let mut values: Vec<(u32, bool)> = self
                     .queue
                     .iter()
-                    .filter(|&&n| self.stamp[n as usize] == self.epoch)
+                    .filter(|&&n| self.marks.is_marked(n as usize))
                     .filter_map(|&n| match f.node(n) {
                         Node::Input(k) => Some((k, self.sat.value(self.seen(n).expect("seen")))),
                         _ => None,

@@ -29,6 +29,11 @@ pub const MIN_BITS: usize = 4;
 pub const MAX_CONE: usize = 4_000_000;
 /// One AND node in this many must root an XOR for the portfolio to build units.
 pub const MIN_XOR_SHARE: usize = 16;
+/// One XOR in this many must have a carry partner (the AND of its operands, see
+/// [`xor_count`]) for the portfolio to build units: arithmetic has one for most of its XORs,
+/// random logic with XOR gates almost none (a 1,000,000-gate random circuit spent 46 s in the
+/// units and rewriting before its word was given back).
+pub const MIN_PAIRED_SHARE: usize = 8;
 /// Live terms allowed in the word polynomial in the portfolio (a blow-up shows early; the
 /// other methods get the word back).
 pub const MAX_TERMS: usize = 200_000;
@@ -87,10 +92,23 @@ pub(crate) fn output_buses(r: &Design, _c: &Design, shared: &Shared) -> Vec<Vec<
     words
 }
 
-/// AND nodes in the cone of `roots` and how many of them root an XOR or XNOR of two literals.
-fn xor_count(aig: &Aig, roots: &[Lit]) -> (usize, usize) {
+/// Structural counts of the cone of `roots`: its AND nodes, how many of them root an XOR or
+/// XNOR of two literals, and how many of those XORs have a *carry partner*: another use of the
+/// AND of the same two operands in some polarity. A half adder or a full adder's first half is
+/// such a pair (sum and carry of the same operands), and so is an adder's propagate and
+/// generate; the XOR gates of random logic almost never have one.
+fn xor_count(aig: &Aig, roots: &[Lit]) -> (usize, usize, usize) {
     let mask = aig.cone_mask(roots);
-    let (mut ands, mut xors) = (0, 0);
+    let mut fanout = vec![0u8; aig.len()];
+    for (i, &m) in mask.iter().enumerate() {
+        if let (true, Node::And(a, b)) = (m, aig.node(i as u32)) {
+            for l in [a, b] {
+                let f = &mut fanout[l.index()];
+                *f = f.saturating_add(1);
+            }
+        }
+    }
+    let (mut ands, mut xors, mut paired) = (0, 0, 0);
     for (i, &m) in mask.iter().enumerate() {
         if !m {
             continue;
@@ -102,12 +120,21 @@ fn xor_count(aig: &Aig, roots: &[Lit]) -> (usize, usize) {
                 {
                     if (x == !u && y == !v) || (x == !v && y == !u) {
                         xors += 1;
+                        // The node is x XOR y over the minterm nodes x & y and !x & !y; the
+                        // other two ANDs of the operands are x & !y and !x & y. A partner is
+                        // one of those two, or a minterm node used outside this XOR.
+                        let other = [(x, !y), (!x, y)]
+                            .iter()
+                            .any(|&(s, t)| aig.find_and(s, t).is_some_and(|l| !l.is_const()));
+                        if other || fanout[a.index()] > 1 || fanout[b.index()] > 1 {
+                            paired += 1;
+                        }
                     }
                 }
             }
         }
     }
-    (ands, xors)
+    (ands, xors, paired)
 }
 
 /// The algebraic stage: every word with an open bit that qualifies (see the module docs).
@@ -132,8 +159,13 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
                 continue;
             }
             let roots: Vec<Lit> = rl.iter().chain(&cl).copied().collect();
-            let (ands, xors) = xor_count(cx.aig, &roots);
-            if ands > MAX_CONE || xors * MIN_XOR_SHARE < ands {
+            let (ands, xors, paired) = xor_count(cx.aig, &roots);
+            if ands > MAX_CONE || xors * MIN_XOR_SHARE < ands || paired * MIN_PAIRED_SHARE < xors {
+                log::debug!(
+                    "algebra: {}-bit word (first pair {}) skipped: {ands} AND nodes, {xors} XORs, {paired} with a carry partner",
+                    word.len(),
+                    word[0]
+                );
                 continue;
             }
         }

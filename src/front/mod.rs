@@ -1,12 +1,15 @@
-//! Front-ends: read netlist files into [`Design`]s. Owns format detection, file reading
-//! (missing, unreadable, binary and empty files) and the stop condition while reading (a
-//! `--timeout` covers reading too).
+//! Front-ends: read netlist files into [`Design`]s. Owns format detection, the checks that
+//! a file is text, and the stop condition while reading (a `--timeout` covers reading too).
+//! The files themselves come through the [`Files`] seam (`files.rs`): no reader opens one.
 
 pub mod bench;
+pub mod files;
 pub mod verilog;
 
+pub use files::{decode_text, Files, MemoryFiles};
+
 use crate::design::{Design, Format};
-use crate::diag::{Diagnostic, InputError, SourcePos};
+use crate::diag::InputError;
 use std::path::{Path, PathBuf};
 use std::sync::Arc;
 
@@ -35,109 +38,6 @@ pub fn format_from_name(path: impl AsRef<Path>) -> Option<Format> {
     }
 }
 
-/// Read a file as text, with clear errors for missing, unreadable and binary files, folders,
-/// and endless sources: a pipe or device is read in pieces and given up at its first NUL
-/// byte, so `/dev/zero` is an error at once rather than a full memory.
-pub fn read_text(path: impl AsRef<Path>) -> Result<String, InputError> {
-    read_text_until(path, &|| false).map_err(|e| match e {
-        ReadError::Input(e) => e,
-        ReadError::Stopped(_) => unreachable!("no stop condition"),
-    })
-}
-
-/// [`read_text`], looking at `stop` after every mebibyte.
-pub fn read_text_until(
-    path: impl AsRef<Path>,
-    stop: &dyn Fn() -> bool,
-) -> Result<String, ReadError> {
-    use std::io::Read;
-    let path = path.as_ref();
-    // The name as shown in messages and diagnostics (lossy when it is not UTF-8).
-    let name = path.display().to_string();
-    let fail =
-        |what: String, help: &str| InputError::plain(format!("cannot read `{name}`: {what}"), help);
-    let io_fail = |e: std::io::Error| {
-        let what = match e.kind() {
-            std::io::ErrorKind::NotFound => "no such file".to_string(),
-            std::io::ErrorKind::PermissionDenied => "permission denied".to_string(),
-            std::io::ErrorKind::NotADirectory => {
-                "a part of the path before the file name is not a folder".to_string()
-            }
-            std::io::ErrorKind::IsADirectory => "it is a folder, not a file".to_string(),
-            _ => e.to_string(),
-        };
-        fail(what, "check the path and that the file is readable")
-    };
-    let meta = std::fs::metadata(path).map_err(io_fail)?;
-    if meta.is_dir() {
-        return Err(fail(
-            "it is a folder, not a file".to_string(),
-            "name a netlist file inside it",
-        )
-        .into());
-    }
-    let mut f = std::fs::File::open(path).map_err(io_fail)?;
-    let mut bytes = Vec::with_capacity(if meta.is_file() {
-        meta.len() as usize + 1
-    } else {
-        0
-    });
-    let mut chunk = vec![0u8; 1 << 20];
-    loop {
-        let n = match f.read(&mut chunk) {
-            Ok(0) => break,
-            Ok(n) => n,
-            Err(e) if e.kind() == std::io::ErrorKind::Interrupted => continue,
-            Err(e) => return Err(io_fail(e).into()),
-        };
-        let nul = chunk[..n].contains(&0);
-        bytes.extend_from_slice(&chunk[..n]);
-        if nul {
-            break;
-        }
-        if stop() {
-            return Err(ReadError::Stopped(name));
-        }
-    }
-    Ok(decode_text(&name, bytes)?)
-}
-
-/// Check that `bytes` are text (UTF-8 without NUL bytes) and return them as a string.
-pub fn decode_text(path: &str, bytes: Vec<u8>) -> Result<String, InputError> {
-    let file: Arc<str> = Arc::from(path);
-    if let Some(off) = bytes.iter().position(|&b| b == 0) {
-        let (line, col) = line_col(&bytes[..off]);
-        return Err(InputError::one(
-            Diagnostic::error(
-                Some(SourcePos::new(&file, line, col)),
-                "the file is not text (it holds a NUL byte)",
-            )
-            .with_help("give a netlist in bench or Verilog text form"),
-        ));
-    }
-    String::from_utf8(bytes).map_err(|e| {
-        let off = e.utf8_error().valid_up_to();
-        let (line, col) = line_col(&e.as_bytes()[..off]);
-        InputError::one(
-            Diagnostic::error(
-                Some(SourcePos::new(&file, line, col)),
-                "the file is not UTF-8 text",
-            )
-            .with_help("save the netlist as UTF-8 (or plain ASCII) text"),
-        )
-    })
-}
-
-fn line_col(prefix: &[u8]) -> (u32, u32) {
-    let line = prefix.iter().filter(|&&b| b == b'\n').count() as u32 + 1;
-    let start = prefix
-        .iter()
-        .rposition(|&b| b == b'\n')
-        .map_or(0, |i| i + 1);
-    let col = String::from_utf8_lossy(&prefix[start..]).chars().count() as u32 + 1;
-    (line, col)
-}
-
 /// Which files make one design and how to read them.
 #[derive(Clone, Debug, Default)]
 pub struct Source {
@@ -152,18 +52,23 @@ pub struct Source {
     pub preprocess: verilog::preprocess::Options,
 }
 
-/// Read a design from files.
-pub fn load(src: &Source) -> Result<Design, InputError> {
-    load_until(src, &|| false).map_err(|e| match e {
+/// Read a design from the files `files` holds.
+pub fn load(src: &Source, files: &dyn Files) -> Result<Design, InputError> {
+    load_until(src, files, &|| false).map_err(|e| match e {
         ReadError::Input(e) => e,
         ReadError::Stopped(_) => unreachable!("no stop condition"),
     })
 }
 
-/// Read a design from files, looking at `stop` while reading (every mebibyte of a file,
-/// every 65,536 lines and gates of a bench file, between the phases of the Verilog reader);
-/// when it answers true, reading ends with [`ReadError::Stopped`].
-pub fn load_until(src: &Source, stop: &dyn Fn() -> bool) -> Result<Design, ReadError> {
+/// Read a design from the files `files` holds, looking at `stop` while reading (the store
+/// looks at it while reading a file, the bench reader every 65,536 lines and gates, the
+/// Verilog reader between its phases); when it answers true, reading ends with
+/// [`ReadError::Stopped`].
+pub fn load_until(
+    src: &Source,
+    files: &dyn Files,
+    stop: &dyn Fn() -> bool,
+) -> Result<Design, ReadError> {
     let first = src
         .paths
         .first()
@@ -182,7 +87,7 @@ pub fn load_until(src: &Source, stop: &dyn Fn() -> bool) -> Result<Design, ReadE
         };
     if format == Format::Bench && src.paths.len() == 1 && src.top.is_none() {
         // One bench file: the reader takes the text and drops it early.
-        let text = read_text_until(first, stop)?;
+        let text = files.read_text(first, stop)?;
         if stop() {
             return Err(ReadError::Stopped(first.display().to_string()));
         }
@@ -192,37 +97,52 @@ pub fn load_until(src: &Source, stop: &dyn Fn() -> bool) -> Result<Design, ReadE
     for p in &src.paths {
         texts.push((
             Arc::<str>::from(p.display().to_string()),
-            read_text_until(p, stop)?,
+            files.read_text(p, stop)?,
         ));
     }
     if stop() {
         return Err(ReadError::Stopped(first.display().to_string()));
     }
-    let d = load_texts_until(format, &texts, src.top.as_deref(), &src.preprocess, stop)?;
+    let d = load_texts_until(
+        format,
+        &texts,
+        &src.paths,
+        src.top.as_deref(),
+        &src.preprocess,
+        files,
+        stop,
+    )?;
     if stop() {
         return Err(ReadError::Stopped(first.display().to_string()));
     }
     Ok(d)
 }
 
-/// Read a design from texts already in memory (`(file name, text)` pairs).
+/// Read a design from texts already in memory (`(file name, text)` pairs); a Verilog
+/// `` `include `` finds nothing (use [`load`] with [`MemoryFiles`] for that).
 pub fn load_texts(
     format: Format,
     texts: &[(Arc<str>, String)],
     top: Option<&str>,
 ) -> Result<Design, InputError> {
     let opts = verilog::preprocess::Options::default();
-    load_texts_until(format, texts, top, &opts, &|| false).map_err(|e| match e {
+    let paths: Vec<PathBuf> = texts.iter().map(|t| PathBuf::from(&*t.0)).collect();
+    let none = MemoryFiles::new();
+    load_texts_until(format, texts, &paths, top, &opts, &none, &|| false).map_err(|e| match e {
         ReadError::Input(e) => e,
         ReadError::Stopped(_) => unreachable!("no stop condition"),
     })
 }
 
+/// `texts` with their `paths` (the names in `texts` show them, lossily); `files` serves
+/// the Verilog includes.
 fn load_texts_until(
     format: Format,
     texts: &[(Arc<str>, String)],
+    paths: &[PathBuf],
     top: Option<&str>,
     opts: &verilog::preprocess::Options,
+    files: &dyn Files,
     stop: &dyn Fn() -> bool,
 ) -> Result<Design, ReadError> {
     match format {
@@ -243,6 +163,6 @@ fn load_texts_until(
             }
             bench::read_bench_until(&texts[0].0, &texts[0].1, stop)
         }
-        Format::Verilog => Ok(verilog::read_verilog_with(texts, top, opts)?),
+        Format::Verilog => Ok(verilog::read_sources(texts, paths, top, opts, files)?),
     }
 }

@@ -11,25 +11,7 @@ use std::sync::Arc;
 /// The ISCAS-85 folder, or `None` (with a loud message) when it is absent. With
 /// EQUICONE_REQUIRE_SHARED=1 an absent folder fails the test instead.
 pub fn iscas_dir() -> Option<PathBuf> {
-    let dir = PathBuf::from(env!("CARGO_MANIFEST_DIR"))
-        .join("..")
-        .join("shared")
-        .join("bench-data")
-        .join("iscas85");
-    if dir.join("SOURCE.md").is_file() {
-        return Some(dir);
-    }
-    if std::env::var("EQUICONE_REQUIRE_SHARED").as_deref() == Ok("1") {
-        panic!(
-            "shared data missing at {} and EQUICONE_REQUIRE_SHARED=1",
-            dir.display()
-        );
-    }
-    eprintln!(
-        "SKIPPED: shared ISCAS-85 data not found at {}",
-        dir.display()
-    );
-    None
+    super::oracle::iscas_dir()
 }
 
 /// Read one ISCAS-85 circuit.

@@ -9,6 +9,7 @@
 //! count exactly the differing sequences.
 
 use super::common::run_iverilog;
+use super::oracle::random::Gates;
 use super::seq_oracle::{self, SeqNet};
 use super::vcd_reader::{self, Dump};
 use super::vcommon::iverilog_available;
@@ -28,9 +29,10 @@ use rand::{Rng, SeedableRng};
 use std::collections::BTreeMap;
 use std::sync::Arc;
 
-/// A random bench netlist with flip-flops: inputs `i0..`, registers `q0..` (each loading a
-/// gate), gates of fan-in 1 to 3 over earlier signals, outputs `y0..`; the candidate has one
-/// gate kind changed when `mutate`, and its registers renamed `st_K` when `rename`.
+/// A random bench netlist with flip-flops (the gates from the tests' one generator,
+/// `tests/oracle/random.rs`): inputs `i0..`, registers `q0..` (each loading a gate), gates of
+/// fan-in 1 to 3 over earlier signals, outputs `y0..`; the candidate has one gate kind
+/// changed when `mutate`, and its registers renamed `st_K` when `rename`.
 pub fn random_seq_bench(
     seed: u64,
     (n, ffs, gates, outs): (usize, usize, usize, usize),
@@ -38,35 +40,22 @@ pub fn random_seq_bench(
     rename: bool,
 ) -> (String, String) {
     let mut rng = StdRng::seed_from_u64(seed);
-    let mut sig: Vec<String> = (0..n).map(|i| format!("i{i}")).collect();
-    sig.extend((0..ffs).map(|k| format!("q{k}")));
-    let kinds = ["AND", "OR", "NAND", "NOR", "XOR", "XNOR"];
-    let mut lines: Vec<(String, &str, Vec<String>)> = Vec::new();
-    for g in 0..gates {
-        let arity = if rng.gen_bool(0.15) {
-            1
-        } else {
-            rng.gen_range(2..=3)
-        };
-        let args: Vec<String> = (0..arity)
-            .map(|_| sig[rng.gen_range(0..sig.len())].clone())
-            .collect();
-        let kind = if arity == 1 {
-            "NOT"
-        } else {
-            kinds[rng.gen_range(0..kinds.len())]
-        };
-        lines.push((format!("g{g}"), kind, args));
-        sig.push(format!("g{g}"));
-    }
+    let c = Gates::random(&mut rng, n + ffs, gates);
     let loads: Vec<usize> = (0..ffs).map(|_| rng.gen_range(gates / 3..gates)).collect();
     let pick: Vec<usize> = (0..outs).map(|k| gates - 1 - k * 3).collect();
     let mutated = rng.gen_range(gates / 2..gates);
-    let text = |lines: &[(String, &str, Vec<String>)], rename: bool| {
-        let q = |s: &str| -> String {
-            match s.strip_prefix('q') {
-                Some(k) if rename => format!("st_{k}"),
-                _ => s.to_string(),
+    let text = |mutated: Option<usize>, rename: bool| {
+        let name = |s: usize| {
+            if s < n {
+                format!("i{s}")
+            } else if s < n + ffs {
+                if rename {
+                    format!("st_{}", s - n)
+                } else {
+                    format!("q{}", s - n)
+                }
+            } else {
+                format!("g{}", s - n - ffs)
             }
         };
         let mut s = String::new();
@@ -77,31 +66,15 @@ pub fn random_seq_bench(
             s += &format!("OUTPUT(y{k})\n");
         }
         for (k, &g) in loads.iter().enumerate() {
-            s += &format!("{} = DFF(g{g})\n", q(&format!("q{k}")));
+            s += &format!("{} = DFF(g{g})\n", name(n + k));
         }
-        for (o, kd, a) in lines {
-            let a: Vec<String> = a.iter().map(|x| q(x)).collect();
-            s += &format!("{o} = {kd}({})\n", a.join(", "));
-        }
+        s += &c.lines(mutated, &name);
         for (k, &p) in pick.iter().enumerate() {
             s += &format!("y{k} = BUFF(g{p})\n");
         }
         s
     };
-    let reference = text(&lines, false);
-    let mut cand = lines.clone();
-    if mutate {
-        cand[mutated].1 = match cand[mutated].1 {
-            "NOT" => "BUFF",
-            "AND" => "OR",
-            "OR" => "AND",
-            "NAND" => "NOR",
-            "NOR" => "NAND",
-            "XOR" => "XNOR",
-            _ => "XOR",
-        };
-    }
-    (reference, text(&cand, rename))
+    (text(None, false), text(mutate.then_some(mutated), rename))
 }
 
 fn read(name: &str, text: &str) -> Design {

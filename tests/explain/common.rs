@@ -1,6 +1,7 @@
 //! Helpers of the explain tests: proving a pair in-process with the shared graph kept, random
 //! bench pairs, and running Icarus Verilog on several files.
 
+use super::oracle::random::Gates;
 use equicone::design::{Design, Format};
 use equicone::engine::{self, ProveOptions, ProveReport, Shared};
 use equicone::front;
@@ -32,9 +33,11 @@ pub fn prove(r: &Design, c: &Design, assume: &[&str]) -> (ProveReport, Shared) {
     (rep, kept)
 }
 
-/// A random bench circuit over inputs `i0..` (or a bus `d[0]..` when `bus`), `gates` gates of
-/// fan-in at most 3 reading earlier signals, and `outs` outputs; the candidate is the same
-/// circuit with gate `mutate` (when given) changed to another kind of the same arity.
+/// A random bench circuit (the tests' one generator, `tests/oracle/random.rs`) over inputs
+/// `i0..` (or a bus `d[0]..` when `bus`), `gates` gates of fan-in at most 3 reading earlier
+/// signals, and `outs` outputs; the candidate is the same circuit with one gate that an
+/// output reads (of the last third when one is) changed to another kind of the same arity
+/// when `mutate`.
 pub fn random_bench(
     seed: u64,
     n: usize,
@@ -44,66 +47,42 @@ pub fn random_bench(
     mutate: bool,
 ) -> (String, String) {
     let mut rng = StdRng::seed_from_u64(seed);
-    let name = |i: usize| {
-        if bus {
-            format!("d[{i}]")
+    let c = Gates::random(&mut rng, n, gates);
+    let name = |s: usize| {
+        if s >= n {
+            format!("g{}", s - n)
+        } else if bus {
+            format!("d[{s}]")
         } else {
-            format!("i{i}")
+            format!("i{s}")
         }
     };
-    let mut sig: Vec<String> = (0..n).map(name).collect();
-    let kinds2 = ["AND", "OR", "NAND", "NOR", "XOR", "XNOR"];
-    let mut lines = Vec::new();
-    for g in 0..gates {
-        let arity = if rng.gen_bool(0.15) {
-            1
-        } else {
-            rng.gen_range(2..=3)
-        };
-        let args: Vec<String> = (0..arity)
-            .map(|_| sig[rng.gen_range(0..sig.len())].clone())
-            .collect();
-        let kind = if arity == 1 {
-            "NOT"
-        } else {
-            kinds2[rng.gen_range(0..kinds2.len())]
-        };
-        lines.push((format!("g{g}"), kind, args));
-        sig.push(format!("g{g}"));
-    }
     let pick: Vec<usize> = (0..outs).map(|k| n + gates - 1 - k * 2).collect();
-    let text = |lines: &[(String, &str, Vec<String>)]| {
+    // The planted bug is in a gate some output reads, of the last third when there is one.
+    let live = c.live(&pick);
+    let cone: Vec<usize> = (0..gates).filter(|&g| live[n + g]).collect();
+    let late: Vec<usize> = cone
+        .iter()
+        .copied()
+        .filter(|&g| g >= gates * 2 / 3)
+        .collect();
+    let from = if late.is_empty() { &cone } else { &late };
+    let mutated = mutate.then(|| from[rng.gen_range(0..from.len())]);
+    let text = |mutated: Option<usize>| {
         let mut s = String::new();
         for i in 0..n {
             s += &format!("INPUT({})\n", name(i));
         }
-        for (k, _) in pick.iter().enumerate() {
+        for k in 0..pick.len() {
             s += &format!("OUTPUT(y{k})\n");
         }
-        for (o, kd, a) in lines {
-            s += &format!("{o} = {kd}({})\n", a.join(", "));
-        }
+        s += &c.lines(mutated, &name);
         for (k, &p) in pick.iter().enumerate() {
-            s += &format!("y{k} = BUF({})\n", sig[p]);
+            s += &format!("y{k} = BUF({})\n", name(p));
         }
         s
     };
-    let reference = text(&lines);
-    let mut cand = lines.clone();
-    if mutate {
-        // A gate in the last third, so that it reaches an output.
-        let g = rng.gen_range(gates * 2 / 3..gates);
-        cand[g].1 = match cand[g].1 {
-            "NOT" => "BUFF",
-            "AND" => "NAND",
-            "OR" => "XOR",
-            "NAND" => "OR",
-            "NOR" => "AND",
-            "XOR" => "XNOR",
-            _ => "OR",
-        };
-    }
-    (reference, text(&cand))
+    (text(None), text(mutated))
 }
 
 /// Compile `files` with Icarus Verilog (top `equicone_tb`) and run it; returns standard output.

@@ -2,28 +2,40 @@
 //! vector by name here, 64 patterns per word through [`sim::Evaluator`]) and a miter solved by a
 //! second SAT solver (the `batsat` crate from crates.io, a MiniSat reimplementation), written directly
 //! from the gate lines without any of equicone's code, plus the location of the shared
-//! benchmark data.
+//! benchmark data and the tests' one random-circuit generator (`random.rs`).
 
 #![allow(dead_code)]
+
+pub mod random;
 
 use std::collections::HashMap;
 use std::path::PathBuf;
 
-/// The ISCAS-85 folder of the shared data, or `None` (with a loud note) when it is absent.
-/// With `EQUICONE_REQUIRE_SHARED=1` absence is a failure, as CI requires.
-pub fn iscas_dir() -> Option<PathBuf> {
-    let dir = PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("../shared/bench-data/iscas85");
-    if dir.join("c17.bench").is_file() {
+/// The folder `bench-data/SUB` of the shared data (beside the checkout, or where
+/// `EQUICONE_SHARED_DIR` says), recognized by its file `probe`; `None` with a loud SKIPPED note
+/// when it is absent. With `EQUICONE_REQUIRE_SHARED=1` absence is a failure, as CI requires.
+/// The tests' one locator of the shared data.
+pub fn shared_data(sub: &str, probe: &str) -> Option<PathBuf> {
+    let shared = std::env::var_os("EQUICONE_SHARED_DIR")
+        .map(PathBuf::from)
+        .unwrap_or_else(|| PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("../shared"));
+    let dir = shared.join("bench-data").join(sub);
+    if dir.join(probe).is_file() {
         return Some(dir);
     }
     if std::env::var("EQUICONE_REQUIRE_SHARED").as_deref() == Ok("1") {
         panic!(
-            "EQUICONE_REQUIRE_SHARED=1 but the shared ISCAS-85 data is missing at {}",
+            "EQUICONE_REQUIRE_SHARED=1 but the shared data is missing at {}",
             dir.display()
         );
     }
-    eprintln!("SKIPPED: shared ISCAS-85 data not found at {} (set EQUICONE_REQUIRE_SHARED=1 to make this a failure)", dir.display());
+    eprintln!("SKIPPED: shared data not found at {} (set EQUICONE_REQUIRE_SHARED=1 to make this a failure)", dir.display());
     None
+}
+
+/// The ISCAS-85 folder of the shared data ([`shared_data`]).
+pub fn iscas_dir() -> Option<PathBuf> {
+    shared_data("iscas85", "c17.bench")
 }
 
 /// A bench netlist as plain data: inputs, outputs, and gates by output name.

@@ -117,16 +117,5 @@ pub fn run_iverilog_as(src: &str, top: &str, generation: &str) -> String {
 /// The ISCAS-85 folder of the shared benchmark data (../shared, see SOURCE.md there): `None`
 /// with a SKIPPED line when it is absent, a failure when EQUICONE_REQUIRE_SHARED=1.
 pub fn shared_dir() -> Option<PathBuf> {
-    let p = PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("../shared/bench-data/iscas85");
-    if p.is_dir() {
-        return Some(p);
-    }
-    if std::env::var("EQUICONE_REQUIRE_SHARED").as_deref() == Ok("1") {
-        panic!(
-            "{} is required (EQUICONE_REQUIRE_SHARED=1) but missing",
-            p.display()
-        );
-    }
-    eprintln!("SKIPPED: {} not found", p.display());
-    None
+    super::oracle::iscas_dir()
 }

@@ -27,13 +27,18 @@ struct Bench {
     inputs: Vec<String>,
     outputs: Vec<String>,
     gates: Vec<Gate>,
+    /// Gate indices in an order where each reads only inputs and earlier gates (the tests'
+    /// one topological sort, `oracle::Net::order`).
+    order: Vec<usize>,
 }
 
 /// The bench text through the tests' one bench reader (`tests/oracle`), gate names in lower
 /// case as Verilog writes its primitives.
 fn parse(text: &str) -> Bench {
     let net = super::oracle::parse(text);
+    let order = net.order();
     Bench {
+        order,
         inputs: net.inputs,
         outputs: net.outputs,
         gates: net
@@ -46,40 +51,6 @@ fn parse(text: &str) -> Bench {
             })
             .collect(),
     }
-}
-
-/// Gates in an order where each reads only inputs and earlier gates.
-fn topological(b: &Bench) -> Vec<usize> {
-    let by_out: HashMap<&str, usize> = b
-        .gates
-        .iter()
-        .enumerate()
-        .map(|(k, g)| (g.out.as_str(), k))
-        .collect();
-    let mut done = vec![false; b.gates.len()];
-    let mut order = Vec::new();
-    for root in 0..b.gates.len() {
-        let mut stack = vec![(root, false)];
-        while let Some((k, expanded)) = stack.pop() {
-            if done[k] {
-                continue;
-            }
-            if expanded {
-                done[k] = true;
-                order.push(k);
-                continue;
-            }
-            stack.push((k, true));
-            for i in &b.gates[k].ins {
-                if let Some(&j) = by_out.get(i.as_str()) {
-                    if !done[j] {
-                        stack.push((j, false));
-                    }
-                }
-            }
-        }
-    }
-    order
 }
 
 /// A gate as a Verilog expression over operand texts.
@@ -126,7 +97,7 @@ enum Style {
 /// `top` with the bench file's ports that instantiates them with named connections.
 /// With `mutate`, the first gate of the set computes its complement (AND for NAND, ...).
 fn hierarchical(b: &Bench, parts: usize, mutate: bool) -> String {
-    let order = topological(b);
+    let order = &b.order;
     let chunk = order.len().div_ceil(parts);
     let pos: HashMap<&str, usize> = order
         .iter()
@@ -377,16 +348,11 @@ fn icarus_verilog_agrees_with_the_bench_files_on_the_written_module_sets() {
         let bd = read_bench(&Arc::from(format!("{name}.bench")), &text).expect("bench reader");
         let b = parse(&text);
         let mut src = hierarchical(&b, 6, false);
-        let mut state: u64 = 0x9e37_79b9_7f4a_7c15;
+        let mut rng = equicone::rng::SplitMix64::new(1, 0);
         let mut vectors = Vec::new();
         for _ in 0..32 {
             let v: Vec<bool> = (0..b.inputs.len())
-                .map(|_| {
-                    state ^= state << 13;
-                    state ^= state >> 7;
-                    state ^= state << 17;
-                    state & 1 == 1
-                })
+                .map(|_| rng.next_u64() & 1 == 1)
                 .collect();
             vectors.push(v);
         }

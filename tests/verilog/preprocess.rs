@@ -6,18 +6,35 @@
 use super::common::{eval_ports, iverilog_available, run_iverilog};
 use equicone::front::verilog::preprocess::Options;
 use equicone::front::verilog::read_verilog_with;
+use equicone::front::{load, MemoryFiles, Source};
 use std::collections::HashMap;
-use std::path::Path;
+use std::ffi::OsStr;
+use std::os::unix::ffi::OsStrExt;
+use std::path::{Path, PathBuf};
 use std::sync::Arc;
 
-fn read_in(dir: &Path, file: &str, opts: &Options) -> Result<equicone::Design, String> {
-    let p = dir.join(file);
-    let text = std::fs::read_to_string(&p).expect("read");
-    let name: Arc<str> = Arc::from(p.display().to_string().as_str());
-    read_verilog_with(&[(name, text)], None, opts).map_err(|e| e.to_string())
+/// Read `dir/file` from the in-memory store `files` (the library opens no file itself).
+fn read_in(
+    files: &MemoryFiles,
+    dir: &Path,
+    file: &str,
+    opts: &Options,
+) -> Result<equicone::Design, String> {
+    let src = Source {
+        paths: vec![dir.join(file)],
+        format: None,
+        top: None,
+        preprocess: opts.clone(),
+    };
+    load(&src, files).map_err(|e| e.to_string())
 }
 
-fn write(dir: &Path, file: &str, text: &str) {
+fn write(files: &mut MemoryFiles, dir: &Path, file: &str, text: &str) {
+    files.insert(dir.join(file), text);
+}
+
+/// Write `dir/file` on disk (for the command-line tests).
+fn write_disk(dir: &Path, file: &str, text: &str) {
     let p = dir.join(file);
     std::fs::create_dir_all(p.parent().unwrap()).unwrap();
     std::fs::write(p, text).unwrap();
@@ -58,11 +75,12 @@ fn value(d: &equicone::Design, a: u128, b: u128, port: &str) -> u128 {
 
 #[test]
 fn macros_conditionals_and_search_directories() {
-    let dir = tempfile::tempdir().unwrap();
-    write(dir.path(), "inc/defs.vh", DEFS);
-    write(dir.path(), "top.v", TOP);
+    let dir = Path::new("proj");
+    let mut files = MemoryFiles::new();
+    write(&mut files, dir, "inc/defs.vh", DEFS);
+    write(&mut files, dir, "top.v", TOP);
     let base = Options {
-        include_dirs: vec![dir.path().join("inc")],
+        include_dirs: vec![dir.join("inc")],
         defines: vec![("ZV".into(), "1'b1".into())],
         keep_written: false,
     };
@@ -77,7 +95,7 @@ fn macros_conditionals_and_search_directories() {
         let mut o = base.clone();
         o.defines
             .extend(extra.map(|n| (n.to_string(), String::new())));
-        let d = read_in(dir.path(), "top.v", &o).unwrap();
+        let d = read_in(&files, dir, "top.v", &o).unwrap();
         for a in 0..16 {
             for b in 0..16 {
                 assert_eq!(value(&d, a, b, "y"), f(a, b), "{extra:?} a={a} b={b}");
@@ -90,7 +108,7 @@ fn macros_conditionals_and_search_directories() {
         }
     }
     // Without -I the header is not found: one error per include, none for its macros.
-    let e = read_in(dir.path(), "top.v", &Options::default()).unwrap_err();
+    let e = read_in(&files, dir, "top.v", &Options::default()).unwrap_err();
     assert!(
         e.contains("top.v:2:1: error: cannot find the included file `defs.vh`"),
         "{e}"
@@ -106,20 +124,22 @@ fn macros_conditionals_and_search_directories() {
         defines: vec![],
         keep_written: false,
     };
-    let e = read_in(dir.path(), "top.v", &o).unwrap_err();
+    let e = read_in(&files, dir, "top.v", &o).unwrap_err();
     assert!(e.contains("top.v:13:14: error: undefined macro `ZV"), "{e}");
 }
 
 #[test]
 fn positions_point_into_the_included_file_and_the_macro_body() {
-    let dir = tempfile::tempdir().unwrap();
-    write(dir.path(), "defs.vh", DEFS);
+    let dir = Path::new("proj");
+    let mut files = MemoryFiles::new();
+    write(&mut files, dir, "defs.vh", DEFS);
     write(
-        dir.path(),
+        &mut files,
+        dir,
         "bad.v",
         "`include \"defs.vh\"\nmodule m(input [3:0] a, output y);\n  assign y = `BAD(a);\nendmodule\n",
     );
-    let e = read_in(dir.path(), "bad.v", &Options::default()).unwrap_err();
+    let e = read_in(&files, dir, "bad.v", &Options::default()).unwrap_err();
     // The `)` that ends the body of BAD, on line 6 column 20 of defs.vh.
     assert!(
         e.contains("defs.vh:6:20: error: expected an expression"),
@@ -127,37 +147,41 @@ fn positions_point_into_the_included_file_and_the_macro_body() {
     );
     // An error in the text after an include and a macro use still has its own line.
     write(
-        dir.path(),
+        &mut files,
+        dir,
         "late.v",
         "`include \"defs.vh\"\nmodule m(input [`W-1:0] a, output y);\n  assign y = `MAXOF(a, 1) & ;\nendmodule\n",
     );
-    let e = read_in(dir.path(), "late.v", &Options::default()).unwrap_err();
+    let e = read_in(&files, dir, "late.v", &Options::default()).unwrap_err();
     assert!(
         e.contains("late.v:3:29: error: expected an expression, found `;`"),
         "{e}"
     );
     // Elaboration errors too: an undeclared name passed as a macro argument.
     write(
-        dir.path(),
+        &mut files,
+        dir,
         "elab.v",
         "`include \"defs.vh\"\nmodule m(input [3:0] a, output [3:0] y);\n  assign y =\n    `MAXOF(a, nope);\nendmodule\n",
     );
-    let e = read_in(dir.path(), "elab.v", &Options::default()).unwrap_err();
+    let e = read_in(&files, dir, "elab.v", &Options::default()).unwrap_err();
     assert!(e.contains("elab.v:4:15: error:"), "{e}");
     assert!(e.contains("nope"), "{e}");
 }
 
 #[test]
 fn include_loops_recursive_macros_and_stray_directives_are_errors() {
-    let dir = tempfile::tempdir().unwrap();
-    write(dir.path(), "one.vh", "`include \"two.vh\"\n");
-    write(dir.path(), "two.vh", "`include \"one.vh\"\n");
+    let dir = Path::new("proj");
+    let mut files = MemoryFiles::new();
+    write(&mut files, dir, "one.vh", "`include \"two.vh\"\n");
+    write(&mut files, dir, "two.vh", "`include \"one.vh\"\n");
     write(
-        dir.path(),
+        &mut files,
+        dir,
         "loop.v",
         "`include \"one.vh\"\nmodule m(output y); assign y = 1; endmodule\n",
     );
-    let e = read_in(dir.path(), "loop.v", &Options::default()).unwrap_err();
+    let e = read_in(&files, dir, "loop.v", &Options::default()).unwrap_err();
     assert!(e.contains("two.vh:1:1: error: include loop:"), "{e}");
     assert!(e.contains("one.vh includes"), "{e}");
     let cases = [
@@ -184,8 +208,8 @@ fn include_loops_recursive_macros_and_stray_directives_are_errors() {
 #[test]
 fn the_command_line_takes_include_directories_and_macros() {
     let dir = tempfile::tempdir().unwrap();
-    write(dir.path(), "inc/defs.vh", DEFS);
-    write(dir.path(), "top.v", TOP);
+    write_disk(dir.path(), "inc/defs.vh", DEFS);
+    write_disk(dir.path(), "top.v", TOP);
     let exe = env!("CARGO_BIN_EXE_equicone");
     let top = dir.path().join("top.v");
     let inc = dir.path().join("inc");
@@ -224,6 +248,57 @@ fn the_command_line_takes_include_directories_and_macros() {
         .output()
         .unwrap();
     assert_eq!(out.status.code(), Some(2));
+}
+
+/// A design folder whose name is not UTF-8 (the byte 0xff): the include beside the design
+/// and one through `-I` are found, since paths are kept as paths from the caller to the
+/// file store (a lossy name, `d\u{fffd}`, would name another folder).
+#[test]
+fn includes_are_found_in_a_folder_whose_name_is_not_utf8() {
+    let folder = Path::new(OsStr::from_bytes(b"d\xff"));
+    assert!(folder.to_str().is_none());
+    // The library, with the files in memory.
+    let mut files = MemoryFiles::new();
+    write(&mut files, folder, "defs.vh", DEFS);
+    write(&mut files, folder, "top.v", TOP);
+    let o = Options {
+        defines: vec![("ZV".into(), "1'b1".into())],
+        ..Options::default()
+    };
+    let d = read_in(&files, folder, "top.v", &o).unwrap();
+    assert_eq!(value(&d, 3, 9, "y"), 9);
+    // An include found through the other folder's name is not the lossy name's.
+    let mut lossy = MemoryFiles::new();
+    write(&mut lossy, Path::new("d\u{fffd}"), "defs.vh", DEFS);
+    write(&mut lossy, folder, "top.v", TOP);
+    let e = read_in(&lossy, folder, "top.v", &o).unwrap_err();
+    assert!(e.contains("cannot find the included file `defs.vh`"), "{e}");
+    // The command line, on disk: beside the design, and in a -I folder of that name.
+    let dir = tempfile::tempdir().unwrap();
+    let here: PathBuf = dir.path().join(folder);
+    write_disk(&here, "defs.vh", DEFS);
+    write_disk(&here, "top.v", TOP);
+    write_disk(&here, "inc/defs.vh", DEFS);
+    write_disk(&here, "sub/top.v", TOP);
+    let exe = env!("CARGO_BIN_EXE_equicone");
+    for (top, inc) in [
+        (here.join("top.v"), None),
+        (here.join("sub/top.v"), Some(here.join("inc"))),
+    ] {
+        let mut cmd = std::process::Command::new(exe);
+        cmd.args(["eval", "--set", "a=5", "--set", "b=9", "-D", "ZV=1'b1"]);
+        if let Some(inc) = &inc {
+            cmd.arg("-I").arg(inc);
+        }
+        let out = cmd.arg(&top).output().unwrap();
+        let text = String::from_utf8_lossy(&out.stdout);
+        assert!(
+            out.status.success(),
+            "{text}{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+        assert!(text.contains("y[3:0]=4'b1001 (9)"), "{text}");
+    }
 }
 
 /// Icarus Verilog 11 reads the same files (its own preprocessor, `-I` and `-D`) and must

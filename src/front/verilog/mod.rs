@@ -27,6 +27,8 @@ pub mod syntax_error;
 
 use crate::design::Design;
 use crate::diag::{InputError, Stage};
+use crate::front::Files;
+use std::path::PathBuf;
 use std::sync::Arc;
 
 /// Read Verilog sources (file name as the user gave it, and its text) into one design whose
@@ -50,11 +52,32 @@ pub fn read_verilog(
     read_verilog_with(sources, top, &preprocess::Options::default())
 }
 
-/// [`read_verilog`] with include directories and macros from the command line.
+/// [`read_verilog`] with macros and include directories; the texts are all there is, so an
+/// `` `include `` finds nothing (read through [`crate::front::load`] with a
+/// [`crate::front::Files`] store for that).
 pub fn read_verilog_with(
     sources: &[(Arc<str>, String)],
     top: Option<&str>,
     opts: &preprocess::Options,
+) -> Result<Design, InputError> {
+    let paths: Vec<PathBuf> = sources.iter().map(|s| PathBuf::from(&*s.0)).collect();
+    read_sources(
+        sources,
+        &paths,
+        top,
+        opts,
+        &crate::front::MemoryFiles::new(),
+    )
+}
+
+/// Read Verilog sources whose real paths are `paths` (one per source; the names in
+/// `sources` show them, lossily), `` `include `` finding its files through `files`.
+pub(crate) fn read_sources(
+    sources: &[(Arc<str>, String)],
+    paths: &[PathBuf],
+    top: Option<&str>,
+    opts: &preprocess::Options,
+    files: &dyn Files,
 ) -> Result<Design, InputError> {
     // Parsing and elaboration recurse over expression syntax (bounded by the parser's
     // nesting limit); a dedicated thread gives that recursion a known, ample stack. The
@@ -63,7 +86,7 @@ pub fn read_verilog_with(
         let h = std::thread::Builder::new()
             .name("verilog-reader".into())
             .stack_size(256 << 20)
-            .spawn_scoped(s, || read_inner(sources, top, opts));
+            .spawn_scoped(s, || read_inner(sources, paths, top, opts, files));
         match h {
             Ok(h) => match h.join() {
                 Ok(r) => r,
@@ -86,12 +109,14 @@ fn read_inner_fallback() -> Result<Design, InputError> {
 
 fn read_inner(
     sources: &[(Arc<str>, String)],
+    paths: &[PathBuf],
     top: Option<&str>,
     opts: &preprocess::Options,
+    files: &dyn Files,
 ) -> Result<Design, InputError> {
     // IEEE 1364-2005 clause 19: the preprocessor runs first, over all files in order (a
     // macro defined in one file is in force in the next).
-    let pre = preprocess::preprocess(sources, opts);
+    let pre = preprocess::preprocess(sources, paths, opts, files);
     if !pre.errors.is_empty() {
         return Err(InputError {
             diagnostics: pre.errors,

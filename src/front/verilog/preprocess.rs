@@ -18,6 +18,7 @@ mod text;
 use super::lexer::Mark;
 use super::pos::Pos;
 use crate::diag::{Diagnostic, SourcePos, Stage};
+use crate::front::Files;
 use macros::Macro;
 use std::borrow::Cow;
 use std::collections::BTreeMap;
@@ -97,7 +98,12 @@ struct Cond {
 
 struct Pre<'o> {
     opts: &'o Options,
+    /// Where included files come from.
+    store: &'o dyn Files,
+    /// File names for positions (the sources, then the included files).
     files: Vec<Arc<str>>,
+    /// The same files' paths (not necessarily UTF-8), for includes relative to them.
+    paths: Vec<PathBuf>,
     macros: BTreeMap<String, Macro>,
     errors: Vec<Diagnostic>,
     /// Included files open now (for loops).
@@ -110,11 +116,29 @@ struct Pre<'o> {
     include_failed: bool,
 }
 
-/// Preprocess `sources` (file name, text). A source without a backtick is passed on as is.
-pub fn preprocess<'a>(sources: &'a [(Arc<str>, String)], opts: &Options) -> Output<'a> {
+/// Preprocess `sources` (file name, text) whose paths are `paths` (one per source; a
+/// missing one is taken from the name), reading included files from `store`. A source
+/// without a backtick is passed on as is.
+pub fn preprocess<'a>(
+    sources: &'a [(Arc<str>, String)],
+    paths: &[PathBuf],
+    opts: &Options,
+    store: &dyn Files,
+) -> Output<'a> {
     let mut pre = Pre {
         opts,
+        store,
         files: sources.iter().map(|s| s.0.clone()).collect(),
+        paths: sources
+            .iter()
+            .enumerate()
+            .map(|(k, s)| {
+                paths
+                    .get(k)
+                    .cloned()
+                    .unwrap_or_else(|| PathBuf::from(&*s.0))
+            })
+            .collect(),
         macros: BTreeMap::new(),
         errors: Vec::new(),
         open_files: Vec::new(),
@@ -126,7 +150,7 @@ pub fn preprocess<'a>(sources: &'a [(Arc<str>, String)], opts: &Options) -> Outp
         pre.macros.insert(n.clone(), Macro::command_line(v));
     }
     let mut units = Vec::with_capacity(sources.len());
-    for (k, (name, text)) in sources.iter().enumerate() {
+    for (k, (_, text)) in sources.iter().enumerate() {
         if !text.as_bytes().contains(&b'`') {
             units.push(Unit {
                 text: Cow::Borrowed(text.as_str()),
@@ -143,7 +167,7 @@ pub fn preprocess<'a>(sources: &'a [(Arc<str>, String)], opts: &Options) -> Outp
             },
         }];
         let mut out = Mapped::new();
-        pre.open_files.push(PathBuf::from(name.as_ref()));
+        pre.open_files.push(pre.paths[k].clone());
         pre.run(&mut Cursor::new(text.as_bytes(), &start), &mut out, 0);
         pre.open_files.pop();
         let s = String::from_utf8(out.text)
@@ -440,12 +464,12 @@ impl Pre<'_> {
             self.include_failed = true;
             return;
         };
-        let key = std::fs::canonicalize(&path).unwrap_or_else(|_| path.clone());
-        if self.open_files.iter().any(|f| {
-            std::fs::canonicalize(f)
-                .unwrap_or_else(|_| f.clone())
-                .eq(&key)
-        }) {
+        let key = self.store.identity(&path);
+        if self
+            .open_files
+            .iter()
+            .any(|f| self.store.identity(f) == key)
+        {
             let chain: Vec<String> = self
                 .open_files
                 .iter()
@@ -459,7 +483,7 @@ impl Pre<'_> {
             );
             return;
         }
-        let text = match std::fs::read(&path) {
+        let text = match self.store.read_bytes(&path) {
             Ok(b) => match String::from_utf8(b) {
                 Ok(t) => t,
                 Err(_) => {
@@ -483,6 +507,7 @@ impl Pre<'_> {
         let k = self.files.len() as u32;
         self.files
             .push(Arc::from(path.display().to_string().as_str()));
+        self.paths.push(path.clone());
         let start = [Mark {
             off: 0,
             pos: Pos {
@@ -500,8 +525,8 @@ impl Pre<'_> {
 
     /// The directory of the file that `p` is in (for includes relative to it).
     fn dir_of(&self, p: Pos) -> Option<PathBuf> {
-        let f = self.files.get(p.file as usize)?;
-        Path::new(f.as_ref()).parent().map(Path::to_path_buf)
+        let f = self.paths.get(p.file as usize)?;
+        f.parent().map(Path::to_path_buf)
     }
 
     /// IEEE 1364-2005 clause 19.5 leaves the search to the tool: an absolute name as is;
@@ -509,10 +534,12 @@ impl Pre<'_> {
     fn find_include(&self, p: Pos, name: &str) -> Option<PathBuf> {
         let n = Path::new(name);
         if n.is_absolute() {
-            return n.is_file().then(|| n.to_path_buf());
+            return self.store.is_file(n).then(|| n.to_path_buf());
         }
         let mut dirs: Vec<PathBuf> = self.dir_of(p).into_iter().collect();
         dirs.extend(self.opts.include_dirs.iter().cloned());
-        dirs.into_iter().map(|d| d.join(n)).find(|f| f.is_file())
+        dirs.into_iter()
+            .map(|d| d.join(n))
+            .find(|f| self.store.is_file(f))
     }
 }

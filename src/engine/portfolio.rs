@@ -143,6 +143,11 @@ pub(crate) fn run(
             if let Some(w) = sub.sweep {
                 out.sweep.get_or_insert_with(SweepStats::default).add(&w);
             }
+            // What the later methods spent on each pair counts for it too (the pairs'
+            // conflicts add up to the run's).
+            for (c, s) in out.costs.iter_mut().zip(&sub.costs) {
+                c.add(*s);
+            }
             left.clear();
             break;
         }
@@ -703,6 +708,26 @@ mod tests {
             out.groups[0]
         );
         assert_eq!(out.groups[1].method, Stage::Sweep);
+        // The sweep's work on the merged graph is charged to the pairs it worked on: the
+        // pairs' conflicts add up to the run's, and each swept pair has a share of its time.
+        let conflicts: u64 = out.costs.iter().map(|c| c.conflicts).sum();
+        assert_eq!(conflicts, out.sat.conflicts);
+        for &p in &out.groups[1].pairs {
+            assert!(out.costs[p].seconds > 0.0, "pair {p}: {:?}", out.costs[p]);
+        }
+    }
+
+    #[test]
+    fn stages_are_written_alike_in_text_and_json() {
+        for s in [
+            Stage::Algebra,
+            Stage::Exhaustive,
+            Stage::Bdd,
+            Stage::BddSweep,
+            Stage::Sweep,
+        ] {
+            assert_eq!(serde_json::to_value(s).unwrap(), s.word());
+        }
     }
 
     #[test]

@@ -13,7 +13,7 @@ use serde::Serialize;
 
 /// One method of the portfolio.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
-#[serde(rename_all = "snake_case")]
+#[serde(rename_all = "kebab-case")]
 pub enum Stage {
     /// Word polynomials of arithmetic output buses ([`super::words`]).
     Algebra,
@@ -28,7 +28,7 @@ pub enum Stage {
 }
 
 impl Stage {
-    /// Word used in reports and the debug log.
+    /// Word used in reports, the JSON (the same as serde's) and the debug log.
     pub fn word(self) -> &'static str {
         match self {
             Stage::Exhaustive => "exhaustive",

@@ -98,6 +98,10 @@ pub enum Tok {
     Eof,
 }
 
+/// The text of the number token that stands for a skipped cast or assignment pattern (its
+/// error is already recorded; the parser takes it, and a type name before it, as an operand).
+pub const CAST_PLACEHOLDER: &str = "'(cast)";
+
 /// A token with its position.
 #[derive(Clone, Debug)]
 pub struct Token {
@@ -561,6 +565,46 @@ impl<'s> Lexer<'s> {
             b'o' => 3,
             b'h' => 4,
             b'd' => 0,
+            b'(' | b'{' => {
+                // A cast `W'(x)`, `T'(x)`, `signed'(x)` or an assignment pattern `'{...}`
+                // (IEEE 1800-2017 clauses 6.24 and 10.9, from memory): not read yet. The
+                // bracketed text is skipped whole, so the error is the only one.
+                let (open, close) = (base, if base == b'(' { b')' } else { b'}' });
+                let mut depth = 0usize;
+                while self.offset < self.src.len() {
+                    let c = self.peek(0);
+                    self.bump();
+                    if c == open {
+                        depth += 1;
+                    } else if c == close {
+                        depth -= 1;
+                        if depth == 0 {
+                            break;
+                        }
+                    }
+                }
+                let what = if open == b'(' {
+                    let size = String::from_utf8_lossy(&self.src[start..start.max(self.offset)])
+                        .split('\'')
+                        .next()
+                        .unwrap_or("")
+                        .trim()
+                        .to_string();
+                    format!("cast `{size}'(...)`; write the width or sign with a part-select, a sized assignment or `$signed`/`$unsigned`")
+                } else {
+                    "assignment pattern `'{...}`; write a concatenation `{...}` instead".to_string()
+                };
+                self.err_of(pos, SyntaxKind::Unsupported, format!("unsupported: {what}"));
+                return Token {
+                    tok: Tok::Num(Box::new(NumLit {
+                        bits: vec![B0; 32],
+                        signed: false,
+                        sized: false,
+                        text: CAST_PLACEHOLDER.into(),
+                    })),
+                    pos,
+                };
+            }
             _ => {
                 self.err(
                     pos,

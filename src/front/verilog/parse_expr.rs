@@ -133,6 +133,18 @@ impl Parser<'_, '_> {
         let pos = t.pos;
         match t.tok {
             Tok::Num(n) => Ok(Expr::Num(n, pos)),
+            // `T'(x)`, `signed'(x)`: the lexer reported the cast and skipped it.
+            Tok::Ident(_) if matches!(&self.peek().tok, Tok::Num(n) if &*n.text == super::lexer::CAST_PLACEHOLDER) =>
+            {
+                let n = self.bump();
+                match n.tok {
+                    Tok::Num(n) => Ok(Expr::Num(n, pos)),
+                    other => {
+                        let d = self.describe(&other);
+                        Err(self.unexpected(n.pos, "an expression", &d))
+                    }
+                }
+            }
             Tok::Ident(s) if !super::symbols::is_keyword(s) => {
                 if self.peek_p(Punct::LParen) {
                     // A function call (IEEE 1364-2005 clause 10.4.2).

@@ -29,3 +29,24 @@ endmodule
         assert!(l.starts_with(w), "{l} / {w}\n{e}");
     }
 }
+
+#[test]
+fn a_typedef_of_two_packed_ranges_gives_one_error_not_one_per_use() {
+    // The type's declarations used to read as module instances ("expected `(` of the port
+    // connections"), one follow-on error per declaration.
+    let src = "module m(input [7:0] a, output [7:0] y);
+  typedef logic [1:0][3:0] pair_t;
+  pair_t p;
+  pair_t q, r;
+  assign p = a;
+  assign y = p;
+endmodule
+";
+    let e = read_err(src);
+    let lines: Vec<&str> = e.lines().filter(|l| l.contains("error:")).collect();
+    assert_eq!(lines.len(), 1, "{e}");
+    assert!(
+        lines[0].starts_with("t.v:2:22: error: unsupported: more than one packed dimension"),
+        "{e}"
+    );
+}

@@ -378,7 +378,10 @@ impl Parser<'_, '_> {
     /// members wait in `pending` for the caller.
     pub(super) fn typedef(&mut self) -> PResult<(Sym, TypeDef)> {
         let pos = self.bump().pos;
-        let ty = self.data_type()?;
+        let ty = match self.data_type() {
+            Ok(t) => t,
+            Err(e) => return self.typedef_after_error(e),
+        };
         let (n, _) = self.ident("the new type's name")?;
         if self.peek_p(Punct::LBrack) {
             return Err(self.unsupported_here("unpacked dimensions in a `typedef` (arrays)"));
@@ -391,6 +394,36 @@ impl Parser<'_, '_> {
         let t = self.peek().clone();
         let d = self.describe(&t.tok);
         Err(self.unexpected(t.pos, "`;` after the typedef", &d))
+    }
+
+    /// After an error in a `typedef`'s type (already reported): the new type's name is the
+    /// last name before the `;`; it is declared as one bit, so that declarations of the type
+    /// give no follow-on error (the read fails on the first error anyway). Without a name,
+    /// the error stands and the caller skips the declaration.
+    fn typedef_after_error(&mut self, e: super::parser::Stop) -> PResult<(Sym, TypeDef)> {
+        let mut name = None;
+        let mut depth = 0usize;
+        loop {
+            match self.peek().tok {
+                Tok::Eof => return Err(e),
+                Tok::Punct(Punct::LBrace) => depth += 1,
+                Tok::Punct(Punct::RBrace) => depth = depth.saturating_sub(1),
+                Tok::Punct(Punct::Semi) if depth == 0 => break,
+                Tok::Ident(k) if k == super::symbols::kw::ENDMODULE => return Err(e),
+                Tok::Ident(k) if depth == 0 => name = Some(k),
+                _ => {}
+            }
+            self.bump();
+        }
+        let Some(n) = name else { return Err(e) };
+        self.bump();
+        let ty = TypeDef {
+            signed: false,
+            integer: false,
+            range: None,
+            fields: None,
+        };
+        Ok((n, ty))
     }
 
     /// Enum members read by the last type.

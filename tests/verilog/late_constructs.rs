@@ -5,7 +5,9 @@
 //! Verilog 11 on every input value where Icarus reads the construct; where it does not, with
 //! values worked out by hand (said beside each).
 
-use super::common::{eval_ports, iverilog_available, read, read_err, run_iverilog_as};
+use super::common::{
+    eval_ports, exhaustive_against_icarus_as, iverilog_available, read, read_err, run_iverilog_as,
+};
 use std::collections::HashMap;
 
 type Ports = &'static [(&'static str, u32)];
@@ -32,51 +34,7 @@ fn matches_icarus_as(
     outs: Ports,
     generation: &str,
 ) {
-    let d = read(src);
-    if !iverilog_available() {
-        return;
-    }
-    let total: u32 = ins.iter().map(|p| p.1).sum();
-    let mut tb = format!("module tb; reg [{}:0] vin_;\n", total - 1);
-    let mut conns = Vec::new();
-    let mut off = 0;
-    for (p, w) in ins {
-        conns.push(format!(".{p}(vin_[{}:{off}])", off + w - 1));
-        off += w;
-    }
-    for (p, w) in outs {
-        tb += &format!("wire [{}:0] {p};\n", w - 1);
-        conns.push(format!(".{p}({p})"));
-    }
-    let shown: Vec<&str> = outs.iter().map(|p| p.0).collect();
-    tb += &format!(
-        "{top} u({});\ninitial begin vin_ = 0; repeat ({}) begin #1 $display(\"%0d{}\", vin_{}); vin_ = vin_ + 1; end end\nendmodule\n",
-        conns.join(", "),
-        1u32 << total,
-        " %0d".repeat(shown.len()),
-        shown.iter().map(|s| format!(", {s}")).collect::<String>()
-    );
-    let sim = run_iverilog_as(&format!("{theirs}\n{tb}"), "tb", generation);
-    let mut n = 0;
-    // Run-time warnings (an unhandled `unique case` value) are skipped.
-    for line in sim
-        .lines()
-        .filter(|l| l.starts_with(|c: char| c.is_ascii_digit()))
-    {
-        let f: Vec<u128> = line.split(' ').map(|x| x.parse().unwrap()).collect();
-        let mut ports = HashMap::new();
-        let mut off = 0;
-        for (p, w) in ins {
-            ports.insert(p.to_string(), (f[0] >> off) & ((1 << w) - 1));
-            off += w;
-        }
-        let bits = eval_ports(&d, &ports, &mut |_| false);
-        for (k, (p, w)) in outs.iter().enumerate() {
-            assert_eq!(value(&bits, p, *w), f[k + 1], "{top}: {p} for {line}");
-        }
-        n += 1;
-    }
-    assert_eq!(n, 1 << total, "{top}: {sim}");
+    exhaustive_against_icarus_as(src, theirs, top, ins, outs, generation);
 }
 
 fn warnings(src: &str) -> Vec<String> {

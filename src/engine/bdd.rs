@@ -454,9 +454,33 @@ pub(crate) mod tests {
 /// behind the choice of our own package (`cargo test --release --lib bdd_speed -- --ignored
 /// --nocapture`; figures in docs/engine.md).
 #[cfg(test)]
-mod oracle {
+pub(crate) mod oracle {
     use super::*;
     use biodivine_lib_bdd::{Bdd, BddVariableSet};
+
+    /// Every node's function in biodivine-lib-bdd (the independent package), input k as
+    /// its variable k.
+    pub(crate) fn reference_bdds(g: &Aig) -> Vec<Bdd> {
+        let vars = BddVariableSet::new_anonymous(g.num_inputs() as u16);
+        let vs = vars.variables();
+        let mut t: Vec<Bdd> = Vec::with_capacity(g.len());
+        for node in g.nodes() {
+            let lit = |t: &[Bdd], l: Lit| {
+                if l.is_complemented() {
+                    t[l.index()].not()
+                } else {
+                    t[l.index()].clone()
+                }
+            };
+            let f = match *node {
+                Node::Const => vars.mk_false(),
+                Node::Input(k) => vars.mk_var(vs[k as usize]),
+                Node::And(x, y) => lit(&t, x).and(&lit(&t, y)),
+            };
+            t.push(f);
+        }
+        t
+    }
 
     fn random_aig(seed: u64, inputs: usize, ands: usize) -> Aig {
         let mut g = Aig::new();
@@ -550,24 +574,7 @@ mod oracle {
             ours[b.index()] ^ u32::from(b.is_complemented())
         );
         let t = std::time::Instant::now();
-        let vars = BddVariableSet::new_anonymous(g.num_inputs() as u16);
-        let vs = vars.variables();
-        let mut theirs: Vec<Bdd> = Vec::with_capacity(g.len());
-        for node in g.nodes() {
-            let lit = |t: &[Bdd], l: Lit| {
-                if l.is_complemented() {
-                    t[l.index()].not()
-                } else {
-                    t[l.index()].clone()
-                }
-            };
-            let f = match *node {
-                Node::Const => vars.mk_false(),
-                Node::Input(k) => vars.mk_var(vs[k as usize]),
-                Node::And(x, y) => lit(&theirs, x).and(&lit(&theirs, y)),
-            };
-            theirs.push(f);
-        }
+        let _theirs = reference_bdds(&g);
         let t_theirs = t.elapsed();
         eprintln!(
             "majority of 101 inputs, two structures, {} AND nodes: ours {:.3} s, biodivine-lib-bdd {:.3} s",

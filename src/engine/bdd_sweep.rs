@@ -366,7 +366,7 @@ mod tests {
 #[cfg(test)]
 mod oracle {
     use super::*;
-    use biodivine_lib_bdd::{Bdd, BddVariableSet};
+    use biodivine_lib_bdd::Bdd;
 
     fn random_aig(seed: u64, inputs: usize, ands: usize) -> Aig {
         let mut g = Aig::new();
@@ -394,25 +394,7 @@ mod oracle {
     }
 
     fn theirs(g: &Aig) -> Vec<Bdd> {
-        let vars = BddVariableSet::new_anonymous(g.num_inputs() as u16);
-        let vs = vars.variables();
-        let mut t: Vec<Bdd> = Vec::with_capacity(g.len());
-        for node in g.nodes() {
-            let lit = |t: &[Bdd], l: Lit| {
-                if l.is_complemented() {
-                    t[l.index()].not()
-                } else {
-                    t[l.index()].clone()
-                }
-            };
-            let b = match *node {
-                Node::Const => vars.mk_false(),
-                Node::Input(k) => vars.mk_var(vs[k as usize]),
-                Node::And(a, b) => lit(&t, a).and(&lit(&t, b)),
-            };
-            t.push(b);
-        }
-        t
+        super::super::bdd::oracle::reference_bdds(g)
     }
 
     #[test]

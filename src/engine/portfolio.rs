@@ -379,6 +379,23 @@ fn bdd_limit(nodes: usize) -> usize {
     (nodes.saturating_mul(16)).clamp(50_000, 1_000_000)
 }
 
+/// The BDD decisions of `open` (in order) as findings of `out`; returns how many decided.
+fn bdd_findings(open: &[usize], ds: &[Option<bdd::Decision>], out: &mut StageOutput) -> usize {
+    let mut decided = 0;
+    for (&p, d) in open.iter().zip(ds) {
+        let Some(d) = d else { continue };
+        decided += 1;
+        out.findings.push((
+            p,
+            match d {
+                bdd::Decision::Equal => Finding::Equal(Method::Bdd),
+                bdd::Decision::Differ(v) => Finding::Differ(Method::Bdd, v.clone()),
+            },
+        ));
+    }
+    decided
+}
+
 /// BDDs: all open pairs in one manager (sharing sub-functions); pairs decided before the node
 /// limit was reached keep their answers.
 fn run_bdd(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
@@ -390,18 +407,7 @@ fn run_bdd(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
     let limit = bdd_limit(cx.aig.num_ands());
     let (ds, fig) = bdd::decide(cx.aig, &qs, cx.constraint, limit, cx.limits);
     let mut out = StageOutput::default();
-    let mut decided = 0;
-    for (&p, d) in open.iter().zip(&ds) {
-        let Some(d) = d else { continue };
-        decided += 1;
-        out.findings.push((
-            p,
-            match d {
-                bdd::Decision::Equal => Finding::Equal(Method::Bdd),
-                bdd::Decision::Differ(v) => Finding::Differ(Method::Bdd, v.clone()),
-            },
-        ));
-    }
+    let decided = bdd_findings(open, &ds, &mut out);
     cx.progress.outputs_done(decided);
     let seconds = t.elapsed().as_secs_f64();
     out.share_seconds(open, seconds);
@@ -442,18 +448,7 @@ fn run_bdd_sweep(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String
         cx.limits,
     );
     let mut out = StageOutput::default();
-    let mut decided = 0;
-    for (&p, d) in open.iter().zip(&s.decisions) {
-        let Some(d) = d else { continue };
-        decided += 1;
-        out.findings.push((
-            p,
-            match d {
-                bdd::Decision::Equal => Finding::Equal(Method::Bdd),
-                bdd::Decision::Differ(v) => Finding::Differ(Method::Bdd, v.clone()),
-            },
-        ));
-    }
+    let decided = bdd_findings(open, &s.decisions, &mut out);
     cx.progress.outputs_done(decided);
     let mut note = format!(
         "{} BDD nodes, {} AND nodes merged, {} cut points",

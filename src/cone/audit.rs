@@ -238,9 +238,8 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
             let o = crate::seq::ExactOptions {
                 cycles,
                 init_unset: opts.init_unset,
-                seed: opts.support.seed,
             };
-            match crate::seq::exact_cones(design, &c, &o, limits) {
+            match super::across::exact_across_cycles(design, &c, &o, opts.support.seed, limits) {
                 Ok(e) => c.exact = Some(e),
                 Err(why) => c.exact_not_built = Some(why),
             }

@@ -24,7 +24,6 @@ use super::correspond::{self, Classes};
 use super::product::{HeldInput, Init, InitUnset, Product, Side};
 use super::trace::{replay, InitialValue, Trace, TraceCycle, TraceInput, TraceReset};
 use crate::aig::{Aig, Lit};
-use crate::cone::support::{run, Membership, SupportOptions, SupportResult};
 use crate::design::{Design, Format, InputBit, OutputBit};
 use crate::sat::Limits;
 use serde::Serialize;
@@ -44,9 +43,48 @@ pub struct ExactOptions {
     pub cycles: usize,
     /// How registers without a reset start.
     pub init_unset: InitUnset,
-    /// Seed of the support engine's random patterns.
-    pub seed: u64,
 }
+
+/// One (output, input) claim decided by the caller's exact-support engine.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum Claim {
+    /// The output depends on the input: on `vector` (every input of the design, the claimed
+    /// one at 0) the output is `value`, and with the input at 1 its complement.
+    Depends {
+        /// Every input's value.
+        vector: Vec<bool>,
+        /// The output's value on `vector`.
+        value: bool,
+    },
+    /// The output does not depend on it (UNSAT, or no path).
+    Independent,
+    /// A limit stopped the query.
+    Undecided,
+}
+
+/// One output's claims: the inputs of its AIG cone (ascending) and one claim each.
+#[derive(Clone, Debug)]
+pub struct Decided {
+    /// Input indices of the design, ascending.
+    pub cone: Vec<usize>,
+    /// One per entry of `cone`.
+    pub claims: Vec<Claim>,
+}
+
+impl Decided {
+    fn membership(&self, input: usize) -> Option<&Claim> {
+        self.cone
+            .binary_search(&input)
+            .ok()
+            .map(|i| &self.claims[i])
+    }
+}
+
+/// The exact-support engine lent by the caller (the cone audit's; passed in so that `seq`
+/// needs nothing from `cone`): decide every claim of `outputs` of a combinational design
+/// over the inputs of their AIG cones (given); returns the claims in the order of `outputs`,
+/// with the numbers of claims and of undecided ones.
+pub type Decide<'a> = dyn Fn(&Design, &[usize], Vec<Vec<usize>>) -> (Vec<Decided>, u64, u64) + 'a;
 
 /// What the exact analysis says about one input of one output.
 #[derive(Copy, Clone, Debug, PartialEq, Eq, Serialize)]
@@ -148,6 +186,7 @@ pub fn exact_cones(
     structural: &super::CycleCones,
     o: &ExactOptions,
     limits: &Limits,
+    decider: &Decide<'_>,
 ) -> Result<ExactCones, String> {
     let nodes = d.aig.len().saturating_mul(o.cycles);
     if nodes > MAX_UNROLLED_NODES {
@@ -186,10 +225,6 @@ pub fn exact_cones(
         .collect();
     let reduced = correspond::reduce(&mut p, &classes, &roots);
     let nf = p.free.len();
-    let opts = SupportOptions {
-        seed: o.seed,
-        ..SupportOptions::default()
-    };
     // One cycle: every input of the product is an input (free inputs, then state bits).
     let step = synthetic(d, p.aig.clone(), reduced.clone(), |k| {
         if k < nf {
@@ -199,12 +234,12 @@ pub fn exact_cones(
         }
     });
     let all: Vec<usize> = (0..step.outputs.len()).collect();
-    let (one, s1) = decide(&step, &all, &opts, limits);
+    let (one, s1) = decide(decider, &step, &all);
     // Unrolled from reset.
     let (unrolled, n_init) = unroll(&p, &reduced, nreg, o.cycles);
     let ny = d.outputs.len();
     let observed: Vec<usize> = (0..unrolled.outputs.len()).collect();
-    let (many, s2) = decide(&unrolled, &observed, &opts, limits);
+    let (many, s2) = decide(decider, &unrolled, &observed);
     let graph = Graph::new(&one, nf, nreg, ny);
     let init_names = init_names(&p, nreg, n_init);
     let held: Vec<HeldInput> = p.held.clone();
@@ -217,18 +252,18 @@ pub fn exact_cones(
                 continue; // a held input (reset, clock)
             };
             let lower = bound[x];
-            let mut best: Option<(usize, usize, &Membership)> = None;
+            let mut best: Option<(usize, usize, &Claim)> = None;
             let mut open = false;
             for k in 0..o.cycles {
                 let r = &many[k * ny + y];
                 for t in 0..=k {
                     match r.membership(t * nf + x) {
-                        Some(m @ Membership::Depends { .. })
+                        Some(m @ Claim::Depends { .. })
                             if best.is_none_or(|(bk, bt, _)| k - t < bk - bt) =>
                         {
                             best = Some((k, t, m));
                         }
-                        Some(Membership::Undecided(_)) => open = true,
+                        Some(Claim::Undecided) => open = true,
                         _ => {}
                     }
                 }
@@ -304,12 +339,7 @@ fn synthetic(d: &Design, aig: Aig, roots: Vec<Lit>, name: impl Fn(usize) -> Stri
 }
 
 /// Decide every claim of `outputs` on their AIG cones; (claims, undecided).
-fn decide(
-    d: &Design,
-    outputs: &[usize],
-    opts: &SupportOptions,
-    limits: &Limits,
-) -> (Vec<SupportResult>, (u64, u64)) {
+fn decide(decider: &Decide<'_>, d: &Design, outputs: &[usize]) -> (Vec<Decided>, (u64, u64)) {
     let cones = outputs
         .iter()
         .map(|&o| {
@@ -320,9 +350,8 @@ fn decide(
                 .collect()
         })
         .collect();
-    let bar = indicatif::ProgressBar::hidden();
-    let (r, s) = run(d, outputs, cones, opts, limits, &bar);
-    (r, (s.claims, s.undecided))
+    let (r, claims, undecided) = decider(d, outputs, cones);
+    (r, (claims, undecided))
 }
 
 /// The reduced logic unrolled `cycles` times from the reset state: inputs `t * nf + i` (free
@@ -400,9 +429,9 @@ fn evidence(
     held: &[HeldInput],
     init_names: &[Vec<(String, bool)>],
     (k, t, y, x): (usize, usize, usize, usize),
-    m: &Membership,
+    m: &Claim,
 ) -> Option<InfluenceEvidence> {
-    let Membership::Depends { vector, value, .. } = m else {
+    let Claim::Depends { vector, value } = m else {
         return None;
     };
     let nf = p.free.len();
@@ -413,7 +442,7 @@ fn evidence(
                 .enumerate()
                 // The copy's own unknown-value sources (same names) are not the design's.
                 .filter(|(_, f)| f.side != Side::Candidate)
-                .map(|(i, f)| (f.name.clone(), vector.get(c * nf + i)))
+                .map(|(i, f)| (f.name.clone(), vector[c * nf + i]))
                 .collect()
         })
         .collect();
@@ -426,7 +455,7 @@ fn evidence(
         }
     }
     for (j, regs) in init_names.iter().enumerate() {
-        let v = vector.get(base as usize + j);
+        let v = vector[base as usize + j];
         for (name, inv) in regs {
             initial.insert(name.clone(), v ^ inv);
         }
@@ -512,12 +541,12 @@ struct Graph {
 }
 
 impl Graph {
-    fn new(one: &[SupportResult], nf: usize, nreg: usize, ny: usize) -> Graph {
-        let split = |r: &SupportResult| {
+    fn new(one: &[Decided], nf: usize, nreg: usize, ny: usize) -> Graph {
+        let split = |r: &Decided| {
             let mut regs = Vec::new();
             let mut ins = Vec::new();
             for (&k, m) in r.cone.iter().zip(&r.claims) {
-                if m.independent() {
+                if *m == Claim::Independent {
                     continue;
                 }
                 if k < nf {
@@ -669,99 +698,5 @@ fn start_words(init: InitUnset) -> &'static str {
         InitUnset::Free => "registers with a reset start at their reset value, the others at free values; reset ports held inactive, clocks at 0",
         InitUnset::Value(false) => "registers with a reset start at their reset value, the others at 0 (--init-unset 0); reset ports held inactive, clocks at 0",
         InitUnset::Value(true) => "registers with a reset start at their reset value, the others at 1 (--init-unset 1); reset ports held inactive, clocks at 0",
-    }
-}
-
-impl std::fmt::Display for ExactCones {
-    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        writeln!(
-            f,
-            "across clock cycles (exact, from reset, {} cycles unrolled): per output, each input with the first latency at which it changes the output",
-            self.cycles
-        )?;
-        if !self.held.is_empty() {
-            let hs: Vec<String> = self
-                .held
-                .iter()
-                .map(|h| format!("{}={} ({})", h.name, u8::from(h.value), h.role))
-                .collect();
-            writeln!(f, "  held, not analysed: {}", hs.join(", "))?;
-        }
-        if !self.register_groups.is_empty() {
-            let gs: Vec<String> = self.register_groups.iter().map(|g| g.join(" = ")).collect();
-            writeln!(
-                f,
-                "  register pairs proved in every reachable state: {}",
-                gs.join("; ")
-            )?;
-        }
-        for c in &self.outputs {
-            let ins: Vec<String> = c
-                .inputs
-                .iter()
-                .map(|i| match i.influence {
-                    Influence::Depends => format!(
-                        "{}@{}{}",
-                        i.input,
-                        i.first_latency.unwrap_or(0),
-                        if i.proved_first {
-                            String::new()
-                        } else {
-                            format!(
-                                " (the least in the first {} cycles; {} not ruled out later)",
-                                self.cycles,
-                                bound_words(i.lower_bound)
-                            )
-                        }
-                    ),
-                    Influence::Never => format!("{} never", i.input),
-                    Influence::NotWithinBound => format!(
-                        "{} not in the first {} cycles (not proved after)",
-                        i.input, self.cycles
-                    ),
-                    Influence::Undecided => format!("{} undecided", i.input),
-                })
-                .collect();
-            writeln!(
-                f,
-                "  {}: {}",
-                c.output,
-                if ins.is_empty() {
-                    "no inputs".to_string()
-                } else {
-                    ins.join(", ")
-                }
-            )?;
-        }
-        if self.dead_registers.is_empty() {
-            writeln!(f, "dead registers (exact, every cycle): none")?;
-        } else {
-            let ds: Vec<String> = self
-                .dead_registers
-                .iter()
-                .map(|d| format!("{} ({})", d.register, d.why))
-                .collect();
-            writeln!(
-                f,
-                "dead registers (exact, every cycle; {}): {}",
-                ds.len(),
-                ds.join(", ")
-            )?;
-        }
-        if self.undecided > 0 {
-            writeln!(
-                f,
-                "  {} of {} claims undecided (a limit stopped them)",
-                self.undecided, self.claims
-            )?;
-        }
-        Ok(())
-    }
-}
-
-fn bound_words(b: Option<usize>) -> String {
-    match b {
-        Some(l) => format!("@{l}"),
-        None => "none".to_string(),
     }
 }

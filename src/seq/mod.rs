@@ -14,6 +14,7 @@
 mod bmc;
 mod correspond;
 mod exact;
+mod exact_text;
 mod kinduct;
 mod names;
 mod product;
@@ -24,8 +25,8 @@ mod text;
 mod trace;
 
 pub use exact::{
-    exact_cones, DeadRegister, ExactCone, ExactCones, ExactInput, ExactOptions, Influence,
-    InfluenceEvidence, DEFAULT_EXACT_CYCLES,
+    exact_cones, Claim, DeadRegister, Decide, Decided, ExactCone, ExactCones, ExactInput,
+    ExactOptions, Influence, InfluenceEvidence, DEFAULT_EXACT_CYCLES,
 };
 pub use product::{HeldInput, InitUnset, Side, StartEqual};
 pub use reach::{cycle_cones, CycleCone, CycleCones};

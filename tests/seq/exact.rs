@@ -173,14 +173,11 @@ fn brute_force(net: &SeqNet, cycles: usize, free_init: bool) -> BTreeMap<(String
 
 fn exact(d: &Design, cycles: usize, init_unset: InitUnset) -> ExactCones {
     let c = seq::cycle_cones(d);
-    seq::exact_cones(
+    equicone::cone::exact_across_cycles(
         d,
         &c,
-        &ExactOptions {
-            cycles,
-            init_unset,
-            seed: 1,
-        },
+        &ExactOptions { cycles, init_unset },
+        1,
         &Limits::none(),
     )
     .expect("built")

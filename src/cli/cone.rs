@@ -52,9 +52,10 @@ pub struct ConeArgs {
     #[arg(long, value_name = "K/N")]
     shard: Option<String>,
     /// Clocked designs: cycles from reset unrolled for the exact cone across cycles (which
-    /// inputs really change each output, and their first latency; 0: only the structural cone).
-    #[arg(long, value_name = "K", default_value_t = crate::seq::DEFAULT_EXACT_CYCLES)]
-    cycles: usize,
+    /// inputs really change each output, and their first latency; 0: only the structural cone;
+    /// default: 8 for designs of at most 32 register bits and 2,000 AIG nodes, else none).
+    #[arg(long, value_name = "K")]
+    cycles: Option<usize>,
     /// Clocked designs: how registers without a reset start (`0` is the usual convention for
     /// the ISCAS-89 circuits).
     #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
@@ -131,7 +132,7 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
         text_evidence: a.evidence,
         shard,
         structure: a.design.load_written(&d).map(std::sync::Arc::new),
-        exact_cycles: Some(a.cycles),
+        exact_cycles: a.cycles,
         init_unset: a.init_unset.into(),
     };
     let mut rep = cone::audit(&d, &opts, &limits);

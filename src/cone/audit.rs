@@ -31,7 +31,9 @@ pub struct AuditOptions {
     /// not unused. Ignored unless its inputs and outputs are the design's.
     pub structure: Option<std::sync::Arc<Design>>,
     /// Cycles from reset the exact cone across cycles of a clocked design unrolls (`None`:
-    /// [`crate::seq::DEFAULT_EXACT_CYCLES`]; `Some(0)`: only the structural one).
+    /// [`crate::seq::DEFAULT_EXACT_CYCLES`] for designs of at most
+    /// [`crate::seq::AUTO_EXACT_REGISTERS`] register bits and
+    /// [`crate::seq::AUTO_EXACT_NODES`] AIG nodes, else none; `Some(0)`: only the structural one).
     pub exact_cycles: Option<usize>,
     /// How registers without a reset start, for the exact cone across cycles.
     pub init_unset: crate::seq::InitUnset,
@@ -231,9 +233,22 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     let across_cycles = (design.is_clocked() && shard.is_none()).then(|| {
         let mut c = crate::seq::cycle_cones(design);
         keep_used_across_cycles(&mut flags, design, &c);
-        let cycles = opts
-            .exact_cycles
-            .unwrap_or(crate::seq::DEFAULT_EXACT_CYCLES);
+        let small = design.registers.len() <= crate::seq::AUTO_EXACT_REGISTERS
+            && design.aig.len() <= crate::seq::AUTO_EXACT_NODES;
+        let cycles = match opts.exact_cycles {
+            Some(k) => k,
+            None if small => crate::seq::DEFAULT_EXACT_CYCLES,
+            None => {
+                c.exact_not_built = Some(format!(
+                    "not built by default for {} register bits and {} AIG nodes (at most {} and {}); pass --cycles K to build it (it may take long)",
+                    design.registers.len(),
+                    design.aig.len(),
+                    crate::seq::AUTO_EXACT_REGISTERS,
+                    crate::seq::AUTO_EXACT_NODES
+                ));
+                0
+            }
+        };
         if cycles > 0 {
             let o = crate::seq::ExactOptions {
                 cycles,

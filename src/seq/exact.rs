@@ -31,6 +31,10 @@ use std::collections::{BTreeMap, VecDeque};
 
 /// Cycles unrolled from reset by default (`cone --cycles`).
 pub const DEFAULT_EXACT_CYCLES: usize = 8;
+/// The most register bits of a design whose exact cone is built without `--cycles`.
+pub const AUTO_EXACT_REGISTERS: usize = 32;
+/// The most AIG nodes of a design whose exact cone is built without `--cycles`.
+pub const AUTO_EXACT_NODES: usize = 2_000;
 /// The largest unrolling (AIG nodes of the design times cycles) the exact cone builds.
 pub const MAX_UNROLLED_NODES: usize = 4_000_000;
 /// The most claims (output and cycle, input and cycle) the unrolling decides.

@@ -26,7 +26,8 @@ mod trace;
 
 pub use exact::{
     exact_cones, Claim, DeadRegister, Decide, Decided, ExactCone, ExactCones, ExactInput,
-    ExactOptions, Influence, InfluenceEvidence, DEFAULT_EXACT_CYCLES,
+    ExactOptions, Influence, InfluenceEvidence, AUTO_EXACT_NODES, AUTO_EXACT_REGISTERS,
+    DEFAULT_EXACT_CYCLES,
 };
 pub use product::{HeldInput, InitUnset, Side, StartEqual};
 pub use reach::{cycle_cones, CycleCone, CycleCones};

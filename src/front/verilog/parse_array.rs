@@ -24,7 +24,7 @@
 use super::ast::*;
 use super::lexer::Punct;
 use super::parse_types::{bin, const_of, num, pos_in, width_of, TypeDef};
-use super::parser::{PResult, Parser};
+use super::parser::{ParseResult, Parser};
 use super::pos::Pos;
 use super::sv_types::ArrayShape;
 use super::symbols::Sym;
@@ -106,7 +106,7 @@ fn is_marker(e: &Expr, signed: Sym) -> bool {
 impl Parser<'_, '_> {
     /// After the first packed range of a declaration: further packed ranges make it a packed
     /// array, declared as one flat vector (its dimensions kept for the selects).
-    pub(super) fn packed_dims(&mut self, d: &mut Decl) -> PResult<()> {
+    pub(super) fn packed_dims(&mut self, d: &mut Decl) -> ParseResult<()> {
         if !self.peek_p(Punct::LBrack) {
             return Ok(());
         }
@@ -143,7 +143,7 @@ impl Parser<'_, '_> {
     /// At `[` after name `n` (at `p`) of declaration head `d`: the unpacked dimensions
     /// (`[0:15]`, `[15:0]`, or `[16]` for `[0:15]`). Returns the declaration of the flat
     /// vector that holds the array.
-    pub(super) fn unpacked_decl(&mut self, d: &Decl, n: Sym, p: Pos) -> PResult<Decl> {
+    pub(super) fn unpacked_decl(&mut self, d: &Decl, n: Sym, p: Pos) -> ParseResult<Decl> {
         let at = self.peek_pos();
         let name = self.names.name(n).to_string();
         if d.dir.is_some() {
@@ -214,7 +214,12 @@ impl Parser<'_, '_> {
     /// After name `s` (at `pos`) in an expression or an assignment target (`lvalue`): when
     /// `s` is an array, its selects as one select of the flat vector; `None` when it is not
     /// an array, or a packed one named whole.
-    pub(super) fn array_ref(&mut self, s: Sym, pos: Pos, lvalue: bool) -> PResult<Option<Expr>> {
+    pub(super) fn array_ref(
+        &mut self,
+        s: Sym,
+        pos: Pos,
+        lvalue: bool,
+    ) -> ParseResult<Option<Expr>> {
         let Some(shape) = self.sv.arrays.get(&s).cloned() else {
             return Ok(None);
         };

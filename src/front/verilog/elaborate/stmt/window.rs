@@ -54,7 +54,7 @@ impl Elaborator<'_> {
         };
         let t = self.expr_type(ctx, rhs);
         let v = self.eval(ctx, rhs, t.width.max(w), t.signed);
-        let net = self.nets[n as usize].clone();
+        let net = self.core.nets[n as usize].clone();
         let desc = net.msb >= net.lsb;
         let ww = iv.bits.len() + 66;
         let ie = extend(iv.bits, ww, iv.signed);
@@ -76,7 +76,7 @@ impl Elaborator<'_> {
                 let hit = match hits.get(&c) {
                     Some(&h) => h,
                     None => {
-                        let h = bits::eq(&mut self.aig, &ie, &bits::constant(c, ww));
+                        let h = bits::eq(&mut self.core.aig, &ie, &bits::constant(c, ww));
                         hits.insert(c, h);
                         h
                     }
@@ -84,9 +84,9 @@ impl Elaborator<'_> {
                 if hit == Lit::FALSE {
                     continue;
                 }
-                any = self.aig.or(any, hit);
-                let take = self.aig.and(hit, vj);
-                val = self.aig.or(val, take);
+                any = self.core.aig.or(any, hit);
+                let take = self.core.aig.and(hit, vj);
+                val = self.core.aig.or(val, take);
             }
             if any != Lit::FALSE {
                 out.push((off as usize, any, val));

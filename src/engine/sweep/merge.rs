@@ -28,11 +28,6 @@ const WINDOW_CONFLICTS: u64 = 300;
 const LARGE_GRACE: usize = 64;
 /// The large window is kept while at least one query in this many decides something.
 const LARGE_USEFUL_RATIO: usize = 4;
-/// Small-window partial models always allowed before [`Sweeper::small_pays`] judges them.
-const SMALL_GRACE: usize = 256;
-/// The small window (and the large one after it) is kept while at least one query in this many
-/// decides something.
-const SMALL_USEFUL_RATIO: usize = 8;
 /// Levels searched below and then above a node for its twin in the merged graph.
 const TWIN_DEPTH: u32 = 3;
 /// Nodes collected below a node in the twin search.
@@ -103,7 +98,7 @@ impl Sweeper<'_> {
             return Outcome::Open;
         };
         for stage in [TINY, SMALL, LARGE] {
-            if (stage == SMALL && !self.small_pays()) || (stage == LARGE && !self.large_pays()) {
+            if stage == LARGE && !self.large_pays() {
                 break;
             }
             match self.stage(stage, a, b) {
@@ -198,17 +193,6 @@ impl Sweeper<'_> {
             }
         }
         out
-    }
-
-    /// Whether the small window (and so the large one) is still worth its cost: it is dropped
-    /// once it has mostly returned models that do not extend to counterexamples. On the random
-    /// 1,000,000-gate row against its rewrite (one run, load average 14), 1,414 small and 126
-    /// large queries of near-constant nodes paired by chance decided 64 and took 40 % of the
-    /// sweep; the merges that matter there are local rewrites, proved by the tiny window.
-    fn small_pays(&self) -> bool {
-        let decided = self.tally[slot(SMALL, EQUAL)] + self.tally[slot(SMALL, REFUTED)];
-        let partial = self.tally[slot(SMALL, PARTIAL)];
-        partial < SMALL_GRACE || decided * SMALL_USEFUL_RATIO >= partial
     }
 
     /// Whether the large window is still worth its cost: it is dropped once it has mostly

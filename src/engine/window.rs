@@ -19,7 +19,7 @@
 //! at a cost bounded by the window, however large the graph. Before that solver, a window with
 //! few leaves is decided by truth tables ([`super::window_truth`]), without SAT.
 
-use super::window_truth::TruthWindow;
+use super::window_truth::{TruthAnswer as Truth, TruthWindow};
 use crate::aig::{Aig, Lit, Marks, Node};
 use crate::sat::{CLit, ClauseSink, Limits, Sat, SatResult, SatStats};
 
@@ -142,8 +142,10 @@ impl Window {
         budget: usize,
         conflicts: u64,
     ) -> WindowAnswer {
-        if let Some(answer) = self.truth.decide(f, a, b, budget) {
-            return answer;
+        match self.truth.decide(f, a, b, budget) {
+            Some(Truth::Equal) => return WindowAnswer::Equal,
+            Some(Truth::Differ(values)) => return WindowAnswer::Differ(values),
+            None => {}
         }
         if self.fresh.sat.stats().vars >= FRESH_VARS_PER_SOLVER {
             let used = self.fresh.sat.stats().vars;

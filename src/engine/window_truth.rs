@@ -11,8 +11,16 @@
 //! (the window is complete); otherwise the difference may be unreachable, and the SAT query on
 //! its larger window takes the question.
 
-use super::window::WindowAnswer;
 use crate::aig::{Aig, Lit, Node};
+
+/// A decision of [`TruthWindow::decide`].
+#[derive(Debug, PartialEq, Eq)]
+pub(crate) enum TruthAnswer {
+    /// The literals are equal for every input vector.
+    Equal,
+    /// They differ under these values of primary inputs (input position, value).
+    Differ(Vec<(u32, bool)>),
+}
 
 /// Leaves enumerated at most: 2^10 assignments, 16 words per node.
 pub(crate) const MAX_LEAVES: usize = 10;
@@ -59,13 +67,7 @@ impl TruthWindow {
     /// Decide whether `a` and `b` can differ on a cut of at most [`MAX_LEAVES`] leaves reached
     /// by expanding at most `budget` AND nodes of `f`: equal tables, or a difference under a
     /// cut of primary inputs; `None` leaves the query to SAT.
-    pub(crate) fn decide(
-        &mut self,
-        f: &Aig,
-        a: Lit,
-        b: Lit,
-        budget: usize,
-    ) -> Option<WindowAnswer> {
+    pub(crate) fn decide(&mut self, f: &Aig, a: Lit, b: Lit, budget: usize) -> Option<TruthAnswer> {
         if self.stamp.len() < f.len() {
             self.stamp.resize(f.len(), 0);
             self.local.resize(f.len(), 0);
@@ -100,7 +102,7 @@ impl TruthWindow {
         b: Lit,
         budget: usize,
         inner: &mut Vec<u32>,
-    ) -> Option<WindowAnswer> {
+    ) -> Option<TruthAnswer> {
         while inner.len() < budget {
             let Some((at, &n)) = self
                 .leaves
@@ -185,7 +187,7 @@ impl TruthWindow {
         });
         let Some(m) = differ else {
             self.decided += 1;
-            return Some(WindowAnswer::Equal);
+            return Some(TruthAnswer::Equal);
         };
         let mut complete = true;
         let mut values: Vec<(u32, bool)> = Vec::new();
@@ -199,7 +201,7 @@ impl TruthWindow {
         self.decided += usize::from(complete);
         // A difference over a cut of inner nodes may be unreachable; the SAT query on the
         // larger window decides it.
-        complete.then_some(WindowAnswer::Differ(values))
+        complete.then_some(TruthAnswer::Differ(values))
     }
 }
 
@@ -235,7 +237,7 @@ mod tests {
         let mut t = TruthWindow::default();
         assert!(matches!(
             t.decide(&g, chain, tree, 100),
-            Some(WindowAnswer::Equal)
+            Some(TruthAnswer::Equal)
         ));
         // The chain against the tree with one input left out differs; the vector shows it.
         let mut short = ins[1];
@@ -243,7 +245,7 @@ mod tests {
             short = g.xor(short, x);
         }
         match t.decide(&g, chain, short, 100) {
-            Some(WindowAnswer::Differ(v)) => {
+            Some(TruthAnswer::Differ(v)) => {
                 let mut vals = vec![false; 8];
                 for (i, b) in v {
                     vals[i as usize] = b;
@@ -270,17 +272,17 @@ mod tests {
         let (x, y) = (ins[0], ins[1]);
         let n = !g.and(x, y);
         let o = g.or(!x, !y);
-        assert!(matches!(t.decide(&g, n, o, 100), Some(WindowAnswer::Equal)));
+        assert!(matches!(t.decide(&g, n, o, 100), Some(TruthAnswer::Equal)));
         let z = g.and(x, !x);
         assert!(matches!(
             t.decide(&g, Lit::FALSE, z, 100),
-            Some(WindowAnswer::Equal)
+            Some(TruthAnswer::Equal)
         ));
         // x & y against x (a difference with every leaf an input).
         let xy = g.and(x, y);
         assert!(matches!(
             t.decide(&g, xy, x, 100),
-            Some(WindowAnswer::Differ(_))
+            Some(TruthAnswer::Differ(_))
         ));
     }
 }

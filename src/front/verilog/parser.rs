@@ -378,9 +378,16 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
         if self.eat_p(Punct::Hash) {
             self.expect_p(Punct::LParen, "`(` of the parameter port list")?;
+            // `#(parameter W = 8, localparam L = $clog2(W))`: a parameter without its own
+            // keyword is of the kind last written (IEEE 1800-2017 clause 23.2.3, from memory).
+            let mut local = false;
             loop {
-                self.eat_kw(kw::PARAMETER);
-                let mut pd = self.param_head(false)?;
+                if self.eat_kw(kw::LOCALPARAM) {
+                    local = true;
+                } else if self.eat_kw(kw::PARAMETER) {
+                    local = false;
+                }
+                let mut pd = self.param_head(local)?;
                 let (n, p) = self.ident("a parameter name")?;
                 self.expect_p(Punct::Assign, "`=`")?;
                 pd.assigns.push((n, p, self.expr()?));

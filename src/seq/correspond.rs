@@ -64,7 +64,7 @@ impl Classes {
     }
 
     /// Split every group by `key` of its members, keeping parts of two or more.
-    fn split_by<K: Ord>(&mut self, mut key: impl FnMut(Lit) -> K) {
+    fn refine_by<K: Ord>(&mut self, mut key: impl FnMut(Lit) -> K) {
         let mut out = Vec::new();
         for g in &self.groups {
             let mut parts: BTreeMap<K, Vec<Lit>> = BTreeMap::new();
@@ -81,9 +81,9 @@ impl Classes {
 
     /// Keep only what holds in the initial state: constants with their reset value, free initial
     /// values only with themselves.
-    pub fn split_by_init(&mut self, p: &Product) {
+    pub fn refine_by_init(&mut self, p: &Product) {
         let at = state_index(p);
-        self.split_by(|m| {
+        self.refine_by(|m| {
             if m.is_const() {
                 return Init::Const(m.is_complemented());
             }
@@ -220,7 +220,7 @@ pub fn make_inductive(
         // starts from the finer groups.
         let mut c = Constrained::new(p, classes, limits);
         let mut group_of = group_index(classes);
-        let mut split = false;
+        let mut refined = false;
         for (r, m, x) in miters {
             if !group_of.contains_key(&r) || group_of.get(&r) != group_of.get(&m) {
                 continue;
@@ -235,14 +235,14 @@ pub fn make_inductive(
                     let nexts: Vec<Lit> = members.iter().map(|&m| next_of(p, &at, m)).collect();
                     let vals = eval(&p.aig, &ins, &nexts);
                     let value: BTreeMap<Lit, bool> = members.into_iter().zip(vals).collect();
-                    classes.split_by(|m| value[&m]);
+                    classes.refine_by(|m| value[&m]);
                     group_of = group_index(classes);
                     refinements += 1;
-                    split = true;
+                    refined = true;
                 }
             }
         }
-        if !split {
+        if !refined {
             return Ok(refinements);
         }
     }

@@ -183,8 +183,38 @@ impl Aig {
 
     /// Two-way selector: `s ? t : e`.
     pub fn mux(&mut self, s: Lit, t: Lit, e: Lit) -> Lit {
-        if t == e && !self.written {
-            return t;
+        if !self.written {
+            if t == e {
+                return t;
+            }
+            // A data input equal to the select (or its complement) is a constant there.
+            let t = if t == s {
+                Lit::TRUE
+            } else if t == !s {
+                Lit::FALSE
+            } else {
+                t
+            };
+            let e = if e == s {
+                Lit::FALSE
+            } else if e == !s {
+                Lit::TRUE
+            } else {
+                e
+            };
+            // A constant data input leaves one gate: `s ? 1 : e` is `s | e`, and so on.
+            if t == Lit::TRUE {
+                return self.or(s, e);
+            }
+            if t == Lit::FALSE {
+                return self.and(!s, e);
+            }
+            if e == Lit::TRUE {
+                return self.or(!s, t);
+            }
+            if e == Lit::FALSE {
+                return self.and(s, t);
+            }
         }
         let p = self.and(s, t);
         let q = self.and(!s, e);
@@ -348,6 +378,41 @@ mod tests {
         assert_eq!(g.and(b, a), x);
         assert_eq!(g.num_ands(), 1);
         g.check();
+    }
+
+    #[test]
+    fn mux_with_a_constant_or_repeated_data_input_is_one_gate() {
+        // Every select/data combination drawn from {s, !s, e, !e, 0, 1}: the mux
+        // must keep its truth table, and with a constant (or select-equal) data input
+        // it must cost at most one AND node.
+        let cands = |s: Lit, e: Lit| [s, !s, e, !e, Lit::FALSE, Lit::TRUE];
+        for ti in 0..6 {
+            for ei in 0..6 {
+                let mut g = Aig::new();
+                let s = g.add_input();
+                let e = g.add_input();
+                let (t, f) = (cands(s, e)[ti], cands(s, e)[ei]);
+                let m = g.mux(s, t, f);
+                let foldable = ti != 2 && ti != 3 || ei != 2 && ei != 3;
+                if foldable {
+                    assert!(
+                        g.num_ands() <= 1,
+                        "mux case {ti},{ei}: {} ANDs",
+                        g.num_ands()
+                    );
+                }
+                for v in 0..4u32 {
+                    let bits = [v & 1 == 1, v & 2 == 2];
+                    let got = sim::eval(&g, &bits, &[m, s, t, f]);
+                    let want = if got[1] { got[2] } else { got[3] };
+                    assert_eq!(
+                        got[0], want,
+                        "mux case {ti},{ei} at s={} e={}",
+                        bits[0], bits[1]
+                    );
+                }
+            }
+        }
     }
 
     #[test]

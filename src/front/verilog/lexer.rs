@@ -81,17 +81,17 @@ pub enum Punct {
 
 /// A token kind.
 #[derive(Clone, Debug, PartialEq, Eq)]
-pub enum Tok {
+pub enum TokenKind {
     /// An identifier or keyword.
     Ident(Sym),
     /// A system name such as `$signed`.
-    Sys(Sym),
+    SystemName(Sym),
     /// A number.
-    Num(Box<NumLit>),
+    Number(Box<NumLit>),
     /// An operator or punctuation.
     Punct(Punct),
     /// A string literal (never part of the subset).
-    Str,
+    StringLiteral,
     /// A real number (never part of the subset).
     Real,
     /// End of the file.
@@ -106,7 +106,7 @@ pub const CAST_PLACEHOLDER: &str = "'(cast)";
 #[derive(Clone, Debug)]
 pub struct Token {
     /// What it is.
-    pub tok: Tok,
+    pub kind: TokenKind,
     /// Where it starts.
     pub pos: Pos,
 }
@@ -126,7 +126,7 @@ pub struct Lexer<'s> {
     /// Where the text came from (the preprocessor's marks; empty: this file, as is).
     marks: &'s [Mark],
     /// The next mark to apply.
-    mark_k: usize,
+    mark_index: usize,
     /// The byte offset of that mark (`usize::MAX` when there is none).
     next_mark: usize,
 }
@@ -159,7 +159,7 @@ impl<'s> Lexer<'s> {
     /// A lexer over preprocessed text: positions follow `marks` (sorted by offset) back to
     /// the files the text came from; before the first mark they are in file `file`.
     pub fn with_marks(src: &'s str, file: u32, marks: &'s [Mark]) -> Lexer<'s> {
-        let mut lx = Lexer {
+        let mut lexer = Lexer {
             src: src.as_bytes(),
             offset: 0,
             line: 1,
@@ -168,22 +168,25 @@ impl<'s> Lexer<'s> {
             errors: Vec::new(),
             nettype_none: false,
             marks,
-            mark_k: 0,
+            mark_index: 0,
             next_mark: marks.first().map_or(usize::MAX, |m| m.off),
         };
-        lx.apply_marks();
-        lx
+        lexer.apply_marks();
+        lexer
     }
 
     /// Take the position of every mark at the current offset.
     fn apply_marks(&mut self) {
         while self.next_mark <= self.offset {
-            let m = self.marks[self.mark_k];
+            let m = self.marks[self.mark_index];
             if m.off == self.offset {
                 (self.file, self.line, self.col) = (m.pos.file, m.pos.line, m.pos.col);
             }
-            self.mark_k += 1;
-            self.next_mark = self.marks.get(self.mark_k).map_or(usize::MAX, |m| m.off);
+            self.mark_index += 1;
+            self.next_mark = self
+                .marks
+                .get(self.mark_index)
+                .map_or(usize::MAX, |m| m.off);
         }
     }
 
@@ -353,7 +356,10 @@ impl<'s> Lexer<'s> {
         let pos = self.pos();
         let c = self.peek(0);
         if self.offset >= self.src.len() {
-            return Token { tok: Tok::Eof, pos };
+            return Token {
+                kind: TokenKind::Eof,
+                pos,
+            };
         }
         if is_ident_start(c) {
             let start = self.offset;
@@ -362,7 +368,7 @@ impl<'s> Lexer<'s> {
             }
             let s = std::str::from_utf8(&self.src[start..self.offset]).unwrap_or("?");
             return Token {
-                tok: Tok::Ident(names.intern(s)),
+                kind: TokenKind::Ident(names.intern(s)),
                 pos,
             };
         }
@@ -379,7 +385,7 @@ impl<'s> Lexer<'s> {
                 names.intern(&s)
             };
             return Token {
-                tok: Tok::Ident(sym),
+                kind: TokenKind::Ident(sym),
                 pos,
             };
         }
@@ -391,7 +397,7 @@ impl<'s> Lexer<'s> {
             }
             let s = std::str::from_utf8(&self.src[start..self.offset]).unwrap_or("$");
             return Token {
-                tok: Tok::Sys(names.intern(s)),
+                kind: TokenKind::SystemName(names.intern(s)),
                 pos,
             };
         }
@@ -407,7 +413,10 @@ impl<'s> Lexer<'s> {
                 self.bump();
             }
             self.bump();
-            return Token { tok: Tok::Str, pos };
+            return Token {
+                kind: TokenKind::StringLiteral,
+                pos,
+            };
         }
         let three = [c, self.peek(1), self.peek(2)];
         let (p, n) = match &three {
@@ -477,7 +486,7 @@ impl<'s> Lexer<'s> {
             self.bump();
         }
         Token {
-            tok: Tok::Punct(p),
+            kind: TokenKind::Punct(p),
             pos,
         }
     }
@@ -513,20 +522,23 @@ impl<'s> Lexer<'s> {
                     self.bump();
                 }
                 return Token {
-                    tok: Tok::Real,
+                    kind: TokenKind::Real,
                     pos,
                 };
             }
-            let save = (self.offset, self.line, self.col, self.file, self.mark_k);
+            let save = (self.offset, self.line, self.col, self.file, self.mark_index);
             self.skip_ws();
             if self.peek(0) != b'\'' {
-                (self.offset, self.line, self.col, self.file, self.mark_k) = save;
-                self.next_mark = self.marks.get(self.mark_k).map_or(usize::MAX, |m| m.off);
+                (self.offset, self.line, self.col, self.file, self.mark_index) = save;
+                self.next_mark = self
+                    .marks
+                    .get(self.mark_index)
+                    .map_or(usize::MAX, |m| m.off);
                 let text = String::from_utf8_lossy(&self.src[start..self.offset]).into_owned();
                 let bits = decimal_bits(&d);
                 let width = if bits.len() <= 32 { 32 } else { bits.len() + 1 };
                 return Token {
-                    tok: Tok::Num(Box::new(NumLit {
+                    kind: TokenKind::Number(Box::new(NumLit {
                         bits: extend(bits, width, false),
                         signed: true,
                         sized: false,
@@ -545,7 +557,7 @@ impl<'s> Lexer<'s> {
             let one = self.peek(0) == b'1';
             self.bump();
             return Token {
-                tok: Tok::Num(Box::new(NumLit {
+                kind: TokenKind::Number(Box::new(NumLit {
                     bits: vec![if one { B1 } else { B0 }],
                     signed: false,
                     sized: false,
@@ -596,7 +608,7 @@ impl<'s> Lexer<'s> {
                 };
                 self.err_of(pos, SyntaxKind::Unsupported, format!("unsupported: {what}"));
                 return Token {
-                    tok: Tok::Num(Box::new(NumLit {
+                    kind: TokenKind::Number(Box::new(NumLit {
                         bits: vec![B0; 32],
                         signed: false,
                         sized: false,
@@ -611,7 +623,7 @@ impl<'s> Lexer<'s> {
                     "malformed number: expected a base `b`, `o`, `d` or `h` after `'`",
                 );
                 return Token {
-                    tok: Tok::Num(Box::new(NumLit {
+                    kind: TokenKind::Number(Box::new(NumLit {
                         bits: vec![B0; 32],
                         signed: false,
                         sized: false,
@@ -699,7 +711,7 @@ impl<'s> Lexer<'s> {
             v.push(top_fill);
         }
         Token {
-            tok: Tok::Num(Box::new(NumLit {
+            kind: TokenKind::Number(Box::new(NumLit {
                 bits: v,
                 signed,
                 sized,
@@ -742,24 +754,24 @@ fn extend(mut bits: Vec<u8>, width: usize, _signed: bool) -> Vec<u8> {
 mod tests {
     use super::*;
 
-    fn toks(s: &str) -> Vec<Tok> {
+    fn toks(s: &str) -> Vec<TokenKind> {
         let mut names = Interner::new();
-        let mut lx = Lexer::new(s, 0);
+        let mut lexer = Lexer::new(s, 0);
         let mut v = Vec::new();
         loop {
-            let t = lx.next_token(&mut names);
-            if t.tok == Tok::Eof {
+            let t = lexer.next_token(&mut names);
+            if t.kind == TokenKind::Eof {
                 break;
             }
-            v.push(t.tok);
+            v.push(t.kind);
         }
-        assert!(lx.errors.is_empty(), "{:?}", lx.errors);
+        assert!(lexer.errors.is_empty(), "{:?}", lexer.errors);
         v
     }
 
     fn num(s: &str) -> NumLit {
         match toks(s).pop() {
-            Some(Tok::Num(n)) => *n,
+            Some(TokenKind::Number(n)) => *n,
             t => panic!("not a number: {t:?}"),
         }
     }
@@ -787,19 +799,19 @@ mod tests {
     #[test]
     fn operators_and_comments() {
         let t = toks("a ~^ b /* c */ // d\n >>> (* keep *) @(*)");
-        assert!(matches!(t[1], Tok::Punct(Punct::TildeCaret)));
-        assert!(matches!(t[3], Tok::Punct(Punct::AShr)));
-        assert!(matches!(t[4], Tok::Punct(Punct::At)));
-        assert!(matches!(t[6], Tok::Punct(Punct::Star)));
+        assert!(matches!(t[1], TokenKind::Punct(Punct::TildeCaret)));
+        assert!(matches!(t[3], TokenKind::Punct(Punct::AShr)));
+        assert!(matches!(t[4], TokenKind::Punct(Punct::At)));
+        assert!(matches!(t[6], TokenKind::Punct(Punct::Star)));
         assert_eq!(t.len(), 8);
     }
 
     #[test]
     fn positions_count_lines_and_columns() {
         let mut names = Interner::new();
-        let mut lx = Lexer::new("a\n  bb", 3);
-        let _ = lx.next_token(&mut names);
-        let t = lx.next_token(&mut names);
+        let mut lexer = Lexer::new("a\n  bb", 3);
+        let _ = lexer.next_token(&mut names);
+        let t = lexer.next_token(&mut names);
         assert_eq!(
             t.pos,
             Pos {

@@ -4,7 +4,7 @@
 
 use super::ast::{Expr, Sensitivity, Stmt};
 use super::lexer::Punct;
-use super::parser::{PResult, Parser};
+use super::parser::{ParseResult, Parser};
 use super::pos::Pos;
 
 impl Parser<'_, '_> {
@@ -16,7 +16,7 @@ impl Parser<'_, '_> {
     /// The statement of an `always` block with event control `s`: a clocked block's body
     /// may hold non-blocking assignments. An event list that mixes edges with plain
     /// signals is refused (neither a register nor combinational logic).
-    pub(super) fn always_body(&mut self, s: &Sensitivity) -> PResult<Stmt> {
+    pub(super) fn always_body(&mut self, s: &Sensitivity) -> ParseResult<Stmt> {
         if let Sensitivity::List(events, at) = s {
             let edges = events.iter().filter(|e| e.edge.is_some()).count();
             if edges > 0 && edges < events.len() {
@@ -42,7 +42,7 @@ impl Parser<'_, '_> {
 
     /// At `<=` after the target `lhs` (at `p`): the rest of a non-blocking assignment. An
     /// intra-assignment delay (`q <= #1 d;`) is skipped like every delay.
-    pub(super) fn non_blocking(&mut self, lhs: Expr, p: Pos) -> PResult<Stmt> {
+    pub(super) fn non_blocking(&mut self, lhs: Expr, p: Pos) -> ParseResult<Stmt> {
         self.bump();
         if self.peek_p(Punct::Hash) {
             self.skip_delay()?;

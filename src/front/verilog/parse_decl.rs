@@ -2,15 +2,15 @@
 //! range), parameter heads, ranges, and delays (skipped with one warning).
 
 use super::ast::*;
-use super::lexer::{Punct, Tok};
-use super::parser::{PResult, Parser};
+use super::lexer::{Punct, TokenKind};
+use super::parser::{ParseResult, Parser};
 use super::symbols::{kw, Sym};
 use super::syntax_error::{SyntaxError, SyntaxKind};
 use crate::diag::Stage;
 
 impl Parser<'_, '_> {
     /// Direction, type, `signed` and range of a declaration (names not yet read).
-    pub(super) fn decl_head(&mut self) -> PResult<Decl> {
+    pub(super) fn decl_head(&mut self) -> ParseResult<Decl> {
         self.sv.decl_struct = None;
         let pos = self.peek_pos();
         let mut d = Decl {
@@ -26,17 +26,21 @@ impl Parser<'_, '_> {
             return Ok(d);
         }
         let t = self.bump();
-        match t.tok {
-            Tok::Ident(k) if k == kw::INPUT => d.dir = Some(Dir::Input),
-            Tok::Ident(k) if k == kw::OUTPUT => d.dir = Some(Dir::Output),
-            Tok::Ident(k) if k == kw::INOUT => {
+        match t.kind {
+            TokenKind::Ident(k) if k == kw::INPUT => d.dir = Some(Dir::Input),
+            TokenKind::Ident(k) if k == kw::OUTPUT => d.dir = Some(Dir::Output),
+            TokenKind::Ident(k) if k == kw::INOUT => {
                 return Err(self.unsupported(pos, "`inout` port (only `input` and `output` ports are supported; split the port into an input and an output)"));
             }
-            Tok::Ident(k) if k == kw::WIRE || k == kw::TRI => d.ty = Some(NetType::Wire),
-            Tok::Ident(k) if k == kw::SUPPLY0 || k == kw::SUPPLY1 => d.ty = Some(NetType::Wire),
-            Tok::Ident(k) if k == kw::REG => d.ty = Some(NetType::Reg),
-            Tok::Ident(k) if k == kw::INTEGER || self.is_int(k) => d.ty = Some(NetType::Integer),
-            Tok::Ident(k) if self.is_sv_type(k) => d.ty = Some(NetType::Logic),
+            TokenKind::Ident(k) if k == kw::WIRE || k == kw::TRI => d.ty = Some(NetType::Wire),
+            TokenKind::Ident(k) if k == kw::SUPPLY0 || k == kw::SUPPLY1 => {
+                d.ty = Some(NetType::Wire)
+            }
+            TokenKind::Ident(k) if k == kw::REG => d.ty = Some(NetType::Reg),
+            TokenKind::Ident(k) if k == kw::INTEGER || self.is_int(k) => {
+                d.ty = Some(NetType::Integer)
+            }
+            TokenKind::Ident(k) if self.is_sv_type(k) => d.ty = Some(NetType::Logic),
             _ => unreachable!("decl_head called on a declaration keyword"),
         }
         if d.dir.is_some() {
@@ -49,7 +53,7 @@ impl Parser<'_, '_> {
             } else if self.starts_type() {
                 self.typed_decl(&mut d)?;
                 return Ok(d);
-            } else if let Tok::Ident(k) = self.peek().tok {
+            } else if let TokenKind::Ident(k) = self.peek().kind {
                 if self.is_int(k) {
                     self.bump();
                     d.ty = Some(NetType::Integer);
@@ -75,7 +79,7 @@ impl Parser<'_, '_> {
 
     /// After a packed range: a second one (`logic [7:0][3:0] d`, IEEE 1800-2017 clause
     /// 7.4.1, from memory) is `unsupported:`.
-    pub(super) fn refuse_packed_dims(&mut self) -> PResult<()> {
+    pub(super) fn refuse_packed_dims(&mut self) -> ParseResult<()> {
         if self.peek_p(Punct::LBrack) {
             let p = self.peek_pos();
             return Err(self.unsupported(
@@ -88,7 +92,7 @@ impl Parser<'_, '_> {
 
     /// A declaration of a SystemVerilog data type (a typedef name, `enum`, `struct packed`,
     /// `byte`, ...): the vector it stands for.
-    pub(super) fn typed_decl(&mut self, d: &mut Decl) -> PResult<()> {
+    pub(super) fn typed_decl(&mut self, d: &mut Decl) -> ParseResult<()> {
         let td = self.data_type()?;
         d.ty = Some(if td.integer {
             NetType::Integer
@@ -118,21 +122,21 @@ impl Parser<'_, '_> {
     /// At `#`: skip a delay (`#3`, `#1.5`, `#D`, `#(1, 2)`, `#(1:2:3)`), warning once per file
     /// that delays are ignored (equivalence is about the logic at rest; IEEE 1364-2005
     /// clause 7.14 gives gate delays, clause 6.1.3 assignment delays).
-    pub(super) fn skip_delay(&mut self) -> PResult<()> {
+    pub(super) fn skip_delay(&mut self) -> ParseResult<()> {
         let pos = self.bump().pos;
         if self.eat_p(Punct::LParen) {
             let mut nest = 1usize;
             while nest > 0 {
-                match self.bump().tok {
-                    Tok::Punct(Punct::LParen) => nest += 1,
-                    Tok::Punct(Punct::RParen) => nest -= 1,
-                    Tok::Eof => return Err(self.error(pos, "unclosed delay `#(`")),
+                match self.bump().kind {
+                    TokenKind::Punct(Punct::LParen) => nest += 1,
+                    TokenKind::Punct(Punct::RParen) => nest -= 1,
+                    TokenKind::Eof => return Err(self.error(pos, "unclosed delay `#(`")),
                     _ => {}
                 }
             }
         } else {
-            match self.peek().tok {
-                Tok::Num(_) | Tok::Real | Tok::Ident(_) => {
+            match self.peek().kind {
+                TokenKind::Number(_) | TokenKind::Real | TokenKind::Ident(_) => {
                     self.bump();
                 }
                 _ => return Err(self.error(pos, "expected a delay value after `#`")),
@@ -154,7 +158,7 @@ impl Parser<'_, '_> {
     }
 
     /// `[msb:lsb]`
-    pub fn range(&mut self) -> PResult<Range> {
+    pub fn range(&mut self) -> ParseResult<Range> {
         self.expect_p(Punct::LBrack, "`[`")?;
         let msb = self.expr()?;
         self.expect_p(Punct::Colon, "`:` in a range")?;
@@ -163,7 +167,7 @@ impl Parser<'_, '_> {
         Ok(Range { msb, lsb })
     }
 
-    pub(super) fn param_head(&mut self, local: bool) -> PResult<ParamDecl> {
+    pub(super) fn param_head(&mut self, local: bool) -> ParseResult<ParamDecl> {
         let mut pd = ParamDecl {
             local,
             signed: false,
@@ -171,9 +175,9 @@ impl Parser<'_, '_> {
             range: None,
             assigns: Vec::new(),
         };
-        let next = self.peek().tok.clone();
-        let int = matches!(next, Tok::Ident(k) if self.is_int(k));
-        let sv = matches!(next, Tok::Ident(k) if self.is_sv_type(k) || k == kw::REG);
+        let next = self.peek().kind.clone();
+        let int = matches!(next, TokenKind::Ident(k) if self.is_int(k));
+        let sv = matches!(next, TokenKind::Ident(k) if self.is_sv_type(k) || k == kw::REG);
         if self.eat_kw(kw::INTEGER) || (int && self.eat_p_any()) {
             pd.integer = true;
             pd.signed = true;

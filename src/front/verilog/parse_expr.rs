@@ -2,8 +2,8 @@
 //! with one loop per level (left-associative chains never nest) and a bounded nesting depth.
 
 use super::ast::{BinOp, Expr, Select, UnOp, LEVELS};
-use super::lexer::{Punct, Tok};
-use super::parser::{PResult, Parser};
+use super::lexer::{Punct, TokenKind};
+use super::parser::{ParseResult, Parser};
 
 fn binop(p: Punct) -> Option<BinOp> {
     Some(match p {
@@ -36,7 +36,7 @@ fn binop(p: Punct) -> Option<BinOp> {
 
 impl Parser<'_, '_> {
     /// A full expression (conditional operator included).
-    pub fn expr(&mut self) -> PResult<Expr> {
+    pub fn expr(&mut self) -> ParseResult<Expr> {
         let pos = self.peek_pos();
         self.enter(pos)?;
         let r = self.cond_expr();
@@ -44,7 +44,7 @@ impl Parser<'_, '_> {
         r
     }
 
-    fn cond_expr(&mut self) -> PResult<Expr> {
+    fn cond_expr(&mut self) -> ParseResult<Expr> {
         let c = self.binary(LEVELS - 1)?;
         if self.peek_p(Punct::Question) {
             let pos = self.bump().pos;
@@ -58,7 +58,7 @@ impl Parser<'_, '_> {
 
     /// `a ** b ** c` (left-associative, binding tighter than `*` and looser than the unary
     /// operators: IEEE 1364-2005 Table 5-4).
-    fn power(&mut self) -> PResult<Expr> {
+    fn power(&mut self) -> ParseResult<Expr> {
         let first = self.unary()?;
         let mut rest = Vec::new();
         while self.peek_p(Punct::Power) {
@@ -72,7 +72,7 @@ impl Parser<'_, '_> {
         }
     }
 
-    fn binary(&mut self, level: usize) -> PResult<Expr> {
+    fn binary(&mut self, level: usize) -> ParseResult<Expr> {
         let first = if level == 0 {
             self.power()?
         } else {
@@ -96,24 +96,26 @@ impl Parser<'_, '_> {
     }
 
     fn peek_binop(&mut self, level: usize) -> Option<BinOp> {
-        match &self.peek().tok {
-            Tok::Punct(p) => binop(*p).filter(|op| op.level() == level),
+        match &self.peek().kind {
+            TokenKind::Punct(p) => binop(*p).filter(|op| op.level() == level),
             _ => None,
         }
     }
 
-    fn unary(&mut self) -> PResult<Expr> {
-        let op = match &self.peek().tok {
-            Tok::Punct(Punct::Plus) => Some(UnOp::Plus),
-            Tok::Punct(Punct::Minus) => Some(UnOp::Neg),
-            Tok::Punct(Punct::Tilde) => Some(UnOp::Not),
-            Tok::Punct(Punct::Bang) => Some(UnOp::LogNot),
-            Tok::Punct(Punct::Amp) => Some(UnOp::RedAnd),
-            Tok::Punct(Punct::TildeAmp) => Some(UnOp::RedNand),
-            Tok::Punct(Punct::Pipe) => Some(UnOp::RedOr),
-            Tok::Punct(Punct::TildePipe) => Some(UnOp::RedNor),
-            Tok::Punct(Punct::Caret) => Some(UnOp::RedXor),
-            Tok::Punct(Punct::TildeCaret) | Tok::Punct(Punct::CaretTilde) => Some(UnOp::RedXnor),
+    fn unary(&mut self) -> ParseResult<Expr> {
+        let op = match &self.peek().kind {
+            TokenKind::Punct(Punct::Plus) => Some(UnOp::Plus),
+            TokenKind::Punct(Punct::Minus) => Some(UnOp::Neg),
+            TokenKind::Punct(Punct::Tilde) => Some(UnOp::Not),
+            TokenKind::Punct(Punct::Bang) => Some(UnOp::LogNot),
+            TokenKind::Punct(Punct::Amp) => Some(UnOp::RedAnd),
+            TokenKind::Punct(Punct::TildeAmp) => Some(UnOp::RedNand),
+            TokenKind::Punct(Punct::Pipe) => Some(UnOp::RedOr),
+            TokenKind::Punct(Punct::TildePipe) => Some(UnOp::RedNor),
+            TokenKind::Punct(Punct::Caret) => Some(UnOp::RedXor),
+            TokenKind::Punct(Punct::TildeCaret) | TokenKind::Punct(Punct::CaretTilde) => {
+                Some(UnOp::RedXnor)
+            }
             _ => None,
         };
         match op {
@@ -128,24 +130,24 @@ impl Parser<'_, '_> {
         }
     }
 
-    fn primary(&mut self) -> PResult<Expr> {
+    fn primary(&mut self) -> ParseResult<Expr> {
         let t = self.bump();
         let pos = t.pos;
-        match t.tok {
-            Tok::Num(n) => Ok(Expr::Num(n, pos)),
+        match t.kind {
+            TokenKind::Number(n) => Ok(Expr::Num(n, pos)),
             // `T'(x)`, `signed'(x)`: the lexer reported the cast and skipped it.
-            Tok::Ident(_) if matches!(&self.peek().tok, Tok::Num(n) if &*n.text == super::lexer::CAST_PLACEHOLDER) =>
+            TokenKind::Ident(_) if matches!(&self.peek().kind, TokenKind::Number(n) if &*n.text == super::lexer::CAST_PLACEHOLDER) =>
             {
                 let n = self.bump();
-                match n.tok {
-                    Tok::Num(n) => Ok(Expr::Num(n, pos)),
+                match n.kind {
+                    TokenKind::Number(n) => Ok(Expr::Num(n, pos)),
                     other => {
                         let d = self.describe(&other);
                         Err(self.unexpected(n.pos, "an expression", &d))
                     }
                 }
             }
-            Tok::Ident(s) if !super::symbols::is_keyword(s) => {
+            TokenKind::Ident(s) if !super::symbols::is_keyword(s) => {
                 if self.peek_p(Punct::LParen) {
                     // A function call (IEEE 1364-2005 clause 10.4.2).
                     self.bump();
@@ -164,7 +166,8 @@ impl Parser<'_, '_> {
                 if let Some(e) = self.struct_member(s, pos)? {
                     return Ok(e);
                 }
-                if self.peek_p(Punct::Colon) && self.peek2().tok == Tok::Punct(Punct::Colon) {
+                if self.peek_p(Punct::Colon) && self.peek2().kind == TokenKind::Punct(Punct::Colon)
+                {
                     return self.scoped_name(s, pos);
                 }
                 if self.peek_p(Punct::Dot) {
@@ -181,7 +184,7 @@ impl Parser<'_, '_> {
                 }
                 Ok(Expr::Ident(s, pos))
             }
-            Tok::Sys(s) => {
+            TokenKind::SystemName(s) => {
                 let n = self.names.name(s).to_string();
                 if !matches!(n.as_str(), "$signed" | "$unsigned" | "$clog2" | "$bits") {
                     return Err(self.unsupported(pos, format!("system function `{n}`")));
@@ -199,14 +202,14 @@ impl Parser<'_, '_> {
                 self.expect_p(Punct::RParen, "`)`")?;
                 Ok(Expr::Call(s, pos, vec![a]))
             }
-            Tok::Punct(Punct::LParen) => {
+            TokenKind::Punct(Punct::LParen) => {
                 let e = self.expr()?;
                 self.expect_p(Punct::RParen, "`)`")?;
                 Ok(e)
             }
-            Tok::Punct(Punct::LBrace) => self.concat(pos),
-            Tok::Real => Err(self.unsupported(pos, "real number")),
-            Tok::Str => Err(self.unsupported(pos, "string literal")),
+            TokenKind::Punct(Punct::LBrace) => self.concat(pos),
+            TokenKind::Real => Err(self.unsupported(pos, "real number")),
+            TokenKind::StringLiteral => Err(self.unsupported(pos, "string literal")),
             other => {
                 let d = self.describe(&other);
                 Err(self.unexpected(pos, "an expression", &d))
@@ -214,7 +217,7 @@ impl Parser<'_, '_> {
         }
     }
 
-    fn concat(&mut self, pos: super::pos::Pos) -> PResult<Expr> {
+    fn concat(&mut self, pos: super::pos::Pos) -> ParseResult<Expr> {
         let first = self.expr()?;
         if self.peek_p(Punct::LBrace) {
             self.bump();
@@ -235,7 +238,7 @@ impl Parser<'_, '_> {
     }
 
     /// `[i]`, `[m:l]`, `[b+:w]` or `[b-:w]` (the `[` not yet consumed).
-    pub fn select(&mut self) -> PResult<Select> {
+    pub fn select(&mut self) -> ParseResult<Select> {
         self.expect_p(Punct::LBrack, "`[`")?;
         let a = self.expr()?;
         let sel = if self.eat_p(Punct::Colon) {

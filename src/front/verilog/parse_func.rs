@@ -4,8 +4,8 @@
 //! ends its path (so elaboration runs the body like a combinational always block).
 
 use super::ast::*;
-use super::lexer::{Punct, Tok};
-use super::parser::{PResult, Parser, Stop};
+use super::lexer::{Punct, TokenKind};
+use super::parser::{ParseResult, Parser, Stop};
 use super::pos::Pos;
 use super::symbols::{kw, Sym};
 
@@ -20,7 +20,7 @@ impl Parser<'_, '_> {
         match r {
             Ok(f) => out.push(Item::Function(Box::new(f))),
             Err(Stop) => {
-                while !matches!(self.peek().tok, Tok::Eof)
+                while !matches!(self.peek().kind, TokenKind::Eof)
                     && !self.peek_kw(kw::ENDFUNCTION)
                     && !self.peek_kw(kw::ENDMODULE)
                 {
@@ -33,9 +33,9 @@ impl Parser<'_, '_> {
         }
     }
 
-    fn function_inner(&mut self, pos: Pos) -> PResult<Function> {
+    fn function_inner(&mut self, pos: Pos) -> ParseResult<Function> {
         if !self.eat_kw(kw::AUTOMATIC) {
-            if let Tok::Ident(k) = self.peek().tok {
+            if let TokenKind::Ident(k) = self.peek().kind {
                 if self.names.name(k) == "static" {
                     self.bump();
                 }
@@ -60,7 +60,7 @@ impl Parser<'_, '_> {
                 self.end_label();
                 break;
             }
-            if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
+            if matches!(self.peek().kind, TokenKind::Eof) || self.peek_kw(kw::ENDMODULE) {
                 return Err(self.error(pos, "missing `endfunction` for this `function`"));
             }
             if body.is_empty() && self.starts_local() {
@@ -94,7 +94,7 @@ impl Parser<'_, '_> {
 
     /// The result type: nothing (one bit), `[signed] [range]`, `integer`/`int`,
     /// `reg`/`logic`/`bit [signed] [range]`, or a SystemVerilog data type.
-    fn result_type(&mut self, pos: Pos) -> PResult<Decl> {
+    fn result_type(&mut self, pos: Pos) -> ParseResult<Decl> {
         let mut d = Decl {
             dir: None,
             ty: Some(NetType::Reg),
@@ -103,7 +103,7 @@ impl Parser<'_, '_> {
             names: Vec::new(),
             pos,
         };
-        if let Tok::Ident(k) = self.peek().tok {
+        if let TokenKind::Ident(k) = self.peek().kind {
             if self.names.name(k) == "void" {
                 let p = self.peek_pos();
                 return Err(self.unsupported(p, "`void` function (a function must give a value)"));
@@ -135,28 +135,28 @@ impl Parser<'_, '_> {
     /// name is the function's, even if a type has the same name.
     fn peek_p2_name_end(&mut self) -> bool {
         matches!(
-            self.peek2().tok,
-            Tok::Punct(Punct::Semi) | Tok::Punct(Punct::LParen)
+            self.peek2().kind,
+            TokenKind::Punct(Punct::Semi) | TokenKind::Punct(Punct::LParen)
         )
     }
 
     /// ANSI arguments: `input logic [3:0] a, b, input c` (a declaration without a
     /// direction is an input, like the one before it).
-    fn ansi_args(&mut self, decls: &mut Vec<Decl>) -> PResult<()> {
+    fn ansi_args(&mut self, decls: &mut Vec<Decl>) -> ParseResult<()> {
         let mut cur: Option<Decl> = None;
         loop {
             let t = self.peek().clone();
-            let head = match t.tok {
-                Tok::Ident(k) if k == kw::OUTPUT || k == kw::INOUT => {
+            let head = match t.kind {
+                TokenKind::Ident(k) if k == kw::OUTPUT || k == kw::INOUT => {
                     return Err(self.unsupported(
                         t.pos,
                         "function argument that is not an `input` (a function gives one value)",
                     ));
                 }
-                Tok::Ident(k) if self.names.name(k) == "ref" => {
+                TokenKind::Ident(k) if self.names.name(k) == "ref" => {
                     return Err(self.unsupported(t.pos, "`ref` function argument"));
                 }
-                Tok::Ident(k) if k == kw::INPUT => Some(self.decl_head()?),
+                TokenKind::Ident(k) if k == kw::INPUT => Some(self.decl_head()?),
                 _ if self.starts_local() => {
                     let mut d = self.decl_head()?;
                     d.dir = Some(Dir::Input);
@@ -193,7 +193,7 @@ impl Parser<'_, '_> {
 
     /// Whether a declaration of a function item starts here (an input or a variable).
     fn starts_local(&mut self) -> bool {
-        let Tok::Ident(k) = self.peek().tok else {
+        let TokenKind::Ident(k) = self.peek().kind else {
             return false;
         };
         k == kw::INPUT
@@ -207,9 +207,9 @@ impl Parser<'_, '_> {
     }
 
     /// `input [3:0] a, b;` or `reg [7:0] t;` / `integer i;` inside a function.
-    fn local_decl(&mut self) -> PResult<Decl> {
+    fn local_decl(&mut self) -> ParseResult<Decl> {
         let t = self.peek().clone();
-        if matches!(t.tok, Tok::Ident(k) if k == kw::OUTPUT || k == kw::INOUT) {
+        if matches!(t.kind, TokenKind::Ident(k) if k == kw::OUTPUT || k == kw::INOUT) {
             return Err(self.unsupported(
                 t.pos,
                 "function argument that is not an `input` (a function gives one value)",

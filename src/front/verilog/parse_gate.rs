@@ -3,8 +3,8 @@
 //! otherwise hold a million more names.
 
 use super::ast::*;
-use super::lexer::{Punct, Tok};
-use super::parser::{PResult, Parser};
+use super::lexer::{Punct, TokenKind};
+use super::parser::{ParseResult, Parser};
 use super::symbols::{kw, Sym};
 
 impl Parser<'_, '_> {
@@ -23,7 +23,7 @@ impl Parser<'_, '_> {
     }
 
     /// At a gate keyword of kind `g`: the keyword, one or more instances and the `;`.
-    pub(super) fn gates(&mut self, g: GateKind, out: &mut Vec<Item>) -> PResult<()> {
+    pub(super) fn gates(&mut self, g: GateKind, out: &mut Vec<Item>) -> ParseResult<()> {
         self.bump();
         let mut named = self.skip_name();
         if named.is_none() && self.peek_p(Punct::LParen) && self.strength_follows() {
@@ -66,8 +66,8 @@ impl Parser<'_, '_> {
 
     /// After a gate keyword and `(`: a drive strength looks like `(strong0, ...)`.
     fn strength_follows(&mut self) -> bool {
-        match self.peek2().tok {
-            Tok::Ident(s) => {
+        match self.peek2().kind {
+            TokenKind::Ident(s) => {
                 let n = self.names.name(s);
                 n.starts_with("strong")
                     || n.starts_with("weak")

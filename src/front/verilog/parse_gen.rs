@@ -2,13 +2,13 @@
 //! constructs (`for` loops over a genvar, `if`, `begin : name ... end` blocks).
 
 use super::ast::*;
-use super::lexer::{Punct, Tok};
-use super::parser::{PResult, Parser};
+use super::lexer::{Punct, TokenKind};
+use super::parser::{ParseResult, Parser};
 use super::pos::Pos;
 use super::symbols::{kw, Sym};
 
 impl Parser<'_, '_> {
-    pub(super) fn instance(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+    pub(super) fn instance(&mut self, out: &mut Vec<Item>) -> ParseResult<()> {
         let (module, _) = self.ident("a module item")?;
         let params = if self.eat_p(Punct::Hash) {
             self.expect_p(Punct::LParen, "`(` of the parameter values")?;
@@ -49,7 +49,7 @@ impl Parser<'_, '_> {
     }
 
     /// `defparam a.P = e, b.c.Q = f;` (IEEE 1364-2005 clause 12.2.1), the keyword next.
-    pub(super) fn defparam(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+    pub(super) fn defparam(&mut self, out: &mut Vec<Item>) -> ParseResult<()> {
         self.bump();
         loop {
             let pos = self.peek_pos();
@@ -78,7 +78,7 @@ impl Parser<'_, '_> {
         self.expect_p(Punct::Semi, "`;` after the `defparam`")
     }
 
-    fn conns(&mut self) -> PResult<Conns> {
+    fn conns(&mut self) -> ParseResult<Conns> {
         if self.peek_p(Punct::RParen) {
             return Ok(Conns::Ordered(Vec::new()));
         }
@@ -116,7 +116,7 @@ impl Parser<'_, '_> {
     }
 
     /// `i = expr` in a `for` header.
-    pub fn loop_assign(&mut self) -> PResult<(Sym, Pos, Expr)> {
+    pub fn loop_assign(&mut self) -> ParseResult<(Sym, Pos, Expr)> {
         let (n, p) = self.ident("a loop variable")?;
         if let Some(e) = self.step_assign(Expr::Ident(n, p))? {
             return Ok((n, p, e));
@@ -128,20 +128,21 @@ impl Parser<'_, '_> {
     /// After an assignment target `lhs`: SystemVerilog's `lhs++`, `lhs--` and
     /// `lhs op= e` for `+ - * & | ^` (IEEE 1800-2017 clause 11.4.1, from memory) as the
     /// value `lhs op e` to assign; `None` (nothing read) when the next token is not one.
-    pub fn step_assign(&mut self, lhs: Expr) -> PResult<Option<Expr>> {
-        let op = match self.peek().tok {
-            Tok::Punct(Punct::Plus) => BinOp::Add,
-            Tok::Punct(Punct::Minus) => BinOp::Sub,
-            Tok::Punct(Punct::Star) => BinOp::Mul,
-            Tok::Punct(Punct::Amp) => BinOp::And,
-            Tok::Punct(Punct::Pipe) => BinOp::Or,
-            Tok::Punct(Punct::Caret) => BinOp::Xor,
+    pub fn step_assign(&mut self, lhs: Expr) -> ParseResult<Option<Expr>> {
+        let op = match self.peek().kind {
+            TokenKind::Punct(Punct::Plus) => BinOp::Add,
+            TokenKind::Punct(Punct::Minus) => BinOp::Sub,
+            TokenKind::Punct(Punct::Star) => BinOp::Mul,
+            TokenKind::Punct(Punct::Amp) => BinOp::And,
+            TokenKind::Punct(Punct::Pipe) => BinOp::Or,
+            TokenKind::Punct(Punct::Caret) => BinOp::Xor,
             _ => return Ok(None),
         };
         let pos = self.peek_pos();
-        let second = self.peek2().tok.clone();
+        let second = self.peek2().kind.clone();
         let rhs = match (op, second) {
-            (BinOp::Add, Tok::Punct(Punct::Plus)) | (BinOp::Sub, Tok::Punct(Punct::Minus)) => {
+            (BinOp::Add, TokenKind::Punct(Punct::Plus))
+            | (BinOp::Sub, TokenKind::Punct(Punct::Minus)) => {
                 self.bump();
                 self.bump();
                 Expr::Num(
@@ -154,7 +155,7 @@ impl Parser<'_, '_> {
                     pos,
                 )
             }
-            (_, Tok::Punct(Punct::Assign)) => {
+            (_, TokenKind::Punct(Punct::Assign)) => {
                 self.bump();
                 self.bump();
                 self.expr()?
@@ -164,12 +165,12 @@ impl Parser<'_, '_> {
         Ok(Some(Expr::Chain(Box::new(lhs), vec![(op, pos, rhs)])))
     }
 
-    pub(super) fn gen_for(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+    pub(super) fn gen_for(&mut self, out: &mut Vec<Item>) -> ParseResult<()> {
         let pos = self.bump().pos;
         self.expect_p(Punct::LParen, "`(` after `for`")?;
         if self.eat_kw(kw::GENVAR) {
-            let (n, p) = match self.peek().tok {
-                Tok::Ident(s) => (s, self.peek_pos()),
+            let (n, p) = match self.peek().kind {
+                TokenKind::Ident(s) => (s, self.peek_pos()),
                 _ => return Err(self.error(pos, "expected a genvar name")),
             };
             out.push(Item::Genvar(vec![(n, p)]));
@@ -192,7 +193,7 @@ impl Parser<'_, '_> {
         Ok(())
     }
 
-    pub(super) fn gen_if(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+    pub(super) fn gen_if(&mut self, out: &mut Vec<Item>) -> ParseResult<()> {
         let pos = self.bump().pos;
         self.expect_p(Punct::LParen, "`(` after `if`")?;
         let cond = self.expr()?;
@@ -217,7 +218,7 @@ impl Parser<'_, '_> {
     }
 
     /// `begin [: name] items end`, or a single item.
-    fn gen_block(&mut self) -> PResult<(Option<Sym>, Vec<Item>)> {
+    fn gen_block(&mut self) -> ParseResult<(Option<Sym>, Vec<Item>)> {
         let pos = self.peek_pos();
         self.enter(pos)?;
         let r = self.gen_block_inner();
@@ -225,7 +226,7 @@ impl Parser<'_, '_> {
         r
     }
 
-    fn gen_block_inner(&mut self) -> PResult<(Option<Sym>, Vec<Item>)> {
+    fn gen_block_inner(&mut self) -> ParseResult<(Option<Sym>, Vec<Item>)> {
         let mut items = Vec::new();
         if self.eat_kw(kw::BEGIN) {
             let name = if self.eat_p(Punct::Colon) {
@@ -237,7 +238,7 @@ impl Parser<'_, '_> {
                 if self.eat_kw(kw::END) {
                     break;
                 }
-                if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
+                if matches!(self.peek().kind, TokenKind::Eof) || self.peek_kw(kw::ENDMODULE) {
                     let p = self.peek_pos();
                     return Err(self.error(p, "missing `end` of a generate block"));
                 }

@@ -4,9 +4,9 @@
 //! imports or names it; its types resolve while parsing (see `parse_types`).
 
 use super::ast::*;
-use super::lexer::{Punct, Tok};
+use super::lexer::{Punct, TokenKind};
 use super::parse_types::Package;
-use super::parser::{PResult, Parser};
+use super::parser::{ParseResult, Parser};
 use super::pos::Pos;
 use super::symbols::Sym;
 
@@ -66,7 +66,7 @@ impl Parser<'_, '_> {
     }
 
     /// `import p::*;` or `import p::name;` (read as the whole package).
-    pub(super) fn import(&mut self, unit: bool) -> PResult<()> {
+    pub(super) fn import(&mut self, unit: bool) -> ParseResult<()> {
         self.bump();
         loop {
             let (p, pos) = self.ident("a package name")?;
@@ -126,14 +126,14 @@ impl Parser<'_, '_> {
         let mut pkg = Package::default();
         loop {
             let t = self.peek().clone();
-            let k = match t.tok {
-                Tok::Eof => {
+            let k = match t.kind {
+                TokenKind::Eof => {
                     self.error(t.pos, "missing `endpackage`");
                     return;
                 }
-                Tok::Ident(k) => k,
+                TokenKind::Ident(k) => k,
                 _ => {
-                    let d = self.describe(&t.tok);
+                    let d = self.describe(&t.kind);
                     self.unexpected(t.pos, "a package item", &d);
                     self.recover();
                     continue;
@@ -219,7 +219,7 @@ impl Parser<'_, '_> {
 
     /// `name` followed by `::` in an expression: a package parameter, read by its own name
     /// (the package's parameters are copied into the module).
-    pub(super) fn scoped_name(&mut self, pkg: Sym, pos: Pos) -> PResult<Expr> {
+    pub(super) fn scoped_name(&mut self, pkg: Sym, pos: Pos) -> ParseResult<Expr> {
         let (n, p) = self.scoped(pkg, pos)?;
         let has = self.sv.packages.get(&pkg).is_some_and(|pk| {
             pk.params
@@ -237,7 +237,7 @@ impl Parser<'_, '_> {
     }
 
     /// A `typedef` among module items.
-    pub(super) fn module_typedef(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+    pub(super) fn module_typedef(&mut self, out: &mut Vec<Item>) -> ParseResult<()> {
         let r = self.typedef();
         for pd in self.take_pending() {
             out.push(Item::Param(Box::new(pd)));

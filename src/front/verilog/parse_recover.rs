@@ -3,7 +3,7 @@
 //! gives one error and no follow-on errors.
 
 use super::ast::Item;
-use super::lexer::{Punct, Tok};
+use super::lexer::{Punct, TokenKind};
 use super::parser::Parser;
 use super::symbols::{kw, Sym};
 
@@ -13,15 +13,15 @@ impl Parser<'_, '_> {
     pub(super) fn skip_declaration(&mut self) {
         let mut depth = 0usize;
         loop {
-            match self.peek().tok {
-                Tok::Eof => return,
-                Tok::Punct(Punct::LBrace) => depth += 1,
-                Tok::Punct(Punct::RBrace) => depth = depth.saturating_sub(1),
-                Tok::Punct(Punct::Semi) if depth == 0 => {
+            match self.peek().kind {
+                TokenKind::Eof => return,
+                TokenKind::Punct(Punct::LBrace) => depth += 1,
+                TokenKind::Punct(Punct::RBrace) => depth = depth.saturating_sub(1),
+                TokenKind::Punct(Punct::Semi) if depth == 0 => {
                     self.bump();
                     return;
                 }
-                Tok::Ident(k) if k == super::symbols::kw::ENDMODULE => return,
+                TokenKind::Ident(k) if k == super::symbols::kw::ENDMODULE => return,
                 _ => {}
             }
             self.bump();
@@ -32,9 +32,9 @@ impl Parser<'_, '_> {
     pub(super) fn skip_to_name(&mut self, end: &str) {
         loop {
             let t = self.bump();
-            match t.tok {
-                Tok::Eof => return,
-                Tok::Ident(k) if self.name_is(k, end) => return,
+            match t.kind {
+                TokenKind::Eof => return,
+                TokenKind::Ident(k) if self.name_is(k, end) => return,
                 _ => {}
             }
         }
@@ -85,28 +85,28 @@ impl Parser<'_, '_> {
         if self.eat_p(Punct::At) && !self.eat_p(Punct::Star) && self.peek_p(Punct::LParen) {
             let mut depth = 0usize;
             loop {
-                match self.bump().tok {
-                    Tok::Punct(Punct::LParen) => depth += 1,
-                    Tok::Punct(Punct::RParen) => {
+                match self.bump().kind {
+                    TokenKind::Punct(Punct::LParen) => depth += 1,
+                    TokenKind::Punct(Punct::RParen) => {
                         depth = depth.saturating_sub(1);
                         if depth == 0 {
                             break;
                         }
                     }
-                    Tok::Eof => return,
+                    TokenKind::Eof => return,
                     _ => {}
                 }
             }
         }
         let mut depth = 0usize;
         loop {
-            match &self.peek().tok {
-                Tok::Eof => return,
-                Tok::Ident(k) if *k == kw::ENDMODULE => return,
-                Tok::Ident(k) if *k == kw::BEGIN || *k == kw::CASE || *k == kw::CASEZ => {
+            match &self.peek().kind {
+                TokenKind::Eof => return,
+                TokenKind::Ident(k) if *k == kw::ENDMODULE => return,
+                TokenKind::Ident(k) if *k == kw::BEGIN || *k == kw::CASE || *k == kw::CASEZ => {
                     depth += 1;
                 }
-                Tok::Ident(k) if *k == kw::END || *k == kw::ENDCASE => {
+                TokenKind::Ident(k) if *k == kw::END || *k == kw::ENDCASE => {
                     self.bump();
                     depth = depth.saturating_sub(1);
                     if depth == 0 && !self.peek_kw(kw::ELSE) {
@@ -114,7 +114,7 @@ impl Parser<'_, '_> {
                     }
                     continue;
                 }
-                Tok::Punct(Punct::Semi) if depth == 0 => {
+                TokenKind::Punct(Punct::Semi) if depth == 0 => {
                     self.bump();
                     if !self.peek_kw(kw::ELSE) {
                         return;
@@ -130,13 +130,13 @@ impl Parser<'_, '_> {
     /// Skip to just after the next `;`, or to an item keyword or `endmodule`.
     pub fn recover(&mut self) {
         loop {
-            match &self.peek().tok {
-                Tok::Eof => return,
-                Tok::Punct(Punct::Semi) => {
+            match &self.peek().kind {
+                TokenKind::Eof => return,
+                TokenKind::Punct(Punct::Semi) => {
                     self.bump();
                     return;
                 }
-                Tok::Ident(k)
+                TokenKind::Ident(k)
                     if [
                         kw::ENDMODULE,
                         kw::MODULE,
@@ -174,9 +174,9 @@ impl Parser<'_, '_> {
 
     pub(super) fn skip_past(&mut self, k: Sym) {
         loop {
-            match self.bump().tok {
-                Tok::Eof => return,
-                Tok::Ident(s) if s == k => return,
+            match self.bump().kind {
+                TokenKind::Eof => return,
+                TokenKind::Ident(s) if s == k => return,
                 _ => {}
             }
         }

@@ -2,13 +2,13 @@
 //! `case`/`casez` and `for`; everything else is reported as unsupported.
 
 use super::ast::{CaseStmt, ForStmt, Stmt};
-use super::lexer::{Punct, Tok};
-use super::parser::{PResult, Parser};
+use super::lexer::{Punct, TokenKind};
+use super::parser::{ParseResult, Parser};
 use super::symbols::kw;
 
 impl Parser<'_, '_> {
     /// One statement.
-    pub fn stmt(&mut self) -> PResult<Stmt> {
+    pub fn stmt(&mut self) -> ParseResult<Stmt> {
         let pos = self.peek_pos();
         self.enter(pos)?;
         let r = self.stmt_inner();
@@ -16,12 +16,12 @@ impl Parser<'_, '_> {
         r
     }
 
-    fn stmt_inner(&mut self) -> PResult<Stmt> {
+    fn stmt_inner(&mut self) -> ParseResult<Stmt> {
         // SystemVerilog `unique`, `unique0` and `priority` before `case` or `if` (IEEE
         // 1800-2017 clauses 12.4.2 and 12.5.3, from memory): read as the plain statement;
         // the checks they imply are made by the elaborator (`stmt/qualified.rs`) and reported
         // as warnings.
-        if let Tok::Ident(k) = self.peek().tok {
+        if let TokenKind::Ident(k) = self.peek().kind {
             let q = match self.names.name(k) {
                 "unique" => Some(super::ast::Qualifier::Unique),
                 "unique0" => Some(super::ast::Qualifier::Unique0),
@@ -29,7 +29,7 @@ impl Parser<'_, '_> {
                 _ => None,
             };
             if let Some(q) = q {
-                if matches!(self.peek2().tok, Tok::Ident(c) if c == kw::CASE || c == kw::CASEZ || c == kw::IF)
+                if matches!(self.peek2().kind, TokenKind::Ident(c) if c == kw::CASE || c == kw::CASEZ || c == kw::IF)
                 {
                     let at = self.bump().pos;
                     let inner = self.stmt_inner()?;
@@ -39,22 +39,24 @@ impl Parser<'_, '_> {
         }
         let t = self.peek().clone();
         let pos = t.pos;
-        if let Tok::Ident(k) = t.tok {
+        if let TokenKind::Ident(k) = t.kind {
             if self.names.name(k) == "return" {
                 return self.return_stmt(pos);
             }
-            if !super::symbols::is_keyword(k) && self.peek2().tok == Tok::Punct(Punct::LParen) {
+            if !super::symbols::is_keyword(k)
+                && self.peek2().kind == TokenKind::Punct(Punct::LParen)
+            {
                 // A task call `t(a, b);` (tasks are not read): the whole statement.
                 let n = self.names.name(k).to_string();
                 return Err(self.unsupported(pos, format!("task call `{n}(...)` (tasks are not read; write the logic as a function or in the block)")));
             }
         }
-        match t.tok {
-            Tok::Punct(Punct::Semi) => {
+        match t.kind {
+            TokenKind::Punct(Punct::Semi) => {
                 self.bump();
                 Ok(Stmt::Null)
             }
-            Tok::Ident(k) if k == kw::BEGIN => {
+            TokenKind::Ident(k) if k == kw::BEGIN => {
                 self.bump();
                 if self.eat_p(Punct::Colon) {
                     self.ident("a block name")?;
@@ -64,7 +66,7 @@ impl Parser<'_, '_> {
                     if self.eat_kw(kw::END) {
                         break;
                     }
-                    if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
+                    if matches!(self.peek().kind, TokenKind::Eof) || self.peek_kw(kw::ENDMODULE) {
                         return Err(self.error(pos, "missing `end` for this `begin`"));
                     }
                     if self.peek_kw(kw::REG) || self.peek_kw(kw::INTEGER) || self.peek_kw(kw::WIRE)
@@ -91,7 +93,7 @@ impl Parser<'_, '_> {
                 }
                 Ok(Stmt::Block(v))
             }
-            Tok::Ident(k) if k == kw::IF => {
+            TokenKind::Ident(k) if k == kw::IF => {
                 self.bump();
                 self.expect_p(Punct::LParen, "`(` after `if`")?;
                 let c = self.expr()?;
@@ -104,18 +106,18 @@ impl Parser<'_, '_> {
                 };
                 Ok(Stmt::If(c, Box::new(t), e, pos))
             }
-            Tok::Ident(k) if k == kw::CASE || k == kw::CASEZ => {
+            TokenKind::Ident(k) if k == kw::CASE || k == kw::CASEZ => {
                 self.bump();
                 self.case(k == kw::CASEZ, pos)
             }
-            Tok::Ident(k) if k == kw::CASEX => {
+            TokenKind::Ident(k) if k == kw::CASEX => {
                 Err(self.unsupported(pos, "`casex` (use `casez` with `?` for don't-care bits)"))
             }
-            Tok::Ident(k) if k == kw::FOR => {
+            TokenKind::Ident(k) if k == kw::FOR => {
                 self.bump();
                 self.expect_p(Punct::LParen, "`(` after `for`")?;
-                let declares = match self.peek().tok {
-                    Tok::Ident(k) => k == kw::INTEGER || self.is_int(k),
+                let declares = match self.peek().kind {
+                    TokenKind::Ident(k) => k == kw::INTEGER || self.is_int(k),
                     _ => false,
                 };
                 if declares {
@@ -139,11 +141,11 @@ impl Parser<'_, '_> {
                     pos,
                 })))
             }
-            Tok::Ident(k) if super::symbols::is_keyword(k) => {
+            TokenKind::Ident(k) if super::symbols::is_keyword(k) => {
                 let n = self.names.name(k).to_string();
                 Err(self.unsupported(pos, format!("`{n}` statement in an always block")))
             }
-            Tok::Ident(_) | Tok::Punct(Punct::LBrace) => {
+            TokenKind::Ident(_) | TokenKind::Punct(Punct::LBrace) => {
                 let lhs = self.lvalue()?;
                 let p = self.peek_pos();
                 if let Some(rhs) = self.step_assign(lhs.clone())? {
@@ -167,12 +169,14 @@ impl Parser<'_, '_> {
                 self.expect_p(Punct::Semi, "`;` after the assignment")?;
                 Ok(Stmt::Assign(lhs, rhs, p))
             }
-            Tok::Sys(s) => {
+            TokenKind::SystemName(s) => {
                 let n = self.names.name(s).to_string();
                 Err(self.unsupported(pos, format!("system task `{n}`")))
             }
-            Tok::Punct(Punct::Hash) => Err(self.unsupported(pos, "delay control `#`")),
-            Tok::Punct(Punct::At) => Err(self.unsupported(pos, "event control `@` inside a block")),
+            TokenKind::Punct(Punct::Hash) => Err(self.unsupported(pos, "delay control `#`")),
+            TokenKind::Punct(Punct::At) => {
+                Err(self.unsupported(pos, "event control `@` inside a block"))
+            }
             other => {
                 let d = self.describe(&other);
                 Err(self.unexpected(pos, "a statement", &d))
@@ -181,7 +185,7 @@ impl Parser<'_, '_> {
     }
 
     /// `return expr;` (IEEE 1800-2017 clause 13.4.1, from memory), in a function only.
-    fn return_stmt(&mut self, pos: super::pos::Pos) -> PResult<Stmt> {
+    fn return_stmt(&mut self, pos: super::pos::Pos) -> ParseResult<Stmt> {
         self.bump();
         if !self.in_function {
             return Err(self.unsupported(pos, "`return` outside a function"));
@@ -195,11 +199,11 @@ impl Parser<'_, '_> {
     }
 
     /// An assignment target: a name, a select of a name, or a concatenation of targets.
-    pub fn lvalue(&mut self) -> PResult<super::ast::Expr> {
+    pub fn lvalue(&mut self) -> ParseResult<super::ast::Expr> {
         // Parsed as a primary; the elaborator checks that it is assignable.
         let pos = self.peek_pos();
-        match self.peek().tok {
-            Tok::Ident(_) | Tok::Punct(Punct::LBrace) => {}
+        match self.peek().kind {
+            TokenKind::Ident(_) | TokenKind::Punct(Punct::LBrace) => {}
             _ => return Err(self.error(pos, "expected an assignment target")),
         }
         let save_depth_ok = self.enter(pos);
@@ -209,11 +213,11 @@ impl Parser<'_, '_> {
         r
     }
 
-    fn lvalue_primary(&mut self) -> PResult<super::ast::Expr> {
+    fn lvalue_primary(&mut self) -> ParseResult<super::ast::Expr> {
         use super::ast::Expr;
         let t = self.bump();
-        match t.tok {
-            Tok::Ident(s) if !super::symbols::is_keyword(s) => {
+        match t.kind {
+            TokenKind::Ident(s) if !super::symbols::is_keyword(s) => {
                 if let Some(e) = self.struct_member(s, t.pos)? {
                     return Ok(e);
                 }
@@ -223,7 +227,7 @@ impl Parser<'_, '_> {
                 }
                 Ok(Expr::Ident(s, t.pos))
             }
-            Tok::Punct(Punct::LBrace) => {
+            TokenKind::Punct(Punct::LBrace) => {
                 let mut v = vec![self.lvalue()?];
                 while self.eat_p(Punct::Comma) {
                     v.push(self.lvalue()?);
@@ -238,7 +242,7 @@ impl Parser<'_, '_> {
         }
     }
 
-    fn case(&mut self, casez: bool, pos: super::pos::Pos) -> PResult<Stmt> {
+    fn case(&mut self, casez: bool, pos: super::pos::Pos) -> ParseResult<Stmt> {
         self.expect_p(Punct::LParen, "`(` after `case`")?;
         let expr = self.expr()?;
         self.expect_p(Punct::RParen, "`)`")?;
@@ -248,7 +252,7 @@ impl Parser<'_, '_> {
             if self.eat_kw(kw::ENDCASE) {
                 break;
             }
-            if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
+            if matches!(self.peek().kind, TokenKind::Eof) || self.peek_kw(kw::ENDMODULE) {
                 return Err(self.error(pos, "missing `endcase`"));
             }
             if self.peek_kw(kw::DEFAULT) {

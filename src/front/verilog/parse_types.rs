@@ -10,8 +10,8 @@
 //! `module`.
 
 use super::ast::*;
-use super::lexer::{NumLit, Punct, Tok, B0, B1};
-use super::parser::{PResult, Parser};
+use super::lexer::{NumLit, Punct, TokenKind, B0, B1};
+use super::parser::{ParseResult, Parser};
 use super::pos::Pos;
 pub use super::sv_types::{Field, Package, TypeDef};
 use super::symbols::Sym;
@@ -127,8 +127,8 @@ impl Parser<'_, '_> {
     }
 
     pub(super) fn peek_name_is(&mut self, s: &str) -> bool {
-        match self.peek().tok {
-            Tok::Ident(k) => self.name_is(k, s),
+        match self.peek().kind {
+            TokenKind::Ident(k) => self.name_is(k, s),
             _ => false,
         }
     }
@@ -154,7 +154,7 @@ impl Parser<'_, '_> {
     /// Whether a data type starts here (a built-in type keyword of SystemVerilog, a typedef
     /// name, or `pkg::`).
     pub(super) fn starts_type(&mut self) -> bool {
-        let Tok::Ident(k) = self.peek().tok else {
+        let TokenKind::Ident(k) = self.peek().kind else {
             return false;
         };
         if matches!(
@@ -166,12 +166,12 @@ impl Parser<'_, '_> {
         if self.lookup_type(k).is_some() {
             return true;
         }
-        self.is_package(k) && self.peek2().tok == Tok::Punct(Punct::Colon)
+        self.is_package(k) && self.peek2().kind == TokenKind::Punct(Punct::Colon)
     }
 
     /// `pkg::` after the package name: the package is used by this module; reads the name
     /// after `::`.
-    pub(super) fn scoped(&mut self, pkg: Sym, pos: Pos) -> PResult<(Sym, Pos)> {
+    pub(super) fn scoped(&mut self, pkg: Sym, pos: Pos) -> ParseResult<(Sym, Pos)> {
         self.expect_p(Punct::Colon, "`::` after a package name")?;
         self.expect_p(Punct::Colon, "`::` after a package name")?;
         if !self.is_package(pkg) {
@@ -186,10 +186,10 @@ impl Parser<'_, '_> {
 
     /// A data type: `logic|bit|reg [signed] [range]`, `int`, `integer`, `byte`,
     /// `shortint`, `longint`, `enum ...`, `struct packed ...`, a typedef name or `pkg::name`.
-    pub(super) fn data_type(&mut self) -> PResult<TypeDef> {
+    pub(super) fn data_type(&mut self) -> ParseResult<TypeDef> {
         let t = self.peek().clone();
-        let Tok::Ident(k) = t.tok else {
-            let d = self.describe(&t.tok);
+        let TokenKind::Ident(k) = t.kind else {
+            let d = self.describe(&t.kind);
             return Err(self.unexpected(t.pos, "a type", &d));
         };
         let name = self.names.name(k).to_string();
@@ -265,7 +265,7 @@ impl Parser<'_, '_> {
 
     /// `enum [base] { A [= v], B, ... }`: the members become `localparam`s of the base type
     /// (implicit values count up from the previous member, the first being 0; clause 6.19).
-    pub(super) fn enum_type(&mut self) -> PResult<TypeDef> {
+    pub(super) fn enum_type(&mut self) -> ParseResult<TypeDef> {
         let pos = self.bump().pos;
         let base = if self.peek_p(Punct::LBrace) {
             TypeDef {
@@ -321,7 +321,7 @@ impl Parser<'_, '_> {
 
     /// `struct packed [signed] { type a, b; type c; }`: a vector whose first member is the
     /// most significant (clause 7.2.1).
-    pub(super) fn struct_type(&mut self) -> PResult<TypeDef> {
+    pub(super) fn struct_type(&mut self) -> ParseResult<TypeDef> {
         let pos = self.bump().pos;
         if !self.peek_name_is("packed") {
             return Err(self.unsupported(pos, "unpacked `struct` (write `struct packed`)"));
@@ -376,7 +376,7 @@ impl Parser<'_, '_> {
 
     /// `typedef type name;` (the `typedef` keyword next). Returns the name and type; enum
     /// members wait in `pending` for the caller.
-    pub(super) fn typedef(&mut self) -> PResult<(Sym, TypeDef)> {
+    pub(super) fn typedef(&mut self) -> ParseResult<(Sym, TypeDef)> {
         let pos = self.bump().pos;
         let ty = match self.data_type() {
             Ok(t) => t,
@@ -392,7 +392,7 @@ impl Parser<'_, '_> {
         }
         let _ = pos;
         let t = self.peek().clone();
-        let d = self.describe(&t.tok);
+        let d = self.describe(&t.kind);
         Err(self.unexpected(t.pos, "`;` after the typedef", &d))
     }
 
@@ -400,17 +400,17 @@ impl Parser<'_, '_> {
     /// last name before the `;`; it is declared as one bit, so that declarations of the type
     /// give no follow-on error (the read fails on the first error anyway). Without a name,
     /// the error stands and the caller skips the declaration.
-    fn typedef_after_error(&mut self, e: super::parser::Stop) -> PResult<(Sym, TypeDef)> {
+    fn typedef_after_error(&mut self, e: super::parser::Stop) -> ParseResult<(Sym, TypeDef)> {
         let mut name = None;
         let mut depth = 0usize;
         loop {
-            match self.peek().tok {
-                Tok::Eof => return Err(e),
-                Tok::Punct(Punct::LBrace) => depth += 1,
-                Tok::Punct(Punct::RBrace) => depth = depth.saturating_sub(1),
-                Tok::Punct(Punct::Semi) if depth == 0 => break,
-                Tok::Ident(k) if k == super::symbols::kw::ENDMODULE => return Err(e),
-                Tok::Ident(k) if depth == 0 => name = Some(k),
+            match self.peek().kind {
+                TokenKind::Eof => return Err(e),
+                TokenKind::Punct(Punct::LBrace) => depth += 1,
+                TokenKind::Punct(Punct::RBrace) => depth = depth.saturating_sub(1),
+                TokenKind::Punct(Punct::Semi) if depth == 0 => break,
+                TokenKind::Ident(k) if k == super::symbols::kw::ENDMODULE => return Err(e),
+                TokenKind::Ident(k) if depth == 0 => name = Some(k),
                 _ => {}
             }
             self.bump();
@@ -441,10 +441,10 @@ impl Parser<'_, '_> {
     }
 
     /// `$bits(` next to a type: its width; `None` when the argument is an expression.
-    pub(super) fn bits_of_type(&mut self) -> PResult<Option<Expr>> {
+    pub(super) fn bits_of_type(&mut self) -> ParseResult<Option<Expr>> {
         let p = self.peek_pos();
-        let is_type = match self.peek().tok {
-            Tok::Ident(k) => {
+        let is_type = match self.peek().kind {
+            TokenKind::Ident(k) => {
                 matches!(
                     self.names.name(k),
                     "logic" | "bit" | "reg" | "int" | "integer" | "byte" | "shortint" | "longint"
@@ -462,7 +462,7 @@ impl Parser<'_, '_> {
 
     /// After a name `s` of struct type: `s.a.b` and an optional select of the member, as a
     /// select of `s`. `None` when `s` is not a struct or no `.` follows.
-    pub(super) fn struct_member(&mut self, s: Sym, pos: Pos) -> PResult<Option<Expr>> {
+    pub(super) fn struct_member(&mut self, s: Sym, pos: Pos) -> ParseResult<Option<Expr>> {
         if !self.peek_p(Punct::Dot) {
             return Ok(None);
         }

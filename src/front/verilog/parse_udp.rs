@@ -9,7 +9,7 @@
 //! at `x` never applies and is dropped.
 
 use super::ast::{BinOp, Expr, Item, Module, NetType, UnOp};
-use super::lexer::{NumLit, Punct, Tok, B0, B1, BX};
+use super::lexer::{NumLit, Punct, TokenKind, B0, B1, BX};
 use super::parser::Parser;
 use super::pos::Pos;
 use super::symbols::{kw, Sym};
@@ -31,7 +31,7 @@ impl Parser<'_, '_> {
     pub(super) fn primitive(&mut self, pos: Pos) -> Option<Module> {
         let m = self.primitive_inner(pos);
         if m.is_none() {
-            while !matches!(self.peek().tok, Tok::Eof) && !self.peek_kw(kw::ENDPRIMITIVE) {
+            while !matches!(self.peek().kind, TokenKind::Eof) && !self.peek_kw(kw::ENDPRIMITIVE) {
                 self.bump();
             }
             self.eat_kw(kw::ENDPRIMITIVE);
@@ -51,17 +51,17 @@ impl Parser<'_, '_> {
         self.header(&mut m).ok()?;
         loop {
             let t = self.peek().clone();
-            match t.tok {
-                Tok::Ident(k) if k == kw::TABLE => break,
-                Tok::Ident(k) if k == kw::INITIAL => {
+            match t.kind {
+                TokenKind::Ident(k) if k == kw::TABLE => break,
+                TokenKind::Ident(k) if k == kw::INITIAL => {
                     self.sequential(t.pos, "an `initial` value");
                     return None;
                 }
-                Tok::Ident(k) if k == kw::ENDPRIMITIVE => {
+                TokenKind::Ident(k) if k == kw::ENDPRIMITIVE => {
                     self.error(t.pos, "a primitive needs a `table`");
                     return None;
                 }
-                Tok::Eof => {
+                TokenKind::Eof => {
                     self.error(t.pos, "missing `table ... endtable endprimitive`");
                     return None;
                 }
@@ -122,7 +122,7 @@ impl Parser<'_, '_> {
         let mut rows = Vec::new();
         loop {
             let start = self.peek().clone();
-            if let Tok::Ident(k) = start.tok {
+            if let TokenKind::Ident(k) = start.kind {
                 if k == kw::ENDTABLE {
                     self.bump();
                     return Some(rows);
@@ -131,23 +131,23 @@ impl Parser<'_, '_> {
             let mut fields: Vec<String> = vec![String::new()];
             loop {
                 let t = self.bump();
-                match t.tok {
-                    Tok::Punct(Punct::Semi) => break,
-                    Tok::Punct(Punct::Colon) => fields.push(String::new()),
-                    Tok::Punct(Punct::Question) => fields.last_mut()?.push('?'),
-                    Tok::Punct(Punct::Minus)
-                    | Tok::Punct(Punct::Star)
-                    | Tok::Punct(Punct::LParen) => {
+                match t.kind {
+                    TokenKind::Punct(Punct::Semi) => break,
+                    TokenKind::Punct(Punct::Colon) => fields.push(String::new()),
+                    TokenKind::Punct(Punct::Question) => fields.last_mut()?.push('?'),
+                    TokenKind::Punct(Punct::Minus)
+                    | TokenKind::Punct(Punct::Star)
+                    | TokenKind::Punct(Punct::LParen) => {
                         self.sequential(t.pos, "an edge or a `-` entry");
                         return None;
                     }
-                    Tok::Num(lit) => fields.last_mut()?.push_str(&lit.text),
-                    Tok::Ident(s) if s != kw::ENDTABLE && s != kw::ENDPRIMITIVE => {
+                    TokenKind::Number(lit) => fields.last_mut()?.push_str(&lit.text),
+                    TokenKind::Ident(s) if s != kw::ENDTABLE && s != kw::ENDPRIMITIVE => {
                         let text = self.names.name(s).to_string();
                         fields.last_mut()?.push_str(&text);
                     }
                     _ => {
-                        let d = self.describe(&t.tok);
+                        let d = self.describe(&t.kind);
                         self.unexpected(
                             t.pos,
                             "a table entry (`0`, `1`, `x`, `?`, `b`), `:` or `;`",

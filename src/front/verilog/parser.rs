@@ -2,7 +2,7 @@
 //! blocks. Errors are collected; after one, the parser skips to the next `;` or item keyword.
 
 use super::ast::*;
-use super::lexer::{Lexer, Punct, Tok, Token};
+use super::lexer::{Lexer, Punct, Token, TokenKind};
 use super::pos::Pos;
 use super::symbols::{is_keyword, kw, Interner, Sym};
 use super::syntax_error::{SyntaxError, SyntaxKind};
@@ -14,14 +14,14 @@ use std::collections::VecDeque;
 pub struct Stop;
 
 /// Result of a parse step.
-pub type PResult<T> = Result<T, Stop>;
+pub type ParseResult<T> = Result<T, Stop>;
 
 /// Deepest nesting of parentheses, operators and statements accepted.
 pub const MAX_DEPTH: usize = 1000;
 
 /// The parser over one file.
 pub struct Parser<'s, 'n> {
-    lx: Lexer<'s>,
+    lexer: Lexer<'s>,
     /// Interned names.
     pub names: &'n mut Interner,
     look: VecDeque<Token>,
@@ -53,7 +53,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         names: &'n mut Interner,
     ) -> Self {
         Parser {
-            lx: Lexer::with_marks(src, file, marks),
+            lexer: Lexer::with_marks(src, file, marks),
             names,
             look: VecDeque::new(),
             errors: Vec::new(),
@@ -69,7 +69,7 @@ impl<'s, 'n> Parser<'s, 'n> {
 
     fn fill(&mut self, k: usize) {
         while self.look.len() <= k {
-            let t = self.lx.next_token(self.names);
+            let t = self.lexer.next_token(self.names);
             self.look.push_back(t);
         }
     }
@@ -100,12 +100,12 @@ impl<'s, 'n> Parser<'s, 'n> {
 
     /// Whether the next token is `p`.
     pub fn peek_p(&mut self, p: Punct) -> bool {
-        self.peek().tok == Tok::Punct(p)
+        self.peek().kind == TokenKind::Punct(p)
     }
 
     /// Whether the next token is keyword `k`.
     pub fn peek_kw(&mut self, k: Sym) -> bool {
-        self.peek().tok == Tok::Ident(k)
+        self.peek().kind == TokenKind::Ident(k)
     }
 
     /// Consume `p` if next.
@@ -173,49 +173,49 @@ impl<'s, 'n> Parser<'s, 'n> {
     }
 
     /// How a token reads in a message.
-    pub fn describe(&self, t: &Tok) -> String {
+    pub fn describe(&self, t: &TokenKind) -> String {
         match t {
-            Tok::Ident(s) => format!("`{}`", self.names.name(*s)),
-            Tok::Sys(s) => format!("`{}`", self.names.name(*s)),
-            Tok::Num(n) => format!("number `{}`", n.text),
-            Tok::Punct(p) => format!("`{}`", punct_text(*p)),
-            Tok::Str => "a string".into(),
-            Tok::Real => "a real number".into(),
-            Tok::Eof => "end of file".into(),
+            TokenKind::Ident(s) => format!("`{}`", self.names.name(*s)),
+            TokenKind::SystemName(s) => format!("`{}`", self.names.name(*s)),
+            TokenKind::Number(n) => format!("number `{}`", n.text),
+            TokenKind::Punct(p) => format!("`{}`", punct_text(*p)),
+            TokenKind::StringLiteral => "a string".into(),
+            TokenKind::Real => "a real number".into(),
+            TokenKind::Eof => "end of file".into(),
         }
     }
 
     /// Consume `p` or report what was expected.
-    pub fn expect_p(&mut self, p: Punct, what: &str) -> PResult<()> {
+    pub fn expect_p(&mut self, p: Punct, what: &str) -> ParseResult<()> {
         if self.eat_p(p) {
             return Ok(());
         }
         let t = self.peek().clone();
-        let d = self.describe(&t.tok);
+        let d = self.describe(&t.kind);
         Err(self.unexpected(t.pos, what, &d))
     }
 
     /// Consume keyword `k` or report.
-    pub fn expect_kw(&mut self, k: Sym) -> PResult<()> {
+    pub fn expect_kw(&mut self, k: Sym) -> ParseResult<()> {
         if self.eat_kw(k) {
             return Ok(());
         }
         let t = self.peek().clone();
-        let d = self.describe(&t.tok);
+        let d = self.describe(&t.kind);
         let want = self.names.name(k).to_string();
         Err(self.unexpected(t.pos, &format!("`{want}`"), &d))
     }
 
     /// An identifier (not a keyword).
-    pub fn ident(&mut self, what: &str) -> PResult<(Sym, Pos)> {
+    pub fn ident(&mut self, what: &str) -> ParseResult<(Sym, Pos)> {
         let t = self.peek().clone();
-        if let Tok::Ident(s) = t.tok {
+        if let TokenKind::Ident(s) = t.kind {
             if !is_keyword(s) {
                 self.bump();
                 return Ok((s, t.pos));
             }
         }
-        let d = self.describe(&t.tok);
+        let d = self.describe(&t.kind);
         Err(self.unexpected(t.pos, what, &d))
     }
 
@@ -225,13 +225,13 @@ impl<'s, 'n> Parser<'s, 'n> {
         if !self.look.is_empty() {
             return None;
         }
-        let p = self.lx.skip_name(self.names)?;
+        let p = self.lexer.skip_name(self.names)?;
         self.taken += 1;
         Some(p)
     }
 
     /// Enter one level of nesting.
-    pub fn enter(&mut self, pos: Pos) -> PResult<()> {
+    pub fn enter(&mut self, pos: Pos) -> ParseResult<()> {
         self.depth += 1;
         if self.depth > MAX_DEPTH {
             self.depth -= 1;
@@ -256,29 +256,29 @@ impl<'s, 'n> Parser<'s, 'n> {
         let mut mods = Vec::new();
         loop {
             let t = self.peek().clone();
-            match t.tok {
-                Tok::Eof => break,
-                Tok::Ident(k) if k == kw::MODULE || k == kw::MACROMODULE => {
+            match t.kind {
+                TokenKind::Eof => break,
+                TokenKind::Ident(k) if k == kw::MODULE || k == kw::MACROMODULE => {
                     self.bump();
                     if let Some(m) = self.module(t.pos) {
                         mods.push(m);
                     }
                 }
-                Tok::Ident(k) if k == kw::PRIMITIVE => {
+                TokenKind::Ident(k) if k == kw::PRIMITIVE => {
                     self.bump();
                     if let Some(m) = self.primitive(t.pos) {
                         mods.push(m);
                     }
                 }
-                Tok::Ident(k) if self.names.name(k) == "package" => self.package(),
-                Tok::Ident(k)
+                TokenKind::Ident(k) if self.names.name(k) == "package" => self.package(),
+                TokenKind::Ident(k)
                     if matches!(self.names.name(k), "typedef" | "import")
                         || k == kw::LOCALPARAM
                         || k == kw::PARAMETER =>
                 {
                     self.unit_item(k)
                 }
-                Tok::Ident(k)
+                TokenKind::Ident(k)
                     if matches!(
                         self.names.name(k),
                         "interface"
@@ -300,10 +300,10 @@ impl<'s, 'n> Parser<'s, 'n> {
                     self.skip_construct(k);
                 }
                 _ => {
-                    let d = self.describe(&t.tok);
+                    let d = self.describe(&t.kind);
                     self.unexpected(t.pos, "`module`", &d);
                     self.bump();
-                    while !matches!(self.peek().tok, Tok::Eof)
+                    while !matches!(self.peek().kind, TokenKind::Eof)
                         && !self.peek_kw(kw::MODULE)
                         && !self.peek_kw(kw::ENDMODULE)
                     {
@@ -313,7 +313,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
             }
         }
-        self.errors.append(&mut self.lx.errors);
+        self.errors.append(&mut self.lexer.errors);
         mods
     }
 
@@ -336,26 +336,26 @@ impl<'s, 'n> Parser<'s, 'n> {
         if self.header(&mut m).is_err() {
             // Skip the rest of the header.
             while !self.peek_p(Punct::Semi)
-                && !matches!(self.peek().tok, Tok::Eof)
+                && !matches!(self.peek().kind, TokenKind::Eof)
                 && !self.peek_kw(kw::ENDMODULE)
             {
                 self.bump();
             }
             self.eat_p(Punct::Semi);
         }
-        m.nettype_none = self.lx.nettype_none;
+        m.nettype_none = self.lexer.nettype_none;
         loop {
             let t = self.peek().clone();
-            match t.tok {
-                Tok::Eof => {
+            match t.kind {
+                TokenKind::Eof => {
                     self.error_of(t.pos, SyntaxKind::MissingEndmodule, "missing `endmodule`");
                     break;
                 }
-                Tok::Ident(k) if k == kw::ENDMODULE => {
+                TokenKind::Ident(k) if k == kw::ENDMODULE => {
                     self.bump();
                     break;
                 }
-                Tok::Ident(k) if k == kw::MODULE || k == kw::MACROMODULE => {
+                TokenKind::Ident(k) if k == kw::MODULE || k == kw::MACROMODULE => {
                     // The next module starts: this one lacks its `endmodule`.
                     self.error_of(
                         t.pos,
@@ -371,7 +371,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         Some(m)
     }
 
-    pub(super) fn header(&mut self, m: &mut Module) -> PResult<()> {
+    pub(super) fn header(&mut self, m: &mut Module) -> ParseResult<()> {
         // `module m import p::*; #(...) (...)` (IEEE 1800-2017 clause 26.4, from memory).
         while self.peek_import() {
             self.import(false)?;
@@ -394,7 +394,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         if self.eat_p(Punct::LParen) {
             if !self.peek_p(Punct::RParen) {
                 let t = self.peek().clone();
-                if matches!(t.tok, Tok::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT)
+                if matches!(t.kind, TokenKind::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT)
                 {
                     self.ansi_ports(m)?;
                 } else {
@@ -415,11 +415,11 @@ impl<'s, 'n> Parser<'s, 'n> {
         self.expect_p(Punct::Semi, "`;` after the module header")
     }
 
-    fn ansi_ports(&mut self, m: &mut Module) -> PResult<()> {
+    fn ansi_ports(&mut self, m: &mut Module) -> ParseResult<()> {
         let mut cur: Option<Decl> = None;
         loop {
             let t = self.peek().clone();
-            let starts_decl = matches!(t.tok, Tok::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT);
+            let starts_decl = matches!(t.kind, TokenKind::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT);
             if starts_decl {
                 if let Some(d) = cur.take() {
                     m.items.push(Item::Decl(Box::new(d)));
@@ -454,7 +454,7 @@ impl<'s, 'n> Parser<'s, 'n> {
 
     /// The event control after `always`: `@*`, `@(*)`, `@(a or b)`, `@(a, b)`,
     /// `@(posedge clk)` (IEEE 1364-2005 clause 9.7).
-    fn event_control(&mut self) -> PResult<Sensitivity> {
+    fn event_control(&mut self) -> ParseResult<Sensitivity> {
         let at = self.peek_pos();
         if !self.eat_p(Punct::At) {
             return Err(self.unsupported(at, "`always` without an event control `@(...)` (only `always @*` or `always @(...)` blocks are read)"));
@@ -493,7 +493,7 @@ impl<'s, 'n> Parser<'s, 'n> {
     /// `for` header of the item (IEEE 1800-2017 clause 12.7.1, from memory) becomes an
     /// `integer` of the module, once per name: the loops are unrolled, so one variable serves
     /// every loop that names it.
-    pub fn item(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+    pub fn item(&mut self, out: &mut Vec<Item>) -> ParseResult<()> {
         let r = self.item_inner(out);
         for pd in self.take_pending() {
             out.push(Item::Param(Box::new(pd)));
@@ -517,11 +517,11 @@ impl<'s, 'n> Parser<'s, 'n> {
         r
     }
 
-    fn item_inner(&mut self, out: &mut Vec<Item>) -> PResult<()> {
+    fn item_inner(&mut self, out: &mut Vec<Item>) -> ParseResult<()> {
         let t = self.peek().clone();
         let pos = t.pos;
-        let k = match t.tok {
-            Tok::Ident(k) => k,
+        let k = match t.kind {
+            TokenKind::Ident(k) => k,
             other => {
                 let d = self.describe(&other);
                 return Err(self.unexpected(pos, "a module item", &d));
@@ -631,7 +631,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         } else if k == kw::GENERATE {
             self.bump();
             while !self.eat_kw(kw::ENDGENERATE) {
-                if matches!(self.peek().tok, Tok::Eof) || self.peek_kw(kw::ENDMODULE) {
+                if matches!(self.peek().kind, TokenKind::Eof) || self.peek_kw(kw::ENDMODULE) {
                     return Err(self.error(pos, "missing `endgenerate`"));
                 }
                 self.item_or_skip(out);

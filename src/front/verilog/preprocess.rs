@@ -96,7 +96,7 @@ struct Cond {
     seen_else: bool,
 }
 
-struct Pre<'o> {
+struct Preprocessor<'o> {
     opts: &'o Options,
     /// Where included files come from.
     store: &'o dyn Files,
@@ -125,7 +125,7 @@ pub fn preprocess<'a>(
     opts: &Options,
     store: &dyn Files,
 ) -> Output<'a> {
-    let mut pre = Pre {
+    let mut pre = Preprocessor {
         opts,
         store,
         files: sources.iter().map(|s| s.0.clone()).collect(),
@@ -184,7 +184,7 @@ pub fn preprocess<'a>(
     }
 }
 
-impl Pre<'_> {
+impl Preprocessor<'_> {
     fn error(&mut self, pos: Pos, msg: impl Into<String>, help: &str) {
         let f = self
             .files

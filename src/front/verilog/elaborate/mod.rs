@@ -6,25 +6,31 @@
 //! Stages: [`flatten`] walks the instance hierarchy from the top module, declaring nets and
 //! parameters scope by scope; it hands expressions to [`expr`] (typing and evaluation to
 //! literals) and `always` blocks to [`stmt`] (statement lowering), which uses [`expr`] in
-//! turn; what they share is in [`context`] and the state below ([`Elaborator`]).
+//! turn. The state is split the same way: [`core::Core`] is what every stage reads and
+//! writes (the graph, nets, drivers, scopes, diagnostics); [`Flattening`], [`Lowering`] and
+//! [`Expressions`] are each stage's own, and a method that needs only its stage's state and
+//! the core is written on that state with the core passed in (`Lowering::coverage`,
+//! `Clocked::check_blocks`, `Flattening::take_defparams`, `Expressions::check_case_eq`).
+//! What an expression is evaluated in is [`context`].
 //!
 //! **Invariant:** leaf `k` of the intermediate AIG is either a bit of a net (`owner[k]`) or
 //! an unknown-value source; each net bit has at most one driver.
 
 mod bits;
-mod case_eq;
 mod context;
+mod core;
 mod expr;
 mod flatten;
 mod resolve;
 mod stmt;
 
-use super::ast::{Dir, Module, NetType};
+use super::ast::Module;
 use super::pos::Pos;
 use super::symbols::{Interner, Sym};
 use crate::aig::{Aig, Lit};
 use crate::design::{CellKind, Design};
-use crate::diag::{Diagnostic, InputError, SourcePos};
+use crate::diag::InputError;
+use core::{Core, Symbol, UNKNOWN_BIT};
 use std::collections::HashMap;
 use std::sync::Arc;
 
@@ -58,81 +64,6 @@ pub struct Value {
     pub signed: bool,
 }
 
-/// A net or variable of the flattened design.
-#[derive(Clone, Debug)]
-pub struct Net {
-    name: Sym,
-    scope: u32,
-    first: u32,
-    width: u32,
-    msb: i64,
-    lsb: i64,
-    signed: bool,
-    vector: bool,
-    ty: NetType,
-    dir: Option<Dir>,
-    pos: Pos,
-}
-
-impl Net {
-    /// Offset (0 = least significant) of declared index `i`, if in range.
-    fn offset(&self, i: i64) -> Option<u32> {
-        let off = if self.msb >= self.lsb {
-            i.saturating_sub(self.lsb)
-        } else {
-            self.lsb.saturating_sub(i)
-        };
-        (0..self.width as i64).contains(&off).then_some(off as u32)
-    }
-
-    /// Declared index of offset `off`.
-    fn index(&self, off: u32) -> i64 {
-        if self.msb >= self.lsb {
-            self.lsb + off as i64
-        } else {
-            self.lsb - off as i64
-        }
-    }
-}
-
-/// What a name means in a scope.
-#[derive(Clone, Debug)]
-enum Symbol {
-    /// A net or variable: its index in `Elaborator::nets`.
-    Net(u32),
-    /// A parameter: its value and declared range (left index, right index).
-    Param(Box<(Value, i64, i64)>),
-    /// A genvar: its value while a generate loop runs, `None` outside one.
-    Genvar(Option<Box<Value>>),
-    /// A function: its index in `Elaborator::funcs`.
-    Func(u32),
-}
-
-/// A name scope: a module instance or a generate block.
-#[derive(Debug)]
-struct Scope {
-    parent: Option<u32>,
-    prefix: String,
-    syms: crate::hash::FastMap<Sym, Symbol>,
-    module: u32,
-}
-
-/// One unknown-value source bit.
-#[derive(Clone, Debug)]
-struct Unknown {
-    pos: Pos,
-    what: String,
-    scope: u32,
-    bit: u32,
-}
-
-/// A net bit's driver.
-#[derive(Copy, Clone, Debug)]
-struct Driver {
-    lit: Lit,
-    pos: Pos,
-}
-
 /// A gate primitive as written (for the netlist); its inputs are
 /// `Elaborator::gate_ins[first..first + count]`.
 #[derive(Clone, Debug)]
@@ -144,38 +75,50 @@ struct GateRecord {
     pos: Pos,
 }
 
-const UNKNOWN_BIT: u32 = 1 << 31;
-
-/// The elaborator's state.
-pub struct Elaborator<'a> {
-    names: &'a Interner,
-    files: &'a [Arc<str>],
+/// Instance flattening's own state (`flatten/`): the parsed modules, the instance path, the
+/// `defparam`s waiting for their instance, and the gate primitives as written (read once more
+/// by [`resolve`] for the netlist view).
+struct Flattening<'a> {
+    /// Modules by name (the first of a name defined twice).
     modules: HashMap<Sym, &'a Module>,
+    /// Modules in the order written.
     module_list: Vec<&'a Module>,
-    aig: Aig,
-    owner: Vec<u32>,
-    unknowns: Vec<Unknown>,
-    nets: Vec<Net>,
-    drivers: Vec<Option<Driver>>,
-    scopes: Vec<Scope>,
+    /// The module names from the top to the instance being flattened (for loops).
+    path: Vec<Sym>,
+    /// Gate primitives as written.
     gates: Vec<GateRecord>,
+    /// Their input literals.
     gate_ins: Vec<Lit>,
-    errors: Vec<Diagnostic>,
-    warnings: Vec<Diagnostic>,
-    quiet: u32,
-    hier: Vec<Sym>,
+    /// `defparam`s waiting for the instance they name (`flatten/defparam.rs`).
+    defparams: Vec<flatten::PendingDefparam>,
+}
+
+/// Statement lowering's own state (`stmt/`).
+#[derive(Default)]
+struct Lowering<'a> {
     /// Decided coverage conditions of `always` blocks, by literal.
     coverage_memo: crate::hash::FastMap<u32, stmt::Coverage>,
     /// Registers of clocked `always` blocks (`stmt/clocked.rs`).
     clocked: stmt::Clocked,
-    /// Each `===`/`!==`: where, and its operand bits (see `case_eq.rs`).
-    case_eq: Vec<(Pos, &'static str, Vec<Lit>)>,
-    /// Functions declared, with the scope they are declared in (`expr/call.rs`).
+    /// Functions declared, with the scope they are declared in (`stmt/call.rs`).
     funcs: Vec<(&'a super::ast::Function, u32)>,
     /// The functions being called, innermost last (recursion is refused).
     calls: Vec<u32>,
-    /// `defparam`s waiting for the instance they name (`flatten/defparam.rs`).
-    defparams: Vec<flatten::PendingDefparam>,
+}
+
+/// The expression stage's own state (`expr/`).
+#[derive(Default)]
+struct Expressions {
+    /// Each `===`/`!==`: where, the operator, and its operand bits (see `expr/case_eq.rs`).
+    case_eq: Vec<(Pos, &'static str, Vec<Lit>)>,
+}
+
+/// The elaborator's state: what the stages share, and each stage's own.
+pub struct Elaborator<'a> {
+    core: Core<'a>,
+    flattening: Flattening<'a>,
+    lowering: Lowering<'a>,
+    expressions: Expressions,
 }
 
 impl<'a> Elaborator<'a> {
@@ -185,28 +128,17 @@ impl<'a> Elaborator<'a> {
             modules.entry(m.name).or_insert(m);
         }
         Elaborator {
-            names,
-            files,
-            modules,
-            module_list: mods.iter().collect(),
-            aig: Aig::new(),
-            owner: Vec::new(),
-            unknowns: Vec::new(),
-            nets: Vec::new(),
-            drivers: Vec::new(),
-            scopes: Vec::new(),
-            gates: Vec::new(),
-            gate_ins: Vec::new(),
-            errors: Vec::new(),
-            warnings: Vec::new(),
-            quiet: 0,
-            hier: Vec::new(),
-            coverage_memo: Default::default(),
-            clocked: Default::default(),
-            case_eq: Vec::new(),
-            funcs: Vec::new(),
-            calls: Vec::new(),
-            defparams: Vec::new(),
+            core: Core::new(names, files),
+            flattening: Flattening {
+                modules,
+                module_list: mods.iter().collect(),
+                path: Vec::new(),
+                gates: Vec::new(),
+                gate_ins: Vec::new(),
+                defparams: Vec::new(),
+            },
+            lowering: Lowering::default(),
+            expressions: Expressions::default(),
         }
     }
 
@@ -214,209 +146,23 @@ impl<'a> Elaborator<'a> {
     /// before the design is built.
     fn detach<'n>(self, names: &'n Interner, files: &'n [Arc<str>]) -> Elaborator<'n> {
         Elaborator {
-            names,
-            files,
-            modules: HashMap::new(),
-            module_list: Vec::new(),
-            aig: self.aig,
-            owner: self.owner,
-            unknowns: self.unknowns,
-            nets: self.nets,
-            drivers: self.drivers,
-            scopes: self.scopes,
-            gates: self.gates,
-            gate_ins: self.gate_ins,
-            errors: self.errors,
-            warnings: self.warnings,
-            quiet: self.quiet,
-            hier: self.hier,
-            coverage_memo: self.coverage_memo,
-            clocked: self.clocked,
-            case_eq: self.case_eq,
-            funcs: Vec::new(),
-            calls: Vec::new(),
-            defparams: self.defparams,
+            core: self.core.rebind(names, files),
+            flattening: Flattening {
+                modules: HashMap::new(),
+                module_list: Vec::new(),
+                path: self.flattening.path,
+                gates: self.flattening.gates,
+                gate_ins: self.flattening.gate_ins,
+                defparams: self.flattening.defparams,
+            },
+            lowering: Lowering {
+                coverage_memo: self.lowering.coverage_memo,
+                clocked: self.lowering.clocked,
+                funcs: Vec::new(),
+                calls: Vec::new(),
+            },
+            expressions: self.expressions,
         }
-    }
-
-    fn source_pos(&self, p: Pos) -> SourcePos {
-        let f = self
-            .files
-            .get(p.file as usize)
-            .cloned()
-            .unwrap_or_else(|| Arc::from("?"));
-        SourcePos::new(&f, p.line, p.col)
-    }
-
-    /// Record an error and what to do about it (unless inside a quiet width computation).
-    fn error(&mut self, p: Pos, msg: impl Into<String>, help: impl Into<String>) {
-        if self.quiet == 0 {
-            let d = Diagnostic::error(Some(self.source_pos(p)), msg).with_help(help);
-            self.errors.push(d);
-        }
-    }
-
-    /// The error for a use of `name`, which no scope up to the module declares.
-    fn error_undeclared(&mut self, p: Pos, name: &str) {
-        if self.quiet == 0 {
-            let d = Diagnostic::error(Some(self.source_pos(p)), format!("undeclared name `{name}`"))
-                .with_help("declare it (`wire`, `reg`, `input`, `output`, `parameter`) before this use, or check the spelling")
-                .of_kind(crate::diag::Kind::UndeclaredName);
-            self.errors.push(d);
-        }
-    }
-
-    fn warn(&mut self, p: Pos, msg: impl Into<String>) {
-        if self.quiet == 0 {
-            let d = Diagnostic::warning(Some(self.source_pos(p)), msg);
-            self.warnings.push(d);
-        }
-    }
-
-    fn name(&self, s: Sym) -> &'a str {
-        let names: &'a Interner = self.names;
-        names.name(s)
-    }
-
-    /// Full hierarchical name of a net.
-    fn net_name(&self, n: u32) -> String {
-        let net = &self.nets[n as usize];
-        format!(
-            "{}{}",
-            self.scopes[net.scope as usize].prefix,
-            self.name(net.name)
-        )
-    }
-
-    /// Name of one bit of a net (`w` or `w[3]`).
-    fn bit_name(&self, n: u32, off: u32) -> String {
-        let net = &self.nets[n as usize];
-        let idx = net.vector.then(|| net.index(off));
-        crate::design::bit_name(&self.net_name(n), idx)
-    }
-
-    /// Name of a leaf for messages.
-    fn leaf_name(&self, leaf: u32) -> String {
-        let o = self.owner[leaf as usize];
-        if o & UNKNOWN_BIT != 0 {
-            return "an unknown value".into();
-        }
-        let off = leaf - self.nets[o as usize].first;
-        self.bit_name(o, off)
-    }
-
-    fn new_scope(&mut self, parent: Option<u32>, prefix: String, module: u32) -> u32 {
-        self.scopes.push(Scope {
-            parent,
-            prefix,
-            syms: Default::default(),
-            module,
-        });
-        (self.scopes.len() - 1) as u32
-    }
-
-    /// Look a name up through the enclosing scopes of one module instance.
-    fn lookup(&self, mut scope: u32, s: Sym) -> Option<&Symbol> {
-        loop {
-            let entry = &self.scopes[scope as usize];
-            if let Some(sym) = entry.syms.get(&s) {
-                return Some(sym);
-            }
-            scope = entry.parent?;
-        }
-    }
-
-    /// Room for `nets` more one-bit nets in scope `scope` and `gates` more gate primitives.
-    fn reserve(&mut self, scope: u32, nets: usize, gates: usize) {
-        self.nets.reserve(nets);
-        self.owner.reserve(nets);
-        self.drivers.reserve(nets);
-        self.scopes[scope as usize].syms.reserve(nets);
-        self.gates.reserve(gates);
-        self.gate_ins.reserve(2 * gates);
-    }
-
-    /// Create a net with fresh leaves.
-    #[allow(clippy::too_many_arguments)]
-    fn add_net(
-        &mut self,
-        scope: u32,
-        name: Sym,
-        msb: i64,
-        lsb: i64,
-        vector: bool,
-        signed: bool,
-        ty: NetType,
-        dir: Option<Dir>,
-        pos: Pos,
-    ) -> u32 {
-        let width = (msb - lsb).unsigned_abs() as u32 + 1;
-        let id = self.nets.len() as u32;
-        let first = self.aig.num_inputs() as u32;
-        for _ in 0..width {
-            self.aig.add_input();
-            self.owner.push(id);
-            self.drivers.push(None);
-        }
-        self.nets.push(Net {
-            name,
-            scope,
-            first,
-            width,
-            msb,
-            lsb,
-            signed,
-            vector,
-            ty,
-            dir,
-            pos,
-        });
-        self.scopes[scope as usize]
-            .syms
-            .insert(name, Symbol::Net(id));
-        id
-    }
-
-    /// Literals of a net's bits (its leaves).
-    fn net_bits(&self, n: u32) -> Vec<Lit> {
-        let net = &self.nets[n as usize];
-        (0..net.width)
-            .map(|k| self.aig.input_lit((net.first + k) as usize))
-            .collect()
-    }
-
-    /// Fresh unknown-value bits.
-    fn unknown_bits(&mut self, n: usize, pos: Pos, what: &str, scope: u32) -> Vec<Lit> {
-        (0..n)
-            .map(|k| {
-                let l = self.aig.add_input();
-                self.owner.push(UNKNOWN_BIT | self.unknowns.len() as u32);
-                self.drivers.push(None);
-                self.unknowns.push(Unknown {
-                    pos,
-                    what: what.to_string(),
-                    scope,
-                    bit: k as u32,
-                });
-                l
-            })
-            .collect()
-    }
-
-    /// Drive bit `off` of net `n` with `lit`.
-    fn drive(&mut self, n: u32, off: u32, lit: Lit, pos: Pos) {
-        let leaf = (self.nets[n as usize].first + off) as usize;
-        if let Some(d) = self.drivers[leaf] {
-            let first = self.source_pos(d.pos);
-            let bn = self.bit_name(n, off);
-            self.error(
-                pos,
-                format!("multiple drivers: `{bn}` is already driven at {first}"),
-                "drive each net bit from exactly one assignment, gate, port or always block",
-            );
-            return;
-        }
-        self.drivers[leaf] = Some(Driver { lit, pos });
     }
 }
 
@@ -431,15 +177,15 @@ pub fn elaborate(
 ) -> Result<Design, InputError> {
     let mut e = Elaborator::new(names, files, &mods);
     if keep_written {
-        e.aig = Aig::as_written();
+        e.core.aig = Aig::as_written();
     }
     // Duplicate module names.
     let mut seen: HashMap<Sym, Pos> = HashMap::new();
     for m in &mods {
         if let Some(&p) = seen.get(&m.name) {
-            let sp = e.source_pos(p);
-            let n = e.name(m.name).to_string();
-            e.error(
+            let sp = e.core.source_pos(p);
+            let n = e.core.name(m.name).to_string();
+            e.core.error(
                 m.pos,
                 format!("module `{n}` is defined twice (first at {sp})"),
                 "rename one of the modules, or give the file that defines it only once",
@@ -452,29 +198,29 @@ pub fn elaborate(
         Some(m) => m,
         None => {
             return Err(InputError {
-                diagnostics: e.errors,
+                diagnostics: e.core.errors,
             })
         }
     };
     let scope = flatten::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
-    e.check_clocked_blocks();
+    e.lowering.clocked.check_blocks(&mut e.core);
     // The syntax tree is no longer needed: free it before the design is built.
     let (top_name, top_ports, top_pos) = (top_mod.name, top_mod.ports.clone(), top_mod.pos);
     let mut e = e.detach(names, files);
     drop(mods);
-    e.check_case_eq();
+    e.expressions.check_case_eq(&mut e.core);
     let design = resolve::build(&mut e, top_name, &top_ports, scope);
-    if e.errors.is_empty() && design.outputs.is_empty() {
-        let n = e.name(top_name);
-        e.error(
+    if e.core.errors.is_empty() && design.outputs.is_empty() {
+        let n = e.core.name(top_name);
+        e.core.error(
             top_pos,
             format!("top module `{n}` has no output ports: nothing to check"),
             "give the top module at least one `output` port (equicone compares outputs), or choose another top module",
         );
     }
-    if !e.errors.is_empty() {
+    if !e.core.errors.is_empty() {
         return Err(InputError {
-            diagnostics: e.errors,
+            diagnostics: e.core.errors,
         });
     }
     Ok(design)

@@ -45,7 +45,7 @@ impl Elaborator<'_> {
                 stack.pop();
                 continue;
             }
-            match self.aig.node(n) {
+            match self.core.aig.node(n) {
                 Node::Const => {
                     r.memo[ni] = Lit::FALSE.raw();
                     stack.pop();
@@ -70,7 +70,7 @@ impl Elaborator<'_> {
                     }
                 }
                 Node::Input(k) => {
-                    let o = self.owner[k as usize];
+                    let o = self.core.owner[k as usize];
                     if o & UNKNOWN_BIT != 0 {
                         let lit = self.new_unknown(r, (o & !UNKNOWN_BIT) as usize);
                         r.memo[ni] = lit.raw();
@@ -78,10 +78,10 @@ impl Elaborator<'_> {
                     } else if let Some(&p) = r.primary.get(&k) {
                         r.memo[ni] = p.raw();
                         stack.pop();
-                    } else if let Some(p) = self.lazy_register(r, k) {
+                    } else if let Some(p) = self.lowering.clocked.lazy_register(&self.core, r, k) {
                         r.memo[ni] = p.raw();
                         stack.pop();
-                    } else if let Some(d) = self.drivers[k as usize] {
+                    } else if let Some(d) = self.core.drivers[k as usize] {
                         if !r.busy[ni] {
                             r.busy[ni] = true;
                             let c = d.lit.index();
@@ -114,14 +114,14 @@ impl Elaborator<'_> {
         let mut names = Vec::new();
         let mut pos = None;
         for &n in &stack[start..] {
-            if let Node::Input(k) = self.aig.node(n) {
-                if r.busy[n as usize] && self.owner[k as usize] & UNKNOWN_BIT == 0 {
-                    let nm = self.leaf_name(k);
+            if let Node::Input(k) = self.core.aig.node(n) {
+                if r.busy[n as usize] && self.core.owner[k as usize] & UNKNOWN_BIT == 0 {
+                    let nm = self.core.leaf_name(k);
                     if !names.contains(&nm) {
                         names.push(nm);
                     }
                     if pos.is_none() {
-                        pos = self.drivers[k as usize].map(|d| d.pos);
+                        pos = self.core.drivers[k as usize].map(|d| d.pos);
                     }
                 }
             }
@@ -133,8 +133,10 @@ impl Elaborator<'_> {
         };
         let msg = format!("combinational loop through {shown}");
         match pos {
-            Some(p) => self.error(p, msg, "break the loop: a net must not depend on itself"),
-            None => self.errors.push(
+            Some(p) => self
+                .core
+                .error(p, msg, "break the loop: a net must not depend on itself"),
+            None => self.core.errors.push(
                 crate::diag::Diagnostic::error(None, msg)
                     .with_help("break the loop: a net must not depend on itself"),
             ),
@@ -142,9 +144,9 @@ impl Elaborator<'_> {
     }
 
     fn new_unknown(&mut self, r: &mut Resolver, u: usize) -> Lit {
-        let info = self.unknowns[u].clone();
-        let sp = self.source_pos(info.pos);
-        let prefix = &self.scopes[info.scope as usize].prefix;
+        let info = self.core.unknowns[u].clone();
+        let sp = self.core.source_pos(info.pos);
+        let prefix = &self.core.scopes[info.scope as usize].prefix;
         let mut port = format!("{prefix}x@{}:{}:{}", sp.file, sp.line, sp.col);
         let mut k = 1;
         while r
@@ -174,7 +176,7 @@ impl Elaborator<'_> {
 /// Build the design of top module `m` (elaborated in scope `scope`).
 pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> Design {
     let mut r = Resolver {
-        design_aig: if e.aig.is_written() {
+        design_aig: if e.core.aig.is_written() {
             Aig::as_written()
         } else {
             Aig::new()
@@ -188,11 +190,11 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
     };
     let mut outs: Vec<u32> = Vec::new();
     for (ps, ppos) in ports {
-        let n = match e.scopes[scope as usize].syms.get(ps) {
+        let n = match e.core.scopes[scope as usize].syms.get(ps) {
             Some(Symbol::Net(n)) => *n,
             _ => {
-                let pn = e.name(*ps);
-                e.error(
+                let pn = e.core.name(*ps);
+                e.core.error(
                     *ppos,
                     format!("port `{pn}` has no declaration"),
                     "declare the port `input` or `output` inside the module",
@@ -200,14 +202,14 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
                 continue;
             }
         };
-        let net = e.nets[n as usize].clone();
+        let net = e.core.nets[n as usize].clone();
         match net.dir {
             Some(Dir::Input) => {
                 for off in 0..net.width {
                     let leaf = net.first + off;
-                    if let Some(d) = e.drivers[leaf as usize] {
-                        let pn = e.net_name(n);
-                        e.error(
+                    if let Some(d) = e.core.drivers[leaf as usize] {
+                        let pn = e.core.net_name(n);
+                        e.core.error(
                             d.pos,
                             format!("input port `{pn}` is driven inside the module"),
                             "drive an internal wire instead; an input port gets its value from outside"
@@ -216,16 +218,16 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
                     let lit = r.design_aig.add_input();
                     r.primary.insert(leaf, lit);
                     let idx = net.vector.then(|| net.index(off));
-                    let pn = e.net_name(n);
+                    let pn = e.core.net_name(n);
                     r.used_names.insert(bit_name(&pn, idx));
                     r.inputs
-                        .push(InputBit::port(&pn, idx, Some(e.source_pos(net.pos))));
+                        .push(InputBit::port(&pn, idx, Some(e.core.source_pos(net.pos))));
                 }
             }
             Some(Dir::Output) => outs.push(n),
             None => {
-                let pn = e.name(*ps);
-                e.error(
+                let pn = e.core.name(*ps);
+                e.core.error(
                     *ppos,
                     format!("port `{pn}` has no `input` or `output` declaration"),
                     "declare the port `input` or `output` inside the module",
@@ -233,29 +235,34 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
             }
         }
     }
-    r.memo = vec![NONE; e.aig.len()];
-    r.busy = vec![false; e.aig.len()];
-    e.registers_begin(&mut r);
+    r.memo = vec![NONE; e.core.aig.len()];
+    r.busy = vec![false; e.core.aig.len()];
+    e.lowering.clocked.registers_begin(&mut e.core, &mut r);
     let mut outputs = Vec::new();
     for n in outs {
-        let net = e.nets[n as usize].clone();
-        let pn = e.net_name(n);
+        let net = e.core.nets[n as usize].clone();
+        let pn = e.core.net_name(n);
         let mut undriven = false;
         for off in 0..net.width {
             let leaf = net.first + off;
-            if e.drivers[leaf as usize].is_none()
+            if e.core.drivers[leaf as usize].is_none()
                 && !r.primary.contains_key(&leaf)
-                && !e.is_register_leaf(leaf)
+                && !e.lowering.clocked.is_register_leaf(leaf)
             {
                 undriven = true;
             }
-            let root = e.aig.input_lit(leaf as usize);
+            let root = e.core.aig.input_lit(leaf as usize);
             let lit = e.resolve(&mut r, root);
             let idx = net.vector.then(|| net.index(off));
-            outputs.push(OutputBit::new(&pn, idx, lit, Some(e.source_pos(net.pos))));
+            outputs.push(OutputBit::new(
+                &pn,
+                idx,
+                lit,
+                Some(e.core.source_pos(net.pos)),
+            ));
         }
         if undriven {
-            e.error(
+            e.core.error(
                 net.pos,
                 format!("output `{pn}` is not driven (some or all of its bits)"),
                 "assign every bit of the output",
@@ -264,17 +271,17 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
         }
     }
     for n in std::mem::take(&mut r.undriven) {
-        let net = &e.nets[n as usize];
-        let nm = e.net_name(n);
+        let net = &e.core.nets[n as usize];
+        let nm = e.core.net_name(n);
         let (pos, inport) = (net.pos, net.dir == Some(Dir::Input) && net.scope != scope);
         if inport {
-            e.error(
+            e.core.error(
                 pos,
                 format!("input port `{nm}` is not connected but its value is used"),
                 "connect the port in the instance",
             );
         } else {
-            e.error(
+            e.core.error(
                 pos,
                 format!("`{nm}` is used but never driven (some or all of its bits)"),
                 "assign it, or connect it to a driver",
@@ -291,7 +298,7 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
     } else {
         net_names(e, &r)
     };
-    let name = e.name(top).to_string();
+    let name = e.core.name(top).to_string();
     let d = Design {
         name,
         format: Format::Verilog,
@@ -299,11 +306,11 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
         inputs: r.inputs,
         outputs,
         netlist: Some(netlist),
-        warnings: std::mem::take(&mut e.warnings),
+        warnings: std::mem::take(&mut e.core.warnings),
         registers,
         net_names,
     };
-    if e.errors.is_empty() {
+    if e.core.errors.is_empty() {
         d.debug_check();
     }
     d
@@ -315,10 +322,10 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
 fn net_names(e: &Elaborator, r: &Resolver) -> BTreeMap<u32, Vec<String>> {
     let mut plain: BTreeMap<u32, Vec<String>> = BTreeMap::new();
     let mut inverted: BTreeMap<u32, Vec<String>> = BTreeMap::new();
-    for (n, net) in e.nets.iter().enumerate() {
+    for (n, net) in e.core.nets.iter().enumerate() {
         for off in 0..net.width {
             let leaf = (net.first + off) as usize;
-            let m = r.memo.get(e.aig.input_lit(leaf).index()).copied();
+            let m = r.memo.get(e.core.aig.input_lit(leaf).index()).copied();
             let Some(m) = m.filter(|&m| m != NONE) else {
                 continue;
             };
@@ -333,7 +340,7 @@ fn net_names(e: &Elaborator, r: &Resolver) -> BTreeMap<u32, Vec<String>> {
             };
             let names = to.entry(lit.node()).or_default();
             if names.len() < NAMES_PER_NODE {
-                names.push(e.bit_name(n as u32, off));
+                names.push(e.core.bit_name(n as u32, off));
             }
         }
     }
@@ -354,8 +361,8 @@ const NAMES_PER_NODE: usize = 3;
 fn outputs_leaves(e: &Elaborator, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> {
     let mut v = Vec::new();
     for (ps, _) in ports {
-        if let Some(Symbol::Net(n)) = e.scopes[scope as usize].syms.get(ps) {
-            let net = &e.nets[*n as usize];
+        if let Some(Symbol::Net(n)) = e.core.scopes[scope as usize].syms.get(ps) {
+            let net = &e.core.nets[*n as usize];
             if net.dir == Some(Dir::Output) {
                 v.extend(net.first..net.first + net.width);
             }
@@ -367,17 +374,17 @@ fn outputs_leaves(e: &Elaborator, ports: &[(Sym, Pos)], scope: u32) -> Vec<u32> 
 /// The gate-level netlist: one signal per net bit after merging plain connections
 /// (port connections, `assign a = b;`).
 fn netlist(e: &Elaborator, r: &Resolver, outs: &[u32]) -> Netlist {
-    let nleaves = e.owner.len();
+    let nleaves = e.core.owner.len();
     let mut gate_out = vec![false; nleaves];
-    for gr in &e.gates {
+    for gr in &e.flattening.gates {
         gate_out[gr.out as usize] = true;
     }
     let as_leaf = |l: Lit| -> Option<u32> {
         if l.is_complemented() {
             return None;
         }
-        match e.aig.node(l.node()) {
-            Node::Input(k) if e.owner[k as usize] & UNKNOWN_BIT == 0 => Some(k),
+        match e.core.aig.node(l.node()) {
+            Node::Input(k) if e.core.owner[k as usize] & UNKNOWN_BIT == 0 => Some(k),
             _ => None,
         }
     };
@@ -398,7 +405,7 @@ fn netlist(e: &Elaborator, r: &Resolver, outs: &[u32]) -> Netlist {
             path.push(cur);
             // Marks the leaf as on the current path: a loop ends the walk there.
             rep_of[cur as usize] = cur;
-            match e.drivers[cur as usize].and_then(|d| as_leaf(d.lit)) {
+            match e.core.drivers[cur as usize].and_then(|d| as_leaf(d.lit)) {
                 Some(next) => cur = next,
                 _ => break cur,
             }
@@ -411,11 +418,11 @@ fn netlist(e: &Elaborator, r: &Resolver, outs: &[u32]) -> Netlist {
     let mut complete = r.inputs.iter().all(|b| !b.is_unknown());
     let mut sig: Vec<u32> = vec![NONE; nleaves];
     let mut nl = Netlist::default();
-    nl.cells.reserve(e.gates.len());
+    nl.cells.reserve(e.flattening.gates.len());
     let mut signal = |k: u32, nl: &mut Netlist| -> u32 {
         let k = rep(k) as usize;
         if sig[k] == NONE {
-            nl.signals.push(e.leaf_name(k as u32));
+            nl.signals.push(e.core.leaf_name(k as u32));
             sig[k] = (nl.signals.len() - 1) as u32;
         }
         sig[k]
@@ -428,8 +435,8 @@ fn netlist(e: &Elaborator, r: &Resolver, outs: &[u32]) -> Netlist {
         let s = signal(k, &mut nl);
         nl.outputs.push(s);
     }
-    for gr in &e.gates {
-        let ins = &e.gate_ins[gr.first as usize..(gr.first + gr.count) as usize];
+    for gr in &e.flattening.gates {
+        let ins = &e.flattening.gate_ins[gr.first as usize..(gr.first + gr.count) as usize];
         let ins: Option<Vec<u32>> = ins.iter().map(|&l| as_leaf(l)).collect();
         match ins {
             Some(ins) => {
@@ -439,16 +446,16 @@ fn netlist(e: &Elaborator, r: &Resolver, outs: &[u32]) -> Netlist {
                     kind: gr.kind,
                     inputs,
                     output,
-                    pos: Some(e.source_pos(gr.pos)),
+                    pos: Some(e.core.source_pos(gr.pos)),
                 });
             }
             None => complete = false,
         }
     }
     // Every reached net bit must be a port input, a gate output or a plain connection.
-    for (k, d) in e.drivers.iter().enumerate() {
-        let node = e.aig.input_lit(k).index();
-        if r.memo[node] == NONE || e.owner[k] & UNKNOWN_BIT != 0 {
+    for (k, d) in e.core.drivers.iter().enumerate() {
+        let node = e.core.aig.input_lit(k).index();
+        if r.memo[node] == NONE || e.core.owner[k] & UNKNOWN_BIT != 0 {
             continue;
         }
         if let Some(d) = d {

@@ -4,7 +4,7 @@
 //! memory) and expanding the result again, with a guard against recursion.
 
 use super::text::{Cursor, Mapped};
-use super::{Pre, MAX_DEPTH, MAX_EXPANSION};
+use super::{Preprocessor, MAX_DEPTH, MAX_EXPANSION};
 use crate::front::verilog::pos::Pos;
 
 /// One defined macro.
@@ -28,7 +28,7 @@ impl Macro {
     }
 }
 
-impl Pre<'_> {
+impl Preprocessor<'_> {
     /// After `` `define ``: read the name, formals and body, up to the end of the line.
     pub(super) fn define(&mut self, cur: &mut Cursor, p: Pos) {
         cur.skip_blanks();

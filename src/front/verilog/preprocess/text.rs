@@ -81,7 +81,7 @@ pub struct Cursor<'t> {
     marks: &'t [Mark],
     /// Offset of the current byte.
     pub i: usize,
-    mark_k: usize,
+    mark_index: usize,
     /// Position of the current byte.
     pub pos: Pos,
     /// A mark was crossed since the last [`Cursor::take_jump`].
@@ -95,7 +95,7 @@ impl<'t> Cursor<'t> {
             text,
             marks,
             i: 0,
-            mark_k: 0,
+            mark_index: 0,
             pos: Pos {
                 file: 0,
                 line: 1,
@@ -108,7 +108,7 @@ impl<'t> Cursor<'t> {
     }
 
     fn apply(&mut self) {
-        while let Some(m) = self.marks.get(self.mark_k) {
+        while let Some(m) = self.marks.get(self.mark_index) {
             if m.off > self.i {
                 break;
             }
@@ -116,7 +116,7 @@ impl<'t> Cursor<'t> {
                 self.pos = m.pos;
                 self.jumped = true;
             }
-            self.mark_k += 1;
+            self.mark_index += 1;
         }
     }
 

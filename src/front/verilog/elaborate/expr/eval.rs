@@ -26,13 +26,13 @@ impl Elaborator<'_> {
     pub(crate) fn const_val(&mut self, scope: u32, e: &Expr) -> Option<Value> {
         let ctx = EvalContext::constant(scope);
         let t = self.expr_type(&ctx, e);
-        let before = self.errors.len();
+        let before = self.core.errors.len();
         let bits = self.eval(&ctx, e, t.width, t.signed);
-        if self.errors.len() > before {
+        if self.core.errors.len() > before {
             return None;
         }
         if !bits::is_const(&bits) {
-            self.error(
+            self.core.error(
                 e.pos(),
                 "expression is not constant (x/z bits or non-constant operands)",
                 "use only numbers, parameters, genvars and `$clog2` here",
@@ -50,7 +50,7 @@ impl Elaborator<'_> {
         let v = self.const_val(scope, e)?;
         let r = bits::to_i64(&v.bits, v.signed);
         if r.is_none() {
-            self.error(
+            self.core.error(
                 e.pos(),
                 "constant does not fit in 64 bits",
                 "use a smaller value (constants that index, size or count must fit in 64 bits)",
@@ -71,25 +71,25 @@ impl Elaborator<'_> {
     /// Evaluate `e` as a condition: true when any bit is 1.
     pub(crate) fn eval_bool(&mut self, ctx: &EvalContext, e: &Expr) -> Lit {
         let v = self.eval_self(ctx, e);
-        self.aig.or_all(&v.bits)
+        self.core.aig.or_all(&v.bits)
     }
 
     /// Value and range of a name.
     pub(crate) fn operand(&mut self, ctx: &EvalContext, sym: Sym, pos: Pos) -> Option<Operand> {
-        match self.lookup(ctx.scope, sym).cloned() {
+        match self.core.lookup(ctx.scope, sym).cloned() {
             Some(Symbol::Net(n)) => {
                 if ctx.constant {
-                    let nm = self.name(sym);
-                    self.error(
+                    let nm = self.core.name(sym);
+                    self.core.error(
                         pos,
                         format!("`{nm}` is not a constant (only parameters and genvars may appear here)"),
                         "use a `parameter` or `localparam` here, or a literal number",
                     );
                     return None;
                 }
-                let net = &self.nets[n as usize];
+                let net = &self.core.nets[n as usize];
                 let (msb, lsb, signed) = (net.msb, net.lsb, net.signed);
-                let mut b = self.net_bits(n);
+                let mut b = self.core.net_bits(n);
                 if let Some(env) = ctx.env {
                     env.overlay(n, &mut b);
                 }
@@ -109,8 +109,8 @@ impl Elaborator<'_> {
                 lsb: 0,
             }),
             Some(Symbol::Func(_)) => {
-                let nm = self.name(sym);
-                self.error(
+                let nm = self.core.name(sym);
+                self.core.error(
                     pos,
                     format!("function `{nm}` is used without its arguments"),
                     "call it with its arguments, e.g. `f(a, b)`",
@@ -118,8 +118,8 @@ impl Elaborator<'_> {
                 None
             }
             Some(Symbol::Genvar(None)) => {
-                let nm = self.name(sym);
-                self.error(
+                let nm = self.core.name(sym);
+                self.core.error(
                     pos,
                     format!("genvar `{nm}` used outside its generate loop"),
                     "use a genvar only inside the generate `for` loop that it counts",
@@ -127,8 +127,8 @@ impl Elaborator<'_> {
                 None
             }
             None => {
-                let nm = self.name(sym);
-                self.error_undeclared(pos, nm);
+                let nm = self.core.name(sym);
+                self.core.error_undeclared(pos, nm);
                 None
             }
         }
@@ -146,7 +146,7 @@ impl Elaborator<'_> {
         let width = width.min(MAX_WIDTH);
         let v = self.eval_inner(ctx, e, width, signed);
         debug_assert!(
-            v.len() == width || self.quiet > 0 || !self.errors.is_empty(),
+            v.len() == width || self.core.quiet > 0 || !self.core.errors.is_empty(),
             "width {} != {width}",
             v.len()
         );
@@ -173,7 +173,7 @@ impl Elaborator<'_> {
         }
         if unknown > 0 {
             if ctx.constant {
-                self.error(
+                self.core.error(
                     pos,
                     format!("x/z bits in a constant expression (`{}`)", n.text),
                     "use 0/1 digits in constants; `x` and `z` are allowed only in logic",
@@ -181,7 +181,7 @@ impl Elaborator<'_> {
                 return out;
             }
             let what = format!("x/z literal {}", n.text);
-            let u = self.unknown_bits(unknown, pos, &what, ctx.scope);
+            let u = self.core.unknown_bits(unknown, pos, &what, ctx.scope);
             let mut k = 0;
             for (i, &b) in n.bits.iter().enumerate() {
                 if b != B0 && b != B1 {
@@ -220,12 +220,12 @@ impl Elaborator<'_> {
                 UnOp::Plus => self.eval(ctx, a, width, signed),
                 UnOp::Neg => {
                     let v = self.eval(ctx, a, width, signed);
-                    bits::neg(&mut self.aig, &v)
+                    bits::neg(&mut self.core.aig, &v)
                 }
                 UnOp::Not => bits::not(&self.eval(ctx, a, width, signed)),
                 _ => {
                     let v = self.eval_self(ctx, a);
-                    let g = &mut self.aig;
+                    let g = &mut self.core.aig;
                     let r = match op {
                         UnOp::LogNot => !g.or_all(&v.bits),
                         UnOp::RedAnd => g.and_all(&v.bits),
@@ -251,7 +251,7 @@ impl Elaborator<'_> {
                 let f = self.eval(ctx, &b[2], width, signed);
                 t.iter()
                     .zip(&f)
-                    .map(|(&x, &y)| self.aig.mux(c, x, y))
+                    .map(|(&x, &y)| self.core.aig.mux(c, x, y))
                     .collect()
             }
             Expr::Concat(items, _) => {
@@ -262,7 +262,7 @@ impl Elaborator<'_> {
                 let count = match self.const_int(ctx.scope, n) {
                     Some(c) if c >= 0 => c as usize,
                     Some(_) => {
-                        self.error(
+                        self.core.error(
                             *pos,
                             "negative replication count",
                             "give the replication a count of 0 or more, e.g. `{4{a}}`",
@@ -273,7 +273,7 @@ impl Elaborator<'_> {
                 };
                 let inner = self.concat(ctx, items);
                 if count.saturating_mul(inner.len()) > MAX_WIDTH {
-                    self.error(
+                    self.core.error(
                         *pos,
                         "replication wider than 65536 bits",
                         "equicone reads values of at most 65536 bits; replicate fewer times",
@@ -287,7 +287,7 @@ impl Elaborator<'_> {
                 extend(v, width, false)
             }
             Expr::Call(f, pos, args) => {
-                let name = self.name(*f);
+                let name = self.core.name(*f);
                 match name {
                     _ if !name.starts_with('$') => match self.call_function(ctx, *f, *pos, args) {
                         Some(v) => extend(v.bits, width, signed),
@@ -301,9 +301,9 @@ impl Elaborator<'_> {
                         // IEEE 1800-2017 clause 20.6.2 (from memory): the argument's
                         // self-determined width, a constant; the argument is not evaluated.
                         if let Expr::Ident(n, p) = &args[0] {
-                            if self.lookup(ctx.scope, *n).is_none() {
-                                let nm = self.name(*n);
-                                self.error(
+                            if self.core.lookup(ctx.scope, *n).is_none() {
+                                let nm = self.core.name(*n);
+                                self.core.error(
                                     *p,
                                     format!("undeclared name `{nm}` in `$bits`"),
                                     "declare it before this use, or name a type declared with `typedef`",
@@ -334,7 +334,7 @@ impl Elaborator<'_> {
             let b = self.eval_self(ctx, it);
             v.extend_from_slice(&b.bits);
             if v.len() > MAX_WIDTH {
-                self.error(
+                self.core.error(
                     it.pos(),
                     "concatenation wider than 65536 bits",
                     "equicone reads values of at most 65536 bits; split the concatenation",
@@ -382,7 +382,7 @@ impl Elaborator<'_> {
                             },
                         ),
                     };
-                    acc = bits::shift(&mut self.aig, &acc, &amt, left, fill);
+                    acc = bits::shift(&mut self.core.aig, &acc, &amt, left, fill);
                 }
                 acc
             }
@@ -399,7 +399,8 @@ impl Elaborator<'_> {
                     let a = self.eval(ctx, first, t.width, t.signed);
                     let b = self.eval(ctx, e, t.width, t.signed);
                     if matches!(op, BinOp::CaseEq | BinOp::CaseNe) {
-                        self.note_case_eq(*op_pos, op.text(), &a, &b);
+                        self.expressions
+                            .note_case_eq(&self.core, *op_pos, op.text(), &a, &b);
                     }
                     self.compare(*op, &a, &b, t.signed)
                 };
@@ -409,7 +410,8 @@ impl Elaborator<'_> {
                     let a = extend(vec![r], cw, false);
                     let b = self.eval(ctx, e, cw, false);
                     if matches!(op, BinOp::CaseEq | BinOp::CaseNe) {
-                        self.note_case_eq(*op_pos, op.text(), &a, &b);
+                        self.expressions
+                            .note_case_eq(&self.core, *op_pos, op.text(), &a, &b);
                     }
                     r = self.compare(*op, &a, &b, false);
                 }
@@ -420,9 +422,9 @@ impl Elaborator<'_> {
                 for (op, _, e) in rest {
                     let b = self.eval_bool(ctx, e);
                     acc = if *op == BinOp::LogAnd {
-                        self.aig.and(acc, b)
+                        self.core.aig.and(acc, b)
                     } else {
-                        self.aig.or(acc, b)
+                        self.core.aig.or(acc, b)
                     };
                 }
                 extend(vec![acc], width, false)
@@ -433,7 +435,7 @@ impl Elaborator<'_> {
                     let b = self.eval(ctx, e, width, signed);
                     if *op == BinOp::Mul && acc.len() > MAX_MUL_WIDTH {
                         // An array multiplier of w bits has about w * w / 2 gates.
-                        self.error(
+                        self.core.error(
                             *pos,
                             format!(
                                 "unsupported: multiplication {} bits wide (at most {} bits)",
@@ -445,7 +447,7 @@ impl Elaborator<'_> {
                         acc = vec![Lit::FALSE; acc.len()];
                         continue;
                     }
-                    let g = &mut self.aig;
+                    let g = &mut self.core.aig;
                     acc = match op {
                         BinOp::Add => bits::add(g, &acc, &b, Lit::FALSE),
                         BinOp::Sub => bits::sub(g, &acc, &b),
@@ -463,7 +465,7 @@ impl Elaborator<'_> {
     }
 
     fn compare(&mut self, op: BinOp, a: &[Lit], b: &[Lit], signed: bool) -> Lit {
-        let g = &mut self.aig;
+        let g = &mut self.core.aig;
         let lt = |g: &mut Aig, x: &[Lit], y: &[Lit]| {
             if signed {
                 bits::slt(g, x, y)
@@ -497,7 +499,9 @@ impl Elaborator<'_> {
         if let (Some(x), Some(y)) = (bits::to_i64(a, signed), bits::to_i64(b, signed)) {
             if width <= 63 || signed {
                 if y == 0 {
-                    return self.unknown_bits(width, pos, "division by zero", ctx.scope);
+                    return self
+                        .core
+                        .unknown_bits(width, pos, "division by zero", ctx.scope);
                 }
                 let r = if op == BinOp::Div {
                     x.wrapping_div(y)
@@ -508,10 +512,12 @@ impl Elaborator<'_> {
             }
         }
         if b.iter().all(|&l| l == Lit::FALSE) {
-            return self.unknown_bits(width, pos, "division by zero", ctx.scope);
+            return self
+                .core
+                .unknown_bits(width, pos, "division by zero", ctx.scope);
         }
         if width > MAX_DIV_WIDTH {
-            self.error(
+            self.core.error(
                 pos,
                 format!(
                     "unsupported: `{}` {width} bits wide (at most {} bits)",
@@ -522,16 +528,18 @@ impl Elaborator<'_> {
             );
             return vec![Lit::FALSE; width];
         }
-        let r = super::divide::divmod(&mut self.aig, a, b, signed, op == BinOp::Mod);
+        let r = super::divide::divmod(&mut self.core.aig, a, b, signed, op == BinOp::Mod);
         if bits::is_const(b) {
             return r;
         }
         // A divisor that can be zero: x there (clause 5.1.5), an unknown input.
-        let zero = !self.aig.or_all(b);
-        let u = self.unknown_bits(width, pos, "division by zero", ctx.scope);
+        let zero = !self.core.aig.or_all(b);
+        let u = self
+            .core
+            .unknown_bits(width, pos, "division by zero", ctx.scope);
         r.iter()
             .zip(&u)
-            .map(|(&v, &x)| self.aig.mux(zero, x, v))
+            .map(|(&v, &x)| self.core.aig.mux(zero, x, v))
             .collect()
     }
 
@@ -549,7 +557,7 @@ impl Elaborator<'_> {
         let width = base.len();
         let exp_value = self.eval_self(ctx, exponent);
         let Some(n) = bits::to_i64(&exp_value.bits, exp_value.signed) else {
-            self.error(
+            self.core.error(
                 pos,
                 "unsupported: `**` with an exponent that is not constant",
                 "give the exponent as a constant or parameter, or write the product out",
@@ -558,7 +566,7 @@ impl Elaborator<'_> {
         };
         if n >= 0 {
             if width > MAX_MUL_WIDTH {
-                self.error(
+                self.core.error(
                     pos,
                     format!(
                         "unsupported: `**` {width} bits wide (at most {} bits)",
@@ -568,15 +576,17 @@ impl Elaborator<'_> {
                 );
                 return vec![Lit::FALSE; width];
             }
-            return super::divide::pow_const(&mut self.aig, base, n as u64);
+            return super::divide::pow_const(&mut self.core.aig, base, n as u64);
         }
         match bits::to_i64(base, signed) {
-            Some(0) => self.unknown_bits(width, pos, "zero to a negative power", ctx.scope),
+            Some(0) => self
+                .core
+                .unknown_bits(width, pos, "zero to a negative power", ctx.scope),
             Some(1) => bits::constant(1, width),
             Some(-1) if signed => bits::constant(if n % 2 == 0 { 1 } else { -1 }, width),
             Some(_) => bits::constant(0, width),
             None => {
-                self.error(
+                self.core.error(
                     pos,
                     "unsupported: `**` with a negative exponent and a base that is not constant",
                     "give the base as a constant, or write the result out",

@@ -56,7 +56,7 @@ impl Elaborator<'_> {
         let (msb, lsb) = (o.msb, o.lsb);
         let n = o.width as i64;
         let desc = msb >= lsb;
-        let nm = self.name(sym);
+        let nm = self.core.name(sym);
         match sel {
             Select::Part(m, l) => {
                 let (m, l) = match (self.const_int(ctx.scope, m), self.const_int(ctx.scope, l)) {
@@ -64,7 +64,7 @@ impl Elaborator<'_> {
                     _ => return vec![Lit::FALSE; width_hint],
                 };
                 if (m > l) != desc && m != l && n > 1 {
-                    self.error(
+                    self.core.error(
                         pos,
                         format!("part-select `{nm}[{m}:{l}]` is in the opposite direction to the declaration `[{msb}:{lsb}]`"),
                         "write the bounds in the declaration's order, e.g. `[7:4]` for `[7:0]`",
@@ -72,7 +72,7 @@ impl Elaborator<'_> {
                     return vec![Lit::FALSE; width_hint];
                 }
                 let Some(w) = span(m, l) else {
-                    self.error(
+                    self.core.error(
                         pos,
                         format!("part-select `{nm}[{m}:{l}]` is wider than 65536 bits"),
                         "select at most the declared bits of the vector",
@@ -90,7 +90,7 @@ impl Elaborator<'_> {
                     return self.const_window(ctx, &o, Self::off_of(msb, lsb, k), 1, pos, &what);
                 }
                 if ctx.constant {
-                    self.error(
+                    self.core.error(
                         pos,
                         "select index is not constant",
                         "use a constant index here (a parameter, genvar or number)",
@@ -108,7 +108,7 @@ impl Elaborator<'_> {
                 let w = match self.const_int(ctx.scope, wd) {
                     Some(w) if w > 0 && w as usize <= MAX_WIDTH => w,
                     Some(_) => {
-                        self.error(
+                        self.core.error(
                             wd.pos(),
                             "indexed part-select width must be a positive constant of at most 65536",
                             "give the number of bits to select, e.g. `d[s +: 8]`",
@@ -139,7 +139,7 @@ impl Elaborator<'_> {
                     return self.const_window(ctx, &o, base, w as usize, pos, &what);
                 }
                 if ctx.constant {
-                    self.error(
+                    self.core.error(
                         pos,
                         "select index is not constant",
                         "use a constant index here (a parameter, genvar or number)",
@@ -149,7 +149,7 @@ impl Elaborator<'_> {
                 if w as usize > o.width {
                     // Each bit is a selector over the vector plus a range check: a window wider
                     // than the vector costs much and reads only unknowns beyond it.
-                    self.error(
+                    self.core.error(
                         pos,
                         format!(
                             "unsupported: variable part-select of {w} bits from the {}-bit `{nm}`",
@@ -170,8 +170,8 @@ impl Elaborator<'_> {
     /// [`Elaborator::operand`] gives it.
     fn operand_lazy(&mut self, ctx: &EvalContext, sym: Sym, pos: Pos) -> Option<LazyOperand> {
         if !ctx.constant {
-            if let Some(Symbol::Net(n)) = self.lookup(ctx.scope, sym) {
-                let net = &self.nets[*n as usize];
+            if let Some(Symbol::Net(n)) = self.core.lookup(ctx.scope, sym) {
+                let net = &self.core.nets[*n as usize];
                 return Some(LazyOperand {
                     src: Ok(*n),
                     width: net.width as usize,
@@ -193,12 +193,12 @@ impl Elaborator<'_> {
     fn lazy_bits(&self, ctx: &EvalContext, o: &LazyOperand, lo: usize, hi: usize) -> Vec<Lit> {
         match &o.src {
             Ok(n) => {
-                let first = self.nets[*n as usize].first as usize;
+                let first = self.core.nets[*n as usize].first as usize;
                 (lo..hi)
                     .map(|k| {
                         ctx.env
                             .and_then(|env| env.bit(*n, k))
-                            .unwrap_or_else(|| self.aig.input_lit(first + k))
+                            .unwrap_or_else(|| self.core.aig.input_lit(first + k))
                     })
                     .collect()
             }
@@ -213,9 +213,9 @@ impl Elaborator<'_> {
         let iv = extend(i.to_vec(), ww, signed);
         let kv = bits::constant(k, ww);
         if desc {
-            bits::add(&mut self.aig, &iv, &kv, Lit::FALSE)
+            bits::add(&mut self.core.aig, &iv, &kv, Lit::FALSE)
         } else {
-            bits::sub(&mut self.aig, &kv, &iv)
+            bits::sub(&mut self.core.aig, &kv, &iv)
         }
     }
 
@@ -241,14 +241,14 @@ impl Elaborator<'_> {
             .count();
         let mut unk = if outside > 0 {
             if ctx.constant {
-                self.error(
+                self.core.error(
                     pos,
                     format!("{what} in a constant expression"),
                     "keep constant selects within the declared range",
                 );
                 vec![Lit::FALSE; outside]
             } else {
-                self.unknown_bits(outside, pos, what, ctx.scope)
+                self.core.unknown_bits(outside, pos, what, ctx.scope)
             }
         } else {
             Vec::new()
@@ -281,17 +281,17 @@ impl Elaborator<'_> {
         let k = (usize::BITS - (n.max(2) - 1).leading_zeros()) as usize;
         let mut out = Vec::with_capacity(w);
         for j in 0..w {
-            let oj = bits::add_const(&mut self.aig, off, j as i64);
+            let oj = bits::add_const(&mut self.core.aig, off, j as i64);
             let neg = *oj.last().expect("offset has bits");
             let nv = bits::constant(n as i64, oj.len());
-            let below = bits::ult(&mut self.aig, &oj, &nv);
-            let valid = self.aig.and(!neg, below);
-            let v = bits::mux_tree(&mut self.aig, data, &oj[..k], Lit::FALSE);
+            let below = bits::ult(&mut self.core.aig, &oj, &nv);
+            let valid = self.core.aig.and(!neg, below);
+            let v = bits::mux_tree(&mut self.core.aig, data, &oj[..k], Lit::FALSE);
             let r = if valid == Lit::TRUE {
                 v
             } else {
-                let u = self.unknown_bits(1, pos, what, ctx.scope)[0];
-                self.aig.mux(valid, v, u)
+                let u = self.core.unknown_bits(1, pos, what, ctx.scope)[0];
+                self.core.aig.mux(valid, v, u)
             };
             out.push(r);
         }

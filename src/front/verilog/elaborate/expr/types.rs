@@ -17,17 +17,17 @@ pub struct ExprType {
 impl Elaborator<'_> {
     /// The self-determined type of `e` (no diagnostics; evaluation reports them).
     pub(crate) fn expr_type(&mut self, ctx: &EvalContext, e: &Expr) -> ExprType {
-        self.quiet += 1;
+        self.core.quiet += 1;
         let t = self.expr_type_inner(ctx, e);
-        self.quiet -= 1;
+        self.core.quiet -= 1;
         t
     }
 
     fn expr_type_inner(&mut self, ctx: &EvalContext, e: &Expr) -> ExprType {
         match e {
-            Expr::Ident(s, _) => match self.lookup(ctx.scope, *s) {
+            Expr::Ident(s, _) => match self.core.lookup(ctx.scope, *s) {
                 Some(Symbol::Net(n)) => {
-                    let net = &self.nets[*n as usize];
+                    let net = &self.core.nets[*n as usize];
                     ExprType {
                         width: net.width as usize,
                         signed: net.signed,
@@ -135,7 +135,7 @@ impl Elaborator<'_> {
                 }
             }
             Expr::Call(f, _, args) => {
-                let name = self.name(*f);
+                let name = self.core.name(*f);
                 match name {
                     _ if !name.starts_with('$') => self.call_type(ctx.scope, *f),
                     "$signed" => ExprType {

@@ -6,7 +6,7 @@
 //! take precedence over the instance's `#(...)` values (the same clause). One naming no
 //! instance of the module is an error at the `defparam`.
 
-use super::super::{Elaborator, Value};
+use super::super::{Core, Elaborator, Flattening, Value};
 use super::module::OverrideTarget;
 use crate::front::verilog::ast::Item;
 use crate::front::verilog::pos::Pos;
@@ -40,16 +40,16 @@ impl<'a> Elaborator<'a> {
             let Some(((param, _), insts)) = d.path.split_last() else {
                 continue;
             };
-            let mut prefix = self.scopes[scope as usize].prefix.clone();
+            let mut prefix = self.core.scopes[scope as usize].prefix.clone();
             let mut text = String::new();
             for (s, _) in insts {
-                prefix.push_str(self.name(*s));
+                prefix.push_str(self.core.name(*s));
                 prefix.push('.');
-                text.push_str(self.name(*s));
+                text.push_str(self.core.name(*s));
                 text.push('.');
             }
-            text.push_str(self.name(*param));
-            self.defparams.push(PendingDefparam {
+            text.push_str(self.core.name(*param));
+            self.flattening.defparams.push(PendingDefparam {
                 prefix,
                 param: *param,
                 value,
@@ -59,7 +59,9 @@ impl<'a> Elaborator<'a> {
             });
         }
     }
+}
 
+impl Flattening<'_> {
     /// The `defparam`s that name the instance with full name prefix `prefix`, as overrides.
     pub(super) fn take_defparams(&mut self, prefix: &str) -> Vec<(OverrideTarget, Value, Pos)> {
         if self.defparams.is_empty() {
@@ -75,7 +77,7 @@ impl<'a> Elaborator<'a> {
     }
 
     /// Errors for the `defparam`s written in `scope` that named no instance.
-    pub(super) fn unresolved_defparams(&mut self, scope: u32) {
+    pub(super) fn unresolved_defparams(&mut self, core: &mut Core, scope: u32) {
         if self.defparams.is_empty() {
             return;
         }
@@ -85,7 +87,7 @@ impl<'a> Elaborator<'a> {
         self.defparams = rest;
         for d in mine {
             let inst = d.text.rsplit_once('.').map_or("", |x| x.0).to_string();
-            self.error(
+            core.error(
                 d.pos,
                 format!("`defparam {}`: there is no instance `{inst}` here", d.text),
                 "name an instance of this module (`u1.W`) or an instance inside one (`u1.u2.W`) by its instance names; paths through generate blocks, arrays of instances or from the top module's name are not read",

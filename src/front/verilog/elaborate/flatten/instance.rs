@@ -21,11 +21,11 @@ type ArrayTargets = Vec<Option<Option<Vec<(u32, Option<u32>)>>>>;
 impl<'a> Elaborator<'a> {
     /// Elaborate instance `inst` written in scope `scope`.
     pub(crate) fn instance(&mut self, scope: u32, inst: &'a Instance) {
-        let m = match self.modules.get(&inst.module) {
+        let m = match self.flattening.modules.get(&inst.module) {
             Some(m) => *m,
             None => {
-                let n = self.name(inst.module);
-                self.error(
+                let n = self.core.name(inst.module);
+                self.core.error(
                     inst.pos,
                     format!("unknown module `{n}`"),
                     "give the file that defines it on the command line",
@@ -33,7 +33,7 @@ impl<'a> Elaborator<'a> {
                 return;
             }
         };
-        let iname = self.name(inst.name);
+        let iname = self.core.name(inst.name);
         let mut overrides = Vec::new();
         match &inst.params {
             Some(Conns::Named(v)) => {
@@ -101,10 +101,10 @@ impl<'a> Elaborator<'a> {
         )>,
         mut arr: Option<ArrayCtx>,
     ) {
-        let mname = self.name(m.name);
+        let mname = self.core.name(m.name);
         let iname = iname.as_str();
-        let prefix = format!("{}{}.", self.scopes[scope as usize].prefix, iname);
-        overrides.extend(self.take_defparams(&prefix));
+        let prefix = format!("{}{}.", self.core.scopes[scope as usize].prefix, iname);
+        overrides.extend(self.flattening.take_defparams(&prefix));
         let child = elab_instance(self, m, prefix, overrides, inst.pos);
         // Connections by port index.
         let mut conn: Vec<Option<&Expr>> = vec![None; m.ports.len()];
@@ -115,18 +115,18 @@ impl<'a> Elaborator<'a> {
                     match m.ports.iter().position(|q| q.0 == *s) {
                         Some(k) => {
                             if seen[k] {
-                                self.error(
+                                self.core.error(
                                     *p,
-                                    format!("port `{}` is connected twice", self.name(*s)),
+                                    format!("port `{}` is connected twice", self.core.name(*s)),
                                     "connect each port once"
                                 );
                             }
                             seen[k] = true;
                             conn[k] = ex.as_ref();
                         }
-                        None => self.error(
+                        None => self.core.error(
                             *p,
-                            format!("module `{mname}` has no port `{}`", self.name(*s)),
+                            format!("module `{mname}` has no port `{}`", self.core.name(*s)),
                             "connect only ports the module declares; check the spelling and the module's header"
                         ),
                     }
@@ -134,7 +134,7 @@ impl<'a> Elaborator<'a> {
             }
             Conns::Ordered(v) => {
                 if v.len() > m.ports.len() && !(v.len() == 1 && v[0].is_none()) {
-                    self.error(
+                    self.core.error(
                         inst.pos,
                         format!("instance `{iname}` has {} connections but module `{mname}` has {} ports", v.len(), m.ports.len()),
                         "give at most one connection per port, in the order of the module's port list, or connect by name (`.a(x)`)",
@@ -148,11 +148,11 @@ impl<'a> Elaborator<'a> {
         }
         let ctx = EvalContext::new(scope);
         for (k, (ps, _)) in m.ports.iter().enumerate() {
-            let pn = self.name(*ps);
-            let n = match self.scopes[child as usize].syms.get(ps) {
+            let pn = self.core.name(*ps);
+            let n = match self.core.scopes[child as usize].syms.get(ps) {
                 Some(Symbol::Net(n)) => *n,
                 _ => {
-                    self.error(
+                    self.core.error(
                         inst.pos,
                         format!("port `{pn}` of module `{mname}` has no declaration"),
                         "declare the port `input` or `output` inside the module",
@@ -160,12 +160,12 @@ impl<'a> Elaborator<'a> {
                     continue;
                 }
             };
-            let net = self.nets[n as usize].clone();
+            let net = self.core.nets[n as usize].clone();
             let ex = match conn[k] {
                 Some(ex) => ex,
                 None => {
                     if net.dir == Some(Dir::Input) {
-                        self.warn(
+                        self.core.warn(
                             inst.pos,
                             format!("input port `{pn}` of instance `{iname}` is not connected"),
                         );
@@ -195,7 +195,7 @@ impl<'a> Elaborator<'a> {
                         _ => vec![Lit::FALSE; pw],
                     };
                     for (off, &l) in v.iter().enumerate() {
-                        self.drive(n, off as u32, l, ex.pos());
+                        self.core.drive(n, off as u32, l, ex.pos());
                     }
                 }
                 Some(Dir::Output) if arr.is_some() => {
@@ -214,10 +214,10 @@ impl<'a> Elaborator<'a> {
                             0
                         };
                         let t = t[first..first + pw].to_vec();
-                        let v = self.net_bits(n);
+                        let v = self.core.net_bits(n);
                         for (j, (tn, off)) in t.into_iter().enumerate() {
                             if let Some(off) = off {
-                                self.drive(tn, off, v[j], ex.pos());
+                                self.core.drive(tn, off, v[j], ex.pos());
                             }
                         }
                     }
@@ -226,10 +226,10 @@ impl<'a> Elaborator<'a> {
                     let t = self.expr_type(&ctx, ex);
                     let v = self.eval(&ctx, ex, pw.max(t.width), t.signed);
                     if t.width != pw {
-                        self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected expression is {} bits", t.width));
+                        self.core.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected expression is {} bits", t.width));
                     }
                     for (off, &l) in v.iter().enumerate().take(pw) {
-                        self.drive(n, off as u32, l, ex.pos());
+                        self.core.drive(n, off as u32, l, ex.pos());
                     }
                 }
                 Some(Dir::Output) => {
@@ -238,16 +238,16 @@ impl<'a> Elaborator<'a> {
                         None => continue,
                     };
                     if t.len() != pw {
-                        self.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected net is {} bits", t.len()));
+                        self.core.warn(ex.pos(), format!("port connection changes width: port `{pn}` of instance `{iname}` (module `{mname}`) is {pw} bits, the connected net is {} bits", t.len()));
                     }
-                    let v = extend(self.net_bits(n), t.len().max(pw), net.signed);
+                    let v = extend(self.core.net_bits(n), t.len().max(pw), net.signed);
                     for (j, (tn, off)) in t.into_iter().enumerate() {
                         if let Some(off) = off {
-                            self.drive(tn, off, v[j], ex.pos());
+                            self.core.drive(tn, off, v[j], ex.pos());
                         }
                     }
                 }
-                None => self.error(
+                None => self.core.error(
                     net.pos,
                     format!(
                         "port `{pn}` of module `{mname}` has no `input` or `output` declaration"
@@ -282,9 +282,9 @@ impl Elaborator<'_> {
         if width == pw || width == pw * count {
             return true;
         }
-        let pn = self.name(m.ports[k].0);
-        let iname = self.name(inst.name);
-        self.error(
+        let pn = self.core.name(m.ports[k].0);
+        let iname = self.core.name(inst.name);
+        self.core.error(
             inst.pos,
             format!("port `{pn}` of the array of instances `{iname}` ({count} instances) is connected to {width} bits; the port is {pw} bits"),
             format!("connect {pw} bits (the same to every instance) or {} bits (split, the instance of the range's right-hand index taking the least significant bits; IEEE 1364-2005 clause 12.1.2)", pw * count),

@@ -3,8 +3,9 @@
 //! (`module.rs`), and connects instance ports to the parent's nets (`instance.rs`, arrays of
 //! instances too); `defparam`s wait for their instance in `defparam.rs`.
 //!
-//! State it needs: the parsed modules (read), the scope and net tables it fills, the
-//! instance path (for loops in the hierarchy), and the gate records of the netlist view.
+//! State it needs: from [`super::core::Core`] the scope and net tables it fills, and its own
+//! [`super::Flattening`]: the parsed modules (read), the instance path (for loops in the
+//! hierarchy), the waiting `defparam`s, and the gate records of the netlist view.
 
 mod defparam;
 mod instance;

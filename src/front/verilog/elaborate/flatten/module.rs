@@ -42,8 +42,8 @@ fn walk_instances<'m>(items: &'m [Item], out: &mut Vec<&'m Instance>) {
 
 /// Choose the top module: the one named, or the only one that no module instantiates.
 pub fn pick_top<'a>(e: &mut Elaborator<'a>, top: Option<&str>) -> Option<&'a Module> {
-    let list = e.module_list.clone();
-    let names = e.names;
+    let list = e.flattening.module_list.clone();
+    let names = e.core.names;
     let nopos = Pos::default();
     if list.is_empty() {
         let first = Pos {
@@ -51,7 +51,7 @@ pub fn pick_top<'a>(e: &mut Elaborator<'a>, top: Option<&str>) -> Option<&'a Mod
             line: 1,
             col: 1,
         };
-        e.error(
+        e.core.error(
             first,
             "no module found in the Verilog input",
             "a Verilog design needs at least one `module NAME(...); ... endmodule`",
@@ -64,7 +64,7 @@ pub fn pick_top<'a>(e: &mut Elaborator<'a>, top: Option<&str>) -> Option<&'a Mod
         }
         let all: Vec<&str> = list.iter().map(|m| names.name(m.name)).collect();
         let _ = nopos;
-        e.errors.push(
+        e.core.errors.push(
             crate::diag::Diagnostic::error(None, format!("top module `{t}` not found"))
                 .with_help(format!("modules read: {}", all.join(", "))),
         );
@@ -89,7 +89,7 @@ pub fn pick_top<'a>(e: &mut Elaborator<'a>, top: Option<&str>) -> Option<&'a Mod
         1 => Some(cands[0]),
         0 => {
             let p = list.first().map_or(nopos, |m| m.pos);
-            e.error(
+            e.core.error(
                 p,
                 "no top module: every module is instantiated by another",
                 "a module cannot contain itself; remove the instance that closes the cycle",
@@ -99,7 +99,7 @@ pub fn pick_top<'a>(e: &mut Elaborator<'a>, top: Option<&str>) -> Option<&'a Mod
         _ => {
             let all: Vec<&str> = cands.iter().map(|m| names.name(m.name)).collect();
             let p = cands[1].pos;
-            e.error(
+            e.core.error(
                 p,
                 format!("several modules could be the top: {}", all.join(", ")),
                 "name the top module with `--top NAME` (in `prove` and `cnf`: `--ref-top NAME` for the reference, `--cand-top NAME` for the candidate)",
@@ -118,40 +118,41 @@ pub fn elab_instance<'a>(
     pos: Pos,
 ) -> u32 {
     let idx = e
+        .flattening
         .module_list
         .iter()
         .position(|x| std::ptr::eq(*x, m))
         .unwrap_or(0) as u32;
-    let scope = e.new_scope(None, prefix, idx);
-    if e.hier.contains(&m.name) {
-        let n = e.name(m.name);
-        e.error(
+    let scope = e.core.new_scope(None, prefix, idx);
+    if e.flattening.path.contains(&m.name) {
+        let n = e.core.name(m.name);
+        e.core.error(
             pos,
             format!("recursive instantiation of module `{n}`"),
             "a module cannot contain itself, directly or through other modules; remove the instance",
         );
         return scope;
     }
-    if e.hier.len() >= MAX_HIER {
-        e.error(
+    if e.flattening.path.len() >= MAX_HIER {
+        e.core.error(
             pos,
             format!("instance hierarchy deeper than {} levels", MAX_HIER),
             "flatten part of the hierarchy; equicone reads at most 64 levels of instances",
         );
         return scope;
     }
-    e.hier.push(m.name);
+    e.flattening.path.push(m.name);
     let mut ov = overrides;
     e.elab_items(scope, &m.items, m, Some(&mut ov), true);
     for (w, _, p) in ov {
-        let mn = e.name(m.name);
+        let mn = e.core.name(m.name);
         let (msg, help) = match w {
             OverrideTarget::ByName(s) => (
-                format!("module `{mn}` has no parameter `{}`", e.name(s)),
+                format!("module `{mn}` has no parameter `{}`", e.core.name(s)),
                 "override only parameters the module declares (not `localparam`); check the spelling",
             ),
             OverrideTarget::Defparam(s) => (
-                format!("`defparam`: module `{mn}` has no parameter `{}`", e.name(s)),
+                format!("`defparam`: module `{mn}` has no parameter `{}`", e.core.name(s)),
                 "set only parameters the module declares (not `localparam`); check the spelling",
             ),
             OverrideTarget::ByPosition(k) => (
@@ -159,9 +160,9 @@ pub fn elab_instance<'a>(
                 "give no more overrides than the module has parameters, or override by name (`#(.N(8))`)",
             ),
         };
-        e.error(p, msg, help);
+        e.core.error(p, msg, help);
     }
-    e.hier.pop();
+    e.flattening.path.pop();
     scope
 }
 
@@ -179,7 +180,7 @@ impl<'a> Elaborator<'a> {
         let l = self.const_int(scope, &r.lsb)?;
         for (v, e) in [(m, &r.msb), (l, &r.lsb)] {
             if i32::try_from(v).is_err() {
-                self.error(
+                self.core.error(
                     e.pos(),
                     format!("range bound {v} is outside the 32-bit integers"),
                     "Verilog range bounds are integers (32 bits, signed); use smaller indices",
@@ -188,7 +189,7 @@ impl<'a> Elaborator<'a> {
             }
         }
         if span(m, l).is_none() {
-            self.error(
+            self.core.error(
                 r.msb.pos(),
                 "range wider than 65536 bits",
                 "equicone reads vectors of at most 65536 bits; split the vector",
@@ -272,16 +273,16 @@ impl<'a> Elaborator<'a> {
                     0,
                 )
             };
-            if self.scopes[scope as usize].syms.contains_key(name) {
-                let n = self.name(*name);
-                self.error(
+            if self.core.scopes[scope as usize].syms.contains_key(name) {
+                let n = self.core.name(*name);
+                self.core.error(
                     *pos,
                     format!("`{n}` is declared twice"),
                     "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)",
                 );
                 continue;
             }
-            self.scopes[scope as usize]
+            self.core.scopes[scope as usize]
                 .syms
                 .insert(*name, Symbol::Param(Box::new((v, msb, lsb))));
         }
@@ -305,7 +306,9 @@ impl<'a> Elaborator<'a> {
                 _ => {}
             }
         }
-        self.reserve(scope, nnets, ngates);
+        self.core.reserve(scope, nnets);
+        self.flattening.gates.reserve(ngates);
+        self.flattening.gate_ins.reserve(2 * ngates);
         self.declare_functions(scope, items);
         // A: parameters and genvars, in order.
         let mut nth = 0;
@@ -314,7 +317,7 @@ impl<'a> Elaborator<'a> {
                 Item::Param(pd) => self.param(scope, pd, &mut overrides, &mut nth),
                 Item::Genvar(v) => {
                     for (s, _) in v {
-                        self.scopes[scope as usize]
+                        self.core.scopes[scope as usize]
                             .syms
                             .insert(*s, Symbol::Genvar(None));
                     }
@@ -346,15 +349,15 @@ impl<'a> Elaborator<'a> {
                 (0, 0, false)
             };
             if md.dir.is_some() && (!is_module || !ports.contains(&s)) {
-                let n = self.name(s);
-                self.error(
+                let n = self.core.name(s);
+                self.core.error(
                     md.pos,
                     format!("`{n}` is declared as a port but is not in the module's port list"),
                     "add it to the port list in the module header, or declare it `wire`",
                 );
             }
             let signed = md.signed || md.ty == Some(NetType::Integer);
-            self.add_net(
+            self.core.add_net(
                 scope,
                 s,
                 msb,
@@ -371,8 +374,9 @@ impl<'a> Elaborator<'a> {
         if !m.nettype_none {
             let implicit = |e: &mut Self, ex: &Expr| {
                 if let Expr::Ident(s, p) = ex {
-                    if e.lookup(scope, *s).is_none() {
-                        e.add_net(scope, *s, 0, 0, false, false, NetType::Wire, None, *p);
+                    if e.core.lookup(scope, *s).is_none() {
+                        e.core
+                            .add_net(scope, *s, 0, 0, false, false, NetType::Wire, None, *p);
                     }
                 }
             };
@@ -415,16 +419,19 @@ impl<'a> Elaborator<'a> {
                         .map(|v| v.bits.contains(&Lit::TRUE));
                     if let Some(cv) = cv {
                         let prefix =
-                            format!("{}genblk{genblk}.", self.scopes[scope as usize].prefix);
-                        let child =
-                            self.new_scope(Some(scope), prefix, self.scopes[scope as usize].module);
+                            format!("{}genblk{genblk}.", self.core.scopes[scope as usize].prefix);
+                        let child = self.core.new_scope(
+                            Some(scope),
+                            prefix,
+                            self.core.scopes[scope as usize].module,
+                        );
                         self.elab_items(child, if cv { a } else { b }, m, None, false);
                     }
                 }
                 _ => {}
             }
         }
-        self.unresolved_defparams(scope);
+        self.flattening.unresolved_defparams(&mut self.core, scope);
     }
 
     fn merge_decl<'m>(
@@ -439,9 +446,9 @@ impl<'a> Elaborator<'a> {
             if let Some(e) = init {
                 inits.push((*s, *p, e));
             }
-            if self.scopes[scope as usize].syms.contains_key(s) {
-                let n = self.name(*s);
-                self.error(
+            if self.core.scopes[scope as usize].syms.contains_key(s) {
+                let n = self.core.name(*s);
+                self.core.error(
                     *p,
                     format!("`{n}` is declared twice"),
                     "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)",
@@ -463,11 +470,11 @@ impl<'a> Elaborator<'a> {
                     );
                 }
                 Some(md) => {
-                    let n = self.name(*s);
+                    let n = self.core.name(*s);
                     let clash = (md.dir.is_some() && d.dir.is_some())
                         || (md.ty.is_some() && d.ty.is_some());
                     if clash {
-                        self.error(
+                        self.core.error(
                             *p,
                             format!("`{n}` is declared twice"),
                             "keep one declaration of the name (`output y; reg y;` may be split, but not repeated)",
@@ -478,7 +485,7 @@ impl<'a> Elaborator<'a> {
                         let ra = self.range_bounds(scope, a);
                         let rb = self.range_bounds(scope, b);
                         if ra != rb {
-                            self.error(
+                            self.core.error(
                                 *p,
                                 format!("`{n}` is declared again with a different range"),
                                 "give both declarations of the name the same range",
@@ -506,14 +513,14 @@ impl<'a> Elaborator<'a> {
         let v = self.eval(&ctx, rhs, w, ty.signed);
         for (k, (n, off)) in t.into_iter().enumerate() {
             if let Some(off) = off {
-                self.drive(n, off, v[k], pos);
+                self.core.drive(n, off, v[k], pos);
             }
         }
     }
 
     fn gate(&mut self, scope: u32, kind: GateKind, terms: &[Expr], pos: Pos) {
         if terms.len() < 2 {
-            self.error(
+            self.core.error(
                 pos,
                 "a gate needs an output and at least one input terminal",
                 "write the output terminal first, then the inputs, e.g. `and g1 (y, a, b);`",
@@ -530,17 +537,17 @@ impl<'a> Elaborator<'a> {
             // Plain one-bit net names (the common case in netlists) skip the width
             // computation and the bit vector.
             if let Expr::Ident(s, _) = t {
-                if let Some(Symbol::Net(n)) = self.lookup(scope, *s) {
-                    let net = &self.nets[*n as usize];
+                if let Some(Symbol::Net(n)) = self.core.lookup(scope, *s) {
+                    let net = &self.core.nets[*n as usize];
                     if net.width == 1 {
-                        lits.push(self.aig.input_lit(net.first as usize));
+                        lits.push(self.core.aig.input_lit(net.first as usize));
                         continue;
                     }
                 }
             }
             let v = self.eval_self(&ctx, t);
             if v.bits.len() != 1 {
-                self.error(
+                self.core.error(
                     t.pos(),
                     format!(
                         "gate terminal is {} bits wide; gate terminals must be 1 bit",
@@ -551,7 +558,7 @@ impl<'a> Elaborator<'a> {
             }
             lits.push(v.bits.first().copied().unwrap_or(Lit::FALSE));
         }
-        let g = &mut self.aig;
+        let g = &mut self.core.aig;
         let (cell, out) = match kind {
             GateKind::And => (CellKind::And, g.and_all(&lits)),
             GateKind::Nand => (CellKind::Nand, !g.and_all(&lits)),
@@ -567,7 +574,7 @@ impl<'a> Elaborator<'a> {
             // A plain name needs no target list.
             let (t, width) = match o {
                 Expr::Ident(s, p) => match self.target_net(scope, *s, *p, false) {
-                    Some(n) => ((n, Some(0)), self.nets[n as usize].width as usize),
+                    Some(n) => ((n, Some(0)), self.core.nets[n as usize].width as usize),
                     None => continue,
                 },
                 _ => match self.targets(&ctx, o, false) {
@@ -576,7 +583,7 @@ impl<'a> Elaborator<'a> {
                 },
             };
             if width != 1 {
-                self.error(
+                self.core.error(
                     o.pos(),
                     format!(
                         "gate output terminal is {width} bits wide; gate terminals must be 1 bit"
@@ -586,13 +593,13 @@ impl<'a> Elaborator<'a> {
                 continue;
             }
             if let (n, Some(off)) = t {
-                self.drive(n, off, out, pos);
-                let leaf = self.nets[n as usize].first + off;
+                self.core.drive(n, off, out, pos);
+                let leaf = self.core.nets[n as usize].first + off;
                 if shared.is_none() {
-                    shared = Some(self.gate_ins.len() as u32);
-                    self.gate_ins.extend_from_slice(&lits);
+                    shared = Some(self.flattening.gate_ins.len() as u32);
+                    self.flattening.gate_ins.extend_from_slice(&lits);
                 }
-                self.gates.push(GateRecord {
+                self.flattening.gates.push(GateRecord {
                     kind: cell,
                     count: lits.len() as u32,
                     first: shared.unwrap_or(0),
@@ -611,9 +618,9 @@ impl<'a> Elaborator<'a> {
         genblk: usize,
     ) {
         let var = g.init.0;
-        if !matches!(self.lookup(scope, var), Some(Symbol::Genvar(_))) {
-            let n = self.name(var);
-            self.error(
+        if !matches!(self.core.lookup(scope, var), Some(Symbol::Genvar(_))) {
+            let n = self.core.name(var);
+            self.core.error(
                 g.init.1,
                 format!("loop variable `{n}` of a generate loop must be declared `genvar`"),
                 format!("declare it first: `genvar {n};`"),
@@ -625,18 +632,20 @@ impl<'a> Elaborator<'a> {
             None => return,
         };
         let blk = match g.name {
-            Some(n) => self.name(n).to_string(),
+            Some(n) => self.core.name(n).to_string(),
             None => format!("genblk{genblk}"),
         };
         let mut count = 0;
         loop {
-            let prefix = format!("{}{blk}[{v}].", self.scopes[scope as usize].prefix);
-            let child = self.new_scope(Some(scope), prefix, self.scopes[scope as usize].module);
+            let prefix = format!("{}{blk}[{v}].", self.core.scopes[scope as usize].prefix);
+            let child =
+                self.core
+                    .new_scope(Some(scope), prefix, self.core.scopes[scope as usize].module);
             let gv = Value {
                 bits: bits::constant(v, 32),
                 signed: true,
             };
-            self.scopes[child as usize]
+            self.core.scopes[child as usize]
                 .syms
                 .insert(var, Symbol::Genvar(Some(Box::new(gv))));
             let c = match self.const_val(child, &g.cond) {
@@ -648,7 +657,7 @@ impl<'a> Elaborator<'a> {
             }
             count += 1;
             if count > MAX_LOOP {
-                self.error(
+                self.core.error(
                     g.pos,
                     format!(
                         "generate loop runs more than {} iterations",
@@ -658,13 +667,13 @@ impl<'a> Elaborator<'a> {
                 );
                 return;
             }
-            let before = self.errors.len();
+            let before = self.core.errors.len();
             self.elab_items(child, &g.items, m, None, false);
             v = match self.const_int(child, &g.step.2) {
                 Some(nv) => nv,
                 None => return,
             };
-            if self.errors.len() > before + 20 {
+            if self.core.errors.len() > before + 20 {
                 return;
             }
         }

@@ -31,32 +31,35 @@ impl Elaborator<'_> {
         self.exec(scope, body, &mut env);
         let mut latch: BTreeMap<u32, (Pos, Option<Lit>)> = BTreeMap::new();
         for (n, states) in &env.vars {
-            if self.nets[*n as usize].ty == NetType::Integer {
+            if self.core.nets[*n as usize].ty == NetType::Integer {
                 continue;
             }
             for (off, st) in states.iter().enumerate() {
                 match st {
-                    BitState::Set(l) => self.drive(*n, off as u32, *l, pos),
+                    BitState::Set(l) => self.core.drive(*n, off as u32, *l, pos),
                     BitState::Partial { assigned, gap, .. } => {
                         latch.entry(*n).or_insert((*gap, Some(*assigned)));
-                        self.drive(*n, off as u32, Lit::FALSE, pos);
+                        self.core.drive(*n, off as u32, Lit::FALSE, pos);
                     }
                     BitState::Unset(Some(p)) => {
                         latch.entry(*n).or_insert((*p, None));
                         // Reported as a latch below; a placeholder driver avoids a
                         // follow-on "never driven" message for the same bits.
-                        self.drive(*n, off as u32, Lit::FALSE, pos);
+                        self.core.drive(*n, off as u32, Lit::FALSE, pos);
                     }
                     BitState::Unset(None) => {}
                 }
             }
         }
         for (n, (p, assigned)) in latch {
-            let nm = self.net_name(n);
+            let nm = self.core.net_name(n);
             let line = p.line;
-            let when = match assigned.map(|a| self.coverage(a)) {
+            let when = match assigned.map(|a| self.lowering.coverage(&self.core.aig, a)) {
                 Some(Coverage::Gap(g)) if !g.is_empty() => {
-                    format!(", for example when {}", self.gap_text(&g))
+                    format!(
+                        ", for example when {}",
+                        super::coverage::gap_text(&self.core, &g)
+                    )
                 }
                 Some(Coverage::Undecided) => format!(
                     "; its coverage reads more than {} bits and was not decided",
@@ -64,7 +67,7 @@ impl Elaborator<'_> {
                 ),
                 _ => String::new(),
             };
-            self.error(
+            self.core.error(
                 p,
                 format!("`{nm}` is not assigned on every path through the always block (the statement at line {line} has a path without an assignment{when}); it would infer a latch"),
                 "assign it a default value at the top of the block, or add the missing `else`/`default`",
@@ -136,7 +139,7 @@ impl Elaborator<'_> {
             if out.vars.contains_key(&n) {
                 continue;
             }
-            let w = self.nets[(n & !super::clocked::NON_BLOCKING) as usize].width as usize;
+            let w = self.core.nets[(n & !super::clocked::NON_BLOCKING) as usize].width as usize;
             let unset = vec![BitState::Unset(None); w];
             let tv = t.vars.get(&n).unwrap_or(&unset);
             let ev = e.vars.get(&n).unwrap_or(&unset);
@@ -165,7 +168,7 @@ impl Elaborator<'_> {
             Unset(_) => None,
         };
         match (parts(a), parts(b)) {
-            (Some((x, _, None)), Some((y, _, None))) => Set(self.aig.mux(c, x, y)),
+            (Some((x, _, None)), Some((y, _, None))) => Set(self.core.aig.mux(c, x, y)),
             (None, None) => match (a, b) {
                 (Unset(p), Unset(q)) => Unset(p.or(q)),
                 _ => Unset(None),
@@ -179,10 +182,10 @@ impl Elaborator<'_> {
                 let gap = gap_of(a).or(gap_of(b)).unwrap_or(pos);
                 let (value, assigned) = match (pa, pb) {
                     (Some((x, ax, _)), Some((y, ay, _))) => {
-                        (self.aig.mux(c, x, y), self.aig.mux(c, ax, ay))
+                        (self.core.aig.mux(c, x, y), self.core.aig.mux(c, ax, ay))
                     }
-                    (Some((x, ax, _)), None) => (x, self.aig.and(c, ax)),
-                    (None, Some((y, ay, _))) => (y, self.aig.and(!c, ay)),
+                    (Some((x, ax, _)), None) => (x, self.core.aig.and(c, ax)),
+                    (None, Some((y, ay, _))) => (y, self.core.aig.and(!c, ay)),
                     (None, None) => (Lit::FALSE, Lit::FALSE),
                 };
                 self.settle(value, assigned, gap)
@@ -195,7 +198,7 @@ impl Elaborator<'_> {
         if assigned == Lit::FALSE {
             return BitState::Unset(Some(gap));
         }
-        if self.coverage(assigned) == Coverage::Complete {
+        if self.lowering.coverage(&self.core.aig, assigned) == Coverage::Complete {
             BitState::Set(value)
         } else {
             BitState::Partial {
@@ -227,7 +230,7 @@ impl Elaborator<'_> {
                         };
                         let t = self.expr_type(&ctx, rhs);
                         let v = self.eval(&ctx, rhs, t.width.max(1), t.signed)[0];
-                        let net = self.nets[n as usize].clone();
+                        let net = self.core.nets[n as usize].clone();
                         let w = net.width as usize;
                         let ww = iv.bits.len() + 66;
                         let ie = extend(iv.bits.clone(), ww, iv.signed);
@@ -237,10 +240,10 @@ impl Elaborator<'_> {
                             .or_insert_with(|| vec![BitState::Unset(None); w]);
                         for (off, slot) in entry.iter_mut().enumerate() {
                             let idx = bits::constant(net.index(off as u32), ww);
-                            let hit = bits::eq(&mut self.aig, &ie, &idx);
+                            let hit = bits::eq(&mut self.core.aig, &ie, &idx);
                             *slot = match *slot {
                                 _ if hit == Lit::FALSE => *slot,
-                                BitState::Set(old) => BitState::Set(self.aig.mux(hit, v, old)),
+                                BitState::Set(old) => BitState::Set(self.core.aig.mux(hit, v, old)),
                                 BitState::Unset(_) if hit == Lit::TRUE => BitState::Set(v),
                                 BitState::Unset(p) => BitState::Unset(Some(p.unwrap_or(pos))),
                                 BitState::Partial {
@@ -248,8 +251,8 @@ impl Elaborator<'_> {
                                     assigned,
                                     gap,
                                 } => {
-                                    let value = self.aig.mux(hit, v, value);
-                                    let assigned = self.aig.or(hit, assigned);
+                                    let value = self.core.aig.mux(hit, v, value);
+                                    let assigned = self.core.aig.or(hit, assigned);
                                     self.settle(value, assigned, gap)
                                 }
                             };
@@ -273,7 +276,7 @@ impl Elaborator<'_> {
         let v = self.eval(&ctx, rhs, w, t.signed);
         for (k, (n, off)) in targets.iter().enumerate() {
             if let Some(off) = off {
-                let width = self.nets[*n as usize].width as usize;
+                let width = self.core.nets[*n as usize].width as usize;
                 let e = env
                     .vars
                     .entry(*n)
@@ -291,13 +294,13 @@ impl Elaborator<'_> {
         pos: Pos,
         procedural: bool,
     ) -> Option<u32> {
-        let nm = || self.name(sym);
-        match self.lookup(scope, sym) {
+        let nm = || self.core.name(sym);
+        match self.core.lookup(scope, sym) {
             Some(&Symbol::Net(n)) => {
-                let ty = self.nets[n as usize].ty;
+                let ty = self.core.nets[n as usize].ty;
                 if procedural && ty == NetType::Wire {
                     let nm = nm();
-                    self.error(
+                    self.core.error(
                         pos,
                         format!("procedural assignment to wire `{nm}`"),
                         "declare it `reg` to assign it in an always block",
@@ -306,7 +309,7 @@ impl Elaborator<'_> {
                 }
                 if !procedural && ty != NetType::Wire && ty != NetType::Logic {
                     let nm = nm();
-                    self.error(
+                    self.core.error(
                         pos,
                         format!("continuous assignment to variable `{nm}`"),
                         "declare it `wire`, or assign it in an always block",
@@ -317,7 +320,7 @@ impl Elaborator<'_> {
             }
             Some(_) => {
                 let nm = nm();
-                self.error(
+                self.core.error(
                     pos,
                     format!("`{nm}` is not a net or variable and cannot be assigned"),
                     "assign a net (`wire`) or a variable (`reg`); parameters and genvars are constants",
@@ -326,7 +329,7 @@ impl Elaborator<'_> {
             }
             None => {
                 let nm = nm();
-                self.error_undeclared(pos, nm);
+                self.core.error_undeclared(pos, nm);
                 None
             }
         }
@@ -343,14 +346,14 @@ impl Elaborator<'_> {
             Expr::Ident(s, p) => {
                 let n = self.target_net(ctx.scope, *s, *p, procedural)?;
                 Some(
-                    (0..self.nets[n as usize].width)
+                    (0..self.core.nets[n as usize].width)
                         .map(|k| (n, Some(k)))
                         .collect(),
                 )
             }
             Expr::Index(s, p, sel) => {
                 let n = self.target_net(ctx.scope, *s, *p, procedural)?;
-                let net = self.nets[n as usize].clone();
+                let net = self.core.nets[n as usize].clone();
                 let ccx = EvalContext {
                     scope: ctx.scope,
                     env: ctx.env,
@@ -362,7 +365,7 @@ impl Elaborator<'_> {
                         match bits::to_i64(&v.bits, v.signed) {
                             Some(k) => vec![k],
                             None => {
-                                self.error(
+                                self.core.error(
                                     *p,
                                     "unsupported: variable index on the left of a continuous assignment",
                                     "use a constant index, or assign the vector in an `always @*` block",
@@ -374,7 +377,7 @@ impl Elaborator<'_> {
                     Select::Part(m, l) => {
                         let (m, l) = (self.const_int(ctx.scope, m)?, self.const_int(ctx.scope, l)?);
                         if (m > l) != (net.msb >= net.lsb) && m != l && net.width > 1 {
-                            self.error(
+                            self.core.error(
                                 *p,
                                 "part-select in the opposite direction to the declaration",
                                 "write the bounds in the declaration's order, e.g. `[7:4]` for `[7:0]`"
@@ -382,7 +385,7 @@ impl Elaborator<'_> {
                             return None;
                         }
                         let Some(w) = span(m, l) else {
-                            self.error(
+                            self.core.error(
                                 *p,
                                 "part-select wider than 65536 bits",
                                 "select at most the declared bits of the vector",
@@ -395,7 +398,7 @@ impl Elaborator<'_> {
                     Select::Up(b, w) | Select::Down(b, w) => {
                         let w = self.const_int(ctx.scope, w)?;
                         if w <= 0 || w as usize > MAX_WIDTH {
-                            self.error(
+                            self.core.error(
                                 *p,
                                 "indexed part-select width must be a positive constant of at most 65536",
                                 "give the number of bits to select, e.g. `d[s +: 8]`"
@@ -406,7 +409,7 @@ impl Elaborator<'_> {
                         let b = match bits::to_i64(&v.bits, v.signed) {
                             Some(b) => b,
                             None => {
-                                self.error(
+                                self.core.error(
                                     *p,
                                     "unsupported: variable indexed part-select on the left of an assignment",
                                     "use a constant base, or assign each possible window under an `if`/`case`",
@@ -428,7 +431,7 @@ impl Elaborator<'_> {
                 };
                 let out: Vec<Target> = idx.iter().map(|&i| (n, net.offset(i))).collect();
                 if out.iter().any(|t| t.1.is_none()) {
-                    self.warn(
+                    self.core.warn(
                         *p,
                         "assignment to bits outside the declared range is dropped",
                     );
@@ -443,7 +446,7 @@ impl Elaborator<'_> {
                 Some(out)
             }
             other => {
-                self.error(
+                self.core.error(
                     other.pos(),
                     "not an assignable expression (expected a name, a select or a concatenation)",
                     "assign a name, a bit or part-select of it, or a concatenation of those",
@@ -482,7 +485,7 @@ impl Elaborator<'_> {
                 let hit = match l {
                     Expr::Num(n, p) if n.bits.iter().any(|&b| b != B0 && b != B1) => {
                         if !c.casez {
-                            self.error(
+                            self.core.error(
                                 *p,
                                 format!("unsupported: x/z bits in a `case` item (`{}`)", n.text),
                                 "use `casez` with `?` or `z` for don't-care bits",
@@ -504,7 +507,7 @@ impl Elaborator<'_> {
                                     B1 => eqs.push(sel[k]),
                                     crate::front::verilog::lexer::BZ => {}
                                     _ => {
-                                        self.error(
+                                        self.core.error(
                                             *p,
                                             format!("unsupported: x bits in a `casez` item (`{}`); use `?`", n.text),
                                             "write don't-care bits as `?` or `z` in `casez` items",
@@ -513,15 +516,15 @@ impl Elaborator<'_> {
                                     }
                                 }
                             }
-                            self.aig.and_all(&eqs)
+                            self.core.aig.and_all(&eqs)
                         }
                     }
                     _ => {
                         let v = self.eval(&ctx, l, t.width, t.signed);
-                        bits::eq(&mut self.aig, &sel, &v)
+                        bits::eq(&mut self.core.aig, &sel, &v)
                     }
                 };
-                any = self.aig.or(any, hit);
+                any = self.core.aig.or(any, hit);
             }
             conds.push(any);
         }
@@ -564,7 +567,7 @@ impl Elaborator<'_> {
                 break;
             }
             if c != Lit::TRUE {
-                self.error(
+                self.core.error(
                     f.cond.pos(),
                     "for-loop condition is not constant; loop bounds must be constants",
                     "bound the loop by constants or parameters, e.g. `for (i = 0; i < N; i = i + 1)`"
@@ -573,18 +576,18 @@ impl Elaborator<'_> {
             }
             count += 1;
             if count > MAX_LOOP {
-                self.error(
+                self.core.error(
                     f.pos,
                     format!("for loop runs more than {} iterations", MAX_LOOP),
                     "check the loop's condition and step; equicone unrolls at most 65536 iterations"
                 );
                 break;
             }
-            let before = self.errors.len();
+            let before = self.core.errors.len();
             self.exec(scope, &f.body, env);
             let var = Expr::Ident(f.step.0, f.step.1);
             self.proc_assign(scope, &var, &f.step.2, f.step.1, env);
-            if self.errors.len() > before {
+            if self.core.errors.len() > before {
                 break;
             }
         }

@@ -22,18 +22,18 @@ impl<'a> Elaborator<'a> {
     pub(crate) fn declare_functions(&mut self, scope: u32, items: &'a [Item]) {
         for it in items {
             if let Item::Function(f) = it {
-                if self.scopes[scope as usize].syms.contains_key(&f.name) {
-                    let n = self.name(f.name);
-                    self.error(
+                if self.core.scopes[scope as usize].syms.contains_key(&f.name) {
+                    let n = self.core.name(f.name);
+                    self.core.error(
                         f.pos,
                         format!("function `{n}` is declared twice"),
                         "give each function of a module its own name",
                     );
                     continue;
                 }
-                let id = self.funcs.len() as u32;
-                self.funcs.push((f, scope));
-                self.scopes[scope as usize]
+                let id = self.lowering.funcs.len() as u32;
+                self.lowering.funcs.push((f, scope));
+                self.core.scopes[scope as usize]
                     .syms
                     .insert(f.name, Symbol::Func(id));
             }
@@ -42,23 +42,24 @@ impl<'a> Elaborator<'a> {
 
     /// The function `sym` names in `scope`; reported when it names something else.
     fn function_of(&mut self, scope: u32, sym: Sym, pos: Pos) -> Option<u32> {
-        let name = self.name(sym);
+        let name = self.core.name(sym);
         if self
+            .lowering
             .calls
             .iter()
-            .any(|&c| self.funcs[c as usize].0.name == sym)
+            .any(|&c| self.lowering.funcs[c as usize].0.name == sym)
         {
-            self.error(
+            self.core.error(
                 pos,
                 format!("unsupported: recursive call of function `{name}`"),
                 "write the recursion as a `for` loop with constant bounds",
             );
             return None;
         }
-        match self.lookup(scope, sym) {
+        match self.core.lookup(scope, sym) {
             Some(Symbol::Func(id)) => Some(*id),
             Some(_) => {
-                self.error(
+                self.core.error(
                     pos,
                     format!("`{name}` is called but is not a function"),
                     "call a function declared with `function ... endfunction` in this module",
@@ -66,7 +67,7 @@ impl<'a> Elaborator<'a> {
                 None
             }
             None => {
-                self.error(
+                self.core.error(
                     pos,
                     format!("undeclared function `{name}`"),
                     "declare it with `function ... endfunction` in this module (functions of packages and tasks are not read)",
@@ -78,7 +79,7 @@ impl<'a> Elaborator<'a> {
 
     /// Result bounds, signedness and variable type of function `id`.
     fn result_shape(&mut self, id: u32) -> (i64, i64, bool, NetType) {
-        let (f, dscope) = self.funcs[id as usize];
+        let (f, dscope) = self.lowering.funcs[id as usize];
         let ty = f.ret.ty.unwrap_or(NetType::Reg);
         if ty == NetType::Integer {
             return (31, 0, true, ty);
@@ -92,7 +93,7 @@ impl<'a> Elaborator<'a> {
 
     /// The self-determined type of a call of `sym` (its result's), without running it.
     pub(crate) fn call_type(&mut self, scope: u32, sym: Sym) -> ExprType {
-        match self.lookup(scope, sym) {
+        match self.core.lookup(scope, sym) {
             Some(Symbol::Func(id)) => {
                 let (m, l, signed, _) = self.result_shape(*id);
                 ExprType {
@@ -116,23 +117,25 @@ impl<'a> Elaborator<'a> {
         args: &[Expr],
     ) -> Option<Value> {
         let id = self.function_of(ctx.scope, sym, pos)?;
-        let (f, dscope) = self.funcs[id as usize];
-        let fname = self.name(sym);
-        if self.calls.len() >= MAX_CALL_DEPTH {
-            self.error(
+        let (f, dscope) = self.lowering.funcs[id as usize];
+        let fname = self.core.name(sym);
+        if self.lowering.calls.len() >= MAX_CALL_DEPTH {
+            self.core.error(
                 pos,
                 format!("function calls nested deeper than {MAX_CALL_DEPTH} levels"),
                 "call fewer functions inside one another",
             );
             return None;
         }
-        let before = self.errors.len();
-        let prefix = format!("{}{fname}.", self.scopes[dscope as usize].prefix);
-        let module = self.scopes[dscope as usize].module;
-        let fscope = self.new_scope(Some(dscope), prefix, module);
+        let before = self.core.errors.len();
+        let prefix = format!("{}{fname}.", self.core.scopes[dscope as usize].prefix);
+        let module = self.core.scopes[dscope as usize].module;
+        let fscope = self.core.new_scope(Some(dscope), prefix, module);
         let (m, l, signed, ty) = self.result_shape(id);
         let vector = f.ret.range.is_some() || ty == NetType::Integer;
-        let ret = self.add_net(fscope, f.name, m, l, vector, signed, ty, None, f.pos);
+        let ret = self
+            .core
+            .add_net(fscope, f.name, m, l, vector, signed, ty, None, f.pos);
         let mut locals = vec![ret];
         let mut inputs = Vec::new();
         for d in &f.decls {
@@ -152,16 +155,18 @@ impl<'a> Elaborator<'a> {
             };
             let signed = d.signed || ty == NetType::Integer;
             for (n, p, _) in &d.names {
-                if self.scopes[fscope as usize].syms.contains_key(n) {
-                    let nm = self.name(*n);
-                    self.error(
+                if self.core.scopes[fscope as usize].syms.contains_key(n) {
+                    let nm = self.core.name(*n);
+                    self.core.error(
                         *p,
                         format!("`{nm}` is declared twice in function `{fname}`"),
                         "give each argument and variable of a function its own name",
                     );
                     continue;
                 }
-                let net = self.add_net(fscope, *n, m, l, vector, signed, ty, d.dir, *p);
+                let net = self
+                    .core
+                    .add_net(fscope, *n, m, l, vector, signed, ty, d.dir, *p);
                 if d.dir == Some(Dir::Input) {
                     inputs.push(net);
                 } else {
@@ -169,12 +174,12 @@ impl<'a> Elaborator<'a> {
                 }
             }
         }
-        if self.errors.len() > before {
+        if self.core.errors.len() > before {
             return None;
         }
         if args.len() != inputs.len() {
             let (want, got) = (inputs.len(), args.len());
-            self.error(
+            self.core.error(
                 pos,
                 format!("function `{fname}` takes {want} argument(s), this call gives {got}"),
                 "give one argument per `input` of the function, in their order",
@@ -185,7 +190,7 @@ impl<'a> Elaborator<'a> {
         let mut env = outside.clone();
         // Arguments: assigned to the inputs (sized as assignments, IEEE 1364-2005 10.4.2).
         for (a, &n) in args.iter().zip(&inputs) {
-            let w = self.nets[n as usize].width as usize;
+            let w = self.core.nets[n as usize].width as usize;
             let t = self.expr_type(ctx, a);
             let mut v = self.eval(ctx, a, w.max(t.width), t.signed);
             v.truncate(w);
@@ -193,31 +198,31 @@ impl<'a> Elaborator<'a> {
                 .insert(n, v.into_iter().map(BitState::Set).collect());
         }
         for &n in &locals {
-            let net = &self.nets[n as usize];
-            let (w, p, nm) = (net.width as usize, net.pos, self.name(net.name));
+            let net = &self.core.nets[n as usize];
+            let (w, p, nm) = (net.width as usize, net.pos, self.core.name(net.name));
             let what = format!("initial value of `{nm}` in function `{fname}`");
-            let u = self.unknown_bits(w, p, &what, fscope);
+            let u = self.core.unknown_bits(w, p, &what, fscope);
             env.vars
                 .insert(n, u.into_iter().map(BitState::Set).collect());
         }
-        self.calls.push(id);
+        self.lowering.calls.push(id);
         self.exec(fscope, &f.body, &mut env);
-        self.calls.pop();
+        self.lowering.calls.pop();
         // No side effects: the variables outside the function keep their values.
         let changed = env.vars.iter().find(|(n, st)| {
-            let net = &self.nets[(**n & !NON_BLOCKING) as usize];
+            let net = &self.core.nets[(**n & !NON_BLOCKING) as usize];
             net.scope != fscope && outside.vars.get(n) != Some(st)
         });
         if let Some((n, _)) = changed {
-            let nm = self.net_name(*n & !NON_BLOCKING);
-            self.error(
+            let nm = self.core.net_name(*n & !NON_BLOCKING);
+            self.core.error(
                 pos,
                 format!("unsupported: function `{fname}` assigns `{nm}`, which is not its own variable"),
                 "let the function assign only its name and its own variables, and assign the result at the call",
             );
             return None;
         }
-        let w = self.nets[ret as usize].width as usize;
+        let w = self.core.nets[ret as usize].width as usize;
         let bits = (0..w)
             .map(|k| env.bit(ret, k).unwrap_or(Lit::FALSE))
             .collect();

@@ -18,7 +18,7 @@
 use super::super::bits;
 use super::super::context::{BitState, Env, EvalContext};
 use super::super::resolve::Resolver;
-use super::super::{Elaborator, UNKNOWN_BIT};
+use super::super::{Core, Elaborator, UNKNOWN_BIT};
 use crate::aig::{Lit, Node};
 use crate::design::{ClockEdge, InputBit, InputKind, Register, RegisterReset};
 use crate::front::verilog::ast::{Always, Edge, Expr, NetType, Select, Sensitivity, Stmt};
@@ -98,12 +98,124 @@ fn leading_if(body: &Stmt) -> Option<(&Expr, &Stmt, Option<&Stmt>, Pos)> {
     }
 }
 
-impl Elaborator<'_> {
+impl Clocked {
     /// Whether leaf `k` is a register bit.
     pub(crate) fn is_register_leaf(&self, k: u32) -> bool {
-        self.clocked.by_leaf.contains_key(&k)
+        self.by_leaf.contains_key(&k)
     }
 
+    /// After every module is elaborated: a variable written with `=` in one clocked block
+    /// and read directly by another is an error (its value there depends on the order the
+    /// simulator runs the blocks in).
+    pub(crate) fn check_blocks(&mut self, core: &mut Core) {
+        let blocks = std::mem::take(&mut self.blocks);
+        let mut writer: BTreeMap<u32, (usize, Pos)> = BTreeMap::new();
+        for (b, rec) in blocks.iter().enumerate() {
+            for &(n, p) in &rec.blocking {
+                writer.entry(n).or_insert((b, p));
+            }
+        }
+        if writer.is_empty() || blocks.len() < 2 {
+            return;
+        }
+        let mut marks = crate::aig::Marks::new();
+        let mut reported = BTreeSet::new();
+        for (b, rec) in blocks.iter().enumerate() {
+            marks.start(core.aig.len());
+            let mut stack: Vec<u32> = rec.roots.iter().map(|l| l.node()).collect();
+            while let Some(x) = stack.pop() {
+                if !marks.mark(x as usize) {
+                    continue;
+                }
+                match core.aig.node(x) {
+                    Node::And(a, c) => {
+                        stack.push(a.node());
+                        stack.push(c.node());
+                    }
+                    Node::Input(k) => {
+                        let o = core.owner[k as usize];
+                        if o & UNKNOWN_BIT != 0 {
+                            continue;
+                        }
+                        if let Some(&(wb, wp)) = writer.get(&o) {
+                            if wb != b && reported.insert(o) {
+                                let nm = core.net_name(o);
+                                let line = wp.line;
+                                core.error(
+                                    rec.pos,
+                                    format!("`{nm}` is assigned with `=` in the clocked block at line {line} and read by this clocked block: simulation order decides whether it sees the old or the new value, synthesis reads the register"),
+                                    format!("assign `{nm}` with `<=`"),
+                                );
+                            }
+                        }
+                    }
+                    Node::Const => {}
+                }
+            }
+        }
+    }
+
+    /// Before the outputs are resolved: an input of kind register for each register bit
+    /// assigned with `<=` (those assigned with `=` get theirs when first read).
+    pub(in crate::front::verilog::elaborate) fn registers_begin(
+        &mut self,
+        core: &mut Core,
+        r: &mut Resolver,
+    ) {
+        for i in 0..self.regs.len() {
+            let (leaf, pos) = (self.regs[i].leaf, self.regs[i].pos);
+            if let Some(d) = core.drivers[leaf as usize] {
+                let at = core.source_pos(pos);
+                let nm = core.leaf_name(leaf);
+                core.error(
+                    d.pos,
+                    format!("multiple drivers: `{nm}` is a register of the clocked block at {at} and is driven here too"),
+                    "drive each net bit from exactly one assignment, gate, port or always block",
+                );
+            }
+            if !self.regs[i].lazy {
+                let k = self.register_input(core, r, i);
+                self.eager.push((i, k));
+            }
+        }
+    }
+
+    /// The input of register `i`, created now.
+    fn register_input(&mut self, core: &Core, r: &mut Resolver, i: usize) -> usize {
+        let leaf = self.regs[i].leaf;
+        let lit = r.design_aig.add_input();
+        r.primary.insert(leaf, lit);
+        let o = core.owner[leaf as usize];
+        let net = &core.nets[o as usize];
+        let idx = net.vector.then(|| net.index(leaf - net.first));
+        let name = core.net_name(o);
+        let pos = core.source_pos(self.regs[i].pos);
+        let mut bit = InputBit::port(&name, idx, Some(pos));
+        bit.kind = InputKind::Register;
+        r.used_names.insert(bit.name.clone());
+        r.inputs.push(bit);
+        r.inputs.len() - 1
+    }
+
+    /// While resolving: leaf `k` read as a register assigned with `=` (its input, created on
+    /// first use).
+    pub(in crate::front::verilog::elaborate) fn lazy_register(
+        &mut self,
+        core: &Core,
+        r: &mut Resolver,
+        k: u32,
+    ) -> Option<Lit> {
+        let &i = self.by_leaf.get(&k)?;
+        if !self.regs[i].lazy {
+            return None;
+        }
+        let input = self.register_input(core, r, i);
+        self.reached.push((i, input));
+        r.primary.get(&k).copied()
+    }
+}
+
+impl Elaborator<'_> {
     /// One bit of an event's signal.
     fn event_bit(&mut self, scope: u32, e: &Expr) -> Option<Lit> {
         let ctx = EvalContext {
@@ -113,7 +225,7 @@ impl Elaborator<'_> {
         };
         let v = self.eval_self(&ctx, e);
         if v.bits.len() != 1 {
-            self.error(
+            self.core.error(
                 e.pos(),
                 format!("unsupported: a clock or reset event of {} bits", v.bits.len()),
                 "name a one-bit signal after `posedge`/`negedge`, e.g. `posedge clk` or `negedge rst_n`",
@@ -125,8 +237,8 @@ impl Elaborator<'_> {
 
     /// The leaf a literal reads directly (a net bit, possibly inverted).
     fn plain_leaf(&self, l: Lit) -> Option<u32> {
-        match self.aig.node(l.node()) {
-            Node::Input(k) if self.owner[k as usize] & UNKNOWN_BIT == 0 => Some(k),
+        match self.core.aig.node(l.node()) {
+            Node::Input(k) if self.core.owner[k as usize] & UNKNOWN_BIT == 0 => Some(k),
             _ => None,
         }
     }
@@ -149,7 +261,7 @@ impl Elaborator<'_> {
             sigs.push((ev.edge.unwrap_or(Edge::Rising), l, ev.expr.pos()));
         }
         if sigs.len() > 2 {
-            self.error(
+            self.core.error(
                 *at,
                 format!("unsupported: {} events in a clocked block's event list", sigs.len()),
                 "write one clock and at most one asynchronous reset, e.g. `@(posedge clk or negedge rst_n)`",
@@ -164,7 +276,7 @@ impl Elaborator<'_> {
         let lead = leading_if(&block.body);
         if sigs.len() == 2 {
             let Some((c, t, _, ipos)) = lead else {
-                self.error(
+                self.core.error(
                     *at,
                     "a clocked block with two events must begin with `if` on its reset (`if (rst) ... else ...`)",
                     "write `always @(posedge clk or posedge rst) if (rst) q <= 0; else q <= d;` (or `negedge rst_n` with `if (!rst_n)`)",
@@ -173,7 +285,7 @@ impl Elaborator<'_> {
             };
             let cond = self.eval_bool(&ctx, c);
             let Some(k) = sigs.iter().position(|s| s.1.node() == cond.node()) else {
-                self.error(
+                self.core.error(
                     c.pos(),
                     "the leading `if` of a block with two events must test one of them (the asynchronous reset)",
                     "test the reset named in the event list, e.g. `if (!rst_n)` for `negedge rst_n`",
@@ -187,7 +299,7 @@ impl Elaborator<'_> {
                 } else {
                     ("negedge", "low")
                 };
-                self.error(
+                self.core.error(
                     c.pos(),
                     format!(
                         "the reset's event is `{ev}` but the `if` does not test it active {test}"
@@ -204,7 +316,7 @@ impl Elaborator<'_> {
         if let Some((c, t, _, ipos)) = lead {
             let cond = self.eval_bool(&ctx, c);
             if let Some(k) = self.plain_leaf(cond) {
-                if super::sync_reset::is_reset_name(&self.leaf_name(k)) {
+                if super::sync_reset::is_reset_name(&self.core.leaf_name(k)) {
                     reset = Some((cond, t, false, ipos));
                 }
             }
@@ -240,9 +352,9 @@ impl Elaborator<'_> {
                         _ => {
                             constant = false;
                             if asynchronous {
-                                let nm = self.bit_name(n, off as u32);
-                                self.error(
-                                    t_pos(t).unwrap_or(pos),
+                                let nm = self.core.bit_name(n, off as u32);
+                                self.core.error(
+                                    statement_pos(t).unwrap_or(pos),
                                     format!("unsupported: the asynchronous reset branch gives `{nm}` a value that is not constant"),
                                     "assign constants in the reset branch (the reset state); load other values on the clock",
                                 );
@@ -269,10 +381,10 @@ impl Elaborator<'_> {
         for n in keys {
             let nb = env.vars.get(&(n | NON_BLOCKING));
             let bl = env.vars.get(&n);
-            let ty = self.nets[n as usize].ty;
+            let ty = self.core.nets[n as usize].ty;
             if nb.is_some() && bl.is_some() {
-                let nm = self.net_name(n);
-                self.error(
+                let nm = self.core.net_name(n);
+                self.core.error(
                     pos,
                     format!("`{nm}` is assigned with both `=` and `<=` in this clocked block; simulation and synthesis read such a mix differently"),
                     "assign a register with `<=` only, and use `=` only for temporaries that are written before they are read",
@@ -292,13 +404,13 @@ impl Elaborator<'_> {
                 rec.blocking.push((n, pos));
             }
             for (off, st) in states.iter().enumerate() {
-                let leaf = self.nets[n as usize].first + off as u32;
-                let cur = self.aig.input_lit(leaf as usize);
+                let leaf = self.core.nets[n as usize].first + off as u32;
+                let cur = self.core.aig.input_lit(leaf as usize);
                 let next = match *st {
                     BitState::Set(v) => v,
                     BitState::Partial {
                         value, assigned, ..
-                    } => self.aig.mux(assigned, value, cur),
+                    } => self.core.aig.mux(assigned, value, cur),
                     BitState::Unset(Some(_)) => cur,
                     BitState::Unset(None) => continue,
                 };
@@ -312,8 +424,8 @@ impl Elaborator<'_> {
                     })
                 });
                 if r.is_none() && reset.is_some_and(|x| x.2) {
-                    let nm = self.bit_name(n, off as u32);
-                    self.error(
+                    let nm = self.core.bit_name(n, off as u32);
+                    self.core.error(
                         pos,
                         format!("unsupported: `{nm}` is assigned in a block with an asynchronous reset but not in its reset branch"),
                         "give every register of the block a reset value, or move the registers without one to a block clocked without the reset",
@@ -336,32 +448,35 @@ impl Elaborator<'_> {
                 );
             }
         }
-        self.clocked.blocks.push(rec);
+        self.lowering.clocked.blocks.push(rec);
     }
 
     fn add_register(&mut self, r: RegRec, n: u32, off: u32) {
-        if let Some(&other) = self.clocked.by_leaf.get(&r.leaf) {
-            let first = self.source_pos(self.clocked.regs[other].pos);
-            let bn = self.bit_name(n, off);
-            self.error(
+        if let Some(&other) = self.lowering.clocked.by_leaf.get(&r.leaf) {
+            let first = self.core.source_pos(self.lowering.clocked.regs[other].pos);
+            let bn = self.core.bit_name(n, off);
+            self.core.error(
                 r.pos,
                 format!("multiple drivers: register `{bn}` is already assigned in the clocked block at {first}"),
                 "assign each register bit in exactly one always block",
             );
             return;
         }
-        if let Some(d) = self.drivers[r.leaf as usize] {
-            let first = self.source_pos(d.pos);
-            let bn = self.bit_name(n, off);
-            self.error(
+        if let Some(d) = self.core.drivers[r.leaf as usize] {
+            let first = self.core.source_pos(d.pos);
+            let bn = self.core.bit_name(n, off);
+            self.core.error(
                 r.pos,
                 format!("multiple drivers: `{bn}` is already driven at {first}"),
                 "drive each net bit from exactly one assignment, gate, port or always block",
             );
             return;
         }
-        self.clocked.by_leaf.insert(r.leaf, self.clocked.regs.len());
-        self.clocked.regs.push(r);
+        self.lowering
+            .clocked
+            .by_leaf
+            .insert(r.leaf, self.lowering.clocked.regs.len());
+        self.lowering.clocked.regs.push(r);
     }
 
     /// `lhs <= rhs;`: the value goes to the target's non-blocking slot, which later reads
@@ -389,7 +504,7 @@ impl Elaborator<'_> {
                     };
                     let t = self.expr_type(&ctx, rhs);
                     let v = self.eval(&ctx, rhs, t.width.max(1), t.signed)[0];
-                    let net = self.nets[n as usize].clone();
+                    let net = self.core.nets[n as usize].clone();
                     let ww = iv.bits.len() + 66;
                     let ie = bits::extend(iv.bits.clone(), ww, iv.signed);
                     let mut slots = env
@@ -399,12 +514,12 @@ impl Elaborator<'_> {
                         .unwrap_or_else(|| vec![BitState::Unset(None); net.width as usize]);
                     for (off, slot) in slots.iter_mut().enumerate() {
                         let idx = bits::constant(net.index(off as u32), ww);
-                        let hit = bits::eq(&mut self.aig, &ie, &idx);
+                        let hit = bits::eq(&mut self.core.aig, &ie, &idx);
                         if hit == Lit::FALSE {
                             continue;
                         }
                         *slot = match *slot {
-                            BitState::Set(old) => BitState::Set(self.aig.mux(hit, v, old)),
+                            BitState::Set(old) => BitState::Set(self.core.aig.mux(hit, v, old)),
                             BitState::Unset(_) if hit == Lit::TRUE => BitState::Set(v),
                             BitState::Unset(_) => BitState::Partial {
                                 value: v,
@@ -416,8 +531,8 @@ impl Elaborator<'_> {
                                 assigned,
                                 gap,
                             } => {
-                                let value = self.aig.mux(hit, v, value);
-                                let assigned = self.aig.or(hit, assigned);
+                                let value = self.core.aig.mux(hit, v, value);
+                                let assigned = self.core.aig.or(hit, assigned);
                                 self.settle(value, assigned, gap)
                             }
                         };
@@ -435,7 +550,7 @@ impl Elaborator<'_> {
         let v = self.eval(&ctx, rhs, w, t.signed);
         for (k, (n, off)) in targets.iter().enumerate() {
             if let Some(off) = off {
-                let width = self.nets[*n as usize].width as usize;
+                let width = self.core.nets[*n as usize].width as usize;
                 let e = env
                     .vars
                     .entry(*n | NON_BLOCKING)
@@ -445,122 +560,17 @@ impl Elaborator<'_> {
         }
     }
 
-    /// After every module is elaborated: a variable written with `=` in one clocked block
-    /// and read directly by another is an error (its value there depends on the order the
-    /// simulator runs the blocks in).
-    pub(crate) fn check_clocked_blocks(&mut self) {
-        let blocks = std::mem::take(&mut self.clocked.blocks);
-        let mut writer: BTreeMap<u32, (usize, Pos)> = BTreeMap::new();
-        for (b, rec) in blocks.iter().enumerate() {
-            for &(n, p) in &rec.blocking {
-                writer.entry(n).or_insert((b, p));
-            }
-        }
-        if writer.is_empty() || blocks.len() < 2 {
-            return;
-        }
-        let mut marks = crate::aig::Marks::new();
-        let mut reported = BTreeSet::new();
-        for (b, rec) in blocks.iter().enumerate() {
-            marks.start(self.aig.len());
-            let mut stack: Vec<u32> = rec.roots.iter().map(|l| l.node()).collect();
-            while let Some(x) = stack.pop() {
-                if !marks.mark(x as usize) {
-                    continue;
-                }
-                match self.aig.node(x) {
-                    Node::And(a, c) => {
-                        stack.push(a.node());
-                        stack.push(c.node());
-                    }
-                    Node::Input(k) => {
-                        let o = self.owner[k as usize];
-                        if o & UNKNOWN_BIT != 0 {
-                            continue;
-                        }
-                        if let Some(&(wb, wp)) = writer.get(&o) {
-                            if wb != b && reported.insert(o) {
-                                let nm = self.net_name(o);
-                                let line = wp.line;
-                                self.error(
-                                    rec.pos,
-                                    format!("`{nm}` is assigned with `=` in the clocked block at line {line} and read by this clocked block: simulation order decides whether it sees the old or the new value, synthesis reads the register"),
-                                    format!("assign `{nm}` with `<=`"),
-                                );
-                            }
-                        }
-                    }
-                    Node::Const => {}
-                }
-            }
-        }
-    }
-
-    /// Before the outputs are resolved: an input of kind register for each register bit
-    /// assigned with `<=` (those assigned with `=` get theirs when first read).
-    pub(in crate::front::verilog::elaborate) fn registers_begin(&mut self, r: &mut Resolver) {
-        for i in 0..self.clocked.regs.len() {
-            let (leaf, pos) = (self.clocked.regs[i].leaf, self.clocked.regs[i].pos);
-            if let Some(d) = self.drivers[leaf as usize] {
-                let at = self.source_pos(pos);
-                let nm = self.leaf_name(leaf);
-                self.error(
-                    d.pos,
-                    format!("multiple drivers: `{nm}` is a register of the clocked block at {at} and is driven here too"),
-                    "drive each net bit from exactly one assignment, gate, port or always block",
-                );
-            }
-            if !self.clocked.regs[i].lazy {
-                let k = self.register_input(r, i);
-                self.clocked.eager.push((i, k));
-            }
-        }
-    }
-
-    /// The input of register `i`, created now.
-    fn register_input(&mut self, r: &mut Resolver, i: usize) -> usize {
-        let leaf = self.clocked.regs[i].leaf;
-        let lit = r.design_aig.add_input();
-        r.primary.insert(leaf, lit);
-        let o = self.owner[leaf as usize];
-        let net = &self.nets[o as usize];
-        let idx = net.vector.then(|| net.index(leaf - net.first));
-        let name = self.net_name(o);
-        let pos = self.source_pos(self.clocked.regs[i].pos);
-        let mut bit = InputBit::port(&name, idx, Some(pos));
-        bit.kind = InputKind::Register;
-        r.used_names.insert(bit.name.clone());
-        r.inputs.push(bit);
-        r.inputs.len() - 1
-    }
-
-    /// While resolving: leaf `k` read as a register assigned with `=` (its input, created on
-    /// first use).
-    pub(in crate::front::verilog::elaborate) fn lazy_register(
-        &mut self,
-        r: &mut Resolver,
-        k: u32,
-    ) -> Option<Lit> {
-        let &i = self.clocked.by_leaf.get(&k)?;
-        if !self.clocked.regs[i].lazy {
-            return None;
-        }
-        let input = self.register_input(r, i);
-        self.clocked.reached.push((i, input));
-        r.primary.get(&k).copied()
-    }
-
     /// After the outputs: each register's next value, clock and reset in the design's graph.
     pub(in crate::front::verilog::elaborate) fn registers_finish(
         &mut self,
         r: &mut Resolver,
     ) -> Vec<Register> {
-        let mut todo: Vec<(usize, usize)> = std::mem::take(&mut self.clocked.eager);
+        let mut todo: Vec<(usize, usize)> = std::mem::take(&mut self.lowering.clocked.eager);
         let mut out = Vec::new();
         let mut at = 0;
         loop {
             if at == todo.len() {
-                let more = std::mem::take(&mut self.clocked.reached);
+                let more = std::mem::take(&mut self.lowering.clocked.reached);
                 if more.is_empty() {
                     break;
                 }
@@ -568,7 +578,7 @@ impl Elaborator<'_> {
             }
             let (i, input) = todo[at];
             at += 1;
-            let rec = self.clocked.regs[i].clone();
+            let rec = self.lowering.clocked.regs[i].clone();
             if rec.broken {
                 continue;
             }
@@ -576,7 +586,7 @@ impl Elaborator<'_> {
             let clock = self.resolve(r, rec.clock);
             let Some((cin, cinv)) = port_bit(r, clock) else {
                 let nm = r.inputs[input].name.clone();
-                self.error(
+                self.core.error(
                     rec.clock_pos,
                     format!("unsupported: the clock of register `{nm}` is not a top-level input port (a derived or gated clock)"),
                     "clock registers from an input port of the top module; compare clock gating as logic (an enable)",
@@ -602,7 +612,7 @@ impl Elaborator<'_> {
                     }
                     None if rs.asynchronous => {
                         let nm = r.inputs[input].name.clone();
-                        self.error(
+                        self.core.error(
                             rs.pos,
                             format!("unsupported: the asynchronous reset of register `{nm}` is not a top-level input port"),
                             "reset registers from an input port of the top module",
@@ -642,10 +652,10 @@ fn port_bit(r: &Resolver, l: Lit) -> Option<(usize, bool)> {
 }
 
 /// Where a statement is written, when it records that.
-fn t_pos(s: &Stmt) -> Option<Pos> {
+fn statement_pos(s: &Stmt) -> Option<Pos> {
     match s {
         Stmt::Assign(_, _, p) | Stmt::NonBlocking(_, _, p) | Stmt::If(_, _, _, p) => Some(*p),
-        Stmt::Block(v) => v.iter().find_map(t_pos),
+        Stmt::Block(v) => v.iter().find_map(statement_pos),
         Stmt::Case(c) => Some(c.pos),
         Stmt::For(f) => Some(f.pos),
         Stmt::Return(_, p) => Some(*p),

@@ -6,8 +6,10 @@
 //! of the design's functions run the function's body the same way (`call.rs`).
 //!
 //! State it needs: an [`super::context::Env`] per block (its own), the expression stage to
-//! evaluate right-hand sides and conditions, the nets' drivers it writes, and the decided
-//! coverage conditions it memoizes.
+//! evaluate right-hand sides and conditions, from [`super::core::Core`] the nets' drivers it
+//! writes, and its own [`super::Lowering`]: the decided coverage conditions it memoizes, the
+//! registers of clocked blocks ([`Clocked`], which the design build reads), the functions
+//! declared and the calls in progress.
 
 mod always;
 mod call;

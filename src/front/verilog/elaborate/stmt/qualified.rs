@@ -102,7 +102,7 @@ impl Elaborator<'_> {
         let mut s = st;
         let mut has_else = false;
         // Quiet: the statement itself is run afterwards and reports its own errors.
-        self.quiet += 1;
+        self.core.quiet += 1;
         while let Stmt::If(c, _, e, _) = s {
             let ctx = EvalContext {
                 scope,
@@ -120,7 +120,7 @@ impl Elaborator<'_> {
                 None => break,
             }
         }
-        self.quiet -= 1;
+        self.core.quiet -= 1;
         self.check_qualified(q, at, "if", &items, has_else, None);
     }
 
@@ -131,7 +131,7 @@ impl Elaborator<'_> {
         let mut ts = Tseitin::new();
         let c: Vec<_> = items
             .iter()
-            .map(|(l, _)| ts.lit(&self.aig, &mut sat, *l))
+            .map(|(l, _)| ts.lit(&self.core.aig, &mut sat, *l))
             .collect();
         // later[i] <-> some item after i matches.
         let n = c.len();
@@ -175,7 +175,7 @@ impl Elaborator<'_> {
         let mut ts = Tseitin::new();
         let none: Vec<_> = items
             .iter()
-            .map(|(l, _)| !ts.lit(&self.aig, &mut sat, *l))
+            .map(|(l, _)| !ts.lit(&self.core.aig, &mut sat, *l))
             .collect();
         match sat.solve_within(&none, Some(MAX_CONFLICTS)) {
             SatResult::Unsat => Found::None,
@@ -215,15 +215,15 @@ impl Elaborator<'_> {
             if seen.insert(n, ()).is_some() {
                 continue;
             }
-            match self.aig.node(n) {
+            match self.core.aig.node(n) {
                 Node::Const => {}
                 Node::Input(leaf) => {
-                    let o = self.owner[leaf as usize];
+                    let o = self.core.owner[leaf as usize];
                     if o & UNKNOWN_BIT != 0 {
                         continue;
                     }
                     let v = ts.var_of(n).is_some_and(|v| sat.value(v));
-                    let off = leaf - self.nets[o as usize].first;
+                    let off = leaf - self.core.nets[o as usize].first;
                     by_net.entry(o).or_default().insert(off, v);
                 }
                 Node::And(a, b) => {
@@ -234,13 +234,17 @@ impl Elaborator<'_> {
         }
         let mut parts = Vec::new();
         for (net, bits) in &by_net {
-            let info = &self.nets[*net as usize];
+            let info = &self.core.nets[*net as usize];
             if info.vector && bits.len() == info.width as usize {
                 let vals: Vec<bool> = bits.values().copied().collect();
-                parts.push(format!("{}={}", self.net_name(*net), binary(&vals)));
+                parts.push(format!("{}={}", self.core.net_name(*net), binary(&vals)));
             } else {
                 for (off, v) in bits.iter().rev() {
-                    parts.push(format!("{}={}", self.bit_name(*net, *off), u8::from(*v)));
+                    parts.push(format!(
+                        "{}={}",
+                        self.core.bit_name(*net, *off),
+                        u8::from(*v)
+                    ));
                 }
             }
         }
@@ -252,15 +256,16 @@ impl Elaborator<'_> {
 
     /// A warning, once per place and text (a module instantiated twice gives it once).
     fn warn_once(&mut self, p: Pos, msg: String) {
-        let sp = Some(self.source_pos(p));
+        let sp = Some(self.core.source_pos(p));
         if self
+            .core
             .warnings
             .iter()
             .any(|w| w.pos == sp && w.message == msg)
         {
             return;
         }
-        self.warn(p, msg);
+        self.core.warn(p, msg);
     }
 }
 

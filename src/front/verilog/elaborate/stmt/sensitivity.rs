@@ -129,8 +129,8 @@ impl Elaborator<'_> {
                 continue;
             }
             // Parameters, genvars and loop integers never change while the block runs.
-            let is_signal = match self.lookup(scope, s) {
-                Some(Symbol::Net(n)) => self.nets[*n as usize].ty != NetType::Integer,
+            let is_signal = match self.core.lookup(scope, s) {
+                Some(Symbol::Net(n)) => self.core.nets[*n as usize].ty != NetType::Integer,
                 _ => false,
             };
             if is_signal {
@@ -142,9 +142,9 @@ impl Elaborator<'_> {
         }
         let names: Vec<String> = missing
             .iter()
-            .map(|(s, p)| format!("`{}` (read at line {})", self.name(*s), p.line))
+            .map(|(s, p)| format!("`{}` (read at line {})", self.core.name(*s), p.line))
             .collect();
-        self.warn(
+        self.core.warn(
             at,
             format!(
                 "the event list misses {}: equicone reads the block as synthesis does (as if written `@*`); a simulator would not re-run it when only that changes (IEEE 1364-2005 clause 9.7)",

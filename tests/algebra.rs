@@ -9,6 +9,8 @@ use equicone::gen::{generate, Bug, GenFormat, GenSpec, Kind, Style};
 use equicone::{Design, Format, Lit};
 use std::sync::Arc;
 
+#[path = "algebra/lookup.rs"]
+mod lookup;
 #[path = "algebra/squarer.rs"]
 mod squarer;
 

@@ -18,6 +18,7 @@
 
 mod carry;
 pub mod coef;
+pub mod lookup;
 pub mod poly;
 mod remainder;
 mod truth;
@@ -88,6 +89,8 @@ pub struct Stats {
     pub peak_terms: usize,
     /// Terms of the remainder (0 when equal).
     pub remainder_terms: usize,
+    /// Lookup units used when the sides were rewritten apart ([`Prepared::check_by_sides`]).
+    pub lookup_units: usize,
 }
 
 /// The outcome of one word check.
@@ -171,6 +174,39 @@ impl<'a> Prepared<'a> {
         }
     }
 
+    /// Rewrite each side's word apart (reference minus candidate, both down to the inputs),
+    /// each with three-leaf units or, past their budget, with lookup units ([`lookup`]), and
+    /// give one verdict per bit as [`Prepared::check`] does. For words whose logic was
+    /// rewritten into lookup functions, where the joint three-leaf rewriting blows up.
+    pub fn check_by_sides(&self, limits: &Limits) -> WordCheck {
+        if self.reference.len() <= 128 {
+            self.check_sides_in::<u128>(limits)
+        } else {
+            self.check_sides_in::<Wide>(limits)
+        }
+    }
+
+    fn check_sides_in<C: Coef>(&self, limits: &Limits) -> WordCheck {
+        let (aig, reference, candidate) = (self.aig, &self.reference, &self.candidate);
+        let n = reference.len();
+        let mut stats = Stats::default();
+        let sides = side_poly::<C>(aig, reference, false, limits, &mut stats)
+            .and_then(|r| side_poly::<C>(aig, candidate, true, limits, &mut stats).map(|c| (r, c)));
+        let bits = match sides {
+            Err(stop) => remainder::simulated(aig, reference, candidate, stop),
+            Ok((mut r, c)) => {
+                r.add_poly(&c);
+                if r.is_zero() {
+                    vec![BitVerdict::Equal; n]
+                } else {
+                    stats.remainder_terms = r.len();
+                    remainder::verdicts(aig, reference, candidate, &r)
+                }
+            }
+        };
+        WordCheck { bits, stats }
+    }
+
     fn check_in<C: Coef>(&self, limits: &Limits) -> WordCheck {
         let (aig, reference, candidate, units) =
             (self.aig, &self.reference, &self.candidate, &self.units);
@@ -191,6 +227,60 @@ impl<'a> Prepared<'a> {
         };
         WordCheck { bits, stats }
     }
+}
+
+/// Terms allowed in the three-leaf attempt on one side before its lookup units are tried: the
+/// same scale as the portfolio's budget of an arithmetic word (a multiplier stays below one
+/// term per unit, a remapped one passes this within a few dozen steps).
+const SIDE_TERMS_BASE: usize = 20_000;
+/// Terms per three-leaf unit on top of [`SIDE_TERMS_BASE`].
+const SIDE_TERMS_PER_UNIT: usize = 8;
+/// Terms per lookup unit on top of [`SIDE_TERMS_BASE`] (a remapped multiplier stays below 64
+/// per unit while it is rewritten: 32x32 peaks at 136,886 terms over 2,340 lookup units;
+/// random logic passes the bound within a few steps).
+const LOOKUP_TERMS_PER_UNIT: usize = 128;
+
+/// The polynomial of one side's word (negated when `negate`) over the inputs: with three-leaf
+/// units first, with lookup units when those pass their budget (each attempt's budget scaled by
+/// its units, at most `limits.max_terms`).
+fn side_poly<C: Coef>(
+    aig: &Aig,
+    word: &[Lit],
+    negate: bool,
+    limits: &Limits,
+    stats: &mut Stats,
+) -> Result<Poly<C>, Stop> {
+    let (plus, minus): (&[Lit], &[Lit]) = if negate { (&[], word) } else { (word, &[]) };
+    let small = Units::build(aig, &[word]);
+    let first = Limits {
+        max_terms: limits
+            .max_terms
+            .min(SIDE_TERMS_BASE + SIDE_TERMS_PER_UNIT * small.units.len()),
+        deadline: limits.deadline,
+    };
+    // The figures are those of the rewriting that gave the polynomial (or gave up last).
+    let mut tried = Stats::default();
+    match rewrite(&small, plus, minus, &first, &mut tried) {
+        Err(Stop::TermBudget(_)) => {}
+        done => {
+            stats.units += small.units.len();
+            stats.adder_cells += small.adder_cells;
+            stats.xors += small.xors;
+            stats.steps += tried.steps;
+            stats.peak_terms = stats.peak_terms.max(tried.peak_terms);
+            return done;
+        }
+    }
+    let units = lookup::units(aig, &[word]);
+    stats.units += units.units.len();
+    stats.lookup_units += units.units.len();
+    let limits = Limits {
+        max_terms: limits
+            .max_terms
+            .min(SIDE_TERMS_BASE + LOOKUP_TERMS_PER_UNIT * units.units.len()),
+        deadline: limits.deadline,
+    };
+    rewrite(&units, plus, minus, &limits, stats)
 }
 
 /// Rewrite sum 2^i (plus_i - minus_i) down to the inputs.

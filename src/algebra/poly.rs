@@ -102,6 +102,14 @@ impl<C: Coef> Poly<C> {
         }
     }
 
+    /// `self += other` (same modulus).
+    pub fn add_poly(&mut self, other: &Poly<C>) {
+        debug_assert_eq!(self.bits, other.bits, "same modulus");
+        for (m, c) in other.terms() {
+            self.add_term(m, c, 1);
+        }
+    }
+
     /// The largest variable of any term (`None` for a constant polynomial).
     pub fn leading_var(&self) -> Option<u32> {
         self.terms

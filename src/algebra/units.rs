@@ -72,8 +72,8 @@ pub struct Unit {
     pub node: u32,
     /// Leaf nodes, increasing.
     pub leaves: Vec<u32>,
-    /// Truth table over the leaves.
-    pub tt: u8,
+    /// Truth table over the leaves (leaf j is bit j of the minterm).
+    pub tt: u64,
 }
 
 /// All units of a set of roots, ranked.
@@ -135,34 +135,28 @@ fn majority_tables() -> Vec<u8> {
 }
 
 /// The multilinear polynomial of truth table `tt` over leaves of ranks `ranks` (leaf j has
-/// rank `ranks[j]`): c_S = sum over T subset of S of (-1)^(|S|-|T|) f(T).
-pub fn moebius(tt: u8, ranks: &[u32]) -> UnitPoly {
+/// rank `ranks[j]`, at most six leaves): c_S = sum over T subset of S of (-1)^(|S|-|T|) f(T),
+/// computed by the in-place transform (one pass per leaf).
+pub fn moebius(tt: u64, ranks: &[u32]) -> UnitPoly {
     let k = ranks.len();
-    let mut out = Vec::new();
-    for s in 0..(1u32 << k) {
-        let mut c: i64 = 0;
-        let mut t = s;
-        loop {
-            let sign = if (s.count_ones() - t.count_ones()) % 2 == 0 {
-                1
-            } else {
-                -1
-            };
-            if (tt >> t) & 1 == 1 {
-                c += sign;
+    debug_assert!(k <= 6, "a unit has at most six leaves");
+    let mut c: Vec<i64> = (0..1usize << k).map(|m| (tt >> m & 1) as i64).collect();
+    for j in 0..k {
+        for s in 0..c.len() {
+            if s >> j & 1 == 1 {
+                c[s] -= c[s ^ (1 << j)];
             }
-            if t == 0 {
-                break;
-            }
-            t = (t - 1) & s;
         }
-        if c != 0 {
+    }
+    let mut out = Vec::new();
+    for (s, &cs) in c.iter().enumerate() {
+        if cs != 0 {
             let mut mono: Vec<u32> = (0..k)
                 .filter(|j| s >> j & 1 == 1)
                 .map(|j| ranks[j])
                 .collect();
             mono.sort_unstable_by(|a, b| b.cmp(a));
-            out.push((mono, c));
+            out.push((mono, cs));
         }
     }
     out
@@ -305,7 +299,7 @@ impl Units {
             units.push(Unit {
                 node: j,
                 leaves: cj.leaves.get().to_vec(),
-                tt: cj.tt,
+                tt: u64::from(cj.tt),
             });
         }
         // Every leaf is an input or a unit (else no polynomial is exact: give up the cuts).
@@ -496,8 +490,8 @@ fn exclusive_pairs(
                 {
                     continue;
                 }
-                let tw = expand(units[(rw - num_inputs) as usize].tt, &t, &u.leaves);
-                let tu = u.tt;
+                let tw = expand(units[(rw - num_inputs) as usize].tt as u8, &t, &u.leaves);
+                let tu = u.tt as u8;
                 if tw & tu == 0 {
                     partners[ru as usize].push((rw, Rel::Exclusive));
                     partners[rw as usize].push((ru, Rel::Exclusive));

@@ -53,6 +53,11 @@ pub const TERMS_BASE: usize = 20_000;
 pub const OTHER_TERMS: usize = 20_000;
 /// Seconds for such a word.
 pub const OTHER_SECONDS: f64 = 0.5;
+/// With `--engine algebra` alone, terms allowed when a word the joint rewriting gave back is
+/// rewritten again side by side with lookup units ([`Prepared::check_by_sides`]).
+pub const LOOKUP_TERMS: usize = 2_000_000;
+/// Seconds for that second attempt.
+pub const LOOKUP_SECONDS: u64 = 60;
 /// The term budget and the time cap of one word.
 fn word_budget(prepared: &Prepared<'_>, arithmetic_only: bool) -> (usize, Option<Duration>) {
     let scaled = TERMS_BASE + TERMS_PER_UNIT * prepared.units();
@@ -183,7 +188,30 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
             max_terms,
             deadline,
         };
-        let check = prepared.check(&limits);
+        let mut check = prepared.check(&limits);
+        let gave_up = |c: &crate::algebra::WordCheck| {
+            c.bits.iter().any(|b| {
+                matches!(
+                    b,
+                    BitVerdict::Undecided(Stop::TermBudget(_) | Stop::Timeout)
+                )
+            })
+        };
+        if !cx.arithmetic_only && gave_up(&check) && !cx.limits.expired() {
+            let cap = Instant::now() + Duration::from_secs(LOOKUP_SECONDS);
+            let deadline = cx.limits.remaining().map(|r| Instant::now() + r);
+            let limits = Limits {
+                max_terms: LOOKUP_TERMS,
+                deadline: Some(deadline.map_or(cap, |d| d.min(cap))),
+            };
+            let sides = prepared.check_by_sides(&limits);
+            log::debug!(
+                "algebra: {}-bit word rewritten side by side: {:?}",
+                word.len(),
+                sides.stats
+            );
+            check = sides;
+        }
         let mut decided = 0;
         let mut stop = None;
         for (&p, v) in word.iter().zip(&check.bits) {
@@ -220,6 +248,13 @@ pub(crate) fn run_algebra(cx: &Context<'_>, open: &[usize]) -> Result<StageOutpu
             s.steps,
             s.peak_terms
         );
+        if s.lookup_units > 0 {
+            note += &format!(
+                " (each side apart, {} lookup units of up to {} leaves)",
+                s.lookup_units,
+                crate::algebra::lookup::LEAVES
+            );
+        }
         if s.remainder_terms > 0 {
             note += &format!(", remainder of {} terms", s.remainder_terms);
         }

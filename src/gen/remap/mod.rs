@@ -3,7 +3,7 @@
 //! fewer literals), so the result computes the same function with almost no internal node in
 //! common with the source: a benchmark for proving restructured logic.
 
-mod cuts;
+pub(crate) mod cuts;
 pub mod isop;
 
 use super::emit::{is_identifier, Circuit, Net, Op};

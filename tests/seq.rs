@@ -7,6 +7,8 @@
 #[path = "verilog/common.rs"]
 #[allow(dead_code)]
 mod common;
+#[path = "seq/exact.rs"]
+mod exact;
 #[path = "oracle/mod.rs"]
 mod oracle;
 #[path = "seq/portmap.rs"]

@@ -51,6 +51,14 @@ pub struct ConeArgs {
     /// partial report (needs --report or --json); `equicone merge` joins the N parts.
     #[arg(long, value_name = "K/N")]
     shard: Option<String>,
+    /// Clocked designs: cycles from reset unrolled for the exact cone across cycles (which
+    /// inputs really change each output, and their first latency; 0: only the structural cone).
+    #[arg(long, value_name = "K", default_value_t = crate::seq::DEFAULT_EXACT_CYCLES)]
+    cycles: usize,
+    /// Clocked designs: how registers without a reset start (`0` is the usual convention for
+    /// the ISCAS-89 circuits).
+    #[arg(long, value_enum, default_value_t = super::clocked::InitUnsetArg::Free)]
+    init_unset: super::clocked::InitUnsetArg,
     #[command(flatten)]
     limits: LimitArgs,
 }
@@ -98,7 +106,7 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
     }
     if d.is_clocked() {
         eprintln!(
-            "warning: {} has {} register bits: the audit covers the logic of one clock cycle, with register outputs read as inputs; the section `across clock cycles` follows inputs through the registers (an input that reaches an output only that way, a clock or a reset, is not flagged unused)",
+            "warning: {} has {} register bits: the audit covers the logic of one clock cycle, with register outputs read as inputs; the sections `across clock cycles` follow inputs through the registers, structurally and exactly from reset (--cycles) (an input that reaches an output only that way, a clock or a reset, is not flagged unused)",
             d.name,
             d.registers.len()
         );
@@ -123,6 +131,8 @@ pub fn run_cone(a: &ConeArgs) -> Exit {
         text_evidence: a.evidence,
         shard,
         structure: a.design.load_written(&d).map(std::sync::Arc::new),
+        exact_cycles: Some(a.cycles),
+        init_unset: a.init_unset.into(),
     };
     let mut rep = cone::audit(&d, &opts, &limits);
     if let Some(stamp) = &mut rep.shard {

@@ -30,6 +30,11 @@ pub struct AuditOptions {
     /// that folds away (`b` in `a & (b | ~b)`) is then in the cone and flagged redundant,
     /// not unused. Ignored unless its inputs and outputs are the design's.
     pub structure: Option<std::sync::Arc<Design>>,
+    /// Cycles from reset the exact cone across cycles of a clocked design unrolls (`None`:
+    /// [`crate::seq::DEFAULT_EXACT_CYCLES`]; `Some(0)`: only the structural one).
+    pub exact_cycles: Option<usize>,
+    /// How registers without a reset start, for the exact cone across cycles.
+    pub init_unset: crate::seq::InitUnset,
 }
 
 /// The structural graph of `design`, from `written` (the same design read as written) when
@@ -224,8 +229,21 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
     }
     // A clocked design: the cones across cycles, which clear inputs used only through registers.
     let across_cycles = (design.is_clocked() && shard.is_none()).then(|| {
-        let c = crate::seq::cycle_cones(design);
+        let mut c = crate::seq::cycle_cones(design);
         keep_used_across_cycles(&mut flags, design, &c);
+        let cycles = opts
+            .exact_cycles
+            .unwrap_or(crate::seq::DEFAULT_EXACT_CYCLES);
+        if cycles > 0 {
+            let o = crate::seq::ExactOptions {
+                cycles,
+                init_unset: opts.init_unset,
+            };
+            match super::across::exact_across_cycles(design, &c, &o, opts.support.seed, limits) {
+                Ok(e) => c.exact = Some(e),
+                Err(why) => c.exact_not_built = Some(why),
+            }
+        }
         c
     });
     let inputs = design

@@ -6,6 +6,7 @@
 //! Entry points: [`audit`] for the `cone` command, [`support()`] for one output bit and
 //! [`compare_supports`] for prove's side-by-side hint on a differing output pair.
 
+mod across;
 mod audit;
 pub mod bits;
 mod cofactor;
@@ -20,6 +21,7 @@ pub mod structural;
 pub mod support;
 mod text;
 
+pub use across::exact_across_cycles;
 pub use audit::{audit, select_outputs, AuditOptions};
 pub use bits::Bits;
 pub use compare::{compare_supports, compare_supports_many, SupportComparison};

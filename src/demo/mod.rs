@@ -94,6 +94,7 @@ pub fn run() -> Result<String, String> {
             text_evidence: false,
             shard: None,
             structure: None,
+            ..AuditOptions::default()
         },
         &limits,
     );

@@ -13,6 +13,8 @@
 
 mod bmc;
 mod correspond;
+mod exact;
+mod exact_text;
 mod kinduct;
 mod names;
 mod product;
@@ -22,6 +24,10 @@ mod simulate;
 mod text;
 mod trace;
 
+pub use exact::{
+    exact_cones, Claim, DeadRegister, Decide, Decided, ExactCone, ExactCones, ExactInput,
+    ExactOptions, Influence, InfluenceEvidence, DEFAULT_EXACT_CYCLES,
+};
 pub use product::{HeldInput, InitUnset, Side, StartEqual};
 pub use reach::{cycle_cones, CycleCone, CycleCones};
 pub use report::{

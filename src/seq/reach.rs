@@ -27,6 +27,12 @@ pub struct CycleCones {
     pub outputs: Vec<CycleCone>,
     /// Registers that reach no output through any number of cycles.
     pub dead_registers: Vec<String>,
+    /// The exact cones across cycles (`cone --cycles K`), when built.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub exact: Option<super::exact::ExactCones>,
+    /// Why the exact cones were not built, when asked for.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub exact_not_built: Option<String>,
 }
 
 /// AIG inputs in the structural cone of `root` (ascending), visiting only the cone.
@@ -112,6 +118,8 @@ pub fn cycle_cones(d: &Design) -> CycleCones {
     CycleCones {
         outputs,
         dead_registers,
+        exact: None,
+        exact_not_built: None,
     }
 }
 
@@ -136,14 +144,19 @@ impl std::fmt::Display for CycleCones {
             )?;
         }
         if self.dead_registers.is_empty() {
-            writeln!(f, "dead registers: none")
+            writeln!(f, "dead registers: none")?;
         } else {
             writeln!(
                 f,
                 "dead registers ({}, reach no output in any cycle): {}",
                 self.dead_registers.len(),
                 self.dead_registers.join(", ")
-            )
+            )?;
+        }
+        match (&self.exact, &self.exact_not_built) {
+            (Some(e), _) => write!(f, "{e}"),
+            (None, Some(why)) => writeln!(f, "across clock cycles (exact): {why}"),
+            (None, None) => Ok(()),
         }
     }
 }

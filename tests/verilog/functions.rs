@@ -93,6 +93,27 @@ fn functions_match_icarus_verilog_on_every_input() {
     );
 }
 
+/// A loop variable declared in a function's `for` header is the function's own, and a
+/// `localparam` in the parameter port list is read (IEEE 1800-2017 clauses 12.7.1 and
+/// 23.2.3, from memory).
+const LOOP_IN_FUNCTION: &str = "
+module lzc #(parameter W = 8, localparam L = $clog2(W)) (input [W-1:0] a, output [L:0] lz);
+  function automatic [L:0] clz(input [W-1:0] v);
+    clz = W;
+    for (int i = 0; i < W; i++) if (v[i]) clz = W - 1 - i;
+  endfunction
+  assign lz = clz(a);
+endmodule";
+
+#[test]
+fn loop_variables_of_functions_and_local_parameter_ports_match_icarus_verilog() {
+    // Icarus Verilog 11 (iverilog -g2012) on all 256 input values.
+    exhaustive_against_icarus(LOOP_IN_FUNCTION, &[("a", 8)], &[("lz", 4)], "-g2012");
+    let top = format!("{LOOP_IN_FUNCTION}\nmodule top(input [7:0] a, output [3:0] lz);\n  lzc #(.W(8), .L(2)) u(.a(a), .lz(lz));\nendmodule");
+    let e = read_err(&top);
+    assert!(e.contains("has no parameter `L`"), "{e}");
+}
+
 /// Recursion, tasks, side effects, `output` arguments, `return` in a loop, wrong argument
 /// counts: one error each at file:line:column, no follow-on errors.
 #[test]

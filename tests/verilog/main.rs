@@ -11,6 +11,7 @@ mod hierarchy;
 mod iverilog_diff;
 mod large;
 mod late_constructs;
+mod memories;
 mod netlists;
 #[path = "../oracle/mod.rs"]
 mod oracle;

@@ -8,6 +8,7 @@ pub(crate) mod ast;
 mod elaborate;
 
 pub(crate) mod lexer;
+mod parse_array;
 mod parse_clocked;
 mod parse_decl;
 mod parse_expr;

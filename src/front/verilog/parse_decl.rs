@@ -12,6 +12,7 @@ impl Parser<'_, '_> {
     /// Direction, type, `signed` and range of a declaration (names not yet read).
     pub(super) fn decl_head(&mut self) -> ParseResult<Decl> {
         self.sv.decl_struct = None;
+        self.sv.decl_packed = None;
         let pos = self.peek_pos();
         let mut d = Decl {
             dir: None,
@@ -71,7 +72,7 @@ impl Parser<'_, '_> {
             }
             if self.peek_p(Punct::LBrack) {
                 d.range = Some(self.range()?);
-                self.refuse_packed_dims()?;
+                self.packed_dims(&mut d)?;
             }
         }
         Ok(d)

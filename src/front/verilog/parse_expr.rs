@@ -163,6 +163,9 @@ impl Parser<'_, '_> {
                     }
                     return Ok(Expr::Call(s, pos, args));
                 }
+                if let Some(e) = self.array_ref(s, pos, false)? {
+                    return Ok(e);
+                }
                 if let Some(e) = self.struct_member(s, pos)? {
                     return Ok(e);
                 }

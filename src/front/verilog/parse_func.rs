@@ -15,10 +15,27 @@ impl Parser<'_, '_> {
     pub(super) fn function(&mut self, out: &mut Vec<Item>) {
         let pos = self.bump().pos;
         let was = std::mem::replace(&mut self.in_function, true);
+        let outer_loops = std::mem::take(&mut self.loop_decls);
         let r = self.function_inner(pos);
         self.in_function = was;
+        // `for (int i = ...)` in the body: `i` is a variable of the function, not the module.
+        let loops = std::mem::replace(&mut self.loop_decls, outer_loops);
         match r {
-            Ok(f) => out.push(Item::Function(Box::new(f))),
+            Ok(mut f) => {
+                for (n, p) in loops {
+                    if !f.decls.iter().any(|d| d.names.iter().any(|x| x.0 == n)) {
+                        f.decls.push(Decl {
+                            dir: None,
+                            ty: Some(NetType::Integer),
+                            signed: true,
+                            range: None,
+                            names: vec![(n, p, None)],
+                            pos: p,
+                        });
+                    }
+                }
+                out.push(Item::Function(Box::new(f)))
+            }
             Err(Stop) => {
                 while !matches!(self.peek().kind, TokenKind::Eof)
                     && !self.peek_kw(kw::ENDFUNCTION)

@@ -16,6 +16,7 @@ impl Parser<'_, '_> {
         let sv = &mut self.sv;
         sv.mod_types.clear();
         sv.structs.clear();
+        sv.arrays.clear();
         sv.used.clear();
         sv.imports = sv.unit_imports.clone();
     }

@@ -218,6 +218,9 @@ impl Parser<'_, '_> {
         let t = self.bump();
         match t.kind {
             TokenKind::Ident(s) if !super::symbols::is_keyword(s) => {
+                if let Some(e) = self.array_ref(s, t.pos, true)? {
+                    return Ok(e);
+                }
                 if let Some(e) = self.struct_member(s, t.pos)? {
                     return Ok(e);
                 }

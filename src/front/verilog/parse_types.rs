@@ -40,7 +40,7 @@ pub fn num(v: i64, p: Pos) -> Expr {
     }
 }
 
-fn const_of(e: &Expr) -> Option<i64> {
+pub(super) fn const_of(e: &Expr) -> Option<i64> {
     match e {
         Expr::Num(n, _) if n.bits.len() <= 62 && n.bits.iter().all(|&b| b == B0 || b == B1) => {
             let mut v = 0i64;
@@ -59,7 +59,7 @@ fn const_of(e: &Expr) -> Option<i64> {
     }
 }
 
-fn bin(a: Expr, op: BinOp, b: Expr, p: Pos) -> Expr {
+pub(super) fn bin(a: Expr, op: BinOp, b: Expr, p: Pos) -> Expr {
     match (const_of(&a), const_of(&b), op) {
         (Some(x), Some(y), BinOp::Add) => num(x + y, p),
         (Some(x), Some(y), BinOp::Sub) => num(x - y, p),
@@ -97,7 +97,7 @@ pub fn width_of(t: &TypeDef, p: Pos) -> Expr {
 }
 
 /// Position within a member of its index `i` (0 = its least significant bit).
-fn pos_in(t: &TypeDef, i: Expr, p: Pos) -> Expr {
+pub(super) fn pos_in(t: &TypeDef, i: Expr, p: Pos) -> Expr {
     match &t.range {
         None => bin(i, BinOp::Sub, num(0, p), p),
         Some(r) => match (const_of(&r.msb), const_of(&r.lsb)) {

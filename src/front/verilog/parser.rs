@@ -378,9 +378,16 @@ impl<'s, 'n> Parser<'s, 'n> {
         }
         if self.eat_p(Punct::Hash) {
             self.expect_p(Punct::LParen, "`(` of the parameter port list")?;
+            // `#(parameter W = 8, localparam L = $clog2(W))`: a parameter without its own
+            // keyword is of the kind last written (IEEE 1800-2017 clause 23.2.3, from memory).
+            let mut local = false;
             loop {
-                self.eat_kw(kw::PARAMETER);
-                let mut pd = self.param_head(false)?;
+                if self.eat_kw(kw::LOCALPARAM) {
+                    local = true;
+                } else if self.eat_kw(kw::PARAMETER) {
+                    local = false;
+                }
+                let mut pd = self.param_head(local)?;
                 let (n, p) = self.ident("a parameter name")?;
                 self.expect_p(Punct::Assign, "`=`")?;
                 pd.assigns.push((n, p, self.expr()?));
@@ -436,6 +443,11 @@ impl<'s, 'n> Parser<'s, 'n> {
                     return Err(self.error(p, "expected a port direction (`input` or `output`)"))
                 }
             };
+            if self.peek_p(Punct::LBrack) {
+                let name = self.names.name(n).to_string();
+                return Err(self.unsupported_here(&format!("unpacked array port `{name}` (declare the port as one flat vector, e.g. `[N*W-1:0]`, and select its words with `[k*W +: W]`)")));
+            }
+            self.note_packed_name(n);
             d.names.push((n, p, None));
             if let Some(t) = self.sv.decl_struct.clone() {
                 self.sv.decl_struct = Some(t);
@@ -547,8 +559,14 @@ impl<'s, 'n> Parser<'s, 'n> {
             loop {
                 let (n, p) = self.ident("a name")?;
                 if self.peek_p(Punct::LBrack) {
-                    return Err(self.unsupported_here("arrays (memories)"));
+                    let flat = self.unpacked_decl(&d, n, p)?;
+                    out.push(Item::Decl(Box::new(flat)));
+                    if !self.eat_p(Punct::Comma) {
+                        break;
+                    }
+                    continue;
                 }
+                self.note_packed_name(n);
                 let init = if self.eat_p(Punct::Assign) {
                     if d.ty != Some(NetType::Wire) || d.dir.is_some() {
                         return Err(self.unsupported(
@@ -611,6 +629,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
             loop {
                 let lhs = self.expr()?;
+                let lhs = self.strip_signed_marker(lhs);
                 self.expect_p(Punct::Assign, "`=` in a continuous assignment")?;
                 let rhs = self.expr()?;
                 out.push(Item::Assign(Box::new((lhs, rhs)), pos));

@@ -54,4 +54,19 @@ pub struct SvScope {
     pub(super) pending: Vec<ParamDecl>,
     /// The struct type of the declaration being read, if any.
     pub(super) decl_struct: Option<TypeDef>,
+    /// The arrays of the module being read (see `parse_array.rs`).
+    pub(super) arrays: BTreeMap<Sym, ArrayShape>,
+    /// The packed dimensions of the declaration being read, when it has more than one.
+    pub(super) decl_packed: Option<Vec<Range>>,
+}
+
+/// The shape of an array declared in the module: what its selects are lowered against.
+#[derive(Clone, Debug)]
+pub struct ArrayShape {
+    /// Every dimension in select order: the unpacked ones first, then the packed ones.
+    pub dims: Vec<Range>,
+    /// How many of them are unpacked (0 for a packed multidimensional vector).
+    pub unpacked: usize,
+    /// Declared `signed` (a whole word of an unpacked array reads signed).
+    pub signed: bool,
 }

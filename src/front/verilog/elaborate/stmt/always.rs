@@ -1,7 +1,7 @@
 //! Combinational `always` blocks: symbolic execution of blocking assignments, `if`, `case`/`casez` and
 //! constant-bound `for` loops; a variable left unassigned on some path is a latch error.
 
-use super::super::bits::{self, extend};
+use super::super::bits;
 use super::super::context::{BitState, Env, EvalContext};
 use super::super::{span, Elaborator, Sym, Symbol, MAX_LOOP, MAX_WIDTH};
 use super::coverage::{self, Coverage};
@@ -210,57 +210,46 @@ impl Elaborator<'_> {
     }
 
     fn proc_assign(&mut self, scope: u32, lhs: &Expr, rhs: &Expr, pos: Pos, env: &mut Env) {
-        // A variable index on the left: r[i] = v writes bit i when i is in range.
-        if let Expr::Index(sym, ipos, sel) = lhs {
-            if let Select::Bit(ix) = &**sel {
-                let iv = {
-                    let ctx = EvalContext {
-                        scope,
-                        env: Some(env),
-                        constant: false,
-                    };
-                    self.eval_self(&ctx, ix)
-                };
-                if !bits::is_const(&iv.bits) {
-                    if let Some(n) = self.target_net(scope, *sym, *ipos, true) {
-                        let ctx = EvalContext {
-                            scope,
-                            env: Some(env),
-                            constant: false,
-                        };
-                        let t = self.expr_type(&ctx, rhs);
-                        let v = self.eval(&ctx, rhs, t.width.max(1), t.signed)[0];
-                        let net = self.core.nets[n as usize].clone();
-                        let w = net.width as usize;
-                        let ww = iv.bits.len() + 66;
-                        let ie = extend(iv.bits.clone(), ww, iv.signed);
-                        let entry = env
-                            .vars
-                            .entry(n)
-                            .or_insert_with(|| vec![BitState::Unset(None); w]);
-                        for (off, slot) in entry.iter_mut().enumerate() {
-                            let idx = bits::constant(net.index(off as u32), ww);
-                            let hit = bits::eq(&mut self.core.aig, &ie, &idx);
-                            *slot = match *slot {
-                                _ if hit == Lit::FALSE => *slot,
-                                BitState::Set(old) => BitState::Set(self.core.aig.mux(hit, v, old)),
-                                BitState::Unset(_) if hit == Lit::TRUE => BitState::Set(v),
-                                BitState::Unset(p) => BitState::Unset(Some(p.unwrap_or(pos))),
-                                BitState::Partial {
-                                    value,
-                                    assigned,
-                                    gap,
-                                } => {
-                                    let value = self.core.aig.mux(hit, v, value);
-                                    let assigned = self.core.aig.or(hit, assigned);
-                                    self.settle(value, assigned, gap)
-                                }
-                            };
-                        }
+        // A variable index on the left: `r[i] = v` writes bit i where i is in range, and
+        // `r[b +: w] = v` the bits the base puts the value on (`window.rs`).
+        let write = {
+            let ctx = EvalContext {
+                scope,
+                env: Some(env),
+                constant: false,
+            };
+            self.variable_write(&ctx, lhs, rhs)
+        };
+        if let Some(write) = write {
+            let Some(write) = write else {
+                return;
+            };
+            let w = self.core.nets[write.net as usize].width as usize;
+            let entry = env
+                .vars
+                .entry(write.net)
+                .or_insert_with(|| vec![BitState::Unset(None); w])
+                .clone();
+            let mut slots = entry;
+            for (off, hit, v) in write.bits {
+                let slot = &mut slots[off];
+                *slot = match *slot {
+                    BitState::Set(old) => BitState::Set(self.core.aig.mux(hit, v, old)),
+                    BitState::Unset(_) if hit == Lit::TRUE => BitState::Set(v),
+                    BitState::Unset(p) => BitState::Unset(Some(p.unwrap_or(pos))),
+                    BitState::Partial {
+                        value,
+                        assigned,
+                        gap,
+                    } => {
+                        let value = self.core.aig.mux(hit, v, value);
+                        let assigned = self.core.aig.or(hit, assigned);
+                        self.settle(value, assigned, gap)
                     }
-                    return;
-                }
+                };
             }
+            env.vars.insert(write.net, slots);
+            return;
         }
         let ctx = EvalContext {
             scope,

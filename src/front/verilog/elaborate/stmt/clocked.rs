@@ -15,13 +15,12 @@
 //! with both `=` and `<=`, or written with `=` in one clocked block and read by another
 //! (simulation order decides which value the reader sees), is an error naming it.
 
-use super::super::bits;
 use super::super::context::{BitState, Env, EvalContext};
 use super::super::resolve::Resolver;
 use super::super::{Core, Elaborator, UNKNOWN_BIT};
 use crate::aig::{Lit, Node};
 use crate::design::{ClockEdge, InputBit, InputKind, Register, RegisterReset};
-use crate::front::verilog::ast::{Always, Edge, Expr, NetType, Select, Sensitivity, Stmt};
+use crate::front::verilog::ast::{Always, Edge, Expr, NetType, Sensitivity, Stmt};
 use crate::front::verilog::pos::Pos;
 use std::collections::{BTreeMap, BTreeSet};
 
@@ -494,53 +493,42 @@ impl Elaborator<'_> {
             env: Some(env),
             constant: false,
         };
-        // A variable bit index: `q[i] <= v` writes bit i where i is in range.
-        if let Expr::Index(sym, ipos, sel) = lhs {
-            if let Select::Bit(ix) = &**sel {
-                let iv = self.eval_self(&ctx, ix);
-                if !bits::is_const(&iv.bits) {
-                    let Some(n) = self.target_net(scope, *sym, *ipos, true) else {
-                        return;
-                    };
-                    let t = self.expr_type(&ctx, rhs);
-                    let v = self.eval(&ctx, rhs, t.width.max(1), t.signed)[0];
-                    let net = self.core.nets[n as usize].clone();
-                    let ww = iv.bits.len() + 66;
-                    let ie = bits::extend(iv.bits.clone(), ww, iv.signed);
-                    let mut slots = env
-                        .vars
-                        .get(&(n | NON_BLOCKING))
-                        .cloned()
-                        .unwrap_or_else(|| vec![BitState::Unset(None); net.width as usize]);
-                    for (off, slot) in slots.iter_mut().enumerate() {
-                        let idx = bits::constant(net.index(off as u32), ww);
-                        let hit = bits::eq(&mut self.core.aig, &ie, &idx);
-                        if hit == Lit::FALSE {
-                            continue;
-                        }
-                        *slot = match *slot {
-                            BitState::Set(old) => BitState::Set(self.core.aig.mux(hit, v, old)),
-                            BitState::Unset(_) if hit == Lit::TRUE => BitState::Set(v),
-                            BitState::Unset(_) => BitState::Partial {
-                                value: v,
-                                assigned: hit,
-                                gap: pos,
-                            },
-                            BitState::Partial {
-                                value,
-                                assigned,
-                                gap,
-                            } => {
-                                let value = self.core.aig.mux(hit, v, value);
-                                let assigned = self.core.aig.or(hit, assigned);
-                                self.settle(value, assigned, gap)
-                            }
-                        };
+        // A variable index: `q[i] <= v` writes bit i where i is in range, and
+        // `q[b +: w] <= v` the bits the base puts the value on (`window.rs`).
+        if let Some(write) = self.variable_write(&ctx, lhs, rhs) {
+            let Some(write) = write else {
+                return;
+            };
+            let n = write.net;
+            let width = self.core.nets[n as usize].width as usize;
+            let mut slots = env
+                .vars
+                .get(&(n | NON_BLOCKING))
+                .cloned()
+                .unwrap_or_else(|| vec![BitState::Unset(None); width]);
+            for (off, hit, v) in write.bits {
+                let slot = &mut slots[off];
+                *slot = match *slot {
+                    BitState::Set(old) => BitState::Set(self.core.aig.mux(hit, v, old)),
+                    BitState::Unset(_) if hit == Lit::TRUE => BitState::Set(v),
+                    BitState::Unset(_) => BitState::Partial {
+                        value: v,
+                        assigned: hit,
+                        gap: pos,
+                    },
+                    BitState::Partial {
+                        value,
+                        assigned,
+                        gap,
+                    } => {
+                        let value = self.core.aig.mux(hit, v, value);
+                        let assigned = self.core.aig.or(hit, assigned);
+                        self.settle(value, assigned, gap)
                     }
-                    env.vars.insert(n | NON_BLOCKING, slots);
-                    return;
-                }
+                };
             }
+            env.vars.insert(n | NON_BLOCKING, slots);
+            return;
         }
         let Some(targets) = self.targets(&ctx, lhs, true) else {
             return;

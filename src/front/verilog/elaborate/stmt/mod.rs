@@ -18,5 +18,6 @@ mod coverage;
 mod qualified;
 mod sensitivity;
 mod sync_reset;
+mod window;
 pub(super) use clocked::Clocked;
 pub(super) use coverage::Coverage;

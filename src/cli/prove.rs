@@ -428,10 +428,15 @@ pub fn run(a: &ProveArgs) -> Exit {
     } else {
         report::check_text(&out)
     });
+    let verdict = out.verdict();
+    // The process ends right after this: freeing the two netlists as written (a string per
+    // signal and a list per gate) cost about 4 % of a 1,000,000-gate run; the operating
+    // system takes the memory back at once.
+    std::mem::forget((r, c, out));
     if let Some(code) = failed {
         return code;
     }
-    match out.verdict() {
+    match verdict {
         Verdict::Equivalent => Exit::Ok,
         Verdict::Different => Exit::Flagged,
         Verdict::Undecided => Exit::Undecided,

@@ -29,6 +29,7 @@ mod steps;
 mod sweep;
 pub mod unknowns;
 mod window;
+mod window_truth;
 mod words;
 
 use crate::aig::{random_words, simulate_into, SimTable};

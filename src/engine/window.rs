@@ -16,8 +16,10 @@
 //!
 //! A first, cheaper kind of query ([`Window::query_fresh`]) encodes a small window on its own,
 //! guarded by an activation literal, in a separate small solver: it proves most local rewrites
-//! at a cost bounded by the window, however large the graph.
+//! at a cost bounded by the window, however large the graph. Before that solver, a window with
+//! few leaves is decided by truth tables ([`super::window_truth`]), without SAT.
 
+use super::window_truth::{TruthAnswer as Truth, TruthWindow};
 use crate::aig::{Aig, Lit, Marks, Node};
 use crate::sat::{CLit, ClauseSink, Limits, Sat, SatResult, SatStats};
 
@@ -73,6 +75,8 @@ impl Fresh {
 
 /// A reusable window prover.
 pub(crate) struct Window {
+    /// Truth tables of small windows, tried before the fresh solver.
+    truth: TruthWindow,
     fresh: Fresh,
     sat: Sat<'static>,
     limits: Limits,
@@ -93,6 +97,7 @@ impl Window {
     /// A window prover under `limits`.
     pub(crate) fn new(limits: &Limits) -> Window {
         Window {
+            truth: TruthWindow::default(),
             fresh: Fresh {
                 sat: Sat::new(limits),
                 var: Vec::new(),
@@ -111,6 +116,11 @@ impl Window {
             scope: Vec::new(),
             spent: Vec::new(),
         }
+    }
+
+    /// Queries of [`Window::query_fresh`] decided by truth tables (no solver).
+    pub(crate) fn truth_answers(&self) -> usize {
+        self.truth.decided
     }
 
     /// Statistics over every solver used so far.
@@ -132,6 +142,11 @@ impl Window {
         budget: usize,
         conflicts: u64,
     ) -> WindowAnswer {
+        match self.truth.decide(f, a, b, budget) {
+            Some(Truth::Equal) => return WindowAnswer::Equal,
+            Some(Truth::Differ(values)) => return WindowAnswer::Differ(values),
+            None => {}
+        }
         if self.fresh.sat.stats().vars >= FRESH_VARS_PER_SOLVER {
             let used = self.fresh.sat.stats().vars;
             self.retired.add(&self.fresh.sat.stats());

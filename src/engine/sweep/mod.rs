@@ -207,10 +207,11 @@ pub(crate) fn sweep(
     st.ands_after = sw.f.num_ands();
     st.whole_cone_queries = sw.whole_cone;
     log::debug!(
-        "sweep: {:.3} s, seconds per stage {:.2?}, window answers {:?}, window stats {:?}, whole-cone queries {} with stats {:?}",
+        "sweep: {:.3} s, seconds per stage {:.2?}, window answers {:?} ({} by truth tables), window stats {:?}, whole-cone queries {} with stats {:?}",
         started.elapsed().as_secs_f64(),
         sw.times,
         sw.tally,
+        sw.window.truth_answers(),
         sw.window.stats(),
         sw.whole_cone,
         sw.global.stats()

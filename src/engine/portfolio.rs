@@ -466,8 +466,10 @@ fn run_bdd(cx: &Context<'_>, open: &[usize]) -> Result<StageOutput, String> {
         decided,
         seconds,
         note: format!(
-            "{} BDD nodes{}",
-            fig.nodes,
+            "{} BDD nodes made, at most {} alive at a time ({} garbage collections){}",
+            fig.made,
+            fig.peak,
+            fig.collections,
             if decided < open.len() {
                 format!(" (node limit {limit} or time limit reached)")
             } else {

@@ -142,7 +142,7 @@ pub fn diagnose(
         for &(ri, ci) in &differing {
             let rt = routes::route_table(r, ri, bus, rs, constraints.0, limits);
             let ct = routes::route_table(c, ci, bus, cs, constraints.1, limits);
-            let (mut differing_values, undecided_values) = split_values(&rt.routes, &ct.routes);
+            let (mut differing_values, undecided_values) = partition_values(&rt.routes, &ct.routes);
             // Where the reference follows one of its unknown values and unknowns are
             // don't-cares, the candidate may do anything: not a difference.
             if rep.dont_care_pairs > 0 {
@@ -197,7 +197,7 @@ fn by_partner(cmp: &mut SupportComparison, partner: &BTreeMap<&str, &str>) {
 
 /// The select values whose routes are proved different (both decided, not excluded, not
 /// equal), and those where either route is undecided.
-fn split_values(r: &[Route], c: &[Route]) -> (Vec<usize>, Vec<usize>) {
+fn partition_values(r: &[Route], c: &[Route]) -> (Vec<usize>, Vec<usize>) {
     let open = |x: &Route| matches!(x, Route::Undecided { .. });
     let (mut differing, mut undecided) = (Vec::new(), Vec::new());
     for (v, (a, b)) in r.iter().zip(c).enumerate() {
@@ -417,7 +417,7 @@ mod tests {
             seconds: 0.0,
         };
         let t = &d.routes[0];
-        let (differing, undecided) = split_values(&t.reference_routes, &t.candidate_routes);
+        let (differing, undecided) = partition_values(&t.reference_routes, &t.candidate_routes);
         assert_eq!((differing, undecided), (vec![1], vec![2, 3]));
         let t = diagnosis_text(&d);
         assert_eq!(t.matches('!').count(), 1, "{t}");

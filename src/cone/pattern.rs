@@ -8,23 +8,7 @@
 use super::bits::Bits;
 use super::flip::Fanout;
 use crate::aig::Aig;
-
-/// The generators' stream of 64-bit numbers (SplitMix64).
-struct Stream(u64);
-
-impl Stream {
-    fn next(&mut self) -> u64 {
-        self.0 = self.0.wrapping_add(0x9E37_79B9_7F4A_7C15);
-        let mut z = self.0;
-        z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
-        z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
-        z ^ (z >> 31)
-    }
-
-    fn below(&mut self, n: usize) -> usize {
-        (self.next() % n.max(1) as u64) as usize
-    }
-}
+use crate::rng::SplitMix64;
 
 /// Lane masks of the density levels: even lanes are level 0 (uniform), odd lane `l` is level
 /// `(l / 2) % 16`.
@@ -43,18 +27,18 @@ fn level_mask(level: usize) -> u64 {
 /// `words` words per input of mixed-density patterns: lanes of level 0 and 8 are uniform,
 /// levels 1..=7 have ones with probability 2^-level, levels 9..=15 zeros with 2^-(level-8).
 pub(crate) fn mixed_density(inputs: usize, words: usize, seed: u64) -> Vec<Vec<u64>> {
-    let mut s = Stream(seed ^ 0xD1B5_4A32_D192_ED03);
+    let mut s = SplitMix64::from_state(seed ^ 0xD1B5_4A32_D192_ED03);
     let masks: Vec<u64> = (0..16).map(level_mask).collect();
     (0..inputs)
         .map(|_| {
             (0..words)
                 .map(|_| {
-                    let mut w = s.next() & (masks[0] | masks[8]);
+                    let mut w = s.next_u64() & (masks[0] | masks[8]);
                     let (mut and, mut or) = (!0u64, 0u64);
                     for k in 1..8 {
-                        let r = s.next();
+                        let r = s.next_u64();
                         and &= r;
-                        or |= s.next();
+                        or |= s.next_u64();
                         w |= and & masks[k];
                         w |= or & masks[8 + k];
                     }
@@ -104,7 +88,7 @@ impl WalkInputs {
 /// flipped (half of the lanes flip control inputs when there are any).
 pub(crate) fn walk(model: &Bits, cands: &WalkInputs, seed: u64) -> Vec<Vec<u64>> {
     let n = model.len();
-    let mut s = Stream(seed ^ 0x6A09_E667_F3BC_C908);
+    let mut s = SplitMix64::from_state(seed ^ 0x6A09_E667_F3BC_C908);
     let mut rows: Vec<Vec<u64>> = (0..n)
         .map(|k| vec![if model.get(k) { !0u64 } else { 0 }])
         .collect();
@@ -119,7 +103,7 @@ pub(crate) fn walk(model: &Bits, cands: &WalkInputs, seed: u64) -> Vec<Vec<u64>>
             } else {
                 &cands.all
             };
-            let k = pool[s.below(pool.len())];
+            let k = pool[s.below(pool.len().max(1))];
             rows[k][0] ^= 1u64 << lane;
         }
     }

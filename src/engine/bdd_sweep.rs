@@ -19,15 +19,13 @@ use crate::hash::FastMap;
 use crate::sat::Limits;
 use std::collections::hash_map::Entry;
 
-/// BDD nodes one AND may create before its node becomes a cut point. Measured (one run each,
-/// loaded machine) on a 1024-requester arbiter against its `gen remap --k 6` rewrite: 30 nodes
-/// merged 8,323 AND nodes with 14,955 cut points in 0.6 s, 100 merged 11,601 with 11,361 cut
-/// points in 2.0 s, 300 reached the 4,000,000-node limit after 300 merges (the nodes of given
-/// up operations stay in the manager).
+/// BDD nodes one AND may create before its node becomes a cut point: fewer give more cut
+/// points, more let given-up operations fill the manager (the nodes they made stay); the
+/// measurements behind the choice are in docs/engine.md (BDD sweeping).
 pub(crate) const NODES_PER_AND: usize = 100;
 
 /// The manager's node limit for a graph of `ands` AND nodes: 64 per AND node, at least
-/// 200,000 and at most 4,000,000 (about 140 MiB).
+/// 200,000 and at most 4,000,000 (its memory: docs/engine.md).
 pub(crate) fn limit(ands: usize) -> usize {
     ands.saturating_mul(64).clamp(200_000, 4_000_000)
 }
@@ -276,18 +274,13 @@ mod tests {
     fn check_reduced(g: &Aig, image: &[Lit], seed: u64) {
         let (h, map) = reduce(g, image);
         assert_eq!(h.num_inputs(), g.num_inputs());
-        let mut x = seed.wrapping_mul(0x9E37_79B9_7F4A_7C15) | 1;
+        let mut rng = crate::rng::SplitMix64::new(seed, 0);
         let old: Vec<Lit> = (0..g.len() as u32)
             .map(|i| Lit::from_node(i, false))
             .collect();
         for _ in 0..64 {
             let v: Vec<bool> = (0..g.num_inputs())
-                .map(|_| {
-                    x ^= x << 13;
-                    x ^= x >> 7;
-                    x ^= x << 17;
-                    x & 1 == 1
-                })
+                .map(|_| rng.next_u64() & 1 == 1)
                 .collect();
             assert_eq!(eval(g, &v, &old), eval(&h, &v, &map));
         }
@@ -337,15 +330,10 @@ mod tests {
     /// Every image literal has the node's function on `words` random 64-bit patterns and
     /// points at an earlier node.
     pub(super) fn check_images(g: &Aig, image: &[Lit], seed: u64) {
-        let mut x = seed.wrapping_mul(0x9E37_79B9_7F4A_7C15) | 1;
+        let mut rng = crate::rng::SplitMix64::new(seed, 0);
         for _ in 0..64 {
             let v: Vec<bool> = (0..g.num_inputs())
-                .map(|_| {
-                    x ^= x << 13;
-                    x ^= x >> 7;
-                    x ^= x << 17;
-                    x & 1 == 1
-                })
+                .map(|_| rng.next_u64() & 1 == 1)
                 .collect();
             let all: Vec<Lit> = (0..g.len() as u32)
                 .map(|i| Lit::from_node(i, false))
@@ -371,13 +359,8 @@ mod oracle {
     fn random_aig(seed: u64, inputs: usize, ands: usize) -> Aig {
         let mut g = Aig::new();
         let mut lits: Vec<Lit> = (0..inputs).map(|_| g.add_input()).collect();
-        let mut x = seed.wrapping_mul(0x9E37_79B9_7F4A_7C15) | 1;
-        let mut next = move || {
-            x ^= x << 13;
-            x ^= x >> 7;
-            x ^= x << 17;
-            x
-        };
+        let mut rng = crate::rng::SplitMix64::new(seed, 0);
+        let mut next = move || rng.next_u64();
         for _ in 0..ands {
             // Mostly recent nodes, so that the graph is deep and has redundant structure.
             let pick = |r: u64, n: usize| n - 1 - (r as usize % n.min(12));

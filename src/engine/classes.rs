@@ -234,7 +234,7 @@ mod tests {
     use crate::aig::{random_words, simulate, Aig};
 
     #[test]
-    fn classes_pair_complements_and_split() {
+    fn classes_pair_complements_and_refine() {
         let mut g = Aig::new();
         let a = g.add_input();
         let b = g.add_input();
@@ -290,20 +290,20 @@ mod tests {
         let by_word = Classes::from_signatures(sigs);
         // The first word's classes, split by each further word, are the same partition too.
         let first: Vec<Vec<u64>> = pats.iter().map(|p| vec![p[0]]).collect();
-        let mut split = Classes::from_table(&simulate(&g, &first, 1), g.len());
+        let mut refined = Classes::from_table(&simulate(&g, &first, 1), g.len());
         for w in 1..words {
             let one: Vec<Vec<u64>> = pats.iter().map(|p| vec![p[w]]).collect();
-            split.refine(&simulate(&g, &one, 1).values, 0);
+            refined.refine(&simulate(&g, &one, 1).values, 0);
         }
-        assert_eq!(split.count(), whole.count());
-        assert_eq!(split.members(), whole.members());
+        assert_eq!(refined.count(), whole.count());
+        assert_eq!(refined.members(), whole.members());
         assert!(whole.count() > 5, "the graph should have classes");
         for a in 0..g.len() {
             assert_eq!(whole.candidate(a), by_word.candidate(a), "node {a}");
-            assert_eq!(whole.candidate(a), split.candidate(a), "node {a}");
+            assert_eq!(whole.candidate(a), refined.candidate(a), "node {a}");
             for b in 0..g.len() {
                 assert_eq!(whole.same_class(a, b), by_word.same_class(a, b));
-                assert_eq!(whole.same_class(a, b), split.same_class(a, b));
+                assert_eq!(whole.same_class(a, b), refined.same_class(a, b));
             }
         }
     }

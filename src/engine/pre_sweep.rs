@@ -21,8 +21,7 @@ pub(crate) const MIN_WORK: u64 = 1 << 27;
 pub(crate) const MIN_INPUTS: usize = 20;
 
 /// Sweep budget per node-word of the enumeration it may save: a quarter of the enumeration's
-/// time (one node-word took about 4.7 ns in one run of the remapped 12x12 multiplier's
-/// enumeration, 2^31 node-words in 10.2 s, on this 2-core machine under load).
+/// estimated time per node-word (the measurement behind it is in docs/engine.md).
 const SECONDS_PER_WORK: f64 = 1.2e-9;
 
 /// Estimated node-words of enumerating the group `members` with `support` inputs.

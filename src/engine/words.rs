@@ -31,8 +31,8 @@ pub const MAX_CONE: usize = 4_000_000;
 pub const MIN_XOR_SHARE: usize = 16;
 /// One XOR in this many must have a carry partner (the AND of its operands, see
 /// [`xor_count`]) for the portfolio to build units: arithmetic has one for most of its XORs,
-/// random logic with XOR gates almost none (a 1,000,000-gate random circuit spent 46 s in the
-/// units and rewriting before its word was given back).
+/// random logic with XOR gates almost none (the cost of building units there anyway is in
+/// docs/engine.md).
 pub const MIN_PAIRED_SHARE: usize = 8;
 /// Live terms allowed in the word polynomial in the portfolio (a blow-up shows early; the
 /// other methods get the word back).

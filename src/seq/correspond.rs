@@ -64,7 +64,7 @@ impl Classes {
     }
 
     /// Split every group by `key` of its members, keeping parts of two or more.
-    fn split_by<K: Ord>(&mut self, mut key: impl FnMut(Lit) -> K) {
+    fn refine_by<K: Ord>(&mut self, mut key: impl FnMut(Lit) -> K) {
         let mut out = Vec::new();
         for g in &self.groups {
             let mut parts: BTreeMap<K, Vec<Lit>> = BTreeMap::new();
@@ -81,9 +81,9 @@ impl Classes {
 
     /// Keep only what holds in the initial state: constants with their reset value, free initial
     /// values only with themselves.
-    pub fn split_by_init(&mut self, p: &Product) {
+    pub fn refine_by_init(&mut self, p: &Product) {
         let at = state_index(p);
-        self.split_by(|m| {
+        self.refine_by(|m| {
             if m.is_const() {
                 return Init::Const(m.is_complemented());
             }
@@ -192,7 +192,7 @@ pub fn keep_structural(p: &mut Product, classes: &mut Classes) -> usize {
         // Splitting only adds groups or drops members: unchanged sizes mean unchanged groups.
         let size = |c: &Classes| (c.groups.len(), c.groups.iter().map(Vec::len).sum::<usize>());
         let before = size(classes);
-        classes.split_by(|m| next[&m]);
+        classes.refine_by(|m| next[&m]);
         let after = size(classes);
         log::debug!(
             "clocked: structural pairing round {rounds}: {} groups of {} members",
@@ -234,7 +234,7 @@ pub fn make_inductive(
     let mut ts = Tseitin::new();
     let mut seed = 0x5E9_1000u64;
     let mut refinements = 0;
-    let (mut sim_splits, mut calls, mut ctis) = (0usize, 0usize, 0usize);
+    let (mut sim_refinements, mut calls, mut ctis) = (0usize, 0usize, 0usize);
     let start = std::time::Instant::now();
     loop {
         let mut quiet = 0;
@@ -244,9 +244,9 @@ pub fn make_inductive(
             }
             seed += 1;
             let ins = random_words(n_inputs, SIM_WORDS, seed);
-            if split_by_states(p, &at, classes, ins, SIM_WORDS, upto, &mut table) {
+            if refine_by_states(p, &at, classes, ins, SIM_WORDS, upto, &mut table) {
                 refinements += 1;
-                sim_splits += 1;
+                sim_refinements += 1;
                 quiet = 0;
             } else {
                 quiet += 1;
@@ -285,11 +285,11 @@ pub fn make_inductive(
             log::debug!("clocked: step miters by kind: {kinds:?}");
         }
         log::debug!(
-            "clocked: {} groups of {} members, {} step miters left by structure, {} simulation splits, {calls} SAT calls, {ctis} counterexamples, {:.2?}",
+            "clocked: {} groups of {} members, {} step miters left by structure, {} simulation refinements, {calls} SAT calls, {ctis} counterexamples, {:.2?}",
             classes.groups.len(),
             members.len(),
             miters.len(),
-            sim_splits,
+            sim_refinements,
             start.elapsed()
         );
         if miters.is_empty() {
@@ -299,7 +299,7 @@ pub fn make_inductive(
         // after a split, so the round goes on splitting with each one and skips pairs already
         // split apart; the next round starts from the finer groups.
         let mut group_of = group_index(classes);
-        let mut split = false;
+        let mut refined = false;
         for (r, m, x) in miters {
             if !group_of.contains_key(&r) || group_of.get(&r) != group_of.get(&m) {
                 continue;
@@ -323,15 +323,15 @@ pub fn make_inductive(
                             w[0] = if sat.value(v) { !0 } else { 0 };
                         }
                     }
-                    if split_by_states(p, &at, classes, ins, 1, upto, &mut table) {
+                    if refine_by_states(p, &at, classes, ins, 1, upto, &mut table) {
                         group_of = group_index(classes);
                         refinements += 1;
-                        split = true;
+                        refined = true;
                     }
                 }
             }
         }
-        if !split {
+        if !refined {
             return Ok(refinements);
         }
     }
@@ -342,7 +342,7 @@ pub fn make_inductive(
 /// every group holds in every run: each run is then a state the step must keep the groups in.
 /// Returns whether a group split.
 #[allow(clippy::too_many_arguments)]
-fn split_by_states(
+fn refine_by_states(
     p: &Product,
     at: &BTreeMap<u32, usize>,
     classes: &mut Classes,

@@ -308,7 +308,7 @@ pub fn exact_cones(
 fn prove_groups(p: &mut Product, limits: &Limits) -> Classes {
     let sim = super::simulate::simulate(p, 64, 4, 0x5E9_0002);
     let mut classes = Classes::from_signatures(p, &sim.signatures);
-    classes.split_by_init(p);
+    classes.refine_by_init(p);
     match correspond::make_inductive(p, &mut classes, limits) {
         Ok(_) => classes,
         Err(_) => Classes::default(),

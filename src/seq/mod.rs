@@ -129,7 +129,7 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     let sim = simulate::simulate(&p, o.sim_cycles.max(1), o.sim_words.max(1), 0x5E9_0001);
     log::debug!("clocked: simulated by {:.2?}", start.elapsed());
     let mut classes = Classes::from_signatures(&p, &sim.signatures);
-    classes.split_by_init(&p);
+    classes.refine_by_init(&p);
     let name_checks = report::name_matches(&p, &sim, o.port_map.as_deref());
     let mut stopped = None;
     // A large product first tries the pairing that is inductive by structure alone (no solver):

@@ -184,7 +184,7 @@ mod tests {
     use crate::sat::Limits;
 
     #[test]
-    fn a_queued_counterexample_splits_its_class() {
+    fn a_queued_counterexample_refines_its_class() {
         let x = xors();
         let limits = Limits::none();
         let mut sw = copied(&x.aig, &limits);

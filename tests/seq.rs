@@ -91,6 +91,21 @@ fn iscas89_proved_equal_to_copies_with_renamed_and_inverted_registers() {
             "{name}: flip-flops as SOURCE.md counts them"
         );
         let c = rewrite(&d, |k| k % 2 == 1);
+        // The pairing inductive by structure alone (tried first on large products) proves the
+        // rewritten copies too.
+        let structural = SeqOptions {
+            structural_first: 0,
+            ..options()
+        };
+        let rep = seq::check(&d, &c, &structural)
+            .map_err(|e| format!("{e:?}"))
+            .unwrap();
+        assert_eq!(rep.verdict, "equivalent", "{name} (structural):\n{rep}");
+        assert!(
+            rep.pairing_evidence.contains("inductive by structure"),
+            "{name}: {}",
+            rep.pairing_evidence
+        );
         let rep = seq::check(&d, &c, &options())
             .map_err(|e| format!("{e:?}"))
             .unwrap();
@@ -150,10 +165,20 @@ fn iscas89_mutants_differ_with_traces_the_oracle_replays() {
         let d = read(name, &text);
         let reference = seq_oracle::parse(&text);
         let (mut different, mut total) = (0, 0);
-        for m in mutants(&text) {
+        // Every mutant twice: with the SAT refinement of the pairing, and with the pairing
+        // inductive by structure alone first (as on large products); both must agree with the
+        // oracle.
+        let structural = SeqOptions {
+            structural_first: 0,
+            ..options()
+        };
+        for (m, o) in mutants(&text)
+            .into_iter()
+            .flat_map(|m| [(m.clone(), options()), (m, structural.clone())])
+        {
             total += 1;
             let c = read("mutant", &m);
-            let rep = seq::check(&d, &c, &options()).unwrap();
+            let rep = seq::check(&d, &c, &o).unwrap();
             let mutant = seq_oracle::parse(&m);
             match rep.verdict {
                 "different" => {
@@ -231,9 +256,20 @@ fn icarus_replays_every_trace_to_the_same_first_difference() {
         let text = std::fs::read_to_string(dir.join(format!("{name}.bench"))).unwrap();
         let d = read(name, &text);
         let reference = seq_oracle::parse(&text);
-        for m in mutants(&text) {
+        // Every other mutant with the pairing inductive by structure alone tried first (as on
+        // large products), so that Icarus replays the traces of both paths.
+        let structural = SeqOptions {
+            structural_first: 0,
+            ..options()
+        };
+        for (k, m) in mutants(&text).into_iter().enumerate() {
             let c = read("mutant", &m);
-            let rep = seq::check(&d, &c, &options()).unwrap();
+            let o = if k % 2 == 1 {
+                structural.clone()
+            } else {
+                options()
+            };
+            let rep = seq::check(&d, &c, &o).unwrap();
             let Some(t) = rep.trace.as_ref() else {
                 continue;
             };

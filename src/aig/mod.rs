@@ -11,7 +11,7 @@ mod sim;
 
 pub use lit::Lit;
 pub use marks::Marks;
-pub use sim::{eval, random_words, simulate, simulate_into, SimTable};
+pub use sim::{eval, random_words, simulate, simulate_into, simulate_prefix, SimTable};
 
 use crate::hash::FastMap;
 

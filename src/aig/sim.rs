@@ -48,11 +48,24 @@ pub fn simulate(aig: &Aig, inputs: &[Vec<u64>], words: usize) -> SimTable {
 
 /// [`simulate`] into an existing table, reusing its memory (for word-at-a-time passes).
 pub fn simulate_into(aig: &Aig, inputs: &[Vec<u64>], words: usize, table: &mut SimTable) {
+    simulate_prefix(aig, inputs, words, aig.len(), table);
+}
+
+/// [`simulate_into`] for the first `upto` nodes only (a graph that grew after the nodes of
+/// interest: nodes are in topological order, so a prefix is closed under fan-in).
+pub fn simulate_prefix(
+    aig: &Aig,
+    inputs: &[Vec<u64>],
+    words: usize,
+    upto: usize,
+    table: &mut SimTable,
+) {
     assert_eq!(inputs.len(), aig.num_inputs(), "one pattern row per input");
+    let upto = upto.min(aig.len());
     let mut values = std::mem::take(&mut table.values);
     values.clear();
-    values.resize(aig.len() * words, 0);
-    for (i, node) in aig.nodes().iter().enumerate() {
+    values.resize(upto * words, 0);
+    for (i, node) in aig.nodes()[..upto].iter().enumerate() {
         match *node {
             Node::Const => {}
             Node::Input(k) => {

@@ -11,7 +11,7 @@
 //! are constant before the solver sees them. Sound because the step assumes the groups hold.
 
 use super::product::{Init, Product};
-use crate::aig::{eval, Lit, Node};
+use crate::aig::{random_words, simulate_prefix, Lit, Node, SimTable};
 use crate::cnf::Tseitin;
 use crate::sat::{Limits, Sat, SatResult, StopReason};
 use std::collections::BTreeMap;
@@ -129,15 +129,6 @@ impl Constrained<'_> {
         }
         Constrained { sat, ts }
     }
-
-    /// The model's value of every AIG input of `p` (inputs outside the encoded cones: 0).
-    pub fn inputs(&self, p: &Product) -> Vec<bool> {
-        p.aig
-            .inputs()
-            .iter()
-            .map(|&n| self.ts.var_of(n).is_some_and(|v| self.sat.value(v)))
-            .collect()
-    }
 }
 
 /// The literals of `roots` with every group member's current value replaced by its
@@ -185,16 +176,83 @@ pub fn reduce(p: &mut Product, classes: &Classes, roots: &[Lit]) -> Vec<Lit> {
         .collect()
 }
 
+/// The part of `classes` that is inductive by structure alone, without a solver: each group is
+/// split by its members' next-state literals on the reduced logic, until every member's next
+/// value is the very literal of its representative's (so every step miter is constant false).
+/// Smaller than the pairing [`make_inductive`] finds (a pair whose next values agree only as
+/// functions is split apart), but inductive by construction; returns the number of rounds.
+pub fn keep_structural(p: &mut Product, classes: &mut Classes) -> usize {
+    let at = state_index(p);
+    let mut rounds = 0;
+    loop {
+        let members: Vec<Lit> = classes.groups.iter().flatten().copied().collect();
+        let nexts: Vec<Lit> = members.iter().map(|&m| next_of(p, &at, m)).collect();
+        let reduced = reduce(p, classes, &nexts);
+        let next: BTreeMap<Lit, Lit> = members.into_iter().zip(reduced).collect();
+        // Splitting only adds groups or drops members: unchanged sizes mean unchanged groups.
+        let size = |c: &Classes| (c.groups.len(), c.groups.iter().map(Vec::len).sum::<usize>());
+        let before = size(classes);
+        classes.refine_by(|m| next[&m]);
+        let after = size(classes);
+        log::debug!(
+            "clocked: structural pairing round {rounds}: {} groups of {} members",
+            after.0,
+            after.1
+        );
+        if after == before {
+            return rounds;
+        }
+        rounds += 1;
+    }
+}
+
+/// Words of random states per simulation round of [`make_inductive`].
+const SIM_WORDS: usize = 8;
+/// Simulation rounds in a row without a split before the solver takes over.
+const QUIET_ROUNDS: usize = 4;
+
 /// Refine `classes` until they are inductive; returns the number of refinements.
+///
+/// Each round first splits the groups with random states in which every group holds (bit-
+/// parallel simulation, no solver), until two rounds split nothing; then it asks the solver,
+/// miter by miter on the reduced logic, for a state where the groups hold and a group's next
+/// values differ. One solver serves every round: it holds only the definitions of the reduced
+/// logic (which reads representatives, never the members they replace, so every assignment is
+/// a state where the groups hold), plus the miters it proved constant. Each counterexample
+/// splits the groups together with 63 variants of it that keep the values of the miter's cone.
 pub fn make_inductive(
     p: &mut Product,
     classes: &mut Classes,
     limits: &Limits,
 ) -> Result<usize, StopReason> {
     let at = state_index(p);
+    let n_inputs = p.aig.num_inputs();
+    // Every next-state function lies in the first `upto` nodes; reductions add nodes after.
+    let upto = p.aig.len();
+    let mut table = SimTable::default();
+    let mut sat = Sat::new(limits);
+    let mut ts = Tseitin::new();
+    let mut seed = 0x5E9_1000u64;
     let mut refinements = 0;
+    let (mut sim_refinements, mut calls, mut ctis) = (0usize, 0usize, 0usize);
+    let start = std::time::Instant::now();
     loop {
-        // The step miters on the reduced logic, built before the solver borrows the graph.
+        let mut quiet = 0;
+        while quiet < QUIET_ROUNDS && !classes.groups.is_empty() {
+            if limits.expired() {
+                return Err(StopReason::Timeout);
+            }
+            seed += 1;
+            let ins = random_words(n_inputs, SIM_WORDS, seed);
+            if refine_by_states(p, &at, classes, ins, SIM_WORDS, upto, &mut table) {
+                refinements += 1;
+                sim_refinements += 1;
+                quiet = 0;
+            } else {
+                quiet += 1;
+            }
+        }
+        // The step miters on the reduced logic.
         let members: Vec<Lit> = classes.groups.iter().flatten().copied().collect();
         let nexts: Vec<Lit> = members.iter().map(|&m| next_of(p, &at, m)).collect();
         let reduced = reduce(p, classes, &nexts);
@@ -211,40 +269,148 @@ pub fn make_inductive(
             }
             at_member += g.len();
         }
+        if log::log_enabled!(log::Level::Debug) {
+            let side = |l: Lit| p.state[at[&l.node()]].side;
+            let mut kinds: BTreeMap<&str, usize> = BTreeMap::new();
+            for &(r, m, _) in &miters {
+                let k = if r.is_const() {
+                    "constant"
+                } else if side(r) == side(m) {
+                    "same design"
+                } else {
+                    "across designs"
+                };
+                *kinds.entry(k).or_default() += 1;
+            }
+            log::debug!("clocked: step miters by kind: {kinds:?}");
+        }
+        log::debug!(
+            "clocked: {} groups of {} members, {} step miters left by structure, {} simulation refinements, {calls} SAT calls, {ctis} counterexamples, {:.2?}",
+            classes.groups.len(),
+            members.len(),
+            miters.len(),
+            sim_refinements,
+            start.elapsed()
+        );
         if miters.is_empty() {
             return Ok(refinements);
         }
-        // One round: every miter against the groups of the round's start. A counterexample is a
-        // state where those groups hold, hence also the finer groups after a split, so the round
-        // goes on splitting with each one and skips pairs already split apart; the next round
-        // starts from the finer groups.
-        let mut c = Constrained::new(p, classes, limits);
+        // A counterexample holds the groups of the round's start, hence also the finer groups
+        // after a split, so the round goes on splitting with each one and skips pairs already
+        // split apart; the next round starts from the finer groups.
         let mut group_of = group_index(classes);
         let mut refined = false;
         for (r, m, x) in miters {
             if !group_of.contains_key(&r) || group_of.get(&r) != group_of.get(&m) {
                 continue;
             }
-            let l = c.ts.lit(&p.aig, &mut c.sat, x);
-            match c.sat.solve(&[l]) {
-                SatResult::Unsat => continue,
+            let l = ts.lit(&p.aig, &mut sat, x);
+            let scope = ts.cone_vars(&p.aig, &[x]);
+            sat.set_scope(Some(&scope));
+            calls += 1;
+            match sat.solve(&[l]) {
+                // False for every value of what the reduced logic reads: false in later rounds too.
+                SatResult::Unsat => crate::sat::ClauseSink::clause(&mut sat, &[!l]),
                 SatResult::Stopped(r) => return Err(r),
                 SatResult::Sat => {
-                    let ins = c.inputs(p);
-                    let members: Vec<Lit> = classes.groups.iter().flatten().copied().collect();
-                    let nexts: Vec<Lit> = members.iter().map(|&m| next_of(p, &at, m)).collect();
-                    let vals = eval(&p.aig, &ins, &nexts);
-                    let value: BTreeMap<Lit, bool> = members.into_iter().zip(vals).collect();
-                    classes.refine_by(|m| value[&m]);
-                    group_of = group_index(classes);
-                    refinements += 1;
-                    refined = true;
+                    ctis += 1;
+                    seed += 1;
+                    // The model on the miter's cone in every run (so each run splits the
+                    // miter's pair), random values elsewhere.
+                    let mut ins = random_words(n_inputs, 1, seed);
+                    for (k, w) in ins.iter_mut().enumerate() {
+                        if let Some(v) = ts.var_of(p.aig.inputs()[k]) {
+                            w[0] = if sat.value(v) { !0 } else { 0 };
+                        }
+                    }
+                    if refine_by_states(p, &at, classes, ins, 1, upto, &mut table) {
+                        group_of = group_index(classes);
+                        refinements += 1;
+                        refined = true;
+                    }
                 }
             }
         }
         if !refined {
             return Ok(refinements);
         }
+    }
+}
+
+/// Split `classes` by the next-state values of the states `ins` (words per AIG input) after
+/// setting every group member from its representative (constants to their value), so that
+/// every group holds in every run: each run is then a state the step must keep the groups in.
+/// Returns whether a group split.
+#[allow(clippy::too_many_arguments)]
+fn refine_by_states(
+    p: &Product,
+    at: &BTreeMap<u32, usize>,
+    classes: &mut Classes,
+    mut ins: Vec<Vec<u64>>,
+    words: usize,
+    upto: usize,
+    table: &mut SimTable,
+) -> bool {
+    let pos_of = |n: u32| match p.aig.node(n) {
+        Node::Input(k) => k as usize,
+        _ => unreachable!("state bits are inputs"),
+    };
+    for g in &classes.groups {
+        let rep: Vec<u64> = if g[0].is_const() {
+            vec![if g[0] == Lit::TRUE { !0 } else { 0 }; words]
+        } else {
+            let m = mask(g[0]);
+            ins[pos_of(g[0].node())].iter().map(|w| w ^ m).collect()
+        };
+        for &m in &g[1..] {
+            if !m.is_const() {
+                let k = pos_of(m.node());
+                let mk = mask(m);
+                for (w, r) in ins[k].iter_mut().zip(&rep) {
+                    *w = r ^ mk;
+                }
+            }
+        }
+    }
+    simulate_prefix(&p.aig, &ins, words, upto, table);
+    let next = |m: Lit| -> Vec<u64> {
+        let n = next_of(p, at, m);
+        (0..words).map(|w| table.lit_word(n, w)).collect()
+    };
+    let needs: Vec<bool> = classes
+        .groups
+        .iter()
+        .map(|g| {
+            let r = next(g[0]);
+            g[1..].iter().any(|&m| next(m) != r)
+        })
+        .collect();
+    if !needs.iter().any(|&b| b) {
+        return false;
+    }
+    let mut out = Vec::new();
+    for (g, need) in classes.groups.iter().zip(needs) {
+        if !need {
+            out.push(g.clone());
+            continue;
+        }
+        let mut parts: BTreeMap<Vec<u64>, Vec<Lit>> = BTreeMap::new();
+        for &m in g {
+            parts.entry(next(m)).or_default().push(m);
+        }
+        let mut parts: Vec<Vec<Lit>> = parts.into_values().filter(|v| v.len() > 1).collect();
+        parts.sort_by_key(|v| g.iter().position(|m| *m == v[0]));
+        out.extend(parts);
+    }
+    classes.groups = out;
+    true
+}
+
+fn mask(l: Lit) -> u64 {
+    if l.is_complemented() {
+        !0
+    } else {
+        0
     }
 }
 

@@ -69,7 +69,15 @@ pub struct SeqOptions {
     /// the same port on both sides). Its pairs without a reset start equal (an assumption,
     /// reported); every pair is still proved inductive like any other.
     pub port_map: Option<std::sync::Arc<crate::portmap::BitMap>>,
+    /// Products with more state bits than this (both designs) try the pairing that is
+    /// inductive by structure alone before the SAT refinement ([`STRUCTURAL_FIRST_STATE`]).
+    pub structural_first: usize,
 }
+
+/// Products with more state bits than this (both designs) try the pairing that is inductive by
+/// structure alone before the solver's refinement by default (see [`check`]); smaller ones go straight to
+/// the refinement, so their reports list every constant and duplicate register it proves.
+pub const STRUCTURAL_FIRST_STATE: usize = 8192;
 
 /// The depth k-induction tries by default.
 pub const AUTO_K_INDUCTION: usize = 8;
@@ -87,6 +95,7 @@ impl Default for SeqOptions {
             limits: Limits::none(),
             k_induction: None,
             port_map: None,
+            structural_first: STRUCTURAL_FIRST_STATE,
         }
     }
 }
@@ -112,10 +121,11 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     )
     .map_err(SeqError::Input)?;
     log::debug!(
-        "clocked: product of {} nodes, {} state bits built in {:.2?}",
+        "clocked: product of {} nodes, {} state bits built in {:.2?}, peak memory {}",
         p.aig.len(),
         p.state.len(),
-        start.elapsed()
+        start.elapsed(),
+        peak_memory()
     );
     let sim = simulate::simulate(&p, o.sim_cycles.max(1), o.sim_words.max(1), 0x5E9_0001);
     log::debug!("clocked: simulated by {:.2?}", start.elapsed());
@@ -123,52 +133,46 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     classes.refine_by_init(&p);
     let name_checks = report::name_matches(&p, &sim, o.port_map.as_deref());
     let mut stopped = None;
-    let refinements = match correspond::make_inductive(&mut p, &mut classes, &o.limits) {
-        Ok(n) => n,
-        Err(reason) => {
-            // Without an inductive pairing nothing is proved: keep no groups.
-            stopped = Some(reason);
-            classes.groups.clear();
-            0
+    // A large product first tries the pairing that is inductive by structure alone (no solver):
+    // when every output pair holds under it, or the unrolling finds a trace under it, the
+    // solver's refinement to the greatest pairing is not needed for the verdict.
+    let mut early = None;
+    if p.state.len() > o.structural_first {
+        let mut cs = classes.clone();
+        let rounds = correspond::keep_structural(&mut p, &mut cs);
+        let under = outputs_under(&mut p, &cs, &o.limits);
+        log::debug!(
+            "clocked: structural pairing after {rounds} round(s), {} output pair(s) open, by {:.2?}",
+            under.1.len(),
+            start.elapsed()
+        );
+        if under.1.is_empty() && under.2.is_none() {
+            early = Some((cs, rounds, under, None));
+        } else if under.2.is_none() {
+            if let bmc::Bmc::Found(f) = bmc::unroll(&mut p, &cs, &under.1, o.cycles, &o.limits) {
+                early = Some((cs, rounds, under, Some(f)));
+            }
+        }
+    }
+    let structural = early.is_some();
+    let (classes, refinements, (mut status, pending, stop), mut found) = match early {
+        Some(e) => e,
+        None => {
+            let refinements = match correspond::make_inductive(&mut p, &mut classes, &o.limits) {
+                Ok(n) => n,
+                Err(reason) => {
+                    // Without an inductive pairing nothing is proved: keep no groups.
+                    stopped = Some(reason);
+                    classes.groups.clear();
+                    0
+                }
+            };
+            let under = outputs_under(&mut p, &classes, &o.limits);
+            (classes, refinements, under, None)
         }
     };
-    // Output pairs under the pairing.
-    let mut status = vec![OutputStatus::Undecided; p.outputs.len()];
-    let mut pending = Vec::new();
-    // On the reduced logic (each paired register read through its group's representative).
-    let roots: Vec<_> = p
-        .outputs
-        .iter()
-        .flat_map(|op| [op.lit_r, op.lit_c])
-        .collect();
-    let reduced = correspond::reduce(&mut p, &classes, &roots);
-    let xors: Vec<_> = p
-        .outputs
-        .iter()
-        .zip(reduced.chunks(2))
-        .map(|(op, red)| (op.lit_r == op.lit_c, p.aig.xor(red[0], red[1])))
-        .collect();
-    {
-        let mut cs = Constrained::new(&p, &classes, &o.limits);
-        for (k, &(same, x)) in xors.iter().enumerate() {
-            if same {
-                status[k] = OutputStatus::Equivalent("structure");
-                continue;
-            }
-            if x == crate::aig::Lit::FALSE {
-                status[k] = OutputStatus::Equivalent("induction");
-                continue;
-            }
-            let l = cs.ts.lit(&p.aig, &mut cs.sat, x);
-            match cs.sat.solve(&[l]) {
-                crate::sat::SatResult::Unsat => status[k] = OutputStatus::Equivalent("induction"),
-                crate::sat::SatResult::Sat => pending.push(k),
-                crate::sat::SatResult::Stopped(reason) => {
-                    stopped.get_or_insert(reason);
-                    pending.push(k);
-                }
-            }
-        }
+    if let Some(reason) = stop {
+        stopped.get_or_insert(reason);
     }
     log::debug!(
         "clocked: pairing inductive after {refinements} refinement(s), output pairs under it, by {:.2?}",
@@ -179,7 +183,11 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     let mut cycles_checked = 0;
     let mut clean = false;
     if !pending.is_empty() {
-        match bmc::unroll(&mut p, &classes, &pending, o.cycles, &o.limits) {
+        let answer = match found.take() {
+            Some(f) => bmc::Bmc::Found(f),
+            None => bmc::unroll(&mut p, &classes, &pending, o.cycles, &o.limits),
+        };
+        match answer {
             bmc::Bmc::Found(f) => {
                 let t = build_trace(r, c, &p, &f.free, &f.init, o.init_unset);
                 trace = Some(confirm(r, c, &p, t, f.cycle)?);
@@ -209,7 +217,11 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
             }
         }
     }
-    log::debug!("clocked: unrolling done by {:.2?}", start.elapsed());
+    log::debug!(
+        "clocked: unrolling done by {:.2?}, peak memory {}",
+        start.elapsed(),
+        peak_memory()
+    );
     // k-induction on what the pairing left open; the unrolling is its base case.
     let mut k_induction = None;
     if clean {
@@ -267,6 +279,7 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
         status,
         open_under_cut,
         refinements,
+        structural,
         verdict,
         trace,
         cycles_checked,
@@ -279,6 +292,67 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
         sim_cycles: o.sim_cycles.max(1),
         seconds: start.elapsed().as_secs_f64(),
     }))
+}
+
+/// Each output pair's status under the pairing `classes` (inductive, holding from reset), the
+/// pairs it leaves open and why a query stopped, if one did. Checked on the reduced logic (each
+/// paired register read through its group's representative).
+fn outputs_under(
+    p: &mut Product,
+    classes: &Classes,
+    limits: &Limits,
+) -> (
+    Vec<OutputStatus>,
+    Vec<usize>,
+    Option<crate::sat::StopReason>,
+) {
+    let mut status = vec![OutputStatus::Undecided; p.outputs.len()];
+    let mut pending = Vec::new();
+    let mut stopped = None;
+    let roots: Vec<_> = p
+        .outputs
+        .iter()
+        .flat_map(|op| [op.lit_r, op.lit_c])
+        .collect();
+    let reduced = correspond::reduce(p, classes, &roots);
+    let xors: Vec<_> = p
+        .outputs
+        .iter()
+        .zip(reduced.chunks(2))
+        .map(|(op, red)| (op.lit_r == op.lit_c, p.aig.xor(red[0], red[1])))
+        .collect();
+    let mut cs = Constrained::new(p, classes, limits);
+    for (k, &(same, x)) in xors.iter().enumerate() {
+        if same {
+            status[k] = OutputStatus::Equivalent("structure");
+            continue;
+        }
+        if x == crate::aig::Lit::FALSE {
+            status[k] = OutputStatus::Equivalent("induction");
+            continue;
+        }
+        let l = cs.ts.lit(&p.aig, &mut cs.sat, x);
+        match cs.sat.solve(&[l]) {
+            crate::sat::SatResult::Unsat => status[k] = OutputStatus::Equivalent("induction"),
+            crate::sat::SatResult::Sat => pending.push(k),
+            crate::sat::SatResult::Stopped(reason) => {
+                stopped.get_or_insert(reason);
+                pending.push(k);
+            }
+        }
+    }
+    (status, pending, stopped)
+}
+
+/// The process's peak resident memory for the debug log (Linux `/proc`; `-` elsewhere).
+fn peak_memory() -> String {
+    std::fs::read_to_string("/proc/self/status")
+        .ok()
+        .and_then(|s| {
+            s.lines()
+                .find_map(|l| l.strip_prefix("VmHWM:").map(|v| v.trim().to_string()))
+        })
+        .unwrap_or_else(|| "-".to_string())
 }
 
 /// A trace from per-cycle input values and free initial values.

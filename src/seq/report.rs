@@ -254,6 +254,8 @@ pub struct Parts<'a> {
     pub status: Vec<OutputStatus>,
     pub open_under_cut: Vec<usize>,
     pub refinements: usize,
+    /// The pairing is the one inductive by structure alone (no SAT refinement).
+    pub structural: bool,
     pub verdict: Verdict,
     pub trace: Option<Trace>,
     pub cycles_checked: usize,
@@ -478,11 +480,19 @@ pub fn build(x: Parts<'_>) -> SeqReport {
         port_map: x.port_map.map(|m| m.file.clone()),
         map_mismatches,
         assumed_start_equal: p.start_equal.clone(),
-        pairing_evidence: format!(
-            "grouped by equal or complementary values in {} simulated runs of {} cycles from reset, kept where the initial values agree, then proved inductive by SAT after {} refinement(s)",
-            x.sim_runs, x.sim_cycles,
-            x.refinements
-        ),
+        pairing_evidence: if x.structural {
+            format!(
+                "grouped by equal or complementary values in {} simulated runs of {} cycles from reset, kept where the initial values agree, then split until every member's next value is its representative's as logic (inductive by structure, without SAT) after {} round(s)",
+                x.sim_runs, x.sim_cycles,
+                x.refinements
+            )
+        } else {
+            format!(
+                "grouped by equal or complementary values in {} simulated runs of {} cycles from reset, kept where the initial values agree, then proved inductive by SAT after {} refinement(s)",
+                x.sim_runs, x.sim_cycles,
+                x.refinements
+            )
+        },
         refinements: x.refinements,
         outputs,
         scope: crate::engine::Scope::ClockedFromReset,

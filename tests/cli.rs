@@ -117,6 +117,10 @@ mod exit_codes {
             b.to_str().unwrap(),
             "--pair-by",
             "position",
+            // The single-call miter: the sweep's truth-table windows now prove this pair
+            // without a conflict, so a conflict limit would not bind it.
+            "--engine",
+            "plain",
             "--conflict-limit",
             "1",
         ]);

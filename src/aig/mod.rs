@@ -7,10 +7,12 @@
 
 mod lit;
 mod marks;
+mod patterns;
 mod sim;
 
 pub use lit::Lit;
 pub use marks::Marks;
+pub use patterns::{mixed_density, one_hot_words};
 pub use sim::{eval, random_words, simulate, simulate_into, simulate_prefix, SimTable};
 
 use crate::hash::FastMap;

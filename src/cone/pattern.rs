@@ -1,7 +1,6 @@
 //! Structured input patterns for the "depends" claims of the cone audit, where uniform random
-//! patterns rarely sensitize an output to an input: patterns of mixed density (the even lanes
-//! of a word stay uniform, each odd lane draws its bits with its own probability, from 1/128 to
-//! 127/128, so sparse and dense vectors sit beside uniform ones), and walks from a SAT model (lane 0 the model, the
+//! patterns rarely sensitize an output to an input: patterns of mixed density
+//! ([`crate::aig::mixed_density`]), and walks from a SAT model (lane 0 the model, the
 //! other lanes the model with one to three inputs flipped, favouring the inputs with a large
 //! fan-out, the control inputs such as select lines).
 
@@ -9,45 +8,6 @@ use super::bits::Bits;
 use super::flip::Fanout;
 use crate::aig::Aig;
 use crate::rng::SplitMix64;
-
-/// Lane masks of the density levels: even lanes are level 0 (uniform), odd lane `l` is level
-/// `(l / 2) % 16`.
-fn level_mask(level: usize) -> u64 {
-    (0..64)
-        .filter(|l| {
-            if l % 2 == 0 {
-                level == 0
-            } else {
-                (l / 2) % 16 == level
-            }
-        })
-        .fold(0u64, |m, l| m | 1 << l)
-}
-
-/// `words` words per input of mixed-density patterns: lanes of level 0 and 8 are uniform,
-/// levels 1..=7 have ones with probability 2^-level, levels 9..=15 zeros with 2^-(level-8).
-pub(crate) fn mixed_density(inputs: usize, words: usize, seed: u64) -> Vec<Vec<u64>> {
-    let mut s = SplitMix64::from_state(seed ^ 0xD1B5_4A32_D192_ED03);
-    let masks: Vec<u64> = (0..16).map(level_mask).collect();
-    (0..inputs)
-        .map(|_| {
-            (0..words)
-                .map(|_| {
-                    let mut w = s.next_u64() & (masks[0] | masks[8]);
-                    let (mut and, mut or) = (!0u64, 0u64);
-                    for k in 1..8 {
-                        let r = s.next_u64();
-                        and &= r;
-                        or |= s.next_u64();
-                        w |= and & masks[k];
-                        w |= or & masks[8 + k];
-                    }
-                    w
-                })
-                .collect()
-        })
-        .collect()
-}
 
 /// Flip candidates of one output's cone for walks: every cone input, and separately the
 /// control-like ones (fan-out at least four times the cone's median and at most half of them).
@@ -113,22 +73,6 @@ pub(crate) fn walk(model: &Bits, cands: &WalkInputs, seed: u64) -> Vec<Vec<u64>>
 #[cfg(test)]
 mod tests {
     use super::*;
-
-    #[test]
-    fn densities_differ_by_lane() {
-        let w = mixed_density(64, 64, 3);
-        let ones = |lane: usize| -> u32 {
-            w.iter()
-                .flat_map(|r| r.iter())
-                .map(|x| (x >> lane & 1) as u32)
-                .sum()
-        };
-        // 4096 draws per lane: lane 15 (level 7, p = 1/128) about 32 ones, lane 31 (level 15)
-        // about 4064, lane 0 (uniform) about 2048.
-        assert!(ones(15) < 120, "{}", ones(15));
-        assert!(ones(31) > 3950, "{}", ones(31));
-        assert!((1700..2400).contains(&ones(0)), "{}", ones(0));
-    }
 
     #[test]
     fn walks_start_at_the_model_and_stay_near_it() {

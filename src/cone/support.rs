@@ -15,8 +15,8 @@
 use super::bits::Bits;
 use super::cofactor::Cofactorer;
 use super::flip::{Fanout, FlipSim};
-use super::pattern::{mixed_density, walk, WalkInputs};
-use crate::aig::{eval, random_words, Lit};
+use super::pattern::{walk, WalkInputs};
+use crate::aig::{eval, mixed_density, random_words, Lit};
 use crate::cnf::Tseitin;
 use crate::design::Design;
 use crate::sat::{Limits, Sat, SatResult, SatStats, StopReason};

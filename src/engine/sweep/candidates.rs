@@ -5,18 +5,20 @@
 
 use super::super::classes::{Classes, Signatures};
 use super::super::pairs::PairQuery;
-use crate::aig::{random_words, simulate_into, Aig, Lit, Node, SimTable};
+use crate::aig::{
+    mixed_density, one_hot_words, random_words, simulate_into, Aig, Lit, Node, SimTable,
+};
 
-/// Classes of `g`'s nodes after `words` words of random simulation from `seed`, and the
-/// input words simulated.
+/// Classes of `g`'s nodes after `words` words of random and structured simulation from
+/// `seed` ([`initial_words`]), and the input words simulated.
 pub(super) fn initial_classes(g: &Aig, words: usize, seed: u64) -> (Classes, Vec<Vec<u64>>) {
-    let ins = random_words(g.num_inputs(), words, seed ^ 0x5EED_5EED);
+    let ins = initial_words(g.num_inputs(), words, seed);
     // Signatures accumulated a word at a time: the partition of all words at once, with one
     // word of simulation values per node alive at a time.
     let mut table = SimTable::default();
     let mut row: Vec<Vec<u64>> = vec![vec![0]; ins.len()];
     let mut sigs = Signatures::new(g.len());
-    for w in 0..words {
+    for w in 0..ins.first().map_or(0, Vec::len) {
         for (r, i) in row.iter_mut().zip(&ins) {
             r[0] = i[w];
         }
@@ -25,6 +27,34 @@ pub(super) fn initial_classes(g: &Aig, words: usize, seed: u64) -> (Classes, Vec
     }
     drop(table);
     (Classes::from_signatures(sigs), ins)
+}
+
+/// Words of one-hot and one-cold vectors added to the first simulation.
+const ONE_HOT_WORDS: usize = 2;
+
+/// The first simulation's input words: `words` words alternating uniform random ones with
+/// mixed-density ones (sparse and dense vectors), then [`ONE_HOT_WORDS`] words of one-hot
+/// and one-cold vectors. Near-constant nodes (an arbiter's grant and its long runs of idle
+/// requesters) react to the structured vectors, which random ones rarely reach: on a
+/// 1024-requester arbiter against its remap, 15,989 classes instead of 6,915.
+fn initial_words(inputs: usize, words: usize, seed: u64) -> Vec<Vec<u64>> {
+    let uniform = random_words(inputs, words, seed ^ 0x5EED_5EED);
+    let mixed = mixed_density(inputs, words, seed);
+    let hot = one_hot_words(inputs, ONE_HOT_WORDS, seed);
+    (0..inputs)
+        .map(|k| {
+            (0..words)
+                .map(|w| {
+                    if w % 2 == 0 {
+                        uniform[k][w]
+                    } else {
+                        mixed[k][w]
+                    }
+                })
+                .chain(hot[k].iter().copied())
+                .collect()
+        })
+        .collect()
 }
 
 /// Side marks: in the reference's cones, in the candidate's cones.
@@ -57,7 +87,7 @@ mod tests {
         let x = xors();
         let (classes, ins) = initial_classes(&x.aig, 4, 1);
         assert_eq!(ins.len(), 2);
-        assert!(ins.iter().all(|w| w.len() == 4));
+        assert!(ins.iter().all(|w| w.len() == 4 + ONE_HOT_WORDS));
         let compl = x.x1.is_complemented() != x.x2.is_complemented();
         assert_eq!(classes.same_class(x.x1.index(), x.x2.index()), Some(compl));
         assert_eq!(classes.same_class(x.x1.index(), x.y.index()), None);

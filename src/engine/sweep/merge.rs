@@ -58,6 +58,8 @@ impl<'a> Sweeper<'a> {
             rev: vec![0],
             fo_head: vec![NO_EDGE],
             fo_next: vec![NO_EDGE; 2],
+            fside: vec![0],
+            cut: super::cut_match::CutScratch::default(),
             marks: Marks::new(),
             value: FastMap::default(),
             rng: SplitMix64::from_state(seed.wrapping_mul(GOLDEN) | 1),
@@ -73,8 +75,15 @@ impl<'a> Sweeper<'a> {
 impl Sweeper<'_> {
     /// Whether `a` equals one of `twins` or the representative's literal `rep` (literals of
     /// the merged graph): `Proved(lit)` with the literal it was proved equal to, `Refuted`
-    /// (the counterexample is queued) or `Open`.
-    pub(super) fn prove_equal(&mut self, a: Lit, rep: Option<Lit>, twins: &[Lit]) -> Outcome {
+    /// (the counterexample is queued) or `Open`; without `deep`, only the tiny window is tried
+    /// against the representative (`Partial` when it does not decide).
+    pub(super) fn prove_equal(
+        &mut self,
+        a: Lit,
+        rep: Option<Lit>,
+        twins: &[Lit],
+        deep: bool,
+    ) -> Outcome {
         // The small window against the twins first: found by structure, they are the likely
         // partners (a rewritten node's original), whereas in a class of near-constant nodes
         // the representative is often unrelated. Then the representative: the small window,
@@ -98,6 +107,9 @@ impl Sweeper<'_> {
             return Outcome::Open;
         };
         for stage in [TINY, SMALL, LARGE] {
+            if stage != TINY && !deep {
+                return Outcome::Partial;
+            }
             if stage == LARGE && !self.large_pays() {
                 break;
             }
@@ -118,6 +130,7 @@ impl Sweeper<'_> {
         let u = l.node();
         debug_assert_eq!(u as usize, self.rev.len());
         self.rev.push(i as u32);
+        self.fside.push(0);
         self.fo_head.push(NO_EDGE);
         self.fo_next.extend([NO_EDGE; 2]);
         if let Node::And(x, y) = self.f.node(u) {
@@ -253,7 +266,7 @@ mod tests {
         let mut sw = copied(&x.aig, &limits);
         let (a, b) = (image(&sw, x.x2), image(&sw, x.x1));
         assert_ne!(a, b, "hashing alone does not merge the two forms");
-        assert_eq!(sw.prove_equal(a, Some(b), &[]), Outcome::Proved(b));
+        assert_eq!(sw.prove_equal(a, Some(b), &[], true), Outcome::Proved(b));
         assert!(sw.pending.is_empty());
     }
 
@@ -263,7 +276,7 @@ mod tests {
         let limits = Limits::none();
         let mut sw = copied(&x.aig, &limits);
         let (a, b) = (image(&sw, x.x1), image(&sw, x.y));
-        assert_eq!(sw.prove_equal(a, Some(b), &[]), Outcome::Refuted);
+        assert_eq!(sw.prove_equal(a, Some(b), &[], true), Outcome::Refuted);
         let p = sw.pending[0].clone();
         assert_ne!(value(&x.aig, x.x1, &p), value(&x.aig, x.y, &p), "{p:?}");
     }
@@ -274,10 +287,13 @@ mod tests {
         let limits = Limits::none();
         let mut sw = copied(&x.aig, &limits);
         let (a, twin) = (image(&sw, x.x2), image(&sw, x.x1));
-        assert_eq!(sw.prove_equal(a, None, &[twin]), Outcome::Proved(twin));
+        assert_eq!(
+            sw.prove_equal(a, None, &[twin], true),
+            Outcome::Proved(twin)
+        );
         assert_eq!(sw.tally[TWIN_PROOFS], 1);
         let y = image(&sw, x.y);
-        assert_eq!(sw.prove_equal(a, None, &[y]), Outcome::Open);
+        assert_eq!(sw.prove_equal(a, None, &[y], true), Outcome::Open);
     }
 
     #[test]

@@ -10,6 +10,7 @@
 //! debug builds re-simulate every stored pattern on both graphs to check it.
 
 mod candidates;
+mod cut_match;
 mod merge;
 mod refine;
 mod tally;
@@ -117,8 +118,8 @@ pub(crate) fn sweep(
         crate::host::now_note()
     );
     progress.add_classes(st.classes as i64);
-    let mut sw = Sweeper::new(g, limits, cone.seed, ins);
     let side = candidates::sides(g, &cone.pairs);
+    let mut sw = Sweeper::new(g, limits, cone.seed, ins);
     // Counterexamples wait for a batch before they are simulated on the whole graph: one
     // at a time below 131,072 nodes, one more per 65,536 nodes, at most 64 (one word). A
     // pattern simulated at once often splits the very next candidate (a 1024-bit prefix adder
@@ -142,6 +143,7 @@ pub(crate) fn sweep(
         if built {
             sw.note_built(i, l);
         }
+        sw.fside[l.index()] |= side[i];
         if !querying {
             continue;
         }
@@ -154,6 +156,18 @@ pub(crate) fn sweep(
             st.merged_by_hashing += 1;
             continue;
         }
+        let cut = sw.match_cut(l, side[i]);
+        if let cut_match::Cut::Equal(u) = cut {
+            sw.map[i] = u;
+            sw.fside[u.index()] |= side[i];
+            st.merged_by_cut += 1;
+            progress.proved(1);
+            continue;
+        }
+        // A node that no node of the other design matches over its cut of anchors is a cut
+        // point when the tiny window does not decide it: kept apart (no costly window query;
+        // the nodes above it are matched over the cut in turn).
+        let deep = cut != cut_match::Cut::Apart;
         // The representative, unless both nodes belong to one design alone (merging them is
         // not needed to relate the designs), and members near the node in the merged graph.
         let t = (side[i] | side[r] == candidates::BOTH).then(|| sw.map[r].xor_complement(compl));
@@ -161,9 +175,10 @@ pub(crate) fn sweep(
         if t.is_none() && twins.is_empty() {
             continue;
         }
-        match sw.prove_equal(l, t, &twins) {
+        match sw.prove_equal(l, t, &twins, deep) {
             Outcome::Proved(u) => {
                 sw.map[i] = u;
+                sw.fside[u.index()] |= side[i];
                 st.merged_by_sat += 1;
                 progress.proved(1);
             }
@@ -179,6 +194,7 @@ pub(crate) fn sweep(
                 }
             }
             Outcome::Open | Outcome::Partial if t.is_none() => {}
+            Outcome::Open | Outcome::Partial if !deep => st.cut_points += 1,
             Outcome::Open | Outcome::Partial => {
                 st.unresolved += 1;
                 if limits.expired() {
@@ -217,8 +233,9 @@ pub(crate) fn sweep(
         sw.global.stats()
     );
     log::debug!(
-        "sweep: merged {} by hashing and {} by SAT, {} refuted, {} unresolved, {} patterns fed back; {} -> {} AND nodes; memory {}",
+        "sweep: merged {} by hashing, {} by cut matching and {} by SAT, {} refuted, {} unresolved, {} patterns fed back; {} -> {} AND nodes; memory {}",
         st.merged_by_hashing,
+        st.merged_by_cut,
         st.merged_by_sat,
         st.refuted,
         st.unresolved,
@@ -309,6 +326,11 @@ struct Sweeper<'a> {
     /// node, and the simulation words of the cone being lifted.
     marks: Marks,
     value: FastMap<u32, u64>,
+    /// For each node of the merged graph, the designs that reach it (side marks of the nodes
+    /// of `g` mapped onto it): the anchors of [`Sweeper::match_cut`] are reached by both.
+    fside: Vec<u8>,
+    /// Scratch space of the cut matching.
+    cut: cut_match::CutScratch,
     /// Every simulated pattern word per input (debug builds only, for the merge check).
     stored: Vec<Vec<u64>>,
 }

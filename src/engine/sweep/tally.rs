@@ -36,12 +36,20 @@ pub struct SweepStats {
     pub candidates: usize,
     /// Candidate pairs that hashing made equal without a query.
     pub merged_by_hashing: usize,
-    /// Candidate pairs proved equal by SAT and merged.
+    /// Candidate pairs proved equal by equal truth tables over a cut of anchors
+    /// (`cut_match.rs`) and merged.
+    pub merged_by_cut: usize,
+    /// Candidate pairs proved equal by a window query (SAT, or truth tables of the window)
+    /// and merged.
     pub merged_by_sat: usize,
     /// Candidate pairs separated by a counterexample.
     pub refuted: usize,
     /// Candidate pairs left open by the conflict limit.
     pub unresolved: usize,
+    /// Candidate pairs kept apart without a costly query (`cut_match.rs`): no node of the
+    /// other design matched the node over its cut of anchors and the tiny window did not
+    /// decide them.
+    pub cut_points: usize,
     /// Counterexample patterns fed back into simulation.
     pub patterns_fed_back: usize,
     /// Candidate pairs that needed a whole-cone query (the window did not decide them).
@@ -59,9 +67,11 @@ impl SweepStats {
         self.classes += o.classes;
         self.candidates += o.candidates;
         self.merged_by_hashing += o.merged_by_hashing;
+        self.merged_by_cut += o.merged_by_cut;
         self.merged_by_sat += o.merged_by_sat;
         self.refuted += o.refuted;
         self.unresolved += o.unresolved;
+        self.cut_points += o.cut_points;
         self.patterns_fed_back += o.patterns_fed_back;
         self.whole_cone_queries += o.whole_cone_queries;
         self.ands_before += o.ands_before;

@@ -19,5 +19,9 @@ mod preprocess;
 mod primitives;
 mod regress;
 mod rtl_styles;
+#[path = "../runner/mod.rs"]
+#[allow(dead_code)]
+mod runner;
 mod semantics;
 mod systemverilog;
+mod top_choice;

@@ -20,7 +20,6 @@ mod primitives;
 mod regress;
 mod rtl_styles;
 #[path = "../runner/mod.rs"]
-#[allow(dead_code)]
 mod runner;
 mod semantics;
 mod systemverilog;

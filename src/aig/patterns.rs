@@ -96,6 +96,7 @@ mod tests {
     }
 
     #[test]
+    #[allow(clippy::needless_range_loop)]
     fn one_hot_lanes_set_one_or_two_inputs() {
         let n = 100;
         let w = one_hot_words(n, 4, 9);

@@ -14,7 +14,7 @@
 
 use super::candidates::BOTH;
 use super::{Sweeper, NO_EDGE};
-use crate::aig::{Lit, Node};
+use crate::aig::{variable_word, Lit, Node};
 
 /// Leaves of a matching cut: 2^8 assignments, 4 words per table.
 const CUT_LEAVES: usize = 8;
@@ -51,16 +51,6 @@ pub(super) struct CutScratch {
     pub matched: usize,
 }
 
-/// The projection of leaf `j` (< 6) on one 64-bit word.
-const PROJECTION: [u64; 6] = [
-    0xAAAA_AAAA_AAAA_AAAA,
-    0xCCCC_CCCC_CCCC_CCCC,
-    0xF0F0_F0F0_F0F0_F0F0,
-    0xFF00_FF00_FF00_FF00,
-    0xFFFF_0000_FFFF_0000,
-    0xFFFF_FFFF_0000_0000,
-];
-
 impl CutScratch {
     /// A fresh query number: every stamp older than it is unvisited.
     fn next_query(&mut self, len: usize) -> u32 {
@@ -85,8 +75,9 @@ impl Sweeper<'_> {
 
     /// A literal of the merged graph equal to `l` (the image just built for a node of one
     /// design, `side` its design marks) and reached by the other design, found over a cut of
-    /// anchors.
-    pub(super) fn match_cut(&mut self, l: Lit, side: u8) -> Cut {
+    /// anchors; `rep` (the image of the class representative, when it belongs to the other
+    /// design) is preferred among equal matches.
+    pub(super) fn match_cut(&mut self, l: Lit, side: u8, rep: Option<Lit>) -> Cut {
         let u = l.node();
         if side == BOTH || side == 0 || !matches!(self.f.node(u), Node::And(..)) {
             return Cut::Unknown;
@@ -128,17 +119,10 @@ impl Sweeper<'_> {
         self.cut.tables.resize((1 + k) * words, 0);
         self.cut.slot[0] = 0;
         self.cut.leaves.sort_unstable();
-        for j in 0..k {
-            let n = self.cut.leaves[j] as usize;
-            self.cut.slot[n] = (1 + j) as u32;
+        for (j, &n) in self.cut.leaves.iter().enumerate() {
+            self.cut.slot[n as usize] = (1 + j) as u32;
             for w in 0..words {
-                self.cut.tables[(1 + j) * words + w] = if j < 6 {
-                    PROJECTION[j]
-                } else if (w >> (j - 6)) & 1 == 1 {
-                    u64::MAX
-                } else {
-                    0
-                };
+                self.cut.tables[(1 + j) * words + w] = variable_word(j, w as u64);
             }
         }
         // The node's own table: its expanded nodes in topological order.
@@ -159,12 +143,16 @@ impl Sweeper<'_> {
             self.cut.stack.push(n);
         }
         let mut edges = 0;
+        let mut best: Option<(u32, bool)> = None;
         while let Some(n) = self.cut.stack.pop() {
+            if edges > UP_EDGES {
+                break;
+            }
             let mut e = self.fo_head[n as usize];
             while e != NO_EDGE {
                 edges += 1;
                 if edges > UP_EDGES {
-                    return Cut::Unknown;
+                    break;
                 }
                 let p = e / 2;
                 e = self.fo_next[e as usize];
@@ -186,13 +174,30 @@ impl Sweeper<'_> {
                 let t = &self.cut.tables;
                 let same = (0..words).all(|w| t[at + w] == t[mine + w]);
                 let compl = !same && (0..words).all(|w| t[at + w] == !t[mine + w]);
-                if same || compl {
-                    self.cut.matched += 1;
-                    return Cut::Equal(Lit::from_node(p, compl != l.is_complemented()));
+                if (same || compl) && best.is_none_or(|(b, _)| p < b) {
+                    best = Some((p, compl));
                 }
             }
         }
-        Cut::Apart
+        // The representative when it is among the matches (the node every other member is
+        // merged onto), else the earliest match: the node the other design's later nodes were
+        // built on, so that hashing goes on finding them.
+        if let Some(r) = rep.filter(|r| self.cut.stamp[r.index()] == q && r.node() != u) {
+            let (at, t) = (self.cut.slot[r.index()] as usize * words, &self.cut.tables);
+            let same = (0..words).all(|w| t[at + w] == t[mine + w]);
+            let compl = !same && (0..words).all(|w| t[at + w] == !t[mine + w]);
+            if same || compl {
+                best = Some((r.node(), compl));
+            }
+        }
+        match best {
+            Some((p, compl)) => {
+                self.cut.matched += 1;
+                Cut::Equal(Lit::from_node(p, compl != l.is_complemented()))
+            }
+            None if edges > UP_EDGES => Cut::Unknown,
+            None => Cut::Apart,
+        }
     }
 
     /// Compute the table of AND node `n` from its fan-ins' slots into a new slot; returns
@@ -208,7 +213,7 @@ impl Sweeper<'_> {
             c.slot[x.index()] as usize * words,
             c.slot[y.index()] as usize * words,
         );
-        let (mx, my) = (mask(x), mask(y));
+        let (mx, my) = (x.complement_mask(), y.complement_mask());
         for w in 0..words {
             let v = (c.tables[ax + w] ^ mx) & (c.tables[ay + w] ^ my);
             c.tables.push(v);
@@ -217,12 +222,147 @@ impl Sweeper<'_> {
     }
 }
 
-/// All ones for a complemented literal, else zero.
-#[inline]
-fn mask(l: Lit) -> u64 {
-    if l.is_complemented() {
-        u64::MAX
-    } else {
-        0
+#[cfg(test)]
+mod tests {
+    use super::super::candidates::sides;
+    use super::super::fixture::{copied, image};
+    use super::*;
+    use crate::aig::Aig;
+    use crate::engine::pairs::PairQuery;
+    use crate::sat::Limits;
+
+    /// The merged graph of `g` with the side marks the sweep keeps (nothing merged).
+    fn swept<'a>(g: &'a Aig, pairs: &[PairQuery], limits: &Limits) -> (Sweeper<'a>, Vec<u8>) {
+        let side = sides(g, pairs);
+        let mut sw = copied(g, limits);
+        for (i, &s) in side.iter().enumerate() {
+            let u = sw.map[i].index();
+            sw.fside[u] |= s;
+        }
+        (sw, side)
+    }
+
+    #[test]
+    fn a_node_of_the_other_design_over_the_same_cut_is_its_partner() {
+        let mut g = Aig::new();
+        let ins: Vec<Lit> = (0..3).map(|_| g.add_input()).collect();
+        let (a, b, c) = (ins[0], ins[1], ins[2]);
+        // The reference: (a & b) & c and a & b & !c; the candidate: a & (b & c), its
+        // complement written as !a | !b | !c, and a & (b & !c) regrouped with an XOR.
+        let ab = g.and(a, b);
+        let x = g.and(ab, c);
+        let x2 = g.and(ab, !c);
+        let bc = g.and(b, c);
+        let y = g.and(a, bc);
+        let nbc = g.or(!b, !c);
+        let ny = g.or(!a, nbc);
+        let bx = g.xor(b, c);
+        let bxb = g.and(bx, b);
+        let z = g.and(a, bxb);
+        let w = g.and(a, !c);
+        let pairs = [
+            PairQuery {
+                reference: x,
+                candidate: y,
+            },
+            PairQuery {
+                reference: !x,
+                candidate: ny,
+            },
+            PairQuery {
+                reference: x2,
+                candidate: z,
+            },
+            PairQuery {
+                reference: x2,
+                candidate: w,
+            },
+        ];
+        let limits = Limits::none();
+        let (mut sw, side) = swept(&g, &pairs, &limits);
+        let ix = image(&sw, x);
+        assert_eq!(
+            sw.match_cut(image(&sw, y), side[y.index()], None),
+            Cut::Equal(ix)
+        );
+        assert_eq!(
+            sw.match_cut(image(&sw, ny), side[ny.index()], None),
+            Cut::Equal(!ix),
+            "a complemented partner"
+        );
+        let ix2 = image(&sw, x2);
+        assert_eq!(
+            sw.match_cut(image(&sw, z), side[z.index()], None),
+            Cut::Equal(ix2)
+        );
+        // a & !c: a function of the inputs that no reference node computes.
+        assert_eq!(
+            sw.match_cut(image(&sw, w), side[w.index()], None),
+            Cut::Apart
+        );
+        assert_eq!(sw.cut.matched, 3);
+        // A node both designs reach is not matched; nor is an input.
+        assert_eq!(sw.match_cut(image(&sw, a), BOTH, None), Cut::Unknown);
+    }
+
+    #[test]
+    fn an_anchor_stops_the_cut_and_a_wide_cut_has_no_answer() {
+        let mut g = Aig::new();
+        let ins: Vec<Lit> = (0..10).map(|_| g.add_input()).collect();
+        // The reference ANDs nine inputs in a chain, the candidate in a balanced tree.
+        // (The chain starts at the last input, so no AND is shared with the tree.)
+        let x = ins[..8].iter().rev().fold(ins[8], |acc, &i| g.and(acc, i));
+        let mut level = ins[..9].to_vec();
+        while level.len() > 1 {
+            level = level
+                .chunks(2)
+                .map(|p| {
+                    if p.len() == 2 {
+                        g.and(p[0], p[1])
+                    } else {
+                        p[0]
+                    }
+                })
+                .collect();
+        }
+        let y = level[0];
+        assert_ne!(x, y);
+        let pairs = [PairQuery {
+            reference: x,
+            candidate: y,
+        }];
+        let limits = Limits::none();
+        let (mut sw, side) = swept(&g, &pairs, &limits);
+        // Nine leaves: more than the cut may hold.
+        assert_eq!(
+            sw.match_cut(image(&sw, y), side[y.index()], None),
+            Cut::Unknown
+        );
+        // Once the first eight inputs' AND (a reference node) is reached by the candidate too,
+        // it is an anchor: the cut of the tree closes over it and the ninth input.
+        let mut g2 = Aig::new();
+        let ins: Vec<Lit> = (0..9).map(|_| g2.add_input()).collect();
+        let m = g2.and_all(&ins[..8]);
+        let x = g2.and(m, ins[8]);
+        let m2 = g2.and_all(&ins[..8]);
+        assert_eq!(m, m2, "hashing shares the eight-input AND");
+        let y2 = g2.and(!ins[8], m);
+        let pairs = [
+            PairQuery {
+                reference: x,
+                candidate: y2,
+            },
+            PairQuery {
+                reference: m,
+                candidate: m2,
+            },
+        ];
+        let (mut sw, side) = swept(&g2, &pairs, &limits);
+        assert_eq!(sw.fside[image(&sw, m).index()], BOTH);
+        assert_eq!(
+            sw.match_cut(image(&sw, y2), side[y2.index()], None),
+            Cut::Apart,
+            "m & !i8 over the cut (m, i8): no reference node computes it"
+        );
     }
 }

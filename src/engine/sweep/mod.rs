@@ -156,7 +156,8 @@ pub(crate) fn sweep(
             st.merged_by_hashing += 1;
             continue;
         }
-        let cut = sw.match_cut(l, side[i]);
+        let t = (side[i] | side[r] == candidates::BOTH).then(|| sw.map[r].xor_complement(compl));
+        let cut = sw.match_cut(l, side[i], t);
         if let cut_match::Cut::Equal(u) = cut {
             sw.map[i] = u;
             sw.fside[u.index()] |= side[i];
@@ -170,7 +171,6 @@ pub(crate) fn sweep(
         let deep = cut != cut_match::Cut::Apart;
         // The representative, unless both nodes belong to one design alone (merging them is
         // not needed to relate the designs), and members near the node in the merged graph.
-        let t = (side[i] | side[r] == candidates::BOTH).then(|| sw.map[r].xor_complement(compl));
         let twins = sw.twins(&classes, &side, i, l, t);
         if t.is_none() && twins.is_empty() {
             continue;

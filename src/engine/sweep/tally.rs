@@ -105,9 +105,11 @@ mod tests {
             classes: 2,
             candidates: 3,
             merged_by_hashing: 4,
+            merged_by_cut: 12,
             merged_by_sat: 5,
             refuted: 6,
             unresolved: 7,
+            cut_points: 13,
             patterns_fed_back: 8,
             whole_cone_queries: 9,
             ands_before: 10,
@@ -117,6 +119,7 @@ mod tests {
         sum.add(&a);
         assert_eq!(sum.groups, 2);
         assert_eq!(sum.merged_by_sat, 10);
+        assert_eq!((sum.merged_by_cut, sum.cut_points), (24, 26));
         assert_eq!(sum.ands_after, 22);
         sum.add(&SweepStats::default());
         assert_eq!(sum.whole_cone_queries, 18);

@@ -143,6 +143,20 @@ pub enum Expr {
     /// `$signed(e)` / `$unsigned(e)` / `$clog2(e)` / `$bits(e)`, or a call of a function
     /// declared in the design (a name without `$`).
     Call(Sym, Pos, Vec<Expr>),
+    /// A cast `W'(e)`, `T'(e)`, `signed'(e)`, `unsigned'(e)` (IEEE 1800-2017 clause 6.24).
+    Cast(Box<Cast>, Pos),
+}
+
+/// What a cast changes: the width (the value `e` would have after an assignment to a
+/// variable of that width), the signedness, or both (a cast to a type).
+#[derive(Clone, Debug)]
+pub struct Cast {
+    /// The new width, a constant expression; `None` keeps the operand's width.
+    pub width: Option<Expr>,
+    /// The new signedness; `None` keeps the operand's.
+    pub signed: Option<bool>,
+    /// The operand.
+    pub expr: Expr,
 }
 
 impl Expr {
@@ -151,7 +165,7 @@ impl Expr {
         match self {
             Expr::Ident(_, p) | Expr::Num(_, p) | Expr::Index(_, p, _) => *p,
             Expr::Unary(_, p, _) | Expr::Cond(_, p) | Expr::Concat(_, p) => *p,
-            Expr::Repl(_, _, p) | Expr::Call(_, p, _) => *p,
+            Expr::Repl(_, _, p) | Expr::Call(_, p, _) | Expr::Cast(_, p) => *p,
             Expr::Chain(first, _) => first.pos(),
         }
     }
@@ -362,10 +376,15 @@ pub struct Always {
 pub struct CaseStmt {
     /// `casez` rather than `case`.
     pub casez: bool,
+    /// `case (e) inside` (IEEE 1800-2017 clause 12.5.4): x, z and `?` bits of a number label
+    /// are don't-cares, and labels may be ranges.
+    pub inside: bool,
     /// The selector.
     pub expr: Expr,
     /// Items: labels and statement.
     pub items: Vec<(Vec<Expr>, Stmt)>,
+    /// Range labels `[lo:hi]` of a `case inside`: the item's index, the bounds (inclusive).
+    pub ranges: Vec<(usize, Expr, Expr)>,
     /// `default:` statement.
     pub default: Option<Stmt>,
     /// Where it is written.

@@ -41,6 +41,7 @@ impl Uses {
                 self.expr(n);
                 v.iter().for_each(|e| self.expr(e));
             }
+            Expr::Cast(c, _) => self.expr(&c.expr),
         }
     }
 
@@ -91,6 +92,10 @@ impl Uses {
                 for (labels, s) in &c.items {
                     labels.iter().for_each(|l| self.expr(l));
                     self.stmt(s);
+                }
+                for (_, lo, hi) in &c.ranges {
+                    self.expr(lo);
+                    self.expr(hi);
                 }
                 if let Some(d) = &c.default {
                     self.stmt(d);

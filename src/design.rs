@@ -213,6 +213,9 @@ pub struct Netlist {
     pub outputs: Vec<u32>,
     /// True when every gate of the design is in `cells` (a pure gate-level netlist).
     pub complete: bool,
+    /// The signal each register of the design loads (its input), in the order of
+    /// [`Design::registers`]; empty when the front-end does not name them.
+    pub register_inputs: Vec<u32>,
 }
 
 /// The input format of a file.

@@ -523,3 +523,52 @@ fn cli_prove_gives_a_trace_that_eval_replays() {
     let (a, b) = (run(&r, "reference"), run(&c, "candidate"));
     assert_eq!((0..10).find(|&k| a[k] != b[k]), Some(9));
 }
+
+/// `stats` of a clocked design under the state cut, against counts made by hand on s27 as
+/// published (shared data, `iscas89/s27.bench`; its SOURCE.md gives 10 gates: 2 NOT, 1 AND,
+/// 1 NAND, 2 OR, 4 NOR). The register inputs are G10 (of G5), G11 (of G6), G13 (of G7).
+#[test]
+fn stats_of_s27_under_the_state_cut_match_a_hand_count() {
+    let Some(dir) = iscas89() else { return };
+    let text = std::fs::read_to_string(dir.join("s27.bench")).unwrap();
+    let d = read("s27", &text);
+    let rep = equicone::cost::stats(
+        &d,
+        &equicone::cost::CostModel::unit(),
+        &equicone::sat::Limits::none(),
+    );
+    assert_eq!((rep.outputs, rep.registers), (1, 3));
+    assert_eq!(rep.written.as_ref().unwrap().gates, 10);
+    let row = |name: &str| {
+        let o = rep.per_output.iter().find(|o| o.name == name).unwrap();
+        (
+            o.register.clone(),
+            o.support,
+            o.gates.unwrap(),
+            o.gate_bound,
+            o.depth.unwrap(),
+            o.depth_bound,
+        )
+    };
+    // G13 = NOR(G2, G12), G12 = NOR(G1, G7): 2 gates, depth 2, support {G1, G2, G7}; 3 inputs
+    // need 2 two-input gates and depth ceil(log2 3) = 2.
+    assert_eq!(row("next(G7)"), (Some("G7".into()), 3, 2, 2, 2, 2));
+    // G11 = NOR(G5, G9), G9 = NAND(G16, G15), G16 = OR(G3, G8), G15 = OR(G12, G8),
+    // G8 = AND(G14, G6), G14 = NOT(G0), G12 = NOR(G1, G7): 7 gates, longest path
+    // G14 G8 G15 G9 G11 = depth 5; support {G0, G1, G3, G5, G6, G7}: bounds 5 gates, depth 3.
+    assert_eq!(row("next(G6)"), (Some("G6".into()), 6, 7, 5, 5, 3));
+    // G10 = NOR(G14, G11) = G0 AND (G5 OR G9): its cone is G11's plus G10 (8 gates, depth 6);
+    // G10 = 1 needs G0 = 1, which makes G8 = 0, so G6 is not in its support: 5 inputs,
+    // bounds 4 gates and depth 3.
+    assert_eq!(row("next(G5)"), (Some("G5".into()), 5, 8, 4, 6, 3));
+    // The port output as before: G17 = NOT(G11).
+    assert_eq!(row("G17"), (None, 6, 8, 5, 6, 3));
+    let text = rep.to_string();
+    assert!(
+        text.contains(
+            "inputs 7 (3 of them register outputs), outputs 1, register inputs 3 (state cut)"
+        ),
+        "{text}"
+    );
+    assert!(text.contains("note: state cut:"), "{text}");
+}

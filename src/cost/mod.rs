@@ -3,10 +3,12 @@
 //! its support (see [`bounds`]) with the design's gap to them.
 
 pub mod bounds;
+mod cut;
 pub mod model;
 mod report;
 
 pub use bounds::{depth_bound, gate_bound};
+pub use cut::{register_input_name, state_cut};
 pub use model::{CostModel, GateCost, GateSpec};
 pub use report::{AigStats, OutputStats, StatsReport, TypeCount, WrittenStats};
 
@@ -21,8 +23,37 @@ pub fn stats(design: &Design, model: &CostModel, limits: &Limits) -> StatsReport
     stats_with(design, model, &SupportOptions::default(), limits)
 }
 
-/// [`stats`] with explicit support options (seed, rounds, progress bar).
+/// [`stats`] with explicit support options (seed, rounds, progress bar). A clocked design is
+/// measured under the state cut ([`state_cut`]): register outputs are inputs, and each
+/// register's input is a row `next(REG)` after the outputs.
 pub fn stats_with(
+    design: &Design,
+    model: &CostModel,
+    opts: &SupportOptions,
+    limits: &Limits,
+) -> StatsReport {
+    if !design.is_clocked() {
+        return stats_of(design, model, opts, limits);
+    }
+    let (cut, n) = state_cut(design);
+    let mut rep = stats_of(&cut, model, opts, limits);
+    let first = design.outputs.len();
+    for (o, r) in rep.per_output[first..].iter_mut().zip(&design.registers) {
+        o.register = Some(r.name.clone());
+    }
+    rep.outputs = first;
+    rep.registers = n;
+    rep.notes.insert(
+        0,
+        format!(
+            "state cut: the logic of one clock cycle, with the {n} register outputs read as inputs and the {n} register inputs as outputs (rows next(REG), after the outputs); an input that reaches an output only through registers counts in the register inputs' supports, not the output's"
+        ),
+    );
+    rep
+}
+
+/// The statistics of a combinational design (or of a state cut).
+fn stats_of(
     design: &Design,
     model: &CostModel,
     opts: &SupportOptions,
@@ -124,6 +155,7 @@ pub fn stats_with(
         let db = depth_bound(n, k);
         per_output.push(OutputStats {
             name: out.name.clone(),
+            register: None,
             support: n,
             undecided: sup.undecided().len() as u64,
             gates,
@@ -148,6 +180,7 @@ pub fn stats_with(
         cost_model: model.name.clone(),
         inputs: design.inputs.len(),
         outputs: design.outputs.len(),
+        registers: 0,
         written,
         aig: aig_stats,
         bound_fanin: k,

@@ -19,13 +19,18 @@ pub struct StatsReport {
     pub inputs: usize,
     /// Output bits.
     pub outputs: usize,
+    /// Register bits of a clocked design (its state cut: their inputs are the rows after the
+    /// outputs in `per_output`); 0 and left out of the JSON for a combinational one.
+    #[serde(skip_serializing_if = "is_zero")]
+    pub registers: usize,
     /// The netlist as written, when the front-end kept all of it.
     pub written: Option<WrittenStats>,
     /// The and-inverter graph.
     pub aig: AigStats,
     /// The fan-in `k` of the bounds.
     pub bound_fanin: u32,
-    /// Per output bit, in declaration order.
+    /// Per output bit, in declaration order; then, for a clocked design, per register bit
+    /// its input (`register` set).
     pub per_output: Vec<OutputStats>,
     /// How the supports were decided.
     pub support_stats: SupportStats,
@@ -98,8 +103,11 @@ pub struct AigStats {
 /// One output bit: its size and depth against the bounds its support implies.
 #[derive(Clone, Debug, PartialEq, Serialize)]
 pub struct OutputStats {
-    /// Bit name.
+    /// Bit name (`next(REG)` for a register's input).
     pub name: String,
+    /// The register bit whose input this row is (clocked designs, under the state cut).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub register: Option<String>,
     /// Inputs proved in the support (`n`).
     pub support: u64,
     /// Cone inputs whose membership is undecided.
@@ -144,6 +152,10 @@ fn num(x: f64) -> String {
     }
 }
 
+fn is_zero(n: &usize) -> bool {
+    *n == 0
+}
+
 fn opt<T: ToString>(x: Option<T>) -> String {
     x.map_or_else(|| "-".to_string(), |v| v.to_string())
 }
@@ -155,7 +167,15 @@ impl fmt::Display for StatsReport {
             "stats of {} (cost model: {})",
             self.design, self.cost_model
         )?;
-        writeln!(f, "inputs {}, outputs {}", self.inputs, self.outputs)?;
+        if self.registers > 0 {
+            writeln!(
+                f,
+                "inputs {} ({} of them register outputs), outputs {}, register inputs {} (state cut)",
+                self.inputs, self.registers, self.outputs, self.registers
+            )?;
+        } else {
+            writeln!(f, "inputs {}, outputs {}", self.inputs, self.outputs)?;
+        }
         if let Some(w) = &self.written {
             let types: Vec<String> = w
                 .by_type

@@ -261,6 +261,7 @@ fn parse_to_netlist(
         inputs: inputs.iter().map(|&(s, _)| s).collect(),
         outputs: outputs.iter().map(|&(s, _)| s).collect(),
         complete: !has_constant,
+        register_inputs: dffs.iter().map(|&(_, d)| number[d as usize]).collect(),
     };
     let dffs = dffs
         .iter()

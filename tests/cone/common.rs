@@ -74,6 +74,7 @@ pub fn from_cells(
         inputs: (0..inputs.len() as u32).collect(),
         outputs: outputs.iter().map(|n| id[n.as_str()] as u32).collect(),
         complete: true,
+        register_inputs: Vec::new(),
     };
     let d = Design {
         name: "generated".to_string(),

@@ -51,7 +51,7 @@ use std::collections::BTreeMap;
 /// The clocks of `r` against `c` when either design has several (paired by name, as a trace
 /// lists them); empty when each has at most one clock or the clocks do not pair.
 pub fn clock_names(r: &Design, c: &Design) -> Vec<String> {
-    product::paired_clocks(r, c)
+    product::paired_clocks(r, c, None)
         .ok()
         .flatten()
         .map(|v| v.into_iter().map(|k| k.name).collect())
@@ -422,6 +422,7 @@ fn build_trace(
                     name: f.name.clone(),
                     side: f.side,
                     value,
+                    candidate_name: f.candidate_name.clone(),
                 })
                 .collect(),
             ticked: (!p.clocks.is_empty()).then(|| {
@@ -443,6 +444,13 @@ fn build_trace(
         },
         cycles,
         first_difference: None,
+        renamed_outputs: p
+            .outputs
+            .iter()
+            .map(|o| (&r.outputs[o.reference].name, &c.outputs[o.candidate].name))
+            .filter(|(a, b)| a != b)
+            .map(|(a, b)| (a.clone(), b.clone()))
+            .collect(),
     }
 }
 

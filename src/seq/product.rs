@@ -16,13 +16,16 @@ use std::collections::{BTreeMap, BTreeSet};
 /// One per-cycle input of the product machine.
 #[derive(Clone, Debug)]
 pub struct FreeInput {
-    /// The bit's name (a port bit, or an unknown-value source).
+    /// The bit's name (a port bit, or an unknown-value source); the reference's for a
+    /// paired bit.
     pub name: String,
     /// Whose input it is.
     pub side: Side,
     /// A clock's tick (several clocks): 1 when the clock named `name` has an active edge at
     /// the end of the cycle.
     pub tick: bool,
+    /// The candidate's name of a paired bit, when a port map renames it.
+    pub candidate_name: Option<String>,
 }
 
 /// The initial value of a state bit.
@@ -79,6 +82,33 @@ pub struct HeldInput {
     pub value: bool,
     /// `reset` or `clock`.
     pub role: String,
+    /// The candidate's name of a port bit both designs have under different names (a port
+    /// map renames it); `name` is then the reference's.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub candidate_name: Option<String>,
+}
+
+impl HeldInput {
+    /// The bit's name in the design of side `side` (`None`: that design does not have it).
+    pub fn name_on(&self, side: Side) -> Option<&str> {
+        port_name_on(&self.name, self.side, self.candidate_name.as_deref(), side)
+    }
+}
+
+/// The name of a trace or held bit (`name`, of side `of`, the candidate calling it
+/// `candidate_name` when renamed) in the design of side `side`.
+pub fn port_name_on<'a>(
+    name: &'a str,
+    of: Side,
+    candidate_name: Option<&'a str>,
+    side: Side,
+) -> Option<&'a str> {
+    match (of, side) {
+        (Side::Both, Side::Candidate) => Some(candidate_name.unwrap_or(name)),
+        (Side::Both, _) => Some(name),
+        (o, s) if o == s => Some(name),
+        _ => None,
+    }
 }
 
 /// How registers without a reset start.
@@ -242,37 +272,71 @@ pub(super) fn check_one_clock(d: &Design) -> Result<(), InputError> {
     )))
 }
 
-/// The clocks of a product with several clocks, paired by name: each gets a free tick input
-/// per cycle. `Ok(None)`: each design has at most one clock, which ticks in every cycle.
-/// A clock that only one design has is an error naming it and its registers.
-pub(super) fn paired_clocks(r: &Design, c: &Design) -> Result<Option<Vec<ClockPair>>, InputError> {
+/// The clocks of a product with several clocks, paired by name (through `map`'s port lines
+/// when it renames a clock port): each gets a free tick input per cycle. `Ok(None)`: each
+/// design has at most one clock, which ticks in every cycle. A clock that only one design has
+/// is an error naming it and its registers.
+pub(super) fn paired_clocks(
+    r: &Design,
+    c: &Design,
+    map: Option<&BitMap>,
+) -> Result<Option<Vec<ClockPair>>, InputError> {
     let dr = domains(r)?;
     let dc = domains(c)?;
     if dr.len() <= 1 && dc.len() <= 1 {
         return Ok(None);
     }
+    // Reference clock -> the candidate's name for it.
+    let partner = |k: Option<&str>| -> Option<Option<String>> {
+        match (k, map) {
+            (Some(n), Some(m)) => m.partner(n).map(|x| Some(x.to_string())),
+            (k, _) => Some(k.map(str::to_string)),
+        }
+    };
+    let mut pairs = Vec::new();
     let mut lonely = Vec::new();
-    for (d, mine, other, word) in [
-        (r, &dr, &dc, "the reference"),
-        (c, &dc, &dr, "the candidate"),
-    ] {
-        for (clock, (edge, regs)) in mine {
-            if !other.contains_key(clock) {
-                let names: Vec<&str> = regs
-                    .iter()
-                    .take(3)
-                    .map(|&k| d.registers[k].name.as_str())
-                    .collect();
-                lonely.push(format!(
-                    "{word} clocks {} register bit{} on {} {} ({}{}) and the other design has no registers on a clock of that name",
-                    regs.len(),
-                    if regs.len() == 1 { "" } else { "s" },
-                    edge_word(*edge),
-                    clock.unwrap_or("(implicit)"),
-                    names.join(", "),
-                    if regs.len() > 3 { ", ..." } else { "" }
-                ));
+    let mut used = BTreeSet::new();
+    let lonely_line = |d: &Design,
+                       word: &str,
+                       clock: Option<&str>,
+                       edge: ClockEdge,
+                       regs: &[usize]| {
+        let names: Vec<&str> = regs
+            .iter()
+            .take(3)
+            .map(|&k| d.registers[k].name.as_str())
+            .collect();
+        format!(
+            "{word} clocks {} register bit{} on {} {} ({}{}) and the other design has no registers on a clock of that name",
+            regs.len(),
+            if regs.len() == 1 { "" } else { "s" },
+            edge_word(edge),
+            clock.unwrap_or("(implicit)"),
+            names.join(", "),
+            if regs.len() > 3 { ", ..." } else { "" }
+        )
+    };
+    for (clock, (edge, regs)) in &dr {
+        let other = partner(*clock)
+            .and_then(|cn| dc.iter().find(|(k, _)| **k == cn.as_deref()))
+            .map(|(k, v)| (*k, v));
+        match other {
+            Some((cn, (edge_c, regs_c))) => {
+                used.insert(cn);
+                pairs.push(ClockPair {
+                    name: clock.unwrap_or("(implicit)").to_string(),
+                    candidate: cn.unwrap_or("(implicit)").to_string(),
+                    edges: [*edge, *edge_c],
+                    registers: [regs.len(), regs_c.len()],
+                    tick: Lit::FALSE,
+                });
             }
+            None => lonely.push(lonely_line(r, "the reference", *clock, *edge, regs)),
+        }
+    }
+    for (clock, (edge, regs)) in &dc {
+        if !used.contains(clock) {
+            lonely.push(lonely_line(c, "the candidate", *clock, *edge, regs));
         }
     }
     if !lonely.is_empty() {
@@ -282,30 +346,20 @@ pub(super) fn paired_clocks(r: &Design, c: &Design) -> Result<Option<Vec<ClockPa
                 format!("clocks without a partner: {}", lonely.join("; ")),
             )
             .with_help(
-                "with several clocks, clocks pair by name and a register pair shares its clock; name the clock ports alike in both designs",
+                "with several clocks, clocks pair by name (or by a port line of --port-map) and a register pair shares its clock; name the clock ports alike in both designs",
             ),
         ));
     }
-    Ok(Some(
-        dr.iter()
-            .map(|(clock, (edge, regs))| {
-                let (edge_c, regs_c) = &dc[clock];
-                ClockPair {
-                    name: clock.unwrap_or("(implicit)").to_string(),
-                    edges: [*edge, *edge_c],
-                    registers: [regs.len(), regs_c.len()],
-                    tick: Lit::FALSE,
-                }
-            })
-            .collect(),
-    ))
+    Ok(Some(pairs))
 }
 
 /// A clock of a product with several clocks (both designs clock registers on it).
 #[derive(Clone, Debug)]
 pub struct ClockPair {
-    /// The clock's name.
+    /// The clock's name (the reference's).
     pub name: String,
+    /// The candidate's name for it (the same unless a port map renames it).
+    pub candidate: String,
     /// The edge each design samples on (reference, candidate).
     pub edges: [ClockEdge; 2],
     /// Register bits on it (reference, candidate).
@@ -350,7 +404,7 @@ impl Product {
         free_extra: bool,
         map: Option<&BitMap>,
     ) -> Result<Product, InputError> {
-        let mut clocks = paired_clocks(r, c)?.unwrap_or_default();
+        let mut clocks = paired_clocks(r, c, map)?.unwrap_or_default();
         let held_r = held_inputs(r);
         let held_c = held_inputs(c);
         let mut aig = Aig::new();
@@ -367,6 +421,14 @@ impl Product {
             .collect();
         let mut used_c = vec![false; c.inputs.len()];
         let mut only_r = Vec::new();
+        // A port map renames ports: a reference bit pairs with its mapped partner, else with
+        // the candidate bit of the same name (unless the map gives that name to another bit).
+        let partner = |n: &'_ str| -> Option<String> {
+            match map {
+                Some(m) => m.partner(n).map(str::to_string),
+                None => Some(n.to_string()),
+            }
+        };
         for (k, b) in r.inputs.iter().enumerate() {
             match b.kind {
                 InputKind::Register => {}
@@ -376,15 +438,39 @@ impl Product {
                         name: b.name.clone(),
                         side: Side::Reference,
                         tick: false,
+                        candidate_name: None,
                     });
                 }
                 InputKind::Port => {
-                    let other = cand_ports.get(b.name.as_str()).copied();
+                    let other = partner(&b.name)
+                        .and_then(|n| cand_ports.get(n.as_str()).copied())
+                        .filter(|&j| !used_c[j]);
                     if let Some(j) = other {
                         used_c[j] = true;
                     }
+                    let renamed = other
+                        .map(|j| &c.inputs[j].name)
+                        .filter(|n| **n != b.name)
+                        .cloned();
                     let hr = held_r.get(&k);
                     let hc = other.and_then(|j| held_c.get(&j));
+                    if let (Some(&(vr, rr)), Some(&(vc, rc))) = (hr, hc) {
+                        if vr != vc {
+                            let cn = other.map_or("", |j| c.inputs[j].name.as_str());
+                            return Err(InputError::one(
+                                Diagnostic::error(
+                                    None,
+                                    format!(
+                                        "input {} is a {rr} held at {} in the reference, but its partner {cn} is a {rc} held at {} in the candidate",
+                                        b.name, vr as u8, vc as u8
+                                    ),
+                                )
+                                .with_help(
+                                    "a paired port must be read alike by both designs (both resets active high or both active low); pair each reset with one of the same polarity",
+                                ),
+                            ));
+                        }
+                    }
                     if let Some(&(v, role)) = hr.or(hc) {
                         map_r[k] = Lit::constant(v);
                         if let Some(j) = other {
@@ -400,6 +486,7 @@ impl Product {
                             side,
                             value: v,
                             role: role.to_string(),
+                            candidate_name: renamed,
                         });
                         continue;
                     }
@@ -420,6 +507,7 @@ impl Product {
                             Side::Reference
                         },
                         tick: false,
+                        candidate_name: renamed,
                     });
                 }
             }
@@ -437,6 +525,7 @@ impl Product {
                         side: Side::Candidate,
                         value: v,
                         role: role.to_string(),
+                        candidate_name: None,
                     });
                     continue;
                 }
@@ -450,6 +539,7 @@ impl Product {
                 name: b.name.clone(),
                 side: Side::Candidate,
                 tick: false,
+                candidate_name: None,
             });
         }
         if !only_r.is_empty() || !only_c.is_empty() {
@@ -466,7 +556,7 @@ impl Product {
                     format!("input bits without a partner: {}", parts.join("; ")),
                 )
                 .with_help(
-                    "rename the ports to match, or pass --free-extra-inputs to leave them free",
+                    "rename the ports to match, pair them in a port map (--port-map), or pass --free-extra-inputs to leave them free",
                 ),
             ));
         }
@@ -477,11 +567,18 @@ impl Product {
                 name: k.name.clone(),
                 side: Side::Both,
                 tick: true,
+                candidate_name: (k.candidate != k.name).then(|| k.candidate.clone()),
             });
         }
-        let clock_of = |reg: &crate::design::Register| {
+        let clock_of = |side: Side, reg: &crate::design::Register| {
             let name = reg.clock.as_deref().unwrap_or("(implicit)");
-            clocks.iter().position(|k| k.name == name)
+            clocks.iter().position(|k| {
+                name == if side == Side::Reference {
+                    &k.name
+                } else {
+                    &k.candidate
+                }
+            })
         };
         // State bits: reference registers, then candidate registers.
         let mut state = Vec::new();
@@ -554,21 +651,26 @@ impl Product {
                     current: cur,
                     next: Lit::FALSE,
                     init,
-                    clock: clock_of(reg),
+                    clock: clock_of(side, reg),
                 });
             }
         }
-        // Outputs pair by name; the next-state functions come with them.
+        // Outputs pair by name (renamed ones by the port map); the next-state functions come
+        // with them.
         let mut outputs = Vec::new();
         let mut unpaired = Vec::new();
+        let mut used_out = vec![false; c.outputs.len()];
         for (i, o) in r.outputs.iter().enumerate() {
-            match c.output_index(&o.name) {
-                Some(j) => outputs.push((i, j)),
-                None => unpaired.push(format!("reference output {}", o.name)),
+            match partner(&o.name).and_then(|n| c.output_index(&n)) {
+                Some(j) if !used_out[j] => {
+                    used_out[j] = true;
+                    outputs.push((i, j));
+                }
+                _ => unpaired.push(format!("reference output {}", o.name)),
             }
         }
-        for o in &c.outputs {
-            if r.output_index(&o.name).is_none() {
+        for (j, o) in c.outputs.iter().enumerate() {
+            if !used_out[j] {
                 unpaired.push(format!("candidate output {}", o.name));
             }
         }
@@ -578,7 +680,7 @@ impl Product {
                     None,
                     format!("output bits without a partner: {}", unpaired.join(", ")),
                 )
-                .with_help("outputs pair by name in clocked designs; rename them to match"),
+                .with_help("outputs pair by name; rename them to match, or pair them in a port map (--port-map)"),
             ));
         }
         let roots_r: Vec<Lit> = outputs

@@ -14,7 +14,7 @@
 //! of a clock that does not tick keep their value. A trace of one clock has neither field and
 //! every register takes its next value at every edge.
 
-use super::product::{HeldInput, Side};
+use super::product::{port_name_on, HeldInput, Side};
 use crate::design::{Design, InputKind};
 use serde::{Deserialize, Serialize};
 use std::collections::BTreeMap;
@@ -48,12 +48,22 @@ pub struct InitialValue {
 /// One input bit's value in one cycle.
 #[derive(Clone, Debug, PartialEq, Eq, Serialize, Deserialize)]
 pub struct TraceInput {
-    /// The bit's name.
+    /// The bit's name (the reference's, for a paired bit).
     pub name: String,
     /// `both` for a paired port bit; otherwise the design it belongs to.
     pub side: Side,
     /// Its value.
     pub value: bool,
+    /// The candidate's name of a paired bit that a port map renames.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub candidate_name: Option<String>,
+}
+
+impl TraceInput {
+    /// The bit's name in the design of side `side` (`None`: that design does not have it).
+    pub fn name_on(&self, side: Side) -> Option<&str> {
+        port_name_on(&self.name, self.side, self.candidate_name.as_deref(), side)
+    }
 }
 
 /// One clock cycle of a trace.
@@ -100,6 +110,47 @@ pub struct Trace {
     pub cycles: Vec<TraceCycle>,
     /// The first difference (the last cycle of the trace).
     pub first_difference: Option<FirstDifference>,
+    /// Output bits paired under different names (by a port map): reference bit -> candidate
+    /// bit. The other outputs pair by name.
+    #[serde(default, skip_serializing_if = "BTreeMap::is_empty")]
+    pub renamed_outputs: BTreeMap<String, String>,
+}
+
+impl Trace {
+    /// The output pairs of `r` and `c` along this trace (reference index, candidate index):
+    /// renamed ones as [`Trace::renamed_outputs`] says, the others by name.
+    pub fn output_pairs(&self, r: &Design, c: &Design) -> Vec<(usize, usize)> {
+        let renamed_to: std::collections::BTreeSet<&str> =
+            self.renamed_outputs.values().map(String::as_str).collect();
+        r.outputs
+            .iter()
+            .enumerate()
+            .filter_map(|(i, o)| {
+                let n = match self.renamed_outputs.get(&o.name) {
+                    Some(n) => n.as_str(),
+                    None if renamed_to.contains(o.name.as_str()) => return None,
+                    None => o.name.as_str(),
+                };
+                c.output_index(n).map(|j| (i, j))
+            })
+            .collect()
+    }
+
+    /// The input bits paired under different names (by a port map): reference bit ->
+    /// candidate bit, from the held inputs and the first cycle.
+    pub fn renamed_inputs(&self) -> BTreeMap<String, String> {
+        let held = self
+            .reset
+            .held
+            .iter()
+            .filter_map(|h| Some((h.name.clone(), h.candidate_name.clone()?)));
+        let free = self.cycles.first().into_iter().flat_map(|c| {
+            c.inputs
+                .iter()
+                .filter_map(|i| Some((i.name.clone(), i.candidate_name.clone()?)))
+        });
+        held.chain(free).collect()
+    }
 }
 
 /// What a design does along a trace: its output values in every cycle.
@@ -112,7 +163,12 @@ pub struct Replay {
 /// Which registers of `d` take their next value at the edge that ends cycle `c` of `t`: every
 /// one in a trace of one clock; with several clocks, those whose clock ticked. Errors name a
 /// register whose clock the trace does not list.
-pub fn registers_ticking(d: &Design, t: &Trace, c: &TraceCycle) -> Result<Vec<bool>, String> {
+pub fn registers_ticking(
+    d: &Design,
+    side: Side,
+    t: &Trace,
+    c: &TraceCycle,
+) -> Result<Vec<bool>, String> {
     if t.reset.clocks.is_empty() {
         if let Some(ticked) = &c.ticked {
             return Err(format!(
@@ -127,7 +183,15 @@ pub fn registers_ticking(d: &Design, t: &Trace, c: &TraceCycle) -> Result<Vec<bo
     d.registers
         .iter()
         .map(|r| {
-            let clock = r.clock.as_deref().unwrap_or("(implicit)");
+            let mut clock = r.clock.as_deref().unwrap_or("(implicit)");
+            // A clock port the port map renames: the trace names it as the reference does.
+            if side == Side::Candidate {
+                if let Some(h) = t.reset.held.iter().find(|h| {
+                    h.role == "clock" && h.candidate_name.as_deref() == Some(clock)
+                }) {
+                    clock = h.name.as_str();
+                }
+            }
             if !t.reset.clocks.iter().any(|k| k == clock) {
                 return Err(format!(
                     "register `{}` of {} is clocked by `{clock}`, which the trace does not list (its clocks: {})",
@@ -154,8 +218,8 @@ pub fn after_edge<T: Copy>(now: &[T], next: &[T], ticking: &[bool]) -> Vec<T> {
 pub fn replay(d: &Design, side: Side, trace: &Trace) -> Result<Replay, String> {
     let mut held: BTreeMap<&str, bool> = BTreeMap::new();
     for h in &trace.reset.held {
-        if h.side == Side::Both || h.side == side {
-            held.insert(&h.name, h.value);
+        if let Some(n) = h.name_on(side) {
+            held.insert(n, h.value);
         }
     }
     let mut state: Vec<bool> = Vec::with_capacity(d.registers.len());
@@ -187,8 +251,8 @@ pub fn replay(d: &Design, side: Side, trace: &Trace) -> Result<Replay, String> {
     for c in &trace.cycles {
         let mut given: BTreeMap<&str, bool> = BTreeMap::new();
         for i in &c.inputs {
-            if i.side == Side::Both || i.side == side {
-                given.insert(&i.name, i.value);
+            if let Some(n) = i.name_on(side) {
+                given.insert(n, i.value);
             }
         }
         let mut ins = Vec::with_capacity(d.inputs.len());
@@ -207,7 +271,7 @@ pub fn replay(d: &Design, side: Side, trace: &Trace) -> Result<Replay, String> {
             };
             ins.push(v);
         }
-        let ticking = registers_ticking(d, trace, c)?;
+        let ticking = registers_ticking(d, side, trace, c)?;
         let vals = crate::aig::eval(&d.aig, &ins, &roots);
         let n = d.outputs.len();
         outputs.push(vals[..n].to_vec());

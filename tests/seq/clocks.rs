@@ -289,3 +289,78 @@ fn cli_traces_of_two_clocks_replay_in_eval_and_icarus_verilog() {
         "{out}"
     );
 }
+
+/// A clock port renamed in the candidate pairs through a port line of `--port-map`: the rewrite
+/// is proved, the bug's trace names the clock as the reference does and the candidate replays it.
+#[test]
+fn a_clock_renamed_by_the_port_map_pairs_with_its_partner() {
+    let dir = tempfile::tempdir().unwrap();
+    let r = write(dir.path(), "r.v", "prodcons", PRODCONS);
+    let good = write(
+        dir.path(),
+        "good.v",
+        "prodcons",
+        &PRODCONS_REWRITE.replace("clk_b", "cb"),
+    );
+    let bad = write(
+        dir.path(),
+        "bad.v",
+        "prodcons",
+        &PRODCONS_BUG.replace("clk_b", "cb"),
+    );
+    let map = dir.path().join("m.map");
+    std::fs::write(&map, "clk_b cb\n").unwrap();
+    let bin = env!("CARGO_BIN_EXE_equicone");
+    let o = Command::new(bin)
+        .arg("prove")
+        .arg(&r)
+        .arg(&good)
+        .arg("--port-map")
+        .arg(&map)
+        .output()
+        .unwrap();
+    let out = String::from_utf8_lossy(&o.stdout);
+    assert_eq!(o.status.code(), Some(0), "{out}");
+    assert!(
+        out.contains(
+            "clocks: clk_a posedge (2|2 register bits), clk_b <-> cb posedge (2|2 register bits)"
+        ),
+        "{out}"
+    );
+    // Without the map the clocks do not pair.
+    let o = Command::new(bin)
+        .arg("prove")
+        .arg(&r)
+        .arg(&good)
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(2));
+    let rep = dir.path().join("rep.json");
+    let o = Command::new(bin)
+        .args(["prove", "--json", "--report"])
+        .arg(&rep)
+        .arg(&r)
+        .arg(&bad)
+        .arg("--port-map")
+        .arg(&map)
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(1));
+    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    assert_eq!(
+        v["trace"]["reset"]["clocks"],
+        serde_json::json!(["clk_a", "clk_b"])
+    );
+    let o = Command::new(bin)
+        .args(["eval", "--json", "--side", "candidate", "--trace"])
+        .arg(&rep)
+        .arg(&bad)
+        .output()
+        .unwrap();
+    assert_eq!(
+        o.status.code(),
+        Some(0),
+        "{}",
+        String::from_utf8_lossy(&o.stderr)
+    );
+}

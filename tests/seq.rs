@@ -4,6 +4,8 @@
 //! Icarus Verilog replay to the same first difference, and a counter mod 10 whose rewrite differs
 //! only in unreachable states, which must never be `different`.
 
+#[path = "seq/clocks.rs"]
+mod clocks;
 #[path = "verilog/common.rs"]
 #[allow(dead_code)]
 mod common;

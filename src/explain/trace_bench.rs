@@ -125,6 +125,8 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
         |side: Side, name: &str| -> Option<&String> { bits.get(&(side, name.to_string())) };
     // Clocks and resets from the trace's held inputs.
     let mut clocks: BTreeSet<String> = BTreeSet::new();
+    // Clock name -> its testbench nets (several clocks tick one by one).
+    let mut clock_nets: BTreeMap<&str, BTreeSet<String>> = BTreeMap::new();
     let mut resets: Vec<(String, bool)> = Vec::new();
     for h in &t.reset.held {
         for side in [Side::Reference, Side::Candidate] {
@@ -134,6 +136,10 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
             if let Some(e) = bit_of(side, name) {
                 if h.role == "clock" {
                     clocks.insert(e.clone());
+                    clock_nets
+                        .entry(h.name.as_str())
+                        .or_default()
+                        .insert(e.clone());
                 } else if !resets.iter().any(|(x, _)| x == e) {
                     resets.push((e.clone(), h.value));
                 }
@@ -275,16 +281,21 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
         s,
         "      if (eqc_n == 0) $display(\"cycle %0d: pass\", k);\n      else begin\n        eqc_fails = eqc_fails + 1;\n        $display(\"cycle %0d: FAIL, %0d of {np} output pairs differ\", k, eqc_n);\n      end\n    end\n  endtask"
     );
-    let edge = |s: &mut String| {
-        let c: Vec<&String> = clocks.iter().collect();
+    let edge_of = |s: &mut String, c: Vec<&String>| {
         let set = |v: u8| {
             c.iter()
                 .map(|x| format!("{x} = 1'b{v};"))
                 .collect::<Vec<_>>()
                 .join(" ")
         };
-        let _ = writeln!(s, "    {}\n    #1 {}\n    #1;", set(1), set(0));
+        if c.is_empty() {
+            // No clock ticks: the same time steps without an edge.
+            let _ = writeln!(s, "    #1;\n    #1;");
+        } else {
+            let _ = writeln!(s, "    {}\n    #1 {}\n    #1;", set(1), set(0));
+        }
     };
+    let edge = |s: &mut String| edge_of(s, clocks.iter().collect());
     s.push_str("  initial begin\n    eqc_fails = 0;\n");
     // Reset: every input 0, clocks 0, resets active, one clock edge.
     for p in &regs {
@@ -349,7 +360,27 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
             }
         }
         let _ = writeln!(s, "    #1 eqc_check({});", cyc.cycle);
-        edge(&mut s);
+        match (&cyc.ticked, t.reset.clocks.is_empty()) {
+            // Several clocks: a pulse on the clocks that tick (none: no edge).
+            (Some(ticked), false) => {
+                let nets: BTreeSet<&String> = ticked
+                    .iter()
+                    .filter_map(|k| clock_nets.get(k.as_str()))
+                    .flatten()
+                    .collect();
+                let _ = writeln!(
+                    s,
+                    "    // ticked: {}",
+                    if ticked.is_empty() {
+                        "-".to_string()
+                    } else {
+                        ticked.join(", ")
+                    }
+                );
+                edge_of(&mut s, nets.into_iter().collect());
+            }
+            _ => edge(&mut s),
+        }
     }
     let _ = writeln!(
         s,

@@ -104,9 +104,10 @@ fn unroll(
                 },
             });
         }
+        let ticking = crate::seq::registers_ticking(d, side, t, cyc)?;
         let lits = aig.import(&d.aig, &map, &roots);
         outs.push(lits[..n].to_vec());
-        state = lits[n..].to_vec();
+        state = crate::seq::after_edge(&state, &lits[n..], &ticking);
     }
     Ok(outs)
 }

@@ -101,9 +101,10 @@ pub fn run(d: &Design, side: Side, t: &Trace) -> Result<DesignRun, String> {
                     })?,
             });
         }
+        let ticking = crate::seq::registers_ticking(d, side, t, c)?;
         let vals = crate::aig::eval(&d.aig, &ins, &roots);
         run.outputs.push(vals[..n].to_vec());
-        state = vals[n..].to_vec();
+        state = crate::seq::after_edge(&state, &vals[n..], &ticking);
         run.inputs.push(ins);
     }
     run.last_state = state;
@@ -225,6 +226,9 @@ pub fn random_trace_mapped(
             });
         }
     }
+    // Several clocks: each ticks at random (a clock without a partner makes no such trace;
+    // the clocked check refuses the pair).
+    let clocks = crate::seq::clock_names(r, c);
     let cycles = (0..cycles)
         .map(|cycle| TraceCycle {
             cycle,
@@ -237,6 +241,13 @@ pub fn random_trace_mapped(
                     candidate_name: cand.clone(),
                 })
                 .collect(),
+            ticked: (!clocks.is_empty()).then(|| {
+                clocks
+                    .iter()
+                    .filter(|_| rng.next_u64() & 1 == 1)
+                    .cloned()
+                    .collect()
+            }),
         })
         .collect();
     let mut renamed_outputs = BTreeMap::new();
@@ -252,11 +263,13 @@ pub fn random_trace_mapped(
     Trace {
         reset: TraceReset {
             description: format!(
-                "random inputs; registers with a reset start at their reset value, the others at {}; reset ports are held inactive and clocks at 0 in every cycle",
-                start as u8
+                "random inputs; registers with a reset start at their reset value, the others at {}; reset ports are held inactive and clocks at 0 in every cycle{}",
+                start as u8,
+                if clocks.is_empty() { "" } else { ", each cycle lists the clocks with an active edge at its end" }
             ),
             held: held.to_vec(),
             initial,
+            clocks,
         },
         cycles,
         first_difference: None,

@@ -34,6 +34,8 @@ struct Part<'d> {
     /// Per design input.
     role: Vec<Role>,
     run: DesignRun,
+    /// Per cycle, the clocks that tick at its end (several clocks); `None`: every clock.
+    ticked: Vec<Option<Vec<String>>>,
 }
 
 impl<'d> Part<'d> {
@@ -70,6 +72,7 @@ impl<'d> Part<'d> {
             regs: ports(&reg_names),
             role,
             run,
+            ticked: t.cycles.iter().map(|c| c.ticked.clone()).collect(),
         })
     }
 
@@ -124,7 +127,11 @@ impl<'d> Part<'d> {
         let mut full = self.run.inputs[k].clone();
         for (i, r) in self.role.iter().enumerate() {
             if *r == Role::Clock {
-                full[i] = edge;
+                let name = &self.d.inputs[i].name;
+                full[i] = edge
+                    && self.ticked[k]
+                        .as_ref()
+                        .is_none_or(|v| v.iter().any(|x| x == name));
             }
         }
         let state = self.run.state(self.d, k + edge as usize);

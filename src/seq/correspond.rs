@@ -79,6 +79,25 @@ impl Classes {
         self.groups = out;
     }
 
+    /// With several clocks, never group register bits of different clocks (a register pair
+    /// shares its clock); constants stay grouped with the constant.
+    pub fn refine_by_clock(&mut self, p: &Product) {
+        if p.clocks.is_empty() {
+            return;
+        }
+        let at = state_index(p);
+        let groups = std::mem::take(&mut self.groups);
+        for g in groups {
+            if g[0] == Lit::FALSE {
+                self.groups.push(g);
+                continue;
+            }
+            let mut one = Classes { groups: vec![g] };
+            one.refine_by(|m| p.state[at[&m.node()]].clock);
+            self.groups.extend(one.groups);
+        }
+    }
+
     /// Keep only what holds in the initial state: constants with their reset value, free initial
     /// values only with themselves.
     pub fn refine_by_init(&mut self, p: &Product) {

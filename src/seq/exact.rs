@@ -192,6 +192,8 @@ pub fn exact_cones(
     limits: &Limits,
     decider: &Decide<'_>,
 ) -> Result<ExactCones, String> {
+    super::product::check_one_clock(d)
+        .map_err(|e| format!("not built: {}", e.diagnostics[0].message))?;
     let nodes = d.aig.len().saturating_mul(o.cycles);
     if nodes > MAX_UNROLLED_NODES {
         return Err(format!(
@@ -486,6 +488,7 @@ impl InfluenceEvidence {
     pub fn trace(&self, held: &[HeldInput], flipped: &str, value: bool) -> Trace {
         Trace {
             reset: TraceReset {
+                clocks: Vec::new(),
                 description: String::new(),
                 held: held.to_vec(),
                 initial: self
@@ -503,6 +506,7 @@ impl InfluenceEvidence {
                 .iter()
                 .enumerate()
                 .map(|(c, ins)| TraceCycle {
+                    ticked: None,
                     cycle: c,
                     inputs: ins
                         .iter()

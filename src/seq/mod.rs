@@ -32,11 +32,12 @@ pub use exact::{
 pub use product::{HeldInput, InitUnset, Side, StartEqual};
 pub use reach::{cycle_cones, CycleCone, CycleCones};
 pub use report::{
-    KInductionLine, NameMismatch, OutputStatus, RegisterPair, SeqReport, UnpairedRegister,
+    ClockLine, KInductionLine, NameMismatch, OutputStatus, RegisterPair, SeqReport,
+    UnpairedRegister,
 };
 pub use trace::{
-    first_difference, replay, FirstDifference, InitialValue, OutputDifference, Replay, Trace,
-    TraceCycle, TraceInput, TraceReset,
+    after_edge, first_difference, registers_ticking, replay, FirstDifference, InitialValue,
+    OutputDifference, Replay, Trace, TraceCycle, TraceInput, TraceReset,
 };
 
 use crate::design::Design;
@@ -46,6 +47,16 @@ use crate::sat::Limits;
 use correspond::{Classes, Constrained};
 use product::{Init, Product};
 use std::collections::BTreeMap;
+
+/// The clocks of `r` against `c` when either design has several (paired by name, as a trace
+/// lists them); empty when each has at most one clock or the clocks do not pair.
+pub fn clock_names(r: &Design, c: &Design) -> Vec<String> {
+    product::paired_clocks(r, c, None)
+        .ok()
+        .flatten()
+        .map(|v| v.into_iter().map(|k| k.name).collect())
+        .unwrap_or_default()
+}
 
 /// Settings of a clocked check.
 #[derive(Clone, Debug)]
@@ -131,6 +142,7 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     log::debug!("clocked: simulated by {:.2?}", start.elapsed());
     let mut classes = Classes::from_signatures(&p, &sim.signatures);
     classes.refine_by_init(&p);
+    classes.refine_by_clock(&p);
     let name_checks = report::name_matches(&p, &sim, o.port_map.as_deref());
     let mut stopped = None;
     // A large product first tries the pairing that is inductive by structure alone (no solver):
@@ -380,10 +392,21 @@ fn build_trace(
             value,
         });
     }
-    let description = match init_unset {
-        InitUnset::Free => "registers with a reset start at their reset value, the others at the values listed; reset ports are held inactive and clocks at 0 in every cycle",
-        InitUnset::Value(false) => "registers with a reset start at their reset value, the others at 0 (--init-unset 0); reset ports are held inactive and clocks at 0 in every cycle",
-        InitUnset::Value(true) => "registers with a reset start at their reset value, the others at 1 (--init-unset 1); reset ports are held inactive and clocks at 0 in every cycle",
+    let start = match init_unset {
+        InitUnset::Free => {
+            "registers with a reset start at their reset value, the others at the values listed"
+        }
+        InitUnset::Value(false) => {
+            "registers with a reset start at their reset value, the others at 0 (--init-unset 0)"
+        }
+        InitUnset::Value(true) => {
+            "registers with a reset start at their reset value, the others at 1 (--init-unset 1)"
+        }
+    };
+    let description = if p.clocks.is_empty() {
+        format!("{start}; reset ports are held inactive and clocks at 0 in every cycle")
+    } else {
+        format!("{start}; reset ports are held inactive; clocks are at 0 and each cycle lists the clocks with an active edge at its end (the others' registers keep their values)")
     };
     let cycles = free
         .iter()
@@ -394,6 +417,7 @@ fn build_trace(
                 .free
                 .iter()
                 .zip(vals)
+                .filter(|(f, _)| !f.tick)
                 .map(|(f, &value)| TraceInput {
                     name: f.name.clone(),
                     side: f.side,
@@ -401,13 +425,22 @@ fn build_trace(
                     candidate_name: f.candidate_name.clone(),
                 })
                 .collect(),
+            ticked: (!p.clocks.is_empty()).then(|| {
+                p.free
+                    .iter()
+                    .zip(vals)
+                    .filter(|(f, &v)| f.tick && v)
+                    .map(|(f, _)| f.name.clone())
+                    .collect()
+            }),
         })
         .collect();
     Trace {
         reset: TraceReset {
-            description: description.to_string(),
+            description,
             held: p.held.clone(),
             initial,
+            clocks: p.clocks.iter().map(|k| k.name.clone()).collect(),
         },
         cycles,
         first_difference: None,

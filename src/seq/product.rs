@@ -6,7 +6,7 @@
 //! cycle: a run starts in the reset state and reset is not asserted again.
 
 use crate::aig::{Aig, Lit};
-use crate::design::{Design, InputKind};
+use crate::design::{ClockEdge, Design, InputKind};
 use crate::diag::{Diagnostic, InputError};
 pub use crate::engine::Side;
 use crate::portmap::BitMap;
@@ -21,6 +21,9 @@ pub struct FreeInput {
     pub name: String,
     /// Whose input it is.
     pub side: Side,
+    /// A clock's tick (several clocks): 1 when the clock named `name` has an active edge at
+    /// the end of the cycle.
+    pub tick: bool,
     /// The candidate's name of a paired bit, when a port map renames it.
     pub candidate_name: Option<String>,
 }
@@ -51,6 +54,8 @@ pub struct StateBit {
     pub next: Lit,
     /// Its initial value.
     pub init: Init,
+    /// Its clock's index in `Product::clocks` (several clocks), else `None`.
+    pub clock: Option<usize>,
 }
 
 /// One output pair of the product.
@@ -132,6 +137,9 @@ pub struct Product {
     /// Register pairs of the port map without a reset that start equal (or, inverted,
     /// complementary): an assumption of the check, reported.
     pub start_equal: Vec<StartEqual>,
+    /// With several clocks, each clock and its tick input (AIG inputs after the port bits);
+    /// empty when each design has at most one clock (it ticks in every cycle).
+    pub clocks: Vec<ClockPair>,
 }
 
 /// A reference register and its port-map partner in the candidate, both without a reset,
@@ -167,57 +175,209 @@ fn held_inputs(d: &Design) -> BTreeMap<usize, (bool, &'static str)> {
     held
 }
 
-/// Every register of a design must sample on the same clock and edge (one clock domain). The
-/// error points at the first register of the second domain and lists every domain with its
-/// register count and first register.
-fn check_one_clock(d: &Design) -> Result<(), InputError> {
-    // (clock, edge) -> (register count, first register)
-    let mut seen: BTreeMap<(Option<&str>, &str), (usize, usize)> = BTreeMap::new();
-    let mut order: Vec<(Option<&str>, &str)> = Vec::new();
-    for (k, r) in d.registers.iter().enumerate() {
-        let edge = match r.edge {
-            crate::design::ClockEdge::Rising => "posedge",
-            crate::design::ClockEdge::Falling => "negedge",
-        };
-        let key = (r.clock.as_deref(), edge);
-        let e = seen.entry(key).or_insert_with(|| {
-            order.push(key);
-            (0, k)
-        });
-        e.0 += 1;
+/// The edge's keyword.
+fn edge_word(e: ClockEdge) -> &'static str {
+    match e {
+        ClockEdge::Rising => "posedge",
+        ClockEdge::Falling => "negedge",
     }
-    if order.len() <= 1 {
+}
+
+/// Clock name to its edge and register indices.
+type Domains<'a> = BTreeMap<Option<&'a str>, (ClockEdge, Vec<usize>)>;
+
+/// The clock domains of a design: clock name (`None`: a bench file's implicit clock) to its
+/// edge and register indices. A clock used at both edges is refused, with the registers of each
+/// edge named and where the first register of the second edge is declared.
+fn domains(d: &Design) -> Result<Domains<'_>, InputError> {
+    let mut out: Domains<'_> = BTreeMap::new();
+    for (k, r) in d.registers.iter().enumerate() {
+        let e = out
+            .entry(r.clock.as_deref())
+            .or_insert_with(|| (r.edge, Vec::new()));
+        if e.0 != r.edge {
+            let first = &d.registers[e.1[0]];
+            let both = d
+                .registers
+                .iter()
+                .filter(|g| g.clock == r.clock)
+                .collect::<Vec<_>>();
+            let named = |edge: ClockEdge| {
+                let v: Vec<&str> = both
+                    .iter()
+                    .filter(|g| g.edge == edge)
+                    .map(|g| g.name.as_str())
+                    .collect();
+                let more = if v.len() > 3 {
+                    format!(" and {} more", v.len() - 3)
+                } else {
+                    String::new()
+                };
+                format!(
+                    "{} by {}{more}",
+                    edge_word(edge),
+                    v[..v.len().min(3)].join(", ")
+                )
+            };
+            return Err(InputError::one(
+                Diagnostic::error(
+                    r.pos.clone(),
+                    format!(
+                        "{}: unsupported: clock `{}` is used at both edges ({}; {})",
+                        d.name,
+                        r.clock.as_deref().unwrap_or("(implicit)"),
+                        named(first.edge),
+                        named(r.edge)
+                    ),
+                )
+                .with_help(
+                    "equicone steps each clock as a whole (one tick: one active edge); clock the registers of one edge from a port of their own (two clocks, checked over every interleaving of their edges), or use one edge",
+                ),
+            ));
+        }
+        e.1.push(k);
+    }
+    Ok(out)
+}
+
+/// Refuse a design with more than one clock (for the analyses that model one clock: the exact
+/// cone across cycles).
+pub(super) fn check_one_clock(d: &Design) -> Result<(), InputError> {
+    let doms = domains(d)?;
+    if doms.len() <= 1 {
         return Ok(());
     }
-    let list: Vec<String> = order
+    let list: Vec<String> = doms
         .iter()
-        .map(|key| {
-            let (n, first) = seen[key];
+        .map(|(clock, (edge, regs))| {
             format!(
-                "{} {}: {n} register bit{} ({}{})",
-                key.1,
-                key.0.unwrap_or("(implicit)"),
-                if n == 1 { "" } else { "s" },
-                d.registers[first].name,
-                if n > 1 { ", ..." } else { "" }
+                "{} {}: {} register bit{} ({}{})",
+                edge_word(*edge),
+                clock.unwrap_or("(implicit)"),
+                regs.len(),
+                if regs.len() == 1 { "" } else { "s" },
+                d.registers[regs[0]].name,
+                if regs.len() > 1 { ", ..." } else { "" }
             )
         })
         .collect();
-    let second = &d.registers[seen[&order[1]].1];
-    Err(InputError::one(
-        Diagnostic::error(
-            second.pos.clone(),
-            format!(
-                "{}: unsupported: registers on {} clocks or edges ({}); equicone compares designs with one clock domain",
-                d.name,
-                order.len(),
-                list.join("; ")
-            ),
-        )
-        .with_help(
-            "check each clock domain as its own module (its registers, the other domains' signals as inputs); if the clocks are one clock under two names, clock every register from one port and edge",
+    Err(InputError::one(Diagnostic::error(
+        None,
+        format!(
+            "{}: registers on {} clocks ({}); this analysis models one clock",
+            d.name,
+            doms.len(),
+            list.join("; ")
         ),
-    ))
+    )))
+}
+
+/// The clocks of a product with several clocks, paired by name (through `map`'s port lines
+/// when it renames a clock port): each gets a free tick input per cycle. `Ok(None)`: each
+/// design has at most one clock, which ticks in every cycle. A clock that only one design has
+/// is an error naming it and its registers.
+pub(super) fn paired_clocks(
+    r: &Design,
+    c: &Design,
+    map: Option<&BitMap>,
+) -> Result<Option<Vec<ClockPair>>, InputError> {
+    let dr = domains(r)?;
+    let dc = domains(c)?;
+    if dr.len() <= 1 && dc.len() <= 1 {
+        return Ok(None);
+    }
+    // Reference clock -> the candidate's name for it.
+    let partner = |k: Option<&str>| -> Option<Option<String>> {
+        match (k, map) {
+            (Some(n), Some(m)) => m.partner(n).map(|x| Some(x.to_string())),
+            (k, _) => Some(k.map(str::to_string)),
+        }
+    };
+    let mut pairs = Vec::new();
+    let mut lonely = Vec::new();
+    let mut used = BTreeSet::new();
+    let lonely_line = |d: &Design,
+                       word: &str,
+                       clock: Option<&str>,
+                       edge: ClockEdge,
+                       regs: &[usize]| {
+        let names: Vec<&str> = regs
+            .iter()
+            .take(3)
+            .map(|&k| d.registers[k].name.as_str())
+            .collect();
+        format!(
+            "{word} clocks {} register bit{} on {} {} ({}{}) and the other design has no registers on a clock of that name",
+            regs.len(),
+            if regs.len() == 1 { "" } else { "s" },
+            edge_word(edge),
+            clock.unwrap_or("(implicit)"),
+            names.join(", "),
+            if regs.len() > 3 { ", ..." } else { "" }
+        )
+    };
+    for (clock, (edge, regs)) in &dr {
+        let other = partner(*clock)
+            .and_then(|cn| dc.iter().find(|(k, _)| **k == cn.as_deref()))
+            .map(|(k, v)| (*k, v));
+        match other {
+            Some((cn, (edge_c, regs_c))) => {
+                used.insert(cn);
+                pairs.push(ClockPair {
+                    name: clock.unwrap_or("(implicit)").to_string(),
+                    candidate: cn.unwrap_or("(implicit)").to_string(),
+                    edges: [*edge, *edge_c],
+                    registers: [regs.len(), regs_c.len()],
+                    tick: Lit::FALSE,
+                });
+            }
+            None => lonely.push(lonely_line(r, "the reference", *clock, *edge, regs)),
+        }
+    }
+    for (clock, (edge, regs)) in &dc {
+        if !used.contains(clock) {
+            lonely.push(lonely_line(c, "the candidate", *clock, *edge, regs));
+        }
+    }
+    if !lonely.is_empty() {
+        return Err(InputError::one(
+            Diagnostic::error(
+                None,
+                format!("clocks without a partner: {}", lonely.join("; ")),
+            )
+            .with_help(
+                "with several clocks, clocks pair by name (or by a port line of --port-map) and a register pair shares its clock; name the clock ports alike in both designs",
+            ),
+        ));
+    }
+    Ok(Some(pairs))
+}
+
+/// A clock of a product with several clocks (both designs clock registers on it).
+#[derive(Clone, Debug)]
+pub struct ClockPair {
+    /// The clock's name (the reference's).
+    pub name: String,
+    /// The candidate's name for it (the same unless a port map renames it).
+    pub candidate: String,
+    /// The edge each design samples on (reference, candidate).
+    pub edges: [ClockEdge; 2],
+    /// Register bits on it (reference, candidate).
+    pub registers: [usize; 2],
+    /// Its tick: a per-cycle input of the product, 1 when the clock has an active edge at the
+    /// end of the cycle.
+    pub tick: Lit,
+}
+
+impl ClockPair {
+    /// `posedge` or `negedge`, or both words when the designs differ (`posedge/negedge`).
+    pub fn edge_text(&self) -> String {
+        if self.edges[0] == self.edges[1] {
+            edge_word(self.edges[0]).to_string()
+        } else {
+            format!("{}/{}", edge_word(self.edges[0]), edge_word(self.edges[1]))
+        }
+    }
 }
 
 impl Product {
@@ -244,8 +404,7 @@ impl Product {
         free_extra: bool,
         map: Option<&BitMap>,
     ) -> Result<Product, InputError> {
-        check_one_clock(r)?;
-        check_one_clock(c)?;
+        let mut clocks = paired_clocks(r, c, map)?.unwrap_or_default();
         let held_r = held_inputs(r);
         let held_c = held_inputs(c);
         let mut aig = Aig::new();
@@ -278,6 +437,7 @@ impl Product {
                     free.push(FreeInput {
                         name: b.name.clone(),
                         side: Side::Reference,
+                        tick: false,
                         candidate_name: None,
                     });
                 }
@@ -346,6 +506,7 @@ impl Product {
                         } else {
                             Side::Reference
                         },
+                        tick: false,
                         candidate_name: renamed,
                     });
                 }
@@ -377,6 +538,7 @@ impl Product {
             free.push(FreeInput {
                 name: b.name.clone(),
                 side: Side::Candidate,
+                tick: false,
                 candidate_name: None,
             });
         }
@@ -398,6 +560,26 @@ impl Product {
                 ),
             ));
         }
+        // Ticks of several clocks: per-cycle inputs after the port bits.
+        for k in &mut clocks {
+            k.tick = aig.add_input();
+            free.push(FreeInput {
+                name: k.name.clone(),
+                side: Side::Both,
+                tick: true,
+                candidate_name: (k.candidate != k.name).then(|| k.candidate.clone()),
+            });
+        }
+        let clock_of = |side: Side, reg: &crate::design::Register| {
+            let name = reg.clock.as_deref().unwrap_or("(implicit)");
+            clocks.iter().position(|k| {
+                name == if side == Side::Reference {
+                    &k.name
+                } else {
+                    &k.candidate
+                }
+            })
+        };
         // State bits: reference registers, then candidate registers.
         let mut state = Vec::new();
         let mut next_free = 0u32;
@@ -469,6 +651,7 @@ impl Product {
                     current: cur,
                     next: Lit::FALSE,
                     init,
+                    clock: clock_of(side, reg),
                 });
             }
         }
@@ -514,10 +697,15 @@ impl Product {
         let lc = aig.import(&c.aig, &map_c, &roots_c);
         let n = outputs.len();
         for (k, s) in state.iter_mut().enumerate() {
-            s.next = if k < r.registers.len() {
+            let next = if k < r.registers.len() {
                 lr[n + k]
             } else {
                 lc[n + k - r.registers.len()]
+            };
+            // A register whose clock does not tick keeps its value.
+            s.next = match s.clock {
+                Some(i) => aig.mux(clocks[i].tick, next, s.current),
+                None => next,
             };
         }
         let outputs = outputs
@@ -540,6 +728,7 @@ impl Product {
             outputs,
             held,
             start_equal,
+            clocks,
         })
     }
 }

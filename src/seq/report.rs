@@ -75,6 +75,20 @@ pub struct OutputLine {
     pub method: &'static str,
 }
 
+/// One clock of designs with several clocks.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize)]
+pub struct ClockLine {
+    /// The clock's name (the reference's).
+    pub name: String,
+    /// The candidate's name for it, when a port map renames it.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub candidate: Option<String>,
+    /// `posedge`, `negedge`, or `reference/candidate` edges when they differ.
+    pub edge: String,
+    /// Register bits on it (reference, candidate).
+    pub registers: [usize; 2],
+}
+
 /// The report of a clocked check.
 #[derive(Clone, Debug, Serialize)]
 pub struct SeqReport {
@@ -92,6 +106,9 @@ pub struct SeqReport {
     pub registers: [usize; 2],
     /// Inputs held at a value in every cycle.
     pub held: Vec<HeldInput>,
+    /// With several clocks: each clock (paired by name) with a free tick per cycle.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub clocks: Vec<ClockLine>,
     /// Registers without a reset and how they start.
     pub without_reset: Vec<String>,
     /// `free` or the value given by `--init-unset`.
@@ -473,6 +490,16 @@ pub fn build(x: Parts<'_>) -> SeqReport {
         candidate: x.c.name.clone(),
         registers: [x.r.registers.len(), x.c.registers.len()],
         held: p.held.clone(),
+        clocks: p
+            .clocks
+            .iter()
+            .map(|k| ClockLine {
+                name: k.name.clone(),
+                candidate: (k.candidate != k.name).then(|| k.candidate.clone()),
+                edge: k.edge_text(),
+                registers: k.registers,
+            })
+            .collect(),
         without_reset,
         init_unset: match x.init_unset {
             InitUnset::Free => "free".to_string(),

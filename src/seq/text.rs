@@ -51,6 +51,11 @@ pub fn trace_table(t: &Trace, outputs: &[Vec<(bool, bool)>]) -> String {
     let mut s = String::new();
     let cols = columns(t);
     let mut header = vec!["cycle".to_string()];
+    // Several clocks: which ticked at the end of each cycle.
+    let ticks = !t.reset.clocks.is_empty();
+    if ticks {
+        header.push("ticked".to_string());
+    }
     for ((port, side, cand), _) in &cols {
         header.push(match side {
             Side::Both => match cand {
@@ -74,6 +79,12 @@ pub fn trace_table(t: &Trace, outputs: &[Vec<(bool, bool)>]) -> String {
     let mut rows = vec![header];
     for (ci, c) in t.cycles.iter().enumerate() {
         let mut row = vec![c.cycle.to_string()];
+        if ticks {
+            row.push(match c.ticked.as_deref() {
+                Some(k) if !k.is_empty() => k.join(","),
+                _ => "-".to_string(),
+            });
+        }
         for (_, bits) in &cols {
             if bits.len() == 1 && bits[0].0.is_none() {
                 row.push((c.inputs[bits[0].1].value as u8).to_string());
@@ -143,6 +154,27 @@ impl fmt::Display for SeqReport {
                 })
                 .collect();
             writeln!(f, "held in every cycle: {}", h.join(", "))?;
+        }
+        if !self.clocks.is_empty() {
+            let k: Vec<String> = self
+                .clocks
+                .iter()
+                .map(|k| {
+                    let name = match &k.candidate {
+                        Some(cn) => format!("{} <-> {cn}", k.name),
+                        None => k.name.clone(),
+                    };
+                    format!(
+                        "{name} {} ({}|{} register bits)",
+                        k.edge, k.registers[0], k.registers[1]
+                    )
+                })
+                .collect();
+            writeln!(
+                f,
+                "clocks: {}; any of them may tick in a cycle (every interleaving of their edges, zero delay), a register whose clock does not tick keeps its value, and register pairs share their clock",
+                k.join(", ")
+            )?;
         }
         if !self.paired.is_empty() {
             writeln!(

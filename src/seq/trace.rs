@@ -8,6 +8,11 @@
 //! differing cycle and outputs. Cycle 0 is the first clock cycle after reset: its inputs are
 //! applied with the registers in the reset state; outputs are read before the clock edge that
 //! ends the cycle.
+//!
+//! A trace of designs with several clocks lists the clocks (`TraceReset::clocks`) and, per
+//! cycle, the clocks that have an active edge at its end (`TraceCycle::ticked`): the registers
+//! of a clock that does not tick keep their value. A trace of one clock has neither field and
+//! every register takes its next value at every edge.
 
 use super::product::{port_name_on, HeldInput, Side};
 use crate::design::{Design, InputKind};
@@ -23,6 +28,10 @@ pub struct TraceReset {
     pub held: Vec<HeldInput>,
     /// Initial values of registers without a reset, per design.
     pub initial: Vec<InitialValue>,
+    /// The clocks of a run with several clocks (paired by name); empty: one clock, which
+    /// ticks at the end of every cycle.
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub clocks: Vec<String>,
 }
 
 /// The initial value of one register without a reset.
@@ -64,6 +73,10 @@ pub struct TraceCycle {
     pub cycle: usize,
     /// Every per-cycle input.
     pub inputs: Vec<TraceInput>,
+    /// With several clocks: the clocks with an active edge at the end of the cycle (the others'
+    /// registers keep their value). `None`: the one clock ticks.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub ticked: Option<Vec<String>>,
 }
 
 /// One output pair that differs.
@@ -147,6 +160,60 @@ pub struct Replay {
     pub outputs: Vec<Vec<bool>>,
 }
 
+/// Which registers of `d` take their next value at the edge that ends cycle `c` of `t`: every
+/// one in a trace of one clock; with several clocks, those whose clock ticked. Errors name a
+/// register whose clock the trace does not list.
+pub fn registers_ticking(
+    d: &Design,
+    side: Side,
+    t: &Trace,
+    c: &TraceCycle,
+) -> Result<Vec<bool>, String> {
+    if t.reset.clocks.is_empty() {
+        if let Some(ticked) = &c.ticked {
+            return Err(format!(
+                "cycle {} of the trace lists ticked clocks ({}) but the trace lists no clocks",
+                c.cycle,
+                ticked.join(", ")
+            ));
+        }
+        return Ok(vec![true; d.registers.len()]);
+    }
+    let ticked: &[String] = c.ticked.as_deref().unwrap_or(&[]);
+    d.registers
+        .iter()
+        .map(|r| {
+            let mut clock = r.clock.as_deref().unwrap_or("(implicit)");
+            // A clock port the port map renames: the trace names it as the reference does.
+            if side == Side::Candidate {
+                if let Some(h) = t.reset.held.iter().find(|h| {
+                    h.role == "clock" && h.candidate_name.as_deref() == Some(clock)
+                }) {
+                    clock = h.name.as_str();
+                }
+            }
+            if !t.reset.clocks.iter().any(|k| k == clock) {
+                return Err(format!(
+                    "register `{}` of {} is clocked by `{clock}`, which the trace does not list (its clocks: {})",
+                    r.name,
+                    d.name,
+                    t.reset.clocks.join(", ")
+                ));
+            }
+            Ok(ticked.iter().any(|k| k == clock))
+        })
+        .collect()
+}
+
+/// The state after the edge that ends a cycle: `next` where the register ticked, else `now`.
+pub fn after_edge<T: Copy>(now: &[T], next: &[T], ticking: &[bool]) -> Vec<T> {
+    now.iter()
+        .zip(next)
+        .zip(ticking)
+        .map(|((&a, &b), &t)| if t { b } else { a })
+        .collect()
+}
+
 /// Step design `d` (the trace's side `side`) through `trace`. Errors name what the trace lacks.
 pub fn replay(d: &Design, side: Side, trace: &Trace) -> Result<Replay, String> {
     let mut held: BTreeMap<&str, bool> = BTreeMap::new();
@@ -204,10 +271,11 @@ pub fn replay(d: &Design, side: Side, trace: &Trace) -> Result<Replay, String> {
             };
             ins.push(v);
         }
+        let ticking = registers_ticking(d, side, trace, c)?;
         let vals = crate::aig::eval(&d.aig, &ins, &roots);
         let n = d.outputs.len();
         outputs.push(vals[..n].to_vec());
-        state = vals[n..].to_vec();
+        state = after_edge(&state, &vals[n..], &ticking);
     }
     Ok(Replay { outputs })
 }

@@ -7,6 +7,8 @@
 
 mod lit;
 mod marks;
+#[cfg(test)]
+pub(crate) mod random_graph;
 mod sim;
 
 pub use lit::Lit;

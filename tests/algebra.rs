@@ -9,6 +9,20 @@ use equicone::gen::{generate, Bug, GenFormat, GenSpec, Kind, Style};
 use equicone::{Design, Format, Lit};
 use std::sync::Arc;
 
+/// The value of operand `name` (bits `name[0]` .. `name[width - 1]`, unsigned) in a
+/// counterexample.
+fn operand(cex: &equicone::engine::Counterexample, name: &str, width: usize) -> u128 {
+    (0..width).fold(0u128, |v, i| {
+        let bit = cex
+            .inputs
+            .iter()
+            .find(|x| x.name == format!("{name}[{i}]"))
+            .expect("operand bit")
+            .value;
+        v | (bit as u128) << i
+    })
+}
+
 #[path = "algebra/lookup.rs"]
 mod lookup;
 #[path = "algebra/squarer.rs"]
@@ -336,16 +350,7 @@ mod engine {
                 .find(|x| x.found_by == Method::Algebra)
                 .expect("a counterexample from the algebra");
             let val = |name: &str| -> i128 {
-                let mut v = 0i128;
-                for i in 0..10 {
-                    let bit = cex
-                        .inputs
-                        .iter()
-                        .find(|x| x.name == format!("{name}[{i}]"))
-                        .expect("operand bit")
-                        .value;
-                    v |= (bit as i128) << i;
-                }
+                let v = super::operand(cex, name, 10) as i128;
                 if signed && v >= 512 {
                     v - 1024
                 } else {

@@ -58,6 +58,13 @@ impl Lit {
         self.0 & 1 == 1
     }
 
+    /// A 64-bit word of all ones for a complemented literal, else zero: XOR it onto a node's
+    /// simulation word to get the literal's word.
+    #[inline]
+    pub fn complement_mask(self) -> u64 {
+        0u64.wrapping_sub(u64::from(self.0 & 1))
+    }
+
     /// The uncomplemented literal of the same node.
     #[inline]
     pub fn regular(self) -> Lit {

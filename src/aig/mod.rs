@@ -13,7 +13,10 @@ mod sim;
 
 pub use lit::Lit;
 pub use marks::Marks;
-pub use sim::{eval, random_words, simulate, simulate_into, simulate_prefix, SimTable};
+pub use sim::{
+    eval, random_words, simulate, simulate_into, simulate_prefix, variable_word, SimTable,
+    PROJECTIONS,
+};
 
 use crate::hash::FastMap;
 

@@ -72,7 +72,7 @@ pub fn simulate_prefix(
                 values[i * words..(i + 1) * words].copy_from_slice(&inputs[k as usize][..words]);
             }
             Node::And(a, b) => {
-                let (ma, mb) = (mask(a), mask(b));
+                let (ma, mb) = (a.complement_mask(), b.complement_mask());
                 let (ia, ib) = (a.index() * words, b.index() * words);
                 for w in 0..words {
                     values[i * words + w] = (values[ia + w] ^ ma) & (values[ib + w] ^ mb);
@@ -83,12 +83,25 @@ pub fn simulate_prefix(
     *table = SimTable { words, values };
 }
 
+/// The truth table of variable `j` (< 6) on one 64-bit word: bit `m` is bit `j` of `m`. Word
+/// `w` of a variable `j >= 6` is all ones when bit `j - 6` of `w` is set, else zero.
+pub const PROJECTIONS: [u64; 6] = [
+    0xAAAA_AAAA_AAAA_AAAA,
+    0xCCCC_CCCC_CCCC_CCCC,
+    0xF0F0_F0F0_F0F0_F0F0,
+    0xFF00_FF00_FF00_FF00,
+    0xFFFF_0000_FFFF_0000,
+    0xFFFF_FFFF_0000_0000,
+];
+
+/// Word `w` of variable `j` in the enumeration of all assignments, pattern `64 w + bit`
+/// assigning variable `j` the bit `j` of the pattern number.
 #[inline]
-fn mask(l: Lit) -> u64 {
-    if l.is_complemented() {
-        u64::MAX
+pub fn variable_word(j: usize, w: u64) -> u64 {
+    if j < 6 {
+        PROJECTIONS[j]
     } else {
-        0
+        0u64.wrapping_sub((w >> (j - 6)) & 1)
     }
 }
 

@@ -116,7 +116,7 @@ impl<'a> FlipSim<'a> {
             };
             self.work += 1;
             let (ia, ib) = (a.index(), b.index());
-            let (ma, mb) = (mask(a), mask(b));
+            let (ma, mb) = (a.complement_mask(), b.complement_mask());
             let (ca, cb) = (self.changed.is_marked(ia), self.changed.is_marked(ib));
             let mut differs = false;
             for i in 0..w {
@@ -170,15 +170,6 @@ impl<'a> FlipSim<'a> {
             b.set(k, (row[p / 64] >> (p % 64)) & 1 == 1);
         }
         b
-    }
-}
-
-#[inline]
-fn mask(l: Lit) -> u64 {
-    if l.is_complemented() {
-        u64::MAX
-    } else {
-        0
     }
 }
 

@@ -94,13 +94,13 @@ pub(crate) fn decide(
             Node::Input(k) => Op::Input(pos_of_input[k as usize].expect("support input")),
             Node::And(a, b) => Op::And(
                 slot[a.index()] as usize,
-                cmask(a),
+                a.complement_mask(),
                 slot[b.index()] as usize,
-                cmask(b),
+                b.complement_mask(),
             ),
         })
         .collect();
-    let lit_of = |l: Lit| (slot[l.index()] as usize, cmask(l));
+    let lit_of = |l: Lit| (slot[l.index()] as usize, l.complement_mask());
     let total_words: u64 = if n <= 6 { 1 } else { 1u64 << (n - 6) };
     let block = (BLOCK_BYTES / 8 / cone.len().max(1)).clamp(1, 1024) as u64;
     let block = block.min(total_words) as usize;
@@ -124,7 +124,7 @@ pub(crate) fn decide(
                 Op::Zero => vals[base..base + len].fill(0),
                 Op::Input(j) => {
                     for w in 0..len {
-                        vals[base + w] = input_word(j, w0 + w as u64);
+                        vals[base + w] = crate::aig::variable_word(j, w0 + w as u64);
                     }
                 }
                 Op::And(a, ma, b, mb) => {
@@ -167,36 +167,6 @@ pub(crate) fn decide(
             }
         })
         .collect())
-}
-
-/// Word `w` of support input `j`: pattern `64 w + bit` assigns input `j` the bit `j` of the
-/// pattern number.
-#[inline]
-fn input_word(j: usize, w: u64) -> u64 {
-    const LOW: [u64; 6] = [
-        0xAAAA_AAAA_AAAA_AAAA,
-        0xCCCC_CCCC_CCCC_CCCC,
-        0xF0F0_F0F0_F0F0_F0F0,
-        0xFF00_FF00_FF00_FF00,
-        0xFFFF_0000_FFFF_0000,
-        0xFFFF_FFFF_0000_0000,
-    ];
-    if j < 6 {
-        LOW[j]
-    } else if (w >> (j - 6)) & 1 == 1 {
-        u64::MAX
-    } else {
-        0
-    }
-}
-
-#[inline]
-fn cmask(l: Lit) -> u64 {
-    if l.is_complemented() {
-        u64::MAX
-    } else {
-        0
-    }
 }
 
 #[cfg(test)]
@@ -292,7 +262,7 @@ mod tests {
             for bit in 0..64u64 {
                 let p = w * 64 + bit;
                 for j in 0..8 {
-                    let v = (input_word(j, w) >> bit) & 1;
+                    let v = (crate::aig::variable_word(j, w) >> bit) & 1;
                     assert_eq!(v, (p >> j) & 1);
                 }
             }

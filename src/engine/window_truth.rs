@@ -25,16 +25,6 @@ pub(crate) enum TruthAnswer {
 /// Leaves enumerated at most: 2^10 assignments, 16 words per node.
 pub(crate) const MAX_LEAVES: usize = 10;
 
-/// The projection of leaf `j` (< 6) on one 64-bit word.
-const PROJECTION: [u64; 6] = [
-    0xAAAA_AAAA_AAAA_AAAA,
-    0xCCCC_CCCC_CCCC_CCCC,
-    0xF0F0_F0F0_F0F0_F0F0,
-    0xFF00_FF00_FF00_FF00,
-    0xFFFF_0000_FFFF_0000,
-    0xFFFF_FFFF_0000_0000,
-];
-
 /// Reusable scratch space of the truth-table check.
 #[derive(Default)]
 pub(crate) struct TruthWindow {
@@ -151,13 +141,7 @@ impl TruthWindow {
         for (j, &n) in self.leaves.iter().enumerate() {
             let at = self.local[n as usize] as usize * words;
             for w in 0..words {
-                self.tables[at + w] = if j < 6 {
-                    PROJECTION[j]
-                } else if (w >> (j - 6)) & 1 == 1 {
-                    u64::MAX
-                } else {
-                    0
-                };
+                self.tables[at + w] = crate::aig::variable_word(j, w as u64);
             }
         }
         // Expanded nodes in topological order (ascending index); a node's fan-ins are earlier
@@ -171,7 +155,7 @@ impl TruthWindow {
                 self.local[x.index()] as usize * words,
                 self.local[y.index()] as usize * words,
             );
-            let (cx, cy) = (mask(x), mask(y));
+            let (cx, cy) = (x.complement_mask(), y.complement_mask());
             for w in 0..words {
                 self.tables[at + w] = (self.tables[ax + w] ^ cx) & (self.tables[ay + w] ^ cy);
             }
@@ -180,7 +164,7 @@ impl TruthWindow {
             self.local[a.index()] as usize * words,
             self.local[b.index()] as usize * words,
         );
-        let (ca, cb) = (mask(a), mask(b));
+        let (ca, cb) = (a.complement_mask(), b.complement_mask());
         let differ = (0..words).find_map(|w| {
             let d = (self.tables[la + w] ^ ca) ^ (self.tables[lb + w] ^ cb);
             (d != 0).then(|| w * 64 + d.trailing_zeros() as usize)
@@ -202,16 +186,6 @@ impl TruthWindow {
         // A difference over a cut of inner nodes may be unreachable; the SAT query on the
         // larger window decides it.
         complete.then_some(TruthAnswer::Differ(values))
-    }
-}
-
-/// All ones for a complemented literal, else zero.
-#[inline]
-fn mask(l: Lit) -> u64 {
-    if l.is_complemented() {
-        u64::MAX
-    } else {
-        0
     }
 }
 

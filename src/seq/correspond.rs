@@ -359,13 +359,13 @@ fn refine_by_states(
         let rep: Vec<u64> = if g[0].is_const() {
             vec![if g[0] == Lit::TRUE { !0 } else { 0 }; words]
         } else {
-            let m = mask(g[0]);
+            let m = g[0].complement_mask();
             ins[pos_of(g[0].node())].iter().map(|w| w ^ m).collect()
         };
         for &m in &g[1..] {
             if !m.is_const() {
                 let k = pos_of(m.node());
-                let mk = mask(m);
+                let mk = m.complement_mask();
                 for (w, r) in ins[k].iter_mut().zip(&rep) {
                     *w = r ^ mk;
                 }
@@ -404,14 +404,6 @@ fn refine_by_states(
     }
     classes.groups = out;
     true
-}
-
-fn mask(l: Lit) -> u64 {
-    if l.is_complemented() {
-        !0
-    } else {
-        0
-    }
 }
 
 /// Member -> number of its group.

@@ -368,14 +368,7 @@ fn unroll(p: &Product, reduced: &[Lit], nreg: usize, cycles: usize) -> (Design, 
     let frees: Vec<Vec<Lit>> = (0..cycles)
         .map(|_| (0..nf).map(|_| g.add_input()).collect())
         .collect();
-    let n_init = p.state[..nreg]
-        .iter()
-        .filter_map(|s| match s.init {
-            Init::Free(k, _) => Some(k as usize + 1),
-            Init::Const(_) => None,
-        })
-        .max()
-        .unwrap_or(0);
+    let n_init = p.free_init_count(nreg);
     let init: Vec<Lit> = (0..n_init).map(|_| g.add_input()).collect();
     let mut state: Vec<Lit> = p.state[..nreg]
         .iter()

@@ -191,6 +191,19 @@ fn check_one_clock(d: &Design) -> Result<(), InputError> {
 }
 
 impl Product {
+    /// How many free initial values the first `nreg` state bits use (one more than the largest
+    /// number of an [`Init::Free`]; zero when every one of them starts at a constant).
+    pub fn free_init_count(&self, nreg: usize) -> usize {
+        self.state[..nreg]
+            .iter()
+            .filter_map(|s| match s.init {
+                Init::Free(k, _) => Some(k as usize + 1),
+                Init::Const(_) => None,
+            })
+            .max()
+            .unwrap_or(0)
+    }
+
     /// Build the product of `r` and `c`; port bits pair by name. `free_extra` leaves port bits
     /// that only one design has free instead of refusing them. The register pairs of `map`
     /// (a port map) without a reset start at one shared free value.

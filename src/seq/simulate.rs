@@ -29,15 +29,7 @@ impl SimRun {
 /// Simulate `cycles` cycles of `words * 64` random runs with seed `seed`.
 pub fn simulate(p: &Product, cycles: usize, words: usize, seed: u64) -> SimRun {
     let nf = p.free.len();
-    let n_free_init = p
-        .state
-        .iter()
-        .filter_map(|s| match s.init {
-            Init::Free(k, _) => Some(k as usize + 1),
-            Init::Const(_) => None,
-        })
-        .max()
-        .unwrap_or(0);
+    let n_free_init = p.free_init_count(p.state.len());
     let init = random_words(n_free_init, words, seed ^ 0x5EED_0001);
     let mut state: Vec<Vec<u64>> = p
         .state

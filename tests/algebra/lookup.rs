@@ -175,18 +175,7 @@ fn prove_with_the_algebra_engine_decides_remapped_multipliers() {
         .iter()
         .find(|x| x.found_by == Method::Algebra)
         .expect("a counterexample from the algebra");
-    let val = |name: &str| -> u128 {
-        (0..10).fold(0u128, |v, i| {
-            let bit = cex
-                .inputs
-                .iter()
-                .find(|x| x.name == format!("{name}[{i}]"))
-                .expect("operand bit")
-                .value;
-            v | (bit as u128) << i
-        })
-    };
-    let (a, b) = (val("a"), val("b"));
+    let (a, b) = (super::operand(cex, "a", 10), super::operand(cex, "b", 10));
     assert_eq!(product_of(&r, 10, a, b, 20), a * b);
     assert_ne!(product_of(&bad, 10, a, b, 20), a * b);
 }

@@ -104,15 +104,7 @@ fn planted_bugs_in_wallace_squarers_are_found_and_resimulated() {
             .expect("a counterexample from the remainder");
         // `prove` re-simulated it on both designs; here the operand is read back and both
         // designs are evaluated again: the reference gives the u128 square, the candidate not.
-        let a = (0..n).fold(0u128, |v, i| {
-            let bit = cex
-                .inputs
-                .iter()
-                .find(|x| x.name == format!("a[{i}]"))
-                .expect("operand bit")
-                .value;
-            v | (bit as u128) << i
-        });
+        let a = super::operand(cex, "a", n);
         let want = (a * a) & ((1u128 << (2 * n)) - 1);
         assert_eq!(
             square_of(&r, n, a),

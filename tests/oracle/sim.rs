@@ -131,6 +131,26 @@ impl Evaluator {
 /// Per output pair (by position): the first input vector on which the two nets differ, or
 /// `None` when they agree on all 2^n vectors. `n` is the first net's input count (at most 20);
 /// every input of the second net must be an input of the first (by name).
+/// Word `w` of input `i` when all assignments are enumerated: within a word, inputs 0..6
+/// follow the bit position; above that, the word index.
+pub fn lane_word(i: usize, w: u64) -> u64 {
+    const LOW: [u64; 6] = [
+        0xAAAA_AAAA_AAAA_AAAA,
+        0xCCCC_CCCC_CCCC_CCCC,
+        0xF0F0_F0F0_F0F0_F0F0,
+        0xFF00_FF00_FF00_FF00,
+        0xFFFF_0000_FFFF_0000,
+        0xFFFF_FFFF_0000_0000,
+    ];
+    if i < 6 {
+        LOW[i]
+    } else if (w >> (i - 6)) & 1 == 1 {
+        !0
+    } else {
+        0
+    }
+}
+
 pub fn exhaustive_diff(a: &Net, b: &Net) -> Vec<Option<u64>> {
     let n = a.inputs.len();
     assert!(
@@ -159,15 +179,6 @@ pub fn exhaustive_diff(a: &Net, b: &Net) -> Vec<Option<u64>> {
     let mut vb = vec![0u64; cb.signals];
     let vectors = 1u64 << n;
     let words = vectors.div_ceil(64);
-    // Within a word, inputs 0..6 follow the bit position; above that, the word index.
-    const LOW: [u64; 6] = [
-        0xAAAA_AAAA_AAAA_AAAA,
-        0xCCCC_CCCC_CCCC_CCCC,
-        0xF0F0_F0F0_F0F0_F0F0,
-        0xFF00_FF00_FF00_FF00,
-        0xFFFF_0000_FFFF_0000,
-        0xFFFF_FFFF_0000_0000,
-    ];
     let valid = if vectors >= 64 {
         !0
     } else {
@@ -176,13 +187,7 @@ pub fn exhaustive_diff(a: &Net, b: &Net) -> Vec<Option<u64>> {
     let mut first: Vec<Option<u64>> = vec![None; a.outputs.len()];
     for w in 0..words {
         for i in 0..n {
-            let word = if i < 6 {
-                LOW[i]
-            } else if (w >> (i - 6)) & 1 == 1 {
-                !0
-            } else {
-                0
-            };
+            let word = lane_word(i, w);
             va[i] = word;
             vb[i] = word;
         }

@@ -7,7 +7,7 @@
 //! Verilog design and must show the output differ in the reported cycle.
 
 use super::common;
-use super::seq_oracle::{parse, SeqNet};
+use super::seq_oracle::{gate_word, parse, SeqNet};
 use equicone::design::Design;
 use equicone::front::bench::read_bench;
 use equicone::front::verilog::read_verilog;
@@ -65,20 +65,7 @@ impl Compiled {
         let mut v: Vec<u64> = ins.iter().chain(state).copied().collect();
         for (kind, f) in &self.gates {
             let xs: Vec<u64> = f.iter().map(|&k| v[k]).collect();
-            let and = xs.iter().fold(!0, |a, &b| a & b);
-            let or = xs.iter().fold(0, |a, &b| a | b);
-            let xor = xs.iter().fold(0, |a, &b| a ^ b);
-            v.push(match kind.as_str() {
-                "AND" => and,
-                "NAND" => !and,
-                "OR" => or,
-                "NOR" => !or,
-                "XOR" => xor,
-                "XNOR" => !xor,
-                "NOT" => !xs[0],
-                "BUF" | "BUFF" => xs[0],
-                other => panic!("gate {other}"),
-            });
+            v.push(gate_word(kind, &xs));
         }
         (
             self.outputs.iter().map(|&o| v[o]).collect(),
@@ -89,21 +76,7 @@ impl Compiled {
 
 /// The word of lanes `64 * block ..` for bit `j` of the sequence number.
 fn lane_word(j: usize, block: usize) -> u64 {
-    const PAT: [u64; 6] = [
-        0xAAAA_AAAA_AAAA_AAAA,
-        0xCCCC_CCCC_CCCC_CCCC,
-        0xF0F0_F0F0_F0F0_F0F0,
-        0xFF00_FF00_FF00_FF00,
-        0xFFFF_0000_FFFF_0000,
-        0xFFFF_FFFF_0000_0000,
-    ];
-    if j < 6 {
-        PAT[j]
-    } else if block >> (j - 6) & 1 == 1 {
-        !0
-    } else {
-        0
-    }
+    super::oracle::sim::lane_word(j, block as u64)
 }
 
 /// Brute force: per (output name, input name), the least `k - t` over `k < cycles` such that

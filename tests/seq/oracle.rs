@@ -53,6 +53,24 @@ pub fn parse(text: &str) -> SeqNet {
     n
 }
 
+/// One gate of bench text on 64 lanes at once.
+pub fn gate_word(kind: &str, xs: &[u64]) -> u64 {
+    let and = xs.iter().fold(!0, |a, &b| a & b);
+    let or = xs.iter().fold(0, |a, &b| a | b);
+    let xor = xs.iter().fold(0, |a, &b| a ^ b);
+    match kind {
+        "AND" => and,
+        "NAND" => !and,
+        "OR" => or,
+        "NOR" => !or,
+        "XOR" => xor,
+        "XNOR" => !xor,
+        "NOT" => !xs[0],
+        "BUF" | "BUFF" => xs[0],
+        other => panic!("gate {other}"),
+    }
+}
+
 impl SeqNet {
     /// One cycle: outputs and next state, from inputs and state (by name).
     pub fn step(
@@ -70,21 +88,8 @@ impl SeqNet {
                 if !a.iter().all(|x| v.contains_key(x)) {
                     return true;
                 }
-                let xs: Vec<bool> = a.iter().map(|x| v[x]).collect();
-                let and = xs.iter().all(|&b| b);
-                let or = xs.iter().any(|&b| b);
-                let xor = xs.iter().filter(|&&b| b).count() % 2 == 1;
-                let r = match k.as_str() {
-                    "AND" => and,
-                    "NAND" => !and,
-                    "OR" => or,
-                    "NOR" => !or,
-                    "XOR" => xor,
-                    "XNOR" => !xor,
-                    "NOT" => !xs[0],
-                    "BUF" | "BUFF" => xs[0],
-                    other => panic!("gate {other}"),
-                };
+                let xs: Vec<u64> = a.iter().map(|x| if v[x] { !0 } else { 0 }).collect();
+                let r = gate_word(k, &xs) & 1 == 1;
                 v.insert(o.clone(), r);
                 false
             });

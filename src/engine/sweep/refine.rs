@@ -58,15 +58,15 @@ impl Sweeper<'_> {
                 Node::Const => 0,
                 Node::Input(k) => fixed_word[k as usize].unwrap_or_else(|| rng.next_u64()),
                 Node::And(x, y) => {
-                    let vx = self.value[&x.node()] ^ if x.is_complemented() { u64::MAX } else { 0 };
-                    let vy = self.value[&y.node()] ^ if y.is_complemented() { u64::MAX } else { 0 };
+                    let vx = self.value[&x.node()] ^ x.complement_mask();
+                    let vy = self.value[&y.node()] ^ y.complement_mask();
                     vx & vy
                 }
             };
             self.value.insert(n, v);
         }
         self.rng = rng;
-        let word = |l: Lit| self.value[&l.node()] ^ if l.is_complemented() { u64::MAX } else { 0 };
+        let word = |l: Lit| self.value[&l.node()] ^ l.complement_mask();
         let d = word(a) ^ word(b);
         if d == 0 {
             return None;

@@ -24,14 +24,7 @@ impl Parser<'_, '_> {
             Ok(mut f) => {
                 for (n, p) in loops {
                     if !f.decls.iter().any(|d| d.names.iter().any(|x| x.0 == n)) {
-                        f.decls.push(Decl {
-                            dir: None,
-                            ty: Some(NetType::Integer),
-                            signed: true,
-                            range: None,
-                            names: vec![(n, p, None)],
-                            pos: p,
-                        });
+                        f.decls.push(super::parser::loop_variable(n, p));
                     }
                 }
                 out.push(Item::Function(Box::new(f)))

@@ -516,14 +516,7 @@ impl<'s, 'n> Parser<'s, 'n> {
                 _ => false,
             });
             if !declared {
-                out.push(Item::Decl(Box::new(Decl {
-                    dir: None,
-                    ty: Some(NetType::Integer),
-                    signed: true,
-                    range: None,
-                    names: vec![(n, p, None)],
-                    pos: p,
-                })));
+                out.push(Item::Decl(Box::new(loop_variable(n, p))));
             }
         }
         r
@@ -763,8 +756,6 @@ impl<'s, 'n> Parser<'s, 'n> {
     }
 }
 
-impl Parser<'_, '_> {}
-
 fn punct_text(p: Punct) -> &'static str {
     match p {
         Punct::LParen => "(",
@@ -817,6 +808,19 @@ fn punct_text(p: Punct) -> &'static str {
 
 /// The constant driving a `supply0` (`v` = 0) or `supply1` (`v` = 1) net: `0` or `~0`,
 /// sized by the net.
+/// The declaration `integer NAME` of a `for (int NAME = ...)` loop variable, in the module or
+/// function whose body holds the loop.
+pub(crate) fn loop_variable(name: Sym, pos: Pos) -> Decl {
+    Decl {
+        dir: None,
+        ty: Some(NetType::Integer),
+        signed: true,
+        range: None,
+        names: vec![(name, pos, None)],
+        pos,
+    }
+}
+
 fn supply_value(v: usize, p: Pos) -> Expr {
     let zero = Expr::Num(
         Box::new(super::lexer::NumLit {

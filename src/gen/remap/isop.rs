@@ -6,14 +6,7 @@
 //! variables are simply independent of the upper ones.
 
 /// Truth tables of the six variables.
-pub const VAR: [u64; 6] = [
-    0xAAAA_AAAA_AAAA_AAAA,
-    0xCCCC_CCCC_CCCC_CCCC,
-    0xF0F0_F0F0_F0F0_F0F0,
-    0xFF00_FF00_FF00_FF00,
-    0xFFFF_0000_FFFF_0000,
-    0xFFFF_FFFF_0000_0000,
-];
+pub use crate::aig::PROJECTIONS as VAR;
 
 /// A product term: variable i is in the cube when bit i of `mask` is set, positive when bit i
 /// of `pos` is also set.

@@ -80,14 +80,6 @@ fn decide(aig: &Aig, cond: Lit) -> Coverage {
     } else {
         (1u64 << (1 << k)) - 1
     };
-    const PATTERN: [u64; 6] = [
-        0xAAAA_AAAA_AAAA_AAAA,
-        0xCCCC_CCCC_CCCC_CCCC,
-        0xF0F0_F0F0_F0F0_F0F0,
-        0xFF00_FF00_FF00_FF00,
-        0xFFFF_0000_FFFF_0000,
-        0xFFFF_FFFF_0000_0000,
-    ];
     let index: crate::hash::FastMap<u32, usize> =
         cone.iter().enumerate().map(|(i, &n)| (n, i)).collect();
     let mut val: Vec<Vec<u64>> = Vec::with_capacity(cone.len());
@@ -105,15 +97,7 @@ fn decide(aig: &Aig, cond: Lit) -> Coverage {
             Node::Input(_) => {
                 let j = leaves.binary_search(&n).unwrap_or(0);
                 (0..words)
-                    .map(|w| {
-                        if j < 6 {
-                            PATTERN[j]
-                        } else if (w >> (j - 6)) & 1 == 1 {
-                            !0
-                        } else {
-                            0
-                        }
-                    })
+                    .map(|w| crate::aig::variable_word(j, w as u64))
                     .collect()
             }
             Node::And(a, b) => (0..words)

@@ -37,8 +37,9 @@ pub struct Diagnosis {
     pub select: Option<String>,
     /// One entry per differing output pair (at most [`MAX_TABLES`]).
     pub routes: Vec<RouteDiff>,
-    /// A limit (the diagnosis's time share, the run's `--timeout`, the conflict limit) cut it:
-    /// some supports or routes are undecided, which makes no claim either way.
+    /// A limit (the diagnosis's time share, the run's `--timeout`, the conflict limit, the
+    /// supports' work bounds on wide cones) cut it: some supports or routes are undecided,
+    /// which makes no claim either way.
     pub partial: bool,
     /// Wall-clock seconds the diagnosis took.
     pub seconds: f64,
@@ -55,6 +56,20 @@ pub const MAX_SAT_QUERIES: usize = 64;
 /// Rounds of random flip simulation of the supports (each round flips every input over up
 /// to 4,096 patterns on each design; a round that decides nothing new ends them earlier).
 pub const SIMULATION_ROUNDS: usize = 2;
+
+/// Nodes an output's cone may hold for the supports to query SAT on it; a wider one keeps the
+/// claims simulation left open undecided. Each query costs about its cone in encoding and
+/// propagation whatever the conflict limit: on the high bits of a 64x64 multiplier (about
+/// 40,000 nodes each) four queries took 2 s of CPU time and decided nothing. ISCAS-85 cones
+/// (c7552, the largest: about 3,500 AND nodes) stay below it.
+pub const MAX_SAT_CONE: usize = 12_000;
+
+/// Node-words a round of the supports' flip simulation may evaluate (inputs with open claims
+/// times nodes times words): 2^26, so a 64x64 multiplier (128 inputs, about 40,000 nodes a
+/// design) gets 13 words of patterns instead of 64 (its high bits depend on the low inputs
+/// through carry chains that more patterns rarely sensitize), while a design of up to 8,000
+/// nodes with 128 inputs, every ISCAS-85 circuit among them, keeps all 64.
+pub const MAX_FLIP_WORK: u64 = 1 << 26;
 
 /// Conflicts each of those queries may take (or the run's `--conflict-limit`, if lower).
 pub const SAT_CONFLICTS: u64 = 1_000;
@@ -111,6 +126,8 @@ pub fn diagnose(
         .unwrap_or_default();
     let opts = SupportOptions {
         max_sat_queries: Some(MAX_SAT_QUERIES),
+        max_sat_cone: Some(MAX_SAT_CONE),
+        max_flip_work: Some(MAX_FLIP_WORK),
         max_rounds: SIMULATION_ROUNDS,
         ..SupportOptions::default()
     };
@@ -218,7 +235,7 @@ fn partition_values(r: &[Route], c: &[Route]) -> (Vec<usize>, Vec<usize>) {
 pub fn diagnosis_text(d: &Diagnosis) -> String {
     let mut s = String::new();
     if d.partial {
-        s += "\ndiagnosis   partial: a limit cut it (its time share, --diagnosis-time, or the run's --timeout); undecided entries make no claim\n";
+        s += "\ndiagnosis   partial: a limit cut it (its time share, --diagnosis-time, the run's --timeout, or its work bounds on wide cones); undecided entries make no claim\n";
     }
     let differ: Vec<&SupportComparison> = d.supports.iter().filter(|c| c.differs()).collect();
     if !d.supports.is_empty() {

@@ -38,6 +38,17 @@ pub struct SupportOptions {
     /// depend on the low inputs through carry chains no random pattern sensitizes, and each
     /// such query is as hard as the multiplier.
     pub max_sat_queries: Option<usize>,
+    /// An output whose cone holds more nodes than this gets no SAT queries: its claims left
+    /// open by simulation stay undecided (engine limit). `None`: no such bound. Prove's
+    /// diagnosis sets it, so that its cost does not grow with a wide word's cones (a 64x64
+    /// multiplier's high bits: about 40,000 nodes each, a query of 1,000 conflicts there
+    /// costs about half a second and decides nothing).
+    pub max_sat_cone: Option<usize>,
+    /// Node-words one round of flip simulation may evaluate at most, counted as the inputs
+    /// with open claims times the graph's nodes times the words of the block: a wide graph
+    /// gets fewer patterns per round (at least one word). `None`: no such bound. Prove's
+    /// diagnosis sets it (a count, so the supports stay the same from run to run).
+    pub max_flip_work: Option<u64>,
 }
 
 impl Default for SupportOptions {
@@ -47,6 +58,8 @@ impl Default for SupportOptions {
             max_rounds: 64,
             progress: false,
             max_sat_queries: None,
+            max_sat_cone: None,
+            max_flip_work: None,
         }
     }
 }
@@ -232,7 +245,7 @@ pub(crate) fn run(
 ) -> (Vec<SupportResult>, SupportStats) {
     let mut e = Engine::new(design, outputs, cones, limits, bar);
     e.simulate_rounds(opts);
-    e.solve_rest(opts.max_sat_queries);
+    e.solve_rest(opts.max_sat_queries, opts.max_sat_cone);
     e.finish()
 }
 
@@ -311,11 +324,16 @@ impl<'a> Engine<'a> {
         let design = self.design;
         let aig = &design.aig;
         // Words times nodes at most 4 million (8 bytes each: 32 MiB of values per block).
-        let words = (4_000_000 / aig.len().max(1)).clamp(1, 64);
+        let most = (4_000_000 / aig.len().max(1)).clamp(1, 64);
         for round in 0..opts.max_rounds {
             if !self.any_open() || self.limits.expired() {
                 break;
             }
+            let flips = self.open.iter().filter(|v| !v.is_empty()).count() as u64;
+            let words = opts.max_flip_work.map_or(most, |work| {
+                let per_word = flips.max(1) * aig.len().max(1) as u64;
+                most.min((work / per_word).max(1) as usize)
+            });
             let seed = opts
                 .seed
                 .wrapping_mul(0x1000_0000_0000)
@@ -379,7 +397,7 @@ impl<'a> Engine<'a> {
     /// SAT on the cofactor miter for every claim still open, output by output, within
     /// `max_queries` queries in all: an output whose open claims do not fit in what is left
     /// gets none (they stay undecided).
-    fn solve_rest(&mut self, max_queries: Option<usize>) {
+    fn solve_rest(&mut self, max_queries: Option<usize>, max_cone: Option<usize>) {
         let mut budget = max_queries.unwrap_or(usize::MAX);
         let design = self.design;
         let aig = &design.aig;
@@ -394,7 +412,10 @@ impl<'a> Engine<'a> {
             if todo.is_empty() {
                 continue;
             }
-            if todo.len() > budget {
+            let root = self.roots[pos];
+            let mask = aig.cone_mask(&[root]);
+            let too_wide = max_cone.is_some_and(|most| mask.iter().filter(|&&m| m).count() > most);
+            if todo.len() > budget || too_wide {
                 for ci in todo {
                     self.claims[pos][ci] = Some(Membership::Undecided(StopReason::EngineLimit));
                     self.stats.undecided += 1;
@@ -403,8 +424,6 @@ impl<'a> Engine<'a> {
                 continue;
             }
             budget -= todo.len();
-            let root = self.roots[pos];
-            let mask = aig.cone_mask(&[root]);
             let mut sat = Sat::new(self.limits);
             let mut ts = Tseitin::new();
             let cands = WalkInputs::new(aig, &self.fanout, &self.cones[pos]);
@@ -582,5 +601,43 @@ mod tests {
         assert!(st.sat.calls <= 21, "{st:?}");
         assert_eq!(st.undecided, 0, "{st:?}");
         assert_eq!(r[0].support().len(), 21);
+    }
+
+    #[test]
+    fn wide_cones_get_no_sat_queries_and_fewer_patterns_under_the_work_bounds() {
+        // y = AND(b0..b20) again: its cone has 21 inputs and 20 AND nodes. A cone bound of
+        // 40 nodes stops the queries (claims undecided, no SAT call), 41 lets them run.
+        let ins: Vec<String> = (0..21).map(|i| format!("b{i}")).collect();
+        let mut t: String = ins.iter().map(|b| format!("INPUT({b})\n")).collect();
+        t.push_str(&format!("OUTPUT(y)\ny = AND({})\n", ins.join(", ")));
+        let d = design(&t);
+        let nodes = d
+            .aig
+            .cone_mask(&[d.outputs[0].lit])
+            .iter()
+            .filter(|&&m| m)
+            .count();
+        let with = |cone: usize, work: Option<u64>| SupportOptions {
+            max_rounds: 1,
+            max_sat_cone: Some(cone),
+            max_flip_work: work,
+            ..SupportOptions::default()
+        };
+        let (r, st) = supports(&d, &[0], &with(nodes - 1, None), &Limits::none());
+        assert_eq!(st.sat.calls, 0, "{st:?}");
+        assert_eq!(st.undecided + st.by_simulation(), 21, "{st:?}");
+        assert!(r[0]
+            .claims
+            .iter()
+            .all(|m| m.depends() || *m == Membership::Undecided(StopReason::EngineLimit)));
+        let (r, st) = supports(&d, &[0], &with(nodes, None), &Limits::none());
+        assert_eq!(st.undecided, 0, "{st:?}");
+        assert_eq!(r[0].support().len(), 21);
+        // Without a work bound the block has 64 words (4,096 patterns); a bound of one word
+        // per flip of every open input leaves one word (64 patterns).
+        assert_eq!(st.random_patterns, 4096, "{st:?}");
+        let one_word = 21 * d.aig.len() as u64;
+        let (_, st) = supports(&d, &[0], &with(nodes, Some(one_word)), &Limits::none());
+        assert_eq!(st.random_patterns, 64, "{st:?}");
     }
 }

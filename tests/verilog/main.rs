@@ -19,5 +19,8 @@ mod preprocess;
 mod primitives;
 mod regress;
 mod rtl_styles;
+#[path = "../runner/mod.rs"]
+mod runner;
 mod semantics;
 mod systemverilog;
+mod top_choice;

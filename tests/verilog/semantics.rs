@@ -265,9 +265,25 @@ fn top_selection_and_several_files() {
         Arc::from("other.v"),
         "module u(input p, output q); assign q = p; endmodule\n".to_string(),
     );
-    let e = read_verilog(&[f1, f3], None).unwrap_err().to_string();
+    // The first file's one uninstantiated module is the top over those of the later
+    // (library) files, with a warning that names the choice.
+    let d = read_verilog(&[f1.clone(), f3.clone()], None).unwrap();
+    assert_eq!(d.name, "inv");
     assert!(
-        e.contains("several modules could be the top: inv, u"),
+        d.warnings
+            .iter()
+            .any(|w| w.to_string().contains("top module `inv` chosen")),
+        "{:?}",
+        d.warnings
+    );
+    // Two uninstantiated modules in the first file: still an error.
+    let f4 = (
+        Arc::from("two.v"),
+        "module inv(input a, output y); not (y, a); endmodule\nmodule v(input a, output y); assign y = a; endmodule\n".to_string(),
+    );
+    let e = read_verilog(&[f4, f3], None).unwrap_err().to_string();
+    assert!(
+        e.contains("several modules could be the top: inv, v, u"),
         "{e}"
     );
 }

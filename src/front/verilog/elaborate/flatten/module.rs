@@ -97,6 +97,31 @@ pub fn pick_top<'a>(e: &mut Elaborator<'a>, top: Option<&str>) -> Option<&'a Mod
             None
         }
         _ => {
+            // The files after the first (`--also`, `--ref-also`, `--cand-also`) are libraries
+            // whose cells nobody need instantiate: the first file's one uninstantiated module
+            // is the top, and the choice is reported.
+            let main: Vec<&Module> = cands.iter().copied().filter(|m| m.pos.file == 0).collect();
+            if let [m] = main[..] {
+                let others: Vec<&str> = cands
+                    .iter()
+                    .filter(|o| o.pos.file != 0)
+                    .map(|o| names.name(o.name))
+                    .collect();
+                let file = e.core.files.first().map_or("", |f| &**f).to_string();
+                let shown = if others.len() > 6 {
+                    format!("{}, ... ({} modules)", others[..5].join(", "), others.len())
+                } else {
+                    others.join(", ")
+                };
+                e.core.warn(
+                    m.pos,
+                    format!(
+                        "top module `{}` chosen: the one module of {file} that no module instantiates (not {shown} of the other files; name another with `--top NAME`, or `--ref-top`/`--cand-top` in `prove` and `cnf`)",
+                        names.name(m.name)
+                    ),
+                );
+                return Some(m);
+            }
             let all: Vec<&str> = cands.iter().map(|m| names.name(m.name)).collect();
             let p = cands[1].pos;
             e.core.error(

@@ -13,6 +13,8 @@ mod exact;
 mod oracle;
 #[path = "seq/portmap.rs"]
 mod portmap;
+#[path = "seq/renamed.rs"]
+mod renamed;
 #[path = "seq/oracle.rs"]
 mod seq_oracle;
 #[path = "seq/verilog.rs"]

@@ -56,24 +56,6 @@ pub fn check_clocked(
     if req.options.pair_by != PairBy::Name {
         return Err(refuse("--pair-by position"));
     }
-    if let Some(m) = &req.options.port_map {
-        let renamed: Vec<String> = m
-            .pairs
-            .iter()
-            .filter(|(r, c)| !m.registers.contains(*r) && r != c)
-            .map(|(r, c)| format!("{r} -> {c}"))
-            .collect();
-        if !renamed.is_empty() {
-            return Err(CheckError::Input(InputError::plain(
-                format!(
-                    "{}: in clocked designs a port map pairs registers; it renames ports here ({})",
-                    m.file,
-                    renamed.join(", ")
-                ),
-                "give the ports the same names in both designs, and keep only register lines (`REF_REG CAND_REG`, `~CAND_REG` for one stored inverted) in the map",
-            )));
-        }
-    }
     let o = SeqOptions {
         cycles: settings.cycles,
         init_unset: settings.init_unset,

@@ -67,10 +67,10 @@ pub fn run(
     }
     if let Err(code) = super::replay::write_trace_files(
         replay.args,
-        req.reference,
-        req.candidate,
+        (req.reference, req.candidate),
         replay.files,
         &rep,
+        req.options.port_map.as_deref(),
         settings.init_unset,
         replay.seed,
     ) {

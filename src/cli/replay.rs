@@ -93,13 +93,14 @@ fn source_files(d: &Design, paths: &[PathBuf]) -> Result<Vec<(String, String)>, 
 pub const RANDOM_CYCLES: usize = 32;
 
 /// After a check of clocked designs: write the VCD of the trace and the testbench replaying it
-/// (random cycles from reset when there is no trace). `files` are the source paths of each side.
+/// (random cycles from reset when there is no trace, paired as the port map `map` says).
+/// `files` are the source paths of each side.
 pub fn write_trace_files(
     a: &ReplayArgs,
-    r: &Design,
-    c: &Design,
+    (r, c): (&Design, &Design),
     files: (&[PathBuf], &[PathBuf]),
     rep: &crate::seq::SeqReport,
+    map: Option<&crate::portmap::BitMap>,
     init_unset: crate::seq::InitUnset,
     seed: u64,
 ) -> Result<(), Exit> {
@@ -124,10 +125,11 @@ pub fn write_trace_files(
         let (t, what) = match &rep.trace {
             Some(t) => (t, "trace"),
             None => {
-                random = explain::trace_run::random_trace(
+                random = explain::trace_run::random_trace_mapped(
                     r,
                     c,
                     &rep.held,
+                    map,
                     init_unset,
                     RANDOM_CYCLES,
                     seed,

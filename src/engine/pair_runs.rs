@@ -27,7 +27,7 @@ pub fn pair_label(reference: &str, candidate: &str) -> String {
 }
 
 /// One bit: its port and index.
-type Bit<'a> = (&'a str, Option<i64>);
+pub type Bit<'a> = (&'a str, Option<i64>);
 
 /// The paired input and output bits of `shared` as runs, inputs first.
 pub fn paired_runs(shared: &Shared, r: &Design, c: &Design) -> Vec<PairedRun> {
@@ -59,7 +59,7 @@ pub fn paired_runs(shared: &Shared, r: &Design, c: &Design) -> Vec<PairedRun> {
 }
 
 /// Group consecutive pairs whose bits step through one bus on each side by a fixed direction.
-fn runs(kind: &'static str, bits: &[(Bit, Bit)]) -> Vec<PairedRun> {
+pub fn runs(kind: &'static str, bits: &[(Bit, Bit)]) -> Vec<PairedRun> {
     let mut out = Vec::new();
     let mut i = 0;
     while i < bits.len() {

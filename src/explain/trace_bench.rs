@@ -59,11 +59,22 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
     let generated =
         |d: &Design, files: &[(String, String)]| d.format != Format::Verilog || files.is_empty();
     let (rg, cg) = (generated(rd, &r.files), generated(cd, &c.files));
-    // Testbench registers for the port bits: paired bits by the reference's names.
+    // Testbench registers for the port bits: paired bits (by name, or as the trace renames
+    // them) by the reference's names.
+    let renamed = t.renamed_inputs();
+    let renamed_to: BTreeSet<&str> = renamed.values().map(String::as_str).collect();
+    let partner = |n: &str| -> Option<String> {
+        match renamed.get(n) {
+            Some(cn) => Some(cn.clone()),
+            None if renamed_to.contains(n) => None,
+            None => Some(n.to_string()),
+        }
+    };
     let mut bits: BitMap = BTreeMap::new();
     let mut regs: Vec<PortBits> = Vec::new();
     {
         let ref_ports: BTreeSet<&str> = rd.inputs.iter().map(|b| b.port.as_str()).collect();
+        let mut paired_c: BTreeSet<String> = BTreeSet::new();
         let mut list: Vec<TbBit> = Vec::new();
         for b in rd
             .inputs
@@ -71,8 +82,9 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
             .filter(|b| matches!(b.kind, InputKind::Port))
         {
             let mut who = vec![(Side::Reference, b.name.clone())];
-            if cd.input_index(&b.name).is_some() {
-                who.push((Side::Candidate, b.name.clone()));
+            if let Some(cn) = partner(&b.name).filter(|n| cd.input_index(n).is_some()) {
+                paired_c.insert(cn.clone());
+                who.push((Side::Candidate, cn));
             }
             list.push((list.len(), b.port.clone(), b.index, who));
         }
@@ -81,7 +93,7 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
             .iter()
             .filter(|b| matches!(b.kind, InputKind::Port))
         {
-            if rd.input_index(&b.name).is_some() {
+            if paired_c.contains(&b.name) {
                 continue;
             }
             let port = if ref_ports.contains(b.port.as_str()) {
@@ -116,10 +128,10 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
     let mut resets: Vec<(String, bool)> = Vec::new();
     for h in &t.reset.held {
         for side in [Side::Reference, Side::Candidate] {
-            if !applies(h.side, side) {
+            let Some(name) = h.name_on(side) else {
                 continue;
-            }
-            if let Some(e) = bit_of(side, &h.name) {
+            };
+            if let Some(e) = bit_of(side, name) {
                 if h.role == "clock" {
                     clocks.insert(e.clone());
                 } else if !resets.iter().any(|(x, _)| x == e) {
@@ -247,12 +259,7 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
             conns.join(",\n    ")
         );
     }
-    let pairs: Vec<(usize, usize)> = rd
-        .outputs
-        .iter()
-        .enumerate()
-        .filter_map(|(i, o)| cd.output_index(&o.name).map(|j| (i, j)))
-        .collect();
+    let pairs = t.output_pairs(rd, cd);
     let np = pairs.len();
     s.push_str("  integer eqc_fails, eqc_n;\n");
     s.push_str("  task eqc_check;\n    input integer k;\n    begin\n      eqc_n = 0;\n");

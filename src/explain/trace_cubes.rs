@@ -54,10 +54,6 @@ pub struct TraceCubes {
     pub terms: Vec<String>,
 }
 
-fn applies(of: Side, side: Side) -> bool {
-    of == Side::Both || of == side
-}
-
 /// Unrolled frames of one design: per cycle, its output literals.
 fn unroll(
     aig: &mut Aig,
@@ -71,8 +67,7 @@ fn unroll(
         .reset
         .held
         .iter()
-        .filter(|h| applies(h.side, side))
-        .map(|h| (h.name.as_str(), h.value))
+        .filter_map(|h| Some((h.name_on(side)?, h.value)))
         .collect();
     let mut state: Vec<Lit> = initial_state(d, side, t)?
         .into_iter()
@@ -97,7 +92,7 @@ fn unroll(
                         let j = cyc
                             .inputs
                             .iter()
-                            .position(|x| x.name == b.name && applies(x.side, side))
+                            .position(|x| x.name_on(side) == Some(b.name.as_str()))
                             .ok_or_else(|| {
                                 format!(
                                     "cycle {k} of the trace gives no value for input `{}` of {}",

@@ -5,6 +5,7 @@
 //! starts in the reset state, outputs are read before the clock edge that ends the cycle.
 
 use crate::design::{Design, InputKind};
+use crate::portmap::BitMap;
 use crate::rng::SplitMix64;
 use crate::seq::TraceReset;
 use crate::seq::{HeldInput, InitUnset, InitialValue, Side, Trace, TraceCycle, TraceInput};
@@ -64,8 +65,7 @@ pub fn run(d: &Design, side: Side, t: &Trace) -> Result<DesignRun, String> {
         .reset
         .held
         .iter()
-        .filter(|h| applies(h.side, side))
-        .map(|h| (h.name.as_str(), h.value))
+        .filter_map(|h| Some((h.name_on(side)?, h.value)))
         .collect();
     let mut state = initial_state(d, side, t)?;
     let mut reg_of = vec![usize::MAX; d.inputs.len()];
@@ -84,8 +84,7 @@ pub fn run(d: &Design, side: Side, t: &Trace) -> Result<DesignRun, String> {
         let given: BTreeMap<&str, bool> = c
             .inputs
             .iter()
-            .filter(|i| applies(i.side, side))
-            .map(|i| (i.name.as_str(), i.value))
+            .filter_map(|i| Some((i.name_on(side)?, i.value)))
             .collect();
         let mut ins = Vec::with_capacity(d.inputs.len());
         for (k, b) in d.inputs.iter().enumerate() {
@@ -112,10 +111,15 @@ pub fn run(d: &Design, side: Side, t: &Trace) -> Result<DesignRun, String> {
 }
 
 /// The inputs that get a value in every cycle of a run of `r` against `c`: port bits and
-/// unknown-value bits that are not held, paired by name (as the clocked check pairs them).
-pub fn free_inputs(r: &Design, c: &Design, held: &[HeldInput]) -> Vec<(String, Side)> {
-    let is_held =
-        |name: &str, side: Side| held.iter().any(|h| h.name == name && applies(h.side, side));
+/// unknown-value bits that are not held, paired by name or by the port map `map` (as the
+/// clocked check pairs them): (name, side, the candidate's name of a renamed pair).
+pub fn free_inputs(
+    r: &Design,
+    c: &Design,
+    held: &[HeldInput],
+    map: Option<&BitMap>,
+) -> Vec<(String, Side, Option<String>)> {
+    let is_held = |name: &str, side: Side| held.iter().any(|h| h.name_on(side) == Some(name));
     let ports = |d: &Design| -> BTreeSet<String> {
         d.inputs
             .iter()
@@ -124,32 +128,42 @@ pub fn free_inputs(r: &Design, c: &Design, held: &[HeldInput]) -> Vec<(String, S
             .collect()
     };
     let cand_ports = ports(c);
-    let ref_ports = ports(r);
+    let mut paired_c: BTreeSet<String> = BTreeSet::new();
     let mut out = Vec::new();
     for b in &r.inputs {
         match b.kind {
             InputKind::Register => {}
-            InputKind::Unknown { .. } => out.push((b.name.clone(), Side::Reference)),
+            InputKind::Unknown { .. } => out.push((b.name.clone(), Side::Reference, None)),
             InputKind::Port => {
+                let partner = match map {
+                    Some(m) => m.partner(&b.name),
+                    None => Some(b.name.as_str()),
+                }
+                .filter(|n| cand_ports.contains(*n) && !paired_c.contains(*n));
+                if let Some(n) = partner {
+                    paired_c.insert(n.to_string());
+                }
                 if is_held(&b.name, Side::Reference) {
                     continue;
                 }
-                let side = if cand_ports.contains(&b.name) {
-                    Side::Both
-                } else {
-                    Side::Reference
-                };
-                out.push((b.name.clone(), side));
+                match partner {
+                    Some(n) => out.push((
+                        b.name.clone(),
+                        Side::Both,
+                        (n != b.name).then(|| n.to_string()),
+                    )),
+                    None => out.push((b.name.clone(), Side::Reference, None)),
+                }
             }
         }
     }
     for b in &c.inputs {
         match b.kind {
             InputKind::Register => {}
-            InputKind::Unknown { .. } => out.push((b.name.clone(), Side::Candidate)),
+            InputKind::Unknown { .. } => out.push((b.name.clone(), Side::Candidate, None)),
             InputKind::Port => {
-                if !ref_ports.contains(&b.name) && !is_held(&b.name, Side::Candidate) {
-                    out.push((b.name.clone(), Side::Candidate));
+                if !paired_c.contains(&b.name) && !is_held(&b.name, Side::Candidate) {
+                    out.push((b.name.clone(), Side::Candidate, None));
                 }
             }
         }
@@ -168,7 +182,23 @@ pub fn random_trace(
     cycles: usize,
     seed: u64,
 ) -> Trace {
-    let free = free_inputs(r, c, held);
+    random_trace_mapped(r, c, held, None, init_unset, cycles, seed)
+}
+
+/// [`random_trace`] of designs whose ports or registers a port map `map` pairs: renamed
+/// ports get the candidate's names, a candidate register paired inverted (`~q`) without a
+/// reset starts at the complement of its partner (as the check assumes), and renamed
+/// outputs are listed.
+pub fn random_trace_mapped(
+    r: &Design,
+    c: &Design,
+    held: &[HeldInput],
+    map: Option<&BitMap>,
+    init_unset: InitUnset,
+    cycles: usize,
+    seed: u64,
+) -> Trace {
+    let free = free_inputs(r, c, held, map);
     let mut rng = SplitMix64::new(seed, 0x7ACE);
     let start = match init_unset {
         InitUnset::Value(v) => v,
@@ -177,10 +207,21 @@ pub fn random_trace(
     let mut initial = Vec::new();
     for (side, d) in [(Side::Reference, r), (Side::Candidate, c)] {
         for reg in d.registers.iter().filter(|g| g.init.is_none()) {
+            let inverted = side == Side::Candidate
+                && init_unset == InitUnset::Free
+                && map.is_some_and(|m| {
+                    m.inverted.contains(&reg.name)
+                        && m.registers.iter().any(|rn| {
+                            m.pairs.get(rn) == Some(&reg.name)
+                                && r.registers
+                                    .iter()
+                                    .any(|g| g.name == *rn && g.init.is_none())
+                        })
+                });
             initial.push(InitialValue {
                 side,
                 register: reg.name.clone(),
-                value: start,
+                value: start ^ inverted,
             });
         }
     }
@@ -189,14 +230,25 @@ pub fn random_trace(
             cycle,
             inputs: free
                 .iter()
-                .map(|(name, side)| TraceInput {
+                .map(|(name, side, cand)| TraceInput {
                     name: name.clone(),
                     side: *side,
                     value: rng.next_u64() & 1 == 1,
+                    candidate_name: cand.clone(),
                 })
                 .collect(),
         })
         .collect();
+    let mut renamed_outputs = BTreeMap::new();
+    if let Some(m) = map {
+        for o in &r.outputs {
+            if let Some(n) = m.partner(&o.name) {
+                if n != o.name && c.output_index(n).is_some() {
+                    renamed_outputs.insert(o.name.clone(), n.to_string());
+                }
+            }
+        }
+    }
     Trace {
         reset: TraceReset {
             description: format!(
@@ -208,5 +260,6 @@ pub fn random_trace(
         },
         cycles,
         first_difference: None,
+        renamed_outputs,
     }
 }

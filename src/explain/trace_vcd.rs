@@ -53,8 +53,8 @@ impl<'d> Part<'d> {
         let reg_names: Vec<&str> = d.registers.iter().map(|r| r.name.as_str()).collect();
         let mut role = vec![Role::Other; d.inputs.len()];
         for h in &t.reset.held {
-            if h.side == Side::Both || h.side == side {
-                if let Some(k) = d.input_index(&h.name) {
+            if let Some(n) = h.name_on(side) {
+                if let Some(k) = d.input_index(n) {
                     role[k] = if h.role == "clock" {
                         Role::Clock
                     } else {
@@ -219,12 +219,7 @@ pub fn trace_vcd(r: &Design, c: &Design, t: &Trace) -> Result<String, String> {
     let (rn, cn) = scope_names(r, c);
     let rp = Part::new(r, Side::Reference, t)?;
     let cp = Part::new(c, Side::Candidate, t)?;
-    let pairs: Vec<(usize, usize)> = r
-        .outputs
-        .iter()
-        .enumerate()
-        .filter_map(|(i, o)| c.output_index(&o.name).map(|j| (i, j)))
-        .collect();
+    let pairs = t.output_pairs(r, c);
     let differs = |k: usize| {
         Some(
             pairs

@@ -514,11 +514,13 @@ impl InfluenceEvidence {
                             } else {
                                 v
                             },
+                            candidate_name: None,
                         })
                         .collect(),
                 })
                 .collect(),
             first_difference: None,
+            renamed_outputs: Default::default(),
         }
     }
 }

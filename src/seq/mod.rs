@@ -387,6 +387,7 @@ fn build_trace(
                     name: f.name.clone(),
                     side: f.side,
                     value,
+                    candidate_name: f.candidate_name.clone(),
                 })
                 .collect(),
         })
@@ -399,6 +400,13 @@ fn build_trace(
         },
         cycles,
         first_difference: None,
+        renamed_outputs: p
+            .outputs
+            .iter()
+            .map(|o| (&r.outputs[o.reference].name, &c.outputs[o.candidate].name))
+            .filter(|(a, b)| a != b)
+            .map(|(a, b)| (a.clone(), b.clone()))
+            .collect(),
     }
 }
 

@@ -16,10 +16,13 @@ use std::collections::{BTreeMap, BTreeSet};
 /// One per-cycle input of the product machine.
 #[derive(Clone, Debug)]
 pub struct FreeInput {
-    /// The bit's name (a port bit, or an unknown-value source).
+    /// The bit's name (a port bit, or an unknown-value source); the reference's for a
+    /// paired bit.
     pub name: String,
     /// Whose input it is.
     pub side: Side,
+    /// The candidate's name of a paired bit, when a port map renames it.
+    pub candidate_name: Option<String>,
 }
 
 /// The initial value of a state bit.
@@ -74,6 +77,33 @@ pub struct HeldInput {
     pub value: bool,
     /// `reset` or `clock`.
     pub role: String,
+    /// The candidate's name of a port bit both designs have under different names (a port
+    /// map renames it); `name` is then the reference's.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub candidate_name: Option<String>,
+}
+
+impl HeldInput {
+    /// The bit's name in the design of side `side` (`None`: that design does not have it).
+    pub fn name_on(&self, side: Side) -> Option<&str> {
+        port_name_on(&self.name, self.side, self.candidate_name.as_deref(), side)
+    }
+}
+
+/// The name of a trace or held bit (`name`, of side `of`, the candidate calling it
+/// `candidate_name` when renamed) in the design of side `side`.
+pub fn port_name_on<'a>(
+    name: &'a str,
+    of: Side,
+    candidate_name: Option<&'a str>,
+    side: Side,
+) -> Option<&'a str> {
+    match (of, side) {
+        (Side::Both, Side::Candidate) => Some(candidate_name.unwrap_or(name)),
+        (Side::Both, _) => Some(name),
+        (o, s) if o == s => Some(name),
+        _ => None,
+    }
 }
 
 /// How registers without a reset start.
@@ -232,6 +262,14 @@ impl Product {
             .collect();
         let mut used_c = vec![false; c.inputs.len()];
         let mut only_r = Vec::new();
+        // A port map renames ports: a reference bit pairs with its mapped partner, else with
+        // the candidate bit of the same name (unless the map gives that name to another bit).
+        let partner = |n: &'_ str| -> Option<String> {
+            match map {
+                Some(m) => m.partner(n).map(str::to_string),
+                None => Some(n.to_string()),
+            }
+        };
         for (k, b) in r.inputs.iter().enumerate() {
             match b.kind {
                 InputKind::Register => {}
@@ -240,15 +278,39 @@ impl Product {
                     free.push(FreeInput {
                         name: b.name.clone(),
                         side: Side::Reference,
+                        candidate_name: None,
                     });
                 }
                 InputKind::Port => {
-                    let other = cand_ports.get(b.name.as_str()).copied();
+                    let other = partner(&b.name)
+                        .and_then(|n| cand_ports.get(n.as_str()).copied())
+                        .filter(|&j| !used_c[j]);
                     if let Some(j) = other {
                         used_c[j] = true;
                     }
+                    let renamed = other
+                        .map(|j| &c.inputs[j].name)
+                        .filter(|n| **n != b.name)
+                        .cloned();
                     let hr = held_r.get(&k);
                     let hc = other.and_then(|j| held_c.get(&j));
+                    if let (Some(&(vr, rr)), Some(&(vc, rc))) = (hr, hc) {
+                        if vr != vc {
+                            let cn = other.map_or("", |j| c.inputs[j].name.as_str());
+                            return Err(InputError::one(
+                                Diagnostic::error(
+                                    None,
+                                    format!(
+                                        "input {} is a {rr} held at {} in the reference, but its partner {cn} is a {rc} held at {} in the candidate",
+                                        b.name, vr as u8, vc as u8
+                                    ),
+                                )
+                                .with_help(
+                                    "a paired port must be read alike by both designs (both resets active high or both active low); pair each reset with one of the same polarity",
+                                ),
+                            ));
+                        }
+                    }
                     if let Some(&(v, role)) = hr.or(hc) {
                         map_r[k] = Lit::constant(v);
                         if let Some(j) = other {
@@ -264,6 +326,7 @@ impl Product {
                             side,
                             value: v,
                             role: role.to_string(),
+                            candidate_name: renamed,
                         });
                         continue;
                     }
@@ -283,6 +346,7 @@ impl Product {
                         } else {
                             Side::Reference
                         },
+                        candidate_name: renamed,
                     });
                 }
             }
@@ -300,6 +364,7 @@ impl Product {
                         side: Side::Candidate,
                         value: v,
                         role: role.to_string(),
+                        candidate_name: None,
                     });
                     continue;
                 }
@@ -312,6 +377,7 @@ impl Product {
             free.push(FreeInput {
                 name: b.name.clone(),
                 side: Side::Candidate,
+                candidate_name: None,
             });
         }
         if !only_r.is_empty() || !only_c.is_empty() {
@@ -328,7 +394,7 @@ impl Product {
                     format!("input bits without a partner: {}", parts.join("; ")),
                 )
                 .with_help(
-                    "rename the ports to match, or pass --free-extra-inputs to leave them free",
+                    "rename the ports to match, pair them in a port map (--port-map), or pass --free-extra-inputs to leave them free",
                 ),
             ));
         }
@@ -406,17 +472,22 @@ impl Product {
                 });
             }
         }
-        // Outputs pair by name; the next-state functions come with them.
+        // Outputs pair by name (renamed ones by the port map); the next-state functions come
+        // with them.
         let mut outputs = Vec::new();
         let mut unpaired = Vec::new();
+        let mut used_out = vec![false; c.outputs.len()];
         for (i, o) in r.outputs.iter().enumerate() {
-            match c.output_index(&o.name) {
-                Some(j) => outputs.push((i, j)),
-                None => unpaired.push(format!("reference output {}", o.name)),
+            match partner(&o.name).and_then(|n| c.output_index(&n)) {
+                Some(j) if !used_out[j] => {
+                    used_out[j] = true;
+                    outputs.push((i, j));
+                }
+                _ => unpaired.push(format!("reference output {}", o.name)),
             }
         }
-        for o in &c.outputs {
-            if r.output_index(&o.name).is_none() {
+        for (j, o) in c.outputs.iter().enumerate() {
+            if !used_out[j] {
                 unpaired.push(format!("candidate output {}", o.name));
             }
         }
@@ -426,7 +497,7 @@ impl Product {
                     None,
                     format!("output bits without a partner: {}", unpaired.join(", ")),
                 )
-                .with_help("outputs pair by name in clocked designs; rename them to match"),
+                .with_help("outputs pair by name; rename them to match, or pair them in a port map (--port-map)"),
             ));
         }
         let roots_r: Vec<Lit> = outputs

@@ -105,6 +105,10 @@ pub struct SeqReport {
     /// The port map file (`--port-map`), when one was given.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub port_map: Option<String>,
+    /// The port bits a port map pairs under different names, as runs by bus (inputs, held
+    /// inputs among them, then outputs).
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub paired: Vec<crate::engine::pair_runs::PairedRun>,
     /// Register pairs of the port map that did not become pairs (or not with the inversion
     /// the map states), with the evidence.
     #[serde(skip_serializing_if = "Vec::is_empty")]
@@ -478,6 +482,7 @@ pub fn build(x: Parts<'_>) -> SeqReport {
         unpaired,
         name_mismatches,
         port_map: x.port_map.map(|m| m.file.clone()),
+        paired: renamed_runs(p, x.r, x.c),
         map_mismatches,
         assumed_start_equal: p.start_equal.clone(),
         pairing_evidence: if x.structural {
@@ -509,4 +514,37 @@ pub fn build(x: Parts<'_>) -> SeqReport {
         trace_outputs,
         seconds: x.seconds,
     }
+}
+
+/// The port bits of the product paired under different names (a port map's renamed ports),
+/// as runs by bus: inputs (held ones too) in the reference's order, then outputs.
+fn renamed_runs(p: &Product, r: &Design, c: &Design) -> Vec<crate::engine::pair_runs::PairedRun> {
+    use crate::engine::pair_runs::{runs, Bit};
+    let renamed: BTreeMap<&str, &str> = p
+        .free
+        .iter()
+        .filter_map(|f| Some((f.name.as_str(), f.candidate_name.as_deref()?)))
+        .chain(
+            p.held
+                .iter()
+                .filter_map(|h| Some((h.name.as_str(), h.candidate_name.as_deref()?))),
+        )
+        .collect();
+    let mut inputs: Vec<(Bit, Bit)> = Vec::new();
+    for b in &r.inputs {
+        if let Some(j) = renamed.get(b.name.as_str()).and_then(|n| c.input_index(n)) {
+            let cb = &c.inputs[j];
+            inputs.push(((b.port.as_str(), b.index), (cb.port.as_str(), cb.index)));
+        }
+    }
+    let outputs: Vec<(Bit, Bit)> = p
+        .outputs
+        .iter()
+        .map(|o| (&r.outputs[o.reference], &c.outputs[o.candidate]))
+        .filter(|(a, b)| a.name != b.name)
+        .map(|(a, b)| ((a.port.as_str(), a.index), (b.port.as_str(), b.index)))
+        .collect();
+    let mut out = runs("input", &inputs);
+    out.extend(runs("output", &outputs));
+    out
 }

@@ -9,8 +9,8 @@ use crate::design::split_bit;
 use std::collections::BTreeMap;
 use std::fmt::{self, Write};
 
-/// Column key of an input bit: (bus, side).
-type Column = (String, Side);
+/// Column key of an input bit: (bus, side, the candidate's bus when a port map renames it).
+type Column = (String, Side, Option<String>);
 
 /// A column and its bits: (bit index, position in the cycle's inputs), by index.
 type Bits = (Column, Vec<(Option<i64>, usize)>);
@@ -22,7 +22,12 @@ fn columns(t: &Trace) -> Vec<Bits> {
         let mut at: BTreeMap<Column, usize> = BTreeMap::new();
         for (k, i) in c0.inputs.iter().enumerate() {
             let (port, index) = split_bit(&i.name);
-            let key = (port.to_string(), i.side);
+            let cand = i
+                .candidate_name
+                .as_deref()
+                .map(|n| split_bit(n).0.to_string())
+                .filter(|n| n != port);
+            let key = (port.to_string(), i.side, cand);
             let slot = *at.entry(key.clone()).or_insert_with(|| {
                 cols.push((key, Vec::new()));
                 cols.len() - 1
@@ -46,9 +51,12 @@ pub fn trace_table(t: &Trace, outputs: &[Vec<(bool, bool)>]) -> String {
     let mut s = String::new();
     let cols = columns(t);
     let mut header = vec!["cycle".to_string()];
-    for ((port, side), _) in &cols {
+    for ((port, side, cand), _) in &cols {
         header.push(match side {
-            Side::Both => port.clone(),
+            Side::Both => match cand {
+                Some(cn) => format!("{port}|{cn}"),
+                None => port.clone(),
+            },
             Side::Reference => format!("{port}(ref)"),
             Side::Candidate => format!("{port}(cand)"),
         });
@@ -126,9 +134,23 @@ impl fmt::Display for SeqReport {
             let h: Vec<String> = self
                 .held
                 .iter()
-                .map(|h| format!("{}={} ({})", h.name, h.value as u8, h.role))
+                .map(|h| {
+                    let name = match &h.candidate_name {
+                        Some(cn) => format!("{} <-> {cn}", h.name),
+                        None => h.name.clone(),
+                    };
+                    format!("{name}={} ({})", h.value as u8, h.role)
+                })
                 .collect();
             writeln!(f, "held in every cycle: {}", h.join(", "))?;
+        }
+        if !self.paired.is_empty() {
+            writeln!(
+                f,
+                "ports renamed by the port map {}:",
+                self.port_map.as_deref().unwrap_or("-")
+            )?;
+            f.write_str(&crate::engine::pair_runs::runs_text(&self.paired))?;
         }
         if !self.without_reset.is_empty() {
             let how = match self.init_unset.as_str() {

@@ -9,7 +9,7 @@
 //! applied with the registers in the reset state; outputs are read before the clock edge that
 //! ends the cycle.
 
-use super::product::{HeldInput, Side};
+use super::product::{port_name_on, HeldInput, Side};
 use crate::design::{Design, InputKind};
 use serde::{Deserialize, Serialize};
 use std::collections::BTreeMap;
@@ -39,12 +39,22 @@ pub struct InitialValue {
 /// One input bit's value in one cycle.
 #[derive(Clone, Debug, PartialEq, Eq, Serialize, Deserialize)]
 pub struct TraceInput {
-    /// The bit's name.
+    /// The bit's name (the reference's, for a paired bit).
     pub name: String,
     /// `both` for a paired port bit; otherwise the design it belongs to.
     pub side: Side,
     /// Its value.
     pub value: bool,
+    /// The candidate's name of a paired bit that a port map renames.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub candidate_name: Option<String>,
+}
+
+impl TraceInput {
+    /// The bit's name in the design of side `side` (`None`: that design does not have it).
+    pub fn name_on(&self, side: Side) -> Option<&str> {
+        port_name_on(&self.name, self.side, self.candidate_name.as_deref(), side)
+    }
 }
 
 /// One clock cycle of a trace.
@@ -87,6 +97,47 @@ pub struct Trace {
     pub cycles: Vec<TraceCycle>,
     /// The first difference (the last cycle of the trace).
     pub first_difference: Option<FirstDifference>,
+    /// Output bits paired under different names (by a port map): reference bit -> candidate
+    /// bit. The other outputs pair by name.
+    #[serde(default, skip_serializing_if = "BTreeMap::is_empty")]
+    pub renamed_outputs: BTreeMap<String, String>,
+}
+
+impl Trace {
+    /// The output pairs of `r` and `c` along this trace (reference index, candidate index):
+    /// renamed ones as [`Trace::renamed_outputs`] says, the others by name.
+    pub fn output_pairs(&self, r: &Design, c: &Design) -> Vec<(usize, usize)> {
+        let renamed_to: std::collections::BTreeSet<&str> =
+            self.renamed_outputs.values().map(String::as_str).collect();
+        r.outputs
+            .iter()
+            .enumerate()
+            .filter_map(|(i, o)| {
+                let n = match self.renamed_outputs.get(&o.name) {
+                    Some(n) => n.as_str(),
+                    None if renamed_to.contains(o.name.as_str()) => return None,
+                    None => o.name.as_str(),
+                };
+                c.output_index(n).map(|j| (i, j))
+            })
+            .collect()
+    }
+
+    /// The input bits paired under different names (by a port map): reference bit ->
+    /// candidate bit, from the held inputs and the first cycle.
+    pub fn renamed_inputs(&self) -> BTreeMap<String, String> {
+        let held = self
+            .reset
+            .held
+            .iter()
+            .filter_map(|h| Some((h.name.clone(), h.candidate_name.clone()?)));
+        let free = self.cycles.first().into_iter().flat_map(|c| {
+            c.inputs
+                .iter()
+                .filter_map(|i| Some((i.name.clone(), i.candidate_name.clone()?)))
+        });
+        held.chain(free).collect()
+    }
 }
 
 /// What a design does along a trace: its output values in every cycle.
@@ -100,8 +151,8 @@ pub struct Replay {
 pub fn replay(d: &Design, side: Side, trace: &Trace) -> Result<Replay, String> {
     let mut held: BTreeMap<&str, bool> = BTreeMap::new();
     for h in &trace.reset.held {
-        if h.side == Side::Both || h.side == side {
-            held.insert(&h.name, h.value);
+        if let Some(n) = h.name_on(side) {
+            held.insert(n, h.value);
         }
     }
     let mut state: Vec<bool> = Vec::with_capacity(d.registers.len());
@@ -133,8 +184,8 @@ pub fn replay(d: &Design, side: Side, trace: &Trace) -> Result<Replay, String> {
     for c in &trace.cycles {
         let mut given: BTreeMap<&str, bool> = BTreeMap::new();
         for i in &c.inputs {
-            if i.side == Side::Both || i.side == side {
-                given.insert(&i.name, i.value);
+            if let Some(n) = i.name_on(side) {
+                given.insert(n, i.value);
             }
         }
         let mut ins = Vec::with_capacity(d.inputs.len());

@@ -1,7 +1,6 @@
 //! The last constructs of issue 15's subset: the checks that `unique`, `unique0` and
 //! `priority` imply (warnings with a witness value), `defparam`, arrays of instances
-//! (IEEE 1364-2005 clauses 12.2.1 and 12.1.2, from memory), casts and assignment patterns
-//! (IEEE 1800-2017 clauses 6.24.1 and 10.9, from memory). Designs are compared with Icarus
+//! (IEEE 1364-2005 clauses 12.2.1 and 12.1.2, from memory); casts are in `casts.rs`. Designs are compared with Icarus
 //! Verilog 11 on every input value where Icarus reads the construct; where it does not, with
 //! values worked out by hand (said beside each).
 

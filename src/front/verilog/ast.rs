@@ -143,6 +143,20 @@ pub enum Expr {
     /// `$signed(e)` / `$unsigned(e)` / `$clog2(e)` / `$bits(e)`, or a call of a function
     /// declared in the design (a name without `$`).
     Call(Sym, Pos, Vec<Expr>),
+    /// A cast `W'(e)`, `T'(e)`, `signed'(e)`, `unsigned'(e)` (IEEE 1800-2017 clause 6.24).
+    Cast(Box<Cast>, Pos),
+}
+
+/// What a cast changes: the width (the value `e` would have after an assignment to a
+/// variable of that width), the signedness, or both (a cast to a type).
+#[derive(Clone, Debug)]
+pub struct Cast {
+    /// The new width, a constant expression; `None` keeps the operand's width.
+    pub width: Option<Expr>,
+    /// The new signedness; `None` keeps the operand's.
+    pub signed: Option<bool>,
+    /// The operand.
+    pub expr: Expr,
 }
 
 impl Expr {
@@ -151,7 +165,7 @@ impl Expr {
         match self {
             Expr::Ident(_, p) | Expr::Num(_, p) | Expr::Index(_, p, _) => *p,
             Expr::Unary(_, p, _) | Expr::Cond(_, p) | Expr::Concat(_, p) => *p,
-            Expr::Repl(_, _, p) | Expr::Call(_, p, _) => *p,
+            Expr::Repl(_, _, p) | Expr::Call(_, p, _) | Expr::Cast(_, p) => *p,
             Expr::Chain(first, _) => first.pos(),
         }
     }

@@ -44,6 +44,8 @@ pub enum Punct {
     Dot,
     Hash,
     At,
+    /// The `'` of a cast `W'(x)`, `T'(x)`, `signed'(x)` (IEEE 1800-2017 clause 6.24).
+    Tick,
     Assign,
     Question,
     Plus,
@@ -97,10 +99,6 @@ pub enum TokenKind {
     /// End of the file.
     Eof,
 }
-
-/// The text of the number token that stands for a skipped cast or assignment pattern (its
-/// error is already recorded; the parser takes it, and a type name before it, as an operand).
-pub const CAST_PLACEHOLDER: &str = "'(cast)";
 
 /// A token with its position.
 #[derive(Clone, Debug)]
@@ -509,6 +507,14 @@ impl<'s> Lexer<'s> {
     }
 
     fn number(&mut self, pos: Pos) -> Token {
+        if self.peek(0) == b'\'' && self.peek(1) == b'(' {
+            // The `'` of a cast; the parser reads what stands before it and the `( ... )`.
+            self.bump();
+            return Token {
+                kind: TokenKind::Punct(Punct::Tick),
+                pos,
+            };
+        }
         let start = self.offset;
         let mut size: Option<String> = None;
         if self.peek(0).is_ascii_digit() {
@@ -528,7 +534,8 @@ impl<'s> Lexer<'s> {
             }
             let save = (self.offset, self.line, self.col, self.file, self.mark_index);
             self.skip_ws();
-            if self.peek(0) != b'\'' {
+            if self.peek(0) != b'\'' || self.peek(1) == b'(' {
+                // A plain decimal number (before a cast's `'(`, its width).
                 (self.offset, self.line, self.col, self.file, self.mark_index) = save;
                 self.next_mark = self
                     .marks
@@ -577,42 +584,33 @@ impl<'s> Lexer<'s> {
             b'o' => 3,
             b'h' => 4,
             b'd' => 0,
-            b'(' | b'{' => {
-                // A cast `W'(x)`, `T'(x)`, `signed'(x)` or an assignment pattern `'{...}`
-                // (IEEE 1800-2017 clauses 6.24 and 10.9, from memory): not read yet. The
-                // bracketed text is skipped whole, so the error is the only one.
-                let (open, close) = (base, if base == b'(' { b')' } else { b'}' });
+            b'{' => {
+                // An assignment pattern `'{...}` (IEEE 1800-2017 clause 10.9, from memory): not
+                // read yet. The bracketed text is skipped whole, so the error is the only one.
                 let mut depth = 0usize;
                 while self.offset < self.src.len() {
                     let c = self.peek(0);
                     self.bump();
-                    if c == open {
+                    if c == b'{' {
                         depth += 1;
-                    } else if c == close {
+                    } else if c == b'}' {
                         depth -= 1;
                         if depth == 0 {
                             break;
                         }
                     }
                 }
-                let what = if open == b'(' {
-                    let size = String::from_utf8_lossy(&self.src[start..start.max(self.offset)])
-                        .split('\'')
-                        .next()
-                        .unwrap_or("")
-                        .trim()
-                        .to_string();
-                    format!("cast `{size}'(...)`; write the width or sign with a part-select, a sized assignment or `$signed`/`$unsigned`")
-                } else {
-                    "assignment pattern `'{...}`; write a concatenation `{...}` instead".to_string()
-                };
-                self.err_of(pos, SyntaxKind::Unsupported, format!("unsupported: {what}"));
+                self.err_of(
+                    pos,
+                    SyntaxKind::Unsupported,
+                    "unsupported: assignment pattern `'{...}`; write a concatenation `{...}` instead",
+                );
                 return Token {
                     kind: TokenKind::Number(Box::new(NumLit {
                         bits: vec![B0; 32],
                         signed: false,
                         sized: false,
-                        text: CAST_PLACEHOLDER.into(),
+                        text: "'{...}".into(),
                     })),
                     pos,
                 };

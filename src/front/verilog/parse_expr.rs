@@ -1,9 +1,10 @@
 //! Expression parsing: precedence climbing over the levels of IEEE 1364-2005 clause 5.1.2,
 //! with one loop per level (left-associative chains never nest) and a bounded nesting depth.
 
-use super::ast::{BinOp, Expr, Select, UnOp, LEVELS};
+use super::ast::{BinOp, Cast, Expr, Select, UnOp, LEVELS};
 use super::lexer::{Punct, TokenKind};
 use super::parser::{ParseResult, Parser};
+use super::pos::Pos;
 
 fn binop(p: Punct) -> Option<BinOp> {
     Some(match p {
@@ -130,23 +131,64 @@ impl Parser<'_, '_> {
         }
     }
 
+    /// A primary, or a cast of one: `W'(e)` where the primary `W` is the width (a number, a
+    /// parameter, a parenthesized constant expression), `T'(e)` with a type `T`, and
+    /// `signed'(e)`, `unsigned'(e)` (IEEE 1800-2017 clause 6.24).
     fn primary(&mut self) -> ParseResult<Expr> {
+        if self.peek2().kind == TokenKind::Punct(Punct::Tick) {
+            if let TokenKind::Ident(k) = self.peek().kind {
+                let name = self.names.name(k);
+                if name == "signed" || name == "unsigned" {
+                    let signed = name == "signed";
+                    let pos = self.bump().pos;
+                    return self.cast_operand(None, Some(signed), pos);
+                }
+                if matches!(
+                    name,
+                    "logic" | "bit" | "reg" | "int" | "integer" | "byte" | "shortint" | "longint"
+                ) || self.lookup_type(k).is_some()
+                {
+                    let pos = self.peek_pos();
+                    let t = self.data_type()?;
+                    let width = super::parse_types::width_of(&t, pos);
+                    return self.cast_operand(Some(width), Some(t.signed), pos);
+                }
+            }
+        }
+        let e = self.primary_operand()?;
+        if self.peek_p(Punct::Tick) {
+            let pos = e.pos();
+            return self.cast_operand(Some(e), None, pos);
+        }
+        Ok(e)
+    }
+
+    /// `'( e )` after the width or type of a cast.
+    fn cast_operand(
+        &mut self,
+        width: Option<Expr>,
+        signed: Option<bool>,
+        pos: Pos,
+    ) -> ParseResult<Expr> {
+        self.expect_p(Punct::Tick, "`'` of a cast")?;
+        self.expect_p(Punct::LParen, "`(` after the `'` of a cast")?;
+        let expr = self.expr()?;
+        self.expect_p(Punct::RParen, "`)` closing the cast")?;
+        Ok(Expr::Cast(
+            Box::new(Cast {
+                width,
+                signed,
+                expr,
+            }),
+            pos,
+        ))
+    }
+
+    fn primary_operand(&mut self) -> ParseResult<Expr> {
         let t = self.bump();
         let pos = t.pos;
         match t.kind {
             TokenKind::Number(n) => Ok(Expr::Num(n, pos)),
-            // `T'(x)`, `signed'(x)`: the lexer reported the cast and skipped it.
-            TokenKind::Ident(_) if matches!(&self.peek().kind, TokenKind::Number(n) if &*n.text == super::lexer::CAST_PLACEHOLDER) =>
-            {
-                let n = self.bump();
-                match n.kind {
-                    TokenKind::Number(n) => Ok(Expr::Num(n, pos)),
-                    other => {
-                        let d = self.describe(&other);
-                        Err(self.unexpected(n.pos, "an expression", &d))
-                    }
-                }
-            }
             TokenKind::Ident(s) if !super::symbols::is_keyword(s) => {
                 if self.peek_p(Punct::LParen) {
                     // A function call (IEEE 1364-2005 clause 10.4.2).

@@ -770,6 +770,7 @@ fn punct_text(p: Punct) -> &'static str {
         Punct::Dot => ".",
         Punct::Hash => "#",
         Punct::At => "@",
+        Punct::Tick => "'",
         Punct::Assign => "=",
         Punct::Question => "?",
         Punct::Plus => "+",

@@ -286,6 +286,7 @@ impl Elaborator<'_> {
                 }
                 extend(v, width, false)
             }
+            Expr::Cast(c, _) => self.eval_cast(ctx, c, width, signed),
             Expr::Call(f, pos, args) => {
                 let name = self.core.name(*f);
                 match name {

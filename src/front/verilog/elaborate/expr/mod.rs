@@ -1,6 +1,6 @@
 //! Expression stage: the self-determined type of an expression (`types.rs`, IEEE 1364-2005
 //! clauses 5.4.1 and 5.5.1), its evaluation to AIG literals at a given width (`eval.rs`),
-//! bit and part selects (`select.rs`), the array divider and constant powers
+//! casts (`cast.rs`), bit and part selects (`select.rs`), the array divider and constant powers
 //! (`divide.rs`), and the check of `===`/`!==` operands once every net has its driver
 //! (`case_eq.rs`).
 //!
@@ -10,6 +10,7 @@
 //! [`super::Expressions`] (the `===` sites). Function calls go to the statement stage.
 
 mod case_eq;
+mod cast;
 mod divide;
 mod eval;
 mod select;

@@ -134,6 +134,7 @@ impl Elaborator<'_> {
                     signed: false,
                 }
             }
+            Expr::Cast(c, _) => self.cast_type(ctx, c),
             Expr::Call(f, _, args) => {
                 let name = self.core.name(*f);
                 match name {

@@ -41,6 +41,7 @@ impl Uses {
                 self.expr(n);
                 v.iter().for_each(|e| self.expr(e));
             }
+            Expr::Cast(c, _) => self.expr(&c.expr),
         }
     }
 

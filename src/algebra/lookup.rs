@@ -13,8 +13,9 @@
 //! Like every unit, a lookup unit is exact whatever cut is chosen; the cover only decides how
 //! fast rewriting goes.
 //!
-//! Ranks: inputs first (rank = input number), then the cover's nodes in increasing node order
-//! (a topological order). No vanishing pairs are recorded.
+//! Ranks: inputs first (rank = input number), then the cover's nodes by decreasing distance to
+//! the word's bits, node order within one distance (a topological order; see
+//! [`substitution_order`]). No vanishing pairs are recorded.
 
 use crate::aig::{Aig, Lit, Node};
 use crate::gen::remap::cuts;
@@ -24,8 +25,18 @@ use super::units::{moebius, Unit, Units};
 /// Leaves of a lookup unit at most.
 pub const LEAVES: usize = 6;
 
-/// Lookup units of the cones of `words` (each least significant bit first).
-pub fn units(aig: &Aig, words: &[&[Lit]]) -> Units {
+/// The order in which lookup units are ranked (and so substituted, highest rank first).
+#[derive(Copy, Clone, Debug, PartialEq, Eq)]
+pub enum Order {
+    /// By decreasing distance to the word's bits ([`substitution_order`]): tried first.
+    Distance,
+    /// Node order: tried when the first order passes its budget (a few planted bugs in small
+    /// remapped trees stay small only this way).
+    Node,
+}
+
+/// Lookup units of the cones of `words` (each least significant bit first), ranked in `order`.
+pub fn units(aig: &Aig, words: &[&[Lit]], order: Order) -> Units {
     let roots: Vec<Lit> = words.iter().flat_map(|w| w.iter().copied()).collect();
     let cover = cuts::cover(aig, &roots, LEAVES);
     let num_inputs = aig.num_inputs() as u32;
@@ -37,7 +48,11 @@ pub fn units(aig: &Aig, words: &[&[Lit]]) -> Units {
     let mut units = Vec::with_capacity(cover.order.len());
     let mut polys = Vec::with_capacity(cover.order.len());
     let mut next = num_inputs;
-    for &x in &cover.order {
+    let order = match order {
+        Order::Distance => substitution_order(&cover, aig.len()),
+        Order::Node => cover.order.clone(),
+    };
+    for &x in &order {
         let leaves = cover.leaves[x as usize]
             .as_ref()
             .expect("cover node has leaves")
@@ -72,6 +87,28 @@ pub fn units(aig: &Aig, words: &[&[Lit]]) -> Units {
     }
 }
 
+/// The cover's nodes in substitution order (ranks ascending): by decreasing distance to the
+/// word's bits (the longest path of cover nodes from a node to a root), node order within one
+/// distance (nodes of one distance never read each other, so any order among them is
+/// topological). Rewriting takes the highest rank first, so the units next to the outputs go
+/// first and then the tree one layer of functions after the other; in node order the units of
+/// a Wallace tree's stages interleave and their terms wait for partners many steps later
+/// (measured: 16x16 remapped Wallace peak 219,573 terms in node order, 1,257 in this order).
+fn substitution_order(cover: &cuts::Cover, len: usize) -> Vec<u32> {
+    let mut distance = vec![0u32; len];
+    for &x in cover.order.iter().rev() {
+        let leaves = cover.leaves[x as usize]
+            .as_ref()
+            .expect("cover node has leaves");
+        for &y in leaves {
+            distance[y as usize] = distance[y as usize].max(distance[x as usize] + 1);
+        }
+    }
+    let mut order = cover.order.clone();
+    order.sort_by_key(|&x| (std::cmp::Reverse(distance[x as usize]), x));
+    order
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -87,7 +124,7 @@ mod tests {
         let q = g.and(x[3], !x[4]);
         let q = g.and(q, x[5]);
         let o = g.or(p, q);
-        let u = units(&g, &[&[o]]);
+        let u = units(&g, &[&[o]], Order::Distance);
         assert_eq!(u.units.len(), 1);
         assert_eq!(u.units[0].leaves.len(), 6);
         // The node is !p & !q (the OR is its complement): 1 - p - q + p q, with

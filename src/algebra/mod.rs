@@ -271,16 +271,27 @@ fn side_poly<C: Coef>(
             return done;
         }
     }
-    let units = lookup::units(aig, &[word]);
-    stats.units += units.units.len();
-    stats.lookup_units += units.units.len();
-    let limits = Limits {
-        max_terms: limits
-            .max_terms
-            .min(SIDE_TERMS_BASE + LOOKUP_TERMS_PER_UNIT * units.units.len()),
-        deadline: limits.deadline,
-    };
-    rewrite(&units, plus, minus, &limits, stats)
+    // Ranked by distance to the outputs first, in node order when that passes its budget.
+    let mut last = Err(Stop::TermBudget(limits.max_terms));
+    for order in [lookup::Order::Distance, lookup::Order::Node] {
+        let units = lookup::units(aig, &[word], order);
+        let bounded = Limits {
+            max_terms: limits
+                .max_terms
+                .min(SIDE_TERMS_BASE + LOOKUP_TERMS_PER_UNIT * units.units.len()),
+            deadline: limits.deadline,
+        };
+        let mut tried = Stats::default();
+        last = rewrite(&units, plus, minus, &bounded, &mut tried);
+        if !matches!(last, Err(Stop::TermBudget(_))) || order == lookup::Order::Node {
+            stats.units += units.units.len();
+            stats.lookup_units += units.units.len();
+            stats.steps += tried.steps;
+            stats.peak_terms = stats.peak_terms.max(tried.peak_terms);
+            break;
+        }
+    }
+    last
 }
 
 /// Rewrite sum 2^i (plus_i - minus_i) down to the inputs.

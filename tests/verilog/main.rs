@@ -1,6 +1,7 @@
 //! Integration tests of the Verilog front-end (one test binary, themed modules).
 
 mod arrays;
+mod case_inside;
 mod casts;
 mod common;
 mod corpus;

@@ -376,10 +376,15 @@ pub struct Always {
 pub struct CaseStmt {
     /// `casez` rather than `case`.
     pub casez: bool,
+    /// `case (e) inside` (IEEE 1800-2017 clause 12.5.4): x, z and `?` bits of a number label
+    /// are don't-cares, and labels may be ranges.
+    pub inside: bool,
     /// The selector.
     pub expr: Expr,
     /// Items: labels and statement.
     pub items: Vec<(Vec<Expr>, Stmt)>,
+    /// Range labels `[lo:hi]` of a `case inside`: the item's index, the bounds (inclusive).
+    pub ranges: Vec<(usize, Expr, Expr)>,
     /// `default:` statement.
     pub default: Option<Stmt>,
     /// Where it is written.

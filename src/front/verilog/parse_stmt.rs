@@ -249,7 +249,16 @@ impl Parser<'_, '_> {
         self.expect_p(Punct::LParen, "`(` after `case`")?;
         let expr = self.expr()?;
         self.expect_p(Punct::RParen, "`)`")?;
+        let inside = self.peek_name_is("inside");
+        if inside {
+            if casez {
+                let p = self.peek_pos();
+                return Err(self.unsupported(p, "`casez ... inside` (write `case (...) inside`)"));
+            }
+            self.bump();
+        }
         let mut items = Vec::new();
+        let mut ranges = Vec::new();
         let mut default = None;
         loop {
             if self.eat_kw(kw::ENDCASE) {
@@ -268,9 +277,31 @@ impl Parser<'_, '_> {
                 default = Some(s);
                 continue;
             }
-            let mut labels = vec![self.expr()?];
-            while self.eat_p(Punct::Comma) {
-                labels.push(self.expr()?);
+            let mut labels = Vec::new();
+            loop {
+                if inside && self.eat_p(Punct::LBrack) {
+                    // A range `[lo:hi]`, both bounds included.
+                    let lo = self.expr()?;
+                    self.expect_p(Punct::Colon, "`:` between the bounds of a range")?;
+                    let hi = if let TokenKind::SystemName(_) = self.peek().kind {
+                        // Recorded, and read on as `[lo:lo]` so that nothing follows from it.
+                        let p = self.bump().pos;
+                        let _ = self.unsupported(
+                            p,
+                            "`$` as a bound of a `case inside` range (write the largest value)",
+                        );
+                        lo.clone()
+                    } else {
+                        self.expr()?
+                    };
+                    self.expect_p(Punct::RBrack, "`]` closing the range")?;
+                    ranges.push((items.len(), lo, hi));
+                } else {
+                    labels.push(self.expr()?);
+                }
+                if !self.eat_p(Punct::Comma) {
+                    break;
+                }
             }
             self.expect_p(Punct::Colon, "`:` after the case item")?;
             let s = self.stmt()?;
@@ -278,8 +309,10 @@ impl Parser<'_, '_> {
         }
         Ok(Stmt::Case(Box::new(CaseStmt {
             casez,
+            inside,
             expr,
             items,
+            ranges,
             default,
             pos,
         })))

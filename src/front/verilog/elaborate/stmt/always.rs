@@ -459,21 +459,32 @@ impl Elaborator<'_> {
         };
         let mut t = self.expr_type(&ctx, &c.expr);
         let own_width = t.width;
-        for (labels, _) in &c.items {
-            for l in labels {
-                let u = self.expr_type(&ctx, l);
-                t.width = t.width.max(u.width);
-                t.signed = t.signed && u.signed;
-            }
+        let bounds = c.ranges.iter().flat_map(|(_, lo, hi)| [lo, hi]);
+        for l in c.items.iter().flat_map(|(labels, _)| labels).chain(bounds) {
+            let u = self.expr_type(&ctx, l);
+            t.width = t.width.max(u.width);
+            t.signed = t.signed && u.signed;
         }
         let sel = self.eval(&ctx, &c.expr, t.width, t.signed);
         let mut conds = Vec::with_capacity(c.items.len());
-        for (labels, _) in &c.items {
+        for (k, (labels, _)) in c.items.iter().enumerate() {
             let mut any = Lit::FALSE;
+            for (_, lo, hi) in c.ranges.iter().filter(|r| r.0 == k) {
+                let lo = self.eval(&ctx, lo, t.width, t.signed);
+                let hi = self.eval(&ctx, hi, t.width, t.signed);
+                let g = &mut self.core.aig;
+                let (below, above) = if t.signed {
+                    (bits::slt(g, &sel, &lo), bits::slt(g, &hi, &sel))
+                } else {
+                    (bits::ult(g, &sel, &lo), bits::ult(g, &hi, &sel))
+                };
+                let within = g.or(below, above);
+                any = g.or(any, !within);
+            }
             for l in labels {
                 let hit = match l {
                     Expr::Num(n, p) if n.bits.iter().any(|&b| b != B0 && b != B1) => {
-                        if !c.casez {
+                        if !c.casez && !c.inside {
                             self.core.error(
                                 *p,
                                 format!("unsupported: x/z bits in a `case` item (`{}`)", n.text),
@@ -495,6 +506,8 @@ impl Elaborator<'_> {
                                     B0 => eqs.push(!sel[k]),
                                     B1 => eqs.push(sel[k]),
                                     crate::front::verilog::lexer::BZ => {}
+                                    // In `case inside`, x bits of a label are don't-cares too.
+                                    _ if c.inside => {}
                                     _ => {
                                         self.core.error(
                                             *p,
@@ -524,7 +537,13 @@ impl Elaborator<'_> {
                 .map(|(&l, (labels, _))| (l, labels.first().map_or(c.pos, |e| e.pos())))
                 .collect();
             let shown = &sel[..own_width.min(sel.len())];
-            let stmt = if c.casez { "casez" } else { "case" };
+            let stmt = if c.casez {
+                "casez"
+            } else if c.inside {
+                "case inside"
+            } else {
+                "case"
+            };
             self.check_qualified(q, at, stmt, &items, c.default.is_some(), Some(shown));
         }
         let mut acc = env.clone();

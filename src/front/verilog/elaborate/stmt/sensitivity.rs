@@ -93,6 +93,10 @@ impl Uses {
                     labels.iter().for_each(|l| self.expr(l));
                     self.stmt(s);
                 }
+                for (_, lo, hi) in &c.ranges {
+                    self.expr(lo);
+                    self.expr(hi);
+                }
                 if let Some(d) = &c.default {
                     self.stmt(d);
                 }

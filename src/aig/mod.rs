@@ -8,6 +8,8 @@
 mod lit;
 mod marks;
 mod patterns;
+#[cfg(test)]
+pub(crate) mod random_graph;
 mod sim;
 
 pub use lit::Lit;

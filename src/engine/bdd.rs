@@ -643,6 +643,7 @@ pub(crate) mod tests {
 #[cfg(test)]
 pub(crate) mod oracle {
     use super::*;
+    use crate::aig::random_graph;
     use biodivine_lib_bdd::{Bdd, BddVariableSet};
 
     /// Every node's function in biodivine-lib-bdd (the independent package), input k as
@@ -669,18 +670,9 @@ pub(crate) mod oracle {
         t
     }
 
+    /// The tests' random graph: fan-ins from any earlier literal, AND nodes only.
     fn random_aig(seed: u64, inputs: usize, ands: usize) -> Aig {
-        let mut g = Aig::new();
-        let mut lits: Vec<Lit> = (0..inputs).map(|_| g.add_input()).collect();
-        let mut rng = crate::rng::SplitMix64::new(seed, 0);
-        let mut next = move || rng.next_u64();
-        for _ in 0..ands {
-            let a = lits[next() as usize % lits.len()].xor_complement(next() & 1 == 1);
-            let b = lits[next() as usize % lits.len()].xor_complement(next() & 1 == 1);
-            let l = g.and(a, b);
-            lits.push(l);
-        }
-        g
+        random_graph::random_aig(seed, inputs, ands, random_graph::Shape::UNIFORM).0
     }
 
     /// Both packages over the same order: ours as edges, biodivine's as `Bdd`s.

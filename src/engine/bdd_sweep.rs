@@ -188,6 +188,7 @@ pub(crate) fn reduce(aig: &Aig, image: &[Lit]) -> (Aig, Vec<Lit>) {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::aig::random_graph::random_vector;
 
     /// A ripple-carry sum of `a` and `b` (low bit first), carry out last.
     fn ripple(g: &mut Aig, a: &[Lit], b: &[Lit]) -> Vec<Lit> {
@@ -279,9 +280,7 @@ mod tests {
             .map(|i| Lit::from_node(i, false))
             .collect();
         for _ in 0..64 {
-            let v: Vec<bool> = (0..g.num_inputs())
-                .map(|_| rng.next_u64() & 1 == 1)
-                .collect();
+            let v = random_vector(&mut rng, g.num_inputs());
             assert_eq!(eval(g, &v, &old), eval(&h, &v, &map));
         }
         assert!(h.num_ands() <= g.num_ands());
@@ -332,9 +331,7 @@ mod tests {
     pub(super) fn check_images(g: &Aig, image: &[Lit], seed: u64) {
         let mut rng = crate::rng::SplitMix64::new(seed, 0);
         for _ in 0..64 {
-            let v: Vec<bool> = (0..g.num_inputs())
-                .map(|_| rng.next_u64() & 1 == 1)
-                .collect();
+            let v = random_vector(&mut rng, g.num_inputs());
             let all: Vec<Lit> = (0..g.len() as u32)
                 .map(|i| Lit::from_node(i, false))
                 .collect();
@@ -354,26 +351,17 @@ mod tests {
 #[cfg(test)]
 mod oracle {
     use super::*;
+    use crate::aig::random_graph;
     use biodivine_lib_bdd::Bdd;
 
-    fn random_aig(seed: u64, inputs: usize, ands: usize) -> Aig {
-        let mut g = Aig::new();
-        let mut lits: Vec<Lit> = (0..inputs).map(|_| g.add_input()).collect();
-        let mut rng = crate::rng::SplitMix64::new(seed, 0);
-        let mut next = move || rng.next_u64();
-        for _ in 0..ands {
-            // Mostly recent nodes, so that the graph is deep and has redundant structure.
-            let pick = |r: u64, n: usize| n - 1 - (r as usize % n.min(12));
-            let a = lits[pick(next(), lits.len())].xor_complement(next() & 1 == 1);
-            let b = lits[pick(next(), lits.len())].xor_complement(next() & 1 == 1);
-            let l = if next() % 3 == 0 {
-                g.xor(a, b)
-            } else {
-                g.and(a, b)
-            };
-            lits.push(l);
-        }
-        g
+    /// The tests' random graph with fan-ins from the 12 most recent literals (deep, with
+    /// redundant structure) and one node in three an XOR.
+    fn random_aig(seed: u64, inputs: usize, steps: usize) -> Aig {
+        let shape = random_graph::Shape {
+            recent: Some(12),
+            xor_one_in: Some(3),
+        };
+        random_graph::random_aig(seed, inputs, steps, shape).0
     }
 
     fn theirs(g: &Aig) -> Vec<Bdd> {

@@ -231,6 +231,7 @@ impl Signatures {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::aig::random_graph::{random_aig, Shape};
     use crate::aig::{random_words, simulate, Aig};
 
     #[test]
@@ -265,22 +266,9 @@ mod tests {
     #[test]
     fn signatures_give_the_partition_of_the_whole_table() {
         // A random graph with many equal and complementary nodes (small fan-in range).
-        let mut g = Aig::new();
-        let ins: Vec<_> = (0..6).map(|_| g.add_input()).collect();
-        let mut lits = ins.clone();
-        let mut r = 12345u64;
-        for _ in 0..400 {
-            r = mix(r.wrapping_add(crate::rng::GOLDEN));
-            let a = lits[(r % lits.len() as u64) as usize];
-            let b = lits[((r >> 20) % lits.len() as u64) as usize];
-            let l = g.and(
-                a.xor_complement(r >> 40 & 1 == 1),
-                b.xor_complement(r >> 41 & 1 == 1),
-            );
-            lits.push(l);
-        }
+        let (g, _) = random_aig(12345, 6, 400, Shape::UNIFORM);
         let words = 3;
-        let pats = random_words(ins.len(), words, 9);
+        let pats = random_words(g.num_inputs(), words, 9);
         let whole = Classes::from_table(&simulate(&g, &pats, words), g.len());
         let mut sigs = Signatures::new(g.len());
         for w in 0..words {

@@ -96,9 +96,7 @@ fn step(p: &Product, classes: &Classes, miter: Lit, depth: usize, limits: &Limit
                     continue;
                 }
                 let d = sat.fresh();
-                // d -> a != b
-                sat.clause(&[!d, a, b]);
-                sat.clause(&[!d, !a, !b]);
+                crate::cnf::xor_if(&mut sat, d, a, b);
                 any.push(d);
             }
             sat.clause(&any);

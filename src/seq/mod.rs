@@ -132,11 +132,11 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
     )
     .map_err(SeqError::Input)?;
     log::debug!(
-        "clocked: product of {} nodes, {} state bits built in {:.2?}, peak memory {}",
+        "clocked: product of {} nodes, {} state bits built in {:.2?}, memory {}",
         p.aig.len(),
         p.state.len(),
         start.elapsed(),
-        peak_memory()
+        crate::host::now_note()
     );
     let sim = simulate::simulate(&p, o.sim_cycles.max(1), o.sim_words.max(1), 0x5E9_0001);
     log::debug!("clocked: simulated by {:.2?}", start.elapsed());
@@ -230,9 +230,9 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
         }
     }
     log::debug!(
-        "clocked: unrolling done by {:.2?}, peak memory {}",
+        "clocked: unrolling done by {:.2?}, memory {}",
         start.elapsed(),
-        peak_memory()
+        crate::host::now_note()
     );
     // k-induction on what the pairing left open; the unrolling is its base case.
     let mut k_induction = None;
@@ -354,17 +354,6 @@ fn outputs_under(
         }
     }
     (status, pending, stopped)
-}
-
-/// The process's peak resident memory for the debug log (Linux `/proc`; `-` elsewhere).
-fn peak_memory() -> String {
-    std::fs::read_to_string("/proc/self/status")
-        .ok()
-        .and_then(|s| {
-            s.lines()
-                .find_map(|l| l.strip_prefix("VmHWM:").map(|v| v.trim().to_string()))
-        })
-        .unwrap_or_else(|| "-".to_string())
 }
 
 /// A trace from per-cycle input values and free initial values.

@@ -178,8 +178,8 @@ fn decide_one(
             SplitResult::Equal => {
                 findings[p] = Some(Finding::Equal(Method::Split));
                 progress.outputs_done(1);
-                sat.clause(&[!a, b]);
-                sat.clause(&[a, !b]);
+                // Proved equal: `a == b` helps the later queries.
+                crate::cnf::xor_true(sat, !a, b);
                 sat.clause(&[!act]);
                 return stats;
             }
@@ -206,8 +206,7 @@ fn decide_one(
         SatResult::Unsat => {
             findings[p] = Some(Finding::Equal(Method::Sat));
             progress.outputs_done(1);
-            sat.clause(&[!a, b]);
-            sat.clause(&[a, !b]);
+            crate::cnf::xor_true(sat, !a, b);
         }
         SatResult::Sat => {
             let values: Vec<bool> = aig

@@ -501,27 +501,7 @@ fn cli_prove_gives_a_trace_that_eval_replays() {
         "{v}"
     );
     // eval steps each design through the trace: they part in cycle 9.
-    let run = |design: &PathBuf, side: &str| {
-        let o = std::process::Command::new(bin)
-            .args(["eval", "--json", "--side", side, "--trace"])
-            .arg(&rep)
-            .arg(design)
-            .output()
-            .unwrap();
-        assert_eq!(
-            o.status.code(),
-            Some(0),
-            "{}",
-            String::from_utf8_lossy(&o.stderr)
-        );
-        let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
-        v["cycles"]
-            .as_array()
-            .unwrap()
-            .iter()
-            .map(|c| c["outputs"].clone())
-            .collect::<Vec<_>>()
-    };
+    let run = |design: &PathBuf, side: &str| trace_outputs(&rep, design, side);
     let (a, b) = (run(&r, "reference"), run(&c, "candidate"));
     assert_eq!((0..10).find(|&k| a[k] != b[k]), Some(9));
 }
@@ -573,4 +553,32 @@ fn stats_of_s27_under_the_state_cut_match_a_hand_count() {
         "{text}"
     );
     assert!(text.contains("note: state cut:"), "{text}");
+}
+
+/// `eval --json --side SIDE --trace REPORT DESIGN`: the outputs of each cycle of the trace in
+/// the saved report, stepped on `design` (the command must succeed).
+fn trace_outputs(
+    report: &std::path::Path,
+    design: &std::path::Path,
+    side: &str,
+) -> Vec<serde_json::Value> {
+    let o = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
+        .args(["eval", "--json", "--side", side, "--trace"])
+        .arg(report)
+        .arg(design)
+        .output()
+        .unwrap();
+    assert_eq!(
+        o.status.code(),
+        Some(0),
+        "{}",
+        String::from_utf8_lossy(&o.stderr)
+    );
+    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    v["cycles"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|c| c["outputs"].clone())
+        .collect()
 }

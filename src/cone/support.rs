@@ -575,16 +575,21 @@ mod tests {
         assert_eq!(st.by_simulation() + st.by_sat(), 21);
     }
 
+    /// `y = AND(b0..b20)`.
+    fn and21() -> Design {
+        let ins: Vec<String> = (0..21).map(|i| format!("b{i}")).collect();
+        let mut t: String = ins.iter().map(|b| format!("INPUT({b})\n")).collect();
+        t.push_str(&format!("OUTPUT(y)\ny = AND({})\n", ins.join(", ")));
+        design(&t)
+    }
+
     #[test]
     fn the_sat_query_budget_leaves_claims_undecided_past_it() {
         // y = AND(b0..b20): random patterns almost never sensitize an input (one in 2^21), so
         // the claims wait for SAT; a budget of 0 queries leaves all 21 undecided, one of 21
         // decides them all. The bound is a count, so prove's diagnosis cannot spend an
         // unbounded time on a wide multiplier's carry-chain claims.
-        let ins: Vec<String> = (0..21).map(|i| format!("b{i}")).collect();
-        let mut t: String = ins.iter().map(|b| format!("INPUT({b})\n")).collect();
-        t.push_str(&format!("OUTPUT(y)\ny = AND({})\n", ins.join(", ")));
-        let d = design(&t);
+        let d = and21();
         let with = |k: usize| SupportOptions {
             max_rounds: 1,
             max_sat_queries: Some(k),
@@ -607,10 +612,7 @@ mod tests {
     fn wide_cones_get_no_sat_queries_and_fewer_patterns_under_the_work_bounds() {
         // y = AND(b0..b20) again: its cone has 21 inputs and 20 AND nodes. A cone bound of
         // 40 nodes stops the queries (claims undecided, no SAT call), 41 lets them run.
-        let ins: Vec<String> = (0..21).map(|i| format!("b{i}")).collect();
-        let mut t: String = ins.iter().map(|b| format!("INPUT({b})\n")).collect();
-        t.push_str(&format!("OUTPUT(y)\ny = AND({})\n", ins.join(", ")));
-        let d = design(&t);
+        let d = and21();
         let nodes = d
             .aig
             .cone_mask(&[d.outputs[0].lit])

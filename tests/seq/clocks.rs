@@ -249,27 +249,7 @@ fn cli_traces_of_two_clocks_replay_in_eval_and_icarus_verilog() {
         "{text}"
     );
     // eval steps each design; they part at the first difference only.
-    let run = |design: &std::path::Path, side: &str| -> Vec<serde_json::Value> {
-        let o = Command::new(bin)
-            .args(["eval", "--json", "--side", side, "--trace"])
-            .arg(&rep)
-            .arg(design)
-            .output()
-            .unwrap();
-        assert_eq!(
-            o.status.code(),
-            Some(0),
-            "{}",
-            String::from_utf8_lossy(&o.stderr)
-        );
-        let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
-        v["cycles"]
-            .as_array()
-            .unwrap()
-            .iter()
-            .map(|c| c["outputs"].clone())
-            .collect()
-    };
+    let run = |design: &std::path::Path, side: &str| super::trace_outputs(&rep, design, side);
     let (a, b) = (run(&r, "reference"), run(&c, "candidate"));
     assert_eq!(a.len(), cycles.len());
     let parted: Vec<usize> = (0..a.len()).filter(|&k| a[k] != b[k]).collect();

@@ -586,7 +586,15 @@ mod shards {
         let run = |k: &str, name: &str| {
             let p = tmp(name);
             let e = edited.to_str().unwrap();
-            let o = equicone(&["prove", spec, e, "--shard", k, "--report", p.to_str().unwrap()]);
+            let o = equicone(&[
+                "prove",
+                spec,
+                e,
+                "--shard",
+                k,
+                "--report",
+                p.to_str().unwrap(),
+            ]);
             assert_eq!(code(&o), 0, "{}", stdout(&o));
             p.to_str().unwrap().to_string()
         };
@@ -598,7 +606,14 @@ mod shards {
         let c2 = part("2/3", "1", "refuse-2-of-3.json");
         assert!(err(&["merge", &a, &c2]).contains("split"));
         let cone = tmp("refuse-cone.json");
-        let o = equicone(&["cone", spec, "--shard", "2/2", "--report", cone.to_str().unwrap()]);
+        let o = equicone(&[
+            "cone",
+            spec,
+            "--shard",
+            "2/2",
+            "--report",
+            cone.to_str().unwrap(),
+        ]);
         assert!([0, 1].contains(&code(&o)), "{}", stdout(&o));
         err(&["merge", &a, cone.to_str().unwrap()]);
     }

@@ -13,6 +13,8 @@ mod common;
 mod exact;
 #[path = "seq/flags.rs"]
 mod flags;
+#[path = "seq/gated.rs"]
+mod gated;
 #[path = "oracle/mod.rs"]
 mod oracle;
 #[path = "seq/portmap.rs"]

@@ -15,6 +15,7 @@ mod always;
 mod call;
 mod clocked;
 mod coverage;
+mod initial;
 mod qualified;
 mod sensitivity;
 mod sync_reset;

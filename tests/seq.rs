@@ -11,6 +11,8 @@ mod clocks;
 mod common;
 #[path = "seq/exact.rs"]
 mod exact;
+#[path = "seq/gated.rs"]
+mod gated;
 #[path = "seq/initial.rs"]
 mod initial;
 #[path = "oracle/mod.rs"]

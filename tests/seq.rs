@@ -13,6 +13,8 @@ mod clocks_mapped;
 mod common;
 #[path = "seq/exact.rs"]
 mod exact;
+#[path = "seq/flags.rs"]
+mod flags;
 #[path = "seq/gated.rs"]
 mod gated;
 #[path = "oracle/mod.rs"]

@@ -6,6 +6,8 @@
 
 #[path = "seq/clocks.rs"]
 mod clocks;
+#[path = "seq/clocks_mapped.rs"]
+mod clocks_mapped;
 #[path = "verilog/common.rs"]
 #[allow(dead_code)]
 mod common;

@@ -227,8 +227,8 @@ pub fn random_trace_mapped(
         }
     }
     // Several clocks: each ticks at random (a clock without a partner makes no such trace;
-    // the clocked check refuses the pair).
-    let clocks = crate::seq::clock_names(r, c);
+    // the clocked check refuses the pair). Clocks the port map renames pair through it.
+    let clocks = crate::seq::clock_names(r, c, map);
     let cycles = (0..cycles)
         .map(|cycle| TraceCycle {
             cycle,

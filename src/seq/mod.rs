@@ -48,10 +48,11 @@ use correspond::{Classes, Constrained};
 use product::{Init, Product};
 use std::collections::BTreeMap;
 
-/// The clocks of `r` against `c` when either design has several (paired by name, as a trace
+/// The clocks of `r` against `c` when either design has several (paired by name, or through
+/// `map`'s port lines when it renames a clock; named as the reference names them, as a trace
 /// lists them); empty when each has at most one clock or the clocks do not pair.
-pub fn clock_names(r: &Design, c: &Design) -> Vec<String> {
-    product::paired_clocks(r, c, None)
+pub fn clock_names(r: &Design, c: &Design, map: Option<&crate::portmap::BitMap>) -> Vec<String> {
+    product::paired_clocks(r, c, map)
         .ok()
         .flatten()
         .map(|v| v.into_iter().map(|k| k.name).collect())

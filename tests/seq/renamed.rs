@@ -244,7 +244,7 @@ fn renamed_ports_of_clocked_designs_pair_by_the_port_map() {
 }
 
 /// Run a testbench equicone wrote in `dir` (it names r.v, the candidate embedded or c.v).
-fn run_tb(dir: &Path, tb: &str) -> String {
+pub(super) fn run_tb(dir: &Path, tb: &str) -> String {
     let text = std::fs::read_to_string(dir.join(tb)).unwrap();
     let line = text
         .lines()

@@ -99,7 +99,11 @@ pub fn select_outputs(design: &Design, names: &[String]) -> Result<Vec<usize>, I
 /// On a clocked design (registers cut: their outputs read as inputs) the report also holds
 /// the structural cones across clock cycles of every output
 /// ([`AuditReport::across_cycles`]), and an input, register, clock or reset that reaches an
-/// output only through registers is not flagged unused.
+/// output only through registers is not flagged unused; when the exact cone across cycles is
+/// built, an input it proves never changes an audited output is flagged
+/// ([`Flag::RedundantAcrossCycles`]), and so is each exact dead register
+/// ([`Flag::DeadRegister`]); an input that does not change an output within the cycles
+/// unrolled only is a note ([`AuditReport::notes`]).
 pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditReport {
     let all_outputs = opts.outputs.is_empty();
     let mut outputs: Vec<usize> = if all_outputs {

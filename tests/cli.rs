@@ -578,6 +578,44 @@ mod shards {
         assert!(err(&["merge", &a, &b_seed]).contains("other options"));
         assert!(err(&["prove", spec, tree, "--shard", "3/2"]).contains("K/N"));
         assert_eq!(code(&equicone(&["merge", &a, &b])), 0);
+        // The inputs' fingerprint is of their contents: the second shard run on the same path
+        // after the file was edited (a comment added, same function) is refused.
+        let edited = tmp("refuse-tree.bench");
+        let text = std::fs::read_to_string(tree).unwrap();
+        std::fs::write(&edited, &text).unwrap();
+        let run = |k: &str, name: &str| {
+            let p = tmp(name);
+            let e = edited.to_str().unwrap();
+            let o = equicone(&[
+                "prove",
+                spec,
+                e,
+                "--shard",
+                k,
+                "--report",
+                p.to_str().unwrap(),
+            ]);
+            assert_eq!(code(&o), 0, "{}", stdout(&o));
+            p.to_str().unwrap().to_string()
+        };
+        let e1 = run("1/2", "refuse-edit-1.json");
+        std::fs::write(&edited, format!("# edited\n{text}")).unwrap();
+        let e2 = run("2/2", "refuse-edit-2.json");
+        assert!(err(&["merge", &e1, &e2]).contains("other input files"));
+        // Parts of two different splits, and a part of a cone audit, are refused too.
+        let c2 = part("2/3", "1", "refuse-2-of-3.json");
+        assert!(err(&["merge", &a, &c2]).contains("split"));
+        let cone = tmp("refuse-cone.json");
+        let o = equicone(&[
+            "cone",
+            spec,
+            "--shard",
+            "2/2",
+            "--report",
+            cone.to_str().unwrap(),
+        ]);
+        assert!([0, 1].contains(&code(&o)), "{}", stdout(&o));
+        err(&["merge", &a, cone.to_str().unwrap()]);
     }
 
     /// Run `cone ARGS --shard k/n` for every k, merge the parts, and compare with one run:

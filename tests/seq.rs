@@ -11,6 +11,8 @@ mod clocks;
 mod common;
 #[path = "seq/exact.rs"]
 mod exact;
+#[path = "seq/gated.rs"]
+mod gated;
 #[path = "oracle/mod.rs"]
 mod oracle;
 #[path = "seq/portmap.rs"]
@@ -31,6 +33,31 @@ use std::path::PathBuf;
 use std::sync::Arc;
 
 /// The ISCAS-89 folder of the shared data (`oracle::shared_data`).
+/// A command-line argument: a word or a path.
+type Arg<'a> = &'a dyn AsRef<std::ffi::OsStr>;
+
+/// Run equicone with `args` (in `dir` when given), check its exit code (showing both streams when
+/// it differs) and give its stdout and stderr.
+fn cli(dir: Option<&std::path::Path>, args: &[Arg], code: i32) -> (String, String) {
+    let mut cmd = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"));
+    if let Some(d) = dir {
+        cmd.current_dir(d);
+    }
+    let o = cmd.args(args.iter().map(|a| a.as_ref())).output().unwrap();
+    let (out, err) = (
+        String::from_utf8_lossy(&o.stdout).into_owned(),
+        String::from_utf8_lossy(&o.stderr).into_owned(),
+    );
+    assert_eq!(o.status.code(), Some(code), "{out}{err}");
+    (out, err)
+}
+
+/// `cli` for a command that prints JSON: the parsed stdout.
+fn cli_json(dir: Option<&std::path::Path>, args: &[Arg], code: i32) -> serde_json::Value {
+    let (out, err) = cli(dir, args, code);
+    serde_json::from_str(&out).unwrap_or_else(|e| panic!("{e}: {out}{err}"))
+}
+
 fn iscas89() -> Option<PathBuf> {
     oracle::shared_data("iscas89", "s27.bench")
 }
@@ -457,35 +484,28 @@ fn cli_prove_gives_a_trace_that_eval_replays() {
     let c = dir.path().join("bug.bench");
     std::fs::write(&r, counter(false, 9)).unwrap();
     std::fs::write(&c, counter(false, 8)).unwrap();
-    let bin = env!("CARGO_BIN_EXE_equicone");
     let rep = dir.path().join("rep.json");
-    let out = std::process::Command::new(bin)
-        .args(["prove", "--init-unset", "0", "--json", "--report"])
-        .arg(&rep)
-        .arg(&r)
-        .arg(&c)
-        .output()
-        .unwrap();
-    assert_eq!(
-        out.status.code(),
-        Some(1),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
+    let v = cli_json(
+        None,
+        &[
+            &"prove",
+            &"--init-unset",
+            &"0",
+            &"--json",
+            &"--report",
+            &rep,
+            &r,
+            &c,
+        ],
+        1,
     );
-    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
     assert_eq!(v["verdict"], "different");
     let cycles = v["trace"]["cycles"].as_array().unwrap();
     assert_eq!(cycles.len(), 10);
     assert!(cycles.iter().all(|c| c["inputs"][0]["name"] == "en"));
     assert_eq!(v["trace"]["first_difference"]["cycle"], 9);
     // Text: one row per cycle, the first difference marked.
-    let text = std::process::Command::new(bin)
-        .args(["prove", "--init-unset", "0"])
-        .arg(&r)
-        .arg(&c)
-        .output()
-        .unwrap();
-    let text = String::from_utf8_lossy(&text.stdout);
+    let (text, _) = cli(None, &[&"prove", &"--init-unset", &"0", &r, &c], 1);
     assert!(text.contains("<- first difference"), "{text}");
     assert!(text.contains("verdict: different"), "{text}");
     // Every report says what its verdict covers (project rule: a proof covers the netlist as
@@ -562,19 +582,13 @@ fn trace_outputs(
     design: &std::path::Path,
     side: &str,
 ) -> Vec<serde_json::Value> {
-    let o = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .args(["eval", "--json", "--side", side, "--trace"])
-        .arg(report)
-        .arg(design)
-        .output()
-        .unwrap();
-    assert_eq!(
-        o.status.code(),
-        Some(0),
-        "{}",
-        String::from_utf8_lossy(&o.stderr)
+    let v = cli_json(
+        None,
+        &[
+            &"eval", &"--json", &"--side", &side, &"--trace", &report, &design,
+        ],
+        0,
     );
-    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
     v["cycles"]
         .as_array()
         .unwrap()

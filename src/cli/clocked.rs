@@ -51,6 +51,11 @@ pub fn run(
     report: Option<&Path>,
     replay: &ClockedReplay<'_>,
 ) -> Exit {
+    // The readers' warnings (a gated clock read as an enable, ignored delays, ...) go to
+    // stderr: the clocked report has no place for them.
+    for w in req.reference.warnings.iter().chain(&req.candidate.warnings) {
+        eprintln!("{w}");
+    }
     let rep = match check::check_clocked(req, settings) {
         Ok(rep) => rep,
         Err(CheckError::Input(e)) => return report_input_error(&e),

@@ -22,6 +22,8 @@ pub(crate) struct Classes {
     phase: Vec<bool>,
     /// Nodes in classes of two or more, class by class (each class contiguous and ascending).
     active: Vec<u32>,
+    /// Members of the class of each representative (0 for other nodes).
+    size: Vec<u32>,
 }
 
 impl Classes {
@@ -88,7 +90,7 @@ impl Classes {
             .filter(|&n| rep[n as usize] != NONE)
             .collect();
         active.sort_unstable_by_key(|&n| (rep[n as usize], n));
-        Classes { rep, phase, active }
+        Classes::with_sizes(rep, phase, active)
     }
 
     /// Classes from accumulated signatures: nodes with equal signatures form a class. A 64-bit
@@ -110,7 +112,35 @@ impl Classes {
         let mut active = keyed;
         active.retain(|&(_, n)| rep[n as usize] != NONE);
         let active = active.into_iter().map(|(_, n)| n).collect();
-        Classes { rep, phase, active }
+        Classes::with_sizes(rep, phase, active)
+    }
+
+    fn with_sizes(rep: Vec<u32>, phase: Vec<bool>, active: Vec<u32>) -> Classes {
+        let mut c = Classes {
+            size: vec![0; rep.len()],
+            rep,
+            phase,
+            active,
+        };
+        c.count_sizes();
+        c
+    }
+
+    fn count_sizes(&mut self) {
+        for &n in &self.active {
+            self.size[self.rep[n as usize] as usize] = 0;
+        }
+        for &n in &self.active {
+            self.size[self.rep[n as usize] as usize] += 1;
+        }
+    }
+
+    /// Members of `n`'s class (1 for a singleton).
+    pub(crate) fn class_size(&self, n: usize) -> usize {
+        match self.rep[n] {
+            NONE => 1,
+            r => self.size[r as usize] as usize,
+        }
     }
 
     /// The representative of `n`'s class and whether `n` is its complement, when `n` is a
@@ -180,6 +210,7 @@ impl Classes {
             start = end;
         }
         self.active.truncate(out);
+        self.count_sizes();
     }
 
     /// Number of classes with two or more members.
@@ -293,6 +324,13 @@ mod tests {
                 assert_eq!(whole.same_class(a, b), by_word.same_class(a, b));
                 assert_eq!(whole.same_class(a, b), refined.same_class(a, b));
             }
+            // Class sizes counted from the pairwise relation.
+            let size = (0..g.len())
+                .filter(|&b| b == a || whole.same_class(a, b).is_some())
+                .count();
+            assert_eq!(whole.class_size(a), size, "node {a}");
+            assert_eq!(by_word.class_size(a), size, "node {a}");
+            assert_eq!(refined.class_size(a), size, "node {a}");
         }
     }
 }

@@ -160,6 +160,11 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
         );
         if under.1.is_empty() && under.2.is_none() {
             early = Some((cs, rounds, under, None));
+        } else if let Some(f) = sim_found(&sim).filter(|f| f.cycle < o.cycles) {
+            // The random runs already met a difference within the cycles asked: that run is
+            // the trace (re-simulated on both designs below); unrolling a product this large
+            // only to look for a shorter one costs more than the rest of the check.
+            early = Some((cs, rounds, under, Some(f)));
         } else if under.2.is_none() {
             if let bmc::Bmc::Found(f) = bmc::unroll(&mut p, &cs, &under.1, o.cycles, &o.limits) {
                 early = Some((cs, rounds, under, Some(f)));
@@ -212,19 +217,9 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
             bmc::Bmc::Stopped(reason, k) => {
                 stopped.get_or_insert(reason);
                 cycles_checked = k;
-                if let Some((cycle, run)) = sim.first_difference {
-                    let free: Vec<Vec<bool>> = sim.inputs[..=cycle]
-                        .iter()
-                        .map(|ws| ws.iter().map(|w| simulate::SimRun::bit(w, run)).collect())
-                        .collect();
-                    let init: BTreeMap<u32, bool> = sim
-                        .init
-                        .iter()
-                        .enumerate()
-                        .map(|(k, w)| (k as u32, simulate::SimRun::bit(w, run)))
-                        .collect();
-                    let t = build_trace(r, c, &p, &free, &init, o.init_unset);
-                    trace = Some(confirm(r, c, &p, t, cycle)?);
+                if let Some(f) = sim_found(&sim) {
+                    let t = build_trace(r, c, &p, &f.free, &f.init, o.init_unset);
+                    trace = Some(confirm(r, c, &p, t, f.cycle)?);
                 }
             }
         }
@@ -304,6 +299,23 @@ pub fn check(r: &Design, c: &Design, o: &SeqOptions) -> Result<SeqReport, SeqErr
         sim_cycles: o.sim_cycles.max(1),
         seconds: start.elapsed().as_secs_f64(),
     }))
+}
+
+/// The first output difference the random simulation met, as the inputs of its run in each
+/// cycle up to it and its free initial values (to be re-simulated before it is reported).
+fn sim_found(sim: &simulate::SimRun) -> Option<bmc::Found> {
+    let (cycle, run) = sim.first_difference?;
+    let free = sim.inputs[..=cycle]
+        .iter()
+        .map(|ws| ws.iter().map(|w| simulate::SimRun::bit(w, run)).collect())
+        .collect();
+    let init = sim
+        .init
+        .iter()
+        .enumerate()
+        .map(|(k, w)| (k as u32, simulate::SimRun::bit(w, run)))
+        .collect();
+    Some(bmc::Found { cycle, free, init })
 }
 
 /// Each output pair's status under the pairing `classes` (inductive, holding from reset), the

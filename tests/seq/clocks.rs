@@ -8,8 +8,8 @@
 
 use super::common;
 use super::verilog::{check, read, Pair};
+use super::{cli, cli_json};
 use equicone::seq::{self, SeqOptions};
-use std::process::Command;
 
 /// A producer accumulates `d` on `clk_a`; a consumer folds it into `y` on `clk_b`.
 const PRODCONS: &str =
@@ -143,14 +143,7 @@ fn clocks_at_both_edges_or_without_a_partner_are_refused_clearly() {
         "both",
         "module MOD(input clk, input d, output y);\n  reg a, b;\n  always @(posedge clk) a <= d;\n  always @(negedge clk) b <= a;\n  assign y = b;\nendmodule\n",
     );
-    let o = Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .arg("prove")
-        .arg(&both)
-        .arg(&both)
-        .output()
-        .unwrap();
-    let err = String::from_utf8_lossy(&o.stderr);
-    assert_eq!(o.status.code(), Some(2), "{err}");
+    let (_, err) = cli(None, &[&"prove", &both, &both], 2);
     assert!(
         err.contains("both.v:4:3: error: both: unsupported: clock `clk` is used at both edges (posedge by a; negedge by b)"),
         "{err}"
@@ -167,14 +160,7 @@ fn clocks_at_both_edges_or_without_a_partner_are_refused_clearly() {
         "prodcons",
         &PRODCONS.replace("posedge clk_b", "posedge clk_a"),
     );
-    let o = Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .arg("prove")
-        .arg(&r)
-        .arg(&c)
-        .output()
-        .unwrap();
-    let err = String::from_utf8_lossy(&o.stderr);
-    assert_eq!(o.status.code(), Some(2), "{err}");
+    let (_, err) = cli(None, &[&"prove", &r, &c], 2);
     assert!(
         err.contains("error: clocks without a partner: the reference clocks 2 register bits on posedge clk_b (y[0], y[1]) and the other design has no registers on a clock of that name"),
         "{err}"
@@ -186,14 +172,7 @@ fn clocks_at_both_edges_or_without_a_partner_are_refused_clearly() {
         "two",
         "module MOD(input clka, input clkb, input d, output y);\n  reg a, b, c;\n  always @(posedge clka) begin a <= d; c <= a; end\n  always @(negedge clkb) b <= c;\n  assign y = b;\nendmodule\n",
     );
-    let o = Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .args(["prove", "--init-unset", "0"])
-        .arg(&two)
-        .arg(&two)
-        .output()
-        .unwrap();
-    let out = String::from_utf8_lossy(&o.stdout);
-    assert_eq!(o.status.code(), Some(0), "{out}");
+    let (out, _) = cli(None, &[&"prove", &"--init-unset", &"0", &two, &two], 0);
     assert!(
         out.contains("clocks: clka posedge (2|2 register bits), clkb negedge (1|1 register bits)"),
         "{out}"
@@ -208,25 +187,22 @@ fn cli_traces_of_two_clocks_replay_in_eval_and_icarus_verilog() {
     let dir = tempfile::tempdir().unwrap();
     let r = write(dir.path(), "r.v", "prodcons", PRODCONS);
     let c = write(dir.path(), "c.v", "prodcons", PRODCONS_BUG);
-    let bin = env!("CARGO_BIN_EXE_equicone");
     let rep = dir.path().join("rep.json");
     let tb = dir.path().join("tb.v");
-    let o = Command::new(bin)
-        .args(["prove", "--json", "--report"])
-        .arg(&rep)
-        .arg("--testbench")
-        .arg(&tb)
-        .arg(&r)
-        .arg(&c)
-        .output()
-        .unwrap();
-    assert_eq!(
-        o.status.code(),
-        Some(1),
-        "{}",
-        String::from_utf8_lossy(&o.stderr)
+    let v = cli_json(
+        None,
+        &[
+            &"prove",
+            &"--json",
+            &"--report",
+            &rep,
+            &"--testbench",
+            &tb,
+            &r,
+            &c,
+        ],
+        1,
     );
-    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
     assert_eq!(v["clocks"][0]["name"], "clk_a");
     assert_eq!(v["clocks"][1]["name"], "clk_b");
     let t = &v["trace"];
@@ -236,13 +212,7 @@ fn cli_traces_of_two_clocks_replay_in_eval_and_icarus_verilog() {
     let first = t["first_difference"]["cycle"].as_u64().unwrap() as usize;
     assert_eq!(first + 1, cycles.len());
     // The text report has a `ticked` column.
-    let text = Command::new(bin)
-        .arg("prove")
-        .arg(&r)
-        .arg(&c)
-        .output()
-        .unwrap();
-    let text = String::from_utf8_lossy(&text.stdout);
+    let (text, _) = cli(None, &[&"prove", &r, &c], 1);
     assert!(
         text.lines()
             .any(|l| l.trim_start().starts_with("cycle") && l.contains("ticked")),
@@ -290,17 +260,7 @@ fn a_clock_renamed_by_the_port_map_pairs_with_its_partner() {
     );
     let map = dir.path().join("m.map");
     std::fs::write(&map, "clk_b cb\n").unwrap();
-    let bin = env!("CARGO_BIN_EXE_equicone");
-    let o = Command::new(bin)
-        .arg("prove")
-        .arg(&r)
-        .arg(&good)
-        .arg("--port-map")
-        .arg(&map)
-        .output()
-        .unwrap();
-    let out = String::from_utf8_lossy(&o.stdout);
-    assert_eq!(o.status.code(), Some(0), "{out}");
+    let (out, _) = cli(None, &[&"prove", &r, &good, &"--port-map", &map], 0);
     assert!(
         out.contains(
             "clocks: clk_a posedge (2|2 register bits), clk_b <-> cb posedge (2|2 register bits)"
@@ -308,39 +268,25 @@ fn a_clock_renamed_by_the_port_map_pairs_with_its_partner() {
         "{out}"
     );
     // Without the map the clocks do not pair.
-    let o = Command::new(bin)
-        .arg("prove")
-        .arg(&r)
-        .arg(&good)
-        .output()
-        .unwrap();
-    assert_eq!(o.status.code(), Some(2));
+    cli(None, &[&"prove", &r, &good], 2);
     let rep = dir.path().join("rep.json");
-    let o = Command::new(bin)
-        .args(["prove", "--json", "--report"])
-        .arg(&rep)
-        .arg(&r)
-        .arg(&bad)
-        .arg("--port-map")
-        .arg(&map)
-        .output()
-        .unwrap();
-    assert_eq!(o.status.code(), Some(1));
-    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    let v = cli_json(
+        None,
+        &[
+            &"prove",
+            &"--json",
+            &"--report",
+            &rep,
+            &r,
+            &bad,
+            &"--port-map",
+            &map,
+        ],
+        1,
+    );
     assert_eq!(
         v["trace"]["reset"]["clocks"],
         serde_json::json!(["clk_a", "clk_b"])
     );
-    let o = Command::new(bin)
-        .args(["eval", "--json", "--side", "candidate", "--trace"])
-        .arg(&rep)
-        .arg(&bad)
-        .output()
-        .unwrap();
-    assert_eq!(
-        o.status.code(),
-        Some(0),
-        "{}",
-        String::from_utf8_lossy(&o.stderr)
-    );
+    super::trace_outputs(&rep, &bad, "candidate");
 }

@@ -239,29 +239,20 @@ fn a_port_map_of_a_clocked_check_is_checked() {
     )
     .unwrap();
     std::fs::write(dir.path().join("m.map"), "d din\ns ~t\nu w\n").unwrap();
-    let o = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .current_dir(dir.path())
-        .args(["prove", "r.v", "c.v", "--port-map", "m.map"])
-        .output()
-        .unwrap();
-    let out = String::from_utf8_lossy(&o.stdout);
-    assert_eq!(o.status.code(), Some(0), "{out}");
+    let (out, _) = super::cli(
+        Some(dir.path()),
+        &[&"prove", &"r.v", &"c.v", &"--port-map", &"m.map"],
+        0,
+    );
     assert!(out.contains("  inputs   d[1:0] <-> din[1:0]"), "{out}");
     // Register lines alone: proved, and the report names the map and the assumption.
     std::fs::write(dir.path().join("c.v"), CANDIDATE.replace("MOD", "m")).unwrap();
     std::fs::write(dir.path().join("m.map"), "s ~t\nu w\n").unwrap();
-    let o = std::process::Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .current_dir(dir.path())
-        .args(["prove", "r.v", "c.v", "--port-map", "m.map", "--json"])
-        .output()
-        .unwrap();
-    assert_eq!(
-        o.status.code(),
-        Some(0),
-        "{}",
-        String::from_utf8_lossy(&o.stdout)
+    let v = super::cli_json(
+        Some(dir.path()),
+        &[&"prove", &"r.v", &"c.v", &"--port-map", &"m.map", &"--json"],
+        0,
     );
-    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
     assert_eq!(v["port_map"], "m.map");
     assert_eq!(v["assumed_start_equal"][0]["reference"], "s[0]");
     assert_eq!(v["assumed_start_equal"][0]["inverted"], true);

@@ -56,25 +56,12 @@ fn candidate(bug: bool) -> String {
     CANDIDATE.replace("NEXT", next)
 }
 
-fn prove(dir: &Path, extra: &[&str]) -> (i32, serde_json::Value, String) {
-    let o = Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .current_dir(dir)
-        .args(["prove", "r.v", "c.v", "--port-map", "m.map", "--json"])
-        .args(extra)
-        .output()
-        .unwrap();
-    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap_or_else(|e| {
-        panic!(
-            "{e}: {}{}",
-            String::from_utf8_lossy(&o.stdout),
-            String::from_utf8_lossy(&o.stderr)
-        )
-    });
-    (
-        o.status.code().unwrap_or(-1),
-        v,
-        String::from_utf8_lossy(&o.stderr).into_owned(),
-    )
+/// `prove r.v c.v --port-map m.map --json EXTRA` in `dir`, which must exit with `code`.
+fn prove(dir: &Path, extra: &[&str], code: i32) -> serde_json::Value {
+    let mut args: Vec<super::Arg> =
+        vec![&"prove", &"r.v", &"c.v", &"--port-map", &"m.map", &"--json"];
+    args.extend(extra.iter().map(|a| a as super::Arg));
+    super::cli_json(Some(dir), &args, code)
 }
 
 /// A hand-written testbench: reference ports driven by the reference's names, candidate ports
@@ -104,8 +91,7 @@ fn renamed_ports_of_clocked_designs_pair_by_the_port_map() {
     let icarus = common::iverilog_available();
 
     // The equal pair: proved, the renamed ports reported as runs, the inverted register paired.
-    let (code, v, err) = prove(dir.path(), &["--testbench", "tb_eq.v"]);
-    assert_eq!(code, 0, "{v}\n{err}");
+    let v = prove(dir.path(), &["--testbench", "tb_eq.v"], 0);
     assert_eq!(v["verdict"], "equivalent");
     let runs: Vec<String> = v["paired"]
         .as_array()
@@ -166,11 +152,11 @@ fn renamed_ports_of_clocked_designs_pair_by_the_port_map() {
 
     // The mutant: a trace whose inputs carry both designs' names.
     std::fs::write(dir.path().join("c.v"), candidate(true)).unwrap();
-    let (code, v, err) = prove(
+    let v = prove(
         dir.path(),
         &["--testbench", "tb_bug.v", "--report", "rep.json"],
+        1,
     );
-    assert_eq!(code, 1, "{v}\n{err}");
     let t = &v["trace"];
     let fd = &t["first_difference"];
     let cycle = fd["cycle"].as_u64().unwrap();
@@ -231,25 +217,25 @@ fn renamed_ports_of_clocked_designs_pair_by_the_port_map() {
         assert!(out.contains("equicone testbench: 1 of"), "{out}");
     }
     // eval steps the candidate through the trace by its own names.
-    let o = Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .current_dir(dir.path())
-        .args(["eval", "c.v", "--trace", "rep.json", "--side", "candidate"])
-        .output()
-        .unwrap();
-    let out = String::from_utf8_lossy(&o.stdout);
-    assert!(
-        o.status.success(),
-        "{out}{}",
-        String::from_utf8_lossy(&o.stderr)
+    let (out, _) = super::cli(
+        Some(dir.path()),
+        &[
+            &"eval",
+            &"c.v",
+            &"--trace",
+            &"rep.json",
+            &"--side",
+            &"candidate",
+        ],
+        0,
     );
     assert!(out.contains(&format!("cycle {cycle}: q[3:0]=")), "{out}");
     // The text report's table heads renamed buses with both names.
-    let o = Command::new(env!("CARGO_BIN_EXE_equicone"))
-        .current_dir(dir.path())
-        .args(["prove", "r.v", "c.v", "--port-map", "m.map"])
-        .output()
-        .unwrap();
-    let text = String::from_utf8_lossy(&o.stdout);
+    let (text, _) = super::cli(
+        Some(dir.path()),
+        &[&"prove", &"r.v", &"c.v", &"--port-map", &"m.map"],
+        1,
+    );
     assert!(text.contains("d|din  en|enable"), "{text}");
     assert!(
         text.contains("  inputs   clk <-> ck, rst <-> reset, d[3:0] <-> din[0:3], en <-> enable"),

@@ -7,8 +7,8 @@
 //! Resets: with two events, the one the block's leading `if` tests is an asynchronous reset
 //! and its branch must give constants (the reset state); with one event, a leading `if` on a
 //! name containing `rst` or `reset` whose branch gives constants is a synchronous reset. A
-//! reset or clock must reach a top-level input port (checked when the design is built,
-//! `registers_begin`/`registers_finish`).
+//! reset or clock must reach a top-level input port, or a clock be a gate of one
+//! (`gated_clock.rs`); checked when the design is built (`registers_begin`/`registers_finish`).
 //!
 //! Variables assigned with `=` in a clocked block are registers only when something reads
 //! them before they are written (created on first use while resolving); a variable written
@@ -47,6 +47,8 @@ struct RegRec {
     clock: Lit,
     edge: Edge,
     clock_pos: Pos,
+    /// The clock's net bit as written in the event list (for a gated clock's warning).
+    clock_name: Option<String>,
     reset: Option<ResetRec>,
     /// Assigned with `=`: a register only if something reads it.
     lazy: bool,
@@ -334,6 +336,7 @@ impl Elaborator<'_> {
         let broken = found.is_none();
         let (clock, edge, clock_pos, mut reset) =
             found.unwrap_or((Lit::FALSE, Edge::Rising, pos, None));
+        let clock_name = self.plain_leaf(clock).map(|k| self.core.leaf_name(k));
         // The reset branch: constants for the registers it assigns.
         let mut reset_values: BTreeMap<(u32, u32), bool> = BTreeMap::new();
         if let Some((_, t, asynchronous, _)) = reset {
@@ -437,6 +440,7 @@ impl Elaborator<'_> {
                         clock,
                         edge,
                         clock_pos,
+                        clock_name: clock_name.clone(),
                         reset: r,
                         lazy,
                         broken,
@@ -548,12 +552,31 @@ impl Elaborator<'_> {
         }
     }
 
+    /// The ports that clock registers directly (of the registers assigned with `<=`).
+    fn plain_clocks(&mut self, r: &mut Resolver, todo: &[(usize, usize)]) -> BTreeSet<usize> {
+        let mut out = BTreeSet::new();
+        for &(i, _) in todo {
+            let rec = &self.lowering.clocked.regs[i];
+            if rec.broken {
+                continue;
+            }
+            let c = rec.clock;
+            let c = self.resolve(r, c);
+            if let Some((k, _)) = port_bit(r, c) {
+                out.insert(k);
+            }
+        }
+        out
+    }
+
     /// After the outputs: each register's next value, clock and reset in the design's graph.
     pub(in crate::front::verilog::elaborate) fn registers_finish(
         &mut self,
         r: &mut Resolver,
     ) -> Vec<Register> {
         let mut todo: Vec<(usize, usize)> = std::mem::take(&mut self.lowering.clocked.eager);
+        let plain = self.plain_clocks(r, &todo);
+        let mut warned = BTreeSet::new();
         let mut out = Vec::new();
         let mut at = 0;
         loop {
@@ -570,24 +593,32 @@ impl Elaborator<'_> {
             if rec.broken {
                 continue;
             }
-            let next = self.resolve(r, rec.next);
+            let mut next = self.resolve(r, rec.next);
             let clock = self.resolve(r, rec.clock);
-            let Some((cin, cinv)) = port_bit(r, clock) else {
-                let nm = r.inputs[input].name.clone();
-                self.core.error(
-                    rec.clock_pos,
-                    format!("unsupported: the clock of register `{nm}` is not a top-level input port (a derived or gated clock)"),
-                    "clock registers from an input port of the top module; compare clock gating as logic (an enable)",
-                );
-                continue;
-            };
-            let edge = match (rec.edge, cinv) {
-                (Edge::Rising, false) | (Edge::Falling, true) => ClockEdge::Rising,
-                _ => ClockEdge::Falling,
+            let (cin, edge, gated) = match port_bit(r, clock) {
+                Some((cin, cinv)) => {
+                    let edge = match (rec.edge, cinv) {
+                        (Edge::Rising, false) | (Edge::Falling, true) => ClockEdge::Rising,
+                        _ => ClockEdge::Falling,
+                    };
+                    (cin, edge, false)
+                }
+                None => {
+                    match self.gated_clock(r, input, clock, &gate_of(&rec), &plain, &mut warned) {
+                        Some(g) => {
+                            let cur = r.design_aig.input_lit(input);
+                            next = r.design_aig.mux(g.enable, next, cur);
+                            (g.port, g.edge, true)
+                        }
+                        None => continue,
+                    }
+                }
             };
             let mut init = None;
             let mut reset = None;
-            if let Some(rs) = rec.reset {
+            // A gated register's synchronous reset acts only where the enable lets the clock
+            // through: whether it gives a reset state is left to `infer_sync_resets`.
+            if let Some(rs) = rec.reset.filter(|rs| rs.asynchronous || !gated) {
                 let cond = self.resolve(r, rs.cond);
                 match port_bit(r, cond) {
                     Some((k, inv)) => {
@@ -627,6 +658,15 @@ impl Elaborator<'_> {
         out.sort_by_key(|g| g.input);
         super::sync_reset::infer_sync_resets(r, &mut out);
         out
+    }
+}
+
+/// What the reading of a gated clock needs of a register.
+fn gate_of(rec: &RegRec) -> super::gated_clock::ClockAt<'_> {
+    super::gated_clock::ClockAt {
+        posedge: rec.edge == Edge::Rising,
+        pos: rec.clock_pos,
+        name: rec.clock_name.as_deref(),
     }
 }
 

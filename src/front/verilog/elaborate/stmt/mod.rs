@@ -15,6 +15,7 @@ mod always;
 mod call;
 mod clocked;
 mod coverage;
+mod gated_clock;
 mod qualified;
 mod sensitivity;
 mod sync_reset;

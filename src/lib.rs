@@ -16,6 +16,7 @@
 pub mod aig;
 pub mod algebra;
 pub mod assume;
+pub(crate) mod bitrun;
 pub(crate) mod certify;
 pub mod check;
 #[doc(hidden)]

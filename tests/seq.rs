@@ -11,6 +11,8 @@ mod clocks;
 mod common;
 #[path = "seq/exact.rs"]
 mod exact;
+#[path = "seq/flags.rs"]
+mod flags;
 #[path = "seq/gated.rs"]
 mod gated;
 #[path = "oracle/mod.rs"]

@@ -261,6 +261,15 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
         }
         c
     });
+    let mut notes = Vec::new();
+    if let Some(e) = across_cycles
+        .as_ref()
+        .and_then(|c| c.exact.as_ref().map(|e| (c, e)))
+    {
+        let audited: std::collections::BTreeSet<&str> =
+            audits.iter().map(|o| o.name.as_str()).collect();
+        notes = across_cycle_flags(design, e, &audited, all_outputs, &mut flags);
+    }
     let inputs = design
         .inputs
         .iter()
@@ -291,6 +300,7 @@ pub fn audit(design: &Design, opts: &AuditOptions, limits: &Limits) -> AuditRepo
         inputs,
         outputs: audits,
         flags,
+        notes,
         stats,
         text_evidence: opts.text_evidence,
         shard,
@@ -319,6 +329,101 @@ fn keep_used_across_cycles(flags: &mut Vec<Flag>, d: &Design, c: &crate::seq::Cy
     }
     flags
         .retain(|f| !matches!(f, Flag::UnusedInput { input, .. } if used.contains(input.as_str())));
+}
+
+/// The findings of the exact cone across cycles (`e`: the structural cones and the exact ones)
+/// as flags on the audited outputs: an input that reaches an output and never changes it in any
+/// cycle from reset (not for a pair the one-cycle audit already flags redundant with no
+/// register on the way), and, when every output is audited, the exact dead registers (their
+/// `unused input` flags of the one-cycle audit dropped: the dead-register flag says more).
+/// Returns the notes: inputs that do not change an output in the cycles unrolled, which is
+/// no proof for later cycles, so no flag.
+fn across_cycle_flags(
+    d: &Design,
+    (c, e): (&crate::seq::CycleCones, &crate::seq::ExactCones),
+    audited: &std::collections::BTreeSet<&str>,
+    all_outputs: bool,
+    flags: &mut Vec<Flag>,
+) -> Vec<String> {
+    use crate::seq::Influence;
+    // Per register, the inputs (names) its next value reads.
+    let loads: Vec<Vec<&str>> = d
+        .registers
+        .iter()
+        .map(|r| {
+            d.aig
+                .cone_inputs(&[r.next])
+                .into_iter()
+                .map(|k| d.inputs[k as usize].name.as_str())
+                .collect()
+        })
+        .collect();
+    let unknown: std::collections::BTreeSet<&str> = d
+        .inputs
+        .iter()
+        .filter(|b| b.is_unknown())
+        .map(|b| b.name.as_str())
+        .collect();
+    let mut notes = Vec::new();
+    for (sc, ec) in c.outputs.iter().zip(&e.outputs) {
+        if !audited.contains(sc.output.as_str()) {
+            continue;
+        }
+        for i in &ec.inputs {
+            if unknown.contains(i.input.as_str()) {
+                continue;
+            }
+            match i.influence {
+                Influence::Never => {
+                    let direct = sc.inputs.get(&i.input) == Some(&0);
+                    let registers: Vec<String> = d
+                        .registers
+                        .iter()
+                        .zip(&loads)
+                        .filter(|(r, l)| {
+                            sc.registers.contains_key(&r.name) && l.contains(&i.input.as_str())
+                        })
+                        .map(|(r, _)| r.name.clone())
+                        .collect();
+                    let known = flags.iter().any(|f| {
+                        matches!(f, Flag::RedundantInput { output, input, .. }
+                            if *output == sc.output && *input == i.input)
+                    });
+                    if known && registers.is_empty() {
+                        continue;
+                    }
+                    flags.push(Flag::RedundantAcrossCycles {
+                        output: sc.output.clone(),
+                        input: i.input.clone(),
+                        direct,
+                        registers,
+                    });
+                }
+                Influence::NotWithinBound => notes.push(format!(
+                    "{} does not change {} in the first {} cycles from reset (UNSAT in each), and later cycles are not covered: not flagged",
+                    i.input, sc.output, e.cycles
+                )),
+                Influence::Depends | Influence::Undecided => {}
+            }
+        }
+    }
+    if all_outputs {
+        let dead: std::collections::BTreeSet<&str> = e
+            .dead_registers
+            .iter()
+            .map(|r| r.register.as_str())
+            .collect();
+        flags.retain(
+            |f| !matches!(f, Flag::UnusedInput { input, .. } if dead.contains(input.as_str())),
+        );
+        for r in &e.dead_registers {
+            flags.push(Flag::DeadRegister {
+                register: r.register.clone(),
+                why: r.why.clone(),
+            });
+        }
+    }
+    notes
 }
 
 /// Report order of the proofs of redundancy: SAT answers first, then structural ones.

@@ -25,6 +25,10 @@ pub struct AuditReport {
     pub outputs: Vec<OutputAudit>,
     /// Everything a designer should look at.
     pub flags: Vec<Flag>,
+    /// Findings that are not proofs and so not flags: on a clocked design, an input that does
+    /// not change an output in the cycles unrolled from reset, later cycles not covered.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub notes: Vec<String>,
     /// How the claims were decided.
     pub stats: SupportStats,
     /// Whether the text form lists every claim with its evidence.
@@ -224,5 +228,27 @@ pub enum Flag {
         output: String,
         /// The output whose support holds it.
         of: String,
+    },
+    /// Clocked designs: the input reaches the output (in the same cycle or through registers)
+    /// and never changes it, in any cycle of any run from reset (the exact cone across
+    /// cycles: no chain of exact one-cycle dependences leads from it to the output).
+    RedundantAcrossCycles {
+        /// The output.
+        output: String,
+        /// The input.
+        input: String,
+        /// Whether it is in the output's cone of the same cycle.
+        direct: bool,
+        /// The registers in the output's cone that it loads, in design order.
+        registers: Vec<String>,
+    },
+    /// Clocked designs: a register bit that never influences an output (the exact cone across
+    /// cycles: constant in every state reachable from reset, or no chain of exact one-cycle
+    /// dependences to an output).
+    DeadRegister {
+        /// The register bit.
+        register: String,
+        /// `constant 0`, `constant 1` or `reaches no output`.
+        why: String,
     },
 }

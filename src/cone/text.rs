@@ -4,6 +4,7 @@
 use super::report::{AuditReport, ClaimVerdict, Flag, OutputAudit};
 use super::structural::GraphSource;
 use super::support::{DependsBy, IndependentBy};
+use crate::bitrun::{extends, join_runs, run_label, run_name};
 use std::fmt;
 
 impl fmt::Display for AuditReport {
@@ -67,6 +68,9 @@ impl fmt::Display for AuditReport {
             for line in flag_lines(&self.flags) {
                 writeln!(f, "  {line}")?;
             }
+        }
+        for note in &self.notes {
+            writeln!(f, "note: {note}")?;
         }
         let verdict = if self.flagged() {
             format!("{} flagged", self.flags.len())
@@ -258,40 +262,19 @@ enum Line<'a> {
         inputs: Vec<&'a str>,
         connected: bool,
     },
+    /// An input that never changes the outputs across cycles (one input, one way in).
+    Across {
+        outputs: Vec<&'a str>,
+        input: &'a str,
+        direct: bool,
+        registers: &'a [String],
+    },
+    /// Dead registers with one reason.
+    Dead {
+        registers: Vec<&'a str>,
+        why: &'a str,
+    },
     Other(&'a Flag),
-}
-
-/// Whether `b` is the next bit of the run `run` of one bus (same port, index one past the last
-/// one, in the run's direction).
-fn extends(run: &[&str], b: &str) -> bool {
-    let split = crate::design::split_bit;
-    let (p, i) = split(b);
-    let Some(i) = i else { return false };
-    let (lp, Some(li)) = split(run[run.len() - 1]) else {
-        return false;
-    };
-    if lp != p || (i - li).abs() != 1 {
-        return false;
-    }
-    match run.len() {
-        1 => true,
-        _ => {
-            let (_, Some(pi)) = split(run[run.len() - 2]) else {
-                return false;
-            };
-            i - li == li - pi
-        }
-    }
-}
-
-/// `y[0..7]` for a run of bits of one bus, the name for one bit.
-fn run_name(run: &[&str]) -> String {
-    let (p, first) = crate::design::split_bit(run[0]);
-    let (_, last) = crate::design::split_bit(run[run.len() - 1]);
-    match (first, last) {
-        (Some(a), Some(b)) if run.len() > 1 => format!("{p}[{a}..{b}]"),
-        _ => run[0].to_string(),
-    }
 }
 
 /// The flags as text lines, with repeats grouped: the redundant inputs of one output and one
@@ -334,6 +317,43 @@ fn flag_lines(flags: &[Flag]) -> Vec<String> {
                 lines.push(Line::Unused {
                     inputs: vec![input],
                     connected: *connected,
+                });
+            }
+            Flag::RedundantAcrossCycles {
+                output,
+                input,
+                direct,
+                registers,
+            } => {
+                if let Some(Line::Across {
+                    outputs,
+                    input: i,
+                    direct: d,
+                    registers: r,
+                }) = lines.last_mut()
+                {
+                    if i == input && d == direct && *r == registers && extends(outputs, output) {
+                        outputs.push(output);
+                        continue;
+                    }
+                }
+                lines.push(Line::Across {
+                    outputs: vec![output],
+                    input,
+                    direct: *direct,
+                    registers,
+                });
+            }
+            Flag::DeadRegister { register, why } => {
+                if let Some(Line::Dead { registers, why: w }) = lines.last_mut() {
+                    if w == why && extends(registers, register) {
+                        registers.push(register);
+                        continue;
+                    }
+                }
+                lines.push(Line::Dead {
+                    registers: vec![register],
+                    why,
                 });
             }
             other => lines.push(Line::Other(other)),
@@ -379,7 +399,7 @@ fn flag_lines(flags: &[Flag]) -> Vec<String> {
                     (outputs[0].to_string(), "does", "its cone")
                 } else {
                     (
-                        format!("{} ({} bits)", run_name(&outputs), outputs.len()),
+                        run_label(&outputs),
                         "do",
                         "each one's cone",
                     )
@@ -391,11 +411,7 @@ fn flag_lines(flags: &[Flag]) -> Vec<String> {
                 )
             }
             Line::Unused { inputs, connected } => {
-                let who = if inputs.len() == 1 {
-                    inputs[0].to_string()
-                } else {
-                    format!("{} ({} bits)", run_name(&inputs), inputs.len())
-                };
+                let who = run_label(&inputs);
                 let (noun, verb) = if inputs.len() == 1 {
                     ("input", "reaches")
                 } else {
@@ -409,6 +425,39 @@ fn flag_lines(flags: &[Flag]) -> Vec<String> {
                 } else {
                     format!("unused inputs: {who} are not connected to any output")
                 }
+            }
+            Line::Across {
+                outputs,
+                input,
+                direct,
+                registers,
+            } => {
+                let regs: Vec<(String, String)> =
+                    registers.iter().map(|r| (r.clone(), String::new())).collect();
+                let regs = join_runs(&regs, run_name).join(", ");
+                let through = format!("through register{} {regs}", plural(registers.len()));
+                let way = match (direct, registers.is_empty()) {
+                    (true, true) => "directly".to_string(),
+                    (true, false) => format!("directly and {through}"),
+                    (false, _) => through,
+                };
+                let them = if outputs.len() == 1 { "it" } else { "them" };
+                format!(
+                    "redundant across cycles: {input} reaches {} {way} and never changes {them} in any cycle from reset (no chain of exact one-cycle dependences)",
+                    run_label(&outputs)
+                )
+            }
+            Line::Dead { registers, why } => {
+                let (noun, verb, is) = if registers.len() == 1 {
+                    ("register", "reaches", "is")
+                } else {
+                    ("registers", "reach", "are")
+                };
+                let what = match why {
+                    "reaches no output" => format!("{verb} no output in any cycle from reset"),
+                    other => format!("{is} {other} in every state reachable from reset"),
+                };
+                format!("dead {noun}: {} {what}", run_label(&registers))
             }
             Line::Other(fl) => flag_text(fl),
         })
@@ -455,5 +504,10 @@ fn flag_text(fl: &Flag) -> String {
         Flag::SubsetSupport { output, of } => format!(
             "support subset: the support of {output} is a strict subset of that of {of}, which the expectation does not say"
         ),
+        // Written by `flag_lines` itself (grouped).
+        Flag::RedundantAcrossCycles { output, input, .. } => {
+            format!("redundant across cycles: {input} never changes {output}")
+        }
+        Flag::DeadRegister { register, why } => format!("dead register: {register} ({why})"),
     }
 }

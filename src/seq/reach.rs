@@ -5,6 +5,7 @@
 //! that the value matters (the one-cycle audit of `cone` decides that within a cycle).
 
 use crate::aig::{Lit, Marks, Node};
+use crate::bitrun::{bit_order, join_runs, run_label, run_name};
 use crate::design::{Design, InputKind};
 use serde::Serialize;
 use std::collections::{BTreeMap, VecDeque};
@@ -129,28 +130,46 @@ impl std::fmt::Display for CycleCones {
             f,
             "across clock cycles (structural): per output, each input with the fewest cycles after which it can matter"
         )?;
-        for c in &self.outputs {
-            let ins: Vec<String> = c.inputs.iter().map(|(n, l)| format!("{n}@{l}")).collect();
-            writeln!(
-                f,
-                "  {}: {} (through {} register bits)",
-                c.output,
-                if ins.is_empty() {
+        let lines: Vec<(String, String)> = self
+            .outputs
+            .iter()
+            .map(|c| {
+                let mut ins: Vec<(String, String)> = c
+                    .inputs
+                    .iter()
+                    .map(|(n, l)| (n.clone(), format!("@{l}")))
+                    .collect();
+                ins.sort_by(|a, b| bit_order(&a.0, &b.0));
+                let ins = join_runs(&ins, run_name);
+                let rhs = if ins.is_empty() {
                     "no inputs".to_string()
                 } else {
                     ins.join(", ")
-                },
-                c.registers.len()
-            )?;
+                };
+                let n = c.registers.len();
+                (
+                    c.output.clone(),
+                    format!(": {rhs} (through {n} register bit{})", plural(n)),
+                )
+            })
+            .collect();
+        for line in join_runs(&lines, run_label) {
+            writeln!(f, "  {line}")?;
         }
         if self.dead_registers.is_empty() {
             writeln!(f, "dead registers: none")?;
         } else {
+            // In the design's register order (a bus from its lowest bit).
+            let dead: Vec<(String, String)> = self
+                .dead_registers
+                .iter()
+                .map(|r| (r.clone(), String::new()))
+                .collect();
             writeln!(
                 f,
                 "dead registers ({}, reach no output in any cycle): {}",
                 self.dead_registers.len(),
-                self.dead_registers.join(", ")
+                join_runs(&dead, run_name).join(", ")
             )?;
         }
         match (&self.exact, &self.exact_not_built) {
@@ -158,6 +177,15 @@ impl std::fmt::Display for CycleCones {
             (None, Some(why)) => writeln!(f, "across clock cycles (exact): {why}"),
             (None, None) => Ok(()),
         }
+    }
+}
+
+/// `s` for counts other than one.
+pub(super) fn plural(n: usize) -> &'static str {
+    if n == 1 {
+        ""
+    } else {
+        "s"
     }
 }
 

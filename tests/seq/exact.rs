@@ -144,7 +144,7 @@ fn brute_force(net: &SeqNet, cycles: usize, free_init: bool) -> BTreeMap<(String
     out
 }
 
-fn exact(d: &Design, cycles: usize, init_unset: InitUnset) -> ExactCones {
+pub(super) fn exact(d: &Design, cycles: usize, init_unset: InitUnset) -> ExactCones {
     let c = seq::cycle_cones(d);
     equicone::cone::exact_across_cycles(
         d,
@@ -339,7 +339,7 @@ endmodule
 /// A testbench running, for every "depends" claim, both input sequences of its evidence on
 /// two instances of the design from reset, printing `E<n> <run 0> <run 1>` in the observed
 /// cycle; returns it with the expected lines.
-fn icarus_bench(d: &Design, module: &str, e: &ExactCones) -> (String, Vec<String>) {
+pub(super) fn icarus_bench(d: &Design, module: &str, e: &ExactCones) -> (String, Vec<String>) {
     let held: BTreeMap<&str, (bool, &str)> = e
         .held
         .iter()

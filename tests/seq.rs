@@ -15,6 +15,8 @@ mod exact;
 mod flags;
 #[path = "seq/gated.rs"]
 mod gated;
+#[path = "seq/initial.rs"]
+mod initial;
 #[path = "oracle/mod.rs"]
 mod oracle;
 #[path = "seq/portmap.rs"]

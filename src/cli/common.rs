@@ -123,10 +123,12 @@ impl DesignArgs {
             top: self.top.clone(),
             preprocess: self.pre.options(),
         };
-        front::load(&src, &FileSystem).map_err(|e| {
+        let d = front::load(&src, &FileSystem).map_err(|e| {
             bar.finish_and_clear();
             report_input_error(&e)
-        })
+        })?;
+        bar.suspend(|| show_warnings(&d));
+        Ok(d)
     }
 
     /// `d` (read from these options) read again as written, for the cone audit's structural
@@ -155,7 +157,17 @@ impl DesignArgs {
     pub fn load_within(&self, limits: &Limits) -> Result<Design, Exit> {
         let mut paths = vec![self.path.clone()];
         paths.extend(self.also.iter().cloned());
-        load_within(paths, self.format, self.top.clone(), &self.pre, limits)
+        let d = load_within(paths, self.format, self.top.clone(), &self.pre, limits)?;
+        show_warnings(&d);
+        Ok(d)
+    }
+}
+
+/// The reader's warnings about a design read alone (`cone`, `stats`, `routes`, `eval`), on
+/// standard error; `prove` puts them in its report instead.
+fn show_warnings(d: &Design) {
+    for w in &d.warnings {
+        eprintln!("{w}");
     }
 }
 

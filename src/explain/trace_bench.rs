@@ -322,7 +322,9 @@ pub fn trace_testbench(r: &TbDesign, c: &TbDesign, t: &Trace) -> Result<Testbenc
     ] {
         for (k, reg) in d.registers.iter().enumerate() {
             let v = match reg.init {
-                Some(_) if !gen => continue,
+                // Reset gave it its value; one without a reset (a power-on value) is set
+                // again after the reset edge, which clocked it.
+                Some(_) if !gen && reg.reset.is_some() => continue,
                 Some(v) => v,
                 None => t
                     .reset

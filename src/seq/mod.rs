@@ -393,16 +393,21 @@ fn build_trace(
             value,
         });
     }
-    let start = match init_unset {
-        InitUnset::Free => {
-            "registers with a reset start at their reset value, the others at the values listed"
-        }
-        InitUnset::Value(false) => {
-            "registers with a reset start at their reset value, the others at 0 (--init-unset 0)"
-        }
-        InitUnset::Value(true) => {
-            "registers with a reset start at their reset value, the others at 1 (--init-unset 1)"
-        }
+    let others = match init_unset {
+        InitUnset::Free => "the others at the values listed",
+        InitUnset::Value(false) => "the others at 0 (--init-unset 0)",
+        InitUnset::Value(true) => "the others at 1 (--init-unset 1)",
+    };
+    // Power-on values (`initial`, `reg q = 0;`) are named only where a design has them.
+    let power_on = r
+        .registers
+        .iter()
+        .chain(&c.registers)
+        .any(|g| g.init.is_some() && g.reset.is_none());
+    let start = if power_on {
+        format!("registers with a reset start at their reset value, those with an initial value at it, {others}")
+    } else {
+        format!("registers with a reset start at their reset value, {others}")
     };
     let description = if p.clocks.is_empty() {
         format!("{start}; reset ports are held inactive and clocks at 0 in every cycle")

@@ -126,15 +126,18 @@ fn testbench(r: &Design, body: &str) -> String {
         tb += &format!("    {p} = 0;\n");
     }
     // Reset: asserted over one clock edge (a synchronous reset acts on it), then released.
+    // A design without a reset starts from its initial values: no edge before cycle 0.
     tb += "    #1;\n";
-    for (rs, active) in &resets {
-        tb += &format!("    {rs} = {};\n", u8::from(*active));
+    if !resets.is_empty() {
+        for (rs, active) in &resets {
+            tb += &format!("    {rs} = {};\n", u8::from(*active));
+        }
+        tb += &format!("    #1; {pulse}\n");
+        for (rs, active) in &resets {
+            tb += &format!("    {rs} = {};\n", u8::from(!*active));
+        }
+        tb += "    #1;\n";
     }
-    tb += &format!("    #1; {pulse}\n");
-    for (rs, active) in &resets {
-        tb += &format!("    {rs} = {};\n", u8::from(!*active));
-    }
-    tb += "    #1;\n";
     tb += body;
     tb += "  end\nendmodule\n";
     tb

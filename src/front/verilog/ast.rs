@@ -449,6 +449,9 @@ pub enum Item {
     GenIf(Box<(Expr, Vec<Item>, Vec<Item>)>),
     /// `function ... endfunction`.
     Function(Box<Function>),
+    /// `initial` block, or a variable's initial value in its declaration (`reg q = 0;` is
+    /// `initial q = 0;`): constants given at time 0.
+    Initial(Box<Stmt>, Pos),
 }
 
 /// A function declaration (IEEE 1364-2005 clause 10.4; the ANSI header and `return` of

@@ -425,6 +425,7 @@ impl<'s, 'n> Parser<'s, 'n> {
 
     fn ansi_ports(&mut self, m: &mut Module) -> ParseResult<()> {
         let mut cur: Option<Decl> = None;
+        let mut initial = Vec::new();
         loop {
             let t = self.peek().clone();
             let starts_decl = matches!(t.kind, TokenKind::Ident(k) if k == kw::INPUT || k == kw::OUTPUT || k == kw::INOUT);
@@ -455,6 +456,22 @@ impl<'s, 'n> Parser<'s, 'n> {
                 self.note_struct_names(&[(n, p, None)]);
             }
             m.ports.push((n, p));
+            if self.eat_p(Punct::Assign) {
+                // `output reg q = 0`: an output variable's initial value (IEEE 1364-2005
+                // clause 12.3.4, from memory), read as `initial q = 0;`.
+                let v = self.expr()?;
+                if d.dir != Some(Dir::Output) || d.ty == Some(NetType::Wire) {
+                    return Err(self.unsupported(
+                        p,
+                        "initial value of an input or net port (only an output variable, `output reg q = 0`, has one)",
+                    ));
+                }
+                let at = v.pos();
+                initial.push(Item::Initial(
+                    Box::new(Stmt::Assign(Expr::Ident(n, p), v, at)),
+                    p,
+                ));
+            }
             if !self.eat_p(Punct::Comma) {
                 break;
             }
@@ -462,6 +479,7 @@ impl<'s, 'n> Parser<'s, 'n> {
         if let Some(d) = cur {
             m.items.push(Item::Decl(Box::new(d)));
         }
+        m.items.extend(initial);
         Ok(())
     }
 
@@ -550,6 +568,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             // `supply1` nets are driven by the constants 0 and 1 (clause 4.6.7).
             let supply = [kw::SUPPLY0, kw::SUPPLY1].iter().position(|&x| x == k);
             let mut d = self.decl_head()?;
+            let mut initial = Vec::new();
             loop {
                 let (n, p) = self.ident("a name")?;
                 if self.peek_p(Punct::LBrack) {
@@ -562,13 +581,25 @@ impl<'s, 'n> Parser<'s, 'n> {
                 }
                 self.note_packed_name(n);
                 let init = if self.eat_p(Punct::Assign) {
-                    if d.ty != Some(NetType::Wire) || d.dir.is_some() {
+                    if d.dir.is_some() {
                         return Err(self.unsupported(
                             p,
-                            "initial value in a declaration (only `wire w = expr;` is supported)",
+                            "initial value in a port declaration (give it in the module: `initial q = 0;`, or in the port list: `output reg q = 0`)",
                         ));
                     }
-                    Some(Box::new(self.expr()?))
+                    let v = self.expr()?;
+                    if d.ty == Some(NetType::Wire) {
+                        Some(Box::new(v))
+                    } else {
+                        // A variable's initial value (IEEE 1364-2005 clause 6.2.1, from
+                        // memory): an assignment at time 0, as an `initial` block gives.
+                        let at = v.pos();
+                        initial.push(Item::Initial(
+                            Box::new(Stmt::Assign(Expr::Ident(n, p), v, at)),
+                            p,
+                        ));
+                        None
+                    }
                 } else {
                     None
                 };
@@ -588,6 +619,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             // A netlist declares a million names, most one per declaration: keep no spare room.
             d.names.shrink_to_fit();
             out.push(Item::Decl(Box::new(d)));
+            out.extend(initial);
         } else if self.peek_typedef() {
             self.module_typedef(out)?;
         } else if self.peek_import() {
@@ -677,10 +709,15 @@ impl<'s, 'n> Parser<'s, 'n> {
                     "`specify` blocks and `specparam`s are ignored (this is the first; they give timing, not logic)",
                 ));
             }
+        } else if k == kw::INITIAL {
+            // IEEE 1364-2005 clause 9.9.1 (from memory): run once at time 0. Read for the
+            // constants it gives: power-on values of registers and tables of constant words.
+            self.bump();
+            let body = self.stmt()?;
+            out.push(Item::Initial(Box::new(body), pos));
         } else if is_keyword(k) {
             let n = self.names.name(k).to_string();
             let what = match n.as_str() {
-                "initial" => "`initial` block".to_string(),
                 "task" => "task declaration".to_string(),
                 "begin" => "`begin` block outside a generate loop or condition".to_string(),
                 _ => format!("`{n}`"),
@@ -696,11 +733,8 @@ impl<'s, 'n> Parser<'s, 'n> {
                 self.skip_past(e);
                 return Ok(());
             }
-            if n == "initial" || n == "begin" {
+            if n == "begin" {
                 // The whole block, so that its statements give no follow-on errors.
-                if n == "initial" {
-                    self.bump();
-                }
                 self.skip_statement();
                 return Ok(());
             }

@@ -204,6 +204,7 @@ pub fn elaborate(
     };
     let scope = flatten::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
     e.lowering.clocked.check_blocks(&mut e.core);
+    e.lowering.clocked.apply_initial(&mut e.core);
     log::debug!(
         "verilog: flattened: {} nets, {} net bits, {} AND nodes; memory {}",
         e.core.nets.len(),

@@ -432,6 +432,7 @@ impl<'a> Elaborator<'a> {
                 Item::Gate(k, t, p) => self.gate(scope, *k, t, *p),
                 Item::Inst(i) => self.instance(scope, i),
                 Item::Always(b, p) => self.elab_always(scope, b, *p),
+                Item::Initial(b, p) => self.elab_initial(scope, b, *p),
                 Item::GenFor(g) => {
                     genblk += 1;
                     self.gen_for(scope, g, m, genblk);

@@ -77,6 +77,8 @@ pub(crate) struct Clocked {
     reached: Vec<(usize, usize)>,
     /// Eager registers with their input numbers.
     eager: Vec<(usize, usize)>,
+    /// Constants `initial` blocks give, by leaf, with where (`initial.rs`).
+    pub(super) initial: BTreeMap<u32, (bool, Pos)>,
 }
 
 /// The leading `if` of a block body (inside a `begin`/`end` holding only it).
@@ -578,6 +580,9 @@ impl Elaborator<'_> {
         let plain = self.plain_clocks(r, &todo);
         let mut warned = BTreeSet::new();
         let mut out = Vec::new();
+        // Initial values (`initial.rs`), by register input: the reset state of registers
+        // that have no reset.
+        let mut power_on = BTreeMap::new();
         let mut at = 0;
         loop {
             if at == todo.len() {
@@ -641,6 +646,9 @@ impl Elaborator<'_> {
                     None => {}
                 }
             }
+            if let Some(v) = self.lowering.clocked.initial_of(rec.leaf) {
+                power_on.insert(input, v);
+            }
             let bit = &r.inputs[input];
             out.push(Register {
                 name: bit.name.clone(),
@@ -657,6 +665,12 @@ impl Elaborator<'_> {
         }
         out.sort_by_key(|g| g.input);
         super::sync_reset::infer_sync_resets(r, &mut out);
+        for g in out
+            .iter_mut()
+            .filter(|g| g.init.is_none() && g.reset.is_none())
+        {
+            g.init = power_on.get(&g.input).copied();
+        }
         out
     }
 }

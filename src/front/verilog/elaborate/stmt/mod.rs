@@ -16,6 +16,7 @@ mod call;
 mod clocked;
 mod coverage;
 mod gated_clock;
+mod initial;
 mod qualified;
 mod sensitivity;
 mod sync_reset;

@@ -31,9 +31,10 @@ cli_enum! {
 cli_enum! {
     /// The proof engine (`--engine`).
     EngineArg => EngineKind {
-        /// The portfolio: exhaustive simulation for output groups with small supports, BDDs within
-        /// a node limit, BDD sweeping with cut points, then SAT sweeping for the rest on the
-        /// merged graph (the method of each pair is reported).
+        /// The portfolio: word polynomials for arithmetic output buses, exhaustive simulation for
+        /// output groups with small supports, BDDs within a node limit, BDD sweeping with cut
+        /// points, then SAT sweeping for the rest (on the BDD sweep's merged graph when that
+        /// decided some pair; the method of each pair is reported).
         Portfolio,
         /// Simulation, SAT sweeping of internal nodes (merging proved pairs), then per output pair
         /// the same literal or an XOR query; independent output cones on several threads.

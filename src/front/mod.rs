@@ -85,13 +85,31 @@ pub fn load_until(
             )
             .into()),
         };
+    let clock = std::time::Instant::now();
+    let done = |d: Result<Design, ReadError>| {
+        if let Ok(d) = &d {
+            log::debug!(
+                "read `{}`: {} inputs, {} AND nodes, by {:.2?}; memory {}",
+                first.display(),
+                d.inputs.len(),
+                d.aig.num_ands(),
+                clock.elapsed(),
+                crate::host::now_note()
+            );
+        }
+        d
+    };
     if format == Format::Bench && src.paths.len() == 1 && src.top.is_none() {
         // One bench file: the reader takes the text and drops it early.
         let text = files.read_text(first, stop)?;
         if stop() {
             return Err(ReadError::Stopped(first.display().to_string()));
         }
-        return bench::read_bench_text(&Arc::from(first.display().to_string()), text, stop);
+        return done(bench::read_bench_text(
+            &Arc::from(first.display().to_string()),
+            text,
+            stop,
+        ));
     }
     let mut texts = Vec::with_capacity(src.paths.len());
     for p in &src.paths {
@@ -115,7 +133,7 @@ pub fn load_until(
     if stop() {
         return Err(ReadError::Stopped(first.display().to_string()));
     }
-    Ok(d)
+    done(Ok(d))
 }
 
 /// Read a design from texts already in memory (`(file name, text)` pairs); a Verilog

@@ -212,8 +212,8 @@ pub struct Decl {
     pub ty: Option<NetType>,
     /// `signed`
     pub signed: bool,
-    /// The range, if a vector.
-    pub range: Option<Range>,
+    /// The range, if a vector (boxed: most declarations of a netlist have none).
+    pub range: Option<Box<Range>>,
     /// Declared names, with an optional `= expr` (net declaration assignment).
     /// (Boxed: most names have none, and a netlist declares a million names.)
     pub names: Vec<(Sym, Pos, Option<Box<Expr>>)>,

@@ -118,7 +118,13 @@ fn read_inner(
 ) -> Result<Design, InputError> {
     // IEEE 1364-2005 clause 19: the preprocessor runs first, over all files in order (a
     // macro defined in one file is in force in the next).
+    let clock = std::time::Instant::now();
     let pre = preprocess::preprocess(sources, paths, opts, files);
+    log::debug!(
+        "verilog: preprocessed by {:.2?}; memory {}",
+        clock.elapsed(),
+        crate::host::now_note()
+    );
     if !pre.errors.is_empty() {
         return Err(InputError {
             diagnostics: pre.errors,
@@ -142,6 +148,13 @@ fn read_inner(
         errs.sort_by_key(|e| (e.pos.file != k as u32, e.pos.file, e.pos.line, e.pos.col));
         diags.extend(errs.iter().map(|e| e.diagnostic(&files)));
     }
+    log::debug!(
+        "verilog: parsed {} module(s), {} names, by {:.2?}; memory {}",
+        mods.len(),
+        names.len(),
+        clock.elapsed(),
+        crate::host::now_note()
+    );
     if !diags.is_empty() {
         return Err(InputError { diagnostics: diags });
     }
@@ -154,6 +167,13 @@ fn read_inner(
         warnings.append(&mut d.warnings);
         d.warnings = warnings;
     }
+    log::debug!(
+        "verilog: elaborated by {:.2?}: {} inputs, {} AND nodes; memory {}",
+        clock.elapsed(),
+        d.inputs.len(),
+        d.aig.num_ands(),
+        crate::host::now_note()
+    );
     Ok(d)
 }
 

@@ -113,11 +113,11 @@ impl Parser<'_, '_> {
         let Some(first) = d.range.take() else {
             return Ok(());
         };
-        let mut dims = vec![first];
+        let mut dims = vec![*first];
         while self.peek_p(Punct::LBrack) {
             dims.push(self.range()?);
         }
-        d.range = Some(flat_range(&dims, d.pos));
+        d.range = Some(Box::new(flat_range(&dims, d.pos)));
         self.sv.decl_packed = Some(dims);
         Ok(())
     }
@@ -180,7 +180,7 @@ impl Parser<'_, '_> {
         }
         let packed: Vec<Range> = match (&self.sv.decl_packed, &d.range, d.ty) {
             (Some(dims), _, _) => dims.clone(),
-            (None, Some(r), _) => vec![r.clone()],
+            (None, Some(r), _) => vec![(**r).clone()],
             (None, None, Some(NetType::Integer)) => vec![Range {
                 msb: num(31, p),
                 lsb: num(0, p),
@@ -198,7 +198,7 @@ impl Parser<'_, '_> {
             dir: None,
             ty,
             signed: d.signed,
-            range: Some(flat_range(&dims, p)),
+            range: Some(Box::new(flat_range(&dims, p))),
             names: vec![(n, p, None)],
             pos: d.pos,
         };

@@ -71,7 +71,7 @@ impl Parser<'_, '_> {
                 d.signed = true;
             }
             if self.peek_p(Punct::LBrack) {
-                d.range = Some(self.range()?);
+                d.range = Some(Box::new(self.range()?));
                 self.packed_dims(&mut d)?;
             }
         }
@@ -101,7 +101,7 @@ impl Parser<'_, '_> {
             NetType::Logic
         });
         d.signed = td.signed;
-        d.range = td.range.clone();
+        d.range = td.range.clone().map(Box::new);
         if td.fields.is_some() {
             self.sv.decl_struct = Some(td);
         }

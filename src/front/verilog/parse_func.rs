@@ -135,7 +135,7 @@ impl Parser<'_, '_> {
             d.signed = true;
         }
         if self.peek_p(Punct::LBrack) {
-            d.range = Some(self.range()?);
+            d.range = Some(Box::new(self.range()?));
             self.refuse_packed_dims()?;
         }
         Ok(d)

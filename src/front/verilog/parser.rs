@@ -368,6 +368,7 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
         }
         self.types_leave_module(&mut m.items);
+        m.items.shrink_to_fit();
         Some(m)
     }
 
@@ -615,6 +616,8 @@ impl<'s, 'n> Parser<'s, 'n> {
             }
             self.note_struct_names(&d.names);
             self.expect_p(Punct::Semi, "`;` after the declaration")?;
+            // A netlist declares a million names, most one per declaration: keep no spare room.
+            d.names.shrink_to_fit();
             out.push(Item::Decl(Box::new(d)));
             out.extend(initial);
         } else if self.peek_typedef() {

@@ -138,6 +138,16 @@ impl Interner {
         }
     }
 
+    /// How many names (keywords included) are interned.
+    pub fn len(&self) -> usize {
+        self.ends.len()
+    }
+
+    /// Whether no name is interned (never, once the keywords are in).
+    pub fn is_empty(&self) -> bool {
+        self.ends.is_empty()
+    }
+
     /// The symbol of `name` if it was ever interned.
     pub fn get(&self, name: &str) -> Option<Sym> {
         let k = self.slot(name, hash(name));

@@ -205,6 +205,13 @@ pub fn elaborate(
     let scope = flatten::elab_instance(&mut e, top_mod, String::new(), Vec::new(), top_mod.pos);
     e.lowering.clocked.check_blocks(&mut e.core);
     e.lowering.clocked.apply_initial(&mut e.core);
+    log::debug!(
+        "verilog: flattened: {} nets, {} net bits, {} AND nodes; memory {}",
+        e.core.nets.len(),
+        e.core.owner.len(),
+        e.core.aig.num_ands(),
+        crate::host::now_note()
+    );
     // The syntax tree is no longer needed: free it before the design is built.
     let (top_name, top_ports, top_pos) = (top_mod.name, top_mod.ports.clone(), top_mod.pos);
     let mut e = e.detach(names, files);

@@ -289,6 +289,11 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
         }
     }
     let registers = e.registers_finish(&mut r);
+    log::debug!(
+        "verilog: design graph of {} AND nodes built; memory {}",
+        r.design_aig.num_ands(),
+        crate::host::now_note()
+    );
     let mut netlist = netlist(e, &r, &outputs_leaves(e, ports, scope));
     // The netlist as written holds no registers: not the whole design.
     netlist.complete &= registers.is_empty();
@@ -320,8 +325,11 @@ pub fn build(e: &mut Elaborator, top: Sym, ports: &[(Sym, Pos)], scope: u32) -> 
 /// net the resolver reached, in declaration order, those carrying the node itself before those
 /// carrying its complement (`~w`); at most [`NAMES_PER_NODE`] per node.
 fn net_names(e: &Elaborator, r: &Resolver) -> BTreeMap<u32, Vec<String>> {
-    let mut plain: BTreeMap<u32, Vec<String>> = BTreeMap::new();
-    let mut inverted: BTreeMap<u32, Vec<String>> = BTreeMap::new();
+    // (node, inverted, net, bit) per named bit, in declaration order; a stable sort by node
+    // and polarity keeps that order within each node's plain and inverted names. No name is
+    // written for a bit past the first few of its node, and each list is allocated at its
+    // length (a million-net design keeps a million of them).
+    let mut named: Vec<(u32, bool, u32, u32)> = Vec::new();
     for (n, net) in e.core.nets.iter().enumerate() {
         for off in 0..net.width {
             let leaf = (net.first + off) as usize;
@@ -333,26 +341,28 @@ fn net_names(e: &Elaborator, r: &Resolver) -> BTreeMap<u32, Vec<String>> {
             if !matches!(r.design_aig.node(lit.node()), Node::And(..)) {
                 continue;
             }
-            let to = if lit.is_complemented() {
-                &mut inverted
-            } else {
-                &mut plain
-            };
-            let names = to.entry(lit.node()).or_default();
-            if names.len() < NAMES_PER_NODE {
-                names.push(e.core.bit_name(n as u32, off));
-            }
+            named.push((lit.node(), lit.is_complemented(), n as u32, off));
         }
     }
-    for (node, names) in inverted {
-        let all = plain.entry(node).or_default();
-        for nm in names {
-            if all.len() < NAMES_PER_NODE {
-                all.push(format!("~{nm}"));
-            }
-        }
-    }
-    plain
+    named.sort_by_key(|&(node, inverted, _, _)| (node, inverted));
+    named
+        .chunk_by(|a, b| a.0 == b.0)
+        .map(|group| {
+            let names: Vec<String> = group
+                .iter()
+                .take(NAMES_PER_NODE)
+                .map(|&(_, inverted, n, off)| {
+                    let nm = e.core.bit_name(n, off);
+                    if inverted {
+                        format!("~{nm}")
+                    } else {
+                        nm
+                    }
+                })
+                .collect();
+            (group[0].0, names)
+        })
+        .collect()
 }
 
 /// Net names kept per AIG node at most.

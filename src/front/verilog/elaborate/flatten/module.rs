@@ -490,7 +490,7 @@ impl<'a> Elaborator<'a> {
                             dir: d.dir,
                             ty: d.ty,
                             signed: d.signed,
-                            range: d.range.as_ref(),
+                            range: d.range.as_deref(),
                             pos: *p,
                         },
                     );
@@ -521,7 +521,7 @@ impl<'a> Elaborator<'a> {
                     md.dir = md.dir.or(d.dir);
                     md.ty = md.ty.or(d.ty);
                     md.signed |= d.signed;
-                    md.range = md.range.or(d.range.as_ref());
+                    md.range = md.range.or(d.range.as_deref());
                 }
             }
         }

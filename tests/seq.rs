@@ -64,6 +64,28 @@ fn cli_json(dir: Option<&std::path::Path>, args: &[Arg], code: i32) -> serde_jso
     serde_json::from_str(&out).unwrap_or_else(|e| panic!("{e}: {out}{err}"))
 }
 
+/// The output of an equicone testbench run by Icarus Verilog: its first failing cycle must be
+/// `first` (the trace's first difference).
+fn assert_first_fail(out: &str, first: u64) {
+    let fails: Vec<&str> = out.lines().filter(|l| l.contains("FAIL,")).collect();
+    assert!(
+        fails
+            .first()
+            .is_some_and(|l| l.starts_with(&format!("cycle {first}: FAIL"))),
+        "{out}"
+    );
+}
+
+/// Run the testbench equicone wrote at `tb` with the reference design `r` in Icarus Verilog and
+/// check its first failing cycle is `first`.
+fn testbench_fails_first_at(tb: &std::path::Path, r: &std::path::Path, first: u64) {
+    let src = std::fs::read_to_string(tb).unwrap() + &std::fs::read_to_string(r).unwrap();
+    assert_first_fail(
+        &common::run_iverilog_as(&src, "equicone_tb", "-g2005"),
+        first,
+    );
+}
+
 fn iscas89() -> Option<PathBuf> {
     oracle::shared_data("iscas89", "s27.bench")
 }

@@ -66,12 +66,7 @@ endmodule
 #[test]
 fn two_clock_pairs_are_proved_or_different_as_icarus_verilog_runs_them() {
     let icarus = common::iverilog_available();
-    let p = |name, reference, candidate, expect| Pair {
-        name,
-        reference,
-        candidate,
-        expect,
-    };
+    let p = Pair::new;
     let all = [
         p(
             "two clocks, rewrite",
@@ -228,16 +223,7 @@ fn cli_traces_of_two_clocks_replay_in_eval_and_icarus_verilog() {
     if !common::iverilog_available() {
         return;
     }
-    let text = std::fs::read_to_string(&tb).unwrap();
-    let src = text + &std::fs::read_to_string(&r).unwrap();
-    let out = common::run_iverilog_as(&src, "equicone_tb", "-g2005");
-    let fails: Vec<&str> = out.lines().filter(|l| l.contains("FAIL,")).collect();
-    assert!(
-        fails
-            .first()
-            .is_some_and(|l| l.starts_with(&format!("cycle {first}: FAIL"))),
-        "{out}"
-    );
+    super::testbench_fails_first_at(&tb, &r, first as u64);
 }
 
 /// A clock port renamed in the candidate pairs through a port line of `--port-map`: the rewrite

@@ -177,12 +177,6 @@ endmodule
     assert!(p.iter().all(|(listed, set)| listed == set), "{p:?}");
     if icarus {
         let out = run_tb(d, "tb_bug.v");
-        let fails: Vec<&str> = out.lines().filter(|l| l.contains("FAIL,")).collect();
-        assert!(
-            fails
-                .first()
-                .is_some_and(|l| l.starts_with(&format!("cycle {first}: FAIL"))),
-            "{out}"
-        );
+        super::assert_first_fail(&out, first);
     }
 }

@@ -64,12 +64,7 @@ endmodule
 #[test]
 fn gated_clocks_are_enables_as_icarus_verilog_runs_them() {
     let icarus = common::iverilog_available();
-    let p = |name, reference, candidate, expect| Pair {
-        name,
-        reference,
-        candidate,
-        expect,
-    };
+    let p = Pair::new;
     for p in [
         p("gated clock", GATED, EXPLICIT, "equivalent"),
         p("explicit enable", EXPLICIT, GATED, "equivalent"),
@@ -182,16 +177,7 @@ fn cli_gated_bug_gives_a_trace_that_icarus_verilog_fails_at_the_reported_cycle()
     if !common::iverilog_available() {
         return;
     }
-    let text = std::fs::read_to_string(&tb).unwrap();
-    let src = text + &std::fs::read_to_string(&r).unwrap();
-    let out = common::run_iverilog_as(&src, "equicone_tb", "-g2005");
-    let fails: Vec<&str> = out.lines().filter(|l| l.contains("FAIL,")).collect();
-    assert!(
-        fails
-            .first()
-            .is_some_and(|l| l.starts_with(&format!("cycle {first}: FAIL"))),
-        "{out}"
-    );
+    super::testbench_fails_first_at(&tb, &r, first);
 }
 
 /// Clocks that are no gate of a port and an enable stay the clean error, once per clock.

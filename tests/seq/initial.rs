@@ -51,12 +51,7 @@ endmodule
 #[test]
 fn power_on_values_are_the_start_state_as_icarus_verilog_runs_them() {
     let icarus = common::iverilog_available();
-    let p = |name, reference, candidate, expect| Pair {
-        name,
-        reference,
-        candidate,
-        expect,
-    };
+    let p = Pair::new;
     for pair in [
         p("ring against counter", RING, COUNT, "equivalent"),
         p(
@@ -98,15 +93,7 @@ fn the_cli_trace_of_a_wrong_initial_value_replays_in_icarus_verilog() {
     if !common::iverilog_available() {
         return;
     }
-    let src = std::fs::read_to_string(&tb).unwrap() + &std::fs::read_to_string(&r).unwrap();
-    let out = common::run_iverilog_as(&src, "equicone_tb", "-g2005");
-    let fails: Vec<&str> = out.lines().filter(|l| l.contains("FAIL,")).collect();
-    assert!(
-        fails
-            .first()
-            .is_some_and(|l| l.starts_with(&format!("cycle {first}: FAIL"))),
-        "{out}"
-    );
+    super::testbench_fails_first_at(&tb, &r, first);
 }
 
 #[test]

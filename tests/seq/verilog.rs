@@ -20,6 +20,22 @@ pub(super) struct Pair {
     pub(super) expect: &'static str,
 }
 
+impl Pair {
+    pub(super) fn new(
+        name: &'static str,
+        reference: &'static str,
+        candidate: &'static str,
+        expect: &'static str,
+    ) -> Pair {
+        Pair {
+            name,
+            reference,
+            candidate,
+            expect,
+        }
+    }
+}
+
 pub(super) fn read(src: &str, module: &str) -> Design {
     let text = src.replace("MOD", module);
     read_verilog(&[(Arc::from(format!("{module}.v")), text)], None)
@@ -544,12 +560,7 @@ endmodule
 
 fn pairs() -> Vec<Pair> {
     let (equivalent, different) = ("equivalent", "different");
-    let p = |name, reference, candidate, expect| Pair {
-        name,
-        reference,
-        candidate,
-        expect,
-    };
+    let p = Pair::new;
     vec![
         p(
             "selector, inverted",

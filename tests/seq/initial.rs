@@ -24,10 +24,11 @@ const RING_PORT: &str = "module MOD(input clk, input en, output reg y = 1'b0);
 endmodule
 ";
 
-/// The same sequence from a 2-bit counter whose start is set by an `initial` block.
+/// The same sequence from a 2-bit counter whose start is set by an `initial` block (with `<=`,
+/// read as `=`).
 const COUNT: &str = "module MOD(input clk, input en, output y);
   reg [1:0] k;
-  initial k = 2'd0;
+  initial k <= 2'd0;
   always @(posedge clk) k <= en ? k + 2'd1 : k;
   assign y = (k == 2'd3);
 endmodule
@@ -111,6 +112,25 @@ endmodule
     // Icarus Verilog 11 on all 8 addresses.
     let n = common::exhaustive_against_icarus(rom, &[("a", 3)], &[("q", 8)], "-g2005");
     assert!(n == 8 || !common::iverilog_available());
+    // Words given in a generate loop and by a function call in a named block.
+    let rom2 = "module rom2(input [1:0] a, output [3:0] y, output [3:0] z);
+  reg [3:0] t [0:3];
+  genvar g;
+  generate for (g = 0; g < 4; g = g + 1) begin : G
+    initial t[g] = g * 3;
+  end endgenerate
+  function [3:0] sq(input [3:0] v); sq = v * v; endfunction
+  reg [3:0] u [0:3];
+  integer i;
+  initial begin : fill
+    for (i = 0; i < 4; i = i + 1) u[i] = sq(i);
+  end
+  assign y = t[a];
+  assign z = u[a];
+endmodule
+";
+    let n = common::exhaustive_against_icarus(rom2, &[("a", 2)], &[("y", 4), ("z", 4)], "-g2005");
+    assert!(n == 4 || !common::iverilog_available());
     // A register's reset value is its reset state; the initial value is not used.
     let d = super::verilog::read(RESET_WINS, "w");
     assert_eq!(d.registers[0].init, Some(false));

@@ -143,7 +143,10 @@ impl Parser<'_, '_> {
             }
             TokenKind::Ident(k) if super::symbols::is_keyword(k) => {
                 let n = self.names.name(k).to_string();
-                Err(self.unsupported(pos, format!("`{n}` statement in an always block")))
+                Err(self.unsupported(
+                    pos,
+                    format!("`{n}` statement in an always or initial block"),
+                ))
             }
             TokenKind::Ident(_) | TokenKind::Punct(Punct::LBrace) => {
                 let lhs = self.lvalue()?;

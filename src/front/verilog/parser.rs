@@ -713,8 +713,11 @@ impl<'s, 'n> Parser<'s, 'n> {
             // IEEE 1364-2005 clause 9.9.1 (from memory): run once at time 0. Read for the
             // constants it gives: power-on values of registers and tables of constant words.
             self.bump();
-            let body = self.stmt()?;
-            out.push(Item::Initial(Box::new(body), pos));
+            // `initial q <= 1;` is read as `=` would be (both give the value at time 0).
+            let was = std::mem::replace(&mut self.in_clocked, true);
+            let body = self.stmt();
+            self.in_clocked = was;
+            out.push(Item::Initial(Box::new(body?), pos));
         } else if is_keyword(k) {
             let n = self.names.name(k).to_string();
             let what = match n.as_str() {

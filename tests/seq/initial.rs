@@ -162,6 +162,7 @@ fn initial_values_that_are_not_constants_give_clear_errors() {
         std::fs::write(&f, src).unwrap();
         let (_, err) = cli(None, &[&"stats", &f], 2);
         assert!(err.contains(want), "{want}\n{err}");
+        assert!(!err.contains("never driven"), "a follow-on error:\n{err}");
     }
     // Logic that drives a variable wins over its initial value, with a warning.
     let f = dir.path().join("m.v");

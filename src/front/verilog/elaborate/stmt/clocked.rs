@@ -79,6 +79,8 @@ pub(crate) struct Clocked {
     eager: Vec<(usize, usize)>,
     /// Constants `initial` blocks give, by leaf, with where (`initial.rs`).
     pub(super) initial: BTreeMap<u32, (bool, Pos)>,
+    /// Bits whose initial value was an error (already reported).
+    pub(super) initial_broken: BTreeSet<u32>,
 }
 
 /// The leading `if` of a block body (inside a `begin`/`end` holding only it).

@@ -45,6 +45,15 @@ impl Elaborator<'_> {
             }
             let mut problem = None;
             for (off, st) in states.iter().enumerate() {
+                if !matches!(*st, BitState::Set(l) if l == Lit::TRUE || l == Lit::FALSE)
+                    && !matches!(*st, BitState::Unset(None))
+                {
+                    // Reported below; kept so that no "never driven" error follows.
+                    self.lowering
+                        .clocked
+                        .initial_broken
+                        .insert(first + off as u32);
+                }
                 match *st {
                     BitState::Set(l) if l == Lit::TRUE || l == Lit::FALSE => {
                         let leaf = first + off as u32;
@@ -81,6 +90,14 @@ impl Clocked {
     /// built (`registers_finish`).
     pub(crate) fn apply_initial(&mut self, core: &mut Core) {
         let mut warned = BTreeSet::new();
+        for &leaf in &self.initial_broken {
+            if !self.is_register_leaf(leaf) && core.drivers[leaf as usize].is_none() {
+                let o = core.owner[leaf as usize];
+                let off = leaf - core.nets[o as usize].first;
+                // A placeholder: the design is refused for the error already reported.
+                core.drive(o, off, Lit::FALSE, core.nets[o as usize].pos);
+            }
+        }
         for (&leaf, &(v, pos)) in &self.initial {
             if self.is_register_leaf(leaf) {
                 continue;

@@ -72,6 +72,18 @@ pub fn join_runs(items: &[(String, String)], label: impl Fn(&[&str]) -> String) 
     out
 }
 
+/// An output's inputs, each with its tail (`@2`, ` never`), as one list: in bus order, runs of
+/// one bus with the same tail joined (`a[0..7]@2, b@0`), or `no inputs`.
+pub fn input_list(mut ins: Vec<(String, String)>) -> String {
+    ins.sort_by(|a, b| bit_order(&a.0, &b.0));
+    let ins = join_runs(&ins, run_name);
+    if ins.is_empty() {
+        "no inputs".to_string()
+    } else {
+        ins.join(", ")
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;

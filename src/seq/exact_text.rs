@@ -2,7 +2,7 @@
 //! per output with each input's first latency, `never` or the bound, then the dead registers.
 
 use super::exact::{ExactCones, ExactInput, Influence};
-use crate::bitrun::{bit_order, extends, join_runs, run_label, run_name};
+use crate::bitrun::{extends, input_list, join_runs, run_label, run_name};
 
 impl std::fmt::Display for ExactCones {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
@@ -30,19 +30,8 @@ impl std::fmt::Display for ExactCones {
             .outputs
             .iter()
             .map(|c| {
-                let mut ins: Vec<(String, String)> = c
-                    .inputs
-                    .iter()
-                    .map(|i| (i.input.clone(), self.tail(i)))
-                    .collect();
-                ins.sort_by(|a, b| bit_order(&a.0, &b.0));
-                let ins = join_runs(&ins, run_name);
-                let rhs = if ins.is_empty() {
-                    "no inputs".to_string()
-                } else {
-                    ins.join(", ")
-                };
-                (c.output.clone(), format!(": {rhs}"))
+                let ins = c.inputs.iter().map(|i| (i.input.clone(), self.tail(i)));
+                (c.output.clone(), format!(": {}", input_list(ins.collect())))
             })
             .collect();
         for line in join_runs(&lines, run_label) {

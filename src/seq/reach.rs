@@ -5,7 +5,7 @@
 //! that the value matters (the one-cycle audit of `cone` decides that within a cycle).
 
 use crate::aig::{Lit, Marks, Node};
-use crate::bitrun::{bit_order, join_runs, run_label, run_name};
+use crate::bitrun::{input_list, join_runs, run_label, run_name};
 use crate::design::{Design, InputKind};
 use serde::Serialize;
 use std::collections::{BTreeMap, VecDeque};
@@ -134,18 +134,8 @@ impl std::fmt::Display for CycleCones {
             .outputs
             .iter()
             .map(|c| {
-                let mut ins: Vec<(String, String)> = c
-                    .inputs
-                    .iter()
-                    .map(|(n, l)| (n.clone(), format!("@{l}")))
-                    .collect();
-                ins.sort_by(|a, b| bit_order(&a.0, &b.0));
-                let ins = join_runs(&ins, run_name);
-                let rhs = if ins.is_empty() {
-                    "no inputs".to_string()
-                } else {
-                    ins.join(", ")
-                };
+                let ins = c.inputs.iter().map(|(n, l)| (n.clone(), format!("@{l}")));
+                let rhs = input_list(ins.collect());
                 let n = c.registers.len();
                 (
                     c.output.clone(),

@@ -45,31 +45,29 @@ impl Elaborator<'_> {
             }
             let mut problem = None;
             for (off, st) in states.iter().enumerate() {
-                if !matches!(*st, BitState::Set(l) if l == Lit::TRUE || l == Lit::FALSE)
-                    && !matches!(*st, BitState::Unset(None))
-                {
-                    // Reported below; kept so that no "never driven" error follows.
-                    self.lowering
-                        .clocked
-                        .initial_broken
-                        .insert(first + off as u32);
-                }
-                match *st {
+                let leaf = first + off as u32;
+                let broken = match *st {
                     BitState::Set(l) if l == Lit::TRUE || l == Lit::FALSE => {
-                        let leaf = first + off as u32;
                         let v = l == Lit::TRUE;
                         let prior = self.lowering.clocked.initial.insert(leaf, (v, pos));
                         if prior.is_some_and(|(pv, _)| pv != v) {
                             problem.get_or_insert("is given two different initial values");
                         }
+                        false
                     }
                     BitState::Set(_) => {
                         problem.get_or_insert("gets an initial value that is not a constant");
+                        true
                     }
                     BitState::Partial { .. } | BitState::Unset(Some(_)) => {
                         problem.get_or_insert("gets an initial value on some paths only");
+                        true
                     }
-                    BitState::Unset(None) => {}
+                    BitState::Unset(None) => false,
+                };
+                if broken {
+                    // Reported below; kept so that no "never driven" error follows.
+                    self.lowering.clocked.initial_broken.insert(leaf);
                 }
             }
             if let Some(p) = problem {
